@@ -1,0 +1,108 @@
+"""The ``stagewright`` command: open the workbench, or solve/check projects headless.
+
+    stagewright [PROJECT.json]                 open the workbench (a demo when no file)
+    stagewright --screenshot OUT.png [PROJECT] render the window offscreen and exit
+    stagewright solve FILE|FOLDER … [--json]   solve projects, print tables or JSON
+    stagewright check FILE|FOLDER …            validate project files
+
+Headless commands never import Qt. Every failure is one line on stderr; the exit
+status is 0 when all files succeeded, 2 when any input was rejected.
+"""
+from __future__ import annotations
+
+__all__ = ["main", "expand_paths"]
+
+import argparse
+import json
+import sys
+from pathlib import Path
+
+EXIT_OK, EXIT_FAILED, EXIT_INPUT = 0, 1, 2
+
+
+def expand_paths(items: list[str]) -> list[Path]:
+    """Files named directly, plus every ``*.json`` in folders named, in sorted order."""
+    out: list[Path] = []
+    for item in items:
+        p = Path(item)
+        out.extend(sorted(p.glob("*.json")) if p.is_dir() else [p])
+    return out
+
+
+def _solve(args) -> int:
+    from thermo import StagewrightError, solve
+    from thermo.project import load
+    from .solve_table import format_result
+
+    status, outputs = EXIT_OK, []
+    paths = expand_paths(args.files)
+    for path in paths:
+        try:
+            doc = load(path)
+            result = solve(doc).to_dict()
+        except StagewrightError as exc:
+            print(f"{path}: {exc}", file=sys.stderr)
+            status = EXIT_INPUT
+            outputs.append({"file": str(path), "error": str(exc)})
+            continue
+        outputs.append({"file": str(path), "title": doc.get("title", ""), "result": result})
+    if args.json:
+        ok = [o for o in outputs]
+        payload = ok[0].get("result") if len(paths) == 1 and "result" in ok[0] else ok
+        if not (len(paths) == 1 and "error" in ok[0]):
+            print(json.dumps(payload, indent=2, allow_nan=False))
+    else:
+        for o in outputs:
+            if "result" in o:
+                print(format_result(o["title"], o["result"]))
+                print()
+    return status
+
+
+def _check(args) -> int:
+    from thermo import StagewrightError
+    from thermo.project import load
+
+    status = EXIT_OK
+    for path in expand_paths(args.files):
+        try:
+            load(path)
+        except StagewrightError as exc:
+            for problem in getattr(exc, "problems", None) or [exc]:
+                print(f"{path}: {problem}")
+            status = EXIT_INPUT
+            continue
+        print(f"{path}: ok" if len(args.files) > 1 else "ok")
+    return status
+
+
+SUBCOMMANDS = {"solve": _solve, "check": _check}
+
+
+def _headless_parser(name: str) -> argparse.ArgumentParser:
+    p = argparse.ArgumentParser(prog=f"stagewright {name}")
+    p.add_argument("files", nargs="+", help="project files or folders of them")
+    if name == "solve":
+        p.add_argument("--json", action="store_true", help="machine-readable results (SI, unit in each key)")
+    return p
+
+
+def main(argv: list[str] | None = None) -> int:
+    """Entry point of the ``stagewright`` console script."""
+    argv = sys.argv[1:] if argv is None else list(argv)
+    if argv and argv[0] in SUBCOMMANDS:
+        args = _headless_parser(argv[0]).parse_args(argv[1:])
+        try:
+            return SUBCOMMANDS[argv[0]](args)
+        except KeyboardInterrupt:
+            return EXIT_FAILED
+    p = argparse.ArgumentParser(prog="stagewright", description="Compression-train workbench.")
+    p.add_argument("project", nargs="?", help="project file to open (default: a demo project)")
+    p.add_argument("--screenshot", metavar="OUT.png", help="render the window offscreen to a PNG and exit")
+    args = p.parse_args(argv)
+    from .gui_main import run_gui  # Qt is imported only here
+    return run_gui(args.project, args.screenshot)
+
+
+if __name__ == "__main__":
+    sys.exit(main())

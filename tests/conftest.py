@@ -1,0 +1,36 @@
+"""Shared fixtures: small valid project documents built in code (invented data)."""
+from __future__ import annotations
+
+import copy
+import os
+from pathlib import Path
+
+import pytest
+
+os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
+
+ROOT = Path(__file__).resolve().parent.parent
+SAMPLES = ROOT / "sample_projects"
+
+
+def make_doc(model="constant_cp", stages=2, eta=0.8, kind="isentropic", p_out=9e5, cool_to=None,
+             drop=0.0, T0=293.15, P0=1e5, flow=("mass", 1.0), **extra):
+    """A simple train: ``stages`` identical stages, each with a cooler back to ``cool_to``."""
+    cool_to = T0 if cool_to is None else cool_to
+    eff = {"kind": kind, "value": eta} if kind != "discharge_temperature" else {"kind": kind, "value_K": eta}
+    doc = {
+        "site": {"ambient_temperature_K": T0, "barometric_pressure_Pa": P0},
+        "fluid": {"model": model},
+        "flow": {"kind": flow[0], "value": flow[1]},
+        "discharge_pressure_Pa": p_out,
+        "stages": [{"efficiency": dict(eff),
+                    "cooler": {"outlet_temperature_K": cool_to, "pressure_drop_Pa": drop}}
+                   for _ in range(stages)],
+    }
+    doc.update(extra)
+    return copy.deepcopy(doc)
+
+
+@pytest.fixture
+def doc_factory():
+    return make_doc

@@ -1,0 +1,80 @@
+"""The one place where the core talks to CoolProp [1]_.
+
+Everything else in :mod:`thermo` asks this module for property states; a failed
+CoolProp flash becomes a :class:`~thermo.errors.PropertyRangeError` that echoes the
+inputs instead of a C++ message.
+"""
+from __future__ import annotations
+
+__all__ = ["new_air_state", "update_tp", "eos_reference", "coolprop_version",
+           "humid_air_property", "water_saturation_pressure"]
+
+import CoolProp
+import CoolProp.CoolProp as _CP
+
+from .errors import PropertyRangeError
+
+PT_INPUTS = _CP.PT_INPUTS
+DmassT_INPUTS = _CP.DmassT_INPUTS
+iHmass, iP, iT = _CP.iHmass, _CP.iP, _CP.iT
+
+
+def new_air_state():
+    """Return a fresh CoolProp ``AbstractState`` for dry air (HEOS back end, Lemmon 2000).
+
+    Returns
+    -------
+    CoolProp.AbstractState
+        Low-level state object; keep one per property model and reuse it.
+
+    References
+    ----------
+    .. [1] I. H. Bell, J. Wronski, S. Quoilin, V. Lemort, "Pure and Pseudo-pure Fluid
+       Thermophysical Property Evaluation and the Open-Source Thermophysical Property
+       Library CoolProp", Ind. Eng. Chem. Res. 53 (2014) 2498–2508.
+    """
+    return _CP.AbstractState("HEOS", "Air")
+
+
+def update_tp(state, temperature: float, pressure: float, where: str = "") -> None:
+    """Set ``state`` to temperature [K] and pressure [Pa]; raise our own error on failure."""
+    try:
+        state.update(PT_INPUTS, pressure, temperature)
+    except ValueError as exc:  # CoolProp reports every flash failure as ValueError
+        raise PropertyRangeError(
+            f"{where or 'state'}: air properties unavailable at T = {temperature:.6g} K, "
+            f"p = {pressure:.6g} Pa ({exc})", where) from None
+
+
+def eos_reference(model: str) -> str:
+    """Bibliographic reference of the equation of state behind a property model."""
+    if model == "real_gas":
+        key = _CP.get_BibTeXKey("Air", "EOS")
+        return ("E. W. Lemmon, R. T. Jacobsen, S. G. Penoncello, D. G. Friend, J. Phys. Chem. "
+                f"Ref. Data 29 (2000) 331–385 [{key}], via CoolProp {CoolProp.__version__}")
+    if model == "ideal_gas":
+        return ("Ideal-gas part of Lemmon et al., J. Phys. Chem. Ref. Data 29 (2000) 331–385, "
+                f"via CoolProp {CoolProp.__version__}")
+    return "Perfect gas with constant specific heat (user cp and k)"
+
+
+def coolprop_version() -> str:
+    """Version string of the CoolProp library in use."""
+    return CoolProp.__version__
+
+
+def humid_air_property(output: str, *pairs) -> float:
+    """``HAPropsSI`` (ASHRAE RP-1485) behind our error type; ``pairs`` = name, value, …"""
+    try:
+        return _CP.HAPropsSI(output, *pairs)
+    except ValueError as exc:
+        shown = ", ".join(f"{pairs[i]}={pairs[i + 1]:.6g}" for i in range(0, len(pairs), 2))
+        raise PropertyRangeError(f"humid-air property {output} unavailable at {shown} ({exc})") from None
+
+
+def water_saturation_pressure(temperature: float) -> float:
+    """Saturation pressure of pure water [Pa] at ``temperature`` [K] (IAPWS-95 in CoolProp)."""
+    try:
+        return _CP.PropsSI("P", "T", temperature, "Q", 0, "Water")
+    except ValueError as exc:
+        raise PropertyRangeError(f"water saturation pressure unavailable at T = {temperature:.6g} K ({exc})") from None

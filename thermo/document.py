@@ -1,0 +1,93 @@
+"""Check a project document and turn it into the solver's input.
+
+:func:`problems` lists everything wrong with a document (never raises on bad data);
+:func:`normalise` returns the document with every default filled in, or raises
+:class:`~thermo.errors.InputError` naming the first problem.
+"""
+from __future__ import annotations
+
+__all__ = ["problems", "normalise", "site_pressure"]
+
+from typing import Any
+
+from .atmosphere import standard_pressure
+from .errors import InputError, Problem
+from .schema import PROJECT
+from .schema_types import check
+
+
+def _check(doc: Any) -> tuple[dict, list[Problem]]:
+    out: list[Problem] = []
+    if not isinstance(doc, dict):
+        return {}, [Problem("(document)", type(doc).__name__, "expected a project object")]
+    norm = check(PROJECT, doc, "", out)
+    if not out:
+        out.extend(_cross_checks(norm))
+    return norm, out
+
+
+def site_pressure(norm: dict) -> float:
+    """Barometric pressure of a normalised document's site, [Pa]."""
+    site = norm["site"]
+    if site.get("barometric_pressure_Pa") is not None:
+        return site["barometric_pressure_Pa"]
+    if site.get("elevation_m") is not None:
+        return standard_pressure(site["elevation_m"])
+    return 101_325.0
+
+
+def _cross_checks(norm: dict) -> list[Problem]:
+    out = []
+    site = norm["site"]
+    if site.get("barometric_pressure_Pa") is not None and site.get("elevation_m") is not None:
+        out.append(Problem("site.elevation_m", site["elevation_m"],
+                           "give either barometric_pressure_Pa or elevation_m, not both"))
+    p0 = site_pressure(norm)
+    p1 = p0 - norm["inlet_pressure_drop_Pa"]
+    if norm["inlet_pressure_drop_Pa"] >= 0.5 * p0:
+        out.append(Problem("inlet_pressure_drop_Pa", norm["inlet_pressure_drop_Pa"],
+                           f"expected less than half the barometric pressure ({0.5 * p0:.0f} Pa)"))
+    if norm["discharge_pressure_Pa"] <= p1:
+        out.append(Problem("discharge_pressure_Pa", norm["discharge_pressure_Pa"],
+                           f"expected an absolute pressure above the stage-1 inlet pressure {p1:.0f} Pa"))
+    for i, st in enumerate(norm["stages"]):
+        lo, hi = st.get("min_pressure_ratio"), st.get("max_pressure_ratio")
+        if lo is not None and hi is not None and lo > hi:
+            out.append(Problem(f"stages[{i}].min_pressure_ratio", lo,
+                               f"expected at most max_pressure_ratio ({hi:g})"))
+        cooler = st.get("cooler")
+        if cooler and cooler.get("approach_K") is not None and cooler.get("coolant_inlet_temperature_K") is None:
+            out.append(Problem(f"stages[{i}].cooler.coolant_inlet_temperature_K", None,
+                               "required when the cooler outlet is given as an approach"))
+    return out
+
+
+def problems(doc: Any) -> list[Problem]:
+    """Every problem found in ``doc``: wrong types, unknown keys, values out of range.
+
+    Parameters
+    ----------
+    doc : dict
+        A project document (parsed JSON).
+
+    Returns
+    -------
+    list of Problem
+        Empty when the document is valid.
+    """
+    return _check(doc)[1]
+
+
+def normalise(doc: Any) -> dict:
+    """Return ``doc`` with defaults filled in.
+
+    Raises
+    ------
+    InputError
+        Naming the field path, the value and the valid range of the first problem
+        (``.problems`` holds all of them).
+    """
+    norm, found = _check(doc)
+    if found:
+        raise InputError.from_problems(found)
+    return norm

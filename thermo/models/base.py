@@ -1,0 +1,68 @@
+"""What every property model of air provides, and the state point it returns."""
+from __future__ import annotations
+
+__all__ = ["Point", "PropertyModel", "T_MIN", "T_MAX", "P_MIN", "P_MAX", "check_range"]
+
+from dataclasses import dataclass
+from typing import Protocol
+
+from ..errors import PropertyRangeError
+
+#: Validity window shared by every model [K] and [Pa]: compressed-air work, well inside
+#: the Lemmon et al. (2000) equation of state (59.75 K … 2000 K, up to 2000 MPa).
+T_MIN, T_MAX = 200.0, 1300.0
+P_MIN, P_MAX = 1.0e3, 1.0e8
+
+
+def check_range(temperature: float, pressure: float, where: str) -> None:
+    """Raise :class:`PropertyRangeError` unless T [K] and p [Pa] lie in the model window."""
+    if not (T_MIN <= temperature <= T_MAX):
+        raise PropertyRangeError(
+            f"{where}: temperature {temperature:.6g} K is outside the property range "
+            f"{T_MIN:g} K … {T_MAX:g} K", where)
+    if not (P_MIN <= pressure <= P_MAX):
+        raise PropertyRangeError(
+            f"{where}: pressure {pressure:.6g} Pa is outside the property range "
+            f"{P_MIN:g} Pa … {P_MAX:g} Pa", where)
+
+
+@dataclass(frozen=True)
+class Point:
+    """A state of the air stream.
+
+    Attributes
+    ----------
+    T : float
+        Temperature, [K].
+    P : float
+        Pressure, [Pa].
+    h : float
+        Specific enthalpy (model's own reference), [J/kg].
+    s : float
+        Specific entropy (model's own reference), [J/(kg K)].
+    rho : float
+        Density, [kg/m³].
+    """
+
+    T: float
+    P: float
+    h: float
+    s: float
+    rho: float
+
+
+class PropertyModel(Protocol):
+    """Interface of a property model of dry air (one concept per file in this package)."""
+
+    name: str
+    gas_constant: float  #: specific gas constant, [J/(kg K)]
+
+    def at_tp(self, T: float, P: float, where: str = "") -> Point: ...
+
+    def at_hp(self, h: float, P: float, where: str = "", T_guess: float = 300.0) -> Point: ...
+
+    def at_sp(self, s: float, P: float, where: str = "", T_guess: float = 300.0) -> Point: ...
+
+    def polytropic_slope(self, T: float, P: float, efficiency: float) -> float:
+        """dT/d(ln p) along a path of constant polytropic efficiency, [K]."""
+        ...

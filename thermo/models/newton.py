@@ -1,0 +1,71 @@
+"""Temperature from enthalpy or entropy at fixed pressure by Newton's method."""
+from __future__ import annotations
+
+__all__ = ["invert_temperature"]
+
+from typing import Callable
+
+from ..errors import PropertyRangeError
+from .base import T_MAX, T_MIN
+
+
+def invert_temperature(value_and_slope: Callable[[float], tuple[float, float]], target: float,
+                       T_guess: float, where: str, what: str, tol_K: float = 1e-9) -> float:
+    """Solve ``f(T) = target`` for T by Newton's method with a bisection safeguard [1]_.
+
+    Parameters
+    ----------
+    value_and_slope : callable
+        ``T -> (f(T), df/dT)``; f must increase with T (h or s at fixed p).
+    target : float
+        Value of f wanted, [J/kg] or [J/(kg K)].
+    T_guess : float
+        Starting temperature, [K].
+    where, what : str
+        Context for the error message.
+    tol_K : float
+        Convergence tolerance on the temperature step, [K].
+
+    Returns
+    -------
+    float
+        Temperature, [K].
+
+    Raises
+    ------
+    PropertyRangeError
+        If the root lies outside the model temperature window.
+
+    Notes
+    -----
+    f is monotone in T (cp > 0), so the bracket [T_MIN, T_MAX] is kept and a Newton
+    step leaving it falls back to bisection; convergence is quadratic, usually 2–4 steps.
+
+    References
+    ----------
+    .. [1] W. H. Press, S. A. Teukolsky, W. T. Vetterling, B. P. Flannery, *Numerical
+       Recipes*, 3rd ed., Cambridge University Press, 2007, §9.4 (rtsafe).
+    """
+    lo, hi = T_MIN, T_MAX
+    T = min(max(T_guess, lo), hi)
+    for _ in range(60):
+        f, dfdT = value_and_slope(T)
+        r = f - target
+        if r > 0:
+            hi = T
+        else:
+            lo = T
+        step = r / dfdT
+        T_new = T - step
+        if not (lo <= T_new <= hi):
+            T_new = 0.5 * (lo + hi)
+        if abs(T_new - T) < tol_K:
+            return T_new
+        T = T_new
+        if hi - lo < tol_K:
+            break
+    if T <= T_MIN + 1e-6 or T >= T_MAX - 1e-6:
+        raise PropertyRangeError(
+            f"{where}: the {what} asked for lies outside the property range "
+            f"{T_MIN:g} K … {T_MAX:g} K", where)
+    return T

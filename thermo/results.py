@@ -1,0 +1,142 @@
+"""The result of a train solve, and its plain-data form (``to_dict``) for JSON, CSV and reports."""
+from __future__ import annotations
+
+__all__ = ["TrainResult", "InletResult", "Warning_", "point_dict"]
+
+import math
+from dataclasses import dataclass, field
+
+from .cooler import CoolerResult
+from .exergy import DeadState
+from .models.base import Point
+from .stage import StageResult
+
+
+@dataclass(frozen=True)
+class Warning_:
+    """Something the user should look at; ``field`` is the input path to select."""
+
+    field: str
+    message: str
+
+
+@dataclass
+class InletResult:
+    """The intake filter: a throttle from ambient to the stage-1 inlet pressure."""
+
+    ambient: Point
+    outlet: Point
+    entropy_generation_W_K: float
+    exergy_destroyed_W: float
+
+
+def point_dict(p: Point, velocity: float = 0.0) -> dict:
+    """Plain-data form of a state point (SI, unit in each key)."""
+    return {"temperature_K": p.T, "pressure_Pa": p.P, "enthalpy_J_kg": p.h, "entropy_J_kgK": p.s,
+            "density_kg_m3": p.rho, "velocity_m_s": velocity, "humidity_ratio": 0.0,
+            "relative_humidity": 0.0, "dew_point_K": None}
+
+
+def _stage_dict(st: StageResult, cooler: CoolerResult | None) -> dict:
+    return {
+        "inlet": point_dict(st.inlet, st.inlet_velocity_m_s),
+        "outlet": point_dict(st.outlet, st.exit_velocity_m_s),
+        "pressure_ratio": st.pressure_ratio,
+        "isentropic_discharge_temperature_K": st.isentropic_outlet.T,
+        "gas_power_W": st.gas_power_W,
+        "shaft_power_W": st.shaft_power_W,
+        "mechanical_loss_W": st.mechanical_loss_W,
+        "heat_loss_W": st.heat_loss_W,
+        "heat_loss_exergy_W": st.heat_loss_exergy_W,
+        "isentropic_efficiency": st.isentropic_efficiency,
+        "polytropic_efficiency": st.polytropic_efficiency,
+        "polytropic_exponent": st.polytropic_exponent,
+        "entropy_generation_W_K": st.entropy_generation_W_K,
+        "exergy_destroyed_W": st.exergy_destroyed_W,
+        "path": [{"temperature_K": p.T, "pressure_Pa": p.P, "entropy_J_kgK": p.s} for p in st.path],
+        "cooler": None if cooler is None else {
+            "inlet": point_dict(cooler.inlet, st.exit_velocity_m_s),
+            "outlet": point_dict(cooler.outlet),
+            "duty_W": cooler.duty_W,
+            "boundary_temperature_K": cooler.boundary_temperature_K,
+            "heat_exergy_W": cooler.heat_exergy_W,
+            "entropy_generation_W_K": cooler.entropy_generation_W_K,
+            "exergy_destroyed_W": cooler.exergy_destroyed_W,
+            "path": [{"temperature_K": p.T, "pressure_Pa": p.P, "entropy_J_kgK": p.s} for p in cooler.path],
+        },
+    }
+
+
+@dataclass
+class TrainResult:
+    """All states, component balances and totals of one solved train (SI units)."""
+
+    model: str
+    eos_reference: str
+    dead: DeadState
+    mass_flow_kg_s: float
+    free_air_delivery_m3_s: float
+    normal_volume_flow_m3_s: float
+    inlet: InletResult
+    stages: list
+    coolers: list  #: CoolerResult or None, one per stage
+    delivery: Point
+    delivery_velocity_m_s: float
+    shaft_power_W: float
+    driver_power_W: float
+    specific_power_kW_per_m3_min: float
+    heat_rejected_W: float
+    entropy_generation_W_K: float
+    exergy_destroyed_W: float
+    heat_exergy_W: float
+    exergy_gained_W: float
+    isothermal_power_W: float
+    isothermal_efficiency: float
+    second_law_efficiency: float
+    energy_residual: float
+    exergy_residual: float
+    warnings: list = field(default_factory=list)
+
+    def to_dict(self) -> dict:
+        """Plain-data form (JSON-ready, no NaN: missing values are ``None``)."""
+        d = {
+            "model": self.model,
+            "eos_reference": self.eos_reference,
+            "ambient_temperature_K": self.dead.T0,
+            "barometric_pressure_Pa": self.dead.P0,
+            "mass_flow_kg_s": self.mass_flow_kg_s,
+            "free_air_delivery_m3_s": self.free_air_delivery_m3_s,
+            "normal_volume_flow_m3_s": self.normal_volume_flow_m3_s,
+            "shaft_power_W": self.shaft_power_W,
+            "driver_power_W": self.driver_power_W,
+            "specific_power_kW_per_m3_min": self.specific_power_kW_per_m3_min,
+            "heat_rejected_W": self.heat_rejected_W,
+            "entropy_generation_W_K": self.entropy_generation_W_K,
+            "exergy_destroyed_W": self.exergy_destroyed_W,
+            "heat_exergy_W": self.heat_exergy_W,
+            "exergy_gained_W": self.exergy_gained_W,
+            "isothermal_power_W": self.isothermal_power_W,
+            "isothermal_efficiency": self.isothermal_efficiency,
+            "second_law_efficiency": self.second_law_efficiency,
+            "energy_residual": self.energy_residual,
+            "exergy_residual": self.exergy_residual,
+            "intake": point_dict(self.inlet.ambient),
+            "inlet_filter": {"outlet": point_dict(self.inlet.outlet),
+                             "entropy_generation_W_K": self.inlet.entropy_generation_W_K,
+                             "exergy_destroyed_W": self.inlet.exergy_destroyed_W},
+            "delivery": point_dict(self.delivery, self.delivery_velocity_m_s),
+            "stages": [_stage_dict(s, c) for s, c in zip(self.stages, self.coolers)],
+            "warnings": [{"field": w.field, "message": w.message} for w in self.warnings],
+        }
+        return _finite(d)
+
+
+def _finite(obj):
+    """Replace any non-finite float by None so that JSON output never carries NaN."""
+    if isinstance(obj, float):
+        return obj if math.isfinite(obj) else None
+    if isinstance(obj, dict):
+        return {k: _finite(v) for k, v in obj.items()}
+    if isinstance(obj, list):
+        return [_finite(v) for v in obj]
+    return obj

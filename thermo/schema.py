@@ -1,0 +1,77 @@
+"""The project document, version 1: every key, its unit, range and default.
+
+This table is the single source of truth for what a project may contain. The solver,
+the project-file loader, the window's entry fields and ``docs/project-format.md`` all
+follow it. Keys carry SI units in their names.
+"""
+from __future__ import annotations
+
+__all__ = ["FORMAT_NAME", "FORMAT_VERSION", "PROJECT", "STAGE", "COOLER", "EFFICIENCY",
+           "FLOW_KINDS", "MODEL_NAMES"]
+
+from .schema_types import Choice, Items, Num, Obj, Text, Variant
+
+FORMAT_NAME = "stagewright-project"
+FORMAT_VERSION = 1
+FLOW_KINDS = ("mass", "free_air_delivery", "normal_volume", "shaft_power")
+MODEL_NAMES = ("real_gas", "ideal_gas", "constant_cp")
+
+_TEMPERATURE = dict(lo=200.0, hi=1300.0, unit="K")
+
+EFFICIENCY = Variant(required=True, variants={
+    "isentropic": {"value": Num(0.0, 1.0, lo_open=True, required=True)},
+    "polytropic": {"value": Num(0.0, 1.0, lo_open=True, required=True)},
+    "discharge_temperature": {"value_K": Num(required=True, **_TEMPERATURE)},
+})
+
+COOLER = Obj(nullable=True, default=None, one_of=(("outlet_temperature_K", "approach_K"),), fields={
+    "outlet_temperature_K": Num(nullable=True, **_TEMPERATURE),
+    "approach_K": Num(0.0, 200.0, unit="K", nullable=True),
+    "coolant_inlet_temperature_K": Num(263.15, 373.15, unit="K", nullable=True, default=None),
+    "pressure_drop_Pa": Num(0.0, 5.0e6, unit="Pa", default=0.0),
+    "separator_efficiency": Num(0.0, 1.0, default=1.0),
+})
+
+STAGE = Obj(fields={
+    "name": Text(default=""),
+    "pressure_ratio": Num(1.0, 40.0, lo_open=True, nullable=True, default=None),
+    "efficiency": EFFICIENCY,
+    "mechanical_efficiency": Num(0.0, 1.0, lo_open=True, default=1.0),
+    "heat_loss_W": Num(0.0, 1.0e8, unit="W", default=0.0),
+    "heat_loss_boundary_temperature_K": Num(nullable=True, default=None, **_TEMPERATURE),
+    "exit_velocity_m_s": Num(0.0, 340.0, unit="m/s", default=0.0),
+    "max_discharge_temperature_K": Num(250.0, 1300.0, unit="K", nullable=True, default=None),
+    "min_pressure_ratio": Num(1.0, 40.0, nullable=True, default=None),
+    "max_pressure_ratio": Num(1.0, 40.0, lo_open=True, nullable=True, default=None),
+    "cooler": COOLER,
+})
+
+PROJECT = Obj(fields={
+    "format": Choice((FORMAT_NAME,), default=FORMAT_NAME),
+    "version": Num(1, FORMAT_VERSION, integer=True, default=FORMAT_VERSION),
+    "title": Text(default="", max_length=200),
+    "note": Text(default=""),
+    "site": Obj(required=True, fields={
+        "ambient_temperature_K": Num(223.15, 333.15, unit="K", required=True),
+        "barometric_pressure_Pa": Num(50_000.0, 110_000.0, unit="Pa", nullable=True, default=None),
+        "elevation_m": Num(-500.0, 5000.0, unit="m", nullable=True, default=None),
+        "relative_humidity": Num(0.0, 1.0, default=0.0),
+    }),
+    "fluid": Obj(default={"model": "real_gas"}, fields={
+        "model": Choice(MODEL_NAMES, default="real_gas"),
+        "cp_J_kgK": Num(500.0, 5000.0, unit="J/(kg K)", default=1005.0),
+        "k": Num(1.0, 1.7, lo_open=True, default=1.4),
+    }),
+    "flow": Variant(required=True, variants={
+        "mass": {"value": Num(0.0, 1000.0, unit="kg/s", lo_open=True, required=True)},
+        "free_air_delivery": {"value": Num(0.0, 1000.0, unit="m³/s", lo_open=True, required=True)},
+        "normal_volume": {"value": Num(0.0, 1000.0, unit="m³/s", lo_open=True, required=True)},
+        "shaft_power": {"value": Num(0.0, 1.0e9, unit="W", lo_open=True, required=True)},
+    }),
+    "inlet_pressure_drop_Pa": Num(0.0, 50_000.0, unit="Pa", default=0.0),
+    "discharge_pressure_Pa": Num(50_000.0, 5.0e7, unit="Pa", required=True),
+    "driver": Obj(default={"efficiency": 1.0}, fields={
+        "efficiency": Num(0.0, 1.0, lo_open=True, default=1.0),
+    }),
+    "stages": Items(STAGE, min_length=1, max_length=12, required=True),
+})

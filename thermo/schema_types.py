@@ -1,0 +1,182 @@
+"""A small declarative schema language for project documents.
+
+A schema is a tree of :class:`Num`, :class:`Choice`, :class:`Text`, :class:`Obj`,
+:class:`Variant` and :class:`Items`. :func:`check` walks a document against it and
+returns the normalised document (defaults filled in) and a list of
+:class:`~thermo.errors.Problem`, each naming the field path, the value and what is
+allowed. It never raises on bad data and never evaluates anything.
+"""
+from __future__ import annotations
+
+__all__ = ["Num", "Choice", "Text", "Obj", "Variant", "Items", "check", "MISSING"]
+
+import math
+from dataclasses import dataclass, field
+from typing import Any
+
+from .errors import Problem
+
+MISSING = object()
+
+
+@dataclass(frozen=True)
+class Num:
+    """A finite real number in [lo, hi] (bounds open where flagged), with a unit label."""
+
+    lo: float = -math.inf
+    hi: float = math.inf
+    unit: str = ""
+    required: bool = False
+    default: Any = MISSING
+    nullable: bool = False
+    lo_open: bool = False
+    hi_open: bool = False
+    integer: bool = False
+
+    def describe(self) -> str:
+        lo = "(" if self.lo_open else "["
+        hi = ")" if self.hi_open else "]"
+        kind = "a whole number" if self.integer else "a number"
+        unit = f" {self.unit}" if self.unit else ""
+        return f"expected {kind} in {lo}{self.lo:g}, {self.hi:g}{hi}{unit}"
+
+
+@dataclass(frozen=True)
+class Choice:
+    """One of a fixed set of strings."""
+
+    options: tuple
+    required: bool = False
+    default: Any = MISSING
+    nullable: bool = False
+
+    def describe(self) -> str:
+        return "expected one of " + ", ".join(repr(o) for o in self.options)
+
+
+@dataclass(frozen=True)
+class Text:
+    """Free text of bounded length."""
+
+    required: bool = False
+    default: Any = MISSING
+    max_length: int = 20_000
+    nullable: bool = False
+
+
+@dataclass(frozen=True)
+class Obj:
+    """A JSON object with a fixed set of keys; unknown keys are problems."""
+
+    fields: dict = field(default_factory=dict)
+    required: bool = False
+    nullable: bool = False
+    default: Any = MISSING
+    one_of: tuple = ()  #: groups of keys of which exactly one must be present
+
+
+@dataclass(frozen=True)
+class Variant:
+    """An object whose allowed keys depend on its ``kind`` (a tagged union)."""
+
+    variants: dict  #: kind -> dict of fields (``kind`` itself excluded)
+    tag: str = "kind"
+    required: bool = False
+    nullable: bool = False
+    default: Any = MISSING
+
+
+@dataclass(frozen=True)
+class Items:
+    """A JSON array of objects of one schema."""
+
+    item: Any
+    min_length: int = 0
+    max_length: int = 1000
+    required: bool = False
+    default: Any = MISSING
+
+
+def _is_number(v: Any) -> bool:
+    return isinstance(v, (int, float)) and not isinstance(v, bool)
+
+
+def _check_num(s: Num, v: Any, path: str, out: list) -> Any:
+    if not _is_number(v) or not math.isfinite(v):
+        out.append(Problem(path, v, s.describe()))
+        return v
+    if s.integer and not float(v).is_integer():
+        out.append(Problem(path, v, s.describe()))
+        return v
+    below = v <= s.lo if s.lo_open else v < s.lo
+    above = v >= s.hi if s.hi_open else v > s.hi
+    if below or above:
+        out.append(Problem(path, v, s.describe()))
+    return int(v) if s.integer else float(v)
+
+
+def _check_fields(fields: dict, v: dict, path: str, out: list, skip=()) -> dict:
+    result = {}
+    prefix = f"{path}." if path else ""
+    for key in v:
+        if key not in fields and key not in skip:
+            known = ", ".join(sorted(list(fields) + list(skip)))
+            out.append(Problem(f"{prefix}{key}", v[key], f"unknown key; known keys here: {known}"))
+    for key, sub in fields.items():
+        if key in v:
+            result[key] = check(sub, v[key], f"{prefix}{key}", out)
+        elif getattr(sub, "required", False):
+            out.append(Problem(f"{prefix}{key}", None, "required key is missing"))
+        elif getattr(sub, "default", MISSING) is not MISSING:
+            d = sub.default
+            result[key] = check(sub, d, f"{prefix}{key}", out) if isinstance(d, (dict, list)) else d
+    return result
+
+
+def check(schema: Any, value: Any, path: str, out: list) -> Any:
+    """Check ``value`` against ``schema``; append problems to ``out``; return normalised value."""
+    if value is None and getattr(schema, "nullable", False):
+        return None
+    if isinstance(schema, Num):
+        return _check_num(schema, value, path, out)
+    if isinstance(schema, Choice):
+        if value not in schema.options:
+            out.append(Problem(path, value, schema.describe()))
+        return value
+    if isinstance(schema, Text):
+        if not isinstance(value, str):
+            out.append(Problem(path, value, "expected text"))
+        elif len(value) > schema.max_length:
+            out.append(Problem(path, value[:40] + "…", f"text longer than {schema.max_length} characters"))
+        return value
+    if isinstance(schema, Obj):
+        if not isinstance(value, dict):
+            out.append(Problem(path, value, "expected an object"))
+            return {}
+        for group in schema.one_of:
+            present = [k for k in group if k in value and value[k] is not None]
+            if len(present) != 1:
+                out.append(Problem(path, {k: value.get(k) for k in group},
+                                   "give exactly one of " + ", ".join(group)))
+        return _check_fields(schema.fields, value, path, out)
+    if isinstance(schema, Variant):
+        if not isinstance(value, dict):
+            out.append(Problem(path, value, "expected an object"))
+            return {}
+        tag = value.get(schema.tag)
+        if tag not in schema.variants:
+            out.append(Problem(f"{path}.{schema.tag}", tag,
+                               "expected one of " + ", ".join(repr(k) for k in schema.variants)))
+            return dict(value)
+        result = _check_fields(schema.variants[tag], value, path, out, skip=(schema.tag,))
+        result[schema.tag] = tag
+        return result
+    if isinstance(schema, Items):
+        if not isinstance(value, list):
+            out.append(Problem(path, value, "expected a list"))
+            return []
+        if not schema.min_length <= len(value) <= schema.max_length:
+            out.append(Problem(path, f"{len(value)} item(s)",
+                               f"expected {schema.min_length} to {schema.max_length} items"))
+        return [check(schema.item, item, f"{path}[{i}]", out) for i, item in enumerate(value)]
+    raise TypeError(f"unknown schema node {schema!r}")  # programming error, not user input

@@ -1,0 +1,93 @@
+"""Solve a project document: pick the model, find the mass flow, balance the train."""
+from __future__ import annotations
+
+__all__ = ["solve", "model_for"]
+
+import threading
+
+from .document import normalise, site_pressure
+from .errors import InputError, StagewrightError
+from .flow import mass_flow_from
+from .models import make_model
+from .results import TrainResult
+from .train import solve_train
+
+_local = threading.local()
+
+
+def model_for(fluid: dict):
+    """Property model for a ``fluid`` section, reused per thread (one AbstractState each)."""
+    cache = getattr(_local, "models", None)
+    if cache is None:
+        cache = _local.models = {}
+    key = (fluid.get("model", "real_gas"), fluid.get("cp_J_kgK"), fluid.get("k"))
+    if key not in cache:
+        cache[key] = make_model(fluid)
+    return cache[key]
+
+
+def solve(doc: dict) -> TrainResult:
+    """Solve a compression train described by a project document.
+
+    Parameters
+    ----------
+    doc : dict
+        Project document (see ``docs/project-format.md``).
+
+    Returns
+    -------
+    TrainResult
+        Every state, component balance and total; ``.to_dict()`` gives plain data.
+
+    Raises
+    ------
+    StagewrightError
+        For any input problem (its message names the field, value and valid range),
+        a state outside the property model's range, or a second-law violation.
+
+    Notes
+    -----
+    When the flow is given as shaft power, the mass flow is found by the secant method
+    on the shaft power of the whole train (a running machine checked from measured
+    pressures, temperatures and power), converged to 1e-12 relative.
+
+    Examples
+    --------
+    >>> doc = {"site": {"ambient_temperature_K": 293.15, "barometric_pressure_Pa": 100000.0},
+    ...        "fluid": {"model": "constant_cp"}, "flow": {"kind": "mass", "value": 1.0},
+    ...        "discharge_pressure_Pa": 400000.0,
+    ...        "stages": [{"efficiency": {"kind": "isentropic", "value": 1.0}}]}
+    >>> round(solve(doc).stages[0].outlet.T, 3)  # 293.15 * 4 ** (0.4 / 1.4)
+    435.619
+    """
+    norm = normalise(doc)
+    model = model_for(norm["fluid"])
+    flow = norm["flow"]
+    T0, P0 = norm["site"]["ambient_temperature_K"], site_pressure(norm)
+    if flow["kind"] != "shaft_power":
+        return solve_train(norm, model, mass_flow_from(flow["kind"], flow["value"], model, T0, P0))
+    return _solve_for_power(norm, model, flow["value"])
+
+
+def _solve_for_power(norm: dict, model, target_W: float) -> TrainResult:
+    """Find the mass flow whose shaft power equals ``target_W`` (secant, bracketed)."""
+    fixed = sum(s["heat_loss_W"] / s["mechanical_efficiency"] for s in norm["stages"])
+    if target_W <= fixed:
+        raise InputError("flow.value", target_W,
+                         f"shaft power must exceed {fixed:.6g} W, the casing heat losses alone; "
+                         "this power is too small to move any air")
+    m0 = 1.0
+    r0 = solve_train(norm, model, m0)
+    per_kg = (r0.shaft_power_W - fixed) / m0
+    m1 = (target_W - fixed) / per_kg
+    m_prev, f_prev = m0, r0.shaft_power_W - target_W
+    for _ in range(40):
+        r1 = solve_train(norm, model, m1)
+        f1 = r1.shaft_power_W - target_W
+        if abs(f1) <= 1e-12 * target_W:
+            return r1
+        if f1 == f_prev:
+            break
+        m_next = m1 - f1 * (m1 - m_prev) / (f1 - f_prev)
+        m_prev, f_prev, m1 = m1, f1, max(m_next, 0.5 * m1)
+    raise StagewrightError(f"flow.value: no mass flow gives a shaft power of {target_W:.6g} W", "flow.value")

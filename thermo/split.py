@@ -1,0 +1,88 @@
+"""Stage pressure ratios: given per stage, or an equal split that meets the discharge pressure."""
+from __future__ import annotations
+
+__all__ = ["stage_pressure_ratios", "delivered_pressure"]
+
+from scipy.optimize import brentq
+
+from .errors import InputError
+
+
+def delivered_pressure(p_in: float, ratios: list[float], cooler_drops: list[float]) -> float:
+    """Pressure after the last cooler for given stage ratios and cooler drops, [Pa].
+
+    Parameters
+    ----------
+    p_in : float
+        Stage-1 inlet pressure, [Pa].
+    ratios : list of float
+        Stage pressure ratios p_out/p_in, [-].
+    cooler_drops : list of float
+        Pressure drop of the cooler after each stage (0 where there is none), [Pa].
+    """
+    p = p_in
+    for r, dp in zip(ratios, cooler_drops):
+        p = p * r - dp
+    return p
+
+
+def stage_pressure_ratios(p_in: float, p_delivery: float, given: list, cooler_drops: list[float]) -> list[float]:
+    r"""Pressure ratio of every stage so that the delivery pressure is met [1]_.
+
+    Stages whose ratio is given keep it; the others share one ratio r, found so that
+
+    .. math:: p_\mathrm{delivery} = \bigl(\cdots((p_1 r_1 - \Delta p_1) r_2 - \Delta p_2)\cdots\bigr)
+
+    holds exactly. With no cooler pressure drops and nothing given this is the equal
+    geometric split :math:`r = (p_\mathrm{delivery}/p_1)^{1/N}`, the split of least work
+    for ideal-gas stages with perfect intercooling [1]_.
+
+    Parameters
+    ----------
+    p_in : float
+        Stage-1 inlet pressure, [Pa].
+    p_delivery : float
+        Pressure wanted after the last cooler, [Pa].
+    given : list of float or None
+        Ratio given for each stage, None where it is to be found.
+    cooler_drops : list of float
+        Pressure drop of the cooler after each stage (0 where there is none), [Pa].
+
+    Returns
+    -------
+    list of float
+        Ratio of every stage; when all are given they are returned unchanged.
+
+    Raises
+    ------
+    InputError
+        If the ratios given already exceed the delivery pressure, or no shared ratio up
+        to 40 can reach it.
+
+    Examples
+    --------
+    >>> [round(r, 6) for r in stage_pressure_ratios(1e5, 9e5, [None, None], [0.0, 0.0])]
+    [3.0, 3.0]
+
+    References
+    ----------
+    .. [1] Y. A. Çengel, M. A. Boles, *Thermodynamics: An Engineering Approach*, 8th ed.,
+       McGraw-Hill, 2015, §7-11 (multistage compression with intercooling).
+    """
+    free = [i for i, r in enumerate(given) if r is None]
+    if not free:
+        return list(given)
+
+    def miss(r: float) -> float:
+        ratios = [r if g is None else g for g in given]
+        return delivered_pressure(p_in, ratios, cooler_drops) - p_delivery
+
+    if miss(1.0) >= 0.0:
+        raise InputError(f"stages[{free[0]}].pressure_ratio", None,
+                         "the ratios given on the other stages already reach the discharge pressure; "
+                         "lower them or give every ratio")
+    if miss(40.0) < 0.0:
+        raise InputError("discharge_pressure_Pa", p_delivery,
+                         "cannot be reached with stage pressure ratios up to 40; add stages")
+    r = brentq(miss, 1.0, 40.0, xtol=1e-14, rtol=1e-15)
+    return [r if g is None else g for g in given]

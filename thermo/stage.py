@@ -1,0 +1,158 @@
+"""One compression stage: first- and second-law balance of an open system [1]_ [2]_."""
+from __future__ import annotations
+
+__all__ = ["StageResult", "solve_stage"]
+
+import math
+from dataclasses import dataclass
+
+from .errors import SecondLawViolation
+from .exergy import DeadState, heat_exergy
+from .models.base import Point, PropertyModel
+from .polytropic import polytropic_efficiency_between, polytropic_path
+
+
+@dataclass
+class StageResult:
+    """Everything computed for one stage (SI units throughout)."""
+
+    index: int
+    inlet: Point
+    inlet_velocity_m_s: float
+    outlet: Point
+    exit_velocity_m_s: float
+    pressure_ratio: float
+    isentropic_outlet: Point
+    isentropic_efficiency: float
+    polytropic_efficiency: float
+    polytropic_exponent: float
+    gas_power_W: float
+    shaft_power_W: float
+    mechanical_loss_W: float
+    heat_loss_W: float
+    heat_loss_boundary_temperature_K: float
+    heat_loss_exergy_W: float
+    entropy_generation_W_K: float
+    exergy_destroyed_W: float
+    path: list
+
+
+def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inlet_velocity: float,
+                p_out: float, mass_flow: float, dead: DeadState) -> StageResult:
+    r"""Solve one stage for its discharge state, power and entropy generation [1]_ [2]_.
+
+    Energy (steady flow, inlet kinetic energy counted, casing heat loss :math:`\dot Q`):
+
+    .. math::
+
+        \dot W_\mathrm{gas} = \dot m \left(h_2 + \tfrac12 V_2^2 - h_1 - \tfrac12 V_1^2\right)
+        + \dot Q, \qquad \dot W_\mathrm{shaft} = \dot W_\mathrm{gas} / \eta_m
+
+    Entropy (heat leaves at the boundary temperature :math:`T_b`, mechanical losses end
+    as heat at the dead-state temperature :math:`T_0`) and Gouy–Stodola:
+
+    .. math::
+
+        \dot S_\mathrm{gen} = \dot m (s_2 - s_1) + \frac{\dot Q}{T_b}
+        + \frac{\dot W_\mathrm{shaft} - \dot W_\mathrm{gas}}{T_0}, \qquad
+        \dot X_\mathrm{dest} = T_0 \dot S_\mathrm{gen}
+
+    Parameters
+    ----------
+    model : PropertyModel
+        Property model of the gas.
+    spec : dict
+        Normalised stage entry of the project document.
+    index : int
+        Position of the stage (0-based), for messages.
+    inlet : Point
+        Static inlet state.
+    inlet_velocity : float
+        Inlet velocity, [m/s] (non-zero only when a stage follows a stage directly).
+    p_out : float
+        Discharge pressure, [Pa].
+    mass_flow : float
+        Mass flow through the stage, [kg/s].
+    dead : DeadState
+        Site dead state.
+
+    Returns
+    -------
+    StageResult
+
+    Raises
+    ------
+    SecondLawViolation
+        If a measured discharge temperature implies an isentropic efficiency above 1, or
+        the balance needs negative entropy generation.
+
+    Notes
+    -----
+    Efficiencies refer to the adiabatic internal compression from the inlet stagnation
+    state to the discharge pressure, whose end enthalpy is
+    :math:`h_{2i} = h_{01} + \dot W_\mathrm{gas}/\dot m`:
+    :math:`\eta_s = (h_{2s} - h_{01})/(h_{2i} - h_{01})`; the polytropic efficiency is that
+    of the constant-efficiency path from 01 to 2i (see :mod:`thermo.polytropic`). The
+    casing loss and the exit kinetic energy are then taken off to give the static
+    discharge state. The polytropic exponent is :math:`n = \ln(p_2/p_1)/\ln(\rho_{2i}/\rho_{01})`.
+
+    References
+    ----------
+    .. [1] Y. A. Çengel, M. A. Boles, *Thermodynamics: An Engineering Approach*, 8th ed.,
+       McGraw-Hill, 2015, §5-4 (steady-flow energy balance), §7-13 (entropy balance),
+       §8-8 (second-law efficiency).
+    .. [2] ASME PTC 10-1997, *Performance Test Code on Compressors and Exhausters*, §5.
+    """
+    where = f"stages[{index}]"
+    eff = spec["efficiency"]
+    v_out = spec["exit_velocity_m_s"]
+    q_loss = spec["heat_loss_W"]
+    q = q_loss / mass_flow
+    start = inlet if inlet_velocity == 0.0 else model.at_hp(
+        inlet.h + 0.5 * inlet_velocity ** 2, inlet.P, where, T_guess=inlet.T)
+    r = p_out / start.P
+    t_guess = start.T * r ** 0.3
+    iso = model.at_sp(start.s, p_out, f"{where} isentropic discharge", T_guess=t_guess)
+    dh_s = iso.h - start.h
+    kind = eff["kind"]
+    if kind == "isentropic":
+        dh = dh_s / eff["value"]
+        eta_p, path = polytropic_efficiency_between(model, start, start.h + dh, p_out, eff["value"])
+    elif kind == "polytropic":
+        path = polytropic_path(model, start, p_out, eff["value"])
+        eta_p, dh = eff["value"], path[-1].h - start.h
+    else:  # measured discharge temperature
+        measured = model.at_tp(eff["value_K"], p_out, f"{where}.efficiency.value_K")
+        dh = measured.h + 0.5 * v_out ** 2 + q - start.h
+        if dh <= dh_s:
+            raise SecondLawViolation(
+                f"{where}.efficiency.value_K: a discharge temperature of {eff['value_K']:.2f} K "
+                f"would need an isentropic efficiency above 1 (minimum adiabatic discharge "
+                f"{iso.T:.2f} K with the given casing heat loss): a second-law violation — check "
+                f"the measured temperatures and pressures", f"{where}.efficiency.value_K")
+        eta_p, path = polytropic_efficiency_between(model, start, start.h + dh, p_out, dh_s / dh)
+    h_out = start.h + dh - q - 0.5 * v_out ** 2
+    outlet = model.at_hp(h_out, p_out, f"{where} discharge", T_guess=path[-1].T)
+    w_gas = mass_flow * dh
+    w_shaft = w_gas / spec["mechanical_efficiency"]
+    w_mech = w_shaft - w_gas
+    t_b = spec["heat_loss_boundary_temperature_K"] or dead.T0
+    if q_loss > 0.0 and t_b > max(p.T for p in path):
+        raise SecondLawViolation(
+            f"{where}.heat_loss_boundary_temperature_K: casing heat cannot leave at {t_b:.2f} K "
+            f"when the gas is never hotter than {max(p.T for p in path):.2f} K "
+            "(a second-law violation)", f"{where}.heat_loss_boundary_temperature_K")
+    s_gen = mass_flow * (outlet.s - inlet.s) + q_loss / t_b + w_mech / dead.T0
+    if s_gen < -1e-9 * max(1.0, w_shaft / dead.T0):
+        raise SecondLawViolation(
+            f"{where}: the given data need negative entropy generation ({s_gen:.4g} W/K): "
+            "a second-law violation", where)
+    end = path[-1]
+    n = math.log(p_out / start.P) / math.log(end.rho / start.rho)
+    return StageResult(
+        index=index, inlet=inlet, inlet_velocity_m_s=inlet_velocity, outlet=outlet,
+        exit_velocity_m_s=v_out, pressure_ratio=r, isentropic_outlet=iso,
+        isentropic_efficiency=dh_s / dh, polytropic_efficiency=eta_p, polytropic_exponent=n,
+        gas_power_W=w_gas, shaft_power_W=w_shaft, mechanical_loss_W=w_mech, heat_loss_W=q_loss,
+        heat_loss_boundary_temperature_K=t_b, heat_loss_exergy_W=heat_exergy(q_loss, t_b, dead.T0),
+        entropy_generation_W_K=s_gen, exergy_destroyed_W=dead.T0 * s_gen, path=path)
