@@ -1,0 +1,115 @@
+"""The one table of display units (SI and US customary), used by the window, charts and reports.
+
+The calculation core never sees these: it works in bare SI floats. A display value is
+``(si - offset) / scale``; an entered value becomes SI as ``display * scale + offset``.
+Gauge pressure is relative to the site barometric pressure, so the pressure unit is
+built with that pressure as its offset.
+
+Conversion factors are exact by definition (NIST SP 811, 2008 edition, Appendix B):
+1 lb = 0.45359237 kg, 1 ft = 0.3048 m, 1 psi = 6894.757293168 Pa,
+1 Btu(IT) = 1055.05585262 J, 1 hp (mechanical) = 745.69987158 W, 1 US gal = 3.785411784 L.
+"""
+from __future__ import annotations
+
+__all__ = ["Unit", "SYSTEMS", "QUANTITIES", "unit", "to_display", "to_si", "format_value", "label"]
+
+from dataclasses import dataclass
+
+_LB = 0.45359237
+_FT = 0.3048
+_PSI = 6894.757293168
+_BTU = 1055.05585262
+_HP = 745.69987158
+_GAL = 3.785411784e-3
+_R_PER_K = 5.0 / 9.0  # K per °F (or °R)
+
+
+@dataclass(frozen=True)
+class Unit:
+    """A display unit: ``display = (si - offset) / scale``; ``decimals`` for tables."""
+
+    symbol: str
+    scale: float = 1.0
+    offset: float = 0.0
+    decimals: int = 2
+
+    def to_display(self, si: float) -> float:
+        return (si - self.offset) / self.scale
+
+    def to_si(self, shown: float) -> float:
+        return shown * self.scale + self.offset
+
+
+SYSTEMS = ("SI", "US")
+
+#: quantity -> (SI display unit, US customary display unit)
+QUANTITIES: dict[str, tuple[Unit, Unit]] = {
+    "temperature": (Unit("°C", 1.0, 273.15, 2), Unit("°F", _R_PER_K, 459.67 * _R_PER_K, 1)),
+    "temperature_difference": (Unit("K", 1.0, 0.0, 2), Unit("°F", _R_PER_K, 0.0, 1)),
+    "pressure": (Unit("bar", 1e5, 0.0, 4), Unit("psi", _PSI, 0.0, 2)),
+    "pressure_difference": (Unit("kPa", 1e3, 0.0, 2), Unit("psi", _PSI, 0.0, 3)),
+    "specific_enthalpy": (Unit("kJ/kg", 1e3, 0.0, 2), Unit("Btu/lb", _BTU / _LB, 0.0, 2)),
+    "specific_entropy": (Unit("kJ/(kg·K)", 1e3, 0.0, 4), Unit("Btu/(lb·°R)", _BTU / _LB / _R_PER_K, 0.0, 4)),
+    "specific_heat": (Unit("J/(kg·K)", 1.0, 0.0, 1), Unit("Btu/(lb·°R)", _BTU / _LB / _R_PER_K, 0.0, 4)),
+    "power": (Unit("kW", 1e3, 0.0, 2), Unit("hp", _HP, 0.0, 2)),
+    "heat_flow": (Unit("kW", 1e3, 0.0, 2), Unit("Btu/h", _BTU / 3600.0, 0.0, 0)),
+    "entropy_rate": (Unit("W/K", 1.0, 0.0, 2), Unit("Btu/(h·°R)", _BTU / 3600.0 / _R_PER_K, 0.0, 2)),
+    "mass_flow": (Unit("kg/s", 1.0, 0.0, 4), Unit("lb/min", _LB / 60.0, 0.0, 2)),
+    "volume_flow": (Unit("m³/min", 1.0 / 60.0, 0.0, 3), Unit("cfm", _FT ** 3 / 60.0, 0.0, 1)),
+    "specific_power": (Unit("kW/(m³/min)", 1.0, 0.0, 3),
+                       Unit("kW/(100 cfm)", 1.0 / (100.0 * _FT ** 3 * 60.0 / 60.0), 0.0, 2)),
+    "density": (Unit("kg/m³", 1.0, 0.0, 4), Unit("lb/ft³", _LB / _FT ** 3, 0.0, 5)),
+    "velocity": (Unit("m/s", 1.0, 0.0, 1), Unit("ft/s", _FT, 0.0, 1)),
+    "length": (Unit("m", 1.0, 0.0, 0), Unit("ft", _FT, 0.0, 0)),
+    "water_flow": (Unit("L/h", 1.0 / 3600.0, 0.0, 2), Unit("gal/h", _GAL * 1000.0 / 3600.0, 0.0, 2)),
+    "fraction": (Unit("%", 0.01, 0.0, 2), Unit("%", 0.01, 0.0, 2)),
+    "ratio": (Unit("", 1.0, 0.0, 4), Unit("", 1.0, 0.0, 4)),
+    "conductance": (Unit("kW/K", 1e3, 0.0, 3), Unit("Btu/(h·°F)", _BTU / 3600.0 / _R_PER_K, 0.0, 0)),
+    "energy": (Unit("kWh", 3.6e6, 0.0, 0), Unit("kWh", 3.6e6, 0.0, 0)),
+}
+
+
+def unit(quantity: str, system: str = "SI", *, gauge: bool = False, barometric_Pa: float = 101_325.0) -> Unit:
+    """Display unit of a quantity in a unit system.
+
+    Parameters
+    ----------
+    quantity : str
+        A key of :data:`QUANTITIES`.
+    system : str
+        ``"SI"`` or ``"US"``.
+    gauge : bool
+        For ``"pressure"`` only: relative to ``barometric_Pa`` (bar(g), psig).
+    barometric_Pa : float
+        Site barometric pressure, [Pa].
+    """
+    u = QUANTITIES[quantity][SYSTEMS.index(system)]
+    if quantity == "pressure":
+        tag = ("(g)" if gauge else "(a)") if system == "SI" else ("g" if gauge else "a")
+        return Unit(u.symbol + tag, u.scale, barometric_Pa if gauge else 0.0, u.decimals)
+    return u
+
+
+def to_display(si: float, quantity: str, system: str = "SI", **kw) -> float:
+    """SI value → display value."""
+    return unit(quantity, system, **kw).to_display(si)
+
+
+def to_si(shown: float, quantity: str, system: str = "SI", **kw) -> float:
+    """Display value → SI value."""
+    return unit(quantity, system, **kw).to_si(shown)
+
+
+def format_value(si: float | None, quantity: str, system: str = "SI", with_unit: bool = False, **kw) -> str:
+    """Display text of an SI value with the quantity's usual number of decimals (``—`` for None)."""
+    if si is None:
+        return "—"
+    u = unit(quantity, system, **kw)
+    text = f"{u.to_display(si):,.{u.decimals}f}".replace(",", " ")
+    return f"{text} {u.symbol}".rstrip() if with_unit else text
+
+
+def label(name: str, quantity: str, system: str = "SI", **kw) -> str:
+    """Column or axis label: ``"Temperature [°C]"``."""
+    sym = unit(quantity, system, **kw).symbol
+    return f"{name} [{sym}]" if sym else name

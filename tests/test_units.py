@@ -1,0 +1,33 @@
+"""Display units: exact definitions from NIST SP 811 (2008), Appendix B."""
+import pytest
+
+from app.units import QUANTITIES, SYSTEMS, format_value, to_display, to_si, unit
+
+
+def test_temperature_scales():
+    assert to_display(273.15, "temperature", "SI") == pytest.approx(0.0, abs=1e-12)
+    assert to_display(373.15, "temperature", "US") == pytest.approx(212.0, abs=1e-9)  # NIST SP 811
+    assert to_display(233.15, "temperature", "US") == pytest.approx(-40.0, abs=1e-9)
+
+
+def test_pressure_gauge_is_relative_to_site_barometric_pressure():
+    u = unit("pressure", "SI", gauge=True, barometric_Pa=95_000.0)
+    assert u.symbol == "bar(g)"
+    assert u.to_display(895_000.0) == pytest.approx(8.0)
+    assert to_display(6894.757293168 + 101_325.0, "pressure", "US", gauge=True) == pytest.approx(1.0)
+
+
+def test_us_power_and_flow():
+    assert to_display(745.69987158, "power", "US") == pytest.approx(1.0)  # 1 hp (NIST SP 811)
+    assert to_display(0.3048 ** 3 / 60.0, "volume_flow", "US") == pytest.approx(1.0)  # 1 cfm
+
+
+@pytest.mark.parametrize("quantity", sorted(QUANTITIES))
+@pytest.mark.parametrize("system", SYSTEMS)
+def test_round_trip(quantity, system):
+    assert to_si(to_display(412.345, quantity, system), quantity, system) == pytest.approx(412.345, rel=1e-12)
+
+
+def test_format_value_uses_decimals_and_dash_for_missing():
+    assert format_value(None, "power") == "—"
+    assert format_value(123456.0, "power", with_unit=True) == "123.46 kW"
