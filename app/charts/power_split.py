@@ -184,6 +184,6 @@ def _draw_heat(ax, result: dict, system: str) -> None:
     ax.tick_params(axis="y", length=0)
     if used:
         leg = ax.legend(handles=[Patch(color=_PART_COLOUR[p], label=_PART_LABEL[p]) for p in used],
-                        **_LEGEND_BELOW)
+                        **dict(_LEGEND_BELOW, ncol=1))
         for t in leg.get_texts():
             t.set_color(style.INK)

@@ -44,10 +44,15 @@ SIZE_NOTE = 7.5
 
 
 def prepare(fig: Figure) -> None:
-    """Clear a figure and give it Stagewright's background and a constrained layout."""
+    """Clear a figure and give it Stagewright's background and a constrained layout.
+
+    ``fig`` may also be a ``SubFigure`` (the report puts two charts on one page); its
+    parent figure then owns the layout engine and should use the constrained one.
+    """
     fig.clear()
     fig.set_facecolor(PAPER)
-    fig.set_layout_engine("constrained")
+    if hasattr(fig, "set_layout_engine"):
+        fig.set_layout_engine("constrained")
 
 
 def style_axes(ax, title: str | None = None, xlabel: str | None = None, ylabel: str | None = None,

@@ -141,7 +141,7 @@ def draw_ts_chart(fig: Figure, result: dict, system: str = "SI", limits_K=None) 
     t_lo = min(all_T + [result["ambient_temperature_K"]])
     t_hi = max(all_T + lim_T)
     span = max(t_hi - t_lo, 20.0)
-    t_lo_plot, t_hi_plot = t_lo - 0.08 * span, t_hi + 0.10 * span
+    t_lo_plot, t_hi_plot = t_lo - 0.08 * span, t_hi + 0.14 * span
 
     s_lo, s_hi = min(all_s), max(all_s)
     s_span = max(s_hi - s_lo, 1.0)
@@ -199,10 +199,12 @@ def draw_ts_chart(fig: Figure, result: dict, system: str = "SI", limits_K=None) 
                 markerfacecolor=style.PAPER, markeredgewidth=1.0, zorder=4, gid=gid,
                 label="compression" if gid == "stage-1" else ("cooling" if gid == "cooler-1" else None))
         if kind == "stage":
-            top = max(pts, key=lambda q: q[0])
-            ax.annotate(gid.split("-")[1], (x(top[2]), y(top[0])), xytext=(0, 4), textcoords="offset points",
-                        ha="center", va="bottom", fontsize=style.SIZE_NOTE, fontweight="bold",
-                        color=style.COMPRESSION, fontfamily=style.FONT)
+            # stage number beside the middle of its compression line (isobar labels own the top)
+            t_mid = 0.5 * (pts[0][0] + max(q[0] for q in pts))
+            mid = min(pts, key=lambda q: abs(q[0] - t_mid))
+            ax.annotate(gid.split("-")[1], (x(mid[2]), y(mid[0])), xytext=(5, 0), textcoords="offset points",
+                        ha="left", va="center", fontsize=style.SIZE_NOTE, fontweight="bold",
+                        color=style.COMPRESSION, fontfamily=style.FONT, gid=f"{gid}-number")
 
     ax.set_ylim(y(t_lo_plot), y(t_hi_plot))
     ax.set_xlim(x(s_lo_plot), x(s_hi_plot))
