@@ -9,6 +9,8 @@ from __future__ import annotations
 __all__ = ["new_air_state", "update_tp", "eos_reference", "coolprop_version",
            "humid_air_property", "water_saturation_pressure"]
 
+from functools import lru_cache
+
 import CoolProp
 import CoolProp.CoolProp as _CP
 
@@ -46,6 +48,7 @@ def update_tp(state, temperature: float, pressure: float, where: str = "") -> No
             f"p = {pressure:.6g} Pa ({exc})", where) from None
 
 
+@lru_cache(maxsize=None)
 def eos_reference(model: str) -> str:
     """Bibliographic reference of the equation of state behind a property model."""
     if model == "real_gas":
