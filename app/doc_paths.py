@@ -1,20 +1,45 @@
-"""Field paths into a project document: ``stages[1].efficiency.value`` ⇄ tokens.
+"""Field paths for the window: reading, setting and removing values at a path.
 
-The same paths appear in :class:`thermo.errors.Problem`, in result warnings and in the
-window's entry fields, so one small parser serves all of them. Qt-free.
+The spelling is :mod:`thermo.doc_paths`'s (the same paths appear in problems, result
+warnings and sweeps); this module adds what an editor needs on top — ``ABSENT`` for "key
+not present", removal, and tests of which paths a change touches. Qt-free.
 """
 from __future__ import annotations
 
 __all__ = ["ABSENT", "parse_path", "format_path", "get_in", "set_in", "stage_index",
            "stage_path", "is_related"]
 
-import re
 from typing import Any
 
-#: Marker for "key not present" (different from a JSON ``null``).
-ABSENT = type("Absent", (), {"__repr__": lambda self: "ABSENT", "__bool__": lambda self: False})()
+from thermo.doc_paths import parse_path as _parse_core
 
-_TOKEN = re.compile(r"([^.\[\]]+)|\[(\d+)\]")
+class _Absent:
+    """Marker for "key not present" (different from a JSON ``null``); survives copying."""
+
+    _instance = None
+
+    def __new__(cls):
+        if cls._instance is None:
+            cls._instance = super().__new__(cls)
+        return cls._instance
+
+    def __repr__(self) -> str:
+        return "ABSENT"
+
+    def __bool__(self) -> bool:
+        return False
+
+    def __copy__(self):
+        return self
+
+    def __deepcopy__(self, memo):
+        return self
+
+    def __reduce__(self):
+        return (_Absent, ())
+
+
+ABSENT = _Absent()
 
 
 def parse_path(path: str) -> list:
@@ -25,7 +50,7 @@ def parse_path(path: str) -> list:
     >>> parse_path("")
     []
     """
-    return [int(idx) if idx else key for key, idx in _TOKEN.findall(path or "")]
+    return _parse_core(path) if path else []
 
 
 def format_path(tokens: list) -> str:

@@ -20,25 +20,33 @@ def _parse_size(text: str | None) -> tuple[int, int]:
 
 
 def wait_for_first_solve(app, window, timeout_s: float = 60.0) -> bool:
-    """Process events until the first solve answered (or input problems stopped it)."""
-    from PySide6.QtCore import QDeadlineTimer, QEventLoop
-    deadline = QDeadlineTimer(int(timeout_s * 1000))
+    """Run the event loop until the first solve answered (or input problems stopped it).
+
+    The loop sleeps between events, so the worker thread has the interpreter to itself.
+    """
+    from PySide6.QtCore import QEventLoop, QTimer
     ed = window.editor
-    while not deadline.hasExpired():
-        app.processEvents(QEventLoop.AllEvents, 50)
-        if ed.solved_jobs or ed.failure or ((ed.problems or ed.entry_errors) and not ed.solver.busy):
-            app.processEvents()
-            return True
-    return False
+
+    def settled() -> bool:
+        return bool(ed.solved_jobs or ed.failure or ((ed.problems or ed.entry_errors) and not ed.solver.busy))
+
+    if not settled():
+        loop = QEventLoop()
+        ed.result_changed.connect(lambda: settled() and loop.quit())
+        QTimer.singleShot(int(timeout_s * 1000), loop.quit)
+        loop.exec()
+    app.processEvents()
+    return settled()
 
 
 def save_screenshot(window, out: str) -> None:
     """Draw pending charts and grab the whole window (menus, docks, status bar)."""
     from PySide6.QtWidgets import QApplication
     charts = window.panels.get("charts")
-    for tab in (getattr(charts, "ts", None), getattr(charts, "power", None)):
-        if tab is not None:
-            tab.canvas.draw()
+    charts.ensure_canvases()
+    current = charts.tabs.currentWidget()
+    if hasattr(current, "canvas"):
+        current.canvas.draw()
     QApplication.processEvents()
     if not window.grab().save(str(out)):
         raise OSError(f"could not write {out}")

@@ -80,8 +80,10 @@ class MainWindow(FileOps, QMainWindow):
         self._build_menus()
         self._build_status()
 
-        self.editor.undo_stack.cleanChanged.connect(lambda _clean: self.update_title())
-        self.editor.undo_stack.indexChanged.connect(lambda _i: self.update_title())
+        # bound methods, not lambdas: Qt drops these connections when the window is deleted
+        # (the undo stack still announces its last index change while it is destroyed)
+        self.editor.undo_stack.cleanChanged.connect(self._on_undo_changed)
+        self.editor.undo_stack.indexChanged.connect(self._on_undo_changed)
         self.editor.focus_requested.connect(self.focus_field)
         self.editor.result_changed.connect(self._update_status)
         self.editor.solve_started.connect(self._update_status)
@@ -92,6 +94,9 @@ class MainWindow(FileOps, QMainWindow):
         self.update_title()
         self._on_prefs()
         self.editor.solve_now(immediate=True)
+
+    def _on_undo_changed(self, *_args) -> None:
+        self.update_title()
 
     # ---- panels --------------------------------------------------------------------------
     def add_panel(self, pid: str, widget: QWidget, area, split_from: str | None = None,
@@ -275,6 +280,7 @@ class MainWindow(FileOps, QMainWindow):
             self._default_state = self.saveState(STATE_VERSION)
             if self._restore_layout:
                 QTimer.singleShot(0, self._restore_saved_layout)
+            QTimer.singleShot(0, self.charts.ensure_canvases)  # matplotlib after the first paint
 
     def _restore_saved_layout(self) -> None:
         geometry = self.settings.value("window/geometry")

@@ -16,6 +16,12 @@ import traceback
 from PySide6.QtCore import QObject, QThread, QTimer, Signal, Slot
 
 
+def _stop_thread(thread: QThread, timeout_ms: int = 10_000) -> None:
+    if thread.isRunning():
+        thread.quit()
+        thread.wait(timeout_ms)
+
+
 class SolveWorker(QObject):
     """Lives in the worker thread; solves one document per ``request``."""
 
@@ -44,6 +50,12 @@ class SolveWorker(QObject):
             return
         self.done.emit(job_id, result, time.perf_counter() - start)
 
+    @Slot()
+    def release(self) -> None:
+        """Runs in the worker thread just before it stops: free its CoolProp states."""
+        from thermo.solve import release_thread_models
+        release_thread_models()
+
 
 class SolveController(QObject):
     """Owns the worker thread; the window calls :meth:`request` after each valid edit.
@@ -58,6 +70,7 @@ class SolveController(QObject):
     finished = Signal(int, object, float)
     failed = Signal(int, str, str)
     _submit = Signal(int, object)
+    _release = Signal()
 
     def __init__(self, parent=None, debounce_ms: int = 150):
         super().__init__(parent)
@@ -73,9 +86,13 @@ class SolveController(QObject):
         self._worker = SolveWorker(lambda: self._job)
         self._worker.moveToThread(self._thread)
         self._submit.connect(self._worker.run)
+        self._release.connect(self._worker.release)
         self._worker.done.connect(self._on_done)
         self._worker.failed.connect(self._on_failed)
         self._thread.start()
+        # never let a running QThread be destroyed (Qt aborts): stop it with its owner
+        thread = self._thread
+        self.destroyed.connect(lambda *_: _stop_thread(thread))
 
     @property
     def latest_job(self) -> int:
@@ -130,5 +147,5 @@ class SolveController(QObject):
         """Stop the timer and the worker thread (called from the window's closeEvent)."""
         self.cancel()
         if self._thread.isRunning():
-            self._thread.quit()
-            self._thread.wait(timeout_ms)
+            self._release.emit()  # queued behind any running job, in the worker thread
+            _stop_thread(self._thread, timeout_ms)
