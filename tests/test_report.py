@@ -175,9 +175,13 @@ def test_warnings_and_staging_rows_are_printed(tmp_path):
         st["max_discharge_temperature_K"] = 350.0  # far below the discharge: a warning per stage
     result = solve(doc)
     assert len(result.warnings) == 2
+    # rows shaped like thermo.study's staging comparison (binding limits, one shared note)
     rows = [dict(stages=1, driver_power_W=300e3, max_discharge_temperature_K=600.0, feasible=False,
-                 reason="discharge above its limit"),
-            dict(stages=2, driver_power_W=250e3, max_discharge_temperature_K=430.0, feasible=True)]
+                 pressure_ratios=[9.0], note="Each option repeats stage 1.",
+                 binding_limits=[{"field": "stages[0].max_discharge_temperature_K", "status": "violated",
+                                  "message": "discharge above its limit"}]),
+            dict(stages=2, driver_power_W=250e3, max_discharge_temperature_K=430.0, feasible=True,
+                 pressure_ratios=[3.0, 3.0], note="Each option repeats stage 1.", binding_limits=[])]
     pdf = tmp_path / "w.pdf"
     n = export_report(doc, result, pdf, system="SI", source_name="warned.json", study_rows=rows, date="2024-05-06")
     text, pages = _pdf_text(pdf)
@@ -185,7 +189,8 @@ def test_warnings_and_staging_rows_are_printed(tmp_path):
     for w in result.warnings:
         assert w.message in text and w.field in text
     assert "Staging comparison" in text and "discharge above its limit" in text
-    assert re.search(r"^1 300\.00 326\.85 no ", text, re.M)  # 300 kW, 600 K = 326.85 °C, infeasible
+    assert re.search(r"^1 9\.000 300\.00 326\.85 no$", text, re.M)  # 300 kW, 600 K = 326.85 °C, infeasible
+    assert "3.000 × 3.000" in text and text.count("Each option repeats stage 1.") == 1
     assert "Date 2024-05-06" in text
 
 

@@ -279,25 +279,47 @@ def warnings(p: Pager, result: dict) -> None:
                   [[w["message"], w["field"]] for w in items]))
 
 
+def _remark(row: dict) -> str:
+    """Why an arrangement is limited: its binding limits' messages, or a given reason."""
+    msgs = [b.get("message", "") for b in row.get("binding_limits") or [] if b.get("message")]
+    if row.get("reason"):
+        msgs.insert(0, str(row["reason"]))
+    return "; ".join(msgs)
+
+
 def staging(p: Pager, study_rows: list[dict] | None, system: str, limit_K=None) -> None:
+    """The staging comparison (rows of ``thermo.study.compare_stagings(...).rows()``), if one was run."""
     if not study_rows:
         return
     p.charts("Staging comparison", [(lambda f: draw_staging_chart(f, study_rows, system, limit_K=limit_K), 3.6)])
-    extra = [k for k in ("specific_power_kW_per_m3_min",) if any(k in r for r in study_rows)]
-    cols = [Column("Stages", align="left"), Column("Driver power", _sym("power", system))]
-    if extra:
+    has = {k: any(r.get(k) is not None for r in study_rows)
+           for k in ("pressure_ratios", "specific_power_kW_per_m3_min", "saving_W")}
+    cols = [Column("Stages", align="left")]
+    if has["pressure_ratios"]:
+        cols.append(Column("Pressure ratios", align="left", wrap=True))
+    cols.append(Column("Driver power", _sym("power", system)))
+    if has["specific_power_kW_per_m3_min"]:
         cols.append(Column("Specific power", _sym("specific_power", system)))
-    cols += [Column("Highest discharge T", _sym("temperature", system)), Column("Feasible", align="left"),
-             Column("Remark", align="left", wrap=True)]
+    cols.append(Column("Max. discharge T", _sym("temperature", system)))
+    if has["saving_W"]:
+        cols.append(Column("Saving", _sym("power", system)))
+    cols.append(Column("Feasible", align="left"))
     rows = []
     for r in sorted(study_rows, key=lambda r: r["stages"]):
-        row = [str(r["stages"]), Q(r.get("driver_power_W"), "power", system)]
-        if extra:
+        row = [str(r["stages"])]
+        if has["pressure_ratios"]:
+            row.append(" × ".join(f"{x:.3f}" for x in r.get("pressure_ratios") or []))
+        row.append(Q(r.get("driver_power_W"), "power", system))
+        if has["specific_power_kW_per_m3_min"]:
             row.append(Q(r.get("specific_power_kW_per_m3_min"), "specific_power", system))
-        row += [Q(r.get("max_discharge_temperature_K"), "temperature", system), "yes" if r.get("feasible") else "no",
-                str(r.get("reason") or r.get("note") or "")]
+        row.append(Q(r.get("max_discharge_temperature_K"), "temperature", system))
+        if has["saving_W"]:
+            row.append(Q(r.get("saving_W"), "power", system))
+        row.append("yes" if r.get("feasible") else "no")
         rows.append(row)
-    p.table(Table("Arrangements compared", cols, rows))
+    remarks = [_remark(r) for r in sorted(study_rows, key=lambda r: r["stages"])]
+    notes = {r.get("note") for r in study_rows if r.get("note")}
+    p.table(Table("Arrangements compared", cols, rows, note=" ".join(sorted(notes)), row_notes=remarks))
 
 
 def cautions(p: Pager) -> None:
