@@ -10,6 +10,8 @@ __all__ = ["new_air_state", "update_tp", "eos_reference", "coolprop_version",
            "humid_air_property", "water_saturation_pressure", "new_incompressible_state",
            "incompressible_update_tp", "incompressible_limits"]
 
+from functools import lru_cache
+
 import CoolProp
 import CoolProp.CoolProp as _CP
 
@@ -47,6 +49,7 @@ def update_tp(state, temperature: float, pressure: float, where: str = "") -> No
             f"p = {pressure:.6g} Pa ({exc})", where) from None
 
 
+@lru_cache(maxsize=None)
 def eos_reference(model: str) -> str:
     """Bibliographic reference of the equation of state behind a property model."""
     if model == "real_gas":
