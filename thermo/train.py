@@ -79,7 +79,8 @@ def solve_train(norm: dict, model: PropertyModel, mass_flow: float) -> TrainResu
                                      f"stage {i + 1} discharge {st.outlet.T:.1f} K exceeds its limit {limit:.1f} K"))
         point, velocity = st.outlet, st.exit_velocity_m_s
         if spec["cooler"] is not None:
-            c = solve_cooler(model, spec["cooler"], i, point, velocity, mass_flow, dead)
+            c = solve_cooler(model, spec["cooler"], i, point, velocity, mass_flow, dead,
+                             ambient_relative_humidity=norm["site"]["relative_humidity"])
             coolers.append(c)
             point, velocity = c.outlet, 0.0
         else:
