@@ -260,3 +260,19 @@ def test_progress_line_only_on_a_terminal():
         bar.step("a.json")
         bar.message("a.json: bad")
     assert plain.getvalue() == "a.json: bad\n"
+
+
+def test_cooler_exchanger_figures_are_printed(tmp_path):
+    doc = load(SAMPLE_FILES[0])
+    doc["stages"][0]["cooler"]["coolant"] = {"kind": "water", "temperature_rise_K": 8.0}
+    result = solve(doc).to_dict()
+    c = result["stages"][0]["cooler"]
+    pdf = tmp_path / "x.pdf"
+    export_report(doc, result, pdf)
+    text, _ = _pdf_text(pdf)
+    assert "Cooler exchangers" in text and "water, rise 8.00 K" in text
+    m = re.search(r"^Cooler 1 water ([\d.]+) ([\d.]+) ([\d.]+) ([\d.]+) ([\d.]+) ([\d.]+) ([\d.]+) ([\d.]+)$", text, re.M)
+    assert m, "exchanger row not printed"
+    assert abs(float(m.group(1)) - c["coolant_flow_kg_s"]) <= 5e-5
+    assert abs(float(m.group(3)) - (c["coolant_outlet_temperature_K"] - 273.15)) <= 0.005
+    assert abs(float(m.group(8)) - c["ua_W_K"] / 1e3) <= 5e-4  # kW/K

@@ -29,7 +29,7 @@ _HEADINGS = {1: 13.0, 2: 10.5}
 _BAND = "#f2f4f7"  # alternate table rows
 _RULE = "#9aa5b1"
 _PAD_Y = 0.035  # cell padding above and below, [in]
-_KEEP_WHOLE_ROWS = 15  # tables with at most this many rows are kept on one page
+_KEEP_WHOLE_ROWS = 20  # tables with at most this many rows are kept on one page
 
 _MEASURE_DPI = 720.0  # measure at high resolution: glyph hinting at 72 dpi inflates widths
 _renderer = RendererAgg(10, 10, _MEASURE_DPI)
@@ -190,11 +190,16 @@ class Pager:
         self.y -= 0.08 if level == 1 else 0.05
 
     def paragraph(self, text: str, size: float = _BODY, colour: str = style.INK, indent: float = 0.0,
-                  italic: bool = False, bold_lead: str = "") -> None:
-        """Wrapped text; a ``bold_lead`` is printed bold at its start (e.g. a caution title)."""
+                  italic: bool = False, bold_lead: str = "", keep_together: bool = False) -> None:
+        """Wrapped text; a ``bold_lead`` is printed bold at its start (e.g. a caution title).
+
+        ``keep_together`` moves the whole paragraph to the next page rather than split it.
+        """
         lead = f"{bold_lead} " if bold_lead else ""
         lines = wrap(lead + text, self.content_width - indent, size)
         step = size * 1.35 / 72.0
+        if keep_together:
+            self.need(step * len(lines))
         for k, line in enumerate(lines):
             self.need(step)
             self.y -= step
@@ -330,7 +335,7 @@ class Pager:
         self._rule(x0, x_end, self.y, colour=style.INK, lw=0.8)
         self.y -= 0.06
         if table.note:
-            self.paragraph(table.note, size=_SMALL, colour=style.MUTED)
+            self.paragraph(table.note, size=_SMALL, colour=style.MUTED, keep_together=True)
         self.y -= 0.1
 
     # ------------------------------------------------------------------------------ charts
