@@ -9,6 +9,8 @@ from __future__ import annotations
 __all__ = ["new_air_state", "update_tp", "eos_reference", "coolprop_version",
            "humid_air_property", "water_saturation_pressure"]
 
+import functools
+
 import CoolProp
 import CoolProp.CoolProp as _CP
 
@@ -46,6 +48,7 @@ def update_tp(state, temperature: float, pressure: float, where: str = "") -> No
             f"p = {pressure:.6g} Pa ({exc})", where) from None
 
 
+@functools.lru_cache(maxsize=None)  # CoolProp's BibTeX lookup costs ~0.5 ms per call
 def eos_reference(model: str) -> str:
     """Bibliographic reference of the equation of state behind a property model."""
     if model == "real_gas":
