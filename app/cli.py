@@ -4,6 +4,7 @@
     stagewright --screenshot OUT.png [PROJECT] render the window offscreen and exit
     stagewright solve FILE|FOLDER … [--json]   solve projects, print tables or JSON
     stagewright check FILE|FOLDER …            validate project files
+    stagewright study PROJECT --max-stages N   staging options side by side (see app/study_cli.py)
 
 Headless commands never import Qt. Every failure is one line on stderr; the exit
 status is 0 when all files succeeded, 2 when any input was rejected.
@@ -76,10 +77,18 @@ def _check(args) -> int:
     return status
 
 
-SUBCOMMANDS = {"solve": _solve, "check": _check}
+def _study(args) -> int:
+    from .study_cli import run
+    return run(args)
+
+
+SUBCOMMANDS = {"solve": _solve, "check": _check, "study": _study}
 
 
 def _headless_parser(name: str) -> argparse.ArgumentParser:
+    if name == "study":
+        from .study_cli import build_parser
+        return build_parser()
     p = argparse.ArgumentParser(prog=f"stagewright {name}")
     p.add_argument("files", nargs="+", help="project files or folders of them")
     if name == "solve":

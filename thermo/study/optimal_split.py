@@ -361,7 +361,7 @@ class _Problem:
         problem = getattr(err, "problem", None)
         value = problem.value if problem is not None and isinstance(problem.value, (int, float)) else None
         hint = ""
-        if ".cooler." in (err.field or ""):
+        if "cannot heat the air" in str(err):
             hint = (" — with this many stages no stage gets as hot as that cooler's outlet: use fewer stages "
                     "or a lower cooler outlet temperature" if self.n > 1 else " — lower the cooler outlet temperature")
         binding = [BindingLimit(err.field or "stages", value, None, None, "violated",
