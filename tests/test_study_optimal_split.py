@@ -252,3 +252,19 @@ def test_delivered_pressure_of_result_matches_split_arithmetic():
     p_in = out.result.inlet.outlet.P
     assert delivered_pressure(p_in, out.pressure_ratios, [15000.0] * 3) == pytest.approx(14e5, rel=1e-12)
     assert out.iterations >= 1 and out.solves >= 3
+
+
+def test_coolers_rated_from_ua_are_optimised_too():
+    # Rated coolers (outlet is a result of UA and coolant flow): no start hint, no cooler
+    # limit; the optimum must still beat the equal split and a brute-force grid.
+    doc = make_doc(model="real_gas", stages=2, p_out=9e5, flow=("free_air_delivery", 0.3))
+    for st in doc["stages"]:
+        st["cooler"] = {"ua_W_K": 2500.0, "coolant": {"kind": "water", "flow_kg_s": 1.0},
+                        "coolant_inlet_temperature_K": 293.15, "pressure_drop_Pa": 5000.0}
+    out = optimal_split(doc)
+    equal = thermo.solve(doc)  # the project's own (equal) split
+    assert out.result.driver_power_W <= equal.driver_power_W
+    p_in = out.result.inlet.outlet.P
+    grid = [_power_at(doc, [r1, implied_ratio(p_in, 9e5, [r1, None], [5000.0] * 2, 1)])
+            for r1 in np.linspace(2.6, 3.6, 21)]
+    assert out.result.driver_power_W <= min(grid) * (1 + 1e-9)

@@ -29,7 +29,7 @@ def test_trials_are_cached_and_cancellable():
     doc = thermo.document.normalise(make_doc(model="constant_cp", stages=2))
     doc["stages"] = [dict(s, max_discharge_temperature_K=400.0) for s in doc["stages"]]
     stop = {"now": False}
-    ts = TrialSolver(doc, soft_limits(doc["stages"]), lambda: stop["now"])
+    ts = TrialSolver(doc, soft_limits(doc["stages"], 293.15), lambda: stop["now"])
     t = ts([3.0, 3.0])
     assert ts([3.0, 3.0]) is t and ts.solves == 1
     assert len(t.margins) == 4  # two temperature limits, two coolers

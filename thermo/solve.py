@@ -3,6 +3,7 @@ from __future__ import annotations
 
 __all__ = ["solve", "model_for"]
 
+import atexit
 import threading
 
 from .document import normalise, site_pressure
@@ -13,6 +14,12 @@ from .results import TrainResult
 from .train import solve_train
 
 _local = threading.local()
+
+
+@atexit.register
+def _release_models() -> None:
+    """Drop cached CoolProp states before interpreter teardown (avoids nanobind leak reports)."""
+    getattr(_local, "models", {}).clear()
 
 
 def model_for(fluid: dict):

@@ -108,7 +108,9 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
     :math:`\eta_s = (h_{2s} - h_{01})/(h_{2i} - h_{01})`; the polytropic efficiency is that
     of the constant-efficiency path from 01 to 2i (see :mod:`thermo.polytropic`). The
     casing loss and the exit kinetic energy are then taken off to give the static
-    discharge state. The polytropic exponent is :math:`n = \ln(p_2/p_1)/\ln(\rho_{2i}/\rho_{01})`.
+    discharge state. Efficiencies are therefore total-to-static: the exit kinetic energy
+    counts as a loss, and an efficiency of 1 with a non-zero exit velocity is refused as a
+    second-law violation. The polytropic exponent is :math:`n = \ln(p_2/p_1)/\ln(\rho_{2i}/\rho_{01})`.
 
     References
     ----------
@@ -157,11 +159,18 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
             f"{where}.heat_loss_boundary_temperature_K: casing heat cannot leave at {t_b:.2f} K "
             f"when the gas is never hotter than {max(p.T for p in path):.2f} K "
             "(a second-law violation)", f"{where}.heat_loss_boundary_temperature_K")
+    if q_loss > 0.0 and outlet.T < t_b:
+        raise SecondLawViolation(
+            f"{where}.heat_loss_W: a casing heat loss of {q_loss:.6g} W would cool the gas to "
+            f"{outlet.T:.2f} K, below the {t_b:.2f} K boundary it leaves at (a second-law "
+            "violation); lower the heat loss or raise the flow", f"{where}.heat_loss_W")
     s_gen = mass_flow * (outlet.s - inlet.s) + q_loss / t_b + w_mech / dead.T0
     if s_gen < -1e-9 * max(1.0, w_shaft / dead.T0):
+        hint = (" — the efficiency is total-to-static, so it must leave room for the exit kinetic "
+                "energy; lower the efficiency or the exit velocity") if v_out > 0.0 else ""
         raise SecondLawViolation(
             f"{where}: the given data need negative entropy generation ({s_gen:.4g} W/K): "
-            "a second-law violation", where)
+            f"a second-law violation{hint}", where)
     end = path[-1]
     n = math.log(p_out / start.P) / math.log(end.rho / start.rho)
     return StageResult(

@@ -82,7 +82,8 @@ def solve_train(norm: dict, model: PropertyModel, mass_flow: float, detail: bool
                                      f"stage {i + 1} discharge {st.outlet.T:.1f} K exceeds its limit {limit:.1f} K"))
         point, velocity = st.outlet, st.exit_velocity_m_s
         if spec["cooler"] is not None:
-            c = solve_cooler(model, spec["cooler"], i, point, velocity, mass_flow, dead, 8 if detail else 1)
+            c = solve_cooler(model, spec["cooler"], i, point, velocity, mass_flow, dead, 8 if detail else 1,
+                             ambient_relative_humidity=norm["site"]["relative_humidity"])
             coolers.append(c)
             point, velocity = c.outlet, 0.0
         else:

@@ -180,7 +180,7 @@ class _Problem:
         free = [i for i in range(self.n) if not self.bounds.pinned(i)]
         self.implied = free[-1] if free else None
         self.var = free[:-1]
-        self.limits: list[SoftLimit] = soft_limits(stages)
+        self.limits: list[SoftLimit] = soft_limits(stages, doc["site"]["ambient_temperature_K"])
         self.trials = TrialSolver(doc, self.limits, should_stop)
         self.iterations = 0
         self.w_ref = 1.0

@@ -113,8 +113,9 @@ def ideal_gas_split(doc: dict, model: PropertyModel, p_in: float, bounds: RatioB
     Returns
     -------
     list of float or None
-        Ratios; None when a stage follows another without a cooler (its inlet temperature
-        then depends on the split), or the bounds cannot meet the discharge pressure.
+        Ratios; None when a stage follows another without a cooler, or with one rated from
+        its UA (its inlet temperature then depends on the split), or the bounds cannot meet
+        the discharge pressure.
 
     References
     ----------
@@ -125,9 +126,10 @@ def ideal_gas_split(doc: dict, model: PropertyModel, p_in: float, bounds: RatioB
     T0 = doc["site"]["ambient_temperature_K"]
     T_in = [T0]
     for st in stages[:-1]:
-        if st["cooler"] is None:
+        t_out = cooler_outlet_temperature(st["cooler"], T0) if st["cooler"] is not None else None
+        if t_out is None:  # no intercooler, or one rated from its UA: inlet depends on the split
             return None
-        T_in.append(cooler_outlet_temperature(st["cooler"]))
+        T_in.append(t_out)
     cp = model.at_tp(T0 + 0.5, p_in).h - model.at_tp(T0 - 0.5, p_in).h
     a = model.gas_constant / cp
     flow = doc["flow"]
@@ -147,8 +149,9 @@ def ideal_gas_split(doc: dict, model: PropertyModel, p_in: float, bounds: RatioB
             if polytropic:
                 return max(1.0, rise) ** (1.0 / e[i])
             return (1.0 + eff["value"] * max(0.0, rise - 1.0)) ** (1.0 / a)
-        if st["cooler"] is not None:  # the cooler can only cool: start a little above its outlet
-            lo[i] = min(hi[i], max(lo[i], reaching(cooler_outlet_temperature(st["cooler"]) + 0.5)))
+        t_cool = cooler_outlet_temperature(st["cooler"], T0) if st["cooler"] is not None else None
+        if t_cool is not None:  # the cooler can only cool: start a little above its outlet
+            lo[i] = min(hi[i], max(lo[i], reaching(t_cool + 0.5)))
         t_cap = st.get("max_discharge_temperature_K")
         if temperature_caps and t_cap is not None:
             hi[i] = max(lo[i], min(hi[i], reaching(t_cap)))

@@ -6,7 +6,7 @@ __all__ = ["SoftLimit", "soft_limits", "Trial", "TrialSolver"]
 from dataclasses import dataclass
 from typing import Callable
 
-from ..cooler import cooler_outlet_temperature
+from ..cooler import cooler_outlet_temperature, outlet_field
 from ..errors import StagewrightError
 from ..results import TrainResult
 from ..solve import solve
@@ -32,17 +32,19 @@ class SoftLimit:
         return self.limit - t if self.kind == "max_temperature" else t - self.limit
 
 
-def soft_limits(stages: list[dict]) -> list[SoftLimit]:
-    """The temperature limits of normalised stage entries."""
+def soft_limits(stages: list[dict], ambient_K: float) -> list[SoftLimit]:
+    """The temperature limits of normalised stage entries at a site ambient temperature [K].
+
+    A cooler rated from its UA has no set outlet temperature and so no limit here."""
     out = []
     for i, st in enumerate(stages):
         if st.get("max_discharge_temperature_K") is not None:
             out.append(SoftLimit(f"stages[{i}].max_discharge_temperature_K", i, "max_temperature",
                                  st["max_discharge_temperature_K"]))
         cooler = st.get("cooler")
-        if cooler:
-            key = "outlet_temperature_K" if cooler.get("outlet_temperature_K") is not None else "approach_K"
-            out.append(SoftLimit(f"stages[{i}].cooler.{key}", i, "cooler", cooler_outlet_temperature(cooler)))
+        t_out = cooler_outlet_temperature(cooler, ambient_K) if cooler else None
+        if t_out is not None:
+            out.append(SoftLimit(outlet_field(cooler, f"stages[{i}].cooler"), i, "cooler", t_out))
     return out
 
 
