@@ -5,6 +5,7 @@
     stagewright solve FILE|FOLDER … [--json]   solve projects, print tables or JSON
     stagewright check FILE|FOLDER …            validate project files
     stagewright year PROJECT.json … [--json]   a year at the site: annual energy, cost, condensate
+    stagewright study PROJECT --max-stages N   staging options side by side (see app/study_cli.py)
     stagewright report FILE|FOLDER … [-o OUT] [--csv [OUT.csv]] [--units SI|US]
                                                PDF (and CSV) reports
 
@@ -83,6 +84,11 @@ def _check(args) -> int:
     return status
 
 
+def _study(args) -> int:
+    from .study_cli import run
+    return run(args)
+
+
 def _report(args) -> int:
     from .report.batch import run_report
     return run_report(args, expand_paths)
@@ -133,13 +139,16 @@ def _report_arguments(p: argparse.ArgumentParser) -> None:
     add_arguments(p)
 
 
-SUBCOMMANDS = {"solve": _solve, "check": _check, "report": _report, "year": _year}
+SUBCOMMANDS = {"solve": _solve, "check": _check, "report": _report, "study": _study, "year": _year}
 
 #: sub-command -> function adding its own options to its parser
 SUBCOMMAND_OPTIONS = {"solve": _solve_arguments, "report": _report_arguments, "year": _solve_arguments}
 
 
 def _headless_parser(name: str) -> argparse.ArgumentParser:
+    if name == "study":
+        from .study_cli import build_parser
+        return build_parser()
     p = argparse.ArgumentParser(prog=f"stagewright {name}")
     p.add_argument("files", nargs="+", help="project files or folders of them")
     SUBCOMMAND_OPTIONS.get(name, lambda _: None)(p)

@@ -175,9 +175,13 @@ def test_warnings_and_staging_rows_are_printed(tmp_path):
         st["max_discharge_temperature_K"] = 350.0  # far below the discharge: a warning per stage
     result = solve(doc)
     assert len(result.warnings) == 2
+    # rows shaped like thermo.study's staging comparison (binding limits, one shared note)
     rows = [dict(stages=1, driver_power_W=300e3, max_discharge_temperature_K=600.0, feasible=False,
-                 reason="discharge above its limit"),
-            dict(stages=2, driver_power_W=250e3, max_discharge_temperature_K=430.0, feasible=True)]
+                 pressure_ratios=[9.0], note="Each option repeats stage 1.",
+                 binding_limits=[{"field": "stages[0].max_discharge_temperature_K", "status": "violated",
+                                  "message": "discharge above its limit"}]),
+            dict(stages=2, driver_power_W=250e3, max_discharge_temperature_K=430.0, feasible=True,
+                 pressure_ratios=[3.0, 3.0], note="Each option repeats stage 1.", binding_limits=[])]
     pdf = tmp_path / "w.pdf"
     n = export_report(doc, result, pdf, system="SI", source_name="warned.json", study_rows=rows, date="2024-05-06")
     text, pages = _pdf_text(pdf)
@@ -185,7 +189,8 @@ def test_warnings_and_staging_rows_are_printed(tmp_path):
     for w in result.warnings:
         assert w.message in text and w.field in text
     assert "Staging comparison" in text and "discharge above its limit" in text
-    assert re.search(r"^1 300\.00 326\.85 no ", text, re.M)  # 300 kW, 600 K = 326.85 °C, infeasible
+    assert re.search(r"^1 9\.000 300\.00 326\.85 no$", text, re.M)  # 300 kW, 600 K = 326.85 °C, infeasible
+    assert "3.000 × 3.000" in text and text.count("Each option repeats stage 1.") == 1
     assert "Date 2024-05-06" in text
 
 
@@ -255,3 +260,19 @@ def test_progress_line_only_on_a_terminal():
         bar.step("a.json")
         bar.message("a.json: bad")
     assert plain.getvalue() == "a.json: bad\n"
+
+
+def test_cooler_exchanger_figures_are_printed(tmp_path):
+    doc = load(SAMPLE_FILES[0])
+    doc["stages"][0]["cooler"]["coolant"] = {"kind": "water", "temperature_rise_K": 8.0}
+    result = solve(doc).to_dict()
+    c = result["stages"][0]["cooler"]
+    pdf = tmp_path / "x.pdf"
+    export_report(doc, result, pdf)
+    text, _ = _pdf_text(pdf)
+    assert "Cooler exchangers" in text and "water, rise 8.00 K" in text
+    m = re.search(r"^Cooler 1 water ([\d.]+) ([\d.]+) ([\d.]+) ([\d.]+) ([\d.]+) ([\d.]+) ([\d.]+) ([\d.]+)$", text, re.M)
+    assert m, "exchanger row not printed"
+    assert abs(float(m.group(1)) - c["coolant_flow_kg_s"]) <= 5e-5
+    assert abs(float(m.group(3)) - (c["coolant_outlet_temperature_K"] - 273.15)) <= 0.005
+    assert abs(float(m.group(8)) - c["ua_W_K"] / 1e3) <= 5e-4  # kW/K

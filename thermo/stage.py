@@ -37,8 +37,17 @@ class StageResult:
     path: list
 
 
+def _adiabatic_path(model: PropertyModel, start: Point, h_end: float, p_out: float, eta_s: float,
+                    detail: bool, where: str, t_guess: float) -> tuple[float, list[Point]]:
+    """Polytropic efficiency and path of the adiabatic compression ending at ``h_end``;
+    without ``detail`` only the end point (NaN efficiency), which is all the power needs."""
+    if detail:
+        return polytropic_efficiency_between(model, start, h_end, p_out, eta_s)
+    return math.nan, [start, model.at_hp(h_end, p_out, f"{where} discharge", T_guess=t_guess)]
+
+
 def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inlet_velocity: float,
-                p_out: float, mass_flow: float, dead: DeadState) -> StageResult:
+                p_out: float, mass_flow: float, dead: DeadState, detail: bool = True) -> StageResult:
     r"""Solve one stage for its discharge state, power and entropy generation [1]_ [2]_.
 
     Energy (steady flow, inlet kinetic energy counted, casing heat loss :math:`\dot Q`):
@@ -75,6 +84,11 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
         Mass flow through the stage, [kg/s].
     dead : DeadState
         Site dead state.
+    detail : bool
+        False skips the reporting-only work: for isentropic and measured-temperature
+        stages the polytropic efficiency is then NaN and the path holds only its two end
+        points. Power, discharge state and entropy generation are the same either way
+        (used by the staging study, which solves many trial splits).
 
     Returns
     -------
@@ -119,7 +133,8 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
     kind = eff["kind"]
     if kind == "isentropic":
         dh = dh_s / eff["value"]
-        eta_p, path = polytropic_efficiency_between(model, start, start.h + dh, p_out, eff["value"])
+        eta_p, path = _adiabatic_path(model, start, start.h + dh, p_out, eff["value"], detail, where,
+                                      start.T + (iso.T - start.T) / eff["value"])
     elif kind == "polytropic":
         path = polytropic_path(model, start, p_out, eff["value"])
         eta_p, dh = eff["value"], path[-1].h - start.h
@@ -132,7 +147,7 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
                 f"would need an isentropic efficiency above 1 (minimum adiabatic discharge "
                 f"{iso.T:.2f} K with the given casing heat loss): a second-law violation — check "
                 f"the measured temperatures and pressures", f"{where}.efficiency.value_K")
-        eta_p, path = polytropic_efficiency_between(model, start, start.h + dh, p_out, dh_s / dh)
+        eta_p, path = _adiabatic_path(model, start, start.h + dh, p_out, dh_s / dh, detail, where, eff["value_K"])
     h_out = start.h + dh - q - 0.5 * v_out ** 2
     outlet = model.at_hp(h_out, p_out, f"{where} discharge", T_guess=path[-1].T)
     w_gas = mass_flow * dh

@@ -29,7 +29,7 @@ _HEADINGS = {1: 13.0, 2: 10.5}
 _BAND = "#f2f4f7"  # alternate table rows
 _RULE = "#9aa5b1"
 _PAD_Y = 0.035  # cell padding above and below, [in]
-_KEEP_WHOLE_ROWS = 15  # tables with at most this many rows are kept on one page
+_KEEP_WHOLE_ROWS = 20  # tables with at most this many rows are kept on one page
 
 _MEASURE_DPI = 720.0  # measure at high resolution: glyph hinting at 72 dpi inflates widths
 _renderer = RendererAgg(10, 10, _MEASURE_DPI)
@@ -44,19 +44,47 @@ def text_width(text: str, size: float, bold: bool = False) -> float:
 
 
 def wrap(text: str, width_in: float, size: float, bold: bool = False) -> list[str]:
-    """Greedy word wrap of ``text`` to ``width_in`` inches (explicit newlines kept)."""
+    """Greedy word wrap of ``text`` to ``width_in`` inches (explicit newlines kept).
+
+    A single word wider than the line (a long field path, say) is broken between characters.
+    """
     lines: list[str] = []
     for para in str(text).split("\n"):
-        words, line = para.split(" "), ""
-        for word in words:
+        line = ""
+        for word in para.split(" "):
             trial = f"{line} {word}" if line else word
-            if not line or text_width(trial, size, bold) <= width_in:
+            if text_width(trial, size, bold) <= width_in:
                 line = trial
-            else:
+                continue
+            if line:
                 lines.append(line)
-                line = word
+            line = word
+            while text_width(line, size, bold) > width_in and len(line) > 1:
+                cut = len(line) - 1
+                while cut > 1 and text_width(line[:cut], size, bold) > width_in:
+                    cut -= 1
+                lines.append(line[:cut])
+                line = line[cut:]
         lines.append(line)
     return lines
+
+
+def _fair_shares(natural: list[float], available: float) -> list[float]:
+    """Split ``available`` among columns wanting ``natural`` widths, max–min fairly."""
+    shares = [0.0] * len(natural)
+    left = list(range(len(natural)))
+    while left:
+        share = available / len(left)
+        small = [j for j in left if natural[j] <= share]
+        if not small:
+            for j in left:
+                shares[j] = share
+            break
+        for j in small:
+            shares[j] = natural[j]
+            available -= natural[j]
+        left = [j for j in left if j not in small]
+    return shares
 
 
 @dataclass
@@ -79,6 +107,7 @@ class Table:
     note: str = ""
     header: bool = True  #: False for key–value lists
     widths: list[float] | None = field(default=None)  #: column widths [in], computed if None
+    row_notes: list[str] | None = None  #: per row, a remark printed under it across the table
 
 
 class Pager:
@@ -161,11 +190,16 @@ class Pager:
         self.y -= 0.08 if level == 1 else 0.05
 
     def paragraph(self, text: str, size: float = _BODY, colour: str = style.INK, indent: float = 0.0,
-                  italic: bool = False, bold_lead: str = "") -> None:
-        """Wrapped text; a ``bold_lead`` is printed bold at its start (e.g. a caution title)."""
+                  italic: bool = False, bold_lead: str = "", keep_together: bool = False) -> None:
+        """Wrapped text; a ``bold_lead`` is printed bold at its start (e.g. a caution title).
+
+        ``keep_together`` moves the whole paragraph to the next page rather than split it.
+        """
         lead = f"{bold_lead} " if bold_lead else ""
         lines = wrap(lead + text, self.content_width - indent, size)
         step = size * 1.35 / 72.0
+        if keep_together:
+            self.need(step * len(lines))
         for k, line in enumerate(lines):
             self.need(step)
             self.y -= step
@@ -179,9 +213,16 @@ class Pager:
 
     # ------------------------------------------------------------------------------- tables
     def _fit(self, table: Table) -> tuple[list[float], float]:
-        """Column widths [in] and font size [pt] that fit the content width."""
+        """Column widths [in] and font size [pt] that fit the content width.
+
+        Columns are as wide as their widest cell. When that is too wide, wrapping (text)
+        columns give up width, shared max–min fairly: a column narrower than its share keeps
+        its natural width and the rest is split among the others; only when the text
+        columns would get less than an inch each does the font shrink (down to 6 pt).
+        """
         pad = 0.12
         size = _TABLE
+        wrap_cols = [j for j, c in enumerate(table.columns) if c.wrap]
         while True:
             widths = []
             for j, col in enumerate(table.columns):
@@ -190,18 +231,18 @@ class Pager:
                         + [text_width(c, size, j == 0 and not table.header) for c in cells] + [0.3])
                 widths.append(w + pad)
             total = sum(widths)
-            if total <= self.content_width or size <= 6.0:
+            if total <= self.content_width:
                 break
-            wrap_cols = [j for j, c in enumerate(table.columns) if c.wrap]
-            if wrap_cols:  # give the text columns what is left
+            if wrap_cols:
                 fixed = sum(w for j, w in enumerate(widths) if j not in wrap_cols)
-                share = (self.content_width - fixed) / len(wrap_cols)
-                if share >= 1.0:
-                    for j in wrap_cols:
-                        widths[j] = share
+                shares = _fair_shares([widths[j] for j in wrap_cols], self.content_width - fixed)
+                if shares and min(shares) >= 1.0 or size <= 6.0:
+                    for j, w in zip(wrap_cols, shares):
+                        widths[j] = max(w, 0.5)
                     return widths, size
+            elif size <= 6.0:
+                break
             size -= 0.5
-        wrap_cols = [j for j, c in enumerate(table.columns) if c.wrap]
         if total < self.content_width and wrap_cols:  # text columns take the spare width
             extra = (self.content_width - total) / len(wrap_cols)
             widths = [w + extra if j in wrap_cols else w for j, w in enumerate(widths)]
@@ -221,13 +262,16 @@ class Pager:
                 text = row[j] if j < len(row) else ""
                 cells.append(wrap(text, widths[j] - 0.1, size) if col.wrap else str(text).split("\n"))
             prepared.append(cells)
-        heights = [max(len(c) for c in cells) * line_h + 2 * _PAD_Y for cells in prepared]
+        notes = [wrap(n, sum(widths) - 0.3, size - 0.5) if n else [] for n in
+                 (table.row_notes or [""] * len(prepared))]
+        heights = [(max(len(c) for c in cells) + len(nl)) * line_h + 2 * _PAD_Y
+                   for cells, nl in zip(prepared, notes)]
         has_units = table.header and any(c.unit for c in table.columns)
         head_h = (line_h * (2 if has_units else 1) + 2 * _PAD_Y) if table.header else 0.0
         title_h = 10.0 * 1.5 / 72.0 if table.title else 0.0
         note_h = (len(wrap(table.note, self.content_width, _SMALL)) * _SMALL * 1.35 / 72.0 + 0.12
                   if table.note else 0.0)
-        return widths, size, line_h, prepared, heights, has_units, head_h, title_h, note_h
+        return widths, size, line_h, list(zip(prepared, notes)), heights, has_units, head_h, title_h, note_h
 
     def table_height(self, table: Table) -> float:
         """Height the whole table takes on one page, note included, [in]."""
@@ -268,7 +312,7 @@ class Pager:
             first = heights[0] if heights else 0.0
             self.need(title_h + head_h + first + min(2, len(heights)) * line_h + 0.05)
         start(False)
-        for k, (cells, h) in enumerate(zip(prepared, heights)):
+        for k, ((cells, note_lines), h) in enumerate(zip(prepared, heights)):
             if h > self.space_left():
                 self._rule(x0, x_end, self.y, colour=style.INK, lw=0.8)
                 self.new_page()
@@ -283,11 +327,15 @@ class Pager:
                 bold = j == 0 and not table.header
                 for m, line in enumerate(lines):
                     self._text(xa, self.y - pad_y - line_h * (m + 0.8), line, size, bold=bold, ha=col.align)
+            first_note = max(len(c) for c in cells)
+            for m, line in enumerate(note_lines):
+                self._text(x0 + 0.25, self.y - pad_y - line_h * (first_note + m + 0.8), line, size - 0.5,
+                           colour=style.MUTED, italic=True)
             self.y -= h
         self._rule(x0, x_end, self.y, colour=style.INK, lw=0.8)
         self.y -= 0.06
         if table.note:
-            self.paragraph(table.note, size=_SMALL, colour=style.MUTED)
+            self.paragraph(table.note, size=_SMALL, colour=style.MUTED, keep_together=True)
         self.y -= 0.1
 
     # ------------------------------------------------------------------------------ charts

@@ -43,6 +43,7 @@ def build_pages(doc: dict, result: dict, info: sections.ReportInfo, study_rows=N
     p.heading("Balance sheet", keep_with=p.table_height(states))
     p.table(states)
     sections.components_table(p, result, system)
+    sections.exchangers_table(p, result, system)
     sections.totals_table(p, result, system)
     sections.charts(p, doc, result, system)
     limits = [st.get("max_discharge_temperature_K") for st in doc.get("stages", [])]

@@ -7,7 +7,7 @@ functions take the project document, its solved result (``TrainResult.to_dict()`
 from __future__ import annotations
 
 __all__ = ["ReportInfo", "title_block", "inputs", "state_points_table", "components_table", "totals_table",
-           "charts", "warnings", "staging", "cautions", "state_points", "Q"]
+           "exchangers_table", "charts", "warnings", "staging", "cautions", "state_points", "Q"]
 
 from dataclasses import dataclass
 
@@ -128,26 +128,76 @@ def inputs(p: Pager, doc: dict, result: dict, system: str) -> None:
                      Q(st["max_discharge_temperature_K"], "temperature", system)])
     p.table(Table("Stages", cols, rows))
 
+    coolers = [st["cooler"] for st in norm["stages"] if st["cooler"] is not None]
+    with_coolant = any(c.get("coolant") for c in coolers)
     cols = [Column("After stage", align="left"), Column("Air outlet", align="left"),
             Column("Coolant inlet", _sym("temperature", system)),
             Column("Pressure drop", _sym("pressure_difference", system)), Column("Separator eff.", "%")]
+    if with_coolant:
+        cols += [Column("Coolant", align="left", wrap=True), Column("Arrangement", align="left", wrap=True)]
     rows = []
     for i, st in enumerate(norm["stages"], 1):
         c = st["cooler"]
         if c is None:
-            rows.append([str(i), "no cooler", "", "", ""])
+            rows.append([str(i), "no cooler"] + [""] * (len(cols) - 2))
             continue
         if c.get("outlet_temperature_K") is not None:
             out = _with(c["outlet_temperature_K"], "temperature", system)
+        elif c.get("ua_W_K") is not None:
+            out = f"rated from UA {_with(c['ua_W_K'], 'conductance', system)}"
         else:
             out = f"approach {_with(c['approach_K'], 'temperature_difference', system)}"
-        rows.append([str(i), out,
-                     Q(c.get("coolant_inlet_temperature_K"), "temperature", system)
-                     if c.get("coolant_inlet_temperature_K") is not None else "ambient",
-                     Q(c["pressure_drop_Pa"], "pressure_difference", system),
-                     Q(c["separator_efficiency"], "fraction", system)])
+        row = [str(i), out,
+               Q(c.get("coolant_inlet_temperature_K"), "temperature", system)
+               if c.get("coolant_inlet_temperature_K") is not None else "ambient",
+               Q(c["pressure_drop_Pa"], "pressure_difference", system),
+               Q(c["separator_efficiency"], "fraction", system)]
+        if with_coolant:
+            row += [_coolant_text(c.get("coolant"), system), (c.get("arrangement") or "").replace("_", " ")]
+        rows.append(row)
     p.table(Table("Coolers", cols, rows,
                   note="A cooler's approach is its air outlet temperature above the coolant inlet temperature."))
+
+
+def _coolant_text(coolant: dict | None, system: str) -> str:
+    if not coolant:
+        return "not given"
+    kind = coolant["kind"]
+    if kind == "glycol":
+        frac = coolant.get("glycol_fraction")
+        kind = f"{coolant.get('glycol', 'ethylene')} glycol" + (f" {Q(frac, 'fraction', system)} %" if frac else "")
+    if coolant.get("flow_kg_s") is not None:
+        return f"{kind}, {_with(coolant['flow_kg_s'], 'mass_flow', system)}"
+    if coolant.get("temperature_rise_K") is not None:
+        return f"{kind}, rise {_with(coolant['temperature_rise_K'], 'temperature_difference', system)}"
+    return kind
+
+
+def exchangers_table(p: Pager, result: dict, system: str) -> None:
+    """Exchanger figures of the coolers that have a coolant side (nothing when none has)."""
+    items = [(i, st["cooler"]) for i, st in enumerate(result["stages"], 1)
+             if st.get("cooler") and st["cooler"].get("coolant_kind")]
+    if not items:
+        return
+    cols = [Column("Cooler", align="left"), Column("Coolant", align="left"),
+            Column("Coolant flow", _sym("mass_flow", system)),
+            Column("Coolant in", _sym("temperature", system)), Column("Coolant out", _sym("temperature", system)),
+            Column("LMTD", _sym("temperature_difference", system)), Column("F", ""),
+            Column("ε", ""), Column("NTU", ""), Column("UA", _sym("conductance", system))]
+
+    def num(v, fmt="{:.3f}"):
+        return fmt.format(v) if v is not None else _DASH
+
+    rows = [[f"Cooler {i}", str(c["coolant_kind"]), Q(c.get("coolant_flow_kg_s"), "mass_flow", system),
+             Q(c.get("coolant_inlet_temperature_K"), "temperature", system),
+             Q(c.get("coolant_outlet_temperature_K"), "temperature", system),
+             Q(c.get("lmtd_K"), "temperature_difference", system), num(c.get("lmtd_correction_factor")),
+             num(c.get("effectiveness")), num(c.get("ntu")), Q(c.get("ua_W_K"), "conductance", system)]
+            for i, c in items]
+    p.table(Table("Cooler exchangers", cols, rows,
+                  note="LMTD: log-mean temperature difference; F its correction factor for the arrangement; "
+                       "ε the exchanger effectiveness and NTU its number of transfer units; UA the "
+                       "overall conductance the duty needs."))
 
 
 # ----------------------------------------------------------------------------- balance sheet
@@ -279,30 +329,52 @@ def warnings(p: Pager, result: dict) -> None:
                   [[w["message"], w["field"]] for w in items]))
 
 
+def _remark(row: dict) -> str:
+    """Why an arrangement is limited: its binding limits' messages, or a given reason."""
+    msgs = [b.get("message", "") for b in row.get("binding_limits") or [] if b.get("message")]
+    if row.get("reason"):
+        msgs.insert(0, str(row["reason"]))
+    return "; ".join(msgs)
+
+
 def staging(p: Pager, study_rows: list[dict] | None, system: str, limit_K=None) -> None:
+    """The staging comparison (rows of ``thermo.study.compare_stagings(...).rows()``), if one was run."""
     if not study_rows:
         return
     p.charts("Staging comparison", [(lambda f: draw_staging_chart(f, study_rows, system, limit_K=limit_K), 3.6)])
-    extra = [k for k in ("specific_power_kW_per_m3_min",) if any(k in r for r in study_rows)]
-    cols = [Column("Stages", align="left"), Column("Driver power", _sym("power", system))]
-    if extra:
+    has = {k: any(r.get(k) is not None for r in study_rows)
+           for k in ("pressure_ratios", "specific_power_kW_per_m3_min", "saving_W")}
+    cols = [Column("Stages", align="left")]
+    if has["pressure_ratios"]:
+        cols.append(Column("Pressure ratios", align="left", wrap=True))
+    cols.append(Column("Driver power", _sym("power", system)))
+    if has["specific_power_kW_per_m3_min"]:
         cols.append(Column("Specific power", _sym("specific_power", system)))
-    cols += [Column("Highest discharge T", _sym("temperature", system)), Column("Feasible", align="left"),
-             Column("Remark", align="left", wrap=True)]
+    cols.append(Column("Max. discharge T", _sym("temperature", system)))
+    if has["saving_W"]:
+        cols.append(Column("Saving", _sym("power", system)))
+    cols.append(Column("Feasible", align="left"))
     rows = []
     for r in sorted(study_rows, key=lambda r: r["stages"]):
-        row = [str(r["stages"]), Q(r.get("driver_power_W"), "power", system)]
-        if extra:
+        row = [str(r["stages"])]
+        if has["pressure_ratios"]:
+            row.append(" × ".join(f"{x:.3f}" for x in r.get("pressure_ratios") or []))
+        row.append(Q(r.get("driver_power_W"), "power", system))
+        if has["specific_power_kW_per_m3_min"]:
             row.append(Q(r.get("specific_power_kW_per_m3_min"), "specific_power", system))
-        row += [Q(r.get("max_discharge_temperature_K"), "temperature", system), "yes" if r.get("feasible") else "no",
-                str(r.get("reason") or r.get("note") or "")]
+        row.append(Q(r.get("max_discharge_temperature_K"), "temperature", system))
+        if has["saving_W"]:
+            row.append(Q(r.get("saving_W"), "power", system))
+        row.append("yes" if r.get("feasible") else "no")
         rows.append(row)
-    p.table(Table("Arrangements compared", cols, rows))
+    remarks = [_remark(r) for r in sorted(study_rows, key=lambda r: r["stages"])]
+    notes = {r.get("note") for r in study_rows if r.get("note")}
+    p.table(Table("Arrangements compared", cols, rows, note=" ".join(sorted(notes)), row_notes=remarks))
 
 
 def cautions(p: Pager) -> None:
     p.heading("Cautions", keep_with=0.8)
     for title, text in CAUTIONS:
-        p.paragraph(text, bold_lead=f"{title}.")
+        p.paragraph(text, bold_lead=f"{title}.", keep_together=True)
     p.gap(0.05)
-    p.paragraph(DEFERRAL, italic=True)
+    p.paragraph(DEFERRAL, italic=True, keep_together=True)
