@@ -276,3 +276,20 @@ def test_cooler_exchanger_figures_are_printed(tmp_path):
     assert abs(float(m.group(1)) - c["coolant_flow_kg_s"]) <= 5e-5
     assert abs(float(m.group(3)) - (c["coolant_outlet_temperature_K"] - 273.15)) <= 0.005
     assert abs(float(m.group(8)) - c["ua_W_K"] / 1e3) <= 5e-4  # kW/K
+
+
+def test_report_with_the_staging_study(tmp_path):
+    """--stagings runs thermo.study.compare_stagings; its rows are printed at printed precision."""
+    from thermo.study import compare_stagings
+
+    path = SAMPLE_FILES[0]
+    rows = compare_stagings(load(path), 3).rows()
+    pdf = tmp_path / "s.pdf"
+    assert main(["report", str(path), "-o", str(pdf), "--stagings", "3"]) == 0
+    text, _ = _pdf_text(pdf)
+    assert "Staging comparison" in text
+    for r in rows:
+        m = re.search(rf"^{r['stages']} [\d. ×]+? ([\d ]+\.\d\d) ", text, re.M)
+        assert m and abs(float(m.group(1).replace(" ", "")) - r["driver_power_W"] / 1e3) <= 0.005
+    for b in rows[0]["binding_limits"]:
+        assert _flat(b["message"]) in _flat(text)

@@ -23,6 +23,8 @@ def add_arguments(p: argparse.ArgumentParser) -> None:
                    help="also write the balance sheet as CSV (file for one project; "
                         "without a value: beside each PDF)")
     p.add_argument("--units", choices=("SI", "US"), default="SI", help="display units (default SI)")
+    p.add_argument("--stagings", type=int, choices=range(1, 9), metavar="N", default=None,
+                   help="also compare 1 … N stages, each at its optimum split, and print the comparison")
 
 
 def output_paths(paths: list[Path], output: str | None, csv: str | None) -> list[tuple[Path, Path | None]]:
@@ -70,7 +72,12 @@ def run_report(args, expand_paths) -> int:
                 doc = load(path)
                 pdf.parent.mkdir(parents=True, exist_ok=True)
                 result = solve(doc)
-                export_report(doc, result, pdf, csv_path, system=args.units, source_name=path.name)
+                rows = None
+                if getattr(args, "stagings", None):
+                    from thermo.study import compare_stagings
+                    rows = compare_stagings(doc, args.stagings).rows()
+                export_report(doc, result, pdf, csv_path, system=args.units, source_name=path.name,
+                              study_rows=rows)
             except StagewrightError as exc:
                 bar.message(f"{path}: {exc}")
                 status = max(status, EXIT_INPUT)
