@@ -1,7 +1,7 @@
 """Solve a project document: pick the model, find the mass flow, balance the train."""
 from __future__ import annotations
 
-__all__ = ["solve", "model_for"]
+__all__ = ["solve", "solve_normalised", "model_for"]
 
 import atexit
 import threading
@@ -70,7 +70,14 @@ def solve(doc: dict, detail: bool = True) -> TrainResult:
     >>> round(solve(doc).stages[0].outlet.T, 3)  # 293.15 * 4 ** (0.4 / 1.4)
     435.619
     """
-    norm = normalise(doc)
+    return solve_normalised(normalise(doc), detail)
+
+
+def solve_normalised(norm: dict, detail: bool = True) -> TrainResult:
+    """:func:`solve` for a document already passed through :func:`thermo.document.normalise`.
+
+    For callers that validate once and then solve many variants (sweeps, studies).
+    """
     model = model_for(norm["fluid"])
     flow = norm["flow"]
     T0, P0 = norm["site"]["ambient_temperature_K"], site_pressure(norm)
