@@ -223,6 +223,8 @@ class MainWindow(FileOps, QMainWindow):
         elif ed.solve_seconds is not None:
             self.status_solve.setText(f"Solved in {ed.solve_seconds * 1000:.0f} ms")
         r = ed.result
+        if ed.solver.busy and r is not None:
+            return  # keep the last closure figures until the new answer arrives
         if r is not None and not ed.stale:
             self.status_residual.setText(f"Closure: energy {r['energy_residual']:.1e} · "
                                          f"exergy {r['exergy_residual']:.1e}")
@@ -259,10 +261,10 @@ class MainWindow(FileOps, QMainWindow):
     def default_layout(self) -> None:
         """Initial dock sizes for the window size (also used by Reset panel layout)."""
         w, h = self.width(), self.height()
-        left = max(300, min(380, int(w * 0.24)))
-        right = max(320, min(420, int(w * 0.26)))
+        left = max(290, min(360, int(w * 0.22)))
+        right = max(300, min(400, int(w * 0.235)))
         self.resizeDocks([self.docks["site"], self.docks["train"]], [left, right], Qt.Horizontal)
-        self.resizeDocks([self.docks["balance"]], [max(240, int(h * 0.38))], Qt.Vertical)
+        self.resizeDocks([self.docks["balance"]], [max(260, min(420, int(h * 0.42)))], Qt.Vertical)
         self.resizeDocks([self.docks["site"], self.docks["duty"], self.docks["messages"]],
                          [int(h * 0.40), int(h * 0.25), int(h * 0.35)], Qt.Vertical)
 

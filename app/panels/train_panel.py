@@ -59,6 +59,9 @@ class TrainPanel(QWidget):
         scroll.setFrameShape(QFrame.NoFrame)
         scroll.setWidget(self.forms)
         scroll.setHorizontalScrollBarPolicy(Qt.ScrollBarAlwaysOff)
+        # the panel may not get narrower than the widest form (nothing is ever cut off)
+        widest = max(self.stage_form.minimumSizeHint().width(), self.cooler_form.minimumSizeHint().width())
+        scroll.setMinimumWidth(widest + scroll.verticalScrollBar().sizeHint().width() + 4)
         lay.addWidget(scroll, 1)
         editor.model.changed.connect(self._on_model_changed)
         editor.model.structure_changed.connect(self._on_structure)
@@ -126,9 +129,19 @@ class TrainPanel(QWidget):
                 c.setData(ROLE, ("cooler", i))
                 self.list.addItem(c)
         self.list.blockSignals(False)
-        rows = max(self.list.count(), 3)
-        self.list.setFixedHeight(rows * self.list.sizeHintForRow(0) + 2 * self.list.frameWidth() + 4)
+        self._fit_list()
         self.select(*self._selected)
+
+    def _fit_list(self) -> None:
+        """As tall as its rows, but never more than 40 % of the panel (it scrolls beyond)."""
+        rows = max(self.list.count(), 3)
+        want = rows * max(self.list.sizeHintForRow(0), 16) + 2 * self.list.frameWidth() + 4
+        cap = max(110, int(self.height() * 0.4)) if self.height() > 200 else want
+        self.list.setFixedHeight(min(want, cap))
+
+    def resizeEvent(self, event) -> None:
+        super().resizeEvent(event)
+        self._fit_list()
 
     def select(self, kind: str, index: int) -> None:
         """Select the stage or cooler row of stage ``index`` (falls back to the stage row)."""
