@@ -62,7 +62,7 @@ def measure(fn, repeat: int, warmup: int = 1) -> tuple[float, float, float]:
 
 
 def _fmt(t: float) -> str:
-    return f"{t * 1e3:9.2f} ms" if t < 10 else f"{t:9.2f} s "
+    return f"{t * 1e3:9.2f} ms" if t < 1 else f"{t:9.3f} s "
 
 
 ROWS: list[tuple] = []

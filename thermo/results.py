@@ -123,6 +123,7 @@ class TrainResult:
     energy_residual: float
     exergy_residual: float
     warnings: list = field(default_factory=list)
+    recovery: object = None  #: thermo.recovery.RecoveryResult when the project asks for heat recovery
 
     def to_dict(self) -> dict:
         """Plain-data form (JSON-ready, no NaN: missing values are ``None``)."""
@@ -153,9 +154,25 @@ class TrainResult:
                              "exergy_destroyed_W": self.inlet.exergy_destroyed_W},
             "delivery": point_dict(self.delivery, self.delivery_velocity_m_s),
             "stages": [_stage_dict(s, c) for s, c in zip(self.stages, self.coolers)],
+            "recoverable_heat_W": None if self.recovery is None else self.recovery.recoverable_heat_W,
+            "heat_recovery": _recovery_dict(self.recovery),
             "warnings": [{"field": w.field, "message": w.message} for w in self.warnings],
         }
         return _finite(d)
+
+
+def _recovery_dict(rec) -> dict | None:
+    if rec is None:
+        return None
+    return {"delivery_temperature_K": rec.delivery_temperature_K,
+            "source_temperature_K": rec.source_temperature_K,
+            "coolers_W": list(rec.coolers_W), "casings_W": list(rec.casings_W),
+            "recoverable_heat_W": rec.recoverable_heat_W,
+            "share_of_driver_input": rec.share_of_driver_input,
+            "operating_hours_per_year": rec.operating_hours_per_year,
+            "heat_per_year_kWh": rec.heat_per_year_kWh,
+            "fuel_saved_per_year_kWh": rec.fuel_saved_per_year_kWh,
+            "value_per_year": rec.value_per_year}
 
 
 def _finite(obj):

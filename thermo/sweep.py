@@ -18,7 +18,8 @@ from dataclasses import dataclass, field
 
 from .doc_paths import set_path
 from .errors import InputError, StagewrightError
-from .solve import solve
+from .document import normalise
+from .solve import solve_normalised
 
 #: result keys collected at every point (totals of ``TrainResult.to_dict()``)
 SWEEP_OUTPUTS = ("mass_flow_kg_s", "shaft_power_W", "driver_power_W", "specific_power_kW_per_m3_min",
@@ -49,25 +50,42 @@ class SweepResult:
                 "errors": {str(i): msg for i, msg in self.errors.items()}}
 
 
-def _summary(doc: dict) -> tuple:
-    r = solve(doc).to_dict()
+def _summary(result) -> tuple:
     out = []
     for key in SWEEP_OUTPUTS:
         if key == "max_discharge_temperature_K":
-            out.append(max(s["outlet"]["temperature_K"] for s in r["stages"]))
+            out.append(max(s.outlet.T for s in result.stages))
         else:
-            out.append(r.get(key, 0.0) or 0.0)
+            out.append(float(getattr(result, key, 0.0) or 0.0))
     return tuple(out)
 
 
-def _solve_chunk(base: dict, paths: list, chunk: list) -> list:
+def _value_problems(doc: dict, paths: list, axes: dict) -> dict:
+    """Validate each axis value once (not each grid point): (path, value) -> message."""
+    bad = {}
+    for p in paths:
+        for v in axes[p]:
+            trial = copy.deepcopy(doc)
+            set_path(trial, p, float(v))
+            try:
+                normalise(trial)
+            except StagewrightError as exc:
+                bad[(p, float(v))] = str(exc)
+    return bad
+
+
+def _solve_chunk(base_norm: dict, paths: list, chunk: list, bad: dict) -> list:
+    work = copy.deepcopy(base_norm)
     results = []
     for values in chunk:
-        doc = copy.deepcopy(base)
+        problem = next((bad[(p, v)] for p, v in zip(paths, values) if (p, v) in bad), None)
+        if problem is not None:
+            results.append(("error", problem))
+            continue
         for p, v in zip(paths, values):
-            set_path(doc, p, v)
+            set_path(work, p, v)
         try:
-            results.append(("ok", _summary(doc)))
+            results.append(("ok", _summary(solve_normalised(work, detail=False))))
         except StagewrightError as exc:
             results.append(("error", str(exc)))
     return results
@@ -104,6 +122,12 @@ def sweep(doc: dict, axes: dict, *, processes: int | None = None, progress=None,
     -------
     SweepResult
 
+    Notes
+    -----
+    The document is validated once, and each axis value once; grid points are then
+    solved from the normalised document without re-validation and without the
+    reporting-only work (``detail=False``: totals and states are the same).
+
     Raises
     ------
     InputError
@@ -118,6 +142,8 @@ def sweep(doc: dict, axes: dict, *, processes: int | None = None, progress=None,
     points = [tuple(float(v) for v in combo) for combo in itertools.product(*(axes[p] for p in paths))]
     if len(points) > MAX_POINTS:
         raise InputError("axes", len(points), f"a sweep is limited to {MAX_POINTS} points")
+    base_norm = normalise(doc)
+    bad = _value_problems(doc, paths, axes)
     is_cancelled = (cancel.is_set if hasattr(cancel, "is_set") else cancel) or (lambda: False)
     chunks = [points[i:i + _CHUNK] for i in range(0, len(points), _CHUNK)]
     n_proc = processes or ((os.cpu_count() or 1) if len(points) >= _POOL_THRESHOLD else 1)
@@ -138,10 +164,10 @@ def sweep(doc: dict, axes: dict, *, processes: int | None = None, progress=None,
         for ch in chunks:
             if is_cancelled():
                 raise _cancelled()
-            _collect(_solve_chunk(doc, paths, ch))
+            _collect(_solve_chunk(base_norm, paths, ch, bad))
     else:
         with ProcessPoolExecutor(max_workers=n_proc, mp_context=_pool_context()) as pool:
-            futures = [pool.submit(_solve_chunk, doc, paths, ch) for ch in chunks]
+            futures = [pool.submit(_solve_chunk, base_norm, paths, ch, bad) for ch in chunks]
             for fut in futures:
                 if is_cancelled():
                     for f in futures:

@@ -10,6 +10,7 @@ from .document import site_pressure
 from .exergy import DeadState, flow_exergy
 from .flow import NORMAL_PRESSURE, NORMAL_TEMPERATURE
 from .models.base import PropertyModel
+from .recovery import heat_recovery
 from .results import InletResult, TrainResult, Warning_
 from .split import stage_pressure_ratios
 from .stage import solve_stage
@@ -122,6 +123,9 @@ def solve_train(norm: dict, model: PropertyModel, mass_flow: float, detail: bool
         heat_exergy_W=x_heat, exergy_gained_W=x_gain, isothermal_power_W=iso,
         isothermal_efficiency=iso / shaft, second_law_efficiency=x_gain / shaft,
         energy_residual=energy_res, exergy_residual=exergy_res, warnings=warnings)
+    if norm.get("heat_recovery"):
+        result.recovery = heat_recovery(norm["heat_recovery"], model, specs, stages, coolers, mass_flow, driver,
+                                        hours=(norm.get("year") or {}).get("operating_hours_per_year"))
     for name in ("shaft_power_W", "energy_residual", "exergy_residual", "second_law_efficiency"):
         if not math.isfinite(getattr(result, name)):
             raise ArithmeticError(f"non-finite {name} in train solve")  # a bug, never user input
