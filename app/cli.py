@@ -171,9 +171,10 @@ def main(argv: list[str] | None = None) -> int:
     p = argparse.ArgumentParser(prog="stagewright", description="Compression-train workbench.")
     p.add_argument("project", nargs="?", help="project file to open (default: a demo project)")
     p.add_argument("--screenshot", metavar="OUT.png", help="render the window offscreen to a PNG and exit")
+    p.add_argument("--size", metavar="WxH", help="window size for --screenshot (default 1280x800)")
     args = p.parse_args(argv)
     from .gui_main import run_gui  # Qt is imported only here
-    return run_gui(args.project, args.screenshot)
+    return run_gui(args.project, args.screenshot, size=args.size)
 
 
 if __name__ == "__main__":
