@@ -58,10 +58,8 @@ class TrainPanel(QWidget):
         scroll.setWidgetResizable(True)
         scroll.setFrameShape(QFrame.NoFrame)
         scroll.setWidget(self.forms)
-        scroll.setHorizontalScrollBarPolicy(Qt.ScrollBarAlwaysOff)
-        # the panel may not get narrower than the widest form (nothing is ever cut off)
-        widest = max(self.stage_form.minimumSizeHint().width(), self.cooler_form.minimumSizeHint().width())
-        scroll.setMinimumWidth(widest + scroll.verticalScrollBar().sizeHint().width() + 4)
+        # a narrow panel scrolls sideways rather than cutting a field off
+        self.scroll = scroll
         lay.addWidget(scroll, 1)
         editor.model.changed.connect(self._on_model_changed)
         editor.model.structure_changed.connect(self._on_structure)
@@ -131,6 +129,13 @@ class TrainPanel(QWidget):
         self.list.blockSignals(False)
         self._fit_list()
         self.select(*self._selected)
+
+    def minimumSizeHint(self):
+        """Room for the widest form without its scroll bars (the default layout uses this)."""
+        hint = super().minimumSizeHint()
+        widest = max(self.stage_form.minimumSizeHint().width(), self.cooler_form.minimumSizeHint().width())
+        hint.setWidth(max(hint.width(), widest + self.scroll.verticalScrollBar().sizeHint().width() + 20))
+        return hint
 
     def _fit_list(self) -> None:
         """As tall as its rows, but never more than 40 % of the panel (it scrolls beyond)."""
