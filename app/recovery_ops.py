@@ -37,14 +37,15 @@ class RecoveryOps:
         self._autosave.setSingleShot(True)
         self._autosave.setInterval(interval_ms)
         self._autosave.timeout.connect(self.write_recovery_now)
-        self.editor.model.changed.connect(self._on_change_for_autosave)
+        # the stack's index moves after the command ran: only then is the change "unsaved"
+        self.editor.undo_stack.indexChanged.connect(self._on_change_for_autosave)
         self.editor.undo_stack.cleanChanged.connect(self._on_clean_for_autosave)
 
     @property
     def autosave_enabled(self) -> bool:
         return getattr(self, "_autosave", None) is not None
 
-    def _on_change_for_autosave(self, _path: str) -> None:
+    def _on_change_for_autosave(self, *_args) -> None:
         if self._autosave is not None and self.is_modified():
             self._autosave.start()
 
