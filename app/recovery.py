@@ -15,10 +15,11 @@ API (keep this shape; the window's autosave timer and start-up prompt call it)::
         written; the previous recovery file is then unchanged.
     read_recovery() -> (doc, source_path) | None
         None when there is nothing to recover. Otherwise the document, upgraded to the
-        current format version and validated exactly as thermo.project.load does, and the
-        source path (a Path, or None). Raises ProjectFileError or InputError (both
-        StagewrightError) when a recovery file exists but cannot be used; the window
-        shows the message and may call clear_recovery().
+        current format version, and the source path (a Path, or None). The document is
+        returned even when it has validation problems (work in progress is kept as it
+        was; thermo.document.problems lists them). Raises ProjectFileError (a
+        StagewrightError) when a recovery file exists but is damaged or of an unknown
+        version; the window shows the message and may call clear_recovery().
     clear_recovery() -> None
         Remove the recovery file (nothing to do if there is none).
 
@@ -50,7 +51,9 @@ from pathlib import Path
 
 from thermo.errors import InputError, ProjectFileError, SaveError
 from thermo.project.parse import MAX_FILE_BYTES, parse_bytes, read_limited
-from thermo.project.reading import accept
+from thermo.project.migrate import migrate
+from thermo.project.reading import recognise
+from thermo.schema import FORMAT_NAME
 from thermo.project.writing import atomic_write, dumps
 
 ENV_VAR = "STAGEWRIGHT_DATA_DIR"
@@ -128,14 +131,13 @@ def read_recovery():
     Returns
     -------
     tuple of (dict, Path or None), or None
-        The validated current-version document and its source path.
+        The current-version document (possibly with validation problems, as it was being
+        edited) and its source path.
 
     Raises
     ------
     ProjectFileError
-        The recovery file is damaged or of an unknown version.
-    InputError
-        The recovered document does not validate (``.problems`` lists why).
+        The recovery file is damaged, not a project, or of an unknown version.
     """
     path = recovery_file()
     if not path.exists():
@@ -152,8 +154,8 @@ def read_recovery():
     if source is not None and not isinstance(source, str):
         raise ProjectFileError(f"recovery file {path}: source_path: {source!r} — expected text or null",
                                field="source_path")
-    doc, _ = accept(envelope["document"])
-    return doc, (Path(source) if source is not None else None)
+    doc, _ = migrate(recognise(envelope["document"]))
+    return {"format": FORMAT_NAME, **doc}, (Path(source) if source is not None else None)
 
 
 def clear_recovery() -> None:

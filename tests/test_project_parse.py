@@ -94,3 +94,33 @@ def test_nothing_but_plain_data_comes_out():
 def test_position_agrees_with_counting_lines(text, index):
     before = text[:index].split("\n")
     assert position(text, index) == (len(before), len(before[-1]) + 1)
+
+
+def _largest(node):
+    """The largest value the schema allows: every key, every list full, every text at its
+    longest in 4-byte characters, every number with 17 significant digits."""
+    from thermo.schema_types import Choice, Items, Num, Obj, Text, Variant
+    if isinstance(node, Num):
+        return 123456789 if node.integer else -1.2345678901234567e-100
+    if isinstance(node, Choice):
+        return max(node.options, key=len)
+    if isinstance(node, Text):
+        return "\U0001F600" * node.max_length
+    if isinstance(node, Obj):
+        return {k: _largest(v) for k, v in node.fields.items()}
+    if isinstance(node, Variant):
+        options = [{node.tag: kind, **{k: _largest(v) for k, v in fields.items()}}
+                   for kind, fields in node.variants.items()]
+        return max(options, key=lambda o: len(json.dumps(o)))
+    if isinstance(node, Items):
+        one = _largest(node.item)
+        return [one] * node.max_length
+    raise TypeError(node)
+
+
+def test_the_largest_document_the_schema_allows_fits_the_limits():
+    from thermo.project import dumps
+    from thermo.schema import PROJECT
+    data = dumps(_largest(PROJECT)).encode("utf-8")
+    assert len(data) < MAX_FILE_BYTES / 2, f"{len(data)} bytes: raise MAX_FILE_BYTES"
+    assert parse_bytes(data)["stages"][0]["name"].startswith("\U0001F600")  # and depth is within MAX_DEPTH

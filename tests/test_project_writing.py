@@ -63,13 +63,18 @@ def test_key_order_follows_the_schema():
     assert text.index('"kind": "isentropic"') < text.index('"value": 0.82')
 
 
-def test_save_refuses_an_invalid_document_and_writes_nothing(project):
+def test_a_document_with_problems_is_saved_and_named_on_reading(project):
+    # the window asks before saving such a document; the work is kept, and reading names
+    # what has to be fixed
+    from thermo.errors import InputError as Refused
+    from thermo.project import load_with_problems
     path, changed = project
-    before = path.read_bytes()
     changed["stages"][0]["efficiency"]["value"] = 7.0
-    with pytest.raises(InputError, match=r"stages\[0\]\.efficiency\.value"):
-        save(changed, path)
-    assert path.read_bytes() == before and not backup_path(path).exists()
+    save(changed, path)
+    with pytest.raises(Refused, match=r"stages\[0\]\.efficiency\.value: 7\.0"):
+        load(path)
+    doc, found = load_with_problems(path)
+    assert doc == changed and [p.field for p in found] == ["stages[0].efficiency.value"]
 
 
 @pytest.mark.parametrize("bad, field", [(float("nan"), "discharge_pressure_Pa"), (object(), "discharge_pressure_Pa")])
@@ -80,9 +85,12 @@ def test_save_refuses_values_json_cannot_hold(tmp_path, bad, field):
     assert os.listdir(tmp_path) == []
 
 
-def test_save_refuses_a_document_of_another_version(tmp_path):
+def test_save_refuses_a_document_of_another_version_or_format(tmp_path):
     with pytest.raises(InputError, match="^version: 0 — expected 1"):
         save(dict(make_doc(), version=0), tmp_path / "x.json")
+    with pytest.raises(InputError, match="^format: 'x' — expected 'stagewright-project'"):
+        save(dict(make_doc(), format="x"), tmp_path / "x.json")
+    assert os.listdir(tmp_path) == []
 
 
 def test_unpaired_surrogate_in_text_is_saved_as_an_escape_and_reads_back(tmp_path):

@@ -1,7 +1,7 @@
 """The result of a train solve, and its plain-data form (``to_dict``) for JSON, CSV and reports."""
 from __future__ import annotations
 
-__all__ = ["TrainResult", "InletResult", "Warning_", "point_dict"]
+__all__ = ["TrainResult", "InletResult", "Warning_", "point_dict", "exchanger_dict"]
 
 import math
 from dataclasses import dataclass, field
@@ -37,6 +37,32 @@ def point_dict(p: Point, velocity: float = 0.0) -> dict:
             "relative_humidity": 0.0, "dew_point_K": None}
 
 
+def exchanger_dict(cooler: CoolerResult) -> dict:
+    """Sizing figures of a cooler's exchanger (None where no coolant side is given)."""
+    ex = cooler.exchanger
+    if ex is None:
+        return {"arrangement": cooler.arrangement, "coolant_kind": None, "coolant_flow_kg_s": None,
+                "coolant_volume_flow_m3_s": None, "coolant_inlet_temperature_K": None,
+                "coolant_outlet_temperature_K": None, "lmtd_K": None, "lmtd_correction_factor": None,
+                "mean_temperature_difference_K": None, "effectiveness": None, "ntu": None,
+                "ua_W_K": None, "zones": []}
+    c = ex.coolant
+    return {"arrangement": ex.arrangement, "coolant_kind": c.kind, "coolant_flow_kg_s": c.flow_kg_s,
+            "coolant_volume_flow_m3_s": c.volume_flow_m3_s,
+            "coolant_inlet_temperature_K": c.inlet_temperature_K,
+            "coolant_outlet_temperature_K": c.outlet_temperature_K, "lmtd_K": ex.lmtd_K,
+            "lmtd_correction_factor": ex.correction_factor,
+            "mean_temperature_difference_K": ex.mean_temperature_difference_K,
+            "effectiveness": ex.effectiveness, "ntu": ex.ntu, "ua_W_K": ex.ua_W_K,
+            "zones": [{"kind": z.kind, "duty_W": z.duty_W, "hot_inlet_temperature_K": z.hot_inlet_temperature_K,
+                       "hot_outlet_temperature_K": z.hot_outlet_temperature_K,
+                       "coolant_inlet_temperature_K": z.coolant_inlet_temperature_K,
+                       "coolant_outlet_temperature_K": z.coolant_outlet_temperature_K,
+                       "capacity_ratio": z.capacity_ratio, "effectiveness": z.effectiveness, "ntu": z.ntu,
+                       "lmtd_K": z.lmtd_K, "lmtd_correction_factor": z.correction_factor,
+                       "ua_W_K": z.ua_W_K} for z in ex.zones]}
+
+
 def _stage_dict(st: StageResult, cooler: CoolerResult | None) -> dict:
     return {
         "inlet": point_dict(st.inlet, st.inlet_velocity_m_s),
@@ -63,6 +89,7 @@ def _stage_dict(st: StageResult, cooler: CoolerResult | None) -> dict:
             "entropy_generation_W_K": cooler.entropy_generation_W_K,
             "exergy_destroyed_W": cooler.exergy_destroyed_W,
             "path": [{"temperature_K": p.T, "pressure_Pa": p.P, "entropy_J_kgK": p.s} for p in cooler.path],
+            **exchanger_dict(cooler),
         },
     }
 
@@ -96,6 +123,7 @@ class TrainResult:
     energy_residual: float
     exergy_residual: float
     warnings: list = field(default_factory=list)
+    recovery: object = None  #: thermo.recovery.RecoveryResult when the project asks for heat recovery
 
     def to_dict(self) -> dict:
         """Plain-data form (JSON-ready, no NaN: missing values are ``None``)."""
@@ -126,9 +154,25 @@ class TrainResult:
                              "exergy_destroyed_W": self.inlet.exergy_destroyed_W},
             "delivery": point_dict(self.delivery, self.delivery_velocity_m_s),
             "stages": [_stage_dict(s, c) for s, c in zip(self.stages, self.coolers)],
+            "recoverable_heat_W": None if self.recovery is None else self.recovery.recoverable_heat_W,
+            "heat_recovery": _recovery_dict(self.recovery),
             "warnings": [{"field": w.field, "message": w.message} for w in self.warnings],
         }
         return _finite(d)
+
+
+def _recovery_dict(rec) -> dict | None:
+    if rec is None:
+        return None
+    return {"delivery_temperature_K": rec.delivery_temperature_K,
+            "source_temperature_K": rec.source_temperature_K,
+            "coolers_W": list(rec.coolers_W), "casings_W": list(rec.casings_W),
+            "recoverable_heat_W": rec.recoverable_heat_W,
+            "share_of_driver_input": rec.share_of_driver_input,
+            "operating_hours_per_year": rec.operating_hours_per_year,
+            "heat_per_year_kWh": rec.heat_per_year_kWh,
+            "fuel_saved_per_year_kWh": rec.fuel_saved_per_year_kWh,
+            "value_per_year": rec.value_per_year}
 
 
 def _finite(obj):

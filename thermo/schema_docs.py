@@ -93,6 +93,51 @@ PROJECT_KEYS = {
     "stages[].cooler.pressure_drop_Pa": "Air-side pressure drop of the cooler.",
     "stages[].cooler.separator_efficiency": "Fraction of the condensed water the cooler's "
                                             "separator removes.",
+    "stages[].cooler.ua_W_K": "Overall conductance of an existing exchanger (rating: the air outlet, "
+                              "duty and coolant outlet are results); needs `coolant`.",
+    "stages[].cooler.arrangement": "Flow arrangement for ε–NTU and the LMTD correction factor.",
+    "stages[].cooler.coolant": "The coolant side (see *Coolers* below), or null: the cooler then "
+                               "works without sizing figures.",
+    "stages[].cooler.coolant.kind": "`water`, `glycol` (water–glycol) or `air` (ambient air, fan-cooled).",
+    "stages[].cooler.coolant.glycol": "Glycol type (kind `glycol` only).",
+    "stages[].cooler.coolant.glycol_fraction": "Glycol mass fraction; required for kind `glycol`.",
+    "stages[].cooler.coolant.flow_kg_s": "Coolant mass flow (give this or `temperature_rise_K`).",
+    "stages[].cooler.coolant.temperature_rise_K": "Coolant temperature rise (give this or `flow_kg_s`).",
+    "heat_recovery": "Heat recovery from the coolers and casings (see *Heat recovery* below), or null.",
+    "heat_recovery.delivery_temperature_K": "Temperature of the hot water or warm air delivered.",
+    "heat_recovery.approach_K": "Minimum difference between the compressed air and the delivered stream.",
+    "heat_recovery.casing_share": "Share of each stage's casing heat loss a jacket collects.",
+    "heat_recovery.fuel_price_per_kWh": "Price of the boiler fuel the recovered heat replaces (money per kWh).",
+    "heat_recovery.boiler_efficiency": "Efficiency of that boiler (above 1 for condensing boilers, net basis).",
+    "heat_recovery.operating_hours_per_year": "Hours for the yearly value; null: `year.operating_hours_per_year`, "
+                                              "else 8760.",
+    "year": "A year at the site: ambient profile, hours, load and prices (see *A year at the site* "
+            "below), or null.",
+    "year.profile": "The ambient profile: 12 months, or bins of hours.",
+    "year.profile.kind": "`monthly` or `bins`.",
+    "year.profile{monthly}.months": "January to December in order, exactly 12 entries.",
+    "year.profile{monthly}.months[]": "One month.",
+    "year.profile{monthly}.months[].temperature_K": "Mean ambient temperature of the month.",
+    "year.profile{monthly}.months[].relative_humidity": "Mean relative humidity of the month.",
+    "year.profile{monthly}.months[].load": "Load in this month; null: the section's `load`.",
+    "year.profile{monthly}.months[].coolant_inlet_temperature_K": "Water or glycol supply temperature "
+                                                                  "this month; null: the cooler's own.",
+    "year.profile{monthly}.months[].hours": "Operating hours in the month; null: spread from "
+                                            "`operating_hours_per_year` by the days of the month.",
+    "year.profile{bins}.bins": "Bins of ambient conditions, each with its hours.",
+    "year.profile{bins}.bins[]": "One bin.",
+    "year.profile{bins}.bins[].temperature_K": "Mean ambient temperature of the bin.",
+    "year.profile{bins}.bins[].relative_humidity": "Mean relative humidity of the bin.",
+    "year.profile{bins}.bins[].load": "Load in this bin; null: the section's `load`.",
+    "year.profile{bins}.bins[].coolant_inlet_temperature_K": "Water or glycol supply temperature in this "
+                                                             "bin; null: the cooler's own.",
+    "year.profile{bins}.bins[].label": "Name of the bin; empty: `bin N`.",
+    "year.profile{bins}.bins[].hours": "Operating hours in the bin (scaled to "
+                                       "`operating_hours_per_year` when that is given).",
+    "year.operating_hours_per_year": "Operating hours in the year; null: 8760 (monthly) or the bins' sum.",
+    "year.load": "Scales the project's flow value (mass, volume or shaft power).",
+    "year.energy_price_per_kWh": "Price of the driver's electricity (money per kWh).",
+    "year.water_price_per_m3": "Price of cooling water, once-through kind `water` coolers (money per m³).",
 }
 
 #: results path → meaning; ``point.*`` is the state-point object used by every state
@@ -155,6 +200,43 @@ RESULT_KEYS = {
     "stages[].cooler.path[].temperature_K": "Temperature along the path.",
     "stages[].cooler.path[].pressure_Pa": "Pressure along the path.",
     "stages[].cooler.path[].entropy_J_kgK": "Specific entropy along the path.",
+    "stages[].cooler.arrangement": "Flow arrangement of the exchanger.",
+    "stages[].cooler.coolant_kind": "`water`, `glycol` or `air`; null without a coolant side.",
+    "stages[].cooler.coolant_flow_kg_s": "Coolant mass flow (given, or found from the temperature rise).",
+    "stages[].cooler.coolant_volume_flow_m3_s": "Coolant volume flow at its inlet.",
+    "stages[].cooler.coolant_inlet_temperature_K": "Coolant inlet temperature.",
+    "stages[].cooler.coolant_outlet_temperature_K": "Coolant outlet temperature.",
+    "stages[].cooler.lmtd_K": "Counter-flow log-mean temperature difference of the four terminal temperatures.",
+    "stages[].cooler.lmtd_correction_factor": "LMTD correction factor F of the arrangement.",
+    "stages[].cooler.mean_temperature_difference_K": "Mean temperature difference, duty ÷ UA.",
+    "stages[].cooler.effectiveness": "Exchanger effectiveness ε.",
+    "stages[].cooler.ntu": "Number of transfer units, UA ÷ C_min.",
+    "stages[].cooler.ua_W_K": "Overall conductance UA (needed, or given when rating).",
+    "stages[].cooler.zones": "One dry zone, or a dry and a condensing zone.",
+    "stages[].cooler.zones[].kind": "`dry` (sensible only) or `wet` (condensing).",
+    "stages[].cooler.zones[].duty_W": "Heat removed in the zone.",
+    "stages[].cooler.zones[].hot_inlet_temperature_K": "Compressed-air temperature entering the zone.",
+    "stages[].cooler.zones[].hot_outlet_temperature_K": "Compressed-air temperature leaving the zone.",
+    "stages[].cooler.zones[].coolant_inlet_temperature_K": "Coolant temperature entering the zone.",
+    "stages[].cooler.zones[].coolant_outlet_temperature_K": "Coolant temperature leaving the zone.",
+    "stages[].cooler.zones[].capacity_ratio": "C_min ÷ C_max of the zone.",
+    "stages[].cooler.zones[].effectiveness": "Effectiveness of the zone.",
+    "stages[].cooler.zones[].ntu": "Number of transfer units of the zone.",
+    "stages[].cooler.zones[].lmtd_K": "Log-mean temperature difference of the zone.",
+    "stages[].cooler.zones[].lmtd_correction_factor": "LMTD correction factor of the zone.",
+    "stages[].cooler.zones[].ua_W_K": "Conductance UA of the zone.",
+    "recoverable_heat_W": "Heat that can be recovered (null without a `heat_recovery` section).",
+    "heat_recovery": "Heat recovery figures, or null without a `heat_recovery` section.",
+    "heat_recovery.delivery_temperature_K": "Temperature of the stream delivered.",
+    "heat_recovery.source_temperature_K": "Delivery temperature plus approach: the coldest useful air.",
+    "heat_recovery.coolers_W": "Recoverable heat of each stage's cooler (null where there is none).",
+    "heat_recovery.casings_W": "Recoverable casing heat of each stage.",
+    "heat_recovery.recoverable_heat_W": "Total recoverable heat.",
+    "heat_recovery.share_of_driver_input": "Recoverable heat ÷ driver input power.",
+    "heat_recovery.operating_hours_per_year": "Hours used for the yearly figures, [h].",
+    "heat_recovery.heat_per_year_kWh": "Recoverable heat over those hours.",
+    "heat_recovery.fuel_saved_per_year_kWh": "Boiler fuel that heat replaces.",
+    "heat_recovery.value_per_year": "Value of the fuel saved (money, in the unit of the fuel price).",
     "warnings": "Things to look at, e.g. a discharge temperature above its limit.",
     "warnings[].field": "Path of the input concerned (`stages[1].max_discharge_temperature_K`).",
     "warnings[].message": "What is wrong, in words.",
@@ -170,7 +252,7 @@ RESULT_KEYS = {
 }
 
 _SUFFIX_UNITS = [  # longest first
-    ("_kW_per_m3_min", "kW/(m³/min)"), ("_J_kgK", "J/(kg·K)"), ("_kg_m3", "kg/m³"), ("_J_kg", "J/kg"),
+    ("_per_kWh", "money/kWh"), ("_per_m3", "money/m³"), ("_kWh", "kWh"), ("_kW_per_m3_min", "kW/(m³/min)"), ("_J_kgK", "J/(kg·K)"), ("_kg_m3", "kg/m³"), ("_J_kg", "J/kg"),
     ("_kg_s", "kg/s"), ("_m3_s", "m³/s"), ("_W_K", "W/K"), ("_m_s", "m/s"), ("_Pa", "Pa"),
     ("_K", "K"), ("_W", "W"), ("_m", "m"),
 ]
@@ -267,7 +349,8 @@ def result_paths(result: dict) -> set[str]:
         elif isinstance(value, list):
             out.add(path)
             for v in value:
-                visit(v, f"{path}[]")
+                if isinstance(v, (dict, list)):  # a list of numbers is described by the list
+                    visit(v, f"{path}[]")
         else:
             out.add(path)
 

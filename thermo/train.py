@@ -10,13 +10,14 @@ from .document import site_pressure
 from .exergy import DeadState, flow_exergy
 from .flow import NORMAL_PRESSURE, NORMAL_TEMPERATURE
 from .models.base import PropertyModel
+from .recovery import heat_recovery
 from .results import InletResult, TrainResult, Warning_
 from .split import stage_pressure_ratios
 from .stage import solve_stage
 from . import coolprop_adapter
 
 
-def solve_train(norm: dict, model: PropertyModel, mass_flow: float) -> TrainResult:
+def solve_train(norm: dict, model: PropertyModel, mass_flow: float, detail: bool = True) -> TrainResult:
     r"""Solve a normalised project at a given mass flow [1]_.
 
     Totals follow from the component balances; two closure figures check them:
@@ -36,6 +37,9 @@ def solve_train(norm: dict, model: PropertyModel, mass_flow: float) -> TrainResu
         Property model named by the project.
     mass_flow : float
         Mass flow of air, [kg/s].
+    detail : bool
+        False skips reporting-only work (polytropic efficiencies of isentropic stages,
+        points along paths); powers, states and totals are unchanged. For trial solves.
 
     Returns
     -------
@@ -71,7 +75,7 @@ def solve_train(norm: dict, model: PropertyModel, mass_flow: float) -> TrainResu
     stages, coolers = [], []
     point, velocity = after_filter, 0.0
     for i, spec in enumerate(specs):
-        st = solve_stage(model, spec, i, point, velocity, point.P * ratios[i], mass_flow, dead)
+        st = solve_stage(model, spec, i, point, velocity, point.P * ratios[i], mass_flow, dead, detail)
         stages.append(st)
         limit = spec.get("max_discharge_temperature_K")
         if limit is not None and st.outlet.T > limit:
@@ -79,7 +83,8 @@ def solve_train(norm: dict, model: PropertyModel, mass_flow: float) -> TrainResu
                                      f"stage {i + 1} discharge {st.outlet.T:.1f} K exceeds its limit {limit:.1f} K"))
         point, velocity = st.outlet, st.exit_velocity_m_s
         if spec["cooler"] is not None:
-            c = solve_cooler(model, spec["cooler"], i, point, velocity, mass_flow, dead)
+            c = solve_cooler(model, spec["cooler"], i, point, velocity, mass_flow, dead, 8 if detail else 1,
+                             ambient_relative_humidity=norm["site"]["relative_humidity"])
             coolers.append(c)
             point, velocity = c.outlet, 0.0
         else:
@@ -118,6 +123,9 @@ def solve_train(norm: dict, model: PropertyModel, mass_flow: float) -> TrainResu
         heat_exergy_W=x_heat, exergy_gained_W=x_gain, isothermal_power_W=iso,
         isothermal_efficiency=iso / shaft, second_law_efficiency=x_gain / shaft,
         energy_residual=energy_res, exergy_residual=exergy_res, warnings=warnings)
+    if norm.get("heat_recovery"):
+        result.recovery = heat_recovery(norm["heat_recovery"], model, specs, stages, coolers, mass_flow, driver,
+                                        hours=(norm.get("year") or {}).get("operating_hours_per_year"))
     for name in ("shaft_power_W", "energy_residual", "exergy_residual", "second_law_efficiency"):
         if not math.isfinite(getattr(result, name)):
             raise ArithmeticError(f"non-finite {name} in train solve")  # a bug, never user input

@@ -12,8 +12,8 @@ from __future__ import annotations
 
 from . import migrate  # the module (its function: thermo.project.migrate.migrate)
 from .parse import MAX_DEPTH, MAX_FILE_BYTES
-from .reading import load, loads, read_document
+from .reading import load, load_with_problems, loads, read_document
 from .writing import atomic_write, backup_path, dumps, save
 
-__all__ = ["load", "loads", "save", "dumps", "backup_path", "atomic_write",
+__all__ = ["load", "load_with_problems", "loads", "save", "dumps", "backup_path", "atomic_write",
            "read_document", "MAX_FILE_BYTES", "MAX_DEPTH"]

@@ -5,7 +5,7 @@ that is upgraded in memory, stay exactly as they were on disk until the user sav
 """
 from __future__ import annotations
 
-__all__ = ["load", "loads", "read_document", "accept"]
+__all__ = ["load", "loads", "load_with_problems", "read_document", "accept", "recognise"]
 
 from pathlib import Path
 from typing import Any
@@ -17,7 +17,7 @@ from .migrate import migrate
 from .parse import parse_bytes, read_limited
 
 
-def _recognise(data: Any) -> dict:
+def recognise(data: Any) -> dict:
     """Refuse data that is not a project document at all (rather than a faulty one)."""
     if not isinstance(data, dict):
         kind = {list: "a list", str: "text", bool: "true/false", type(None): "null"}.get(type(data), "a number")
@@ -36,7 +36,7 @@ def _recognise(data: Any) -> dict:
 
 def accept(data: Any) -> tuple[dict, int]:
     """Recognise, upgrade and validate parsed JSON data as a project; see :func:`read_document`."""
-    doc, declared = migrate(_recognise(data))
+    doc, declared = migrate(recognise(data))
     doc = {"format": schema.FORMAT_NAME, **doc}
     found = problems(doc)
     if found:
@@ -110,3 +110,28 @@ def load(path) -> dict:
     except StagewrightError as exc:
         exc.source = path
         raise
+
+
+def load_with_problems(path) -> tuple[dict, list]:
+    """Read and upgrade a project file that may not validate (e.g. saved with problems).
+
+    Returns
+    -------
+    tuple of (dict, list of Problem)
+        The document as :func:`load` would return it, and its validation problems (empty
+        when it is valid). Solve it only when the list is empty.
+
+    Raises
+    ------
+    ProjectFileError
+        As :func:`load`: unreadable, too large or deep, not UTF-8, broken JSON, not a
+        project, or an unknown format version.
+    """
+    path = Path(path)
+    try:
+        doc, _ = migrate(recognise(parse_bytes(read_limited(path))))
+    except StagewrightError as exc:
+        exc.source = path
+        raise
+    doc = {"format": schema.FORMAT_NAME, **doc}
+    return doc, problems(doc)

@@ -26,7 +26,6 @@ from pathlib import Path
 from typing import Any
 
 from .. import schema
-from ..document import problems
 from ..errors import InputError, SaveError
 from ..schema_types import Items, Obj, Variant
 from .parse import MAX_FILE_BYTES
@@ -201,9 +200,12 @@ def atomic_write(path, data: bytes, backup: bool = True) -> None:
 
 
 def save(doc: dict, path) -> None:
-    """Validate ``doc`` and write it to ``path`` atomically, keeping ``path.bak``.
+    """Write ``doc`` to ``path`` atomically, keeping the previous file as ``path.bak``.
 
-    The file is written with ``format`` and ``version`` set, so that it always reopens.
+    The file is written with ``format`` and ``version`` set. A document with validation
+    problems (a value out of range, a missing key) is written as it is — the window asks
+    the user first — and :func:`thermo.project.load` will name those problems when it is
+    read; :func:`thermo.project.load_with_problems` opens it anyway.
 
     Parameters
     ----------
@@ -215,8 +217,9 @@ def save(doc: dict, path) -> None:
     Raises
     ------
     InputError
-        If the document does not validate (``.problems`` lists every problem); nothing
-        is written, because a file that :func:`thermo.project.load` refuses loses work.
+        If the document is not plain JSON data (NaN, infinity, an object that is not a
+        dict, list, str, number, bool or None), or declares another format version;
+        nothing is written.
     SaveError
         If writing fails; the previous file and its backup are unchanged.
     """
@@ -226,10 +229,9 @@ def save(doc: dict, path) -> None:
         raise InputError("version", doc.get("version"),
                          f"expected {schema.FORMAT_VERSION}: save writes current-version documents "
                          "(thermo.project.migrate upgrades older ones)")
+    if doc.get("format", schema.FORMAT_NAME) != schema.FORMAT_NAME:
+        raise InputError("format", doc.get("format"), f"expected {schema.FORMAT_NAME!r}")
     full = {"format": schema.FORMAT_NAME, "version": schema.FORMAT_VERSION, **doc}
-    found = problems(full)
-    if found:
-        raise InputError.from_problems(found)
     text = dumps(full)
     data = _encode(text, _ordered(schema.PROJECT, full))
     if len(data) > MAX_FILE_BYTES:
