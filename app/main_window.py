@@ -18,6 +18,7 @@ from .actions import ACTIONS, MENUS, TOOLBAR
 from .display_prefs import DisplayPrefs
 from .document_model import ProjectModel
 from .editor import Editor
+from .export_ops import ExportOps
 from .file_ops import FileOps
 from .help_dialogs import CautionsDialog, about_text
 from .icons import icon
@@ -31,7 +32,7 @@ from .panels.train_panel import TrainPanel
 STATE_VERSION = 1  #: bump when panels are added or renamed, so old saved layouts are ignored
 
 
-class MainWindow(FileOps, QMainWindow):
+class MainWindow(FileOps, ExportOps, QMainWindow):
     """One project per window.
 
     Parameters
@@ -302,6 +303,7 @@ class MainWindow(FileOps, QMainWindow):
         if not self.maybe_save():
             event.ignore()
             return
+        self.wait_for_export()
         self.editor.shutdown()
         self.settings.setValue("window/geometry", self.saveGeometry())
         self.settings.setValue("window/state", self.saveState(STATE_VERSION))
