@@ -176,6 +176,19 @@ def case_startup():
     report("window start-up to solved demo (+PNG)", ours, extra=f"peak RSS {peak:.0f} MB")
 
 
+def case_startup_phases():
+    """Start-up milestones of the window (bench/startup.py): shown, solved demo, charts drawn."""
+    if not (ROOT / "app" / "main_window.py").exists():
+        print(f"{'window start-up milestones':<44}  (window not available)")
+        return
+    import startup
+    med = startup.measure(5)
+    for key in startup.MILESTONES:
+        ROWS.append(f"window start-up to {key:<25}{_fmt(med[key])}")
+        print(ROWS[-1], flush=True)
+    print(f"{'window start-up CPU (user + system)':<44}{_fmt(med['cpu'])}", flush=True)
+
+
 def case_report():
     """Chart drawing (Agg, as the window redraws after a solve) and the PDF + CSV report."""
     from matplotlib.backends.backend_agg import FigureCanvasAgg
@@ -207,7 +220,7 @@ def _peak_mb() -> float:
 
 
 CASES = [case_samples, case_four_stage, case_shaft_power, case_study, case_sweep, case_year,
-         case_files, case_report, case_startup]
+         case_files, case_report, case_startup, case_startup_phases]
 
 
 def main(argv: list[str]) -> None:
