@@ -29,7 +29,6 @@ __all__ = ["COOLANTS", "CoolantSide", "make_coolant", "coolant_side", "COOLANT_P
 import math
 from dataclasses import dataclass
 
-from scipy.optimize import brentq
 
 from .. import coolprop_adapter as cpa
 from ..errors import InputError, PropertyRangeError
@@ -38,6 +37,12 @@ from ..errors import InputError, PropertyRangeError
 #: incompressible, and CoolProp's incompressible tables do not depend on it.
 COOLANT_PRESSURE_PA = 3.0e5
 _BOILING_LIMIT_K = 373.15  #: liquid outlet limit: no boiling at atmospheric pressure, [K]
+
+
+def brentq(*args, **kwargs):
+    """scipy.optimize.brentq, imported on first use (keeps start-up light)."""
+    from scipy.optimize import brentq as _brentq
+    return _brentq(*args, **kwargs)
 
 
 class _Liquid:

@@ -27,12 +27,21 @@ from dataclasses import dataclass
 from typing import Callable
 
 import numpy as np
-from scipy.optimize import brentq
-from scipy.special import gammainc
 
 from ..errors import InputError
 
 _CR_ZERO = 1e-12  #: below this capacity ratio the Cr = 0 limit (one fluid of infinite capacity) is used
+
+
+def brentq(*args, **kwargs):
+    """scipy.optimize.brentq, imported on first use (keeps start-up light)."""
+    from scipy.optimize import brentq as _brentq
+    return _brentq(*args, **kwargs)
+
+def gammainc(*args, **kwargs):
+    """scipy.special.gammainc, imported on first use (keeps start-up light)."""
+    from scipy.special import gammainc as _gammainc
+    return _gammainc(*args, **kwargs)
 
 
 def _counter(ntu: float, cr: float, hot_is_cmin: bool) -> float:

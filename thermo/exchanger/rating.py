@@ -18,12 +18,17 @@ __all__ = ["rate_exchanger"]
 import math
 from typing import Callable
 
-from scipy.optimize import brentq
 
 from ..errors import InputError, PropertyRangeError
 from .sizing import Exchanger, HotSide, size_exchanger
 
 _INFEASIBLE = 60.0
+
+
+def brentq(*args, **kwargs):
+    """scipy.optimize.brentq, imported on first use (keeps start-up light)."""
+    from scipy.optimize import brentq as _brentq
+    return _brentq(*args, **kwargs)
 
 
 def rate_exchanger(arrangement: str, ua: float, t_hi: float, hot_at: Callable[[float], HotSide],

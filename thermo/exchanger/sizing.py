@@ -34,12 +34,17 @@ import math
 from dataclasses import dataclass, field
 from typing import Callable
 
-from scipy.optimize import brentq
 
 from ..errors import InputError
 from .coolant import CoolantSide, coolant_side
 from .effectiveness import ARRANGEMENTS, max_effectiveness, ntu_from_effectiveness
 from .lmtd import counterflow_lmtd
+
+
+def brentq(*args, **kwargs):
+    """scipy.optimize.brentq, imported on first use (keeps start-up light)."""
+    from scipy.optimize import brentq as _brentq
+    return _brentq(*args, **kwargs)
 
 
 class Infeasible(InputError):
