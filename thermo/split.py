@@ -4,6 +4,7 @@ from __future__ import annotations
 __all__ = ["stage_pressure_ratios", "delivered_pressure"]
 
 from .errors import InputError
+from .roots import bracketed_root
 
 
 def delivered_pressure(p_in: float, ratios: list[float], cooler_drops: list[float]) -> float:
@@ -82,7 +83,5 @@ def stage_pressure_ratios(p_in: float, p_delivery: float, given: list, cooler_dr
     if miss(40.0) < 0.0:
         raise InputError("discharge_pressure_Pa", p_delivery,
                          "cannot be reached with stage pressure ratios up to 40; add stages")
-    from scipy.optimize import brentq  # imported here: keeps start-up light
-
-    r = brentq(miss, 1.0, 40.0, xtol=1e-14, rtol=1e-15)
+    r = bracketed_root(miss, 1.0, 40.0, xtol=1e-15)
     return [r if g is None else g for g in given]
