@@ -22,7 +22,8 @@ def cases():
     out["real_gas_measured_T"] = make_doc(model="real_gas", stages=1, eta=t2, kind="discharge_temperature", p_out=3e5)
     return out
 
-docs = cases()
-data = {name: {"doc": doc, "result": thermo.solve(copy.deepcopy(doc)).to_dict()} for name, doc in docs.items()}
-json.dump(data, open("tests/data/dry_baseline.json", "w"), indent=1, sort_keys=True, allow_nan=False)
-print(len(data))
+if __name__ == "__main__":  # never on import (pytest collects doctests from every module)
+    docs = cases()
+    data = {name: {"doc": doc, "result": thermo.solve(copy.deepcopy(doc)).to_dict()} for name, doc in docs.items()}
+    json.dump(data, open("tests/data/dry_baseline.json", "w"), indent=1, sort_keys=True, allow_nan=False)
+    print(len(data))
