@@ -5,6 +5,7 @@ __all__ = ["CoolerResult", "solve_cooler", "cooler_outlet_temperature"]
 
 from dataclasses import dataclass
 
+from .condensate import Condensation, condensation, cooling_line
 from .errors import InputError
 from .exergy import DeadState, heat_exergy
 from .models.base import Point, PropertyModel
@@ -23,6 +24,13 @@ class CoolerResult:
     entropy_generation_W_K: float
     exergy_destroyed_W: float
     path: list
+    #: moist air only: condensation and separator (None for dry air)
+    water: Condensation | None = None
+
+    @property
+    def leaving(self) -> Point:
+        """The stream that goes on to the next stage (after the separator for moist air)."""
+        return self.outlet if self.water is None else self.water.after
 
 
 def cooler_outlet_temperature(spec: dict) -> float:
@@ -73,6 +81,14 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
 
     Notes
     -----
+    For moist air (a :class:`~thermo.humid.MoistAir` model) the outlet is at phase
+    equilibrium: below the dew point at the outlet pressure it is saturated and the rest
+    of the water is liquid. The duty is split into sensible and latent parts and the
+    separator after the cooler removes its fraction of that liquid
+    (:func:`thermo.condensate.condensation`); the entropy balance covers cooler and
+    separator, whose phase split itself generates no entropy. The chart line includes the
+    dew point and ends with the separator step at the outlet temperature.
+
     The heat crosses the boundary at the coolant inlet temperature when one is given,
     otherwise at the site ambient temperature; the exchanger's own internal
     temperature differences are therefore part of the cooler's entropy generation. The
@@ -101,8 +117,18 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
                          f"cooler outlet {t_out:.2f} K is below the heat-sink temperature "
                          f"{t_b:.2f} K (coolant inlet, or ambient when none is given)")
     outlet = model.at_tp(t_out, p_out, f"{where} outlet")
-    duty = mass_flow * (inlet.h + 0.5 * inlet_velocity ** 2 - outlet.h)
+    moist = getattr(model, "mixture", None) is not None
+    ke = 0.5 * inlet_velocity ** 2 * model.mass_per_dry_kg if moist else 0.5 * inlet_velocity ** 2
+    duty = mass_flow * (inlet.h + ke - outlet.h)
     s_gen = mass_flow * (outlet.s - inlet.s) + duty / t_b
+    if moist:
+        water = condensation(model, inlet, outlet, duty, mass_flow, spec["separator_efficiency"])
+        path = cooling_line(model, inlet, t_out, p_out, where, path_points) + [outlet]
+        if water.drained_kg_s > 0.0:
+            path.append(water.after)
+        return CoolerResult(index=index, inlet=inlet, outlet=outlet, duty_W=duty, boundary_temperature_K=t_b,
+                            heat_exergy_W=heat_exergy(duty, t_b, dead.T0), entropy_generation_W_K=s_gen,
+                            exergy_destroyed_W=dead.T0 * s_gen, path=path, water=water)
     path = [inlet]
     for k in range(1, path_points):
         f = k / path_points

@@ -10,7 +10,7 @@ from .errors import InputError, StagewrightError
 from .flow import mass_flow_from
 from .models import make_model
 from .results import TrainResult
-from .train import solve_train
+from .train import intake_model, solve_train
 
 _local = threading.local()
 
@@ -65,7 +65,8 @@ def solve(doc: dict) -> TrainResult:
     flow = norm["flow"]
     T0, P0 = norm["site"]["ambient_temperature_K"], site_pressure(norm)
     if flow["kind"] != "shaft_power":
-        return solve_train(norm, model, mass_flow_from(flow["kind"], flow["value"], model, T0, P0))
+        intake = intake_model(norm, model)[0]  # moist intake: FAD refers to the moist air
+        return solve_train(norm, model, mass_flow_from(flow["kind"], flow["value"], intake, T0, P0))
     return _solve_for_power(norm, model, flow["value"])
 
 
