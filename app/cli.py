@@ -4,6 +4,9 @@
     stagewright --screenshot OUT.png [PROJECT] render the window offscreen and exit
     stagewright solve FILE|FOLDER … [--json]   solve projects, print tables or JSON
     stagewright check FILE|FOLDER …            validate project files
+    stagewright study PROJECT --max-stages N   staging options side by side (see app/study_cli.py)
+    stagewright report FILE|FOLDER … [-o OUT] [--csv [OUT.csv]] [--units SI|US]
+                                               PDF (and CSV) reports
 
 Headless commands never import Qt. Every failure is one line on stderr; the exit
 status is 0 when all files succeeded, 2 when any input was rejected.
@@ -34,18 +37,22 @@ def _solve(args) -> int:
     from thermo.project import load
     from .solve_table import format_result
 
+    from .progress import Progress
+
     status, outputs = EXIT_OK, []
     paths = expand_paths(args.files)
-    for path in paths:
-        try:
-            doc = load(path)
-            result = solve(doc).to_dict()
-        except StagewrightError as exc:
-            print(f"{path}: {exc}", file=sys.stderr)
-            status = EXIT_INPUT
-            outputs.append({"file": str(path), "error": str(exc)})
-            continue
-        outputs.append({"file": str(path), "title": doc.get("title", ""), "result": result})
+    with Progress(len(paths)) as bar:
+        for path in paths:
+            bar.step(path.name)
+            try:
+                doc = load(path)
+                result = solve(doc).to_dict()
+            except StagewrightError as exc:
+                bar.message(f"{path}: {exc}")
+                status = EXIT_INPUT
+                outputs.append({"file": str(path), "error": str(exc)})
+                continue
+            outputs.append({"file": str(path), "title": doc.get("title", ""), "result": result})
     if args.json:
         ok = [o for o in outputs]
         payload = ok[0].get("result") if len(paths) == 1 and "result" in ok[0] else ok
@@ -76,14 +83,38 @@ def _check(args) -> int:
     return status
 
 
-SUBCOMMANDS = {"solve": _solve, "check": _check}
+def _study(args) -> int:
+    from .study_cli import run
+    return run(args)
+
+
+def _report(args) -> int:
+    from .report.batch import run_report
+    return run_report(args, expand_paths)
+
+
+def _solve_arguments(p: argparse.ArgumentParser) -> None:
+    p.add_argument("--json", action="store_true", help="machine-readable results (SI, unit in each key)")
+
+
+def _report_arguments(p: argparse.ArgumentParser) -> None:
+    from .report.batch import add_arguments
+    add_arguments(p)
+
+
+SUBCOMMANDS = {"solve": _solve, "check": _check, "report": _report, "study": _study}
+
+#: sub-command -> function adding its own options to its parser
+SUBCOMMAND_OPTIONS = {"solve": _solve_arguments, "report": _report_arguments}
 
 
 def _headless_parser(name: str) -> argparse.ArgumentParser:
+    if name == "study":
+        from .study_cli import build_parser
+        return build_parser()
     p = argparse.ArgumentParser(prog=f"stagewright {name}")
     p.add_argument("files", nargs="+", help="project files or folders of them")
-    if name == "solve":
-        p.add_argument("--json", action="store_true", help="machine-readable results (SI, unit in each key)")
+    SUBCOMMAND_OPTIONS.get(name, lambda _: None)(p)
     return p
 
 
@@ -95,6 +126,10 @@ def main(argv: list[str] | None = None) -> int:
         try:
             return SUBCOMMANDS[argv[0]](args)
         except KeyboardInterrupt:
+            return EXIT_FAILED
+        except BrokenPipeError:  # output piped into e.g. `head`, which stopped reading
+            import os
+            os.dup2(os.open(os.devnull, os.O_WRONLY), sys.stdout.fileno())
             return EXIT_FAILED
     p = argparse.ArgumentParser(prog="stagewright", description="Compression-train workbench.")
     p.add_argument("project", nargs="?", help="project file to open (default: a demo project)")

@@ -34,3 +34,4 @@ def make_doc(model="constant_cp", stages=2, eta=0.8, kind="isentropic", p_out=9e
 @pytest.fixture
 def doc_factory():
     return make_doc
+

@@ -1,10 +1,96 @@
-"""Bad project input: each problem names the field, the value and the valid range."""
+"""Bad input: every rejection names the field path, the value and the valid range."""
+import pytest
+
+import thermo
+from tests.conftest import make_doc
+from thermo.document import normalise, problems
+from thermo.errors import InputError, SecondLawViolation
+
+
+@pytest.mark.parametrize("mutate, field, text", [
+    (lambda d: d["stages"][1].update(pressure_ratio=0.9), r"stages\[1\]\.pressure_ratio", r"\(1, 40\]"),
+    (lambda d: d["stages"][0]["efficiency"].update(value=1.2), r"stages\[0\]\.efficiency\.value", r"\(0, 1\]"),
+    (lambda d: d["stages"][0]["efficiency"].update(value=0.0), r"stages\[0\]\.efficiency\.value", r"\(0, 1\]"),
+    (lambda d: d["site"].update(ambient_temperature_K=400.0), r"site\.ambient_temperature_K", r"333\.15"),
+    (lambda d: d["flow"].update(value=-1.0), r"flow\.value", r"\(0, 1000\]"),
+    (lambda d: d["stages"][0]["efficiency"].update(kind="adiabatic"), r"stages\[0\]\.efficiency\.kind", "isentropic"),
+    (lambda d: d["fluid"].update(model="magic"), r"fluid\.model", "real_gas"),
+    (lambda d: d.update(colour="red"), r"colour", "unknown key"),
+    (lambda d: d["stages"][0]["cooler"].update(fins=3), r"stages\[0\]\.cooler\.fins", "unknown key"),
+    (lambda d: d.pop("discharge_pressure_Pa"), r"discharge_pressure_Pa", "required"),
+    (lambda d: d.update(discharge_pressure_Pa=float("nan")), r"discharge_pressure_Pa", "expected a number"),
+    (lambda d: d.update(discharge_pressure_Pa="8 bar"), r"discharge_pressure_Pa", "expected a number"),
+    (lambda d: d.update(discharge_pressure_Pa=90_000.0), r"discharge_pressure_Pa", "above the stage-1 inlet"),
+])
+def test_bad_input_names_field_value_and_range(mutate, field, text):
+    doc = make_doc()
+    mutate(doc)
+    with pytest.raises(InputError, match=field) as info:
+        thermo.solve(doc)
+    assert info.match(text)
+
+
+def test_problems_lists_everything_at_once():
+    doc = make_doc()
+    doc["stages"][0]["efficiency"]["value"] = 2.0
+    doc["site"]["ambient_temperature_K"] = 1.0
+    fields = {p.field for p in problems(doc)}
+    assert fields == {"stages[0].efficiency.value", "site.ambient_temperature_K"}
+
+
+def test_cooler_outlet_above_inlet_is_refused():
+    doc = make_doc(stages=1, p_out=2e5, cool_to=600.0)
+    with pytest.raises(InputError, match=r"stages\[0\]\.cooler\.outlet_temperature_K.*above its inlet"):
+        thermo.solve(doc)
+
+
+def test_cooler_outlet_below_heat_sink_is_refused():
+    doc = make_doc(stages=1, p_out=4e5, cool_to=280.0, T0=293.15)
+    with pytest.raises(InputError, match="below the heat-sink temperature"):
+        thermo.solve(doc)
+
+
+def test_too_small_shaft_power_is_refused():
+    doc = make_doc(stages=1, flow=("shaft_power", 100.0))
+    doc["stages"][0]["heat_loss_W"] = 500.0
+    with pytest.raises(InputError, match="too small to move any air"):
+        thermo.solve(doc)
+
+
+def test_hot_casing_boundary_is_second_law_violation():
+    doc = make_doc(stages=1, p_out=2e5)
+    doc["stages"][0].update(heat_loss_W=100.0, heat_loss_boundary_temperature_K=900.0)
+    with pytest.raises(SecondLawViolation, match="second-law violation"):
+        thermo.solve(doc)
+
+
+def test_state_outside_property_range_is_clear():
+    doc = make_doc(stages=1, p_out=3.9e6, eta=0.3, model="real_gas")
+    with pytest.raises(thermo.PropertyRangeError, match="outside the property range"):
+        thermo.solve(doc)
+
+
+def test_normalise_fills_defaults():
+    norm = normalise(make_doc())
+    assert norm["driver"]["efficiency"] == 1.0
+    assert norm["stages"][0]["mechanical_efficiency"] == 1.0
+    assert norm["fluid"]["model"] == "constant_cp"
+
+
+def test_casing_loss_that_cools_below_boundary_is_second_law_violation():
+    doc = make_doc(stages=1, p_out=1.3e5, flow=("mass", 0.05))
+    doc["stages"][0]["heat_loss_W"] = 2000.0
+    with pytest.raises(SecondLawViolation, match=r"stages\[0\]\.heat_loss_W.*second-law violation"):
+        thermo.solve(doc)
+
+
+# ---- moist intake air ----------------------------------------------------------------------
 import pytest
 
 import thermo
 from thermo.document import problems
 from thermo.errors import InputError
-from conftest import make_doc
+from tests.conftest import make_doc
 
 
 def moist(**site):

@@ -96,3 +96,9 @@ def test_polytropic_rk4_matches_fine_independent_integration_on_real_gas():
         v_mid = 1.0 / CP.PropsSI("D", "H", h_mid, "P", 0.5 * (p0 + p1), "Air")
         h += v_mid * (p1 - p0) / 0.83
     assert r.outlet.h == pytest.approx(h, rel=2e-7)
+
+
+def test_ideal_efficiency_with_exit_velocity_is_refused():
+    # total-to-static efficiency 1 leaves nothing for the exit kinetic energy
+    with pytest.raises(SecondLawViolation, match="total-to-static"):
+        thermo.solve(one_stage(1.0, exit_velocity_m_s=50.0))

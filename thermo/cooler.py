@@ -1,12 +1,13 @@
 """An intercooler or aftercooler: heat rejected at the coolant temperature [1]_."""
 from __future__ import annotations
 
-__all__ = ["CoolerResult", "solve_cooler", "cooler_outlet_temperature"]
+__all__ = ["CoolerResult", "solve_cooler", "cooler_outlet_temperature", "outlet_field"]
 
 from dataclasses import dataclass
 
 from .condensate import Condensation, condensation, cooling_line
 from .errors import InputError
+from .exchanger import Exchanger, HotSide, make_coolant, rate_exchanger, size_exchanger
 from .exergy import DeadState, heat_exergy
 from .models.base import Point, PropertyModel
 
@@ -24,6 +25,10 @@ class CoolerResult:
     entropy_generation_W_K: float
     exergy_destroyed_W: float
     path: list
+    arrangement: str = "counter_flow"
+    exchanger: Exchanger | None = None  #: coolant side, UA, ε, NTU, LMTD (when a coolant is given)
+    #: air-side pressure at the outlet and stagnation inlet temperature, for heat recovery
+    stagnation_inlet_temperature_K: float | None = None
     #: moist air only: condensation and separator (None for dry air)
     water: Condensation | None = None
 
@@ -33,15 +38,36 @@ class CoolerResult:
         return self.outlet if self.water is None else self.water.after
 
 
-def cooler_outlet_temperature(spec: dict) -> float:
-    """Air outlet temperature a cooler entry asks for, [K] (outlet given or coolant + approach)."""
+def coolant_inlet_temperature(spec: dict, ambient_K: float) -> float | None:
+    """Coolant inlet temperature [K]: as given, else the site ambient for an air coolant."""
+    if spec.get("coolant_inlet_temperature_K") is not None:
+        return spec["coolant_inlet_temperature_K"]
+    coolant = spec.get("coolant")
+    return ambient_K if coolant is not None and coolant["kind"] == "air" else None
+
+
+def cooler_outlet_temperature(spec: dict, ambient_K: float | None = None) -> float | None:
+    """Air outlet temperature a cooler entry asks for, [K] (outlet given or coolant + approach);
+    ``None`` when the cooler is rated from its UA (the outlet is then a result)."""
     if spec.get("outlet_temperature_K") is not None:
         return spec["outlet_temperature_K"]
-    return spec["coolant_inlet_temperature_K"] + spec["approach_K"]
+    if spec.get("approach_K") is None:
+        return None
+    t_c = coolant_inlet_temperature(spec, ambient_K) if ambient_K is not None else spec["coolant_inlet_temperature_K"]
+    return t_c + spec["approach_K"]
+
+
+def outlet_field(spec: dict, where: str) -> str:
+    """Input path of the key that sets the cooler's air outlet."""
+    for key in ("outlet_temperature_K", "approach_K", "ua_W_K"):
+        if spec.get(key) is not None:
+            return f"{where}.{key}"
+    return f"{where}.outlet_temperature_K"
 
 
 def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inlet_velocity: float,
-                 mass_flow: float, dead: DeadState, path_points: int = 8) -> CoolerResult:
+                 mass_flow: float, dead: DeadState, path_points: int = 8,
+                 ambient_relative_humidity: float = 0.0) -> CoolerResult:
     r"""Heat duty and entropy generation of a cooler [1]_.
 
     .. math::
@@ -68,6 +94,8 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
         Site dead state.
     path_points : int
         Number of states returned along the cooling line (for the T–s chart).
+    ambient_relative_humidity : float
+        Site relative humidity, [-] (humidity of an air coolant).
 
     Returns
     -------
@@ -77,7 +105,8 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
     ------
     InputError
         If the outlet temperature is above the inlet temperature or below the
-        temperature of the heat sink, or the pressure drop exceeds the inlet pressure.
+        temperature of the heat sink, the pressure drop exceeds the inlet pressure, or
+        (with a coolant) the temperatures cross or the coolant flow is too small.
 
     Notes
     -----
@@ -89,10 +118,15 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
     separator, whose phase split itself generates no entropy. The chart line includes the
     dew point and ends with the separator step at the outlet temperature.
 
-    The heat crosses the boundary at the coolant inlet temperature when one is given,
-    otherwise at the site ambient temperature; the exchanger's own internal
-    temperature differences are therefore part of the cooler's entropy generation. The
-    cooling line for charts assumes the pressure falls linearly with temperature.
+    Without a ``coolant`` entry the heat crosses the boundary at the coolant inlet
+    temperature when one is given, otherwise at the site ambient temperature; the
+    exchanger's own internal temperature differences and the coolant's warming are then
+    part of the cooler's entropy generation. With a ``coolant`` entry the exchanger is
+    sized (or, from ``ua_W_K``, rated) by :mod:`thermo.exchanger`, and the heat crosses
+    at the coolant's thermodynamic mean temperature :math:`\bar T_c = \Delta h_c/\Delta s_c`,
+    so that :math:`\dot Q/\bar T_c` is the entropy the coolant gains and the heat's
+    exergy is the exergy the coolant gains. The cooling line for charts assumes the
+    pressure falls linearly with temperature.
 
     References
     ----------
@@ -100,24 +134,55 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
        McGraw-Hill, 2015, §7-13 (entropy balance with boundary heat transfer), §8-6.
     """
     where = f"stages[{index}].cooler"
-    field = (f"{where}.outlet_temperature_K" if spec.get("outlet_temperature_K") is not None
-             else f"{where}.approach_K")
-    t_out = cooler_outlet_temperature(spec)
+    field = outlet_field(spec, where)
+    coolant = spec.get("coolant")
+    t_ci = coolant_inlet_temperature(spec, dead.T0)
+    t_out = cooler_outlet_temperature(spec, dead.T0)
     t_b = spec.get("coolant_inlet_temperature_K") or dead.T0
     p_out = inlet.P - spec["pressure_drop_Pa"]
     if p_out <= 0.5 * inlet.P:
         raise InputError(f"{where}.pressure_drop_Pa", spec["pressure_drop_Pa"],
                          f"expected less than half the cooler inlet pressure ({0.5 * inlet.P:.0f} Pa)")
-    if t_out > inlet.T:
+    exchanger, t_stag = None, inlet.T
+    if coolant is not None:
+        h_in0 = inlet.h + 0.5 * inlet_velocity ** 2 * getattr(model, "mass_per_dry_kg", 1.0)
+        if inlet_velocity > 0.0:
+            t_stag = model.at_hp(h_in0, inlet.P, f"{where} inlet (stagnation)", T_guess=inlet.T).T
+
+        def hot_at(t: float) -> HotSide:
+            return HotSide(t_stag, t, mass_flow * (h_in0 - model.at_tp(t, p_out, f"{where} outlet").h))
+
+        fluid = make_coolant(coolant, (dead.T0, dead.P0, ambient_relative_humidity))
+        flow, rise = coolant.get("flow_kg_s"), coolant.get("temperature_rise_K")
+        if t_ci >= t_stag:
+            raise InputError(f"{where}.coolant_inlet_temperature_K", t_ci,
+                             f"expected below the cooler air inlet {t_stag:.2f} K: the coolant cannot "
+                             "cool air colder than itself")
+        if t_out is None:
+            t_out, exchanger = rate_exchanger(spec["arrangement"], spec["ua_W_K"], t_stag, hot_at, fluid,
+                                              t_ci, flow, rise, where)
+        else:
+            if t_out <= t_ci:
+                raise InputError(field, t_out if field.endswith("_temperature_K") else spec["approach_K"],
+                                 f"expected an air outlet above the coolant inlet {t_ci:.2f} K (an approach "
+                                 "above 0 K): a finite exchanger cannot cool the air to its coolant "
+                                 "temperature")
+            if t_out < inlet.T:
+                exchanger = size_exchanger(spec["arrangement"], hot_at(t_out), fluid, t_ci, flow, rise, where)
+        t_b = exchanger.coolant.mean_temperature_K if exchanger is not None else t_ci
+    if t_out > (t_stag if exchanger is not None else inlet.T):
         raise InputError(field, t_out if field.endswith("_temperature_K") else spec["approach_K"],
                          f"cooler outlet {t_out:.2f} K is above its inlet {inlet.T:.2f} K; "
                          "a cooler cannot heat the air")
-    if t_out < t_b:
+    if coolant is None and t_out < t_b:
         raise InputError(field, t_out if field.endswith("_temperature_K") else spec["approach_K"],
                          f"cooler outlet {t_out:.2f} K is below the heat-sink temperature "
                          f"{t_b:.2f} K (coolant inlet, or ambient when none is given)")
-    outlet = model.at_tp(t_out, p_out, f"{where} outlet")
     moist = getattr(model, "mixture", None) is not None
+    if moist and t_out < 273.15:
+        raise InputError(field, t_out, "moist air must leave a cooler at 273.15 K or above: condensate "
+                         "would freeze, and ice is out of scope")
+    outlet = model.at_tp(t_out, p_out, f"{where} outlet")
     ke = 0.5 * inlet_velocity ** 2 * model.mass_per_dry_kg if moist else 0.5 * inlet_velocity ** 2
     duty = mass_flow * (inlet.h + ke - outlet.h)
     s_gen = mass_flow * (outlet.s - inlet.s) + duty / t_b
@@ -128,7 +193,9 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
             path.append(water.after)
         return CoolerResult(index=index, inlet=inlet, outlet=outlet, duty_W=duty, boundary_temperature_K=t_b,
                             heat_exergy_W=heat_exergy(duty, t_b, dead.T0), entropy_generation_W_K=s_gen,
-                            exergy_destroyed_W=dead.T0 * s_gen, path=path, water=water)
+                            exergy_destroyed_W=dead.T0 * s_gen, path=path,
+                            arrangement=spec.get("arrangement", "counter_flow"), exchanger=exchanger,
+                            stagnation_inlet_temperature_K=t_stag, water=water)
     path = [inlet]
     for k in range(1, path_points):
         f = k / path_points
@@ -137,4 +204,5 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
     path.append(outlet)
     return CoolerResult(index=index, inlet=inlet, outlet=outlet, duty_W=duty, boundary_temperature_K=t_b,
                         heat_exergy_W=heat_exergy(duty, t_b, dead.T0), entropy_generation_W_K=s_gen,
-                        exergy_destroyed_W=dead.T0 * s_gen, path=path)
+                        exergy_destroyed_W=dead.T0 * s_gen, path=path, arrangement=spec.get("arrangement", "counter_flow"),
+                        exchanger=exchanger, stagnation_inlet_temperature_K=t_stag)

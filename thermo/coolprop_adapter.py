@@ -8,7 +8,10 @@ from __future__ import annotations
 
 __all__ = ["new_air_state", "update_tp", "eos_reference", "coolprop_version",
            "humid_air_property", "water_saturation_pressure", "new_water_state", "water_ideal_gas",
-           "humid_air_coefficient", "liquid_water_density"]
+           "humid_air_coefficient", "liquid_water_density", "new_incompressible_state",
+           "incompressible_update_tp", "incompressible_limits"]
+
+from functools import lru_cache
 
 import CoolProp
 import CoolProp.CoolProp as _CP
@@ -47,6 +50,7 @@ def update_tp(state, temperature: float, pressure: float, where: str = "") -> No
             f"p = {pressure:.6g} Pa ({exc})", where) from None
 
 
+@lru_cache(maxsize=None)
 def eos_reference(model: str) -> str:
     """Bibliographic reference of the equation of state behind a property model."""
     if model == "real_gas":
@@ -122,3 +126,39 @@ def liquid_water_density(temperature: float, pressure: float) -> float:
     except ValueError as exc:
         raise PropertyRangeError(f"liquid water density unavailable at T = {temperature:.6g} K, "
                                  f"p = {pressure:.6g} Pa ({exc})") from None
+def new_incompressible_state(fluid: str, mass_fraction: float | None = None):
+    """Fresh CoolProp ``AbstractState`` of an incompressible liquid (``INCOMP`` back end).
+
+    ``fluid`` is a CoolProp incompressible name (``"Water"``, ``"MEG"`` ethylene glycol,
+    ``"MPG"`` propylene glycol); mixtures take a mass fraction of the solute.
+    """
+    try:
+        state = _CP.AbstractState("INCOMP", fluid)
+        if mass_fraction is not None:
+            state.set_mass_fractions([mass_fraction])
+    except ValueError as exc:
+        raise PropertyRangeError(f"coolant {fluid} unavailable ({exc})") from None
+    return state
+
+
+def incompressible_update_tp(state, temperature: float, pressure: float, where: str = "") -> None:
+    """Set an incompressible ``state`` to T [K], p [Pa]; raise our own error on failure."""
+    try:
+        state.update(PT_INPUTS, pressure, temperature)
+    except ValueError as exc:
+        raise PropertyRangeError(f"{where or 'coolant'}: properties unavailable at T = {temperature:.6g} K "
+                                 f"({exc})", where) from None
+
+
+def incompressible_limits(fluid: str, mass_fraction: float | None = None) -> tuple[float, float]:
+    """(lowest, highest) temperature [K] of a liquid coolant: freezing point (or table minimum)
+    and table maximum of CoolProp's incompressible data."""
+    name = f"INCOMP::{fluid}" + (f"[{mass_fraction}]" if mass_fraction else "")
+    try:
+        t_min = _CP.PropsSI("Tmin", "T", 300.0, "P", 1e5, name)
+        t_max = _CP.PropsSI("Tmax", "T", 300.0, "P", 1e5, name)
+        if mass_fraction:
+            t_min = max(t_min, _CP.PropsSI("T_freeze", "T", 300.0, "P", 1e5, name))
+    except ValueError as exc:
+        raise PropertyRangeError(f"coolant {name} unavailable ({exc})") from None
+    return t_min, t_max

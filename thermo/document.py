@@ -57,9 +57,33 @@ def _cross_checks(norm: dict) -> list[Problem]:
             out.append(Problem(f"stages[{i}].min_pressure_ratio", lo,
                                f"expected at most max_pressure_ratio ({hi:g})"))
         cooler = st.get("cooler")
-        if cooler and cooler.get("approach_K") is not None and cooler.get("coolant_inlet_temperature_K") is None:
+        if (cooler and cooler.get("approach_K") is not None and cooler.get("coolant_inlet_temperature_K") is None
+                and (cooler.get("coolant") or {}).get("kind") != "air"):
             out.append(Problem(f"stages[{i}].cooler.coolant_inlet_temperature_K", None,
                                "required when the cooler outlet is given as an approach"))
+        out.extend(_coolant_checks(cooler, f"stages[{i}].cooler"))
+    return out
+
+
+def _coolant_checks(cooler: dict | None, where: str) -> list[Problem]:
+    """Cross-checks of a cooler's coolant side (thermo.exchanger)."""
+    if not cooler:
+        return []
+    out = []
+    coolant = cooler.get("coolant")
+    if cooler.get("ua_W_K") is not None and coolant is None:
+        out.append(Problem(f"{where}.coolant", None, "required when the cooler is rated from ua_W_K"))
+    if coolant is None:
+        return out
+    if coolant["kind"] != "air" and cooler.get("coolant_inlet_temperature_K") is None:
+        out.append(Problem(f"{where}.coolant_inlet_temperature_K", None,
+                           f"required for a {coolant['kind']} coolant (only air defaults to the site ambient)"))
+    if coolant["kind"] == "glycol" and coolant.get("glycol_fraction") is None:
+        out.append(Problem(f"{where}.coolant.glycol_fraction", None,
+                           "required for a glycol coolant: glycol mass fraction in [0, 0.6]"))
+    if coolant["kind"] != "glycol" and coolant.get("glycol_fraction") is not None:
+        out.append(Problem(f"{where}.coolant.glycol_fraction", coolant["glycol_fraction"],
+                           "applies only to kind 'glycol'"))
     return out
 
 

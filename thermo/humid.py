@@ -10,6 +10,8 @@ from __future__ import annotations
 
 __all__ = ["MoistAir", "intake_humidity_ratio", "humidity_of", "is_moist", "check_humid_range"]
 
+import math
+
 from .errors import InputError
 from .models.base import Point, check_range
 from .models.newton import invert_temperature
@@ -132,6 +134,60 @@ class MoistAir:
         _, _, v, cp, hp, _, _ = self._state(T, P, slope=True)
         return P * (v / efficiency - hp) / cp
 
+    def _h_saturated(self, T: float, P: float) -> float:
+        """Enthalpy with the vapour held at saturation (liquid W − w_s, negative past the dew point)."""
+        ws = self.mixture.saturation_ratio(T, P)
+        return self.mixture.gas(T, P, ws, False)[0] + (self.water - ws) * self.mixture.liquid(T, P)[0]
+
+    def _slope_saturated(self, T: float, P: float, efficiency: float) -> float:
+        """Polytropic slope of the saturated branch, continued smoothly past the dew point."""
+        mix = self.mixture
+        ws = mix.saturation_ratio(T, P)
+        v = mix.gas(T, P, ws, False)[2] + (self.water - ws) * mix.liquid_volume(T, P)
+        cp = (self._h_saturated(T + _DT, P) - self._h_saturated(T - _DT, P)) / (2.0 * _DT)
+        dp = _DP * P
+        hp = (self._h_saturated(T, P + dp) - self._h_saturated(T, P - dp)) / (2.0 * dp)
+        return P * (v / efficiency - hp) / cp
+
+    def polytropic_path_start(self, inlet: Point, p_out: float, efficiency: float):
+        """Two-phase start of a compression path: (states, state where the last liquid evaporates).
+
+        Liquid carried into a stage evaporates as compression heats the stream. The slope
+        of the path jumps where it does (latent heat stops), so the point is located
+        (Brent's method on the remaining liquid) and the path is integrated on each side
+        separately; the end state then depends smoothly on the efficiency.
+        """
+        from scipy.optimize import brentq  # local: only moist stages with carry-over need it
+        x0, x_end = math.log(inlet.P), math.log(p_out)
+        y0 = math.log(inlet.T)
+
+        def rk4(dx_total: float, m: int = 4) -> float:
+            y, h = y0, dx_total / m
+            for k in range(m):
+                x = x0 + k * h
+                f = lambda yy, xx: self._slope_saturated(math.exp(yy), math.exp(xx), efficiency) / math.exp(yy)
+                k1 = f(y, x)
+                k2 = f(y + 0.5 * h * k1, x + 0.5 * h)
+                k3 = f(y + 0.5 * h * k2, x + 0.5 * h)
+                k4 = f(y + h * k3, x + h)
+                y += h * (k1 + 2 * k2 + 2 * k3 + k4) / 6.0
+            return y
+
+        def liquid_left(dx: float) -> float:
+            return self.water - self.mixture.saturation_ratio(math.exp(rk4(dx)), math.exp(x0 + dx))
+
+        span = x_end - x0
+        if liquid_left(span) > 0.0:  # liquid all the way: one smooth branch
+            n = max(4, math.ceil(span / 0.05))
+            pts = [inlet] + [self.at_tp(math.exp(rk4(span * k / n, 4 * k)), math.exp(x0 + span * k / n),
+                                        "polytropic path") for k in range(1, n + 1)]
+            return pts, pts[-1]
+        dx = brentq(liquid_left, 0.0, span, xtol=1e-14, rtol=1e-15)
+        T, P = math.exp(rk4(dx)), math.exp(x0 + dx)
+        h, s, v, _, _ = self.mixture.gas(T, P, self.water, False)
+        dry_point = Point(T, P, h, s, (1.0 + self.water) / v, self.water, 0.0)
+        return [inlet, dry_point], dry_point
+
     def gas_only(self, T: float, P: float, w_v: float, w_l: float) -> tuple[float, float]:
         """(h, s) at T, P with the phase split frozen at w_v, w_l (no condensation or evaporation)."""
         h, s = self.mixture.gas(T, P, w_v, False)[:2]
@@ -235,9 +291,10 @@ def check_humid_range(mixture: MoistMixture, points, field: str, what: str) -> N
         return
     for p in points:
         if p.T > t_max or p.P > p_max:
-            value = p.T if p.T > t_max else p.P
-            raise InputError(field, round(value, 6),
+            hot = p.T > t_max
+            remedy = ("add a stage, lower this stage's pressure ratio, or use fluid.model 'ideal_gas'" if hot
+                      else "use fluid.model 'ideal_gas' for moist air above this pressure")
+            raise InputError(field, round(p.T if hot else p.P, 6),
                              f"{what} at {p.T:.2f} K and {p.P:.6g} Pa: moist air with the real_gas model "
                              f"needs states up to {t_max:.2f} K and {p_max:.6g} Pa (range of the ASHRAE "
-                             "RP-1485 humid-air formulation); add a stage, lower this stage's pressure "
-                             "ratio, or use fluid.model 'ideal_gas'")
+                             f"RP-1485 humid-air formulation); {remedy}")

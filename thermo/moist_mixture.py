@@ -13,7 +13,7 @@ import math
 from functools import lru_cache
 
 from . import coolprop_adapter as cpa
-from .saturation import T_CRITICAL, saturation_pressure
+from .saturation import T_CRITICAL, saturation_pressure, saturation_pressure_log_slope
 
 P_REF = 101_325.0  #: reference pressure of the ideal-gas entropy of water vapour, [Pa]
 R_MOLAR = 8.314462618  #: molar gas constant, CODATA 2018, [J/(mol K)]
@@ -246,12 +246,7 @@ class MoistMixture:
            + \frac{p}{\varepsilon M_a}\left[x_a^2 (2B_{aw} - B_{aa}) + x_w (1 + x_a) B_{ww}\right]
         """
         hw, sw, _ = self.vapour(T)
-        mu = hw - T * sw + self.R_w * T * math.log(x_w * P / P_REF)
-        if self.virial is not None:
-            x_a = 1.0 - x_w
-            baa, baw, bww = (c[0] for c in self.virial.eval(T))
-            mu += P * self.n_a / self.epsilon * (x_a * x_a * (2.0 * baw - baa) + x_w * (1.0 + x_a) * bww)
-        return mu
+        return hw - T * sw + self.R_w * T * math.log(x_w * P / P_REF) + self._mu_virial(T, P, x_w)
 
     # ---- saturation ------------------------------------------------------------------------
     def enhancement(self, T: float, P: float) -> float:
@@ -277,16 +272,45 @@ class MoistMixture:
         return w / (self.epsilon + w) * P < 0.999 * saturation_pressure(T)
 
     # ---- condensed water ----------------------------------------------------------------------
+    def _ln_fp(self, T: float, P: float) -> float:
+        """ln(f p_ws) at saturation, [ln Pa]."""
+        return math.log(self.enhancement(T, P) * saturation_pressure(T))
+
+    def _mu_virial(self, T: float, P: float, x_w: float) -> float:
+        """Interaction part of the chemical potential of water, [J/kg] (0 for the ideal mixtures)."""
+        if self.virial is None:
+            return 0.0
+        x_a = 1.0 - x_w
+        baa, baw, bww = (c[0] for c in self.virial.eval(T))
+        return P * self.n_a / self.epsilon * (x_a * x_a * (2.0 * baw - baa) + x_w * (1.0 + x_a) * bww)
+
     def liquid_gibbs(self, T: float, P: float) -> float:
         """Gibbs energy of condensed water in equilibrium with the vapour, [J/kg]."""
         return self.mu_water(T, P, self.saturation_fraction(T, P))
 
     def liquid(self, T: float, P: float):
-        """(h_l [J/kg], s_l [J/(kg K)]) of condensed water at T, P (same reference as the vapour)."""
-        g = self.liquid_gibbs(T, P)
+        r"""(h_l [J/kg], s_l [J/(kg K)]) of condensed water at T, P (same reference as the vapour).
+
+        With :math:`g_l = h_w^\circ - T s_w^\circ + R_w T \ln(f p_{ws}/p_\mathrm{ref}) + \mu_v`
+        (:math:`\mu_v` the interaction part), :math:`s_l = -\partial g_l/\partial T` and
+        :math:`h_l = h_w^\circ - R_w T^2\,\partial\ln(f p_{ws})/\partial T + \mu_v - T\,\partial\mu_v/\partial T`;
+        only the two small terms are differentiated numerically (central differences).
+        """
         d = _DT_LIQUID
-        s = -(self.liquid_gibbs(T + d, P) - self.liquid_gibbs(T - d, P)) / (2.0 * d)
-        return g + T * s, s
+        hw, sw, _ = self.vapour(T)
+        ln_fp = self._ln_fp(T, P)
+        dln = saturation_pressure_log_slope(T)
+        if self.uses_enhancement:
+            dln += (math.log(self.enhancement(T + d, P)) - math.log(self.enhancement(T - d, P))) / (2.0 * d)
+        if self.virial is None:
+            mu_v = dmu_v = 0.0
+        else:
+            mu_v = self._mu_virial(T, P, self.saturation_fraction(T, P))
+            dmu_v = (self._mu_virial(T + d, P, self.saturation_fraction(T + d, P))
+                     - self._mu_virial(T - d, P, self.saturation_fraction(T - d, P))) / (2.0 * d)
+        s_l = sw - self.R_w * (ln_fp - math.log(P_REF)) - self.R_w * T * dln - dmu_v
+        h_l = hw - self.R_w * T * T * dln + mu_v - T * dmu_v
+        return h_l, s_l
 
     def liquid_volume(self, T: float, P: float) -> float:
         """Specific volume of condensed water ∂g_l/∂p, [m³/kg] (0 for the ideal mixtures)."""

@@ -1,7 +1,7 @@
 """The result of a train solve, and its plain-data form (``to_dict``) for JSON, CSV and reports."""
 from __future__ import annotations
 
-__all__ = ["TrainResult", "InletResult", "Warning_", "WaterResult", "point_dict"]
+__all__ = ["TrainResult", "InletResult", "Warning_", "WaterResult", "point_dict", "exchanger_dict"]
 
 import math
 from dataclasses import dataclass, field
@@ -82,6 +82,32 @@ def _cooler_water(cooler: CoolerResult, mixture) -> dict:
             "separator_outlet": point_dict(w.after, 0.0, mixture)}
 
 
+def exchanger_dict(cooler: CoolerResult) -> dict:
+    """Sizing figures of a cooler's exchanger (None where no coolant side is given)."""
+    ex = cooler.exchanger
+    if ex is None:
+        return {"arrangement": cooler.arrangement, "coolant_kind": None, "coolant_flow_kg_s": None,
+                "coolant_volume_flow_m3_s": None, "coolant_inlet_temperature_K": None,
+                "coolant_outlet_temperature_K": None, "lmtd_K": None, "lmtd_correction_factor": None,
+                "mean_temperature_difference_K": None, "effectiveness": None, "ntu": None,
+                "ua_W_K": None, "zones": []}
+    c = ex.coolant
+    return {"arrangement": ex.arrangement, "coolant_kind": c.kind, "coolant_flow_kg_s": c.flow_kg_s,
+            "coolant_volume_flow_m3_s": c.volume_flow_m3_s,
+            "coolant_inlet_temperature_K": c.inlet_temperature_K,
+            "coolant_outlet_temperature_K": c.outlet_temperature_K, "lmtd_K": ex.lmtd_K,
+            "lmtd_correction_factor": ex.correction_factor,
+            "mean_temperature_difference_K": ex.mean_temperature_difference_K,
+            "effectiveness": ex.effectiveness, "ntu": ex.ntu, "ua_W_K": ex.ua_W_K,
+            "zones": [{"kind": z.kind, "duty_W": z.duty_W, "hot_inlet_temperature_K": z.hot_inlet_temperature_K,
+                       "hot_outlet_temperature_K": z.hot_outlet_temperature_K,
+                       "coolant_inlet_temperature_K": z.coolant_inlet_temperature_K,
+                       "coolant_outlet_temperature_K": z.coolant_outlet_temperature_K,
+                       "capacity_ratio": z.capacity_ratio, "effectiveness": z.effectiveness, "ntu": z.ntu,
+                       "lmtd_K": z.lmtd_K, "lmtd_correction_factor": z.correction_factor,
+                       "ua_W_K": z.ua_W_K} for z in ex.zones]}
+
+
 def _stage_dict(st: StageResult, cooler: CoolerResult | None, mixture=None) -> dict:
     return {
         "inlet": point_dict(st.inlet, st.inlet_velocity_m_s, mixture),
@@ -108,6 +134,7 @@ def _stage_dict(st: StageResult, cooler: CoolerResult | None, mixture=None) -> d
             "entropy_generation_W_K": cooler.entropy_generation_W_K,
             "exergy_destroyed_W": cooler.exergy_destroyed_W,
             "path": _path(cooler.path, mixture),
+            **exchanger_dict(cooler),
             **_cooler_water(cooler, mixture),
         },
     }

@@ -1,7 +1,7 @@
 """Saturation of water: vapour pressure over liquid water (IAPWS-IF97) and over ice (IAPWS 2011) [1]_ [2]_."""
 from __future__ import annotations
 
-__all__ = ["saturation_pressure", "saturation_temperature", "sublimation_pressure", "vapour_pressure",
+__all__ = ["saturation_pressure", "saturation_pressure_log_slope", "saturation_temperature", "sublimation_pressure", "vapour_pressure",
            "dew_point_from_vapour_pressure", "T_TRIPLE", "P_TRIPLE", "T_CRITICAL", "P_CRITICAL", "T_IF97_MIN"]
 
 import math
@@ -66,6 +66,37 @@ def saturation_pressure(T: float) -> float:
     b = n[2] * th * th + n[3] * th + n[4]
     c = n[5] * th * th + n[6] * th + n[7]
     return (2.0 * c / (-b + math.sqrt(b * b - 4.0 * a * c))) ** 4 * 1.0e6
+
+
+def saturation_pressure_log_slope(T: float) -> float:
+    r"""d ln p_s / dT of the IF97 saturation line, [1/K], exact to rounding (complex-step derivative [1]_).
+
+    .. math:: \frac{d\ln p_s}{dT} = \frac{\operatorname{Im}\,\ln p_s(T + i h)}{h}, \qquad h = 10^{-20}\,\mathrm{K}
+
+    Parameters
+    ----------
+    T : float
+        Temperature, [K], 273.15 K to 647.096 K.
+
+    Returns
+    -------
+    float
+        Logarithmic slope of the saturation pressure, [1/K].
+
+    References
+    ----------
+    .. [1] J. R. R. A. Martins, P. Sturdza, J. J. Alonso, "The complex-step derivative
+       approximation", ACM Trans. Math. Software 29 (2003) 245–262; eq. (30) of IAPWS R7-97(2012).
+    """
+    n = _N
+    h = 1e-20
+    Tc = complex(T, h)
+    th = Tc + n[8] / (Tc - n[9])
+    a = th * th + n[0] * th + n[1]
+    b = n[2] * th * th + n[3] * th + n[4]
+    c = n[5] * th * th + n[6] * th + n[7]
+    beta = 2.0 * c / (-b + (b * b - 4.0 * a * c) ** 0.5)
+    return (4.0 * (beta.imag / beta.real)) / h
 
 
 def saturation_temperature(p: float) -> float:

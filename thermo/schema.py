@@ -7,7 +7,8 @@ follow it. Keys carry SI units in their names.
 from __future__ import annotations
 
 __all__ = ["FORMAT_NAME", "FORMAT_VERSION", "PROJECT", "STAGE", "COOLER", "EFFICIENCY",
-           "FLOW_KINDS", "MODEL_NAMES"]
+           "FLOW_KINDS", "MODEL_NAMES", "COOLANT", "COOLANT_KINDS", "ARRANGEMENT_NAMES",
+           "HEAT_RECOVERY"]
 
 from .schema_types import Choice, Items, Num, Obj, Text, Variant
 
@@ -24,9 +25,25 @@ EFFICIENCY = Variant(required=True, variants={
     "discharge_temperature": {"value_K": Num(required=True, **_TEMPERATURE)},
 })
 
-COOLER = Obj(nullable=True, default=None, one_of=(("outlet_temperature_K", "approach_K"),), fields={
+COOLANT_KINDS = ("water", "glycol", "air")
+#: exchanger arrangements (thermo.exchanger.effectiveness.ARRANGEMENTS holds their relations)
+ARRANGEMENT_NAMES = ("counter_flow", "cross_flow_unmixed", "cross_flow_hot_mixed", "shell_and_tube_1_2")
+
+#: the coolant side of a cooler: kind, and either its flow or its temperature rise
+COOLANT = Obj(nullable=True, default=None, one_of=(("flow_kg_s", "temperature_rise_K"),), fields={
+    "kind": Choice(COOLANT_KINDS, required=True),
+    "glycol": Choice(("ethylene", "propylene"), default="ethylene"),
+    "glycol_fraction": Num(0.0, 0.6, nullable=True, default=None),
+    "flow_kg_s": Num(0.0, 1.0e5, unit="kg/s", lo_open=True, nullable=True),
+    "temperature_rise_K": Num(0.0, 150.0, unit="K", lo_open=True, nullable=True),
+})
+
+COOLER = Obj(nullable=True, default=None, one_of=(("outlet_temperature_K", "approach_K", "ua_W_K"),), fields={
     "outlet_temperature_K": Num(nullable=True, **_TEMPERATURE),
     "approach_K": Num(0.0, 200.0, unit="K", nullable=True),
+    "ua_W_K": Num(0.0, 1.0e9, unit="W/K", lo_open=True, nullable=True),
+    "arrangement": Choice(ARRANGEMENT_NAMES, default="counter_flow"),
+    "coolant": COOLANT,
     "coolant_inlet_temperature_K": Num(263.15, 373.15, unit="K", nullable=True, default=None),
     "pressure_drop_Pa": Num(0.0, 5.0e6, unit="Pa", default=0.0),
     "separator_efficiency": Num(0.0, 1.0, default=1.0),
@@ -44,6 +61,16 @@ STAGE = Obj(fields={
     "min_pressure_ratio": Num(1.0, 40.0, nullable=True, default=None),
     "max_pressure_ratio": Num(1.0, 40.0, lo_open=True, nullable=True, default=None),
     "cooler": COOLER,
+})
+
+#: heat recovery from the coolers and casings (optional)
+HEAT_RECOVERY = Obj(nullable=True, default=None, fields={
+    "delivery_temperature_K": Num(283.15, 423.15, unit="K", required=True),
+    "approach_K": Num(0.0, 100.0, unit="K", default=5.0),
+    "casing_share": Num(0.0, 1.0, default=0.0),
+    "fuel_price_per_kWh": Num(0.0, 100.0, unit="money/kWh", default=0.0),
+    "boiler_efficiency": Num(0.0, 1.2, lo_open=True, default=0.9),
+    "operating_hours_per_year": Num(0.0, 8784.0, unit="h", nullable=True, default=None),
 })
 
 PROJECT = Obj(fields={
@@ -77,4 +104,5 @@ PROJECT = Obj(fields={
         "efficiency": Num(0.0, 1.0, lo_open=True, default=1.0),
     }),
     "stages": Items(STAGE, min_length=1, max_length=12, required=True),
+    "heat_recovery": HEAT_RECOVERY,
 })

@@ -1,8 +1,9 @@
 """Solve a project document: pick the model, find the mass flow, balance the train."""
 from __future__ import annotations
 
-__all__ = ["solve", "model_for"]
+__all__ = ["solve", "solve_normalised", "model_for"]
 
+import atexit
 import threading
 
 from .document import normalise, site_pressure
@@ -13,6 +14,12 @@ from .results import TrainResult
 from .train import intake_model, solve_train
 
 _local = threading.local()
+
+
+@atexit.register
+def _release_models() -> None:
+    """Drop cached CoolProp states before interpreter teardown (avoids nanobind leak reports)."""
+    getattr(_local, "models", {}).clear()
 
 
 def model_for(fluid: dict):
@@ -26,13 +33,16 @@ def model_for(fluid: dict):
     return cache[key]
 
 
-def solve(doc: dict) -> TrainResult:
+def solve(doc: dict, detail: bool = True) -> TrainResult:
     """Solve a compression train described by a project document.
 
     Parameters
     ----------
     doc : dict
         Project document (see ``docs/project-format.md``).
+    detail : bool
+        False skips reporting-only work (see :func:`thermo.train.solve_train`); powers,
+        states and totals are unchanged. Used for the many trial solves of a study.
 
     Returns
     -------
@@ -60,17 +70,24 @@ def solve(doc: dict) -> TrainResult:
     >>> round(solve(doc).stages[0].outlet.T, 3)  # 293.15 * 4 ** (0.4 / 1.4)
     435.619
     """
-    norm = normalise(doc)
+    return solve_normalised(normalise(doc), detail)
+
+
+def solve_normalised(norm: dict, detail: bool = True) -> TrainResult:
+    """:func:`solve` for a document already passed through :func:`thermo.document.normalise`.
+
+    For callers that validate once and then solve many variants (sweeps, studies).
+    """
     model = model_for(norm["fluid"])
     flow = norm["flow"]
     T0, P0 = norm["site"]["ambient_temperature_K"], site_pressure(norm)
     if flow["kind"] != "shaft_power":
         intake = intake_model(norm, model)[0]  # moist intake: FAD refers to the moist air
-        return solve_train(norm, model, mass_flow_from(flow["kind"], flow["value"], intake, T0, P0))
-    return _solve_for_power(norm, model, flow["value"])
+        return solve_train(norm, model, mass_flow_from(flow["kind"], flow["value"], intake, T0, P0), detail)
+    return _solve_for_power(norm, model, flow["value"], detail)
 
 
-def _solve_for_power(norm: dict, model, target_W: float) -> TrainResult:
+def _solve_for_power(norm: dict, model, target_W: float, detail: bool = True) -> TrainResult:
     """Find the mass flow whose shaft power equals ``target_W`` (secant, bracketed)."""
     fixed = sum(s["heat_loss_W"] / s["mechanical_efficiency"] for s in norm["stages"])
     if target_W <= fixed:
@@ -78,12 +95,12 @@ def _solve_for_power(norm: dict, model, target_W: float) -> TrainResult:
                          f"shaft power must exceed {fixed:.6g} W, the casing heat losses alone; "
                          "this power is too small to move any air")
     m0 = 1.0
-    r0 = solve_train(norm, model, m0)
+    r0 = solve_train(norm, model, m0, detail)
     per_kg = (r0.shaft_power_W - fixed) / m0
     m1 = (target_W - fixed) / per_kg
     m_prev, f_prev = m0, r0.shaft_power_W - target_W
     for _ in range(40):
-        r1 = solve_train(norm, model, m1)
+        r1 = solve_train(norm, model, m1, detail)
         f1 = r1.shaft_power_W - target_W
         if abs(f1) <= 1e-12 * target_W:
             return r1

@@ -3,8 +3,6 @@ from __future__ import annotations
 
 __all__ = ["stage_pressure_ratios", "delivered_pressure"]
 
-from scipy.optimize import brentq
-
 from .errors import InputError
 
 
@@ -84,5 +82,7 @@ def stage_pressure_ratios(p_in: float, p_delivery: float, given: list, cooler_dr
     if miss(40.0) < 0.0:
         raise InputError("discharge_pressure_Pa", p_delivery,
                          "cannot be reached with stage pressure ratios up to 40; add stages")
+    from scipy.optimize import brentq  # imported here: keeps start-up light
+
     r = brentq(miss, 1.0, 40.0, xtol=1e-14, rtol=1e-15)
     return [r if g is None else g for g in given]

@@ -37,8 +37,17 @@ class StageResult:
     path: list
 
 
+def _adiabatic_path(model: PropertyModel, start: Point, h_end: float, p_out: float, eta_s: float,
+                    detail: bool, where: str, t_guess: float) -> tuple[float, list[Point]]:
+    """Polytropic efficiency and path of the adiabatic compression ending at ``h_end``;
+    without ``detail`` only the end point (NaN efficiency), which is all the power needs."""
+    if detail:
+        return polytropic_efficiency_between(model, start, h_end, p_out, eta_s)
+    return math.nan, [start, model.at_hp(h_end, p_out, f"{where} discharge", T_guess=t_guess)]
+
+
 def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inlet_velocity: float,
-                p_out: float, mass_flow: float, dead: DeadState) -> StageResult:
+                p_out: float, mass_flow: float, dead: DeadState, detail: bool = True) -> StageResult:
     r"""Solve one stage for its discharge state, power and entropy generation [1]_ [2]_.
 
     Energy (steady flow, inlet kinetic energy counted, casing heat loss :math:`\dot Q`):
@@ -75,6 +84,11 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
         Mass flow through the stage, [kg/s].
     dead : DeadState
         Site dead state.
+    detail : bool
+        False skips the reporting-only work: for isentropic and measured-temperature
+        stages the polytropic efficiency is then NaN and the path holds only its two end
+        points. Power, discharge state and entropy generation are the same either way
+        (used by the staging study, which solves many trial splits).
 
     Returns
     -------
@@ -100,7 +114,9 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
     :math:`\eta_s = (h_{2s} - h_{01})/(h_{2i} - h_{01})`; the polytropic efficiency is that
     of the constant-efficiency path from 01 to 2i (see :mod:`thermo.polytropic`). The
     casing loss and the exit kinetic energy are then taken off to give the static
-    discharge state. The polytropic exponent is :math:`n = \ln(p_2/p_1)/\ln(\rho_{2i}/\rho_{01})`.
+    discharge state. Efficiencies are therefore total-to-static: the exit kinetic energy
+    counts as a loss, and an efficiency of 1 with a non-zero exit velocity is refused as a
+    second-law violation. The polytropic exponent is :math:`n = \ln(p_2/p_1)/\ln(\rho_{2i}/\rho_{01})`.
 
     References
     ----------
@@ -124,7 +140,8 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
     kind = eff["kind"]
     if kind == "isentropic":
         dh = dh_s / eff["value"]
-        eta_p, path = polytropic_efficiency_between(model, start, start.h + dh, p_out, eff["value"])
+        eta_p, path = _adiabatic_path(model, start, start.h + dh, p_out, eff["value"], detail, where,
+                                      start.T + (iso.T - start.T) / eff["value"])
     elif kind == "polytropic":
         path = polytropic_path(model, start, p_out, eff["value"])
         eta_p, dh = eff["value"], path[-1].h - start.h
@@ -137,7 +154,7 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
                 f"would need an isentropic efficiency above 1 (minimum adiabatic discharge "
                 f"{iso.T:.2f} K with the given casing heat loss): a second-law violation — check "
                 f"the measured temperatures and pressures", f"{where}.efficiency.value_K")
-        eta_p, path = polytropic_efficiency_between(model, start, start.h + dh, p_out, dh_s / dh)
+        eta_p, path = _adiabatic_path(model, start, start.h + dh, p_out, dh_s / dh, detail, where, eff["value_K"])
     h_out = start.h + dh - q - 0.5 * v_out ** 2 * k
     outlet = model.at_hp(h_out, p_out, f"{where} discharge", T_guess=path[-1].T)
     w_gas = mass_flow * dh
@@ -149,11 +166,18 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
             f"{where}.heat_loss_boundary_temperature_K: casing heat cannot leave at {t_b:.2f} K "
             f"when the gas is never hotter than {max(p.T for p in path):.2f} K "
             "(a second-law violation)", f"{where}.heat_loss_boundary_temperature_K")
+    if q_loss > 0.0 and outlet.T < t_b:
+        raise SecondLawViolation(
+            f"{where}.heat_loss_W: a casing heat loss of {q_loss:.6g} W would cool the gas to "
+            f"{outlet.T:.2f} K, below the {t_b:.2f} K boundary it leaves at (a second-law "
+            "violation); lower the heat loss or raise the flow", f"{where}.heat_loss_W")
     s_gen = mass_flow * (outlet.s - inlet.s) + q_loss / t_b + w_mech / dead.T0
     if s_gen < -1e-9 * max(1.0, w_shaft / dead.T0):
+        hint = (" — the efficiency is total-to-static, so it must leave room for the exit kinetic "
+                "energy; lower the efficiency or the exit velocity") if v_out > 0.0 else ""
         raise SecondLawViolation(
             f"{where}: the given data need negative entropy generation ({s_gen:.4g} W/K): "
-            "a second-law violation", where)
+            f"a second-law violation{hint}", where)
     end = path[-1]
     n = math.log(p_out / start.P) / math.log(end.rho / start.rho)
     return StageResult(

@@ -52,7 +52,7 @@ def _water_reference(mixture: MoistMixture, T0: float, P0: float, W0: float):
     return mu + T0 * s_w, s_w
 
 
-def solve_train(norm: dict, model: PropertyModel, mass_flow: float) -> TrainResult:
+def solve_train(norm: dict, model: PropertyModel, mass_flow: float, detail: bool = True) -> TrainResult:
     r"""Solve a normalised project at a given mass flow [1]_.
 
     Totals follow from the component balances; two closure figures check them:
@@ -72,6 +72,9 @@ def solve_train(norm: dict, model: PropertyModel, mass_flow: float) -> TrainResu
         Property model named by the project.
     mass_flow : float
         Mass flow of air, [kg/s].
+    detail : bool
+        False skips reporting-only work (polytropic efficiencies of isentropic stages,
+        points along paths); powers, states and totals are unchanged. For trial solves.
 
     Returns
     -------
@@ -124,8 +127,9 @@ def solve_train(norm: dict, model: PropertyModel, mass_flow: float) -> TrainResu
     stages, coolers = [], []
     point, velocity = after_filter, 0.0
     drains = []  # (kg/s, h, s, T, p) of condensate leaving each separator
+    rh0 = norm["site"]["relative_humidity"] if mixture is None else mixture.relative_humidity(T0, P0, W0)
     for i, spec in enumerate(specs):
-        st = solve_stage(model, spec, i, point, velocity, point.P * ratios[i], mass_flow, dead)
+        st = solve_stage(model, spec, i, point, velocity, point.P * ratios[i], mass_flow, dead, detail)
         if mixture is not None:
             check_humid_range(mixture, [st.outlet, max(st.path, key=lambda p: p.T)], f"stages[{i}]",
                               f"stage {i + 1} discharge")
@@ -136,7 +140,8 @@ def solve_train(norm: dict, model: PropertyModel, mass_flow: float) -> TrainResu
                                      f"stage {i + 1} discharge {st.outlet.T:.1f} K exceeds its limit {limit:.1f} K"))
         point, velocity = st.outlet, st.exit_velocity_m_s
         if spec["cooler"] is not None:
-            c = solve_cooler(model, spec["cooler"], i, point, velocity, mass_flow, dead)
+            c = solve_cooler(model, spec["cooler"], i, point, velocity, mass_flow, dead, 8 if detail else 1,
+                             ambient_relative_humidity=rh0)
             coolers.append(c)
             point, velocity = c.leaving, 0.0
             if c.water is not None:

@@ -1,5 +1,9 @@
-"""Write the dry-intake regression baseline. It was run once on commit 50835c4 (the dry-air core
-before moist air existed); re-running it on later code would defeat its purpose."""
+"""Write the dry-intake regression baseline: dry-air results of main before moist air landed.
+
+It was run on main at 4ca441c (from a `git archive` export of that commit, so that no moist-air
+code was involved). Re-running it on code that contains moist air would defeat its purpose;
+a deliberate change to dry results later means regenerating it the same way from the commit
+before that change is merged with a moist-air-free export."""
 import json, sys, copy
 sys.path.insert(0, "tests")
 from conftest import make_doc, SAMPLES

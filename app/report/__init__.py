@@ -1,0 +1,57 @@
+"""Reports a designer can hand over: a PDF and a CSV of a solved project (no Qt, no display).
+
+``export_report`` is what both ``stagewright report`` and the window's File → Export call,
+so the two always produce the same report.
+"""
+from __future__ import annotations
+
+__all__ = ["export_report", "write_csv", "write_pdf", "csv_rows", "program_version"]
+
+import datetime as _dt
+
+from .csv_export import csv_rows, write_csv
+from .pdf import program_version, write_pdf
+from .sections import ReportInfo
+
+
+def export_report(doc: dict, result, pdf_path, csv_path=None, system: str = "SI", source_name: str = "",
+                  study_rows=None, *, date: str | None = None, paper: str | None = None) -> int:
+    """Write the PDF report (and optionally the CSV) of a solved project.
+
+    Parameters
+    ----------
+    doc : dict
+        The project document as entered.
+    result : dict or TrainResult
+        Its solve (``TrainResult`` or ``TrainResult.to_dict()``).
+    pdf_path : path-like
+        Where to write the PDF.
+    csv_path : path-like, optional
+        Where to write the CSV balance sheet.
+    system : str
+        Display units, ``"SI"`` or ``"US"``.
+    source_name : str
+        Project file name printed in the title block and footers.
+    study_rows : list of dict, optional
+        Rows of a staging study to print as the staging comparison.
+    date : str, optional
+        ISO date printed on the report (default: today).
+    paper : str, optional
+        ``"A4"`` or ``"Letter"`` (default: A4 for SI, Letter for US units).
+
+    Returns
+    -------
+    int
+        Number of pages written.
+    """
+    if hasattr(result, "to_dict"):
+        result = result.to_dict()
+    if system not in ("SI", "US"):
+        from thermo.errors import InputError
+        raise InputError("units", system, "SI or US")
+    info = ReportInfo(source_name=source_name, date=date or _dt.date.today().isoformat(),
+                      version=program_version(), system=system)
+    n = write_pdf(doc, result, pdf_path, info, study_rows=study_rows, paper=paper)
+    if csv_path is not None:
+        write_csv(result, csv_path, system)
+    return n

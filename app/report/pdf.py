@@ -1,0 +1,71 @@
+"""The PDF report: lay out every section on paper-sized figures and write them with PdfPages.
+
+Why matplotlib's PDF back end rather than Qt's PDF writer: it needs no display and no Qt
+(``stagewright report`` runs on a headless server and in the test suite), the charts are
+the very figure functions the window uses, and the output is vector graphics with embedded,
+searchable TrueType text.
+"""
+from __future__ import annotations
+
+__all__ = ["write_pdf", "build_pages", "program_version"]
+
+import datetime as _dt
+from importlib import metadata
+
+import matplotlib
+from matplotlib.backends.backend_pdf import PdfPages
+
+from . import sections
+from .atomic import atomic_path
+from .layout import Pager
+
+
+def program_version() -> str:
+    """Installed Stagewright version (the core's version when not installed)."""
+    try:
+        return metadata.version("stagewright")
+    except metadata.PackageNotFoundError:
+        from thermo import __version__
+        return __version__
+
+
+def build_pages(doc: dict, result: dict, info: sections.ReportInfo, study_rows=None, paper: str | None = None):
+    """Lay the report out; returns the page figures (nothing written yet)."""
+    system = info.system
+    paper = paper or ("Letter" if system == "US" else "A4")
+    title = doc.get("title") or "Untitled project"
+    footer = "  ·  ".join(x for x in (info.source_name, info.date) if x)
+    p = Pager(paper, running_title=title, footer_left=footer)
+    sections.title_block(p, doc, result, info)
+    sections.warnings(p, result)  # first, where a reviewer cannot miss them
+    sections.inputs(p, doc, result, system)
+    states = sections.state_points_table(p, result, system)
+    p.heading("Balance sheet", keep_with=p.table_height(states))
+    p.table(states)
+    sections.components_table(p, result, system)
+    sections.exchangers_table(p, result, system)
+    sections.totals_table(p, result, system)
+    sections.charts(p, doc, result, system)
+    limits = [st.get("max_discharge_temperature_K") for st in doc.get("stages", [])]
+    limits = [v for v in limits if v is not None]
+    sections.staging(p, study_rows, system, limit_K=min(limits) if limits else None)
+    sections.cautions(p)
+    return p.finish()
+
+
+def write_pdf(doc: dict, result: dict, path, info: sections.ReportInfo, study_rows=None, paper: str | None = None) -> int:
+    """Write the PDF report to ``path`` atomically; returns the number of pages."""
+    pages = build_pages(doc, result, info, study_rows, paper)
+    meta = {"Title": doc.get("title") or "Stagewright report", "Creator": f"Stagewright {info.version}",
+            "Subject": "Compression-train sizing report"}
+    try:
+        meta["CreationDate"] = _dt.datetime.fromisoformat(info.date).replace(tzinfo=_dt.timezone.utc)
+    except ValueError:
+        pass
+    with atomic_path(path) as tmp:
+        # TrueType (Type 42) fonts keep the text searchable and extractable
+        with matplotlib.rc_context({"pdf.fonttype": 42}):
+            with PdfPages(tmp, metadata=meta) as pdf:
+                for fig in pages:
+                    pdf.savefig(fig)
+    return len(pages)

@@ -1,0 +1,199 @@
+"""Stagewright benchmarks: medians and spreads of the main jobs, ratios against a naive reference.
+
+    python bench/run.py            # all cases
+    python bench/run.py solve      # cases whose name contains "solve"
+
+Plain Python, no timing asserts. Figures are recorded in bench/RESULTS.md.
+"""
+from __future__ import annotations
+
+import copy
+import json
+import os
+import platform
+import resource
+import statistics
+import subprocess
+import sys
+import tempfile
+import time
+from pathlib import Path
+
+ROOT = Path(__file__).resolve().parent.parent
+sys.path.insert(0, str(ROOT))
+sys.path.insert(0, str(ROOT / "bench"))
+
+import thermo  # noqa: E402
+import thermo.coolprop_adapter  # noqa: E402
+from naive import naive_solve  # noqa: E402
+
+SAMPLES = sorted((ROOT / "sample_projects").glob("*.json"))
+
+
+def four_stage_doc(humid: bool = True) -> dict:
+    """Invented 4-stage real-gas train to 40 bar(a), water-cooled, humid intake."""
+    doc = {
+        "title": "bench: four-stage 40 bar(a)",
+        "site": {"ambient_temperature_K": 303.15, "barometric_pressure_Pa": 100_000.0,
+                 "relative_humidity": 0.6 if humid else 0.0},
+        "fluid": {"model": "real_gas"},
+        "flow": {"kind": "free_air_delivery", "value": 0.5},
+        "inlet_pressure_drop_Pa": 1500.0,
+        "discharge_pressure_Pa": 40e5,
+        "driver": {"efficiency": 0.96},
+        "stages": [{"efficiency": {"kind": "isentropic", "value": 0.8},
+                    "mechanical_efficiency": 0.985, "heat_loss_W": 1000.0,
+                    "cooler": {"approach_K": 8.0, "coolant_inlet_temperature_K": 298.15,
+                               "pressure_drop_Pa": 15_000.0}} for _ in range(4)],
+    }
+    return doc
+
+
+def measure(fn, repeat: int, warmup: int = 1) -> tuple[float, float, float]:
+    """Median, minimum and maximum wall time of ``fn()`` over ``repeat`` runs, [s]."""
+    for _ in range(warmup):
+        fn()
+    times = []
+    for _ in range(repeat):
+        t = time.perf_counter()
+        fn()
+        times.append(time.perf_counter() - t)
+    return statistics.median(times), min(times), max(times)
+
+
+def _fmt(t: float) -> str:
+    return f"{t * 1e3:9.2f} ms" if t < 1 else f"{t:9.3f} s "
+
+
+ROWS: list[tuple] = []
+
+
+def report(name: str, ours, naive=None, extra: str = "") -> None:
+    med, lo, hi = ours
+    ratio = f"{naive[0] / med:7.1f}×" if naive else "       "
+    line = f"{name:<44}{_fmt(med)}  [{_fmt(lo).strip()} … {_fmt(hi).strip()}]  {ratio} {extra}"
+    ROWS.append(line)
+    print(line, flush=True)
+
+
+def _humid_supported() -> bool:
+    try:
+        r = thermo.solve(four_stage_doc(True)).to_dict()
+    except thermo.StagewrightError:
+        return False
+    return "condensate_kg_s" in r
+
+
+def case_samples():
+    for path in SAMPLES:
+        doc = json.loads(path.read_text())
+        ours = measure(lambda: thermo.solve(doc), 20)
+        dry_naive = _naive_applicable(doc)
+        naive = measure(lambda: naive_solve(doc), 3) if dry_naive else None
+        report(f"solve {path.stem}", ours, naive)
+
+
+def _naive_applicable(doc) -> bool:
+    return (doc.get("fluid", {}).get("model", "real_gas") == "real_gas"
+            and doc["flow"]["kind"] in ("mass", "free_air_delivery")
+            and all(s["efficiency"]["kind"] in ("isentropic", "polytropic") for s in doc["stages"])
+            and not any(s.get("pressure_ratio") for s in doc["stages"]))
+
+
+def case_four_stage():
+    humid = _humid_supported()
+    doc = four_stage_doc(humid)
+    ours = measure(lambda: thermo.solve(doc), 50)
+    naive = measure(lambda: naive_solve(four_stage_doc(False)), 3)
+    report("solve 4-stage real gas" + (" moist" if humid else " (dry: moist n/a)"), ours, naive,
+           "naive ref is dry")
+
+
+def case_shaft_power():
+    doc = four_stage_doc(_humid_supported())
+    power = thermo.solve(doc).shaft_power_W
+    doc["flow"] = {"kind": "shaft_power", "value": power}
+    report("solve 4-stage, flow from shaft power", measure(lambda: thermo.solve(doc), 20))
+
+
+def case_study():
+    try:
+        from thermo.study import compare_stagings
+    except ImportError:
+        print(f"{'staging comparison 1…6':<44}  (thermo.study not available)")
+        return
+    doc = four_stage_doc(_humid_supported())
+    report("staging comparison 1…6 stages", measure(lambda: compare_stagings(doc, max_stages=6), 5))
+
+
+def case_sweep():
+    try:
+        from thermo.sweep import sweep
+    except ImportError:
+        print(f"{'sweep 10 000 points':<44}  (thermo.sweep not available)")
+        return
+    doc = json.loads((ROOT / "sample_projects" / "two_stage_plant_air.json").read_text())
+    import numpy as np
+    axes = {"site.ambient_temperature_K": list(np.linspace(263.15, 318.15, 100)),
+            "discharge_pressure_Pa": list(np.linspace(6e5, 13e5, 100))}
+    report("sweep 10 000 points (T0 × p_d)", measure(lambda: sweep(doc, axes), 3, warmup=0),
+           extra=f"peak RSS {_peak_mb():.0f} MB (this process)")
+
+
+def case_year():
+    try:
+        from thermo.year import solve_year
+    except ImportError:
+        print(f"{'year at site':<44}  (thermo.year not available)")
+        return
+    doc = json.loads((ROOT / "sample_projects" / "two_stage_plant_air.json").read_text())
+    report("year at site (12 months)", measure(lambda: solve_year(doc), 5))
+
+
+def case_files():
+    from thermo.project import load, save
+    path = SAMPLES[0]
+    doc = load(path)
+    report("project load", measure(lambda: load(path), 50))
+    with tempfile.TemporaryDirectory() as tmp:
+        out = Path(tmp) / "p.json"
+        report("project save (atomic)", measure(lambda: save(copy.deepcopy(doc), out), 50))
+
+
+def case_startup():
+    if not (ROOT / "app" / "gui_main.py").exists():
+        print(f"{'window start-up to solved demo':<44}  (window not available)")
+        return
+    env = dict(os.environ, QT_QPA_PLATFORM="offscreen")
+    with tempfile.TemporaryDirectory() as tmp:
+        shot = str(Path(tmp) / "s.png")
+
+        def run():
+            subprocess.run([sys.executable, "-m", "app.cli", "--screenshot", shot], cwd=ROOT, env=env,
+                           check=True, capture_output=True)
+        ours = measure(run, 5)
+    peak = resource.getrusage(resource.RUSAGE_CHILDREN).ru_maxrss / 1024.0
+    report("window start-up to solved demo (+PNG)", ours, extra=f"peak RSS {peak:.0f} MB")
+
+
+def _peak_mb() -> float:
+    return resource.getrusage(resource.RUSAGE_SELF).ru_maxrss / 1024.0
+
+
+CASES = [case_samples, case_four_stage, case_shaft_power, case_study, case_sweep, case_year,
+         case_files, case_startup]
+
+
+def main(argv: list[str]) -> None:
+    print(f"Stagewright bench — {time.strftime('%Y-%m-%d')} — Python {platform.python_version()}, "
+          f"{platform.machine()}, {os.cpu_count()} cores, CoolProp {thermo.coolprop_adapter.coolprop_version()}")
+    print(f"{'case':<44}{'median':>12}  [min … max]  naive/ours")
+    wanted = argv[1:] if len(argv) > 1 else None
+    for case in CASES:
+        if wanted and not any(w in case.__name__ for w in wanted):
+            continue
+        case()
+
+
+if __name__ == "__main__":
+    main(sys.argv)

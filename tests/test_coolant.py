@@ -1,0 +1,53 @@
+"""Coolant side: energy balance against independent property sources, limits, bad input."""
+import CoolProp.CoolProp as CP
+import pytest
+
+from thermo.errors import InputError
+from thermo.exchanger.coolant import coolant_side, make_coolant
+
+SITE = (293.15, 101_325.0, 0.0)
+
+
+def test_water_enthalpy_rise_matches_iapws95():
+    # CoolProp PropsSI with the HEOS back end (IAPWS-95, Wagner & Pruß 2002): an independent
+    # formulation from the incompressible table the coolant uses; agreement to 0.2 %
+    w = make_coolant({"kind": "water"}, SITE)
+    side = coolant_side(w, 293.15, 100_000.0, flow=2.0)
+    dh = CP.PropsSI("H", "T", side.outlet_temperature_K, "P", 3e5, "Water") - CP.PropsSI(
+        "H", "T", 293.15, "P", 3e5, "Water")
+    assert 2.0 * dh == pytest.approx(100_000.0, rel=2e-3)
+
+
+def test_rise_and_flow_modes_are_inverse():
+    w = make_coolant({"kind": "glycol", "glycol_fraction": 0.35}, SITE)
+    a = coolant_side(w, 280.0, 55_000.0, rise=12.0)
+    b = coolant_side(w, 280.0, 55_000.0, flow=a.flow_kg_s)
+    assert b.outlet_temperature_K == pytest.approx(292.0, abs=1e-9)
+
+
+def test_air_coolant_matches_ashrae_psychrometric_enthalpy():
+    # ASHRAE Handbook—Fundamentals 2017, ch. 1, eq. 32: h = 1.006 t + W (2501 + 1.86 t) kJ/kg dry air;
+    # per kg of humid air divide by (1 + W); agreement to 0.5 %
+    site = (303.15, 101_325.0, 0.5)
+    a = make_coolant({"kind": "air"}, site)
+    W = CP.HAPropsSI("W", "T", 303.15, "P", 101_325.0, "R", 0.5)
+    side = coolant_side(a, 303.15, 30_000.0, flow=3.0)
+    t1, t2 = 30.0, side.outlet_temperature_K - 273.15
+    dh = (1.006 * (t2 - t1) + W * 1.86 * (t2 - t1)) * 1000.0 / (1 + W)
+    assert 3.0 * dh == pytest.approx(30_000.0, rel=5e-3)
+
+
+def test_glycol_freezing_point_limits_the_inlet():
+    # 30 % ethylene glycol by mass freezes near −15 °C (ASHRAE Handbook—Fundamentals, ch. 31, from memory)
+    g = make_coolant({"kind": "glycol", "glycol_fraction": 0.3}, SITE)
+    assert g.t_min == pytest.approx(273.15 - 15.0, abs=1.5)
+    with pytest.raises(InputError, match=r"coolant_inlet_temperature_K.*frozen"):
+        coolant_side(g, 250.0, 1000.0, flow=1.0, where="stages[0].cooler")
+
+
+def test_too_little_water_names_flow_and_minimum():
+    w = make_coolant({"kind": "water"}, SITE)
+    with pytest.raises(InputError, match=r"stages\[1\]\.cooler\.coolant\.flow_kg_s.*at least 0\.2"):
+        coolant_side(w, 293.15, 70_000.0, flow=0.1, where="stages[1].cooler")
+    with pytest.raises(InputError, match=r"coolant\.temperature_rise_K.*at most 80\.00 K"):
+        coolant_side(w, 293.15, 70_000.0, rise=85.0, where="stages[1].cooler")

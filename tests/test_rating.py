@@ -1,0 +1,40 @@
+"""Rating (UA given) inverts sizing (outlet given) to 1e-6, for every arrangement and coolant."""
+import pytest
+
+from thermo.errors import InputError
+from thermo.exchanger import ARRANGEMENTS, HotSide, make_coolant, rate_exchanger, size_exchanger
+
+COOLANTS = {"water": {"kind": "water"}, "glycol": {"kind": "glycol", "glycol_fraction": 0.4},
+            "air": {"kind": "air"}}
+
+
+def hot_at(t_out, t_in=430.0):
+    # a gas whose cp rises with temperature (invented, smooth): h = 1000 T + 0.1 T²
+    h = lambda t: 1000.0 * t + 0.1 * t * t
+    return HotSide(t_in, t_out, 0.8 * (h(t_in) - h(t_out)))
+
+
+@pytest.mark.parametrize("arr", list(ARRANGEMENTS))
+@pytest.mark.parametrize("kind", list(COOLANTS))
+@pytest.mark.parametrize("mode", ["flow", "rise"])
+def test_rating_inverts_sizing(arr, kind, mode):
+    fluid = make_coolant(COOLANTS[kind], (298.15, 101_325.0, 0.4))
+    flow, rise = ((6.0 if kind == "air" else 1.5), None) if mode == "flow" else (None, 12.0)
+    sized = size_exchanger(arr, hot_at(318.0), fluid, 298.15, flow, rise)
+    t_out, rated = rate_exchanger(arr, sized.ua_W_K, 430.0, hot_at, fluid, 298.15, flow, rise)
+    assert t_out == pytest.approx(318.0, rel=1e-6)
+    assert rated.coolant.duty_W == pytest.approx(sized.coolant.duty_W, rel=1e-6)
+    assert rated.coolant.outlet_temperature_K == pytest.approx(sized.coolant.outlet_temperature_K, rel=1e-6)
+
+
+def test_more_ua_cools_further():
+    fluid = make_coolant({"kind": "water"}, (298.15, 101_325.0, 0.0))
+    t1, _ = rate_exchanger("counter_flow", 1000.0, 430.0, hot_at, fluid, 298.15, flow=2.0)
+    t2, _ = rate_exchanger("counter_flow", 4000.0, 430.0, hot_at, fluid, 298.15, flow=2.0)
+    assert 298.15 < t2 < t1 < 430.0
+
+
+def test_coolant_warmer_than_air_is_refused():
+    fluid = make_coolant({"kind": "water"}, (298.15, 101_325.0, 0.0))
+    with pytest.raises(InputError, match="coolant_inlet_temperature_K"):
+        rate_exchanger("counter_flow", 1000.0, 300.0, lambda t: hot_at(t, 300.0), fluid, 310.0, flow=1.0)

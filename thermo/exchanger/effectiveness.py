@@ -1,0 +1,337 @@
+r"""Effectiveness–NTU relations of the exchanger arrangements Stagewright supports [1]_ [2]_ [3]_.
+
+Arrangements (registry :data:`ARRANGEMENTS`, keyed by the project-file name):
+
+``counter_flow``
+    Pure counter-flow (double pipe, or a shell-and-tube exchanger with enough shells in
+    series to approach it).
+``cross_flow_unmixed``
+    Single-pass cross-flow, **both** fluids unmixed (finned-tube and plate-fin coolers);
+    the exact series solution, not the usual approximate fit.
+``cross_flow_hot_mixed``
+    Single-pass cross-flow, the compressed air (hot side) mixed and the coolant unmixed;
+    whether the mixed side is :math:`C_\min` or :math:`C_\max` is decided from the
+    capacity rates at run time.
+``shell_and_tube_1_2``
+    TEMA E shell, one shell pass and two (or any even number of) tube passes.
+
+Cross-flow with the coolant mixed and multi-shell exchangers are not offered.
+"""
+from __future__ import annotations
+
+__all__ = ["ARRANGEMENTS", "Arrangement", "effectiveness", "ntu_from_effectiveness",
+           "max_effectiveness", "crossflow_unmixed_effectiveness"]
+
+import math
+from dataclasses import dataclass
+from typing import Callable
+
+import numpy as np
+from scipy.optimize import brentq
+from scipy.special import gammainc
+
+from ..errors import InputError
+
+_CR_ZERO = 1e-12  #: below this capacity ratio the Cr = 0 limit (one fluid of infinite capacity) is used
+
+
+def _counter(ntu: float, cr: float, hot_is_cmin: bool) -> float:
+    if cr < _CR_ZERO:
+        return -math.expm1(-ntu)
+    if cr == 1.0:
+        return ntu / (1.0 + ntu)
+    x = ntu * (1.0 - cr)
+    num = -math.expm1(-x)
+    return num / (num + (1.0 - cr) * math.exp(-x))
+
+
+def _counter_inv(eps: float, cr: float, hot_is_cmin: bool) -> float:
+    if cr < _CR_ZERO:
+        return -math.log1p(-eps)
+    if cr == 1.0:
+        return eps / (1.0 - eps)
+    return math.log1p(eps * (1.0 - cr) / (1.0 - eps)) / (1.0 - cr)
+
+
+def _shell12(ntu: float, cr: float, hot_is_cmin: bool) -> float:
+    root = math.sqrt(1.0 + cr * cr)
+    e = math.exp(-ntu * root)
+    return 2.0 / (1.0 + cr + root * (1.0 + e) / (1.0 - e))
+
+
+def _shell12_inv(eps: float, cr: float, hot_is_cmin: bool) -> float:
+    root = math.sqrt(1.0 + cr * cr)
+    big_e = (2.0 / eps - (1.0 + cr)) / root
+    return -math.log((big_e - 1.0) / (big_e + 1.0)) / root
+
+
+def _cmax_mixed(ntu: float, cr: float) -> float:
+    if cr < _CR_ZERO:
+        return -math.expm1(-ntu)
+    return -math.expm1(-cr * -math.expm1(-ntu)) / cr
+
+
+def _cmax_mixed_inv(eps: float, cr: float) -> float:
+    if cr < _CR_ZERO:
+        return -math.log1p(-eps)
+    return -math.log1p(math.log1p(-eps * cr) / cr)
+
+
+def _cmin_mixed(ntu: float, cr: float) -> float:
+    if cr < _CR_ZERO:
+        return -math.expm1(-ntu)
+    return -math.expm1(math.expm1(-cr * ntu) / cr)
+
+
+def _cmin_mixed_inv(eps: float, cr: float) -> float:
+    if cr < _CR_ZERO:
+        return -math.log1p(-eps)
+    return -math.log1p(cr * math.log1p(-eps)) / cr
+
+
+def _hot_mixed(ntu: float, cr: float, hot_is_cmin: bool) -> float:
+    return _cmin_mixed(ntu, cr) if hot_is_cmin else _cmax_mixed(ntu, cr)
+
+
+def _hot_mixed_inv(eps: float, cr: float, hot_is_cmin: bool) -> float:
+    return _cmin_mixed_inv(eps, cr) if hot_is_cmin else _cmax_mixed_inv(eps, cr)
+
+
+def crossflow_unmixed_effectiveness(ntu: float, cr: float) -> float:
+    r"""Exact effectiveness of single-pass cross-flow, both fluids unmixed [3]_ [4]_.
+
+    .. math::
+
+        \varepsilon = \frac{1}{C_r\,N} \sum_{n=0}^{\infty} P(n+1, N)\, P(n+1, C_r N),
+        \qquad P(n+1, x) = 1 - e^{-x} \sum_{m=0}^{n} \frac{x^m}{m!}
+
+    with :math:`P` the regularised lower incomplete gamma function.
+
+    Parameters
+    ----------
+    ntu : float
+        Number of transfer units :math:`UA/C_\min`, [-].
+    cr : float
+        Capacity-rate ratio :math:`C_\min/C_\max`, [-].
+
+    Returns
+    -------
+    float
+        Effectiveness, [-].
+
+    Notes
+    -----
+    The series converges like a Poisson tail; terms are summed until
+    :math:`n > N + 12\sqrt{N} + 40`, past which they are below 1e-17 of the sum.
+
+    Examples
+    --------
+    >>> round(crossflow_unmixed_effectiveness(1.0, 1.0), 4)  # Incropera Fig. 11.18: ≈ 0.48
+    0.4762
+
+    References
+    ----------
+    .. [3] R. K. Shah, D. P. Sekulić, *Fundamentals of Heat Exchanger Design*, Wiley, 2003,
+       Table 3.3 (single-pass cross-flow, both fluids unmixed, series solution).
+    .. [4] J. L. Mason, "Heat transfer in crossflow", Proc. 2nd U.S. National Congress of
+       Applied Mechanics, ASME, 1955, pp. 801–803.
+    """
+    if ntu <= 0.0:
+        return 0.0
+    if cr < 1e-10:
+        return -math.expm1(-ntu)
+    n_max = int(ntu + 12.0 * math.sqrt(ntu) + 40.0)
+    k = np.arange(1, n_max + 1, dtype=float)
+    terms = gammainc(k, ntu) * gammainc(k, cr * ntu)
+    return float(np.sum(terms) / (cr * ntu))
+
+
+def _cross_unmixed(ntu: float, cr: float, hot_is_cmin: bool) -> float:
+    return crossflow_unmixed_effectiveness(ntu, cr)
+
+
+@dataclass(frozen=True)
+class Arrangement:
+    """One flow arrangement: its ε(NTU, Cr) and, where one exists, the closed-form inverse."""
+
+    label: str
+    eps: Callable[[float, float, bool], float]
+    ntu: Callable[[float, float, bool], float] | None  #: None → inverted numerically
+
+
+#: arrangement name -> relations (Incropera et al. 2007, Table 11.3 and 11.4)
+ARRANGEMENTS = {
+    "counter_flow": Arrangement("counter-flow", _counter, _counter_inv),
+    "cross_flow_unmixed": Arrangement("cross-flow, both fluids unmixed", _cross_unmixed, None),
+    "cross_flow_hot_mixed": Arrangement("cross-flow, compressed air mixed, coolant unmixed",
+                                        _hot_mixed, _hot_mixed_inv),
+    "shell_and_tube_1_2": Arrangement("shell-and-tube, 1 shell pass, 2 tube passes", _shell12, _shell12_inv),
+}
+
+
+def _get(arrangement: str) -> Arrangement:
+    try:
+        return ARRANGEMENTS[arrangement]
+    except KeyError:
+        raise InputError("arrangement", arrangement,
+                         "expected one of " + ", ".join(repr(k) for k in ARRANGEMENTS)) from None
+
+
+def effectiveness(arrangement: str, ntu: float, cr: float, hot_is_cmin: bool = True) -> float:
+    r"""Effectiveness of an exchanger from its NTU and capacity-rate ratio [1]_ [2]_.
+
+    Counter-flow, :math:`C_r < 1` (Incropera eq. 11.29a; :math:`N/(1+N)` at :math:`C_r = 1`):
+
+    .. math:: \varepsilon = \frac{1 - e^{-N(1-C_r)}}{1 - C_r e^{-N(1-C_r)}}
+
+    Shell-and-tube, one shell pass, 2n tube passes (eq. 11.30a):
+
+    .. math:: \varepsilon = 2\left\{1 + C_r + \sqrt{1+C_r^2}\,
+              \frac{1 + e^{-N\sqrt{1+C_r^2}}}{1 - e^{-N\sqrt{1+C_r^2}}}\right\}^{-1}
+
+    Cross-flow, :math:`C_\max` mixed (eq. 11.33a) and :math:`C_\min` mixed (eq. 11.34a):
+
+    .. math:: \varepsilon = \frac{1}{C_r}\left(1 - e^{-C_r (1 - e^{-N})}\right), \qquad
+              \varepsilon = 1 - \exp\left(-\frac{1 - e^{-C_r N}}{C_r}\right)
+
+    Cross-flow with both fluids unmixed: :func:`crossflow_unmixed_effectiveness`. Every
+    arrangement tends to :math:`1 - e^{-N}` as :math:`C_r \to 0`.
+
+    Parameters
+    ----------
+    arrangement : str
+        A key of :data:`ARRANGEMENTS`.
+    ntu : float
+        Number of transfer units :math:`UA/C_\min`, [-].
+    cr : float
+        Capacity-rate ratio :math:`C_\min/C_\max` in [0, 1], [-].
+    hot_is_cmin : bool
+        Whether the compressed air (hot side) has the smaller capacity rate; matters only
+        for ``cross_flow_hot_mixed``.
+
+    Returns
+    -------
+    float
+        Effectiveness :math:`\dot Q / (C_\min (T_{h,i} - T_{c,i}))`, [-].
+
+    Raises
+    ------
+    InputError
+        For an unknown arrangement.
+
+    Examples
+    --------
+    >>> round(effectiveness("counter_flow", 5.0, 0.7), 6)  # ht.effectiveness_from_NTU: 0.920670
+    0.92067
+
+    References
+    ----------
+    .. [1] F. P. Incropera, D. P. DeWitt, T. L. Bergman, A. S. Lavine, *Fundamentals of Heat
+       and Mass Transfer*, 6th ed., Wiley, 2007, §11.4, Tables 11.3 and 11.4.
+    .. [2] W. M. Kays, A. L. London, *Compact Heat Exchangers*, 3rd ed., McGraw-Hill, 1984,
+       ch. 2.
+    """
+    return _get(arrangement).eps(max(ntu, 0.0), min(max(cr, 0.0), 1.0), hot_is_cmin)
+
+
+def max_effectiveness(arrangement: str, cr: float, hot_is_cmin: bool = True) -> float:
+    r"""Largest effectiveness an arrangement reaches as :math:`N \to \infty` [1]_.
+
+    Counter-flow and unmixed cross-flow: 1 (counter-flow: :math:`1/C_r` capped at 1).
+    Shell-and-tube 1-2: :math:`2/(1 + C_r + \sqrt{1+C_r^2})`. Cross-flow, :math:`C_\max`
+    mixed: :math:`(1 - e^{-C_r})/C_r`; :math:`C_\min` mixed: :math:`1 - e^{-1/C_r}`.
+
+    Parameters
+    ----------
+    arrangement : str
+        A key of :data:`ARRANGEMENTS`.
+    cr : float
+        Capacity-rate ratio, [-].
+    hot_is_cmin : bool
+        As for :func:`effectiveness`.
+
+    Returns
+    -------
+    float
+        Limiting effectiveness, [-].
+
+    Examples
+    --------
+    >>> round(max_effectiveness("shell_and_tube_1_2", 1.0), 6)  # 2 / (2 + √2)
+    0.585786
+    """
+    _get(arrangement)
+    cr = min(max(cr, 0.0), 1.0)
+    if arrangement in ("counter_flow", "cross_flow_unmixed") or cr < _CR_ZERO:
+        return 1.0
+    if arrangement == "shell_and_tube_1_2":
+        return 2.0 / (1.0 + cr + math.sqrt(1.0 + cr * cr))
+    if hot_is_cmin:
+        return -math.expm1(-1.0 / cr)
+    return -math.expm1(-cr) / cr
+
+
+def ntu_from_effectiveness(arrangement: str, eps: float, cr: float, hot_is_cmin: bool = True,
+                           field: str = "effectiveness") -> float:
+    r"""Number of transfer units an arrangement needs for an effectiveness [1]_.
+
+    Closed-form inverses (Incropera eqs. 11.29b, 11.30b, 11.33b, 11.34b):
+
+    .. math::
+
+        N_\mathrm{cf} = \frac{1}{C_r - 1}\ln\frac{\varepsilon - 1}{\varepsilon C_r - 1},\qquad
+        N_{1\text{-}2} = -\frac{1}{\sqrt{1+C_r^2}}\ln\frac{E-1}{E+1},\;
+        E = \frac{2/\varepsilon - (1+C_r)}{\sqrt{1+C_r^2}}
+
+    .. math::
+
+        N_{C_\max\,\mathrm{mixed}} = -\ln\left[1 + \frac{\ln(1 - \varepsilon C_r)}{C_r}\right],
+        \qquad
+        N_{C_\min\,\mathrm{mixed}} = -\frac{\ln\left[C_r \ln(1-\varepsilon) + 1\right]}{C_r}
+
+    Cross-flow with both fluids unmixed is inverted numerically (Brent's method on
+    :math:`\ln N`, to 1e-14 relative).
+
+    Parameters
+    ----------
+    arrangement : str
+        A key of :data:`ARRANGEMENTS`.
+    eps : float
+        Required effectiveness, [-].
+    cr : float
+        Capacity-rate ratio, [-].
+    hot_is_cmin : bool
+        As for :func:`effectiveness`.
+    field : str
+        Input path named in the error when the effectiveness cannot be reached.
+
+    Returns
+    -------
+    float
+        Number of transfer units, [-].
+
+    Raises
+    ------
+    InputError
+        If ``eps`` is not below :func:`max_effectiveness` (a temperature cross: no finite
+        exchanger of this arrangement reaches these temperatures).
+
+    Examples
+    --------
+    >>> round(ntu_from_effectiveness("counter_flow", 0.920670368605, 0.7), 6)
+    5.0
+    """
+    arr = _get(arrangement)
+    cr = min(max(cr, 0.0), 1.0)
+    limit = max_effectiveness(arrangement, cr, hot_is_cmin)
+    if not 0.0 <= eps < limit:
+        raise InputError(field, eps, f"the {arr.label} arrangement reaches at most an effectiveness of "
+                                     f"{limit:.6g} at this capacity ratio ({cr:.4g}): the temperatures "
+                                     "cross; choose another arrangement, or more coolant")
+    if eps == 0.0:
+        return 0.0
+    if arr.ntu is not None:
+        return arr.ntu(eps, cr, hot_is_cmin)
+    x = brentq(lambda y: arr.eps(math.exp(y), cr, hot_is_cmin) - eps, -40.0, math.log(1e4),
+               xtol=1e-15, rtol=1e-14, maxiter=300)
+    return math.exp(x)

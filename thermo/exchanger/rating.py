@@ -1,0 +1,95 @@
+r"""Rating a cooler: given UA, find the air outlet temperature and the duty [1]_.
+
+Rating is the inverse of sizing (:mod:`thermo.exchanger.sizing`): the air outlet
+temperature :math:`T_{h,o}` is the root of
+
+.. math:: g(T_{h,o}) = \ln\frac{UA_\mathrm{req}(T_{h,o})}{UA} = 0
+
+on :math:`(T_{c,i}, T_{h,i})`, where :math:`UA_\mathrm{req}` is the UA that sizing finds for
+that outlet. :math:`UA_\mathrm{req}` falls monotonically from infinity (at the pinch or a
+temperature cross) to zero (no duty), so the root is unique; it is found by Brent's
+method to 1e-12 K. Outlets that no finite exchanger reaches count as
+:math:`g = +\infty`.
+"""
+from __future__ import annotations
+
+__all__ = ["rate_exchanger"]
+
+import math
+from typing import Callable
+
+from scipy.optimize import brentq
+
+from ..errors import InputError, PropertyRangeError
+from .sizing import Exchanger, HotSide, size_exchanger
+
+_INFEASIBLE = 60.0
+
+
+def rate_exchanger(arrangement: str, ua: float, t_hi: float, hot_at: Callable[[float], HotSide],
+                   fluid, t_ci: float, flow: float | None = None, rise: float | None = None,
+                   where: str = "cooler") -> tuple[float, Exchanger]:
+    r"""Air outlet temperature and exchanger state of a cooler of known UA [1]_.
+
+    Parameters
+    ----------
+    arrangement : str
+        A key of :data:`thermo.exchanger.effectiveness.ARRANGEMENTS`.
+    ua : float
+        Overall conductance, [W/K].
+    t_hi : float
+        Compressed-air inlet temperature, [K].
+    hot_at : callable
+        ``hot_at(T_out)`` → :class:`HotSide` of the air cooled to ``T_out`` [K].
+    fluid : object
+        Coolant from :func:`thermo.exchanger.coolant.make_coolant`.
+    t_ci : float
+        Coolant inlet temperature, [K].
+    flow, rise : float, optional
+        Coolant mass flow [kg/s] or temperature rise [K]; exactly one.
+    where : str
+        Input path of the cooler entry, for messages.
+
+    Returns
+    -------
+    (float, Exchanger)
+        Air outlet temperature [K] and the exchanger sized at it (its UA equals ``ua``).
+
+    Raises
+    ------
+    InputError
+        If the coolant is warmer than the air, or no outlet temperature gives this UA.
+
+    Examples
+    --------
+    >>> from thermo.exchanger.coolant import make_coolant
+    >>> from thermo.exchanger.sizing import HotSide
+    >>> w = make_coolant({"kind": "water"}, (293.15, 101325.0, 0.0))
+    >>> hot = lambda t: HotSide(420.0, t, 1000.0 * (420.0 - t))
+    >>> t_out, ex = rate_exchanger("counter_flow", 2500.0, 420.0, hot, w, 293.15, flow=0.5)
+    >>> round(ex.ua_W_K, 6)
+    2500.0
+
+    References
+    ----------
+    .. [1] F. P. Incropera, D. P. DeWitt, T. L. Bergman, A. S. Lavine, *Fundamentals of Heat
+       and Mass Transfer*, 6th ed., Wiley, 2007, §11.5 (rating with the ε-NTU method).
+    """
+    if t_hi <= t_ci:
+        raise InputError(f"{where}.coolant_inlet_temperature_K", t_ci,
+                         f"expected below the cooler air inlet {t_hi:.2f} K: the coolant cannot cool "
+                         "air colder than itself")
+
+    def g(t_out: float) -> float:
+        try:
+            ex = size_exchanger(arrangement, hot_at(t_out), fluid, t_ci, flow, rise, where, explain=False)
+        except (InputError, PropertyRangeError):
+            return _INFEASIBLE
+        return math.log(ex.ua_W_K / ua) if ex.ua_W_K > 0.0 else -_INFEASIBLE
+
+    span = t_hi - t_ci
+    lo, hi = t_ci + 1e-9 * span, t_hi - 1e-9 * span
+    if g(lo) <= 0.0:
+        lo = t_ci + 1e-12 * span
+    t_out = brentq(g, lo, hi, xtol=1e-12, rtol=1e-15, maxiter=500)
+    return t_out, size_exchanger(arrangement, hot_at(t_out), fluid, t_ci, flow, rise, where)

@@ -1,0 +1,239 @@
+r"""Sizing a cooler: the UA needed for a given air outlet temperature [1]_ [2]_.
+
+The compressed air is the hot stream, the coolant the cold one. With mean capacity rates
+taken from the terminal enthalpy changes,
+
+.. math::
+
+    C_h = \frac{\dot Q}{T_{h,i} - T_{h,o}}, \quad C_c = \frac{\dot Q}{T_{c,o} - T_{c,i}},
+    \quad \varepsilon = \frac{\dot Q}{C_\min (T_{h,i} - T_{c,i})}, \quad
+    UA = C_\min\, N(\varepsilon, C_r), \quad F = \frac{\dot Q}{UA\,\Delta T_\mathrm{lm,cf}}
+
+so that the ε–NTU and LMTD–F methods give the same UA by construction, and the coolant
+energy balance equals the air-side duty exactly (the coolant outlet follows from its
+enthalpy, :mod:`thermo.exchanger.coolant`).
+"""
+from __future__ import annotations
+
+__all__ = ["HotSide", "Zone", "Exchanger", "size_exchanger", "Infeasible"]
+
+import math
+from dataclasses import dataclass, field
+
+from ..errors import InputError
+from .coolant import CoolantSide, coolant_side
+from .effectiveness import ARRANGEMENTS, max_effectiveness, ntu_from_effectiveness
+from .lmtd import counterflow_lmtd
+
+
+class Infeasible(InputError):
+    """No finite exchanger of the arrangement reaches these temperatures (a temperature cross)."""
+
+
+@dataclass(frozen=True)
+class HotSide:
+    """What the compressed air does in the cooler: terminal temperatures and duty (SI)."""
+
+    inlet_temperature_K: float
+    outlet_temperature_K: float
+    duty_W: float
+
+
+@dataclass(frozen=True)
+class Zone:
+    """One zone of an exchanger (the whole exchanger when nothing condenses), SI units."""
+
+    kind: str  #: "dry" (sensible only) or "wet" (condensing)
+    duty_W: float
+    hot_inlet_temperature_K: float
+    hot_outlet_temperature_K: float
+    coolant_inlet_temperature_K: float
+    coolant_outlet_temperature_K: float
+    hot_capacity_rate_W_K: float
+    coolant_capacity_rate_W_K: float
+    capacity_ratio: float
+    effectiveness: float
+    ntu: float
+    lmtd_K: float
+    correction_factor: float
+    ua_W_K: float
+
+
+@dataclass(frozen=True)
+class Exchanger:
+    """A sized (or rated) cooler: arrangement, coolant stream, zones and totals (SI units)."""
+
+    arrangement: str
+    coolant: CoolantSide
+    zones: list = field(default_factory=list)
+    ua_W_K: float = 0.0
+    lmtd_K: float = 0.0  #: counter-flow LMTD of the four terminal temperatures, [K]
+    correction_factor: float = 1.0
+    effectiveness: float = 0.0
+    ntu: float = 0.0
+
+    @property
+    def mean_temperature_difference_K(self) -> float:
+        """Effective mean temperature difference Q/UA, [K]."""
+        return self.coolant.duty_W / self.ua_W_K if self.ua_W_K > 0.0 else 0.0
+
+
+def dry_zone(arrangement: str, t_hi: float, t_ho: float, q: float, t_ci: float, t_co: float,
+             field_name: str) -> Zone:
+    r"""Size one sensible (dry) zone from its four terminal temperatures and duty [1]_ [2]_.
+
+    Parameters
+    ----------
+    arrangement : str
+        A key of :data:`thermo.exchanger.effectiveness.ARRANGEMENTS`.
+    t_hi, t_ho : float
+        Compressed-air inlet and outlet temperatures, [K].
+    q : float
+        Zone duty, [W].
+    t_ci, t_co : float
+        Coolant inlet and outlet temperatures, [K].
+    field_name : str
+        Input path blamed when the temperatures cross.
+
+    Returns
+    -------
+    Zone
+
+    Raises
+    ------
+    Infeasible
+        If the air leaves at or below the coolant inlet, the coolant leaves at or above
+        the air inlet, or the arrangement cannot reach the effectiveness.
+    """
+    if q <= 0.0:
+        return Zone("dry", 0.0, t_hi, t_ho, t_ci, t_co, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0, 1.0, 0.0)
+    if t_ho <= t_ci:
+        raise Infeasible(field_name, t_ho, f"the air would leave at {t_ho:.2f} K, not above the "
+                                           f"coolant inlet {t_ci:.2f} K (approach must be above 0 K)")
+    if t_co >= t_hi:
+        raise Infeasible(field_name, t_co, f"the coolant would leave at {t_co:.2f} K, not below the "
+                                           f"air inlet {t_hi:.2f} K: a temperature cross")
+    c_h = q / (t_hi - t_ho)
+    c_c = q / (t_co - t_ci) if t_co > t_ci else math.inf
+    c_min, c_max = min(c_h, c_c), max(c_h, c_c)
+    cr = c_min / c_max
+    hot_is_cmin = c_h <= c_c
+    eps = q / (c_min * (t_hi - t_ci))
+    limit = max_effectiveness(arrangement, cr, hot_is_cmin)
+    if eps >= limit:
+        raise Infeasible(field_name, eps, f"the {ARRANGEMENTS[arrangement].label} arrangement reaches "
+                                          f"an effectiveness of at most {limit:.6g} at a capacity ratio "
+                                          f"of {cr:.4g}, and {eps:.6g} is needed: the temperatures cross")
+    ntu = ntu_from_effectiveness(arrangement, eps, cr, hot_is_cmin, field_name)
+    ua = ntu * c_min
+    lmtd = counterflow_lmtd(t_hi, t_ho, t_ci, t_co, field_name)
+    return Zone("dry", q, t_hi, t_ho, t_ci, t_co, c_h, c_c, cr, eps, ntu, lmtd, q / (ua * lmtd), ua)
+
+
+def _coolant_field(where: str, flow, rise) -> str:
+    return f"{where}.coolant.flow_kg_s" if flow is not None else f"{where}.coolant.temperature_rise_K"
+
+
+def _size(arrangement, hot: HotSide, fluid, t_ci, flow, rise, where) -> Exchanger:
+    side = coolant_side(fluid, t_ci, hot.duty_W, flow=flow, rise=rise, where=where)
+    field_name = _coolant_field(where, flow, rise)
+    zone = dry_zone(arrangement, hot.inlet_temperature_K, hot.outlet_temperature_K, hot.duty_W,
+                    t_ci, side.outlet_temperature_K, field_name)
+    return Exchanger(arrangement=arrangement, coolant=side, zones=[zone], ua_W_K=zone.ua_W_K,
+                     lmtd_K=zone.lmtd_K, correction_factor=zone.correction_factor,
+                     effectiveness=zone.effectiveness, ntu=zone.ntu)
+
+
+def _feasible(arrangement, hot, fluid, t_ci, flow, rise, where) -> bool:
+    try:
+        _size(arrangement, hot, fluid, t_ci, flow, rise, where)
+    except Infeasible:
+        return False
+    except InputError:
+        return False
+    return True
+
+
+def _limit_message(arrangement, hot, fluid, t_ci, flow, rise, where) -> InputError:
+    """Find the smallest coolant flow (or largest rise) that works, for the error message."""
+    if flow is not None:
+        lo, hi = flow, flow
+        while not _feasible(arrangement, hot, fluid, t_ci, hi, None, where):
+            hi *= 2.0
+            if hi > 1e9:
+                return None
+        for _ in range(60):
+            mid = math.sqrt(lo * hi)
+            lo, hi = (lo, mid) if _feasible(arrangement, hot, fluid, t_ci, mid, None, where) else (mid, hi)
+        return InputError(f"{where}.coolant.flow_kg_s", flow,
+                          f"expected at least {hi:.6g} kg/s: with less {fluid.label} the temperatures "
+                          f"cross in this {ARRANGEMENTS[arrangement].label} exchanger for a duty of "
+                          f"{hot.duty_W:.6g} W")
+    lo, hi = 0.0, rise
+    if not _feasible(arrangement, hot, fluid, t_ci, None, 1e-6 * max(rise, 1e-3), where):
+        return None
+    lo = 1e-6 * max(rise, 1e-3)
+    for _ in range(60):
+        mid = 0.5 * (lo + hi)
+        lo, hi = (mid, hi) if _feasible(arrangement, hot, fluid, t_ci, None, mid, where) else (lo, mid)
+    return InputError(f"{where}.coolant.temperature_rise_K", rise,
+                      f"expected at most {lo:.4f} K: a larger rise makes the temperatures cross in "
+                      f"this {ARRANGEMENTS[arrangement].label} exchanger")
+
+
+def size_exchanger(arrangement: str, hot: HotSide, fluid, t_ci: float, flow: float | None = None,
+                   rise: float | None = None, where: str = "cooler", explain: bool = True) -> Exchanger:
+    r"""UA, effectiveness, NTU, LMTD and coolant stream of a cooler for a given air outlet [1]_.
+
+    Parameters
+    ----------
+    arrangement : str
+        A key of :data:`thermo.exchanger.effectiveness.ARRANGEMENTS`.
+    hot : HotSide
+        Air-side terminal temperatures and duty.
+    fluid : object
+        Coolant from :func:`thermo.exchanger.coolant.make_coolant`.
+    t_ci : float
+        Coolant inlet temperature, [K].
+    flow, rise : float, optional
+        Coolant mass flow [kg/s] or temperature rise [K]; exactly one.
+    where : str
+        Input path of the cooler entry, for messages.
+    explain : bool
+        On a temperature cross, search for the limiting coolant flow (or rise) and name it
+        in the error (off inside rating iterations).
+
+    Returns
+    -------
+    Exchanger
+
+    Raises
+    ------
+    InputError
+        On a temperature cross (naming the coolant flow or rise and its limit), an air
+        outlet at or below the coolant inlet, or a coolant outside its range.
+
+    Examples
+    --------
+    >>> from thermo.exchanger.coolant import make_coolant
+    >>> w = make_coolant({"kind": "water"}, (293.15, 101325.0, 0.0))
+    >>> ex = size_exchanger("counter_flow", HotSide(400.0, 303.15, 97_000.0), w, 293.15, rise=10.0)
+    >>> round(ex.ua_W_K / (97_000.0 / ex.lmtd_K), 12)  # counter-flow: UA = Q / LMTD
+    1.0
+
+    References
+    ----------
+    .. [1] F. P. Incropera, D. P. DeWitt, T. L. Bergman, A. S. Lavine, *Fundamentals of Heat
+       and Mass Transfer*, 6th ed., Wiley, 2007, §11.3–11.5.
+    .. [2] R. K. Shah, D. P. Sekulić, *Fundamentals of Heat Exchanger Design*, Wiley, 2003,
+       ch. 3 (ε-NTU, P-NTU and MTD methods and their equivalence).
+    """
+    try:
+        return _size(arrangement, hot, fluid, t_ci, flow, rise, where)
+    except Infeasible as exc:
+        if not explain or hot.outlet_temperature_K <= t_ci:
+            raise
+        better = _limit_message(arrangement, hot, fluid, t_ci, flow, rise, where)
+        if better is None:
+            raise
+        raise better from None

@@ -1,0 +1,191 @@
+"""Parametric sweeps: solve a project over a grid of one or more input fields.
+
+Large sweeps run on every core (a process pool); all sweeps report progress and can be
+cancelled between chunks. Points that fail are recorded with their message, never NaN in
+what a user sees.
+"""
+from __future__ import annotations
+
+__all__ = ["sweep", "SweepResult", "SweepCancelled", "SWEEP_OUTPUTS"]
+
+import copy
+import itertools
+import math
+import multiprocessing
+import os
+from concurrent.futures import ProcessPoolExecutor
+from dataclasses import dataclass, field
+
+from .doc_paths import set_path
+from .errors import InputError, StagewrightError
+from .document import normalise
+from .solve import solve_normalised
+
+#: result keys collected at every point (totals of ``TrainResult.to_dict()``)
+SWEEP_OUTPUTS = ("mass_flow_kg_s", "shaft_power_W", "driver_power_W", "specific_power_kW_per_m3_min",
+                 "heat_rejected_W", "exergy_destroyed_W", "second_law_efficiency",
+                 "isothermal_efficiency", "max_discharge_temperature_K", "condensate_kg_s")
+_POOL_THRESHOLD = 2000  # points; below this a pool's start-up costs more than it saves
+_CHUNK = 250
+MAX_POINTS = 1_000_000
+
+
+class SweepCancelled(StagewrightError):
+    """The sweep was cancelled; ``partial`` holds the points finished so far."""
+
+
+@dataclass
+class SweepResult:
+    """Outputs of a sweep on a grid; ``values[key][i]`` belongs to ``points[i]``."""
+
+    axes: dict
+    points: list
+    values: dict
+    errors: dict = field(default_factory=dict)  #: point index -> message
+
+    def to_dict(self) -> dict:
+        return {"axes": self.axes, "points": self.points,
+                "values": {k: [None if (v is None or not math.isfinite(v)) else v for v in vals]
+                           for k, vals in self.values.items()},
+                "errors": {str(i): msg for i, msg in self.errors.items()}}
+
+
+def _summary(result) -> tuple:
+    out = []
+    for key in SWEEP_OUTPUTS:
+        if key == "max_discharge_temperature_K":
+            out.append(max(s.outlet.T for s in result.stages))
+        else:
+            out.append(float(getattr(result, key, 0.0) or 0.0))
+    return tuple(out)
+
+
+def _value_problems(doc: dict, paths: list, axes: dict) -> dict:
+    """Validate each axis value once (not each grid point): (path, value) -> message."""
+    bad = {}
+    for p in paths:
+        for v in axes[p]:
+            trial = copy.deepcopy(doc)
+            set_path(trial, p, float(v))
+            try:
+                normalise(trial)
+            except StagewrightError as exc:
+                bad[(p, float(v))] = str(exc)
+    return bad
+
+
+def _solve_chunk(base_norm: dict, paths: list, chunk: list, bad: dict) -> list:
+    work = copy.deepcopy(base_norm)
+    results = []
+    for values in chunk:
+        problem = next((bad[(p, v)] for p, v in zip(paths, values) if (p, v) in bad), None)
+        if problem is not None:
+            results.append(("error", problem))
+            continue
+        for p, v in zip(paths, values):
+            set_path(work, p, v)
+        try:
+            results.append(("ok", _summary(solve_normalised(work, detail=False))))
+        except StagewrightError as exc:
+            results.append(("error", str(exc)))
+    return results
+
+
+def _pool_context():
+    methods = multiprocessing.get_all_start_methods()
+    if "forkserver" in methods:
+        ctx = multiprocessing.get_context("forkserver")
+        ctx.set_forkserver_preload(["thermo"])
+        return ctx
+    return multiprocessing.get_context("spawn")
+
+
+def sweep(doc: dict, axes: dict, *, processes: int | None = None, progress=None, cancel=None) -> SweepResult:
+    """Solve ``doc`` at every point of the grid spanned by ``axes``.
+
+    Parameters
+    ----------
+    doc : dict
+        Project document (validated at each point by :func:`thermo.solve`).
+    axes : dict
+        Field path (``"site.ambient_temperature_K"``, ``"stages[0].efficiency.value"``) →
+        list of SI values. The grid is their Cartesian product, the last axis fastest.
+    processes : int, optional
+        Worker processes; default: all cores for sweeps of 2000 points or more, else 1.
+    progress : callable, optional
+        ``progress(fraction, message)`` after every chunk.
+    cancel : callable or threading.Event, optional
+        Checked between chunks; when set, :class:`SweepCancelled` is raised with the
+        points finished so far in its ``partial`` attribute.
+
+    Returns
+    -------
+    SweepResult
+
+    Notes
+    -----
+    The document is validated once, and each axis value once; grid points are then
+    solved from the normalised document without re-validation and without the
+    reporting-only work (``detail=False``: totals and states are the same).
+
+    Raises
+    ------
+    InputError
+        For an empty axis or a grid larger than one million points.
+    SweepCancelled
+        When cancelled.
+    """
+    paths = list(axes)
+    for p in paths:
+        if len(axes[p]) == 0:
+            raise InputError(f"axes.{p}", [], "expected at least one value")
+    points = [tuple(float(v) for v in combo) for combo in itertools.product(*(axes[p] for p in paths))]
+    if len(points) > MAX_POINTS:
+        raise InputError("axes", len(points), f"a sweep is limited to {MAX_POINTS} points")
+    base_norm = normalise(doc)
+    bad = _value_problems(doc, paths, axes)
+    is_cancelled = (cancel.is_set if hasattr(cancel, "is_set") else cancel) or (lambda: False)
+    chunks = [points[i:i + _CHUNK] for i in range(0, len(points), _CHUNK)]
+    n_proc = processes or ((os.cpu_count() or 1) if len(points) >= _POOL_THRESHOLD else 1)
+    done: list = []
+
+    def _collect(res):
+        done.extend(res)
+        if progress:
+            progress(len(done) / len(points), f"{len(done)} of {len(points)} points")
+
+    def _cancelled():
+        result = _assemble(axes, paths, points[:len(done)], done)
+        err = SweepCancelled(f"sweep cancelled after {len(done)} of {len(points)} points")
+        err.partial = result
+        return err
+
+    if n_proc <= 1:
+        for ch in chunks:
+            if is_cancelled():
+                raise _cancelled()
+            _collect(_solve_chunk(base_norm, paths, ch, bad))
+    else:
+        with ProcessPoolExecutor(max_workers=n_proc, mp_context=_pool_context()) as pool:
+            futures = [pool.submit(_solve_chunk, base_norm, paths, ch, bad) for ch in chunks]
+            for fut in futures:
+                if is_cancelled():
+                    for f in futures:
+                        f.cancel()
+                    raise _cancelled()
+                _collect(fut.result())
+    return _assemble(axes, paths, points, done)
+
+
+def _assemble(axes, paths, points, done) -> SweepResult:
+    values = {k: [] for k in SWEEP_OUTPUTS}
+    errors = {}
+    for i, (status, payload) in enumerate(done):
+        if status == "ok":
+            for k, v in zip(SWEEP_OUTPUTS, payload):
+                values[k].append(v)
+        else:
+            errors[i] = payload
+            for k in SWEEP_OUTPUTS:
+                values[k].append(None)
+    return SweepResult({p: list(map(float, axes[p])) for p in paths}, [list(p) for p in points], values, errors)
