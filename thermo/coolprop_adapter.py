@@ -119,10 +119,19 @@ def humid_air_coefficient(name: str, temperature: float, pressure: float) -> flo
                                  f"p = {pressure:.6g} Pa ({exc})") from None
 
 
+@lru_cache(maxsize=1)
+def _liquid_state():
+    state = _CP.AbstractState("HEOS", "Water")
+    state.specify_phase(_CP.iphase_liquid)
+    return state
+
+
 def liquid_water_density(temperature: float, pressure: float) -> float:
     """Density of liquid water [kg/m³] at T [K], p [Pa] (IAPWS-95), for condensate volumes."""
     try:
-        return _CP.PropsSI("D", "T", temperature, "P", pressure, "Water")
+        state = _liquid_state()
+        state.update(PT_INPUTS, pressure, temperature)
+        return state.rhomass()
     except ValueError as exc:
         raise PropertyRangeError(f"liquid water density unavailable at T = {temperature:.6g} K, "
                                  f"p = {pressure:.6g} Pa ({exc})") from None

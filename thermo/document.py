@@ -123,7 +123,7 @@ def _humidity_checks(raw_site: dict, norm: dict) -> list[Problem]:
             continue
         if c.get("outlet_temperature_K") is not None:
             field, value, t_out = "outlet_temperature_K", c["outlet_temperature_K"], c["outlet_temperature_K"]
-        elif c.get("coolant_inlet_temperature_K") is not None:
+        elif c.get("approach_K") is not None and c.get("coolant_inlet_temperature_K") is not None:
             field, value = "approach_K", c["approach_K"]
             t_out = c["coolant_inlet_temperature_K"] + c["approach_K"]
         else:

@@ -161,7 +161,7 @@ class MoistAir:
         x0, x_end = math.log(inlet.P), math.log(p_out)
         y0 = math.log(inlet.T)
 
-        def rk4(dx_total: float, m: int = 4) -> float:
+        def rk4(dx_total: float, m: int = 2) -> float:
             y, h = y0, dx_total / m
             for k in range(m):
                 x = x0 + k * h
@@ -177,16 +177,33 @@ class MoistAir:
             return self.water - self.mixture.saturation_ratio(math.exp(rk4(dx)), math.exp(x0 + dx))
 
         span = x_end - x0
-        if liquid_left(span) > 0.0:  # liquid all the way: one smooth branch
-            n = max(4, math.ceil(span / 0.05))
-            pts = [inlet] + [self.at_tp(math.exp(rk4(span * k / n, 4 * k)), math.exp(x0 + span * k / n),
+        n = max(4, math.ceil(span / 0.2))  # fixed by inlet and outlet only, never by the efficiency
+        lo, hi = 0.0, None  # bracket the first point where the liquid is gone, scanning from the inlet
+        for k in range(1, 65):
+            if liquid_left(span * k / 64) <= 0.0:
+                hi = span * k / 64
+                break
+            lo = span * k / 64
+        if hi is None:  # liquid all the way: one smooth branch
+            pts = [inlet] + [self.at_tp(math.exp(rk4(span * k / n, 2 * k)), math.exp(x0 + span * k / n),
                                         "polytropic path") for k in range(1, n + 1)]
             return pts, pts[-1]
-        dx = brentq(liquid_left, 0.0, span, xtol=1e-14, rtol=1e-15)
-        T, P = math.exp(rk4(dx)), math.exp(x0 + dx)
+        dx = brentq(liquid_left, lo, hi, xtol=1e-12, rtol=1e-14)
+        y = rk4(dx)
+        T, P = math.exp(y), math.exp(x0 + dx)
         h, s, v, _, _ = self.mixture.gas(T, P, self.water, False)
-        dry_point = Point(T, P, h, s, (1.0 + self.water) / v, self.water, 0.0)
-        return [inlet, dry_point], dry_point
+        pts = [inlet, Point(T, P, h, s, (1.0 + self.water) / v, self.water, 0.0)]
+        x, step = x0 + dx, (span - dx) / n
+        f = lambda yy, xx: self.polytropic_slope(math.exp(yy), math.exp(xx), efficiency) / math.exp(yy)
+        for k in range(n):  # the dry remainder, classical RK4 on ln T against ln p
+            k1 = f(y, x)
+            k2 = f(y + 0.5 * step * k1, x + 0.5 * step)
+            k3 = f(y + 0.5 * step * k2, x + 0.5 * step)
+            k4 = f(y + step * k3, x + step)
+            y += step * (k1 + 2 * k2 + 2 * k3 + k4) / 6.0
+            x += step
+            pts.append(self.at_tp(math.exp(y), p_out if k == n - 1 else math.exp(x), "polytropic path"))
+        return pts, pts[-1]
 
     def gas_only(self, T: float, P: float, w_v: float, w_l: float) -> tuple[float, float]:
         """(h, s) at T, P with the phase split frozen at w_v, w_l (no condensation or evaporation)."""
