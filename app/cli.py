@@ -4,6 +4,7 @@
     stagewright --screenshot OUT.png [PROJECT] render the window offscreen and exit
     stagewright solve FILE|FOLDER … [--json]   solve projects, print tables or JSON
     stagewright check FILE|FOLDER …            validate project files
+    stagewright year PROJECT.json … [--json]   a year at the site: annual energy, cost, condensate
     stagewright study PROJECT --max-stages N   staging options side by side (see app/study_cli.py)
     stagewright report FILE|FOLDER … [-o OUT] [--csv [OUT.csv]] [--units SI|US]
                                                PDF (and CSV) reports
@@ -93,6 +94,42 @@ def _report(args) -> int:
     return run_report(args, expand_paths)
 
 
+def _year(args) -> int:
+    from thermo import StagewrightError
+    from thermo.project import load
+    from thermo.year import run_year
+    from .progress import Progress
+    from .year_table import format_year
+
+    status, outputs = EXIT_OK, []
+    for path in expand_paths(args.files):
+        try:
+            doc = load(path)
+            bars: list = []
+
+            def tick(done: int, total: int) -> None:
+                if not bars:
+                    bars.append(Progress(total))
+                bars[0].step(f"{path.name}: bin {done} of {total}")
+            try:
+                result = run_year(doc, progress=tick).to_dict()
+            finally:
+                for bar in bars:
+                    bar.__exit__(None, None, None)
+        except StagewrightError as exc:
+            print(f"{path}: {exc}", file=sys.stderr)
+            status = EXIT_INPUT
+            continue
+        outputs.append({"file": str(path), "title": doc.get("title", ""), "year": result})
+    if args.json and outputs:
+        print(json.dumps(outputs[0]["year"] if len(outputs) == 1 else outputs, indent=2, allow_nan=False))
+    elif not args.json:
+        for o in outputs:
+            print(format_year(o["title"], o["year"]))
+            print()
+    return status
+
+
 def _solve_arguments(p: argparse.ArgumentParser) -> None:
     p.add_argument("--json", action="store_true", help="machine-readable results (SI, unit in each key)")
 
@@ -102,10 +139,10 @@ def _report_arguments(p: argparse.ArgumentParser) -> None:
     add_arguments(p)
 
 
-SUBCOMMANDS = {"solve": _solve, "check": _check, "report": _report, "study": _study}
+SUBCOMMANDS = {"solve": _solve, "check": _check, "report": _report, "study": _study, "year": _year}
 
 #: sub-command -> function adding its own options to its parser
-SUBCOMMAND_OPTIONS = {"solve": _solve_arguments, "report": _report_arguments}
+SUBCOMMAND_OPTIONS = {"solve": _solve_arguments, "report": _report_arguments, "year": _solve_arguments}
 
 
 def _headless_parser(name: str) -> argparse.ArgumentParser:
@@ -134,9 +171,10 @@ def main(argv: list[str] | None = None) -> int:
     p = argparse.ArgumentParser(prog="stagewright", description="Compression-train workbench.")
     p.add_argument("project", nargs="?", help="project file to open (default: a demo project)")
     p.add_argument("--screenshot", metavar="OUT.png", help="render the window offscreen to a PNG and exit")
+    p.add_argument("--size", metavar="WxH", help="window size for --screenshot (default 1280x800)")
     args = p.parse_args(argv)
     from .gui_main import run_gui  # Qt is imported only here
-    return run_gui(args.project, args.screenshot)
+    return run_gui(args.project, args.screenshot, size=args.size)
 
 
 if __name__ == "__main__":

@@ -63,3 +63,32 @@ def test_batch_keeps_going_past_a_bad_file(tmp_path, capsys):
 def test_json_output_never_contains_nan(capsys):
     main(["solve", str(SAMPLES / "two_stage_plant_air.json"), "--json"])
     assert "NaN" not in capsys.readouterr().out
+
+
+def test_year_command_table_and_json(capsys):
+    path = str(SAMPLES / "three_stage_site_year.json")
+    assert main(["year", path]) == 0
+    out = capsys.readouterr().out
+    assert "January" in out and "December" in out and "worst discharge temperature" in out
+    assert main(["year", path, "--json"]) == 0
+    y = json.loads(capsys.readouterr().out)
+    assert len(y["bins"]) == 12
+    assert y["totals"]["hours"] == pytest.approx(6000.0)
+    assert y["totals"]["energy_kWh"] == pytest.approx(sum(b["energy_kWh"] for b in y["bins"]), rel=1e-12)
+
+
+def test_year_without_section_is_one_line_and_exit_2(capsys):
+    assert main(["year", str(SAMPLES / "two_stage_plant_air.json")]) == 2
+    err = capsys.readouterr().err.strip().splitlines()
+    assert len(err) == 1 and "year" in err[0]
+
+
+def test_solve_json_has_cooler_sizing_keys(capsys):
+    assert main(["solve", str(SAMPLES / "three_stage_site_year.json"), "--json"]) == 0
+    out = json.loads(capsys.readouterr().out)
+    for st in out["stages"]:
+        c = st["cooler"]
+        for key in ("arrangement", "coolant_flow_kg_s", "coolant_inlet_temperature_K",
+                    "coolant_outlet_temperature_K", "lmtd_K", "effectiveness", "ntu", "ua_W_K"):
+            assert c[key] is not None
+    assert out["recoverable_heat_W"] > 0.0

@@ -14,6 +14,7 @@ from .atmosphere import standard_pressure
 from .errors import InputError, Problem
 from .schema import PROJECT
 from .schema_types import check
+from .year_profile import year_problems
 
 
 def _check(doc: Any) -> tuple[dict, list[Problem]]:
@@ -62,6 +63,7 @@ def _cross_checks(norm: dict) -> list[Problem]:
             out.append(Problem(f"stages[{i}].cooler.coolant_inlet_temperature_K", None,
                                "required when the cooler outlet is given as an approach"))
         out.extend(_coolant_checks(cooler, f"stages[{i}].cooler"))
+    out.extend(year_problems(norm))
     return out
 
 

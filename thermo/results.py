@@ -169,6 +169,7 @@ class TrainResult:
     energy_residual: float
     exergy_residual: float
     warnings: list = field(default_factory=list)
+    recovery: object = None  #: thermo.recovery.RecoveryResult when the project asks for heat recovery
     water: WaterResult | None = None  #: moist intake air only
 
     def to_dict(self) -> dict:
@@ -204,6 +205,8 @@ class TrainResult:
                              "exergy_destroyed_W": self.inlet.exergy_destroyed_W},
             "delivery": point_dict(self.delivery, self.delivery_velocity_m_s, mix),
             "stages": [_stage_dict(s, c, mix) for s, c in zip(self.stages, self.coolers)],
+            "recoverable_heat_W": None if self.recovery is None else self.recovery.recoverable_heat_W,
+            "heat_recovery": _recovery_dict(self.recovery),
             "warnings": [{"field": w.field, "message": w.message} for w in self.warnings],
         }
         d.update(self._water_dict())
@@ -226,6 +229,20 @@ class TrainResult:
                 "delivered_atmospheric_dew_point_K": w.delivered_atmospheric_dew_point_K,
                 "iso8573_humidity_class": w.iso8573_humidity_class,
                 "water_balance_residual": w.water_balance_residual}
+
+
+def _recovery_dict(rec) -> dict | None:
+    if rec is None:
+        return None
+    return {"delivery_temperature_K": rec.delivery_temperature_K,
+            "source_temperature_K": rec.source_temperature_K,
+            "coolers_W": list(rec.coolers_W), "casings_W": list(rec.casings_W),
+            "recoverable_heat_W": rec.recoverable_heat_W,
+            "share_of_driver_input": rec.share_of_driver_input,
+            "operating_hours_per_year": rec.operating_hours_per_year,
+            "heat_per_year_kWh": rec.heat_per_year_kWh,
+            "fuel_saved_per_year_kWh": rec.fuel_saved_per_year_kWh,
+            "value_per_year": rec.value_per_year}
 
 
 def _finite(obj):

@@ -8,7 +8,7 @@ from __future__ import annotations
 
 __all__ = ["FORMAT_NAME", "FORMAT_VERSION", "PROJECT", "STAGE", "COOLER", "EFFICIENCY",
            "FLOW_KINDS", "MODEL_NAMES", "COOLANT", "COOLANT_KINDS", "ARRANGEMENT_NAMES",
-           "HEAT_RECOVERY"]
+           "HEAT_RECOVERY", "YEAR"]
 
 from .schema_types import Choice, Items, Num, Obj, Text, Variant
 
@@ -73,6 +73,29 @@ HEAT_RECOVERY = Obj(nullable=True, default=None, fields={
     "operating_hours_per_year": Num(0.0, 8784.0, unit="h", nullable=True, default=None),
 })
 
+_AMBIENT_ENTRY = {
+    "temperature_K": Num(223.15, 333.15, unit="K", required=True),
+    "relative_humidity": Num(0.0, 1.0, required=True),
+    "load": Num(0.0, 1.0, lo_open=True, nullable=True, default=None),
+    "coolant_inlet_temperature_K": Num(263.15, 373.15, unit="K", nullable=True, default=None),
+}
+
+#: a year at the site: ambient profile, operating hours, load and prices (optional)
+YEAR = Obj(nullable=True, default=None, fields={
+    "profile": Variant(required=True, variants={
+        "monthly": {"months": Items(Obj(fields={**_AMBIENT_ENTRY,
+                                                "hours": Num(0.0, 744.0, unit="h", nullable=True, default=None)}),
+                                    min_length=1, max_length=12, required=True)},
+        "bins": {"bins": Items(Obj(fields={**_AMBIENT_ENTRY, "label": Text(default="", max_length=80),
+                                           "hours": Num(0.0, 8784.0, unit="h", lo_open=True, required=True)}),
+                               min_length=1, max_length=8784, required=True)},
+    }),
+    "operating_hours_per_year": Num(0.0, 8784.0, unit="h", lo_open=True, nullable=True, default=None),
+    "load": Num(0.0, 1.0, lo_open=True, default=1.0),
+    "energy_price_per_kWh": Num(0.0, 100.0, unit="money/kWh", default=0.0),
+    "water_price_per_m3": Num(0.0, 1000.0, unit="money/m³", default=0.0),
+})
+
 PROJECT = Obj(fields={
     "format": Choice((FORMAT_NAME,), default=FORMAT_NAME),
     "version": Num(1, FORMAT_VERSION, integer=True, default=FORMAT_VERSION),
@@ -105,4 +128,5 @@ PROJECT = Obj(fields={
     }),
     "stages": Items(STAGE, min_length=1, max_length=12, required=True),
     "heat_recovery": HEAT_RECOVERY,
+    "year": YEAR,
 })

@@ -1,7 +1,7 @@
 """Solve a project document: pick the model, find the mass flow, balance the train."""
 from __future__ import annotations
 
-__all__ = ["solve", "solve_normalised", "model_for"]
+__all__ = ["solve", "solve_normalised", "model_for", "release_thread_models"]
 
 import atexit
 import threading
@@ -20,6 +20,13 @@ _local = threading.local()
 def _release_models() -> None:
     """Drop cached CoolProp states before interpreter teardown (avoids nanobind leak reports)."""
     getattr(_local, "models", {}).clear()
+
+
+def release_thread_models() -> None:
+    """Drop the calling thread's cached property models (call it in a worker thread before
+    the thread ends: states left in a finished thread are only collected at interpreter
+    teardown, too late for CoolProp)."""
+    _release_models()
 
 
 def model_for(fluid: dict):

@@ -13,6 +13,7 @@ from .humid import MoistAir, check_humid_range, intake_humidity_ratio, is_moist
 from .iso8573 import REFERENCE_PRESSURE, REFERENCE_TEMPERATURE, humidity_class
 from .models.base import PropertyModel
 from .moist_mixture import MoistMixture, make_mixture
+from .recovery import heat_recovery
 from .results import InletResult, TrainResult, Warning_, WaterResult
 from .split import stage_pressure_ratios
 from .stage import solve_stage
@@ -198,6 +199,9 @@ def solve_train(norm: dict, model: PropertyModel, mass_flow: float, detail: bool
         heat_exergy_W=x_heat, exergy_gained_W=x_gain, isothermal_power_W=iso,
         isothermal_efficiency=iso / shaft, second_law_efficiency=x_gain / shaft,
         energy_residual=energy_res, exergy_residual=exergy_res, warnings=warnings, water=water)
+    if norm.get("heat_recovery"):  # moist air: recovery is still reckoned on the dry-air model
+        result.recovery = heat_recovery(norm["heat_recovery"], dry_model, specs, stages, coolers, mass_flow, driver,
+                                        hours=(norm.get("year") or {}).get("operating_hours_per_year"))
     for name in ("shaft_power_W", "energy_residual", "exergy_residual", "second_law_efficiency"):
         if not math.isfinite(getattr(result, name)):
             raise ArithmeticError(f"non-finite {name} in train solve")  # a bug, never user input

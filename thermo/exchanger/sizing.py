@@ -12,13 +12,29 @@ taken from the terminal enthalpy changes,
 so that the ε–NTU and LMTD–F methods give the same UA by construction, and the coolant
 energy balance equals the air-side duty exactly (the coolant outlet follows from its
 enthalpy, :mod:`thermo.exchanger.coolant`).
+
+When the moist air condenses (its outlet lies below its dew point at the cooler
+pressure) one LMTD over the whole exchanger would be wrong: below the dew point the
+air's apparent capacity rate jumps (latent heat). The exchanger is then split at the dew
+point into a **dry zone** (sensible, sized as above) and a **wet zone** sized on an
+enthalpy driving force (:func:`wet_zone`, Braun, Klein & Mitchell 1989; Threlkeld 1970).
+The zones are taken in counter-current series: the coolant meets the wet zone first and
+reaches the dry zone at the boundary temperature :math:`T_{c,b}` from
+:math:`h_c(T_{c,b}) = h_c(T_{c,i}) + \dot Q_{wet}/\dot m_c`. This is exact for counter-flow;
+for the cross-flow and 1-2 shell arrangements it is the usual zone-by-zone approximation
+(each zone treated as its own exchanger of that arrangement). The exchanger's UA is the
+sum of the zones'; its overall ε, NTU and F are then not defined and are reported per
+zone.
 """
 from __future__ import annotations
 
-__all__ = ["HotSide", "Zone", "Exchanger", "size_exchanger", "Infeasible"]
+__all__ = ["HotSide", "Zone", "Exchanger", "size_exchanger", "Infeasible", "dry_zone", "wet_zone"]
 
 import math
 from dataclasses import dataclass, field
+from typing import Callable
+
+from scipy.optimize import brentq
 
 from ..errors import InputError
 from .coolant import CoolantSide, coolant_side
@@ -32,11 +48,26 @@ class Infeasible(InputError):
 
 @dataclass(frozen=True)
 class HotSide:
-    """What the compressed air does in the cooler: terminal temperatures and duty (SI)."""
+    """What the compressed air does in the cooler: terminal temperatures and duty (SI).
+
+    For moist air that condenses, the dew point, the duty down to it and the stream's
+    equilibrium enthalpy ``h(T)`` at the cooler pressure (per kg of ``flow_kg_s``, liquid
+    water included) let the exchanger be split into a dry and a wet zone.
+    """
 
     inlet_temperature_K: float
     outlet_temperature_K: float
     duty_W: float
+    dew_point_K: float | None = None
+    dew_point_duty_W: float = 0.0  #: duty from the inlet down to the dew point, [W]
+    flow_kg_s: float = 0.0  #: flow the enthalpy function refers to (dry air), [kg/s]
+    equilibrium_enthalpy: Callable[[float], float] | None = None  #: h(T) [J/kg] at the cooler pressure
+    moist_cp_J_kgK: float = 0.0  #: specific heat of the unsaturated stream per kg of flow, [J/(kg K)]
+
+    @property
+    def condenses(self) -> bool:
+        return (self.dew_point_K is not None and self.equilibrium_enthalpy is not None
+                and self.outlet_temperature_K < self.dew_point_K < self.inlet_temperature_K)
 
 
 @dataclass(frozen=True)
@@ -68,9 +99,10 @@ class Exchanger:
     zones: list = field(default_factory=list)
     ua_W_K: float = 0.0
     lmtd_K: float = 0.0  #: counter-flow LMTD of the four terminal temperatures, [K]
-    correction_factor: float = 1.0
-    effectiveness: float = 0.0
-    ntu: float = 0.0
+    #: F, ε and NTU of the whole exchanger; None when it condenses (then see each zone)
+    correction_factor: float | None = 1.0
+    effectiveness: float | None = 0.0
+    ntu: float | None = 0.0
 
     @property
     def mean_temperature_difference_K(self) -> float:
@@ -130,6 +162,91 @@ def dry_zone(arrangement: str, t_hi: float, t_ho: float, q: float, t_ci: float, 
     return Zone("dry", q, t_hi, t_ho, t_ci, t_co, c_h, c_c, cr, eps, ntu, lmtd, q / (ua * lmtd), ua)
 
 
+def wet_zone(arrangement: str, hot: HotSide, q: float, t_ci: float, t_cb: float, field_name: str) -> Zone:
+    r"""Size the condensing (wet) zone on an enthalpy driving force [3]_ [4]_ [5]_.
+
+    Below the dew point the air is saturated and sheds latent heat. With a Lewis number
+    of one the local heat flux is driven by the difference between the stream enthalpy
+    and the enthalpy of saturated air at the coolant temperature,
+    :math:`d\dot Q = (UA^*/L)\,[h_a - h_s(T_c)]\,dx`, which makes the zone an exchanger
+    between an "enthalpy" stream of capacity :math:`C^*_a = \dot m_a` and a coolant of
+    capacity :math:`C^*_c = \dot m_c c_{p,c}/c_s`, where :math:`c_s` is the slope of the
+    saturation enthalpy over the coolant's temperature range in the zone. The ε–NTU
+    relation of the arrangement then applies to
+
+    .. math::
+
+        arepsilon^* = rac{\dot Q_{wet}}{C^*_\min\,[h_{a,dew} - h_s(T_{c,i})]}, \qquad
+        UA^* = C^*_\min N(arepsilon^*, C^*_r), \qquad UA_{wet} = c_{p,m}\,UA^*
+
+    The last step takes the air-side film as the controlling resistance (gas coolers:
+    the gas-side coefficient is far below the water-side one), so the thermal
+    conductance of the zone is :math:`c_{p,m}` times its enthalpy conductance.
+
+    Parameters
+    ----------
+    arrangement : str
+        A key of :data:`thermo.exchanger.effectiveness.ARRANGEMENTS`.
+    hot : HotSide
+        The air side (with dew point and equilibrium enthalpy).
+    q : float
+        Zone duty (from the dew point to the outlet), [W].
+    t_ci, t_cb : float
+        Coolant temperature entering the wet zone (the coolant inlet) and leaving it
+        (at the dew-point boundary), [K].
+    field_name : str
+        Input path blamed when the zone cannot be built.
+
+    Returns
+    -------
+    Zone
+        ``effectiveness`` and ``ntu`` on the enthalpy basis; ``ua_W_K`` thermal.
+
+    Raises
+    ------
+    Infeasible
+        If the air would have to be cooled to or below the coolant's saturation enthalpy,
+        or the arrangement cannot reach the effectiveness.
+
+    References
+    ----------
+    .. [3] J. E. Braun, S. A. Klein, J. W. Mitchell, "Effectiveness models for cooling
+       towers and cooling coils", ASHRAE Transactions 95(2) (1989) 164–174.
+    .. [4] J. L. Threlkeld, *Thermal Environmental Engineering*, 2nd ed., Prentice-Hall,
+       1970, ch. 13 (enthalpy potential for combined heat and mass transfer).
+    .. [5] ASHRAE, *Handbook—HVAC Systems and Equipment*, ch. "Coils" (dry and wet
+       zones of a cooling and dehumidifying coil), from memory for the chapter number.
+    """
+    hs = hot.equilibrium_enthalpy
+    m = hot.flow_kg_s
+    t_dew, t_ho = hot.dew_point_K, hot.outlet_temperature_K
+    h_in = hs(t_dew)
+    h_out = h_in - q / m
+    h_ci = hs(t_ci)
+    if h_out <= h_ci or t_ho <= t_ci:
+        raise Infeasible(field_name, t_ho, f"the air would leave at {t_ho:.2f} K, not above the coolant inlet "
+                                           f"{t_ci:.2f} K (approach must be above 0 K)")
+    if t_cb >= t_dew:
+        raise Infeasible(field_name, t_cb, f"the coolant would reach {t_cb:.2f} K at the dew point "
+                                           f"{t_dew:.2f} K: a temperature cross in the condensing zone")
+    c_c = q / (t_cb - t_ci)
+    c_s = (hs(t_cb) - h_ci) / (t_cb - t_ci)
+    ca, cc = m, c_c / c_s
+    c_min, c_max = min(ca, cc), max(ca, cc)
+    cr = c_min / c_max
+    eps = q / (c_min * (h_in - h_ci))
+    limit = max_effectiveness(arrangement, cr, ca <= cc)
+    if eps >= limit:
+        raise Infeasible(field_name, eps, f"the condensing zone needs an effectiveness of {eps:.6g}; the "
+                                          f"{ARRANGEMENTS[arrangement].label} arrangement reaches at most "
+                                          f"{limit:.6g}: the temperatures cross")
+    ntu = ntu_from_effectiveness(arrangement, eps, cr, ca <= cc, field_name)
+    ua = ntu * c_min * hot.moist_cp_J_kgK
+    lmtd = counterflow_lmtd(t_dew, t_ho, t_ci, t_cb, field_name)
+    return Zone("wet", q, t_dew, t_ho, t_ci, t_cb, q / (t_dew - t_ho), c_c, cr, eps, ntu, lmtd,
+                q / (ua * lmtd), ua)
+
+
 def _coolant_field(where: str, flow, rise) -> str:
     return f"{where}.coolant.flow_kg_s" if flow is not None else f"{where}.coolant.temperature_rise_K"
 
@@ -137,11 +254,32 @@ def _coolant_field(where: str, flow, rise) -> str:
 def _size(arrangement, hot: HotSide, fluid, t_ci, flow, rise, where) -> Exchanger:
     side = coolant_side(fluid, t_ci, hot.duty_W, flow=flow, rise=rise, where=where)
     field_name = _coolant_field(where, flow, rise)
+    if hot.condenses:
+        return _size_two_zones(arrangement, hot, fluid, side, field_name)
     zone = dry_zone(arrangement, hot.inlet_temperature_K, hot.outlet_temperature_K, hot.duty_W,
                     t_ci, side.outlet_temperature_K, field_name)
     return Exchanger(arrangement=arrangement, coolant=side, zones=[zone], ua_W_K=zone.ua_W_K,
                      lmtd_K=zone.lmtd_K, correction_factor=zone.correction_factor,
                      effectiveness=zone.effectiveness, ntu=zone.ntu)
+
+
+def _size_two_zones(arrangement, hot: HotSide, fluid, side: CoolantSide, field_name: str) -> Exchanger:
+    """Dry zone (inlet → dew point) and wet zone (dew point → outlet), in counter-current series."""
+    q_dry = hot.dew_point_duty_W
+    q_wet = hot.duty_W - q_dry
+    t_ci = side.inlet_temperature_K
+    t_cb = t_ci
+    if side.flow_kg_s > 0.0 and q_wet > 0.0:
+        h_cb = fluid.h(t_ci) + q_wet / side.flow_kg_s
+        t_cb = brentq(lambda t: fluid.h(t) - h_cb, t_ci, side.outlet_temperature_K, xtol=1e-12, rtol=1e-15)
+    wet = wet_zone(arrangement, hot, q_wet, t_ci, t_cb, field_name)
+    dry = dry_zone(arrangement, hot.inlet_temperature_K, hot.dew_point_K, q_dry, t_cb,
+                   side.outlet_temperature_K, field_name)
+    ua = wet.ua_W_K + dry.ua_W_K
+    lmtd = counterflow_lmtd(hot.inlet_temperature_K, hot.outlet_temperature_K, t_ci, side.outlet_temperature_K,
+                            field_name)
+    return Exchanger(arrangement=arrangement, coolant=side, zones=[dry, wet], ua_W_K=ua, lmtd_K=lmtd,
+                     correction_factor=None, effectiveness=None, ntu=None)
 
 
 def _feasible(arrangement, hot, fluid, t_ci, flow, rise, where) -> bool:

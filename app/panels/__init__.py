@@ -1,0 +1,1 @@
+"""The workbench's dockable panels, one per file."""

@@ -1,0 +1,67 @@
+"""Duty panel: how much air, at what pressure, and the driver that supplies the power."""
+from __future__ import annotations
+
+__all__ = ["DutyPanel", "FLOW_CHOICES"]
+
+from PySide6.QtWidgets import QComboBox, QFormLayout, QVBoxLayout
+
+from ..widgets.choice_field import ChoiceField
+from ..widgets.quantity_field import QuantityField
+from ..widgets.signals_blocked import signals_blocked
+from .base import FieldPanel
+
+FLOW_CHOICES = [
+    ("free_air_delivery", "Free air delivery"),
+    ("normal_volume", "Normal volume flow"),
+    ("mass", "Mass flow"),
+    ("shaft_power", "Shaft power"),
+]
+#: flow kind -> key of the result carrying the same duty, to carry the value across a change
+_RESULT_KEY = {"mass": "mass_flow_kg_s", "free_air_delivery": "free_air_delivery_m3_s",
+               "normal_volume": "normal_volume_flow_m3_s", "shaft_power": "shaft_power_W"}
+
+
+class DutyPanel(FieldPanel):
+    """Flow, discharge pressure, driver efficiency."""
+
+    title = "Duty"
+
+    def __init__(self, editor, parent=None):
+        super().__init__(editor, parent)
+        lay = QVBoxLayout(self)
+        lay.setContentsMargins(10, 8, 10, 8)
+        form = QFormLayout()
+        form.setFieldGrowthPolicy(QFormLayout.AllNonFixedFieldsGrow)
+        lay.addLayout(form)
+        lay.addStretch(1)
+        self.kind = self.add_row(form, "Flow given as", ChoiceField(editor, "flow.kind", FLOW_CHOICES,
+                                                                    self._choose_kind),
+                                 "Free air delivery: volume flow at the intake state. Normal volume: at "
+                                 "0 °C and 1.01325 bar. Shaft power: finds the flow a running machine "
+                                 "moves with the power it draws.")
+        self.add_row(form, "Flow", QuantityField(editor, "flow.value"))
+        self.pressure = self.bind(QuantityField(editor, "discharge_pressure_Pa"))
+        self.gauge = QComboBox()
+        self.gauge.addItems(["Gauge", "Absolute"])
+        self.gauge.setToolTip("Gauge pressure is relative to the site barometric pressure. "
+                              "The project always stores absolute pressure.")
+        self.gauge.activated.connect(lambda i: setattr(editor.prefs, "gauge", i == 0))
+        form.addRow("Discharge pressure", self.pressure)
+        form.addRow("Pressures shown", self.gauge)
+        self.add_row(form, "Driver efficiency", QuantityField(editor, "driver.efficiency"),
+                     "Motor (and drive) efficiency: driver input power = shaft power / efficiency.")
+        self.refresh_all()
+
+    def after_refresh(self) -> None:
+        with signals_blocked(self.gauge):
+            self.gauge.setCurrentIndex(0 if self.editor.prefs.gauge else 1)
+
+    def _choose_kind(self, kind: str) -> None:
+        flow = dict(self.editor.model.get("flow", {}) or {})
+        if flow.get("kind") == kind:
+            return
+        value = flow.get("value")
+        result = self.editor.result
+        if result is not None and not self.editor.stale and result.get(_RESULT_KEY[kind]):
+            value = float(f"{result[_RESULT_KEY[kind]]:.12g}")  # the same duty, expressed anew
+        self.editor.set_value("flow", {"kind": kind, "value": value}, "Change flow basis")

@@ -1,0 +1,131 @@
+"""Messages area: input problems, unreadable entries, a failed solve, result warnings and the
+safety cautions they touch. Clicking a message shows the field it is about."""
+from __future__ import annotations
+
+__all__ = ["MessagesPanel", "Message"]
+
+import re
+from dataclasses import dataclass
+
+from PySide6.QtCore import QSize, Qt, Signal
+from PySide6.QtGui import QColor, QIcon, QPainter, QPixmap
+from PySide6.QtWidgets import QLabel, QListWidget, QListWidgetItem, QVBoxLayout, QWidget
+
+from .. import units
+from ..cautions import CAUTIONS
+from ..doc_paths import get_in, stage_index
+from ..field_specs import describe, problem_message
+
+_CAUTION = dict(CAUTIONS)
+_SEVERITY_COLOUR = {"problem": "#c0392b", "warning": "#d98e04", "caution": "#7b5ea7", "ok": "#2e8b57",
+                    "note": "#5b6b7a"}
+
+
+@dataclass(frozen=True)
+class Message:
+    severity: str  #: problem | warning | caution | ok | note
+    text: str
+    field: str = ""
+
+
+def _dot(colour: str) -> QIcon:
+    pm = QPixmap(14, 14)
+    pm.fill(Qt.transparent)
+    p = QPainter(pm)
+    p.setRenderHint(QPainter.Antialiasing)
+    p.setBrush(QColor(colour))
+    p.setPen(Qt.NoPen)
+    p.drawEllipse(2, 2, 10, 10)
+    p.end()
+    return QIcon(pm)
+
+
+class MessagesPanel(QWidget):
+    """A list of :class:`Message`; ``count_changed(n)`` reports problems + warnings."""
+
+    title = "Messages"
+    count_changed = Signal(int)
+
+    def __init__(self, editor, parent=None):
+        super().__init__(parent)
+        self.editor = editor
+        lay = QVBoxLayout(self)
+        lay.setContentsMargins(6, 4, 6, 4)
+        self.list = QListWidget()
+        self.list.setWordWrap(True)
+        self.list.setIconSize(QSize(14, 14))
+        self.list.setObjectName("messagesList")
+        self.list.itemClicked.connect(self._clicked)
+        self.list.itemActivated.connect(self._clicked)
+        lay.addWidget(self.list, 1)
+        foot = QLabel("Results are a calculation aid; designs must follow local codes. "
+                      "See Help ▸ Safety cautions.")
+        foot.setObjectName("footNote")
+        foot.setWordWrap(True)
+        lay.addWidget(foot)
+        self._icons = {k: _dot(c) for k, c in _SEVERITY_COLOUR.items()}
+        self.messages: list[Message] = []
+        editor.problems_changed.connect(self.refresh)
+        editor.result_changed.connect(self.refresh)
+        editor.prefs.changed.connect(self.refresh)
+        self.refresh()
+
+    # ---- building the list ---------------------------------------------------------------
+    def collect(self) -> list[Message]:
+        ed = self.editor
+        doc = ed.model.doc
+        system, gauge, p0 = ed.prefs.system, ed.prefs.gauge, ed.barometric_Pa()
+        out = [Message("problem", f"{describe(path, doc)}: {text}", path) for path, text in ed.entry_errors.items()]
+        out += [Message("problem", problem_message(p, doc, system, p0, gauge), p.field) for p in ed.problems]
+        if ed.failure is not None and not (ed.problems or ed.entry_errors):
+            message, field = ed.failure
+            out.append(Message("problem", f"The train could not be solved: {message}", field))
+        if ed.result is not None and not ed.stale:
+            cautions = []
+            for w in ed.result.get("warnings", []):
+                out.append(Message("warning", self._warning_text(w), w.get("field", "")))
+                if w.get("field", "").endswith("max_discharge_temperature_K"):
+                    cautions.append("Discharge temperature")
+                if "condensate" in w.get("message", "").lower() or "dew" in w.get("message", "").lower():
+                    cautions.append("Condensate disposal")
+            for title in dict.fromkeys(cautions):
+                out.append(Message("caution", f"Caution — {title.lower()}: {_CAUTION[title]}", ""))
+            if not ed.result.get("warnings"):
+                out.append(Message("ok", "Solved: no warnings.", ""))
+        elif not out and ed.solver.busy:
+            out.append(Message("note", "Solving…", ""))
+        return out
+
+    def _warning_text(self, w: dict) -> str:
+        """Result warnings in display units where the message is one we know how to restate."""
+        field, text = w.get("field", ""), w.get("message", "")
+        i = stage_index(field)
+        r = self.editor.result
+        if i is not None and field.endswith("max_discharge_temperature_K") and i < len(r["stages"]):
+            system = self.editor.prefs.system
+            t_out = r["stages"][i]["outlet"]["temperature_K"]
+            limit = get_in(self.editor.model.doc, field, None)
+            if isinstance(limit, (int, float)):
+                return (f"Stage {i + 1} discharge temperature "
+                        f"{units.format_value(t_out, 'temperature', system, True)} is above its limit of "
+                        f"{units.format_value(limit, 'temperature', system, True)}.")
+        return re.sub(r"^\s*", "", text[:1].upper() + text[1:])
+
+    def refresh(self) -> None:
+        self.messages = self.collect()
+        self.list.clear()
+        for m in self.messages:
+            item = QListWidgetItem(self._icons[m.severity], m.text)
+            item.setData(Qt.UserRole, m.field)
+            tip = m.text + (f"\n\nField: {m.field} (click to show it)" if m.field else "")
+            item.setToolTip(tip)
+            self.list.addItem(item)
+        self.count_changed.emit(sum(m.severity in ("problem", "warning") for m in self.messages))
+
+    def texts(self, severity: str | None = None) -> list[str]:
+        return [m.text for m in self.messages if severity is None or m.severity == severity]
+
+    def _clicked(self, item: QListWidgetItem) -> None:
+        field = item.data(Qt.UserRole)
+        if field:
+            self.editor.request_focus(field)

@@ -1,0 +1,1 @@
+"""Small reusable widgets of the workbench (entry fields, section headers)."""

@@ -1,0 +1,180 @@
+"""An entry field bound to one document path, typed in the display unit of its quantity.
+
+The field shows the SI value of the document converted with :mod:`app.units`, writes back
+only when the user changed the text, and never clamps: text that is not a number is kept,
+marked and reported through :meth:`Editor.set_entry_error`; a number out of range goes into
+the document, where :func:`thermo.document.problems` reports it with the schema's range.
+"""
+from __future__ import annotations
+
+__all__ = ["QuantityField", "parse_number", "format_entry"]
+
+import math
+
+from PySide6.QtCore import Qt, Signal
+from PySide6.QtWidgets import QHBoxLayout, QLabel, QLineEdit, QWidget
+
+from .. import units
+from ..doc_paths import ABSENT
+from ..field_specs import quantity_for, spec_for
+from .signals_blocked import signals_blocked
+
+ENTRY_DIGITS = 12  # significant digits kept from what was typed (far beyond any entry)
+
+
+def parse_number(text: str) -> float | None:
+    """Read a typed number; spaces as thousands separators are allowed. None if unreadable.
+
+    >>> parse_number(" 1 234.5 "), parse_number("8,5"), parse_number("abc"), parse_number("1e3")
+    (1234.5, None, None, 1000.0)
+    """
+    cleaned = text.strip().replace(" ", "").replace("\u202f", "").replace("\u00a0", "")
+    try:
+        value = float(cleaned)
+    except ValueError:
+        return None
+    return value if math.isfinite(value) else None
+
+
+def format_entry(shown: float, decimals: int) -> str:
+    """Text for an entry field: the unit's decimals plus two, trailing zeros removed.
+
+    >>> format_entry(25.0, 2), format_entry(8.490091, 4), format_entry(-0.5, 1)
+    ('25', '8.490091', '-0.5')
+    """
+    text = f"{shown:.{decimals + 2}f}"
+    if "." in text:
+        text = text.rstrip("0").rstrip(".")
+    return "0" if text in ("-0", "") else text
+
+
+class QuantityField(QWidget):
+    """``[ 82        ] %`` — a line edit and its unit, bound to ``path`` in the editor's document.
+
+    Parameters
+    ----------
+    editor : Editor
+    path : str
+        Document path; change it with :meth:`set_path` (stage forms rebind on selection).
+    nullable : bool
+        An empty field clears the value (the placeholder says what that means).
+    """
+
+    committed = Signal(str)  #: path, after an accepted edit
+
+    def __init__(self, editor, path: str = "", nullable: bool = False, placeholder: str = "",
+                 parent=None):
+        super().__init__(parent)
+        self.editor = editor
+        self.path = path
+        self.nullable = nullable
+        self._shown_text = ""
+        self.edit = QLineEdit(self)
+        self.edit.setAlignment(Qt.AlignRight | Qt.AlignVCenter)
+        self.edit.setPlaceholderText(placeholder)
+        self.edit.setMinimumWidth(72)
+        self.unit_label = QLabel(self)
+        self.unit_label.setMinimumWidth(40)
+        self.unit_label.setObjectName("unitLabel")
+        lay = QHBoxLayout(self)
+        lay.setContentsMargins(0, 0, 0, 0)
+        lay.setSpacing(6)
+        lay.addWidget(self.edit, 1)
+        lay.addWidget(self.unit_label, 0)
+        self.edit.editingFinished.connect(self.commit)
+        self.setFocusProxy(self.edit)
+
+    # ---- display -------------------------------------------------------------------------
+    def _unit(self) -> units.Unit:
+        doc = self.editor.model.doc
+        quantity = quantity_for(self.path, doc) or "ratio"
+        prefs = self.editor.prefs
+        if quantity == "pressure":
+            spec = spec_for(self.path)
+            gauge = prefs.gauge and bool(spec and spec.gauge_aware)
+            return units.unit(quantity, prefs.system, gauge=gauge, barometric_Pa=self.editor.barometric_Pa())
+        return units.unit(quantity, prefs.system)
+
+    def set_path(self, path: str) -> None:
+        self.path = path
+        self.refresh()
+
+    def refresh(self) -> None:
+        """Show the document's value in the current unit; drop any unread text."""
+        if self.path in self.editor.entry_errors:
+            self.editor.set_entry_error(self.path, None)
+        u = self._unit()
+        self.unit_label.setText(u.symbol)
+        value = self.editor.model.get(self.path)
+        if value is ABSENT or value is None:
+            norm = _normalised_default(self.editor, self.path)
+            value = norm
+        if value is ABSENT or value is None:
+            text = ""
+        elif isinstance(value, (int, float)) and not isinstance(value, bool):
+            text = format_entry(u.to_display(float(value)), u.decimals)
+        else:
+            text = str(value)
+        with signals_blocked(self.edit):
+            self.edit.setText(text)
+            self.edit.setModified(False)
+            self.edit.setCursorPosition(0)
+        self._shown_text = text
+        self._fit(text)
+        self.update_mark()
+
+    def _fit(self, text: str) -> None:
+        """Widen the field so that a shown value is never cut off (leading digits matter)."""
+        needed = self.edit.fontMetrics().horizontalAdvance(text + "00") + 12
+        self.edit.setMinimumWidth(max(72, needed))
+
+    def update_mark(self) -> None:
+        """Mark the field red with the reason as tooltip when the editor knows a problem with it."""
+        message = self.editor.problem_for(self.path)
+        invalid = message is not None
+        if self.edit.property("invalid") != invalid:
+            self.edit.setProperty("invalid", invalid)
+            self.edit.style().unpolish(self.edit)
+            self.edit.style().polish(self.edit)
+        self.edit.setToolTip(message or "")
+
+    # ---- editing -------------------------------------------------------------------------
+    def commit(self) -> None:
+        """Turn the typed text into an SI value and push it as one undo step."""
+        text = self.edit.text().strip()
+        if not self.edit.isModified() and self.path not in self.editor.entry_errors:
+            return
+        self.edit.setModified(False)
+        if text == self._shown_text and self.path not in self.editor.entry_errors:
+            return
+        if text == "":
+            if self.nullable:
+                self.editor.set_entry_error(self.path, None)
+                self.editor.set_value(self.path, ABSENT)
+                self.refresh()
+                self.committed.emit(self.path)
+                return
+            self.editor.set_entry_error(self.path, "a value is required here")
+            self.update_mark()
+            return
+        shown = parse_number(text)
+        if shown is None:
+            self.editor.set_entry_error(
+                self.path, f"'{text}' is not a number (use digits, a point for decimals, e.g. 12.5)")
+            self.update_mark()
+            return
+        si = float(f"{self._unit().to_si(shown):.{ENTRY_DIGITS}g}")
+        self.editor.set_entry_error(self.path, None)
+        changed = self.editor.set_value(self.path, si)
+        if not changed:
+            self.refresh()
+        self.committed.emit(self.path)
+
+    def text(self) -> str:
+        return self.edit.text()
+
+
+def _normalised_default(editor, path: str):
+    """Schema default for a key the document leaves out (shown, not written)."""
+    from ..doc_paths import get_in
+    return get_in(editor.model.normalised(), path, ABSENT)

@@ -1,0 +1,62 @@
+"""Helpers for the tests that drive the real window offscreen (pytest-qt)."""
+from __future__ import annotations
+
+import copy
+import json
+from pathlib import Path
+
+import pytest
+
+ROOT = Path(__file__).resolve().parent.parent
+SAMPLE = ROOT / "sample_projects" / "two_stage_plant_air.json"
+SOLVE_TIMEOUT_MS = 60_000
+
+
+def simple_real_gas_doc(stages: int = 2, eta: float = 0.8) -> dict:
+    """Invented train: real-gas air, 1 kg/s, 1 bar(a) and 20 °C, to 9 bar(a); every cooler
+    brings the air back to 20 °C with no pressure drop, so the equal split is exactly 3."""
+    return copy.deepcopy({
+        "site": {"ambient_temperature_K": 293.15, "barometric_pressure_Pa": 100_000.0},
+        "fluid": {"model": "real_gas"},
+        "flow": {"kind": "mass", "value": 1.0},
+        "discharge_pressure_Pa": 900_000.0,
+        "stages": [{"name": f"S{i + 1}", "efficiency": {"kind": "isentropic", "value": eta},
+                    "cooler": {"outlet_temperature_K": 293.15, "pressure_drop_Pa": 0.0}}
+                   for i in range(stages)],
+    })
+
+
+def make_window(qtbot, tmp_path, doc=None):
+    from PySide6.QtCore import QSettings
+
+    from app.main_window import MainWindow
+    settings = QSettings(str(tmp_path / "settings.ini"), QSettings.IniFormat)
+    win = MainWindow(doc if doc is not None else json.loads(SAMPLE.read_text(encoding="utf-8")),
+                     settings=settings, debounce_ms=10, restore_layout=False)
+    win.ask_save_changes = lambda: "discard"  # never a modal question in a test
+    qtbot.addWidget(win)
+    win.show()
+    wait_solved(qtbot, win, 0)
+    return win
+
+
+def wait_solved(qtbot, win, after: int) -> None:
+    """Wait until a solve newer than ``after`` answered and the result is current."""
+    ed = win.editor
+    qtbot.waitUntil(lambda: ed.solved_jobs > after and not ed.stale and not ed.solver.busy,
+                    timeout=SOLVE_TIMEOUT_MS)
+
+
+def type_into(qtbot, field, text: str) -> None:
+    """Replace a QuantityField's text as a user would and press Return."""
+    from PySide6.QtCore import Qt
+    field.edit.clear()
+    qtbot.keyClicks(field.edit, text)
+    qtbot.keyClick(field.edit, Qt.Key_Return)
+
+
+@pytest.fixture
+def window(qtbot, tmp_path):
+    win = make_window(qtbot, tmp_path)
+    yield win
+    win.close()
