@@ -48,6 +48,8 @@ ACTIONS = [
     ActionSpec("train.toggle_cooler", "Add cooler", "train.toggle_cooler", "Ctrl+Shift+C", "cooler",
                "Add or remove the cooler after the selected stage"),
     ActionSpec("train.solve", "Solve now", "window.solve_now", "F5", "", "Solve the train again now"),
+    ActionSpec("train.study", "Run staging study", "window.run_study", "F6", "run_study",
+               "Compare 1 to N stages, each at its best split within the stage limits", False, "Study"),
     ActionSpec("view.us_units", "US customary units", "window.set_us_units", "Ctrl+U", "",
                "Show every field and table in US customary units (the project stays in SI)", True,
                "US units"),
@@ -66,10 +68,10 @@ MENUS = {
               "file.export", "-", "file.quit"],
     "&Edit": ["@undo", "@redo"],
     "&Train": ["train.add_stage", "train.insert_stage", "train.duplicate_stage", "train.remove_stage", "-",
-               "train.move_up", "train.move_down", "-", "train.toggle_cooler", "-", "train.solve"],
+               "train.move_up", "train.move_down", "-", "train.toggle_cooler", "-", "train.solve", "train.study"],
     "&View": ["view.us_units", "view.gauge", "-", "@panels", "-", "view.reset_layout"],
     "&Help": ["help.cautions", "-", "help.about"],
 }
 
 TOOLBAR = ["file.new", "file.open", "file.save", "-", "@undo", "@redo", "-", "train.add_stage",
-           "train.remove_stage", "train.toggle_cooler", "-", "view.us_units"]
+           "train.remove_stage", "train.toggle_cooler", "-", "train.study", "-", "view.us_units"]

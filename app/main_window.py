@@ -22,6 +22,7 @@ from .editor import Editor
 from .export_ops import ExportOps
 from .file_ops import FileOps
 from .recovery_ops import AUTOSAVE_MS, RecoveryOps
+from .study_ops import StudyOps
 from .help_dialogs import CautionsDialog, about_text
 from .icons import icon
 from .panels.balance_panel import BalancePanel
@@ -34,7 +35,7 @@ from .panels.train_panel import TrainPanel
 STATE_VERSION = 1  #: bump when panels are added or renamed, so old saved layouts are ignored
 
 
-class MainWindow(FileOps, ExportOps, RecoveryOps, QMainWindow):
+class MainWindow(FileOps, ExportOps, RecoveryOps, StudyOps, QMainWindow):
     """One project per window.
 
     Parameters
@@ -330,6 +331,7 @@ class MainWindow(FileOps, ExportOps, RecoveryOps, QMainWindow):
             event.ignore()
             return
         self.wait_for_export()
+        self.stop_study()
         self.clear_recovery_file()  # a clean exit: the work is saved or was let go
         self.editor.shutdown()
         self.settings.setValue("window/geometry", self.saveGeometry())
