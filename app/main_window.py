@@ -308,7 +308,15 @@ class MainWindow(FileOps, ExportOps, RecoveryOps, StudyOps, QMainWindow):
             self._default_state = self.saveState(STATE_VERSION)
             if self._restore_layout:
                 QTimer.singleShot(0, self._restore_saved_layout)
-            QTimer.singleShot(0, self.charts.ensure_canvases)  # matplotlib after the first paint
+            # matplotlib (slow to import) only after the first paint and the first answer, so
+            # the balance sheet is filled first; a timer in case that answer takes long
+            self.editor.result_changed.connect(self._load_charts_soon)
+            QTimer.singleShot(1500, self.charts.ensure_canvases)
+
+    def _load_charts_soon(self) -> None:
+        if self.editor.solved_jobs or self.editor.failure or not self.editor.solver.busy:
+            self.editor.result_changed.disconnect(self._load_charts_soon)
+            QTimer.singleShot(10, self.charts.ensure_canvases)
 
     def _restore_saved_layout(self) -> None:
         geometry = self.settings.value("window/geometry")

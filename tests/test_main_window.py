@@ -324,3 +324,29 @@ def test_staging_study_runs_off_the_gui_thread_and_fills_its_tab(qtbot, tmp_path
     win.editor.set_value("stages[0].efficiency.value", 0.75)
     assert tab.stale.isVisibleTo(tab)
     win.close()
+
+
+def test_layout_and_display_choices_are_remembered(qtbot, tmp_path):
+    from PySide6.QtCore import QSettings
+
+    from app.main_window import MainWindow
+    win = make_window(qtbot, tmp_path, simple_real_gas_doc())
+    win.docks["messages"].hide()
+    win.action_map["view.us_units"].trigger()
+    assert win.close()
+    settings = QSettings(str(tmp_path / "settings.ini"), QSettings.IniFormat)
+    assert settings.value("display/system") == "US"
+    again = MainWindow(simple_real_gas_doc(), settings=settings, debounce_ms=10, autosave_ms=None)
+    qtbot.addWidget(again)
+    again.show()
+    qtbot.waitUntil(lambda: not again.docks["messages"].isVisible() and again.docks["site"].isVisible(),
+                    timeout=5000)
+    assert again.prefs.system == "US"
+    settings.setValue("window/state", "not a saved state")  # junk is ignored, never evaluated
+    junk = MainWindow(simple_real_gas_doc(), settings=settings, debounce_ms=10, autosave_ms=None)
+    qtbot.addWidget(junk)
+    junk.show()
+    qtbot.wait(50)
+    assert junk.docks["messages"].isVisible()
+    again.close()
+    junk.close()
