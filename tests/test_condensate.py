@@ -71,9 +71,6 @@ def test_pressure_dew_point_of_unsaturated_delivery_real_vs_dalton():
     assert ri["delivered_pressure_dew_point_K"] == pytest.approx(t_dalton_i, abs=0.01)
 
 
-@pytest.mark.xfail(strict=True, reason="known bug: with liquid carried into a stage, main's polytropic-"
-                   "efficiency search does not converge to its 1e-10 tolerance (the two-phase start of "
-                   "the path is not yet smooth enough in the efficiency)")
 def test_separator_carry_over_evaporates_in_the_next_stage_and_water_is_conserved():
     r = thermo.solve(case(stages=2, p_d=9e5, sep=0.7)).to_dict()
     c1, c2 = r["stages"][0]["cooler"], r["stages"][1]["cooler"]

@@ -156,16 +156,18 @@ from tests.conftest import ROOT
 BASELINE = json.loads((ROOT / "tests" / "data" / "dry_baseline.json").read_text())
 
 
-def _same(expected, got, path=""):
-    """Every key of ``expected`` is in ``got`` with exactly the same value (floats bit-equal)."""
+def _same(expected, got, path="", rel=0.0):
+    """Every key of ``expected`` is in ``got`` with the same value (floats within ``rel``; 0 = bit-equal)."""
     if isinstance(expected, dict):
         for k, v in expected.items():
             assert k in got, f"{path}.{k} missing"
-            _same(v, got[k], f"{path}.{k}")
+            _same(v, got[k], f"{path}.{k}", rel)
     elif isinstance(expected, list):
         assert len(expected) == len(got), f"{path}: length {len(got)} != {len(expected)}"
         for i, (a, b) in enumerate(zip(expected, got)):
-            _same(a, b, f"{path}[{i}]")
+            _same(a, b, f"{path}[{i}]", rel)
+    elif rel and isinstance(expected, float) and isinstance(got, float):
+        assert got == pytest.approx(expected, rel=rel, abs=1e-13), f"{path}: {got!r} != {expected!r}"
     else:
         assert got == expected, f"{path}: {got!r} != {expected!r}"
 
@@ -173,19 +175,22 @@ def _same(expected, got, path=""):
 @pytest.mark.parametrize("name", sorted(BASELINE))
 def test_dry_intake_reproduces_the_dry_air_core_exactly(name):
     # Regression baseline (not a physics check; those live in test_stage/test_models): the
-    # dry-air results of main just before moist air landed (commit 4ca441c). Moist air must
-    # not change one bit of a dry solve; json stores floats by repr, so == is bit equality.
+    # dry-air results of main just before moist air landed (commit 4ca441c); moist air landed
+    # bit-identical to it. Later numerical work on the dry core (a different root finder in
+    # the pressure split) may move the last bits only: 1e-12 relative (1e-13 absolute for the
+    # closure residuals, which are rounding noise of order 1e-16).
     case = BASELINE[name]
-    _same(case["result"], thermo.solve(copy.deepcopy(case["doc"])).to_dict())
+    _same(case["result"], thermo.solve(copy.deepcopy(case["doc"])).to_dict(), rel=1e-12)
 
 
 @pytest.mark.parametrize("humidity", [{"relative_humidity": 0.0}, {"humidity_ratio": 0.0}, {}])
 def test_zero_humidity_given_any_way_is_the_dry_path(humidity):
-    case = BASELINE["real_gas_isentropic_3"]
-    doc = copy.deepcopy(case["doc"])
-    doc["site"].pop("relative_humidity", None)
+    # a zero humidity, given any way, takes exactly the dry path: bit-equal results
+    dry = copy.deepcopy(BASELINE["real_gas_isentropic_3"]["doc"])
+    dry["site"].pop("relative_humidity", None)
+    doc = copy.deepcopy(dry)
     doc["site"].update(humidity)
-    _same(case["result"], thermo.solve(doc).to_dict())
+    _same(thermo.solve(dry).to_dict(), thermo.solve(doc).to_dict())
 
 
 # ---- moist intake air: conservation and the second law, property-based ----------------------

@@ -18,6 +18,7 @@ from .models.newton import invert_temperature
 from .moist_mixture import MoistMixture
 from .saturation import T_IF97_MIN
 
+_LIQUID_NEGLIGIBLE = 1e-9  # liquid share (of the stream's water) treated as none on a path
 _DT = 1e-3  # central-difference step in T for two-phase derivatives, [K]
 _DP = 1e-6  # relative central-difference step in p for two-phase derivatives
 
@@ -131,7 +132,19 @@ class MoistAir:
 
     def polytropic_slope(self, T: float, P: float, efficiency: float) -> float:
         check_range(T, P, "polytropic path")
+        if self.split(T, P)[1] <= _LIQUID_NEGLIGIBLE * self.water:
+            return self._slope_vapour(T, P, efficiency)
         _, _, v, cp, hp, _, _ = self._state(T, P, slope=True)
+        return P * (v / efficiency - hp) / cp
+
+    def _slope_vapour(self, T: float, P: float, efficiency: float) -> float:
+        """Polytropic slope with all the water as vapour (no latent heat in cp).
+
+        Used wherever the stream holds no liquid: at a saturated stage inlet a liquid share
+        of rounding size would otherwise put the latent heat into a finite-difference cp
+        and make the path jump.
+        """
+        _, _, v, cp, hp = self.mixture.gas(T, P, self.water, True)
         return P * (v / efficiency - hp) / cp
 
     def _h_saturated(self, T: float, P: float) -> float:
@@ -194,7 +207,7 @@ class MoistAir:
         h, s, v, _, _ = self.mixture.gas(T, P, self.water, False)
         pts = [inlet, Point(T, P, h, s, (1.0 + self.water) / v, self.water, 0.0)]
         x, step = x0 + dx, (span - dx) / n
-        f = lambda yy, xx: self.polytropic_slope(math.exp(yy), math.exp(xx), efficiency) / math.exp(yy)
+        f = lambda yy, xx: self._slope_vapour(math.exp(yy), math.exp(xx), efficiency) / math.exp(yy)
         for k in range(n):  # the dry remainder, classical RK4 on ln T against ln p
             k1 = f(y, x)
             k2 = f(y + 0.5 * step * k1, x + 0.5 * step)
