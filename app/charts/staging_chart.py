@@ -48,7 +48,8 @@ def _fit_label(fig, text: str) -> str:
     return " ".join(words[:half]) + "\n" + " ".join(words[half:])
 
 
-def draw_staging_chart(fig: Figure, study_rows: list[dict], system: str = "SI", limit_K: float | None = None) -> Figure:
+def draw_staging_chart(fig: Figure, study_rows: list[dict], system: str = "SI", limit_K: float | None = None,
+                       title: str | None = "Staging study") -> Figure:
     """Draw power and discharge temperature against the number of stages into ``fig``.
 
     Parameters
@@ -63,6 +64,8 @@ def draw_staging_chart(fig: Figure, study_rows: list[dict], system: str = "SI", 
         Display units, ``"SI"`` or ``"US"``.
     limit_K : float, optional
         A discharge-temperature limit to draw, [K].
+    title : str or None
+        Title above the axes (None: none, where the chart sits under a heading of its own).
 
     Returns
     -------
@@ -92,7 +95,7 @@ def draw_staging_chart(fig: Figure, study_rows: list[dict], system: str = "SI", 
                         markerfacecolor=colour if ok else style.PAPER, markeredgewidth=1.2, zorder=4)
     if limit_K is not None:
         ax_t.axhline(tu.to_display(limit_K), color=style.LIMIT, lw=1.0, ls=(0, (6, 2)), gid="staging-limit")
-    style.style_axes(ax, title="Staging study", xlabel="Number of stages",
+    style.style_axes(ax, title=title, xlabel="Number of stages",
                      ylabel=units.label("Driver power", "power", system))
     ax.xaxis.set_major_locator(MaxNLocator(integer=True))
     ax_t.spines["top"].set_visible(False)
