@@ -151,20 +151,19 @@ def _message(b: dict, n: int, system: str, pkw: dict) -> str:
     if kind == "temperature" and isinstance(lim, (int, float)):
         if active:
             return f"{opt}: stage {i + 1} is held at its discharge-temperature limit of {t(lim)}."
-        return (f"{opt} does not meet the discharge-temperature limit of {t(lim)}: the closest split still "
-                f"discharges {t(val)} from stage {i + 1}; the lowest limit it can meet is {t(need)} "
-                "(or add stages).")
+        return (f"{opt} exceeds the discharge-temperature limit of {t(lim)}: its best split still "
+                f"discharges {t(val)} from stage {i + 1}. Add stages.")
     if kind in ("cooler", "approach") and isinstance(val, (int, float)):
         if active:
             return f"{opt}: stage {i + 1} discharges just at its {cooler}'s outlet temperature, {t(val)}."
         if kind == "approach":
-            what = f"outlet (approach {t(lim, 'temperature_difference')})"
+            what = f"outlet at an approach of {t(lim, 'temperature_difference')}"
             fix = f"an approach of at most {t(need, 'temperature_difference')}"
         else:
             what = f"outlet temperature of {t(lim)}"
-            fix = f"an outlet temperature of at most {t(need)}"
-        return (f"{opt} is not possible: stage {i + 1} discharges at most {t(val)}, below its {cooler}'s {what}, "
-                f"and a cooler cannot heat the air; {fix} would do (or use fewer stages).")
+            fix = f"a cooler outlet of at most {t(need)}"
+        return (f"{opt} is not possible: stage {i + 1} discharges at most {t(val)}, below its {cooler}'s {what} "
+                f"(a cooler cannot heat the air). Use fewer stages or {fix}.")
     if kind in ("min_ratio", "max_ratio") and isinstance(lim, (int, float)):
         which = "lowest" if kind == "min_ratio" else "highest"
         if active:

@@ -58,14 +58,13 @@ LIMITS = [
     ({"field": "stages[0].max_discharge_temperature_K", "limit": 450.0, "value": 613.15,
       "closest_feasible": 613.15, "status": "violated"},
      "warning", "stages[0].max_discharge_temperature_K",
-     "2-stage option does not meet the discharge-temperature limit of 350.3 °F: the closest split still "
-     "discharges 644.0 °F from stage 1; the lowest limit it can meet is 644.0 °F (or add stages)."),
+     "2-stage option exceeds the discharge-temperature limit of 350.3 °F: its best split still discharges "
+     "644.0 °F from stage 1. Add stages."),
     ({"field": "stages[1].cooler.approach_K", "limit": 10.0, "value": 300.0, "closest_feasible": 5.0,
       "status": "violated"},
      "warning", "stages[2].cooler.approach_K",
      "2-stage option is not possible: stage 2 discharges at most 80.3 °F, below its aftercooler's outlet "
-     "(approach 18.0 °F), and a cooler cannot heat the air; an approach of at most 9.0 °F would do "
-     "(or use fewer stages)."),
+     "at an approach of 18.0 °F (a cooler cannot heat the air). Use fewer stages or an approach of at most 9.0 °F."),
     ({"field": "stages[0].cooler.outlet_temperature_K", "limit": 303.15, "value": 303.15,
       "closest_feasible": None, "status": "active"},
      "note", "stages[0].cooler.outlet_temperature_K",

@@ -237,3 +237,30 @@ def test_closing_the_window_stops_the_study_thread(qtbot, tmp_path):
     assert panel.controller._thread.isRunning()
     assert win.close()
     assert not panel.controller._thread.isRunning()
+
+
+def test_the_panel_has_a_view_toggle_and_its_layout_is_remembered(qtbot, tmp_path):
+    from PySide6.QtCore import QSettings
+    from PySide6.QtWidgets import QToolBar
+
+    from app.main_window import MainWindow
+    win = make_window(qtbot, tmp_path, perfect_gas_doc())
+    view = next(a.menu() for a in win.menuBar().actions() if a.text() == "&View")
+    toggle = next(a for a in view.actions() if a.text() == "Staging study")
+    study = next(a.menu() for a in win.menuBar().actions() if a.text() == "&Study")
+    assert win.action_map["study.run"] in study.actions()
+    assert not win.action_map["study.run"].icon().isNull()  # icons/run_study.svg
+    assert win.action_map["study.run"] in win.findChild(QToolBar, "toolbar-main").actions()
+    win.docks["study"].setFloating(True)
+    toggle.trigger()
+    assert not win.docks["study"].isVisible()
+    assert win.close()
+
+    settings = QSettings(str(tmp_path / "settings.ini"), QSettings.IniFormat)
+    again = MainWindow(perfect_gas_doc(), settings=settings, debounce_ms=10, restore_layout=True)
+    again.ask_save_changes = lambda: "discard"
+    qtbot.addWidget(again)
+    again.show()
+    qtbot.waitUntil(lambda: again.docks["study"].isFloating() and not again.docks["study"].isVisible(),
+                    timeout=5000)
+    again.close()
