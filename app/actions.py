@@ -30,6 +30,8 @@ ACTIONS = [
     ActionSpec("file.save", "&Save", "window.save", "Save", "std:SP_DialogSaveButton", "Save the project"),
     ActionSpec("file.save_as", "Save &As…", "window.save_as", "SaveAs", "", "Save under another name"),
     ActionSpec("file.revert", "&Revert to Saved", "window.revert", "", "", "Discard changes since the last save"),
+    ActionSpec("file.export", "&Export Report…", "window.export_report_dialog", "Ctrl+E", "",
+               "Write the PDF report (and the CSV balance sheet) of the current results"),
     ActionSpec("file.quit", "&Quit", "window.close", "Quit"),
     ActionSpec("train.add_stage", "Add stage", "train.add_stage", "Ctrl+Shift+A", "stage_add",
                "Add a stage at the end of the train (a copy of the last one)"),
@@ -68,7 +70,7 @@ ACTIONS = [
 #: "@undo" / "@redo" the undo stack's actions, "@panels" the panel toggles
 MENUS = {
     "&File": ["file.new", "file.open", "@recent", "-", "file.save", "file.save_as", "file.revert", "-",
-              "file.quit"],
+              "file.export", "-", "file.quit"],
     "&Edit": ["@undo", "@redo"],
     "&Train": ["train.add_stage", "train.insert_stage", "train.duplicate_stage", "train.remove_stage", "-",
                "train.move_up", "train.move_down", "-", "train.toggle_cooler", "-", "train.solve"],

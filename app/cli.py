@@ -69,18 +69,28 @@ def _solve(args) -> int:
 
 def _check(args) -> int:
     from thermo import StagewrightError
-    from thermo.project import load
+    from thermo.project.parse import read_limited
+    from thermo.project.reading import read_document
+    from thermo.schema import FORMAT_VERSION
 
     status = EXIT_OK
-    for path in expand_paths(args.files):
+    paths = expand_paths(args.files)
+    for item in args.files:
+        if Path(item).is_dir() and not any(Path(item).glob("*.json")):
+            print(f"{item}: no *.json files in this folder")
+            status = EXIT_INPUT
+    for path in paths:
         try:
-            load(path)
+            _, declared = read_document(read_limited(path))
         except StagewrightError as exc:
             for problem in getattr(exc, "problems", None) or [exc]:
                 print(f"{path}: {problem}")
             status = EXIT_INPUT
             continue
-        print(f"{path}: ok" if len(args.files) > 1 else "ok")
+        ok = "ok" if declared == FORMAT_VERSION else \
+            f"ok (format version {declared}; saving it upgrades it to version {FORMAT_VERSION})"
+        single = len(args.files) == 1 and not Path(args.files[0]).is_dir()
+        print(ok if single else f"{path}: {ok}")
     return status
 
 

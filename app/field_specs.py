@@ -66,6 +66,18 @@ _SPECS = {
     "stages[*].cooler.coolant_inlet_temperature_K": FieldSpec("coolant inlet temperature", "temperature"),
     "stages[*].cooler.pressure_drop_Pa": FieldSpec("cooler pressure drop", "pressure_difference"),
     "stages[*].cooler.separator_efficiency": FieldSpec("separator efficiency", "fraction"),
+    "stages[*].cooler.ua_W_K": FieldSpec("cooler UA", "conductance"),
+    "stages[*].cooler.arrangement": FieldSpec("cooler flow arrangement"),
+    "stages[*].cooler.coolant": FieldSpec("cooler coolant side"),
+    "stages[*].cooler.coolant.kind": FieldSpec("coolant"),
+    "stages[*].cooler.coolant.glycol": FieldSpec("glycol type"),
+    "stages[*].cooler.coolant.glycol_fraction": FieldSpec("glycol mass fraction", "fraction"),
+    "stages[*].cooler.coolant.flow_kg_s": FieldSpec("coolant flow", "mass_flow"),
+    "stages[*].cooler.coolant.temperature_rise_K": FieldSpec("coolant temperature rise", "temperature_difference"),
+    "heat_recovery.delivery_temperature_K": FieldSpec("heat recovery delivery temperature", "temperature"),
+    "heat_recovery.approach_K": FieldSpec("heat recovery approach", "temperature_difference"),
+    "heat_recovery.casing_share": FieldSpec("recovered share of casing heat", "fraction"),
+    "heat_recovery.boiler_efficiency": FieldSpec("boiler efficiency", "fraction"),
 }
 
 _INDEX = re.compile(r"\[\d+\]")

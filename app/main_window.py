@@ -8,7 +8,8 @@ from pathlib import Path
 
 from PySide6.QtCore import QSettings, Qt, QTimer
 from PySide6.QtGui import QAction, QKeySequence
-from PySide6.QtWidgets import QDockWidget, QLabel, QMainWindow, QMessageBox, QStyle, QWidget
+from PySide6.QtWidgets import (QDockWidget, QFrame, QLabel, QMainWindow, QMessageBox, QScrollArea, QStyle,
+                               QWidget)
 
 import thermo
 from thermo.coolprop_adapter import eos_reference
@@ -18,6 +19,7 @@ from .actions import ACTIONS, MENUS, TOOLBAR
 from .display_prefs import DisplayPrefs
 from .document_model import ProjectModel
 from .editor import Editor
+from .export_ops import ExportOps
 from .file_ops import FileOps
 from .help_dialogs import CautionsDialog, about_text
 from .icons import icon
@@ -32,7 +34,7 @@ from .panels.train_panel import TrainPanel
 STATE_VERSION = 2  #: bump when panels are added or renamed, so old saved layouts are ignored
 
 
-class MainWindow(FileOps, QMainWindow):
+class MainWindow(FileOps, ExportOps, QMainWindow):
     """One project per window.
 
     Parameters
@@ -67,8 +69,8 @@ class MainWindow(FileOps, QMainWindow):
         self.setCentralWidget(self.charts)
         self.panels["charts"] = self.charts
         self._build_actions()
-        self.add_panel("site", SitePanel(self.editor), Qt.LeftDockWidgetArea)
-        self.add_panel("duty", DutyPanel(self.editor), Qt.LeftDockWidgetArea)
+        self.add_panel("site", SitePanel(self.editor), Qt.LeftDockWidgetArea, scroll=True)
+        self.add_panel("duty", DutyPanel(self.editor), Qt.LeftDockWidgetArea, scroll=True)
         self.add_panel("train", TrainPanel(self.editor), Qt.RightDockWidgetArea)
         self.add_panel("messages", MessagesPanel(self.editor), Qt.LeftDockWidgetArea)
         self.add_panel("balance", BalancePanel(self.editor), Qt.BottomDockWidgetArea)
@@ -105,11 +107,23 @@ class MainWindow(FileOps, QMainWindow):
 
     # ---- panels --------------------------------------------------------------------------
     def add_panel(self, pid: str, widget: QWidget, area, split_from: str | None = None,
-                  orientation=Qt.Vertical, tabify_with: str | None = None) -> QDockWidget:
-        """Put ``widget`` in a dock (object name ``panel-<id>`` for saveState) with a View toggle."""
+                  orientation=Qt.Vertical, tabify_with: str | None = None,
+                  scroll: bool = False) -> QDockWidget:
+        """Put ``widget`` in a dock (object name ``panel-<id>`` for saveState) with a View toggle.
+
+        With ``scroll`` the panel sits in a scroll area: a narrow dock scrolls instead of
+        cutting fields off or forcing the window wider.
+        """
         dock = QDockWidget(widget.title.replace("&", "&&"), self)
         dock.setObjectName(f"panel-{pid}")
-        dock.setWidget(widget)
+        if scroll:
+            area_widget = QScrollArea()
+            area_widget.setWidgetResizable(True)
+            area_widget.setFrameShape(QFrame.NoFrame)
+            area_widget.setWidget(widget)
+            dock.setWidget(area_widget)
+        else:
+            dock.setWidget(widget)
         dock.setFeatures(QDockWidget.DockWidgetMovable | QDockWidget.DockWidgetFloatable
                          | QDockWidget.DockWidgetClosable)
         if split_from:
@@ -228,6 +242,8 @@ class MainWindow(FileOps, QMainWindow):
         elif ed.solve_seconds is not None:
             self.status_solve.setText(f"Solved in {ed.solve_seconds * 1000:.0f} ms")
         r = ed.result
+        if ed.solver.busy and r is not None:
+            return  # keep the last closure figures until the new answer arrives
         if r is not None and not ed.stale:
             self.status_residual.setText(f"Closure: energy {r['energy_residual']:.1e} · "
                                          f"exergy {r['exergy_residual']:.1e}")
@@ -264,10 +280,17 @@ class MainWindow(FileOps, QMainWindow):
     def default_layout(self) -> None:
         """Initial dock sizes for the window size (also used by Reset panel layout)."""
         w, h = self.width(), self.height()
-        left = max(300, min(380, int(w * 0.24)))
-        right = max(320, min(420, int(w * 0.26)))
+        bar = self.style().pixelMetric(QStyle.PM_ScrollBarExtent) + 6
+        # wide enough that no form needs its horizontal scroll bar, when the window allows
+        need_left = max(self.panels[p].minimumSizeHint().width() for p in ("site", "duty")) + bar
+        need_right = self.panels["train"].minimumSizeHint().width() + 4
+        left = max(need_left, min(360, int(w * 0.22)))
+        right = max(need_right, min(400, int(w * 0.235)))
+        if w - left - right < 480:  # a small window: share the shortfall, the forms scroll
+            short = 480 - (w - left - right)
+            left, right = max(220, left - short // 2), max(240, right - short // 2)
         self.resizeDocks([self.docks["site"], self.docks["train"]], [left, right], Qt.Horizontal)
-        self.resizeDocks([self.docks["balance"]], [max(240, int(h * 0.38))], Qt.Vertical)
+        self.resizeDocks([self.docks["balance"]], [max(260, min(420, int(h * 0.42)))], Qt.Vertical)
         self.resizeDocks([self.docks["site"], self.docks["duty"], self.docks["messages"]],
                          [int(h * 0.40), int(h * 0.25), int(h * 0.35)], Qt.Vertical)
 
@@ -307,6 +330,7 @@ class MainWindow(FileOps, QMainWindow):
         if not self.maybe_save():
             event.ignore()
             return
+        self.wait_for_export()
         self.panels["study"].shutdown()
         self.editor.shutdown()
         self.settings.setValue("window/geometry", self.saveGeometry())

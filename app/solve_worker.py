@@ -17,7 +17,11 @@ from PySide6.QtCore import QObject, QThread, QTimer, Signal, Slot
 
 
 def _stop_thread(thread: QThread, timeout_ms: int = 10_000) -> None:
-    if thread.isRunning():
+    try:
+        running = thread.isRunning()
+    except RuntimeError:  # its wrapper went first: the thread was already stopped and deleted
+        return
+    if running:
         thread.quit()
         thread.wait(timeout_ms)
 

@@ -26,7 +26,7 @@ QTableWidget {{ gridline-color: #e3e7eb; }}
 QTableWidget[stale="true"] {{ color: #9aa5b1; }}
 QHeaderView::section {{ background: #f1f3f5; border: none; border-right: 1px solid #dde2e7;
                         border-bottom: 1px solid #dde2e7; padding: 3px 6px; font-weight: 600; }}
-QListWidget#trainList::item {{ padding: 3px 2px; }}
+QListWidget#trainList::item {{ padding: 1px 2px; }}
 QListWidget#trainList::item:selected {{ background: #d5ebed; color: #102a2d; }}
 QListWidget#messagesList::item {{ padding: 3px 2px; border-bottom: 1px solid #eef1f4; }}
 QStatusBar QLabel {{ padding: 0 8px; color: #3b4754; }}

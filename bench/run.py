@@ -176,12 +176,51 @@ def case_startup():
     report("window start-up to solved demo (+PNG)", ours, extra=f"peak RSS {peak:.0f} MB")
 
 
+def case_startup_phases():
+    """Start-up milestones of the window (bench/startup.py): shown, solved demo, charts drawn."""
+    if not (ROOT / "app" / "main_window.py").exists():
+        print(f"{'window start-up milestones':<44}  (window not available)")
+        return
+    import startup
+    med = startup.measure(5)
+    for key in startup.MILESTONES:
+        ROWS.append(f"window start-up to {key:<25}{_fmt(med[key])}")
+        print(ROWS[-1], flush=True)
+    print(f"{'window start-up CPU (user + system)':<44}{_fmt(med['cpu'])}", flush=True)
+
+
+def case_report():
+    """Chart drawing (Agg, as the window redraws after a solve) and the PDF + CSV report."""
+    from matplotlib.backends.backend_agg import FigureCanvasAgg
+    from matplotlib.figure import Figure
+    from thermo.project import load
+    from app.charts import draw_power_split, draw_ts_chart
+    from app.report import export_report
+    doc = load(SAMPLES[0])
+    result = thermo.solve(doc).to_dict()
+    fig = Figure(figsize=(7, 4.5), dpi=100)
+    FigureCanvasAgg(fig)
+
+    def ts():
+        draw_ts_chart(fig, result)
+        fig.canvas.draw()
+
+    def split():
+        draw_power_split(fig, result)
+        fig.canvas.draw()
+    report("T–s chart draw + render (Agg)", measure(ts, 10))
+    report("power-split chart draw + render (Agg)", measure(split, 10))
+    with tempfile.TemporaryDirectory() as tmp:
+        report("report PDF + CSV (sample project)",
+               measure(lambda: export_report(doc, result, Path(tmp) / "r.pdf", Path(tmp) / "r.csv"), 5))
+
+
 def _peak_mb() -> float:
     return resource.getrusage(resource.RUSAGE_SELF).ru_maxrss / 1024.0
 
 
 CASES = [case_samples, case_four_stage, case_shaft_power, case_study, case_sweep, case_year,
-         case_files, case_startup]
+         case_files, case_report, case_startup, case_startup_phases]
 
 
 def main(argv: list[str]) -> None:

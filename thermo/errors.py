@@ -7,7 +7,7 @@ window can show it as one line without a traceback.
 from __future__ import annotations
 
 __all__ = ["StagewrightError", "InputError", "SecondLawViolation", "PropertyRangeError",
-           "Problem"]
+           "Problem", "ProjectFileError", "SaveError"]
 
 from dataclasses import dataclass
 from typing import Any
@@ -62,3 +62,25 @@ class SecondLawViolation(StagewrightError):
 
 class PropertyRangeError(StagewrightError):
     """A state lies outside the range of the chosen property model."""
+
+
+class ProjectFileError(StagewrightError):
+    """A file cannot be read as a project: unreadable, too large or too deeply nested, not
+    UTF-8, broken JSON, not a project, or a format version this release does not know.
+
+    Attributes
+    ----------
+    field : str
+        The key concerned (``"version"``, ``"format"``), or ``""`` for a position error.
+    line, column : int or None
+        1-based position in the file, when the problem has one.
+    """
+
+    def __init__(self, message: str, field: str = "", line: int | None = None, column: int | None = None):
+        super().__init__(message, field)
+        self.line = line
+        self.column = column
+
+
+class SaveError(StagewrightError):
+    """A project or recovery file could not be written; the previous file is unchanged."""

@@ -8,8 +8,9 @@ allowed. It never raises on bad data and never evaluates anything.
 """
 from __future__ import annotations
 
-__all__ = ["Num", "Choice", "Text", "Obj", "Variant", "Items", "check", "MISSING"]
+__all__ = ["Num", "Choice", "Text", "Obj", "Variant", "Items", "check", "walk", "MISSING"]
 
+import json
 import math
 from dataclasses import dataclass, field
 from typing import Any
@@ -121,12 +122,14 @@ def _check_fields(fields: dict, v: dict, path: str, out: list, skip=()) -> dict:
     for key in v:
         if key not in fields and key not in skip:
             known = ", ".join(sorted(list(fields) + list(skip)))
-            out.append(Problem(f"{prefix}{key}", v[key], f"unknown key; known keys here: {known}"))
+            shown = key if key.isidentifier() else json.dumps(key)  # "" or "a.b" stay visible as keys
+            out.append(Problem(f"{prefix}{shown}", v[key], f"unknown key; known keys here: {known}"))
     for key, sub in fields.items():
         if key in v:
             result[key] = check(sub, v[key], f"{prefix}{key}", out)
         elif getattr(sub, "required", False):
-            out.append(Problem(f"{prefix}{key}", None, "required key is missing"))
+            what = sub.describe() if hasattr(sub, "describe") else ""
+            out.append(Problem(f"{prefix}{key}", None, "required key is missing" + (f"; {what}" if what else "")))
         elif getattr(sub, "default", MISSING) is not MISSING:
             d = sub.default
             result[key] = check(sub, d, f"{prefix}{key}", out) if isinstance(d, (dict, list)) else d
@@ -164,7 +167,7 @@ def check(schema: Any, value: Any, path: str, out: list) -> Any:
             out.append(Problem(path, value, "expected an object"))
             return {}
         tag = value.get(schema.tag)
-        if tag not in schema.variants:
+        if not isinstance(tag, str) or tag not in schema.variants:  # a list or object tag is unhashable
             out.append(Problem(f"{path}.{schema.tag}", tag,
                                "expected one of " + ", ".join(repr(k) for k in schema.variants)))
             return dict(value)
@@ -180,3 +183,25 @@ def check(schema: Any, value: Any, path: str, out: list) -> Any:
                                f"expected {schema.min_length} to {schema.max_length} items"))
         return [check(schema.item, item, f"{path}[{i}]", out) for i, item in enumerate(value)]
     raise TypeError(f"unknown schema node {schema!r}")  # programming error, not user input
+
+
+def walk(schema: Any, path: str = ""):
+    """Every key of a schema, parents before children, as ``(path, node)`` pairs.
+
+    Paths read ``site.elevation_m``, ``stages[].cooler.approach_K``; a variant's keys
+    carry the kind in braces, ``flow{mass}.value``, after the tag itself, ``flow.kind``.
+    Used to document the schema and to generate test documents from it.
+    """
+    if path:
+        yield path, schema
+    prefix = f"{path}." if path else ""
+    if isinstance(schema, Obj):
+        for key, sub in schema.fields.items():
+            yield from walk(sub, f"{prefix}{key}")
+    elif isinstance(schema, Variant):
+        yield f"{prefix}{schema.tag}", Choice(tuple(schema.variants), required=True)
+        for kind, fields in schema.variants.items():
+            for key, sub in fields.items():
+                yield from walk(sub, f"{path}{{{kind}}}.{key}")
+    elif isinstance(schema, Items):
+        yield from walk(schema.item, f"{path}[]")

@@ -6,7 +6,7 @@ __all__ = ["StageResult", "solve_stage"]
 import math
 from dataclasses import dataclass
 
-from .errors import SecondLawViolation
+from .errors import InputError, PropertyRangeError, SecondLawViolation
 from .exergy import DeadState, heat_exergy
 from .models.base import Point, PropertyModel
 from .polytropic import polytropic_efficiency_between, polytropic_path
@@ -130,6 +130,10 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
     t_guess = start.T * r ** 0.3
     iso = model.at_sp(start.s, p_out, f"{where} isentropic discharge", T_guess=t_guess)
     dh_s = iso.h - start.h
+    if not (r > 1.0 + 1e-9 and dh_s > 0.0):  # a ratio of 1 + 1e-16 passes "> 1" but gives 0/0 below
+        raise InputError(f"{where}.pressure_ratio", r,
+                         "expected a pressure ratio above 1 + 1e-9; this stage raises the pressure "
+                         "too little to compute")
     kind = eff["kind"]
     if kind == "isentropic":
         dh = dh_s / eff["value"]
@@ -148,6 +152,10 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
                 f"{iso.T:.2f} K with the given casing heat loss): a second-law violation — check "
                 f"the measured temperatures and pressures", f"{where}.efficiency.value_K")
         eta_p, path = _adiabatic_path(model, start, start.h + dh, p_out, dh_s / dh, detail, where, eff["value_K"])
+    if not math.isfinite(dh):  # e.g. an isentropic efficiency of 1e-320
+        raise PropertyRangeError(f"{where}.efficiency.value: {eff.get('value')!r} — the compression work "
+                                 "it implies is unbounded; the discharge state leaves the property range",
+                                 f"{where}.efficiency.value")
     h_out = start.h + dh - q - 0.5 * v_out ** 2
     outlet = model.at_hp(h_out, p_out, f"{where} discharge", T_guess=path[-1].T)
     w_gas = mass_flow * dh

@@ -54,17 +54,35 @@ TOTALS = [
 ]
 
 
+class FitTable(QTableWidget):
+    """Columns as wide as their contents; spare width shared out evenly (never clipped)."""
+
+    def fit_columns(self) -> None:
+        header = self.horizontalHeader()
+        self.resizeColumnsToContents()
+        widths = [header.sectionSize(i) for i in range(self.columnCount())]
+        spare = self.viewport().width() - sum(widths)
+        if spare > 0 and len(widths) > 1:
+            extra = spare // (len(widths) - 1)
+            for i in range(1, len(widths)):
+                header.resizeSection(i, widths[i] + extra)
+
+    def resizeEvent(self, event) -> None:
+        super().resizeEvent(event)
+        self.fit_columns()
+
+
 def _table(columns: list[str]) -> QTableWidget:
-    t = QTableWidget(0, len(columns))
+    t = FitTable(0, len(columns))
     t.setEditTriggers(QAbstractItemView.NoEditTriggers)
     t.setSelectionBehavior(QAbstractItemView.SelectRows)
     t.setAlternatingRowColors(True)
     t.verticalHeader().setVisible(False)
-    t.verticalHeader().setDefaultSectionSize(22)
+    t.verticalHeader().setDefaultSectionSize(20)
     t.setHorizontalHeaderLabels(columns)
     h = t.horizontalHeader()
-    h.setSectionResizeMode(QHeaderView.ResizeToContents)
-    h.setStretchLastSection(True)
+    h.setSectionResizeMode(QHeaderView.Interactive)
+    h.setStretchLastSection(False)
     t.setWordWrap(False)
     return t
 
@@ -90,8 +108,7 @@ class BalancePanel(QWidget):
         self.points = _table(["Point"] + [c[1] for c in POINT_COLUMNS])
         self.components = _table(["Component"] + [c[1] for c in COMPONENT_COLUMNS])
         self.totals = _table(["Total", "Value"])
-        self.totals.setMinimumWidth(280)
-        self.totals.horizontalHeader().setSectionResizeMode(1, QHeaderView.Stretch)
+        self.totals.setMinimumWidth(330)
         left.addWidget(self.points)
         left.addWidget(self.components)
         split.addWidget(left)
@@ -149,6 +166,8 @@ class BalancePanel(QWidget):
         self._fill_points(r, system)
         self._fill_components(r, system)
         self._fill_totals(r, system)
+        for t in (self.points, self.components, self.totals):
+            t.fit_columns()
 
     def _pressure_kw(self) -> dict:
         return {"gauge": self.editor.prefs.gauge, "barometric_Pa": self.editor.barometric_Pa()}

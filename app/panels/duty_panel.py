@@ -3,7 +3,7 @@ from __future__ import annotations
 
 __all__ = ["DutyPanel", "FLOW_CHOICES"]
 
-from PySide6.QtWidgets import QComboBox, QFormLayout, QHBoxLayout, QVBoxLayout, QWidget
+from PySide6.QtWidgets import QComboBox, QFormLayout, QVBoxLayout
 
 from ..widgets.choice_field import ChoiceField
 from ..widgets.quantity_field import QuantityField
@@ -11,10 +11,10 @@ from ..widgets.signals_blocked import signals_blocked
 from .base import FieldPanel
 
 FLOW_CHOICES = [
-    ("free_air_delivery", "Free air delivery (at intake)"),
-    ("normal_volume", "Normal volume (0 °C, 1.01325 bar)"),
+    ("free_air_delivery", "Free air delivery"),
+    ("normal_volume", "Normal volume flow"),
     ("mass", "Mass flow"),
-    ("shaft_power", "Shaft power (check a running machine)"),
+    ("shaft_power", "Shaft power"),
 ]
 #: flow kind -> key of the result carrying the same duty, to carry the value across a change
 _RESULT_KEY = {"mass": "mass_flow_kg_s", "free_air_delivery": "free_air_delivery_m3_s",
@@ -36,21 +36,18 @@ class DutyPanel(FieldPanel):
         lay.addStretch(1)
         self.kind = self.add_row(form, "Flow given as", ChoiceField(editor, "flow.kind", FLOW_CHOICES,
                                                                     self._choose_kind),
-                                 "Free air delivery is the volume flow at the intake state; shaft power "
-                                 "finds the flow a machine moves with the power it draws.")
+                                 "Free air delivery: volume flow at the intake state. Normal volume: at "
+                                 "0 °C and 1.01325 bar. Shaft power: finds the flow a running machine "
+                                 "moves with the power it draws.")
         self.add_row(form, "Flow", QuantityField(editor, "flow.value"))
         self.pressure = self.bind(QuantityField(editor, "discharge_pressure_Pa"))
         self.gauge = QComboBox()
-        self.gauge.addItems(["gauge", "absolute"])
+        self.gauge.addItems(["Gauge", "Absolute"])
         self.gauge.setToolTip("Gauge pressure is relative to the site barometric pressure. "
                               "The project always stores absolute pressure.")
         self.gauge.activated.connect(lambda i: setattr(editor.prefs, "gauge", i == 0))
-        row = QWidget()
-        rl = QHBoxLayout(row)
-        rl.setContentsMargins(0, 0, 0, 0)
-        rl.addWidget(self.pressure, 1)
-        rl.addWidget(self.gauge, 0)
-        form.addRow("Discharge pressure", row)
+        form.addRow("Discharge pressure", self.pressure)
+        form.addRow("Pressures shown", self.gauge)
         self.add_row(form, "Driver efficiency", QuantityField(editor, "driver.efficiency"),
                      "Motor (and drive) efficiency: driver input power = shaft power / efficiency.")
         self.refresh_all()

@@ -15,11 +15,11 @@ from ..widgets.text_field import TextField
 from .base import FieldPanel, section_title
 
 MODEL_CHOICES = [
-    ("real_gas", "Real gas — Lemmon et al. 2000"),
-    ("ideal_gas", "Ideal gas, cp varies with T"),
-    ("constant_cp", "Perfect gas, constant cp"),
+    ("real_gas", "Real gas (Lemmon 2000)"),
+    ("ideal_gas", "Ideal gas, cp(T)"),
+    ("constant_cp", "Constant cp"),
 ]
-PRESSURE_MODES = [("pressure", "Barometric pressure"), ("elevation", "Elevation (standard atmosphere)")]
+PRESSURE_MODES = [("pressure", "Barometric pressure"), ("elevation", "Elevation")]
 
 
 def elevation_for_pressure(p_Pa: float) -> float:
@@ -63,8 +63,8 @@ class SitePanel(FieldPanel):
         self.add_row(form, "Ambient temperature", QuantityField(editor, "site.ambient_temperature_K"),
                      "Air temperature at the intake; also the dead-state temperature for exergy.")
         self.mode = ChoiceField(editor, "", PRESSURE_MODES, self._choose_mode)
-        self.mode.setToolTip("Give the site pressure directly, or as an elevation in the ISO 2533 "
-                             "standard atmosphere.")
+        self.mode.setToolTip("Give the site pressure directly, or as an elevation above sea level "
+                             "(pressure of the ISO 2533 standard atmosphere).")
         form.addRow("Site pressure from", self.mode)
         self.pressure = QuantityField(editor, "site.barometric_pressure_Pa", nullable=True,
                                       placeholder="101.325 kPa if empty")
@@ -84,8 +84,9 @@ class SitePanel(FieldPanel):
                      "Pressure lost in the intake filter and silencer before stage 1.")
         form.addRow(section_title("Air property model"))
         self.model_choice = self.add_row(form, "Model", ChoiceField(editor, "fluid.model", MODEL_CHOICES),
-                                         "Real gas: the reference equation of state for air via CoolProp. "
-                                         "Ideal gas: its ideal-gas part. Perfect gas: constant cp and k.")
+                                         "Real gas: the reference equation of state for air (Lemmon et al. "
+                                         "2000) via CoolProp. Ideal gas: its ideal-gas part, cp varying with "
+                                         "temperature. Constant cp: a perfect gas with the cp and k below.")
         self.cp = self.add_row(form, "cp", QuantityField(editor, "fluid.cp_J_kgK"))
         self.k = self.add_row(form, "k = cp/cv", QuantityField(editor, "fluid.k"))
         self.refresh_all()

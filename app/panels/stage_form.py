@@ -12,9 +12,9 @@ from ..widgets.text_field import TextField
 from .base import FieldPanel, section_title
 
 EFFICIENCY_CHOICES = [
-    ("isentropic", "Isentropic efficiency"),
-    ("polytropic", "Polytropic efficiency"),
-    ("discharge_temperature", "Measured discharge temperature"),
+    ("isentropic", "Isentropic"),
+    ("polytropic", "Polytropic"),
+    ("discharge_temperature", "Measured discharge T"),
 ]
 #: efficiency kind -> (value key in the document, key of the stage result with the same meaning)
 _EFF_KEYS = {"isentropic": ("value", "isentropic_efficiency"),
@@ -44,7 +44,9 @@ class StageForm(FieldPanel):
                                   "Leave empty to let the stage share the split that meets the "
                                   "discharge pressure (cooler pressure drops included).")
         self.kind = self.add_row(form, "Efficiency given as", ChoiceField(editor, "", EFFICIENCY_CHOICES,
-                                                                          self._choose_kind))
+                                                                          self._choose_kind),
+                                 "Isentropic or polytropic efficiency of the stage, or a measured "
+                                 "discharge temperature (checking a running machine).")
         self.value = self.add_row(form, "Efficiency", QuantityField(editor, ""))
         self.value_label = form.labelForField(self.value)
         self.limit = self.add_row(form, "Discharge T limit", QuantityField(editor, "", nullable=True,

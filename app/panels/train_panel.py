@@ -58,7 +58,8 @@ class TrainPanel(QWidget):
         scroll.setWidgetResizable(True)
         scroll.setFrameShape(QFrame.NoFrame)
         scroll.setWidget(self.forms)
-        scroll.setHorizontalScrollBarPolicy(Qt.ScrollBarAlwaysOff)
+        # a narrow panel scrolls sideways rather than cutting a field off
+        self.scroll = scroll
         lay.addWidget(scroll, 1)
         editor.model.changed.connect(self._on_model_changed)
         editor.model.structure_changed.connect(self._on_structure)
@@ -126,9 +127,26 @@ class TrainPanel(QWidget):
                 c.setData(ROLE, ("cooler", i))
                 self.list.addItem(c)
         self.list.blockSignals(False)
-        rows = max(self.list.count(), 3)
-        self.list.setFixedHeight(rows * self.list.sizeHintForRow(0) + 2 * self.list.frameWidth() + 4)
+        self._fit_list()
         self.select(*self._selected)
+
+    def minimumSizeHint(self):
+        """Room for the widest form without its scroll bars (the default layout uses this)."""
+        hint = super().minimumSizeHint()
+        widest = max(self.stage_form.minimumSizeHint().width(), self.cooler_form.minimumSizeHint().width())
+        hint.setWidth(max(hint.width(), widest + self.scroll.verticalScrollBar().sizeHint().width() + 20))
+        return hint
+
+    def _fit_list(self) -> None:
+        """As tall as its rows, but never more than 40 % of the panel (it scrolls beyond)."""
+        rows = max(self.list.count(), 3)
+        want = rows * max(self.list.sizeHintForRow(0), 16) + 2 * self.list.frameWidth() + 4
+        cap = max(110, int(self.height() * 0.4)) if self.height() > 200 else want
+        self.list.setFixedHeight(min(want, cap))
+
+    def resizeEvent(self, event) -> None:
+        super().resizeEvent(event)
+        self._fit_list()
 
     def select(self, kind: str, index: int) -> None:
         """Select the stage or cooler row of stage ``index`` (falls back to the stage row)."""

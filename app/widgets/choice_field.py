@@ -24,9 +24,7 @@ class ChoiceField(QComboBox):
         self._values = [v for v, _ in options]
         for _, text in options:
             self.addItem(text)
-        # a long choice must not force the whole form wider than its panel
-        self.setSizeAdjustPolicy(QComboBox.AdjustToMinimumContentsLengthWithIcon)
-        self.setMinimumContentsLength(10)
+        # as wide as the longest choice: choices are kept short so that nothing is cut off
         self._on_choose = on_choose or (lambda value: editor.set_value(self.path, value))
         self.activated.connect(self._chosen)
 

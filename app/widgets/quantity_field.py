@@ -72,9 +72,9 @@ class QuantityField(QWidget):
         self.edit = QLineEdit(self)
         self.edit.setAlignment(Qt.AlignRight | Qt.AlignVCenter)
         self.edit.setPlaceholderText(placeholder)
-        self.edit.setMinimumWidth(80)
+        self.edit.setMinimumWidth(72)
         self.unit_label = QLabel(self)
-        self.unit_label.setMinimumWidth(64)
+        self.unit_label.setMinimumWidth(40)
         self.unit_label.setObjectName("unitLabel")
         lay = QHBoxLayout(self)
         lay.setContentsMargins(0, 0, 0, 0)
@@ -118,8 +118,15 @@ class QuantityField(QWidget):
         with signals_blocked(self.edit):
             self.edit.setText(text)
             self.edit.setModified(False)
+            self.edit.setCursorPosition(0)
         self._shown_text = text
+        self._fit(text)
         self.update_mark()
+
+    def _fit(self, text: str) -> None:
+        """Widen the field so that a shown value is never cut off (leading digits matter)."""
+        needed = self.edit.fontMetrics().horizontalAdvance(text + "00") + 12
+        self.edit.setMinimumWidth(max(72, needed))
 
     def update_mark(self) -> None:
         """Mark the field red with the reason as tooltip when the editor knows a problem with it."""

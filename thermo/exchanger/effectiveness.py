@@ -324,14 +324,20 @@ def ntu_from_effectiveness(arrangement: str, eps: float, cr: float, hot_is_cmin:
     arr = _get(arrangement)
     cr = min(max(cr, 0.0), 1.0)
     limit = max_effectiveness(arrangement, cr, hot_is_cmin)
+    cross = (f"the {arr.label} arrangement reaches at most an effectiveness of {limit:.6g} at this "
+             f"capacity ratio ({cr:.4g}): the temperatures cross; choose another arrangement, or more coolant")
     if not 0.0 <= eps < limit:
-        raise InputError(field, eps, f"the {arr.label} arrangement reaches at most an effectiveness of "
-                                     f"{limit:.6g} at this capacity ratio ({cr:.4g}): the temperatures "
-                                     "cross; choose another arrangement, or more coolant")
+        raise InputError(field, eps, cross)
     if eps == 0.0:
         return 0.0
     if arr.ntu is not None:
-        return arr.ntu(eps, cr, hot_is_cmin)
+        try:
+            ntu = arr.ntu(eps, cr, hot_is_cmin)
+        except (ValueError, ZeroDivisionError):  # eps within rounding of the limit: log of ≤ 0
+            ntu = math.inf
+        if not math.isfinite(ntu):
+            raise InputError(field, eps, cross)
+        return ntu
     x = brentq(lambda y: arr.eps(math.exp(y), cr, hot_is_cmin) - eps, -40.0, math.log(1e4),
                xtol=1e-15, rtol=1e-14, maxiter=300)
     return math.exp(x)

@@ -1,0 +1,108 @@
+"""Window start-up: from launching the process to a shown window, a solved demo and drawn charts.
+
+    python bench/startup.py            # median of 7 runs (offscreen)
+    python bench/startup.py --runs 3
+
+Each run starts a fresh interpreter (``--child``) that opens the demo project offscreen and
+prints a line at each milestone; the parent stamps the lines as they arrive, so interpreter
+start-up and imports are included. Plain Python, no timing asserts.
+"""
+from __future__ import annotations
+
+import argparse
+import os
+import statistics
+import subprocess
+import sys
+import time
+from pathlib import Path
+
+ROOT = Path(__file__).resolve().parent.parent
+MILESTONES = ("shown", "solved", "charts")
+
+
+def child() -> int:
+    sys.path.insert(0, str(ROOT))
+    os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
+    import tempfile
+
+    from PySide6.QtCore import QEventLoop, QSettings, QTimer
+    from PySide6.QtWidgets import QApplication
+
+    from app.gui_main import DEMO_PROJECT
+    from app.main_window import MainWindow
+    from app.style import apply_style
+    from thermo.project import load
+
+    app = QApplication(sys.argv[:1])
+    apply_style(app)
+    with tempfile.TemporaryDirectory() as tmp:
+        settings = QSettings(str(Path(tmp) / "s.ini"), QSettings.IniFormat)
+        win = MainWindow(load(DEMO_PROJECT), settings=settings, restore_layout=False)
+        win.show()
+        app.processEvents()
+        print("shown", flush=True)
+        loop = QEventLoop()
+        charts = win.panels["charts"]
+
+        def check():
+            if win.editor.solved_jobs and not getattr(check, "solved", False):
+                check.solved = True
+                print("solved", flush=True)
+            if check.__dict__.get("solved") and charts.ts is not None and charts.ts.pending is None:
+                charts.ts.canvas.draw()
+                print("charts", flush=True)
+                loop.quit()
+        win.editor.result_changed.connect(check)
+        timer = QTimer()
+        timer.timeout.connect(check)
+        timer.start(5)
+        QTimer.singleShot(60_000, loop.quit)
+        loop.exec()
+        win.editor.shutdown()
+        win.close()
+    return 0
+
+
+def one_run() -> dict:
+    start = time.perf_counter()
+    env = dict(os.environ, QT_QPA_PLATFORM="offscreen")
+    proc = subprocess.Popen([sys.executable, __file__, "--child"], stdout=subprocess.PIPE,
+                            stderr=subprocess.DEVNULL, text=True, cwd=ROOT, env=env)
+    stamps = {}
+    for line in proc.stdout:
+        stamps[line.strip()] = time.perf_counter() - start
+    proc.wait()
+    cpu = os.times()
+    stamps["cpu"] = cpu.children_user + cpu.children_system
+    return stamps
+
+
+def measure(runs: int) -> dict:
+    """Median seconds to each milestone, plus the median child CPU time."""
+    rows, cpu_before = [], 0.0
+    for _ in range(runs):
+        r = one_run()
+        r["cpu"], cpu_before = r["cpu"] - cpu_before, r["cpu"]
+        rows.append(r)
+    return {k: statistics.median(r[k] for r in rows if k in r) for k in MILESTONES + ("cpu",)}
+
+
+def main(argv: list[str]) -> int:
+    p = argparse.ArgumentParser(description=__doc__.splitlines()[0])
+    p.add_argument("--child", action="store_true", help=argparse.SUPPRESS)
+    p.add_argument("--runs", type=int, default=7)
+    args = p.parse_args(argv)
+    if args.child:
+        return child()
+    med = measure(args.runs)
+    print(f"window start-up, median of {args.runs} runs (offscreen, {os.cpu_count()} cores, "
+          f"load {os.getloadavg()[0]:.1f}):")
+    for k in MILESTONES:
+        print(f"  {k:<8}{med[k]:7.2f} s")
+    print(f"  cpu     {med['cpu']:7.2f} s  (user + system of one run)")
+    return 0
+
+
+if __name__ == "__main__":
+    sys.exit(main(sys.argv[1:]))

@@ -1,0 +1,79 @@
+"""File → Export report… in the window writes the same report as ``stagewright report``.
+
+The PDF is read back with pypdf and its totals compared with the window's own current
+result at the printed precision; the CSV is parsed with the standard library.
+"""
+from __future__ import annotations
+
+import csv
+import re
+
+import pypdf
+import pytest
+
+pytest.importorskip("pytestqt")
+
+from gui_support import make_window, type_into  # noqa: E402
+
+from app.export_ops import PDF_AND_CSV, PDF_ONLY  # noqa: E402
+
+pytestmark = pytest.mark.gui
+EXPORT_TIMEOUT_MS = 60_000
+
+
+def _export(qtbot, win, target, chosen):
+    win.export_target = lambda: (str(target), chosen)
+    win.action_map["file.export"].trigger()
+    qtbot.waitUntil(lambda: win.export_job is not None and not win.export_job.thread.is_alive(),
+                    timeout=EXPORT_TIMEOUT_MS)
+    qtbot.wait(50)  # let the queued done signal arrive
+
+
+def test_export_writes_pdf_and_csv_matching_the_window(qtbot, tmp_path):
+    win = make_window(qtbot, tmp_path)
+    errors = []
+    win.show_error = lambda title, text: errors.append(text)
+    assert win.action_map["file.export"] in win.menuBar().actions()[0].menu().actions()
+    _export(qtbot, win, tmp_path / "out", PDF_AND_CSV)  # no suffix typed: .pdf is added
+    assert errors == []
+    pdf, csv_path = tmp_path / "out.pdf", tmp_path / "out.csv"
+    text = "\n".join(p.extract_text() for p in pypdf.PdfReader(str(pdf)).pages)
+    r = win.editor.result
+    m = re.search(r"^Shaft power ([\d .]+) kW$", text, re.M)
+    assert m and abs(float(m.group(1).replace(" ", "")) - r["shaft_power_W"] / 1e3) <= 0.005
+    with open(csv_path, newline="", encoding="utf-8") as fh:
+        rows = list(csv.reader(fh))
+    train = [row for row in rows if row[0] == "train"][0]
+    assert float(train[rows[0].index("shaft_power")]) * 1e3 == pytest.approx(r["shaft_power_W"], rel=1e-11)
+    assert "Exported out.pdf" in win.statusBar().currentMessage()
+    win.close()
+
+
+def test_export_in_us_units_and_pdf_only(qtbot, tmp_path):
+    win = make_window(qtbot, tmp_path)
+    win.action_map["view.us_units"].setChecked(True)
+    _export(qtbot, win, tmp_path / "us.pdf", PDF_ONLY)
+    assert not (tmp_path / "us.csv").exists()
+    text = pypdf.PdfReader(str(tmp_path / "us.pdf")).pages[0].extract_text()
+    assert "Display units US customary" in text
+    win.close()
+
+
+def test_export_refuses_stale_results(qtbot, tmp_path):
+    win = make_window(qtbot, tmp_path)
+    errors = []
+    win.show_error = lambda title, text: errors.append(title)
+    type_into(qtbot, win.panels["train"].stage_form.value, "abc")  # results go stale
+    win.export_target = lambda: pytest.fail("no file dialog for stale results")
+    win.action_map["file.export"].trigger()
+    assert errors == ["Nothing to export yet"] and win.export_job is None
+    win.close()
+
+
+def test_export_failure_is_a_message_not_a_crash(qtbot, tmp_path):
+    win = make_window(qtbot, tmp_path)
+    errors = []
+    win.show_error = lambda title, text: errors.append((title, text))
+    _export(qtbot, win, tmp_path / "missing_folder" / "x.pdf", PDF_ONLY)
+    assert errors and errors[0][0] == "Cannot export the report" and "x.pdf" in errors[0][1]
+    win.close()

@@ -1,0 +1,19 @@
+"""Project files: load and save a project document as UTF-8 JSON without ever losing work.
+
+    doc = load("plant.json")      # parse safely, upgrade old versions, validate
+    save(doc, "plant.json")       # validate, write atomically, keep plant.json.bak
+
+Modules: :mod:`.parse` (untrusted bytes → JSON data, with size and depth limits),
+:mod:`.migrate` (format versions and the upgrade chain), :mod:`.reading` (load),
+:mod:`.writing` (dumps, atomic save, backup). The file format is documented in
+``docs/project-format.md``.
+"""
+from __future__ import annotations
+
+from . import migrate  # the module (its function: thermo.project.migrate.migrate)
+from .parse import MAX_DEPTH, MAX_FILE_BYTES
+from .reading import load, load_with_problems, loads, read_document
+from .writing import atomic_write, backup_path, dumps, save
+
+__all__ = ["load", "load_with_problems", "loads", "save", "dumps", "backup_path", "atomic_write",
+           "read_document", "MAX_FILE_BYTES", "MAX_DEPTH"]

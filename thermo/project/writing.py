@@ -1,0 +1,240 @@
+"""Write project files so that no failure can lose the last good file.
+
+:func:`dumps` gives the on-disk text: UTF-8 JSON, two-space indent, keys in the order of
+:mod:`thermo.schema` (``format`` and ``version`` first, a variant's ``kind`` first), so
+that files read well and diff well under version control.
+
+:func:`atomic_write` writes a temporary file in the destination's folder, flushes and
+fsyncs it, links the previous file to a backup, renames the temporary file over the
+destination, and fsyncs the folder (POSIX). The rename is atomic, so at every instant
+the destination holds either the complete old file or the complete new one: a full
+disk, a permission error or a killed process leaves the old file byte for byte. A
+killed process can leave a hidden ``.<name>.*.tmp`` file behind; it is never read.
+"""
+from __future__ import annotations
+
+__all__ = ["dumps", "save", "atomic_write", "backup_path"]
+
+import errno
+import json
+import math
+import os
+import secrets
+import shutil
+import stat
+from pathlib import Path
+from typing import Any
+
+from .. import schema
+from ..errors import InputError, SaveError
+from ..schema_types import Items, Obj, Variant
+from .parse import MAX_FILE_BYTES
+
+
+def backup_path(path) -> Path:
+    """Where :func:`save` keeps the previous version of ``path``: ``name.json.bak`` beside it."""
+    path = Path(path)
+    return path.with_name(path.name + ".bak")
+
+
+def _ordered(node: Any, value: Any) -> Any:
+    """``value`` with object keys in schema order; keys the schema does not know go last, sorted."""
+    if isinstance(value, list):
+        item = node.item if isinstance(node, Items) else None
+        return [_ordered(item, v) for v in value]
+    if not isinstance(value, dict):
+        return value
+    if isinstance(node, Obj):
+        fields, first = node.fields, ()
+    elif isinstance(node, Variant):
+        fields, first = node.variants.get(value.get(node.tag), {}), (node.tag,)
+    else:
+        fields, first = {}, ()
+    keys = [k for k in first if k in value] + [k for k in fields if k in value]
+    keys += sorted(k for k in value if k not in keys)
+    return {k: _ordered(fields.get(k), value[k]) for k in keys}
+
+
+def _check_data(value: Any, path: str) -> None:
+    """Refuse what JSON cannot hold or would not read back the same."""
+    if isinstance(value, dict):
+        for k, v in value.items():
+            if not isinstance(k, str):
+                raise InputError(f"{path}.{k}" if path else str(k), k, "object keys must be text")
+            _check_data(v, f"{path}.{k}" if path else k)
+    elif isinstance(value, (list, tuple)):
+        for i, v in enumerate(value):
+            _check_data(v, f"{path}[{i}]")
+    elif isinstance(value, float) and not math.isfinite(value):
+        raise InputError(path, value, "expected a finite number")
+    elif value is not None and not isinstance(value, (str, int, float, bool)):
+        raise InputError(path, type(value).__name__, "expected plain JSON data")
+
+
+def dumps(doc: dict) -> str:
+    """Serialise a document: pretty-printed, schema key order, text ending in a newline.
+
+    Examples
+    --------
+    >>> print(dumps({"title": "t", "version": 1, "format": "stagewright-project"}), end="")
+    {
+      "format": "stagewright-project",
+      "version": 1,
+      "title": "t"
+    }
+    """
+    _check_data(doc, "")
+    return json.dumps(_ordered(schema.PROJECT, doc), indent=2, ensure_ascii=False, allow_nan=False) + "\n"
+
+
+def _encode(text: str, doc_for_ascii) -> bytes:
+    try:
+        return text.encode("utf-8")
+    except UnicodeEncodeError:
+        # text with an unpaired surrogate (read from a \\ud800 escape) cannot be UTF-8;
+        # the all-ASCII form escapes it and reads back identical
+        return (json.dumps(doc_for_ascii, indent=2, ensure_ascii=True, allow_nan=False) + "\n").encode("ascii")
+
+
+def _fsync_dir(folder: Path) -> None:
+    if os.name != "posix":
+        return  # Windows cannot open a folder for fsync; its rename is durable on NTFS
+    try:
+        fd = os.open(folder, os.O_RDONLY)
+    except OSError:
+        return
+    try:
+        os.fsync(fd)
+    except OSError:
+        pass  # some file systems refuse fsync on a folder; the rename has happened
+    finally:
+        os.close(fd)
+
+
+def _link_backup(path: Path, bak: Path) -> None:
+    """Make ``bak`` the previous content of ``path`` (hard link, else a copy), atomically."""
+    tmp = str(bak.with_name(f".{bak.name}.{secrets.token_hex(4)}.tmp"))
+    try:
+        try:
+            os.link(path, tmp)  # the old inode lives on under the backup name: no copy, no window
+        except OSError:
+            shutil.copy2(path, tmp)  # a file system without hard links
+        os.replace(tmp, bak)
+    except BaseException:
+        try:
+            os.unlink(tmp)
+        except OSError:
+            pass
+        raise
+
+
+def _create_temp(path: Path) -> tuple[int, str]:
+    """Create ``.<name>.<random>.tmp`` beside ``path``, mode 0666 less the umask (a new
+    file gets ordinary permissions, unlike mkstemp's 0600)."""
+    flags = os.O_WRONLY | os.O_CREAT | os.O_EXCL | getattr(os, "O_BINARY", 0)
+    for _ in range(100):
+        tmp = str(path.with_name(f".{path.name}.{secrets.token_hex(4)}.tmp"))
+        try:
+            return os.open(tmp, flags, 0o666), tmp
+        except FileExistsError:
+            continue
+    raise FileExistsError(errno.EEXIST, "no free temporary file name", str(path.parent))
+
+
+def _reason(exc: OSError) -> str:
+    if exc.errno == errno.ENOSPC:
+        return "the disk is full"
+    if exc.errno in (errno.EACCES, errno.EPERM):
+        return "permission denied"
+    return exc.strerror or str(exc)
+
+
+def atomic_write(path, data: bytes, backup: bool = True) -> None:
+    """Replace ``path`` by ``data`` atomically, keeping the previous file as a backup.
+
+    Parameters
+    ----------
+    path : str or Path
+        Destination file. A symbolic link is followed: its target is replaced.
+    data : bytes
+        The complete new content.
+    backup : bool
+        Keep the previous file as :func:`backup_path` (``name.json.bak``).
+
+    Raises
+    ------
+    SaveError
+        For any failure (disk full, permission denied, missing folder …); the previous
+        file, and its backup, are unchanged.
+    """
+    path = Path(os.path.realpath(path))
+    folder = path.parent
+    tmp = None
+    try:
+        try:
+            old = os.stat(path)
+        except FileNotFoundError:
+            old = None
+        if old is not None and not stat.S_ISREG(old.st_mode):
+            raise SaveError(f"{path}: cannot save over something that is not a regular file")
+        fd, tmp = _create_temp(path)
+        with os.fdopen(fd, "wb") as fh:
+            fh.write(data)
+            fh.flush()
+            os.fsync(fh.fileno())
+        if old is not None:
+            os.chmod(tmp, stat.S_IMODE(old.st_mode))  # keep the permissions of the file replaced
+        if backup and old is not None:
+            _link_backup(path, backup_path(path))
+        os.replace(tmp, path)
+        tmp = None
+    except OSError as exc:
+        raise SaveError(f"{path}: cannot save ({_reason(exc)}); the previous file is unchanged") from exc
+    finally:
+        if tmp is not None:
+            try:
+                os.unlink(tmp)
+            except OSError:
+                pass
+    _fsync_dir(folder)
+
+
+def save(doc: dict, path) -> None:
+    """Write ``doc`` to ``path`` atomically, keeping the previous file as ``path.bak``.
+
+    The file is written with ``format`` and ``version`` set. A document with validation
+    problems (a value out of range, a missing key) is written as it is — the window asks
+    the user first — and :func:`thermo.project.load` will name those problems when it is
+    read; :func:`thermo.project.load_with_problems` opens it anyway.
+
+    Parameters
+    ----------
+    doc : dict
+        A project document of the current format version (left unchanged).
+    path : str or Path
+        Destination, conventionally ``*.json``.
+
+    Raises
+    ------
+    InputError
+        If the document is not plain JSON data (NaN, infinity, an object that is not a
+        dict, list, str, number, bool or None), or declares another format version;
+        nothing is written.
+    SaveError
+        If writing fails; the previous file and its backup are unchanged.
+    """
+    if not isinstance(doc, dict):
+        raise InputError("(document)", type(doc).__name__, "expected a project object")
+    if doc.get("version", schema.FORMAT_VERSION) != schema.FORMAT_VERSION:
+        raise InputError("version", doc.get("version"),
+                         f"expected {schema.FORMAT_VERSION}: save writes current-version documents "
+                         "(thermo.project.migrate upgrades older ones)")
+    if doc.get("format", schema.FORMAT_NAME) != schema.FORMAT_NAME:
+        raise InputError("format", doc.get("format"), f"expected {schema.FORMAT_NAME!r}")
+    full = {"format": schema.FORMAT_NAME, "version": schema.FORMAT_VERSION, **doc}
+    text = dumps(full)
+    data = _encode(text, _ordered(schema.PROJECT, full))
+    if len(data) > MAX_FILE_BYTES:
+        raise SaveError(f"{path}: the project would be {len(data)} bytes, more than the "
+                        f"{MAX_FILE_BYTES} a project file may hold; nothing was written")
+    atomic_write(path, data, backup=True)

@@ -1,0 +1,390 @@
+"""What every key of the project document and of the results means, and the key tables
+of ``docs/project-format.md`` generated from :mod:`thermo.schema`.
+
+Type, unit, range and default of each project key come from the schema itself; this
+module adds only the meaning, keyed by the schema path (:func:`thermo.schema_types.walk`).
+The tests check that every schema key has a meaning here, that no meaning is left for
+a key that no longer exists, that every key ``solve(doc).to_dict()`` produces is
+described, and that the tables in the document are the ones this module generates.
+After changing the schema or the results, run::
+
+    python -m thermo.schema_docs --write
+
+which rewrites the generated parts of ``docs/project-format.md`` (between the
+``BEGIN``/``END`` markers) and leaves the hand-written text alone.
+"""
+from __future__ import annotations
+
+__all__ = ["PROJECT_KEYS", "RESULT_KEYS", "project_key_table", "result_key_table",
+           "result_paths", "unit_of", "render", "update_document"]
+
+import math
+import re
+import sys
+from pathlib import Path
+
+from .schema import PROJECT
+from .schema_types import MISSING, Choice, Items, Num, Obj, Text, Variant, walk
+
+#: schema path → meaning
+PROJECT_KEYS = {
+    "format": "Marks the file as a Stagewright project. Always `\"stagewright-project\"`.",
+    "version": "Project format version the file is written in (see *Versions* below). "
+               "A missing version means version 1.",
+    "title": "Short name of the project, shown in the window title and on reports.",
+    "note": "Free text: what the project shows, where the numbers came from.",
+    "site": "Where the machine stands: the ambient air it draws in.",
+    "site.ambient_temperature_K": "Temperature of the ambient air at the intake; also the "
+                                  "dead-state temperature T0 for exergy.",
+    "site.barometric_pressure_Pa": "Barometric (absolute) pressure at the site. Give this "
+                                   "or `elevation_m`, not both; with neither, 101 325 Pa.",
+    "site.elevation_m": "Site elevation; the barometric pressure then follows the ISO 2533 "
+                        "standard atmosphere.",
+    "site.relative_humidity": "Relative humidity of the ambient air, as a fraction (0.6 = 60 %).",
+    "fluid": "How the properties of air are computed.",
+    "fluid.model": "`real_gas`: Lemmon et al. (2000) equation of state via CoolProp; "
+                   "`ideal_gas`: the same equation's ideal-gas part (cp varies with T); "
+                   "`constant_cp`: perfect gas with `cp_J_kgK` and `k`.",
+    "fluid.cp_J_kgK": "Specific heat at constant pressure; used by `constant_cp` only.",
+    "fluid.k": "Ratio of specific heats cp/cv; used by `constant_cp` only.",
+    "flow": "The flow the train must deliver, or the shaft power it takes (then the flow is found).",
+    "flow.kind": "How `value` is given: `mass`, `free_air_delivery`, `normal_volume` or `shaft_power`.",
+    "flow{mass}.value": "Mass flow of air.",
+    "flow{free_air_delivery}.value": "Free air delivery: the delivered flow expressed at the "
+                                     "site ambient temperature and barometric pressure (ISO 1217).",
+    "flow{normal_volume}.value": "Volume flow at the DIN 1343 normal state, 273.15 K and 101 325 Pa.",
+    "flow{shaft_power}.value": "Total shaft power of the train (a field check: the solver finds the "
+                               "mass flow). A measured motor input power times the motor efficiency "
+                               "gives this value.",
+    "inlet_pressure_drop_Pa": "Pressure drop of the intake filter and silencer before stage 1.",
+    "discharge_pressure_Pa": "Absolute pressure wanted after the last cooler (or after the last "
+                             "stage when it has no cooler).",
+    "driver": "The motor (or other driver) and its efficiency.",
+    "driver.efficiency": "Driver efficiency: shaft power ÷ driver input power.",
+    "stages": "The stages in flow order, 1 to 12.",
+    "stages[]": "One stage, optionally followed by its cooler.",
+    "stages[].name": "Label of the stage in tables and charts.",
+    "stages[].pressure_ratio": "Discharge ÷ inlet pressure of this stage. Leave out (or null) to "
+                               "have it found: stages without a ratio share one ratio so that "
+                               "the discharge pressure is met exactly.",
+    "stages[].efficiency": "How well the stage compresses: one of the three kinds below.",
+    "stages[].efficiency.kind": "`isentropic`, `polytropic`, or `discharge_temperature` (measured).",
+    "stages[].efficiency{isentropic}.value": "Isentropic (adiabatic) efficiency of the internal compression.",
+    "stages[].efficiency{polytropic}.value": "Polytropic efficiency of the internal compression.",
+    "stages[].efficiency{discharge_temperature}.value_K": "Measured discharge temperature; the "
+                                                          "efficiency follows from it.",
+    "stages[].mechanical_efficiency": "Gas power ÷ shaft power (bearings, gears, seals).",
+    "stages[].heat_loss_W": "Heat lost through the casing during compression.",
+    "stages[].heat_loss_boundary_temperature_K": "Temperature at which the casing heat leaves; "
+                                                 "null means the ambient temperature.",
+    "stages[].exit_velocity_m_s": "Air velocity at the stage discharge (its kinetic energy is counted).",
+    "stages[].max_discharge_temperature_K": "Discharge temperature limit of the machine; exceeding "
+                                            "it gives a warning in the result.",
+    "stages[].min_pressure_ratio": "Lowest pressure ratio this stage may be given (staging studies).",
+    "stages[].max_pressure_ratio": "Highest pressure ratio this stage may be given (staging studies).",
+    "stages[].cooler": "The cooler after this stage (an intercooler, or the aftercooler after the "
+                       "last stage), or null for none. Give `outlet_temperature_K` or `approach_K`.",
+    "stages[].cooler.outlet_temperature_K": "Air temperature at the cooler outlet.",
+    "stages[].cooler.approach_K": "Air outlet temperature minus coolant inlet temperature; needs "
+                                  "`coolant_inlet_temperature_K`.",
+    "stages[].cooler.coolant_inlet_temperature_K": "Inlet temperature of the cooling water or air; "
+                                                   "the rejected heat crosses the boundary at this "
+                                                   "temperature (null: ambient).",
+    "stages[].cooler.pressure_drop_Pa": "Air-side pressure drop of the cooler.",
+    "stages[].cooler.separator_efficiency": "Fraction of the condensed water the cooler's "
+                                            "separator removes.",
+    "stages[].cooler.ua_W_K": "Overall conductance of an existing exchanger (rating: the air outlet, "
+                              "duty and coolant outlet are results); needs `coolant`.",
+    "stages[].cooler.arrangement": "Flow arrangement for ε–NTU and the LMTD correction factor.",
+    "stages[].cooler.coolant": "The coolant side (see *Coolers* below), or null: the cooler then "
+                               "works without sizing figures.",
+    "stages[].cooler.coolant.kind": "`water`, `glycol` (water–glycol) or `air` (ambient air, fan-cooled).",
+    "stages[].cooler.coolant.glycol": "Glycol type (kind `glycol` only).",
+    "stages[].cooler.coolant.glycol_fraction": "Glycol mass fraction; required for kind `glycol`.",
+    "stages[].cooler.coolant.flow_kg_s": "Coolant mass flow (give this or `temperature_rise_K`).",
+    "stages[].cooler.coolant.temperature_rise_K": "Coolant temperature rise (give this or `flow_kg_s`).",
+    "heat_recovery": "Heat recovery from the coolers and casings (see *Heat recovery* below), or null.",
+    "heat_recovery.delivery_temperature_K": "Temperature of the hot water or warm air delivered.",
+    "heat_recovery.approach_K": "Minimum difference between the compressed air and the delivered stream.",
+    "heat_recovery.casing_share": "Share of each stage's casing heat loss a jacket collects.",
+    "heat_recovery.fuel_price_per_kWh": "Price of the boiler fuel the recovered heat replaces (money per kWh).",
+    "heat_recovery.boiler_efficiency": "Efficiency of that boiler (above 1 for condensing boilers, net basis).",
+    "heat_recovery.operating_hours_per_year": "Hours for the yearly value; null: `year.operating_hours_per_year`, "
+                                              "else 8760.",
+    "year": "A year at the site: ambient profile, hours, load and prices (see *A year at the site* "
+            "below), or null.",
+    "year.profile": "The ambient profile: 12 months, or bins of hours.",
+    "year.profile.kind": "`monthly` or `bins`.",
+    "year.profile{monthly}.months": "January to December in order, exactly 12 entries.",
+    "year.profile{monthly}.months[]": "One month.",
+    "year.profile{monthly}.months[].temperature_K": "Mean ambient temperature of the month.",
+    "year.profile{monthly}.months[].relative_humidity": "Mean relative humidity of the month.",
+    "year.profile{monthly}.months[].load": "Load in this month; null: the section's `load`.",
+    "year.profile{monthly}.months[].coolant_inlet_temperature_K": "Water or glycol supply temperature "
+                                                                  "this month; null: the cooler's own.",
+    "year.profile{monthly}.months[].hours": "Operating hours in the month; null: spread from "
+                                            "`operating_hours_per_year` by the days of the month.",
+    "year.profile{bins}.bins": "Bins of ambient conditions, each with its hours.",
+    "year.profile{bins}.bins[]": "One bin.",
+    "year.profile{bins}.bins[].temperature_K": "Mean ambient temperature of the bin.",
+    "year.profile{bins}.bins[].relative_humidity": "Mean relative humidity of the bin.",
+    "year.profile{bins}.bins[].load": "Load in this bin; null: the section's `load`.",
+    "year.profile{bins}.bins[].coolant_inlet_temperature_K": "Water or glycol supply temperature in this "
+                                                             "bin; null: the cooler's own.",
+    "year.profile{bins}.bins[].label": "Name of the bin; empty: `bin N`.",
+    "year.profile{bins}.bins[].hours": "Operating hours in the bin (scaled to "
+                                       "`operating_hours_per_year` when that is given).",
+    "year.operating_hours_per_year": "Operating hours in the year; null: 8760 (monthly) or the bins' sum.",
+    "year.load": "Scales the project's flow value (mass, volume or shaft power).",
+    "year.energy_price_per_kWh": "Price of the driver's electricity (money per kWh).",
+    "year.water_price_per_m3": "Price of cooling water, once-through kind `water` coolers (money per m³).",
+}
+
+#: results path → meaning; ``point.*`` is the state-point object used by every state
+RESULT_KEYS = {
+    "model": "Property model used.",
+    "eos_reference": "Bibliographic reference of the property model.",
+    "ambient_temperature_K": "Site ambient temperature, the dead-state temperature T0.",
+    "barometric_pressure_Pa": "Site barometric pressure, the dead-state pressure p0.",
+    "mass_flow_kg_s": "Mass flow of air through the train.",
+    "free_air_delivery_m3_s": "Free air delivery at site ambient conditions (ISO 1217).",
+    "normal_volume_flow_m3_s": "Volume flow at the DIN 1343 normal state.",
+    "shaft_power_W": "Total shaft power of all stages.",
+    "driver_power_W": "Driver input power: shaft power ÷ driver efficiency.",
+    "specific_power_kW_per_m3_min": "Driver input power per unit free air delivery.",
+    "heat_rejected_W": "Heat leaving the train: cooler duties, casing losses, mechanical losses.",
+    "entropy_generation_W_K": "Total entropy generation of filter, stages and coolers.",
+    "exergy_destroyed_W": "Total exergy destroyed, T0 × entropy generation.",
+    "heat_exergy_W": "Exergy carried out with the rejected heat, Σ Q (1 − T0/Tb).",
+    "exergy_gained_W": "Flow exergy of the delivered air (at the delivery state, relative to the site).",
+    "isothermal_power_W": "Reversible isothermal power at T0 to the delivery pressure.",
+    "isothermal_efficiency": "Isothermal power ÷ shaft power.",
+    "second_law_efficiency": "Exergy gained by the air ÷ shaft power.",
+    "energy_residual": "Energy balance closure, relative to shaft power (≤ 1e-6).",
+    "exergy_residual": "Exergy balance closure, relative to shaft power (≤ 1e-6).",
+    "intake": "Ambient air at the intake (a point).",
+    "inlet_filter": "The intake filter, a throttle from ambient to the stage-1 inlet pressure.",
+    "inlet_filter.outlet": "State after the filter (a point).",
+    "inlet_filter.entropy_generation_W_K": "Entropy generated in the filter.",
+    "inlet_filter.exergy_destroyed_W": "Exergy destroyed in the filter.",
+    "delivery": "Delivered air after the last cooler (a point).",
+    "stages": "One entry per stage, in flow order.",
+    "stages[].inlet": "Stage inlet state (a point).",
+    "stages[].outlet": "Stage discharge state (a point).",
+    "stages[].pressure_ratio": "Stage pressure ratio used (given or found).",
+    "stages[].isentropic_discharge_temperature_K": "Discharge temperature of isentropic compression "
+                                                   "to the same pressure.",
+    "stages[].gas_power_W": "Power delivered to the gas.",
+    "stages[].shaft_power_W": "Shaft power of the stage: gas power ÷ mechanical efficiency.",
+    "stages[].mechanical_loss_W": "Shaft power minus gas power.",
+    "stages[].heat_loss_W": "Casing heat loss.",
+    "stages[].heat_loss_exergy_W": "Exergy carried out with the casing heat loss.",
+    "stages[].isentropic_efficiency": "Isentropic efficiency (given, or computed from the other kinds).",
+    "stages[].polytropic_efficiency": "Polytropic efficiency (given, or computed from the other kinds).",
+    "stages[].polytropic_exponent": "Polytropic exponent n of the compression.",
+    "stages[].entropy_generation_W_K": "Entropy generated in the stage.",
+    "stages[].exergy_destroyed_W": "Exergy destroyed in the stage.",
+    "stages[].path": "Points along the compression path, for T–s charts.",
+    "stages[].path[].temperature_K": "Temperature along the path.",
+    "stages[].path[].pressure_Pa": "Pressure along the path.",
+    "stages[].path[].entropy_J_kgK": "Specific entropy along the path (model's own reference state).",
+    "stages[].cooler": "The cooler after the stage, or null.",
+    "stages[].cooler.inlet": "Cooler inlet state (a point).",
+    "stages[].cooler.outlet": "Cooler outlet state (a point).",
+    "stages[].cooler.duty_W": "Heat removed from the air.",
+    "stages[].cooler.boundary_temperature_K": "Temperature at which the heat crosses the boundary.",
+    "stages[].cooler.heat_exergy_W": "Exergy carried out with the cooler heat.",
+    "stages[].cooler.entropy_generation_W_K": "Entropy generated in the cooler.",
+    "stages[].cooler.exergy_destroyed_W": "Exergy destroyed in the cooler.",
+    "stages[].cooler.path": "Points along the cooling path, for T–s charts.",
+    "stages[].cooler.path[].temperature_K": "Temperature along the path.",
+    "stages[].cooler.path[].pressure_Pa": "Pressure along the path.",
+    "stages[].cooler.path[].entropy_J_kgK": "Specific entropy along the path.",
+    "stages[].cooler.arrangement": "Flow arrangement of the exchanger.",
+    "stages[].cooler.coolant_kind": "`water`, `glycol` or `air`; null without a coolant side.",
+    "stages[].cooler.coolant_flow_kg_s": "Coolant mass flow (given, or found from the temperature rise).",
+    "stages[].cooler.coolant_volume_flow_m3_s": "Coolant volume flow at its inlet.",
+    "stages[].cooler.coolant_inlet_temperature_K": "Coolant inlet temperature.",
+    "stages[].cooler.coolant_outlet_temperature_K": "Coolant outlet temperature.",
+    "stages[].cooler.lmtd_K": "Counter-flow log-mean temperature difference of the four terminal temperatures.",
+    "stages[].cooler.lmtd_correction_factor": "LMTD correction factor F of the arrangement.",
+    "stages[].cooler.mean_temperature_difference_K": "Mean temperature difference, duty ÷ UA.",
+    "stages[].cooler.effectiveness": "Exchanger effectiveness ε.",
+    "stages[].cooler.ntu": "Number of transfer units, UA ÷ C_min.",
+    "stages[].cooler.ua_W_K": "Overall conductance UA (needed, or given when rating).",
+    "stages[].cooler.zones": "One dry zone, or a dry and a condensing zone.",
+    "stages[].cooler.zones[].kind": "`dry` (sensible only) or `wet` (condensing).",
+    "stages[].cooler.zones[].duty_W": "Heat removed in the zone.",
+    "stages[].cooler.zones[].hot_inlet_temperature_K": "Compressed-air temperature entering the zone.",
+    "stages[].cooler.zones[].hot_outlet_temperature_K": "Compressed-air temperature leaving the zone.",
+    "stages[].cooler.zones[].coolant_inlet_temperature_K": "Coolant temperature entering the zone.",
+    "stages[].cooler.zones[].coolant_outlet_temperature_K": "Coolant temperature leaving the zone.",
+    "stages[].cooler.zones[].capacity_ratio": "C_min ÷ C_max of the zone.",
+    "stages[].cooler.zones[].effectiveness": "Effectiveness of the zone.",
+    "stages[].cooler.zones[].ntu": "Number of transfer units of the zone.",
+    "stages[].cooler.zones[].lmtd_K": "Log-mean temperature difference of the zone.",
+    "stages[].cooler.zones[].lmtd_correction_factor": "LMTD correction factor of the zone.",
+    "stages[].cooler.zones[].ua_W_K": "Conductance UA of the zone.",
+    "recoverable_heat_W": "Heat that can be recovered (null without a `heat_recovery` section).",
+    "heat_recovery": "Heat recovery figures, or null without a `heat_recovery` section.",
+    "heat_recovery.delivery_temperature_K": "Temperature of the stream delivered.",
+    "heat_recovery.source_temperature_K": "Delivery temperature plus approach: the coldest useful air.",
+    "heat_recovery.coolers_W": "Recoverable heat of each stage's cooler (null where there is none).",
+    "heat_recovery.casings_W": "Recoverable casing heat of each stage.",
+    "heat_recovery.recoverable_heat_W": "Total recoverable heat.",
+    "heat_recovery.share_of_driver_input": "Recoverable heat ÷ driver input power.",
+    "heat_recovery.operating_hours_per_year": "Hours used for the yearly figures, [h].",
+    "heat_recovery.heat_per_year_kWh": "Recoverable heat over those hours.",
+    "heat_recovery.fuel_saved_per_year_kWh": "Boiler fuel that heat replaces.",
+    "heat_recovery.value_per_year": "Value of the fuel saved (money, in the unit of the fuel price).",
+    "warnings": "Things to look at, e.g. a discharge temperature above its limit.",
+    "warnings[].field": "Path of the input concerned (`stages[1].max_discharge_temperature_K`).",
+    "warnings[].message": "What is wrong, in words.",
+    "point.temperature_K": "Static temperature.",
+    "point.pressure_Pa": "Static absolute pressure.",
+    "point.enthalpy_J_kg": "Specific enthalpy (the model's own reference state: compare differences).",
+    "point.entropy_J_kgK": "Specific entropy (the model's own reference state: compare differences).",
+    "point.density_kg_m3": "Density.",
+    "point.velocity_m_s": "Velocity of the stream at this point.",
+    "point.humidity_ratio": "Water vapour per unit mass of dry air, kg/kg.",
+    "point.relative_humidity": "Relative humidity, as a fraction.",
+    "point.dew_point_K": "Dew point at the point's pressure (null for dry air).",
+}
+
+_SUFFIX_UNITS = [  # longest first
+    ("_per_kWh", "money/kWh"), ("_per_m3", "money/m³"), ("_kWh", "kWh"), ("_kW_per_m3_min", "kW/(m³/min)"), ("_J_kgK", "J/(kg·K)"), ("_kg_m3", "kg/m³"), ("_J_kg", "J/kg"),
+    ("_kg_s", "kg/s"), ("_m3_s", "m³/s"), ("_W_K", "W/K"), ("_m_s", "m/s"), ("_Pa", "Pa"),
+    ("_K", "K"), ("_W", "W"), ("_m", "m"),
+]
+
+
+def unit_of(key: str) -> str:
+    """The SI unit a key's name carries (``discharge_pressure_Pa`` → ``Pa``), or ``""``.
+
+    >>> unit_of("stages[].cooler.duty_W"), unit_of("isothermal_efficiency")
+    ('W', '')
+    """
+    last = key.rsplit(".", 1)[-1]
+    for suffix, unit in _SUFFIX_UNITS:
+        if last.endswith(suffix):
+            return unit
+    return ""
+
+
+def _g(x: float) -> str:
+    if math.isinf(x):
+        return "∞" if x > 0 else "−∞"
+    return f"{x:g}".replace("e+0", "e").replace("e+", "e")
+
+
+def _describe(node) -> tuple[str, str, str, str]:
+    """(type, unit, allowed values, default) of a schema node, as table text."""
+    null = " or null" if getattr(node, "nullable", False) else ""
+    if isinstance(node, Num):
+        lo, hi = ("(" if node.lo_open else "["), (")" if node.hi_open else "]")
+        kind = "integer" if node.integer else "number"
+        rng = f"{lo}{_g(node.lo)}, {_g(node.hi)}{hi}"
+        typ, unit = kind + null, node.unit
+    elif isinstance(node, Choice):
+        typ, unit, rng = "text" + null, "", ", ".join(f"`{o}`" for o in node.options)
+    elif isinstance(node, Text):
+        typ, unit, rng = "text" + null, "", f"up to {node.max_length} characters"
+    elif isinstance(node, Items):
+        typ, unit, rng = "list", "", f"{node.min_length} to {node.max_length} items"
+    elif isinstance(node, (Obj, Variant)):
+        typ, unit, rng = "object" + null, "", ""
+    else:
+        raise TypeError(node)
+    if getattr(node, "required", False):
+        default = "required"
+    elif getattr(node, "default", MISSING) is MISSING:
+        default = "—"
+    else:
+        d = node.default
+        default = "null" if d is None else (f"`{d!r}`".replace("'", '"') if isinstance(d, (str, dict)) else _g(d))
+    return typ, unit, rng, default
+
+
+def _key_cell(path: str) -> str:
+    m = re.search(r"\{(\w+)\}", path)
+    shown = re.sub(r"\{\w+\}", "", path)
+    return f"`{shown}`" + (f" (kind `{m.group(1)}`)" if m else "")
+
+
+def project_key_table() -> str:
+    """Markdown table of every project key: key, type, unit, allowed values, default, meaning."""
+    rows = ["| Key | Type | Unit | Allowed | Default | Meaning |", "|---|---|---|---|---|---|"]
+    for path, node in walk(PROJECT):
+        typ, unit, rng, default = _describe(node)
+        meaning = PROJECT_KEYS.get(path, "**(no description: add one in thermo/schema_docs.py)**")
+        rows.append(f"| {_key_cell(path)} | {typ} | {unit} | {rng} | {default} | {meaning} |")
+    return "\n".join(rows) + "\n"
+
+
+def result_key_table() -> str:
+    """Markdown table of every results key (``solve --json``), with the unit its name carries."""
+    rows = ["| Key | Unit | Meaning |", "|---|---|---|"]
+    for path, meaning in RESULT_KEYS.items():
+        rows.append(f"| `{path}` | {unit_of(path)} | {meaning} |")
+    return "\n".join(rows) + "\n"
+
+
+def result_paths(result: dict) -> set[str]:
+    """Paths of every key in a ``to_dict()`` result, in the notation of :data:`RESULT_KEYS`.
+
+    Every state-point object (the shape of ``result["intake"]``) is one path; its keys
+    are listed once, as ``point.<key>``.
+    """
+    point_keys = set(result["intake"])
+    out = {f"point.{k}" for k in point_keys}
+
+    def visit(value, path):
+        if isinstance(value, dict):
+            if path and not path.endswith("[]"):  # a list's entries are described by the list
+                out.add(path)
+            if set(value) == point_keys and path:
+                return
+            for k, v in value.items():
+                visit(v, f"{path}.{k}" if path else k)
+        elif isinstance(value, list):
+            out.add(path)
+            for v in value:
+                if isinstance(v, (dict, list)):  # a list of numbers is described by the list
+                    visit(v, f"{path}[]")
+        else:
+            out.add(path)
+
+    visit(result, "")
+    return out
+
+
+_BLOCKS = {"PROJECT KEYS": project_key_table, "RESULT KEYS": result_key_table}
+
+
+def render(text: str) -> str:
+    """``text`` with every generated block replaced by its current content."""
+    for name, make in _BLOCKS.items():
+        begin = f"<!-- BEGIN {name} (generated by `python -m thermo.schema_docs --write`; do not edit) -->\n"
+        end = f"<!-- END {name} -->"
+        pattern = re.compile(re.escape(begin) + r".*?" + re.escape(end), re.DOTALL)
+        if not pattern.search(text):
+            raise ValueError(f"marker {begin.strip()} … {end} not found")
+        text = pattern.sub(lambda _m: begin + make() + end, text)
+    return text
+
+
+def update_document(path: Path) -> bool:
+    """Rewrite the generated blocks of ``path``; True if anything changed."""
+    old = path.read_text(encoding="utf-8")
+    new = render(old)
+    if new != old:
+        path.write_text(new, encoding="utf-8")
+    return new != old
+
+
+if __name__ == "__main__":  # pragma: no cover - a developer tool
+    doc = Path(__file__).resolve().parent.parent / "docs" / "project-format.md"
+    if "--write" in sys.argv:
+        print(f"{doc}: {'updated' if update_document(doc) else 'already up to date'}")
+    else:
+        sys.stdout.write(project_key_table() + "\n" + result_key_table())
