@@ -132,6 +132,7 @@ class StudyPanel(QWidget):
         right.addWidget(self.results, 1)
         lay.addLayout(right, 1)
         self._side_by_side = None
+        self._split_sized = False
         self._arrange(True)
         self._show_case_row()
         self.figure = self.canvas = self.toolbar = None
@@ -145,6 +146,7 @@ class StudyPanel(QWidget):
         if side_by_side == self._side_by_side:
             return
         self._side_by_side = side_by_side
+        self._split_sized = False
         if side_by_side:
             self.tabs.clear()
             self.splitter.addWidget(self.comparison)
@@ -162,7 +164,11 @@ class StudyPanel(QWidget):
     def resizeEvent(self, event) -> None:
         super().resizeEvent(event)
         room = event.size().width() - self._controls_scroll.width()
+        was = self._side_by_side and self._split_sized
         self._arrange(room >= _SIDE_BY_SIDE_PX)
+        if self._side_by_side and not was:  # the table's wide size hint would take nearly all
+            self.splitter.setSizes([int(room * 0.55), int(room * 0.45)])
+            self._split_sized = True
 
     def _controls(self) -> QWidget:
         box = QWidget()
