@@ -264,3 +264,25 @@ def test_the_panel_has_a_view_toggle_and_its_layout_is_remembered(qtbot, tmp_pat
     qtbot.waitUntil(lambda: again.docks["study"].isFloating() and not again.docks["study"].isVisible(),
                     timeout=5000)
     again.close()
+
+
+def test_bad_study_input_is_reported_with_its_field(qtbot, tmp_path):
+    win = make_window(qtbot, tmp_path, perfect_gas_doc())
+    panel, msgs = win.panels["study"], win.panels["messages"]
+    panel.variable.setCurrentIndex(panel.variable.findData("ambient_temperature_K"))
+    panel.values.setText("5, warm")
+    win.action_map["study.run"].trigger()
+    assert not panel.busy and panel.values.property("invalid") is True
+    assert panel.status.text() == "Values: 'warm' is not a number."
+    panel.values.setText("5, 80")  # above the project format's 60 °C (333.15 K) ambient
+    with qtbot.waitSignal(panel.controller.failed, timeout=STUDY_MS):
+        win.action_map["study.run"].trigger()
+    problems = [m for m in msgs.messages if m.severity == "problem"]
+    assert len(problems) == 1 and problems[0].field == "site.ambient_temperature_K"
+    assert problems[0].text.startswith("The staging study could not run:")
+    panel.table.selectRow(0)  # unrelated state changes keep the message
+    assert [m.field for m in msgs.messages if m.severity == "problem"] == ["site.ambient_temperature_K"]
+    msgs._clicked(msgs.list.item(msgs.messages.index(problems[0])))
+    field = win.panels["site"].field_for("site.ambient_temperature_K")
+    qtbot.waitUntil(lambda: field.edit.hasFocus(), timeout=2000)
+    win.close()

@@ -59,6 +59,7 @@ class StudyPanel(QWidget):
         self._values_si: list[float] = []
         self._values_system = editor.prefs.system
         self.messages: list[Message] = []
+        self._failure: tuple | None = None  # (message, study key) of a study that could not run
         self._build()
         c = self.controller
         c.progress.connect(self._on_progress)
@@ -355,6 +356,7 @@ class StudyPanel(QWidget):
         req = StudyRequest(doc, self.max_stages.value(), float(self.hours.value()), float(self.price.value()),
                            variable, values)
         self._pending = (doc, study_key(doc), variable, values)
+        self._failure = None
         self.progress.setValue(0)
         self.controller.run(req)
         what = (f"{len(values)} value(s) of {VARIABLES[variable][0].lower()}, " if variable else "")
@@ -413,13 +415,15 @@ class StudyPanel(QWidget):
                          else "Cancelled before the first option was finished.")
 
     def _on_failed(self, job: int, message: str, field: str) -> None:
+        key = self._pending[1] if self._pending else ""
         self._pending = None
         self.answer, self._doc, self._key = None, None, ""
         self.progress.setValue(0)
         field = "" if field in _STUDY_INPUTS else field
+        self._failure = (Message("problem", f"The staging study could not run: {message}", field),
+                         key)
         self._set_status(f"The study could not run: {message}")
         self.refresh()
-        self._publish([Message("problem", f"The staging study could not run: {message}", field)])
 
     def _best_text(self) -> str:
         ok = [r for r in self.rows if r["feasible"] and r["driver_power_W"] is not None]
@@ -537,6 +541,9 @@ class StudyPanel(QWidget):
         return super().eventFilter(obj, event)
 
     def _messages(self) -> list[Message]:
+        if self._failure is not None:  # shown until the project changes or the study runs again
+            message, key = self._failure
+            return [message] if key == study_key(self.editor.model.doc) else []
         if self.answer is None or self.is_stale or self._doc is None:
             return []
         ed, system = self.editor, self.editor.prefs.system
