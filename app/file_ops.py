@@ -36,10 +36,10 @@ class FileOps:
         self.action_map["file.revert"].setEnabled(self.path is not None and self.is_modified())
 
     def _load_into(self, doc: dict, path: Path | None, dirty: bool = False) -> None:
+        self.dirty_without_undo = dirty  # first: clearing the stack must not drop a recovery
         self.editor.undo_stack.clear()
         self.path = Path(path) if path else None
         self.untitled_name = "Untitled"
-        self.dirty_without_undo = dirty
         self.editor.model.replace(doc)
         self.editor.undo_stack.setClean()
         self.update_title()
@@ -65,7 +65,10 @@ class FileOps:
         answer = self.ask_save_changes()
         if answer == "save":
             return self.save()
-        return answer == "discard"
+        if answer == "discard":
+            self.after_discard()
+            return True
+        return False
 
     # ---- commands ------------------------------------------------------------------------
     def new_project(self) -> None:
@@ -129,7 +132,12 @@ class FileOps:
         return True
 
     def after_save(self) -> None:
-        """Hook (recovery files are cleared here once autosave is wired)."""
+        """The saved file is the truth again: no recovery file."""
+        self.clear_recovery_file()
+
+    def after_discard(self) -> None:
+        """The user chose to drop unsaved changes: the recovery file goes too."""
+        self.clear_recovery_file()
 
     def revert(self) -> None:
         if self.path is None or not self.is_modified():

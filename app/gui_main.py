@@ -64,6 +64,7 @@ def run_gui(project: str | None = None, screenshot: str | None = None, size: str
 
     from .icons import icon
     from .main_window import MainWindow
+    from .recovery_ops import AUTOSAVE_MS
     from .style import apply_style
 
     app = QApplication.instance() or QApplication(sys.argv[:1])
@@ -88,7 +89,8 @@ def run_gui(project: str | None = None, screenshot: str | None = None, size: str
     if screenshot:  # a screenshot never depends on (or changes) the user's saved layout
         tmp = tempfile.TemporaryDirectory(prefix="stagewright-shot-")
         settings = QSettings(str(Path(tmp.name) / "settings.ini"), QSettings.IniFormat)
-    window = MainWindow(doc, path if project else None, settings=settings, restore_layout=not screenshot)
+    window = MainWindow(doc, path if project else None, settings=settings, restore_layout=not screenshot,
+                        autosave_ms=None if screenshot else AUTOSAVE_MS)
     if path is not None and not project:
         window.untitled_name = f"Demo ({path.name})"  # Save asks for a name: the sample stays as it is
         window.update_title()
@@ -107,4 +109,5 @@ def run_gui(project: str | None = None, screenshot: str | None = None, size: str
     window.show()
     if error:
         window.show_error("Cannot open project", error)
+    window.offer_recovery()
     return app.exec()

@@ -21,6 +21,7 @@ from .document_model import ProjectModel
 from .editor import Editor
 from .export_ops import ExportOps
 from .file_ops import FileOps
+from .recovery_ops import AUTOSAVE_MS, RecoveryOps
 from .help_dialogs import CautionsDialog, about_text
 from .icons import icon
 from .panels.balance_panel import BalancePanel
@@ -34,7 +35,7 @@ from .panels.train_panel import TrainPanel
 STATE_VERSION = 2  #: bump when panels are added or renamed, so old saved layouts are ignored
 
 
-class MainWindow(FileOps, ExportOps, QMainWindow):
+class MainWindow(FileOps, ExportOps, RecoveryOps, QMainWindow):
     """One project per window.
 
     Parameters
@@ -47,10 +48,12 @@ class MainWindow(FileOps, ExportOps, QMainWindow):
         Where layout, unit system and recent files live (tests pass a temporary file).
     debounce_ms : int
         Delay between the last edit and the solve.
+    autosave_ms : int or None
+        Delay from a change to the recovery-file write (None: no autosave).
     """
 
     def __init__(self, doc: dict | None = None, path=None, settings: QSettings | None = None,
-                 debounce_ms: int = 150, restore_layout: bool = True):
+                 debounce_ms: int = 150, restore_layout: bool = True, autosave_ms: int | None = AUTOSAVE_MS):
         super().__init__()
         self.settings = settings if settings is not None else QSettings()
         system = self.settings.value("display/system", "SI")
@@ -100,6 +103,7 @@ class MainWindow(FileOps, ExportOps, QMainWindow):
         self._restore_layout = restore_layout
         self.update_title()
         self._on_prefs()
+        self.setup_autosave(autosave_ms)
         self.editor.solve_now(immediate=True)
 
     def _on_undo_changed(self, *_args) -> None:
@@ -332,6 +336,7 @@ class MainWindow(FileOps, ExportOps, QMainWindow):
             return
         self.wait_for_export()
         self.panels["study"].shutdown()
+        self.clear_recovery_file()  # a clean exit: the work is saved or was let go
         self.editor.shutdown()
         self.settings.setValue("window/geometry", self.saveGeometry())
         self.settings.setValue("window/state", self.saveState(STATE_VERSION))

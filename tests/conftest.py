@@ -3,11 +3,14 @@ from __future__ import annotations
 
 import copy
 import os
+import tempfile
 from pathlib import Path
 
 import pytest
 
 os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
+# windows made by tests autosave: never into the user's real recovery folder
+os.environ.setdefault("STAGEWRIGHT_DATA_DIR", tempfile.mkdtemp(prefix="stagewright-test-data-"))
 
 ROOT = Path(__file__).resolve().parent.parent
 SAMPLES = ROOT / "sample_projects"

@@ -237,3 +237,66 @@ def test_save_and_open_round_trip(qtbot, window, tmp_path):
     assert window.editor.model.get("title") == "New compression train"
     assert window.open_path(str(out))
     assert window.editor.model.get("title") == "Saved train" and window.editor.undo_stack.count() == 0
+
+
+def test_site_pressure_switches_between_barometric_and_elevation(qtbot, tmp_path):
+    from thermo.atmosphere import standard_pressure
+    win = make_window(qtbot, tmp_path, simple_real_gas_doc())
+    ed, site = win.editor, win.panels["site"]
+    site._choose_mode("elevation")
+    # 1 bar(a) in the ISO 2533 standard atmosphere: z with standard_pressure(z) = 100 000 Pa
+    z = ed.model.get("site.elevation_m")
+    assert standard_pressure(z) == pytest.approx(1e5, rel=1e-6)
+    assert "barometric_pressure_Pa" not in ed.model.doc["site"]
+    assert site.elevation.isVisibleTo(site) and not site.pressure.isVisibleTo(site)
+    assert ed.undo_stack.undoText() == "Give site pressure as elevation"
+    ed.undo_stack.undo()
+    assert ed.model.doc["site"] == simple_real_gas_doc()["site"]
+    win.close()
+
+
+def test_warned_value_is_highlighted_in_the_balance(qtbot, window):
+    from app.panels.balance_panel import WARNING_BG
+    bal = window.panels["balance"]
+    n = window.editor.solved_jobs
+    window.editor.set_value("stages[0].max_discharge_temperature_K", 400.0)
+    wait_solved(qtbot, window, n)
+    row = bal.row_keys("points").index("stage-1")
+    assert bal.points.item(row, 1).background().color().name() == WARNING_BG
+    from PySide6.QtCore import Qt
+    assert bal.points.item(row + 2, 1).background().style() == Qt.NoBrush  # stage 2 (after cooler 1)
+
+
+def test_help_shows_the_cautions_and_the_deferral_to_local_codes(qtbot, window):
+    from app.cautions import CAUTIONS, DEFERRAL
+    from app.help_dialogs import CautionsDialog
+    dlg = CautionsDialog(window)
+    text = dlg.browser.toPlainText()
+    for title, body in CAUTIONS:
+        assert title in text and body[:60] in text
+    assert DEFERRAL[:80] in text
+    assert window.action_map["help.cautions"].isEnabled()
+
+
+def test_problem_and_failure_messages_select_their_fields(qtbot, tmp_path):
+    win = make_window(qtbot, tmp_path, simple_real_gas_doc())
+    ed, msgs, duty = win.editor, win.panels["messages"], win.panels["duty"]
+    type_into(qtbot, duty.pressure, "-0.9")  # 0.1 bar(a): below the stage-1 inlet pressure
+    problem = next(m for m in msgs.messages if m.severity == "problem")
+    assert problem.field == "discharge_pressure_Pa" and "Discharge pressure" in problem.text
+    win.panels["train"].stage_form.value.setFocus()
+    msgs._clicked(msgs.list.item(msgs.messages.index(problem)))
+    qtbot.waitUntil(lambda: duty.pressure.edit.hasFocus(), timeout=2000)
+    type_into(qtbot, duty.pressure, "8")
+    # a measured discharge temperature below the isentropic one: the solve fails with a reason
+    n = ed.solved_jobs
+    ed.set_value("stages[1].efficiency", {"kind": "discharge_temperature", "value_K": 300.0})
+    qtbot.waitUntil(lambda: ed.failure is not None, timeout=30_000)
+    failed = next(m for m in msgs.messages if m.severity == "problem")
+    assert failed.field == "stages[1].efficiency.value_K" and failed.text.startswith("The train could not be solved")
+    assert win.panels["balance"].is_stale and ed.solved_jobs == n
+    msgs._clicked(msgs.list.item(msgs.messages.index(failed)))
+    train = win.panels["train"]
+    assert train.selected_stage() == 1 and train.stage_form.value.path == "stages[1].efficiency.value_K"
+    qtbot.waitUntil(lambda: train.stage_form.value.edit.hasFocus(), timeout=2000)
+    win.close()

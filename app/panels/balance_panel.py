@@ -9,11 +9,14 @@ from __future__ import annotations
 __all__ = ["BalancePanel", "POINT_COLUMNS", "COMPONENT_COLUMNS", "TOTALS"]
 
 from PySide6.QtCore import Qt
+from PySide6.QtGui import QBrush, QColor
 from PySide6.QtWidgets import (QAbstractItemView, QHeaderView, QLabel, QSplitter, QTableWidget,
                                QTableWidgetItem, QVBoxLayout, QWidget)
 
 from .. import units
+from ..doc_paths import stage_index
 
+WARNING_BG = "#fde7c4"  # a value a warning in Messages is about
 #: (key, header, quantity, getter of the SI value from a point dict)
 POINT_COLUMNS = [
     ("T", "T", "temperature", lambda p: p["temperature_K"]),
@@ -197,11 +200,25 @@ class BalancePanel(QWidget):
         rows = self._points_of(r)
         self.points.setRowCount(len(rows))
         self._row_keys["points"] = [k for k, _, _ in rows]
-        for row, (_, label, p) in enumerate(rows):
+        hot = {f"stage-{i + 1}" for i in self._over_limit(r)}
+        for row, (key, label, p) in enumerate(rows):
             self._set(self.points, row, 0, label, left=True)
-            for col, (key, _, q, get) in enumerate(POINT_COLUMNS, 1):
+            for col, (ck, _, q, get) in enumerate(POINT_COLUMNS, 1):
                 kw = self._pressure_kw() if q == "pressure" else {}
-                self._set(self.points, row, col, units.format_value(get(p), q, system, **kw))
+                item = self._set(self.points, row, col, units.format_value(get(p), q, system, **kw))
+                flagged = key in hot and ck == "T"
+                item.setBackground(QColor(WARNING_BG) if flagged else QBrush())
+                item.setToolTip("Above this stage's discharge temperature limit (see Messages)" if flagged else "")
+
+    @staticmethod
+    def _over_limit(r: dict) -> set[int]:
+        """Stages whose discharge-temperature warning the result carries (0-based)."""
+        out = set()
+        for w in r.get("warnings", []):
+            i = stage_index(w.get("field", ""))
+            if i is not None and w["field"].endswith("max_discharge_temperature_K"):
+                out.add(i)
+        return out
 
     def _fill_components(self, r: dict, system: str) -> None:
         f = r["inlet_filter"]
@@ -252,3 +269,4 @@ class BalancePanel(QWidget):
             font = item.font()
             font.setBold(bold)
             item.setFont(font)
+        return item
