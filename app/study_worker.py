@@ -90,6 +90,7 @@ class StudyController(QObject):
         self._job = 0
         self._busy = False
         self._cancel = threading.Event()
+        self._current = [self._cancel]  # the running job's event, for the destroyed handler
         self._thread = QThread()
         self._thread.setObjectName("stagewright-study")
         self._worker = StudyWorker(lambda: self._job)
@@ -101,8 +102,9 @@ class StudyController(QObject):
         self._worker.cancelled.connect(self._on_cancelled)
         self._worker.failed.connect(self._on_failed)
         self._thread.start()
-        thread = self._thread  # never let a running QThread be destroyed (Qt aborts)
-        self.destroyed.connect(lambda *_: _stop_thread(thread))
+        # never let a running QThread be destroyed (Qt aborts): stop the study, then the thread
+        thread, current = self._thread, self._current
+        self.destroyed.connect(lambda *_: (current[0].set(), _stop_thread(thread)))
 
     @property
     def latest_job(self) -> int:
@@ -117,6 +119,7 @@ class StudyController(QObject):
         """Start a study (a job still running is cancelled and its answer dropped)."""
         self._cancel.set()
         self._cancel = threading.Event()
+        self._current[0] = self._cancel
         self._job += 1
         self._busy = True
         self.started.emit(self._job)
