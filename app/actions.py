@@ -48,12 +48,12 @@ ACTIONS = [
     ActionSpec("train.toggle_cooler", "Add cooler", "train.toggle_cooler", "Ctrl+Shift+C", "cooler",
                "Add or remove the cooler after the selected stage"),
     ActionSpec("train.solve", "Solve now", "window.solve_now", "F5", "", "Solve the train again now"),
-    ActionSpec("study.run", "Run staging study", "study.run_study", "F6", "run_study",
-               "Compare 1 … N stages, each at its least-power pressure split (runs in the background)",
-               short="Run study"),
-    ActionSpec("study.cancel", "Cancel study", "study.cancel_study", "", "std:SP_BrowserStop",
+    ActionSpec("train.study", "Run staging study", "window.run_study", "F6", "run_study",
+               "Compare 1 to N stages, each at its best split within the stage limits", False, "Run study"),
+    ActionSpec("train.study_cancel", "Cancel staging study", "study.cancel_study", "", "std:SP_BrowserStop",
                "Stop the running staging study (the options finished so far are kept)", short="Cancel"),
-    ActionSpec("study.apply", "Apply selected option", "study.apply_selected", "", "std:SP_DialogApplyButton",
+    ActionSpec("train.study_apply", "Apply selected option", "study.apply_selected", "",
+               "std:SP_DialogApplyButton",
                "Put the selected option's stages and pressure ratios into the project (one undo step)"),
     ActionSpec("view.us_units", "US customary units", "window.set_us_units", "Ctrl+U", "",
                "Show every field and table in US customary units (the project stays in SI)", True,
@@ -73,11 +73,11 @@ MENUS = {
               "file.export", "-", "file.quit"],
     "&Edit": ["@undo", "@redo"],
     "&Train": ["train.add_stage", "train.insert_stage", "train.duplicate_stage", "train.remove_stage", "-",
-               "train.move_up", "train.move_down", "-", "train.toggle_cooler", "-", "train.solve"],
-    "&Study": ["study.run", "study.cancel", "-", "study.apply"],
+               "train.move_up", "train.move_down", "-", "train.toggle_cooler", "-", "train.solve", "-",
+               "train.study", "train.study_cancel", "train.study_apply"],
     "&View": ["view.us_units", "view.gauge", "-", "@panels", "-", "view.reset_layout"],
     "&Help": ["help.cautions", "-", "help.about"],
 }
 
 TOOLBAR = ["file.new", "file.open", "file.save", "-", "@undo", "@redo", "-", "train.add_stage",
-           "train.remove_stage", "train.toggle_cooler", "-", "study.run", "-", "view.us_units"]
+           "train.remove_stage", "train.toggle_cooler", "-", "train.study", "-", "view.us_units"]

@@ -22,6 +22,7 @@ from .editor import Editor
 from .export_ops import ExportOps
 from .file_ops import FileOps
 from .recovery_ops import AUTOSAVE_MS, RecoveryOps
+from .study_ops import StudyOps
 from .help_dialogs import CautionsDialog, about_text
 from .icons import icon
 from .panels.balance_panel import BalancePanel
@@ -35,7 +36,7 @@ from .panels.train_panel import TrainPanel
 STATE_VERSION = 2  #: bump when panels are added or renamed, so old saved layouts are ignored
 
 
-class MainWindow(FileOps, ExportOps, RecoveryOps, QMainWindow):
+class MainWindow(FileOps, ExportOps, RecoveryOps, StudyOps, QMainWindow):
     """One project per window.
 
     Parameters
@@ -86,6 +87,7 @@ class MainWindow(FileOps, ExportOps, RecoveryOps, QMainWindow):
         self.panels["train"].set_actions(self.action_map)
         self.panels["study"].set_actions(self.action_map)
         self.panels["study"].messages_changed.connect(self.panels["messages"].set_source_messages)
+        self.connect_study()
         self.panels["messages"].count_changed.connect(self._on_message_count)
         self._build_menus()
         self._build_status()
@@ -312,7 +314,15 @@ class MainWindow(FileOps, ExportOps, RecoveryOps, QMainWindow):
             self._default_state = self.saveState(STATE_VERSION)
             if self._restore_layout:
                 QTimer.singleShot(0, self._restore_saved_layout)
-            QTimer.singleShot(0, self.charts.ensure_canvases)  # matplotlib after the first paint
+            # matplotlib (slow to import) only after the first paint and the first answer, so
+            # the balance sheet is filled first; a timer in case that answer takes long
+            self.editor.result_changed.connect(self._load_charts_soon)
+            QTimer.singleShot(1500, self.charts.ensure_canvases)
+
+    def _load_charts_soon(self) -> None:
+        if self.editor.solved_jobs or self.editor.failure or not self.editor.solver.busy:
+            self.editor.result_changed.disconnect(self._load_charts_soon)
+            QTimer.singleShot(10, self.charts.ensure_canvases)
 
     def _restore_saved_layout(self) -> None:
         geometry = self.settings.value("window/geometry")
@@ -335,7 +345,7 @@ class MainWindow(FileOps, ExportOps, RecoveryOps, QMainWindow):
             event.ignore()
             return
         self.wait_for_export()
-        self.panels["study"].shutdown()
+        self.stop_study()
         self.clear_recovery_file()  # a clean exit: the work is saved or was let go
         self.editor.shutdown()
         self.settings.setValue("window/geometry", self.saveGeometry())

@@ -38,22 +38,24 @@ def child() -> int:
     apply_style(app)
     with tempfile.TemporaryDirectory() as tmp:
         settings = QSettings(str(Path(tmp) / "s.ini"), QSettings.IniFormat)
-        win = MainWindow(load(DEMO_PROJECT), settings=settings, restore_layout=False)
-        win.show()
-        app.processEvents()
-        print("shown", flush=True)
+        win = MainWindow(load(DEMO_PROJECT), settings=settings, restore_layout=False, autosave_ms=None)
         loop = QEventLoop()
         charts = win.panels["charts"]
+        state = {"solved": False}
 
         def check():
-            if win.editor.solved_jobs and not getattr(check, "solved", False):
-                check.solved = True
+            if win.editor.solved_jobs and not state["solved"]:
+                state["solved"] = True
                 print("solved", flush=True)
-            if check.__dict__.get("solved") and charts.ts is not None and charts.ts.pending is None:
+            if state["solved"] and charts.ts is not None and charts.ts.pending is None:
                 charts.ts.canvas.draw()
                 print("charts", flush=True)
                 loop.quit()
-        win.editor.result_changed.connect(check)
+        win.editor.result_changed.connect(check)  # before show: the window's own slots come later
+        win.show()
+        app.processEvents()
+        print("shown", flush=True)
+        check()
         timer = QTimer()
         timer.timeout.connect(check)
         timer.start(5)

@@ -300,3 +300,53 @@ def test_problem_and_failure_messages_select_their_fields(qtbot, tmp_path):
     assert train.selected_stage() == 1 and train.stage_form.value.path == "stages[1].efficiency.value_K"
     qtbot.waitUntil(lambda: train.stage_form.value.edit.hasFocus(), timeout=2000)
     win.close()
+
+
+def test_staging_study_runs_off_the_gui_thread_and_fills_its_tab(qtbot, tmp_path, doc_factory):
+    # perfect gas, equal stages, intercooling back to the intake temperature, no drops: the
+    # optimum split is the equal one and an N-stage train needs
+    # N * m cp T1 (r^((k-1)/k) - 1) / eta_s with r = 9^(1/N)
+    # (Çengel & Boles, Thermodynamics, 8th ed., §7-11, multistage compression with intercooling)
+    win = make_window(qtbot, tmp_path, doc_factory())
+    win.action_map["train.study"].trigger()
+    tab = win.panels["charts"].study
+    qtbot.waitUntil(lambda: bool(tab.rows), timeout=60_000)
+    assert win.panels["charts"].tabs.currentWidget() is tab
+    by_n = {r["stages"]: r for r in tab.rows}
+    assert sorted(by_n) == [1, 2, 3, 4]
+    for n in (1, 2, 3):
+        r = 9.0 ** (1.0 / n)
+        expected_W = n * 1.0 * 1005.0 * 293.15 * (r ** (0.4 / 1.4) - 1.0) / 0.8
+        assert by_n[n]["driver_power_W"] == pytest.approx(expected_W, rel=1e-4)
+        assert shown_number(tab.table.item(n - 1, 2).text()) == pytest.approx(expected_W / 1000.0, abs=0.01)
+    from matplotlib.lines import Line2D
+    assert any(a.get_gid() == "staging-power" for a in tab.figure.findobj(Line2D))
+    win.editor.set_value("stages[0].efficiency.value", 0.75)
+    assert tab.stale.isVisibleTo(tab)
+    win.close()
+
+
+def test_layout_and_display_choices_are_remembered(qtbot, tmp_path):
+    from PySide6.QtCore import QSettings
+
+    from app.main_window import MainWindow
+    win = make_window(qtbot, tmp_path, simple_real_gas_doc())
+    win.docks["messages"].hide()
+    win.action_map["view.us_units"].trigger()
+    assert win.close()
+    settings = QSettings(str(tmp_path / "settings.ini"), QSettings.IniFormat)
+    assert settings.value("display/system") == "US"
+    again = MainWindow(simple_real_gas_doc(), settings=settings, debounce_ms=10, autosave_ms=None)
+    qtbot.addWidget(again)
+    again.show()
+    qtbot.waitUntil(lambda: not again.docks["messages"].isVisible() and again.docks["site"].isVisible(),
+                    timeout=5000)
+    assert again.prefs.system == "US"
+    settings.setValue("window/state", "not a saved state")  # junk is ignored, never evaluated
+    junk = MainWindow(simple_real_gas_doc(), settings=settings, debounce_ms=10, autosave_ms=None)
+    qtbot.addWidget(junk)
+    junk.show()
+    qtbot.wait(50)
+    assert junk.docks["messages"].isVisible()
+    again.close()
+    junk.close()

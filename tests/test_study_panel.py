@@ -58,7 +58,7 @@ def run(qtbot, win, n: int):
     panel = win.panels["study"]
     panel.max_stages.setValue(n)
     with qtbot.waitSignal(panel.controller.finished, timeout=STUDY_MS):
-        win.action_map["study.run"].trigger()
+        win.action_map["train.study"].trigger()
     return panel
 
 
@@ -75,7 +75,7 @@ def test_a_study_fills_the_table_with_the_classical_optimum(qtbot, tmp_path):
     assert panel.header_text("power") == "Driver power\n[kW]"
     assert "repeats the project's first stage" in panel.note.text() and "aftercooler" in panel.note.text()
     assert panel.progress.value() == 1000 and not panel.busy
-    assert win.action_map["study.run"].isEnabled() and not win.action_map["study.cancel"].isEnabled()
+    assert win.action_map["train.study"].isEnabled() and not win.action_map["train.study_cancel"].isEnabled()
     # the chart shows the same numbers: power against stage count, in kW
     from matplotlib.lines import Line2D
     (power,) = [ln for ln in panel.figure.findobj(Line2D) if ln.get_gid() == "staging-power"]
@@ -106,16 +106,16 @@ def test_cancel_stops_the_study_and_the_window_stays_usable(qtbot, tmp_path, mon
     win = make_window(qtbot, tmp_path, perfect_gas_doc())
     panel = win.panels["study"]
     panel.max_stages.setValue(6)
-    win.action_map["study.run"].trigger()
+    win.action_map["train.study"].trigger()
     qtbot.waitUntil(lambda: held.is_set() and panel.progress.value() > 0, timeout=STUDY_MS)
-    assert panel.busy and win.action_map["study.cancel"].isEnabled()
-    assert not win.action_map["study.run"].isEnabled() and not panel.max_stages.isEnabled()
+    assert panel.busy and win.action_map["train.study_cancel"].isEnabled()
+    assert not win.action_map["train.study"].isEnabled() and not panel.max_stages.isEnabled()
     with qtbot.waitSignal(panel.controller.cancelled, timeout=STUDY_MS):
-        win.action_map["study.cancel"].trigger()
+        win.action_map["train.study_cancel"].trigger()
     assert not panel.busy
     assert [r["stages"] for r in panel.rows] == [1]  # what was finished is kept
     assert panel.status.text().startswith("Cancelled")
-    assert win.action_map["study.run"].isEnabled() and not win.action_map["study.cancel"].isEnabled()
+    assert win.action_map["train.study"].isEnabled() and not win.action_map["train.study_cancel"].isEnabled()
 
     # the window still edits, solves and studies
     n = win.editor.solved_jobs
@@ -133,7 +133,7 @@ def test_apply_is_one_undo_step_and_undo_restores_the_document_exactly(qtbot, tm
     before, count = dumps(ed.model.doc), ed.undo_stack.count()
     panel = run(qtbot, win, 3)
     panel.select_option(3)
-    act = win.action_map["study.apply"]
+    act = win.action_map["train.study_apply"]
     assert act.isEnabled() and act.text() == "Apply 3-stage option"
     n = ed.solved_jobs
     act.trigger()
@@ -145,6 +145,8 @@ def test_apply_is_one_undo_step_and_undo_restores_the_document_exactly(qtbot, tm
     # the project now solves to the option's numbers: 3 × the closed-form stage work
     assert number(bal.value_text("totals", "driver_power_W", "")) == pytest.approx(optimum_kW(3), abs=0.006)
     assert not panel.is_stale  # same first stage and aftercooler: the study still describes the project
+    tab = win.panels["charts"].study  # the charts area's Staging study tab follows the panel
+    assert tab.rows == panel.rows and not tab.stale.isVisibleTo(tab)
 
     n = ed.solved_jobs
     ed.undo_stack.undo()
@@ -190,7 +192,7 @@ def test_limits_go_to_messages_and_select_their_field(qtbot, tmp_path):
     assert "176.85 °C" in warnings[0].text  # the 450 K limit in display units
     assert any(m.severity == "caution" and "discharge temperature" in m.text for m in msgs.messages)
     panel.select_option(1)
-    assert not win.action_map["study.apply"].isEnabled()  # an option that misses its limits is no design
+    assert not win.action_map["train.study_apply"].isEnabled()  # an option that misses its limits is no design
 
     train.select("cooler", 1)
     msgs._clicked(msgs.list.item(msgs.messages.index(warnings[0])))
@@ -205,7 +207,7 @@ def test_limits_go_to_messages_and_select_their_field(qtbot, tmp_path):
     assert panel.is_stale and panel.banner.isVisibleTo(panel)
     assert not any("stage option" in m.text for m in msgs.messages)
     panel.select_option(2)
-    assert not win.action_map["study.apply"].isEnabled()
+    assert not win.action_map["train.study_apply"].isEnabled()
     win.close()
 
 
@@ -225,7 +227,7 @@ def test_a_site_variable_gives_one_case_per_value(qtbot, tmp_path):
         w = isentropic_work_compression(T1=t_amb, k=1.4, Z=1.0, P1=1e5, P2=9e5, eta=0.8) / M_AIR / 1000.0
         assert number(panel.cell_text(0, "power")) == pytest.approx(w, abs=0.006)
     panel.select_option(2)
-    assert not win.action_map["study.apply"].isEnabled()  # other site conditions than the project's
+    assert not win.action_map["train.study_apply"].isEnabled()  # other site conditions than the project's
     win.action_map["view.us_units"].trigger()
     assert panel.values.text() == "41, 59" and panel.values_unit.text() == "°F"  # exact (NIST SP 811)
     win.close()
@@ -247,10 +249,10 @@ def test_the_panel_has_a_view_toggle_and_its_layout_is_remembered(qtbot, tmp_pat
     win = make_window(qtbot, tmp_path, perfect_gas_doc())
     view = next(a.menu() for a in win.menuBar().actions() if a.text() == "&View")
     toggle = next(a for a in view.actions() if a.text() == "Staging study")
-    study = next(a.menu() for a in win.menuBar().actions() if a.text() == "&Study")
-    assert win.action_map["study.run"] in study.actions()
-    assert not win.action_map["study.run"].icon().isNull()  # icons/run_study.svg
-    assert win.action_map["study.run"] in win.findChild(QToolBar, "toolbar-main").actions()
+    study = next(a.menu() for a in win.menuBar().actions() if a.text() == "&Train")
+    assert win.action_map["train.study"] in study.actions()
+    assert not win.action_map["train.study"].icon().isNull()  # icons/run_study.svg
+    assert win.action_map["train.study"] in win.findChild(QToolBar, "toolbar-main").actions()
     win.docks["study"].setFloating(True)
     toggle.trigger()
     assert not win.docks["study"].isVisible()
@@ -271,12 +273,12 @@ def test_bad_study_input_is_reported_with_its_field(qtbot, tmp_path):
     panel, msgs = win.panels["study"], win.panels["messages"]
     panel.variable.setCurrentIndex(panel.variable.findData("ambient_temperature_K"))
     panel.values.setText("5, warm")
-    win.action_map["study.run"].trigger()
+    win.action_map["train.study"].trigger()
     assert not panel.busy and panel.values.property("invalid") is True
     assert panel.status.text() == "Values: 'warm' is not a number."
     panel.values.setText("5, 80")  # above the project format's 60 °C (333.15 K) ambient
     with qtbot.waitSignal(panel.controller.failed, timeout=STUDY_MS):
-        win.action_map["study.run"].trigger()
+        win.action_map["train.study"].trigger()
     problems = [m for m in msgs.messages if m.severity == "problem"]
     assert len(problems) == 1 and problems[0].field == "site.ambient_temperature_K"
     assert problems[0].text.startswith("The staging study could not run:")

@@ -25,6 +25,7 @@ from ..study_apply import apply_text, option_stages, study_key
 from ..study_display import (COLUMNS, VARIABLES, case_label, cells, format_values, header, limit_messages,
                              parse_values, tooltip)
 from ..study_job import StudyRequest
+from ..study_ops import study_stage_count
 from ..study_worker import StudyController
 from ..widgets.signals_blocked import signals_blocked
 from .messages_panel import Message
@@ -42,10 +43,16 @@ class StudyPanel(QWidget):
     messages_changed(source, messages)
         ``("study", [Message, ...])`` whenever the study's messages change (the window hands
         them to the messages area).
+    shown_changed()
+        The options shown changed (a new answer, another case, other units).
+    stale_changed(stale)
+        The project changed so that the study no longer describes it, or back.
     """
 
     title = "Staging study"
     messages_changed = Signal(str, object)
+    shown_changed = Signal()  #: the rows shown (and so the chart) changed
+    stale_changed = Signal(bool)  #: the study stopped (True) or started again (False) to fit the project
 
     def __init__(self, editor, parent=None):
         super().__init__(parent)
@@ -60,6 +67,7 @@ class StudyPanel(QWidget):
         self._values_system = editor.prefs.system
         self.messages: list[Message] = []
         self._failure: tuple | None = None  # (message, study key) of a study that could not run
+        self._was_stale = False
         self._build()
         c = self.controller
         c.progress.connect(self._on_progress)
@@ -182,7 +190,7 @@ class StudyPanel(QWidget):
         form.setHorizontalSpacing(6)
         self.max_stages = QSpinBox()
         self.max_stages.setRange(1, MAX_STAGES)
-        self.max_stages.setValue(4)  # compare_stagings' own default
+        self.max_stages.setValue(study_stage_count(self.editor.model.stage_count))
         self.max_stages.setToolTip(f"Compare 1 to this many stages (1 … {MAX_STAGES})")
         form.addRow("Up to stages", self.max_stages)
         self.hours = QDoubleSpinBox()
@@ -277,8 +285,8 @@ class StudyPanel(QWidget):
     def set_actions(self, actions: dict) -> None:
         """Put the window's study actions (declared in app/actions.py) on the panel's buttons."""
         self.action_map = actions
-        for key, row in (("study.run", self.buttons), ("study.cancel", self.buttons),
-                         ("study.apply", self.apply_row)):
+        for key, row in (("train.study", self.buttons), ("train.study_cancel", self.buttons),
+                         ("train.study_apply", self.apply_row)):
             if key in actions:
                 b = QToolButton()
                 b.setDefaultAction(actions[key])
@@ -295,6 +303,11 @@ class StudyPanel(QWidget):
         """Comparison rows of the case shown (SI)."""
         case = self._shown_case()
         return case["rows"] if case else []
+
+    @property
+    def study_doc(self) -> dict | None:
+        """The document the shown study ran on."""
+        return self._doc
 
     @property
     def is_stale(self) -> bool:
@@ -335,7 +348,7 @@ class StudyPanel(QWidget):
             dock.raise_()
 
     def run_study(self) -> None:
-        """Start the study of the current document (handler of the "study.run" action)."""
+        """Start the study of the current document (handler of the "train.study" action)."""
         self._raise_dock()
         ed = self.editor
         if ed.problems or ed.entry_errors:
@@ -364,13 +377,13 @@ class StudyPanel(QWidget):
         self._update_state()
 
     def cancel_study(self) -> None:
-        """Stop the running study (handler of the "study.cancel" action)."""
+        """Stop the running study (handler of the "train.study_cancel" action)."""
         if self.controller.busy:
             self.controller.cancel()
             self._set_status("Cancelling…")
 
     def apply_selected(self) -> None:
-        """Put the selected option into the project as one undo step ("study.apply")."""
+        """Put the selected option into the project as one undo step ("train.study_apply")."""
         row = self.selected_row()
         if not self._can_apply(row):
             return
@@ -481,6 +494,7 @@ class StudyPanel(QWidget):
             self._set_status(f"{self.case.currentText()}: not solved: {case['error']}")
         self._draw_chart()
         self._update_state()
+        self.shown_changed.emit()
 
     @staticmethod
     def _best_row(rows: list[dict]) -> int | None:
@@ -576,11 +590,11 @@ class StudyPanel(QWidget):
         busy = self.controller.busy
         row = self.selected_row()
         can_apply = self._can_apply(row)
-        for key, on in (("study.run", not busy), ("study.cancel", busy), ("study.apply", can_apply)):
+        for key, on in (("train.study", not busy), ("train.study_cancel", busy), ("train.study_apply", can_apply)):
             if key in self.action_map:
                 self.action_map[key].setEnabled(on)
-        if "study.apply" in self.action_map:
-            act = self.action_map["study.apply"]
+        if "train.study_apply" in self.action_map:
+            act = self.action_map["train.study_apply"]
             act.setText(f"Apply {row['stages']}-stage option" if row else "Apply selected option")
             if self.answer is not None and self.answer["variable"]:
                 why = "Apply works on a study at the project's own site (Vary site: nothing)."
@@ -595,6 +609,9 @@ class StudyPanel(QWidget):
         for w in (self.max_stages, self.hours, self.price, self.variable, self.values):
             w.setEnabled(not busy)
         stale = self.is_stale
+        if stale != self._was_stale:
+            self._was_stale = stale
+            self.stale_changed.emit(stale)
         self.banner.setVisible(stale)
         self.table.setProperty("stale", stale)
         self._repolish(self.table)
@@ -663,7 +680,9 @@ class StudyPanel(QWidget):
                     self.case.setItemText(i, case_label(self.answer["variable"], case["value"], system))
         self.refresh()
 
-    def _on_model_changed(self, _path: str) -> None:
+    def _on_model_changed(self, path: str) -> None:
+        if path == "" and not self.controller.busy:  # another document: its own default
+            self.max_stages.setValue(study_stage_count(self.editor.model.stage_count))
         if self.answer is None:
             self._update_note()
         self._update_state()
