@@ -50,7 +50,14 @@ def test_free_air_delivery_gives_the_mass_flow_of_ambient_air(path):
     doc, r = load(path), thermo.solve(load(path))
     T0, P0 = doc["site"]["ambient_temperature_K"], r.dead.P0
     # ISO 1217 FAD is at the intake conditions; density from CoolProp PropsSI (HEOS air)
-    assert r.mass_flow_kg_s == pytest.approx(doc["flow"]["value"] * PropsSI("D", "T", T0, "P", P0, "Air"), rel=1e-9)
+    rh = doc["site"].get("relative_humidity", 0.0)
+    if not rh:
+        assert r.mass_flow_kg_s == pytest.approx(doc["flow"]["value"] * PropsSI("D", "T", T0, "P", P0, "Air"),
+                                                 rel=1e-9)
+    else:  # moist intake: dry-air flow = FAD / (moist volume per kg dry air), HAPropsSI (RP-1485)
+        from CoolProp.CoolProp import HAPropsSI
+        v_da = HAPropsSI("Vda", "T", T0, "P", P0, "R", rh)
+        assert r.mass_flow_kg_s == pytest.approx(doc["flow"]["value"] / v_da, rel=1e-4)
 
 
 def test_plant_air_site_pressure_follows_the_standard_atmosphere():

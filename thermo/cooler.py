@@ -5,6 +5,7 @@ __all__ = ["CoolerResult", "solve_cooler", "cooler_outlet_temperature", "outlet_
 
 from dataclasses import dataclass
 
+from .condensate import Condensation, condensation, cooling_line
 from .errors import InputError
 from .exchanger import Exchanger, HotSide, make_coolant, rate_exchanger, size_exchanger
 from .exergy import DeadState, heat_exergy
@@ -28,6 +29,13 @@ class CoolerResult:
     exchanger: Exchanger | None = None  #: coolant side, UA, ε, NTU, LMTD (when a coolant is given)
     #: air-side pressure at the outlet and stagnation inlet temperature, for heat recovery
     stagnation_inlet_temperature_K: float | None = None
+    #: moist air only: condensation and separator (None for dry air)
+    water: Condensation | None = None
+
+    @property
+    def leaving(self) -> Point:
+        """The stream that goes on to the next stage (after the separator for moist air)."""
+        return self.outlet if self.water is None else self.water.after
 
 
 def coolant_inlet_temperature(spec: dict, ambient_K: float) -> float | None:
@@ -102,6 +110,14 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
 
     Notes
     -----
+    For moist air (a :class:`~thermo.humid.MoistAir` model) the outlet is at phase
+    equilibrium: below the dew point at the outlet pressure it is saturated and the rest
+    of the water is liquid. The duty is split into sensible and latent parts and the
+    separator after the cooler removes its fraction of that liquid
+    (:func:`thermo.condensate.condensation`); the entropy balance covers cooler and
+    separator, whose phase split itself generates no entropy. The chart line includes the
+    dew point and ends with the separator step at the outlet temperature.
+
     Without a ``coolant`` entry the heat crosses the boundary at the coolant inlet
     temperature when one is given, otherwise at the site ambient temperature; the
     exchanger's own internal temperature differences and the coolant's warming are then
@@ -129,7 +145,7 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
                          f"expected less than half the cooler inlet pressure ({0.5 * inlet.P:.0f} Pa)")
     exchanger, t_stag = None, inlet.T
     if coolant is not None:
-        h_in0 = inlet.h + 0.5 * inlet_velocity ** 2
+        h_in0 = inlet.h + 0.5 * inlet_velocity ** 2 * getattr(model, "mass_per_dry_kg", 1.0)
         if inlet_velocity > 0.0:
             t_stag = model.at_hp(h_in0, inlet.P, f"{where} inlet (stagnation)", T_guess=inlet.T).T
 
@@ -162,9 +178,24 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
         raise InputError(field, t_out if field.endswith("_temperature_K") else spec["approach_K"],
                          f"cooler outlet {t_out:.2f} K is below the heat-sink temperature "
                          f"{t_b:.2f} K (coolant inlet, or ambient when none is given)")
+    moist = getattr(model, "mixture", None) is not None
+    if moist and t_out < 273.15:
+        raise InputError(field, t_out, "moist air must leave a cooler at 273.15 K or above: condensate "
+                         "would freeze, and ice is out of scope")
     outlet = model.at_tp(t_out, p_out, f"{where} outlet")
-    duty = mass_flow * (inlet.h + 0.5 * inlet_velocity ** 2 - outlet.h)
+    ke = 0.5 * inlet_velocity ** 2 * model.mass_per_dry_kg if moist else 0.5 * inlet_velocity ** 2
+    duty = mass_flow * (inlet.h + ke - outlet.h)
     s_gen = mass_flow * (outlet.s - inlet.s) + duty / t_b
+    if moist:
+        water = condensation(model, inlet, outlet, duty, mass_flow, spec["separator_efficiency"])
+        path = cooling_line(model, inlet, t_out, p_out, where, path_points) + [outlet]
+        if water.drained_kg_s > 0.0:
+            path.append(water.after)
+        return CoolerResult(index=index, inlet=inlet, outlet=outlet, duty_W=duty, boundary_temperature_K=t_b,
+                            heat_exergy_W=heat_exergy(duty, t_b, dead.T0), entropy_generation_W_K=s_gen,
+                            exergy_destroyed_W=dead.T0 * s_gen, path=path,
+                            arrangement=spec.get("arrangement", "counter_flow"), exchanger=exchanger,
+                            stagnation_inlet_temperature_K=t_stag, water=water)
     path = [inlet]
     for k in range(1, path_points):
         f = k / path_points

@@ -7,7 +7,8 @@ inputs instead of a C++ message.
 from __future__ import annotations
 
 __all__ = ["new_air_state", "update_tp", "eos_reference", "coolprop_version",
-           "humid_air_property", "water_saturation_pressure", "new_incompressible_state",
+           "humid_air_property", "water_saturation_pressure", "new_water_state", "water_ideal_gas",
+           "humid_air_coefficient", "liquid_water_density", "new_incompressible_state",
            "incompressible_update_tp", "incompressible_limits"]
 
 from functools import lru_cache
@@ -84,6 +85,56 @@ def water_saturation_pressure(temperature: float) -> float:
         raise PropertyRangeError(f"water saturation pressure unavailable at T = {temperature:.6g} K ({exc})") from None
 
 
+def new_water_state():
+    """Return a fresh CoolProp ``AbstractState`` for water (HEOS back end, IAPWS-95)."""
+    return _CP.AbstractState("HEOS", "Water")
+
+
+def water_ideal_gas(state, temperature: float) -> tuple[float, float, float]:
+    """Ideal-gas part of IAPWS-95 at ``temperature`` [K]: h [J/kg], s° at 101 325 Pa [J/(kg K)], cp [J/(kg K)].
+
+    Parameters
+    ----------
+    state : CoolProp.AbstractState
+        A water state from :func:`new_water_state` (reused).
+    temperature : float
+        Temperature, [K].
+    """
+    r_w = state.gas_constant() / state.molar_mass()
+    state.update(DmassT_INPUTS, 101_325.0 / (r_w * temperature), temperature)
+    return state.hmass_idealgas(), state.smass_idealgas(), state.cp0mass()
+
+
+def humid_air_coefficient(name: str, temperature: float, pressure: float) -> float:
+    """One auxiliary quantity of CoolProp's ASHRAE RP-1485 humid-air code (``HAProps_Aux``).
+
+    ``name`` is e.g. ``"f"`` (enhancement factor), ``"p_ws"`` (saturation pressure of water),
+    ``"Baa"``, ``"Baw"``, ``"Bww"`` (second virial coefficients, [m³/mol]) or ``"dBaa"``,
+    ``"dBaw"``, ``"dBww"`` (their temperature derivatives, [m³/(mol K)]).
+    """
+    try:
+        return _CP.HAProps_Aux(name, temperature, pressure, 0.0)[0]
+    except ValueError as exc:
+        raise PropertyRangeError(f"humid-air coefficient {name} unavailable at T = {temperature:.6g} K, "
+                                 f"p = {pressure:.6g} Pa ({exc})") from None
+
+
+@lru_cache(maxsize=1)
+def _liquid_state():
+    state = _CP.AbstractState("HEOS", "Water")
+    state.specify_phase(_CP.iphase_liquid)
+    return state
+
+
+def liquid_water_density(temperature: float, pressure: float) -> float:
+    """Density of liquid water [kg/m³] at T [K], p [Pa] (IAPWS-95), for condensate volumes."""
+    try:
+        state = _liquid_state()
+        state.update(PT_INPUTS, pressure, temperature)
+        return state.rhomass()
+    except ValueError as exc:
+        raise PropertyRangeError(f"liquid water density unavailable at T = {temperature:.6g} K, "
+                                 f"p = {pressure:.6g} Pa ({exc})") from None
 def new_incompressible_state(fluid: str, mass_fraction: float | None = None):
     """Fresh CoolProp ``AbstractState`` of an incompressible liquid (``INCOMP`` back end).
 

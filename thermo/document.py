@@ -24,6 +24,7 @@ def _check(doc: Any) -> tuple[dict, list[Problem]]:
     norm = check(PROJECT, doc, "", out)
     if not out:
         out.extend(_cross_checks(norm))
+        out.extend(_humidity_checks(doc.get("site") or {}, norm))
     return norm, out
 
 
@@ -118,6 +119,54 @@ def _coolant_checks(cooler: dict | None, where: str) -> list[Problem]:
     if coolant["kind"] != "glycol" and coolant.get("glycol_fraction") is not None:
         out.append(Problem(f"{where}.coolant.glycol_fraction", coolant["glycol_fraction"],
                            "applies only to kind 'glycol'"))
+    return out
+
+
+HUMIDITY_KEYS = ("relative_humidity", "dew_point_K", "humidity_ratio")
+_ZERO_C = 273.15
+
+
+def _humidity_checks(raw_site: dict, norm: dict) -> list[Problem]:
+    """Moist intake: one humidity input, dew point not above ambient, nothing at or below freezing."""
+    out = []
+    given = [k for k in HUMIDITY_KEYS if raw_site.get(k) is not None]
+    if len(given) > 1:
+        out.append(Problem("site." + given[1], raw_site[given[1]],
+                           "give at most one of relative_humidity, dew_point_K, humidity_ratio"))
+        return out
+    site = norm["site"]
+    T0 = site["ambient_temperature_K"]
+    td = site.get("dew_point_K")
+    if td is not None and td > T0:
+        out.append(Problem("site.dew_point_K", td,
+                           f"expected at most the ambient temperature {T0:.2f} K (a dew point above "
+                           "ambient would be fog)"))
+    if td is not None and td < _ZERO_C:
+        out.append(Problem("site.dew_point_K", td,
+                           "expected at least 273.15 K: dew points below 0 °C are frost points over ice, "
+                           "which is out of scope; give relative_humidity or humidity_ratio instead"))
+    moist = bool(site.get("relative_humidity")) or td is not None or bool(site.get("humidity_ratio"))
+    if not moist:
+        return out
+    if T0 < _ZERO_C:
+        out.append(Problem("site.ambient_temperature_K", T0,
+                           "moist intake air needs an ambient temperature of at least 273.15 K: water "
+                           "vapour over ice is out of scope; give relative_humidity 0 for a dry intake"))
+    for i, st in enumerate(norm["stages"]):
+        c = st.get("cooler")
+        if not c:
+            continue
+        if c.get("outlet_temperature_K") is not None:
+            field, value, t_out = "outlet_temperature_K", c["outlet_temperature_K"], c["outlet_temperature_K"]
+        elif c.get("approach_K") is not None and c.get("coolant_inlet_temperature_K") is not None:
+            field, value = "approach_K", c["approach_K"]
+            t_out = c["coolant_inlet_temperature_K"] + c["approach_K"]
+        else:
+            continue
+        if t_out < _ZERO_C:
+            out.append(Problem(f"stages[{i}].cooler.{field}", value,
+                               f"moist air must leave a cooler at 273.15 K or above (this gives {t_out:.2f} K): "
+                               "condensate would freeze, and ice is out of scope"))
     return out
 
 

@@ -10,11 +10,13 @@ NORMAL_PRESSURE = 101_325.0  #: DIN 1343 normal pressure, [Pa]
 
 
 def _fad_density(model: PropertyModel, T0: float, P0: float) -> float:
-    return model.at_tp(T0, P0, "site intake").rho
+    p = model.at_tp(T0, P0, "site intake")
+    return p.rho if p.w == 0.0 else p.rho / (1.0 + p.w)  # dry air per m³ of moist intake air
 
 
 def _normal_density(model: PropertyModel, T0: float, P0: float) -> float:
-    return model.at_tp(NORMAL_TEMPERATURE, NORMAL_PRESSURE, "normal state").rho
+    dry = getattr(model, "dry", model)  # DIN 1343 normal volume is of the dry gas
+    return dry.at_tp(NORMAL_TEMPERATURE, NORMAL_PRESSURE, "normal state").rho
 
 
 #: flow kind -> density that turns its volume flow into mass flow
@@ -51,6 +53,14 @@ def mass_flow_from(kind: str, value: float, model: PropertyModel, T0: float, P0:
     inlet point, here the site ambient before the intake filter (ISO 1217, Annex C, from
     memory). Normal volume is referred to the DIN 1343 normal state, 273.15 K and
     101 325 Pa, dry gas.
+
+    With moist intake air (``model`` a :class:`~thermo.humid.MoistAir`) the mass flow
+    returned is that of the dry air. Free air delivery is the volume of the moist intake
+    air, vapour included, at the site's temperature, pressure and humidity (ISO 1217
+    refers FAD to the total temperature, pressure and composition at the inlet point, from
+    memory): :math:`\dot m_a = \dot V_\mathrm{FAD}\,\rho/(1 + W_0)`. Normal volume counts
+    the dry air only (DIN 1343 normal state, dry gas): :math:`\dot m_a = \rho_{n,\mathrm{dry}}
+    \dot V_n`. Both are therefore converted through the dry-air mass flow.
 
     References
     ----------

@@ -67,6 +67,10 @@ def polytropic_path(model: PropertyModel, inlet: Point, p_out: float, efficiency
     .. [2] ASME PTC 10-1997, *Performance Test Code on Compressors and Exhausters*,
        American Society of Mechanical Engineers, 1997, §5.
     """
+    start = getattr(model, "polytropic_path_start", None)  # moist air with liquid at the inlet
+    if start is not None and inlet.wl > 0.0:
+        head, inlet = start(inlet, p_out, efficiency)
+        return head if inlet.P >= p_out else head + polytropic_path(model, inlet, p_out, efficiency)[1:]
     n = path_steps(inlet.P, p_out)
     x0, dx = math.log(inlet.P), math.log(p_out / inlet.P) / n
     exp = math.exp

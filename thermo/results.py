@@ -1,13 +1,14 @@
 """The result of a train solve, and its plain-data form (``to_dict``) for JSON, CSV and reports."""
 from __future__ import annotations
 
-__all__ = ["TrainResult", "InletResult", "Warning_", "point_dict", "exchanger_dict"]
+__all__ = ["TrainResult", "InletResult", "Warning_", "WaterResult", "point_dict", "exchanger_dict"]
 
 import math
 from dataclasses import dataclass, field
 
 from .cooler import CoolerResult
 from .exergy import DeadState
+from .humid import humidity_of
 from .models.base import Point
 from .stage import StageResult
 
@@ -30,11 +31,55 @@ class InletResult:
     exergy_destroyed_W: float
 
 
-def point_dict(p: Point, velocity: float = 0.0) -> dict:
-    """Plain-data form of a state point (SI, unit in each key)."""
-    return {"temperature_K": p.T, "pressure_Pa": p.P, "enthalpy_J_kg": p.h, "entropy_J_kgK": p.s,
-            "density_kg_m3": p.rho, "velocity_m_s": velocity, "humidity_ratio": 0.0,
-            "relative_humidity": 0.0, "dew_point_K": None}
+@dataclass
+class WaterResult:
+    """Water totals of a train with moist intake air (SI units; mass flows in kg/s)."""
+
+    mixture: object  #: the MoistMixture used (for per-point humidity figures)
+    intake_humidity_ratio: float
+    intake_water_kg_s: float
+    condensate_kg_s: float  #: drained by all separators
+    delivered_water_kg_s: float  #: vapour and liquid leaving with the delivered air
+    delivered_liquid_kg_s: float
+    delivered_pressure_dew_point_K: float | None
+    delivered_atmospheric_dew_point_K: float | None
+    delivered_liquid_kg_m3: float  #: liquid water per m³ at the ISO 8573-1 reference conditions
+    iso8573_humidity_class: str
+    condensate_exergy_W: float
+    water_balance_residual: float
+
+
+def point_dict(p: Point, velocity: float = 0.0, mixture=None) -> dict:
+    """Plain-data form of a state point (SI, unit in each key).
+
+    Humidity ratio (vapour) and liquid ratio are per kilogram of dry air, relative
+    humidity on the mole-fraction basis, ``dew_point_K`` at the point's own pressure
+    (a frost point below 273.15 K; None without water). Enthalpy and entropy are per
+    kilogram of dry air and include the water.
+    """
+    d = {"temperature_K": p.T, "pressure_Pa": p.P, "enthalpy_J_kg": p.h, "entropy_J_kgK": p.s,
+         "density_kg_m3": p.rho, "velocity_m_s": velocity}
+    d.update(humidity_of(mixture, p))
+    return d
+
+
+def _path(points: list, mixture) -> list:
+    if mixture is None:
+        return [{"temperature_K": p.T, "pressure_Pa": p.P, "entropy_J_kgK": p.s} for p in points]
+    return [{"temperature_K": p.T, "pressure_Pa": p.P, "entropy_J_kgK": p.s, "humidity_ratio": p.w,
+             "liquid_ratio": p.wl} for p in points]
+
+
+def _cooler_water(cooler: CoolerResult, mixture) -> dict:
+    w = cooler.water
+    if w is None:
+        return {"condensate_kg_s": 0.0, "condensate_L_h": 0.0, "latent_duty_W": 0.0,
+                "sensible_duty_W": cooler.duty_W, "drained_kg_s": 0.0, "carry_over_kg_s": 0.0,
+                "separator_outlet": point_dict(cooler.outlet)}
+    return {"condensate_kg_s": w.condensate_kg_s, "condensate_L_h": w.condensate_L_h,
+            "latent_duty_W": w.latent_duty_W, "sensible_duty_W": w.sensible_duty_W,
+            "drained_kg_s": w.drained_kg_s, "carry_over_kg_s": w.carry_over_kg_s,
+            "separator_outlet": point_dict(w.after, 0.0, mixture)}
 
 
 def exchanger_dict(cooler: CoolerResult) -> dict:
@@ -63,10 +108,10 @@ def exchanger_dict(cooler: CoolerResult) -> dict:
                        "ua_W_K": z.ua_W_K} for z in ex.zones]}
 
 
-def _stage_dict(st: StageResult, cooler: CoolerResult | None) -> dict:
+def _stage_dict(st: StageResult, cooler: CoolerResult | None, mixture=None) -> dict:
     return {
-        "inlet": point_dict(st.inlet, st.inlet_velocity_m_s),
-        "outlet": point_dict(st.outlet, st.exit_velocity_m_s),
+        "inlet": point_dict(st.inlet, st.inlet_velocity_m_s, mixture),
+        "outlet": point_dict(st.outlet, st.exit_velocity_m_s, mixture),
         "pressure_ratio": st.pressure_ratio,
         "isentropic_discharge_temperature_K": st.isentropic_outlet.T,
         "gas_power_W": st.gas_power_W,
@@ -79,17 +124,18 @@ def _stage_dict(st: StageResult, cooler: CoolerResult | None) -> dict:
         "polytropic_exponent": st.polytropic_exponent,
         "entropy_generation_W_K": st.entropy_generation_W_K,
         "exergy_destroyed_W": st.exergy_destroyed_W,
-        "path": [{"temperature_K": p.T, "pressure_Pa": p.P, "entropy_J_kgK": p.s} for p in st.path],
+        "path": _path(st.path, mixture),
         "cooler": None if cooler is None else {
-            "inlet": point_dict(cooler.inlet, st.exit_velocity_m_s),
-            "outlet": point_dict(cooler.outlet),
+            "inlet": point_dict(cooler.inlet, st.exit_velocity_m_s, mixture),
+            "outlet": point_dict(cooler.outlet, 0.0, mixture),
             "duty_W": cooler.duty_W,
             "boundary_temperature_K": cooler.boundary_temperature_K,
             "heat_exergy_W": cooler.heat_exergy_W,
             "entropy_generation_W_K": cooler.entropy_generation_W_K,
             "exergy_destroyed_W": cooler.exergy_destroyed_W,
-            "path": [{"temperature_K": p.T, "pressure_Pa": p.P, "entropy_J_kgK": p.s} for p in cooler.path],
+            "path": _path(cooler.path, mixture),
             **exchanger_dict(cooler),
+            **_cooler_water(cooler, mixture),
         },
     }
 
@@ -124,9 +170,14 @@ class TrainResult:
     exergy_residual: float
     warnings: list = field(default_factory=list)
     recovery: object = None  #: thermo.recovery.RecoveryResult when the project asks for heat recovery
+    water: WaterResult | None = None  #: moist intake air only
 
     def to_dict(self) -> dict:
-        """Plain-data form (JSON-ready, no NaN: missing values are ``None``)."""
+        """Plain-data form (JSON-ready, no NaN: missing values are ``None``).
+
+        ``mass_flow_kg_s`` is the dry-air mass flow (for a dry intake, the air mass flow).
+        """
+        mix = None if self.water is None else self.water.mixture
         d = {
             "model": self.model,
             "eos_reference": self.eos_reference,
@@ -148,17 +199,36 @@ class TrainResult:
             "second_law_efficiency": self.second_law_efficiency,
             "energy_residual": self.energy_residual,
             "exergy_residual": self.exergy_residual,
-            "intake": point_dict(self.inlet.ambient),
-            "inlet_filter": {"outlet": point_dict(self.inlet.outlet),
+            "intake": point_dict(self.inlet.ambient, 0.0, mix),
+            "inlet_filter": {"outlet": point_dict(self.inlet.outlet, 0.0, mix),
                              "entropy_generation_W_K": self.inlet.entropy_generation_W_K,
                              "exergy_destroyed_W": self.inlet.exergy_destroyed_W},
-            "delivery": point_dict(self.delivery, self.delivery_velocity_m_s),
-            "stages": [_stage_dict(s, c) for s, c in zip(self.stages, self.coolers)],
+            "delivery": point_dict(self.delivery, self.delivery_velocity_m_s, mix),
+            "stages": [_stage_dict(s, c, mix) for s, c in zip(self.stages, self.coolers)],
             "recoverable_heat_W": None if self.recovery is None else self.recovery.recoverable_heat_W,
             "heat_recovery": _recovery_dict(self.recovery),
             "warnings": [{"field": w.field, "message": w.message} for w in self.warnings],
         }
+        d.update(self._water_dict())
         return _finite(d)
+
+    def _water_dict(self) -> dict:
+        w = self.water
+        if w is None:
+            return {"humidity_formulation": None, "intake_humidity_ratio": 0.0, "intake_water_kg_s": 0.0,
+                    "condensate_kg_s": 0.0, "condensate_L_h": 0.0, "condensate_exergy_W": 0.0,
+                    "delivered_water_kg_s": 0.0, "delivered_liquid_kg_s": 0.0,
+                    "delivered_pressure_dew_point_K": None, "delivered_atmospheric_dew_point_K": None,
+                    "iso8573_humidity_class": "1", "water_balance_residual": 0.0}
+        litres = sum((c.water.condensate_L_h for c in self.coolers if c is not None and c.water is not None), 0.0)
+        return {"humidity_formulation": w.mixture.formulation, "intake_humidity_ratio": w.intake_humidity_ratio,
+                "intake_water_kg_s": w.intake_water_kg_s, "condensate_kg_s": w.condensate_kg_s,
+                "condensate_L_h": litres, "condensate_exergy_W": w.condensate_exergy_W,
+                "delivered_water_kg_s": w.delivered_water_kg_s, "delivered_liquid_kg_s": w.delivered_liquid_kg_s,
+                "delivered_pressure_dew_point_K": w.delivered_pressure_dew_point_K,
+                "delivered_atmospheric_dew_point_K": w.delivered_atmospheric_dew_point_K,
+                "iso8573_humidity_class": w.iso8573_humidity_class,
+                "water_balance_residual": w.water_balance_residual}
 
 
 def _recovery_dict(rec) -> dict | None:

@@ -106,6 +106,9 @@ PROJECT = Obj(fields={
         "barometric_pressure_Pa": Num(50_000.0, 110_000.0, unit="Pa", nullable=True, default=None),
         "elevation_m": Num(-500.0, 5000.0, unit="m", nullable=True, default=None),
         "relative_humidity": Num(0.0, 1.0, default=0.0),
+        # moist intake: give at most one of relative_humidity, dew_point_K, humidity_ratio
+        "dew_point_K": Num(173.15, 333.15, unit="K", nullable=True, default=None),
+        "humidity_ratio": Num(0.0, 0.2, nullable=True, default=None),  # kg water per kg dry air
     }),
     "fluid": Obj(default={"model": "real_gas"}, fields={
         "model": Choice(MODEL_NAMES, default="real_gas"),

@@ -41,6 +41,10 @@ PROJECT_KEYS = {
     "site.elevation_m": "Site elevation; the barometric pressure then follows the ISO 2533 "
                         "standard atmosphere.",
     "site.relative_humidity": "Relative humidity of the ambient air, as a fraction (0.6 = 60 %).",
+    "site.dew_point_K": "Dew point of the ambient air at the site pressure, instead of relative_humidity "
+                        "(at most one humidity key; not above ambient, not below 273.15 K: frost is out of scope).",
+    "site.humidity_ratio": "Water vapour per dry air of the ambient air, kg/kg, instead of relative_humidity "
+                           "(at most one humidity key; at most saturation).",
     "fluid": "How the properties of air are computed.",
     "fluid.model": "`real_gas`: Lemmon et al. (2000) equation of state via CoolProp; "
                    "`ideal_gas`: the same equation's ideal-gas part (cp varies with T); "
@@ -249,6 +253,32 @@ RESULT_KEYS = {
     "point.humidity_ratio": "Water vapour per unit mass of dry air, kg/kg.",
     "point.relative_humidity": "Relative humidity, as a fraction.",
     "point.dew_point_K": "Dew point at the point's pressure (null for dry air).",
+    "point.liquid_ratio": "Liquid water carried per unit mass of dry air, kg/kg (moist air only).",
+    "stages[].path[].humidity_ratio": "Water vapour per dry air at this point of the path (moist air only).",
+    "stages[].path[].liquid_ratio": "Liquid water per dry air at this point of the path (moist air only).",
+    "stages[].cooler.path[].humidity_ratio": "Water vapour per dry air along the cooling line (moist air only).",
+    "stages[].cooler.path[].liquid_ratio": "Liquid water per dry air along the cooling line; it becomes positive "
+                                           "where condensation starts (moist air only).",
+    "stages[].cooler.condensate_kg_s": "Water vapour condensed in this cooler.",
+    "stages[].cooler.condensate_L_h": "Volume flow of the condensate drained after this cooler, L/h (IAPWS-95 "
+                                      "density at the outlet).",
+    "stages[].cooler.latent_duty_W": "Part of the duty released by condensation.",
+    "stages[].cooler.sensible_duty_W": "Part of the duty that cools the air without condensation.",
+    "stages[].cooler.drained_kg_s": "Condensate removed by the separator after this cooler.",
+    "stages[].cooler.carry_over_kg_s": "Liquid water the separator lets through to the next stage.",
+    "stages[].cooler.separator_outlet": "State after the separator (the next stage's inlet).",
+    "humidity_formulation": "Moist-air formulation used (null for a dry intake).",
+    "intake_humidity_ratio": "Water vapour per dry air of the intake air, kg/kg.",
+    "intake_water_kg_s": "Water entering with the intake air.",
+    "condensate_kg_s": "Condensate drained by all separators.",
+    "condensate_L_h": "Condensate drained by all separators, L/h.",
+    "condensate_exergy_W": "Exergy leaving with the drained condensate.",
+    "delivered_water_kg_s": "Water (vapour and liquid) leaving with the delivered air.",
+    "delivered_liquid_kg_s": "Liquid water leaving with the delivered air.",
+    "delivered_pressure_dew_point_K": "Pressure dew point of the delivered air (null for a dry intake).",
+    "delivered_atmospheric_dew_point_K": "Dew point of the delivered air expanded to the site pressure.",
+    "iso8573_humidity_class": "ISO 8573-1 water class the delivered air meets (table from memory).",
+    "water_balance_residual": "Water in minus water out, relative to water in (0 for a dry intake).",
 }
 
 _SUFFIX_UNITS = [  # longest first

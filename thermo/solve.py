@@ -11,7 +11,7 @@ from .errors import InputError, StagewrightError
 from .flow import mass_flow_from
 from .models import make_model
 from .results import TrainResult
-from .train import solve_train
+from .train import intake_model, solve_train
 
 _local = threading.local()
 
@@ -89,7 +89,8 @@ def solve_normalised(norm: dict, detail: bool = True) -> TrainResult:
     flow = norm["flow"]
     T0, P0 = norm["site"]["ambient_temperature_K"], site_pressure(norm)
     if flow["kind"] != "shaft_power":
-        return solve_train(norm, model, mass_flow_from(flow["kind"], flow["value"], model, T0, P0), detail)
+        intake = intake_model(norm, model)[0]  # moist intake: FAD refers to the moist air
+        return solve_train(norm, model, mass_flow_from(flow["kind"], flow["value"], intake, T0, P0), detail)
     return _solve_for_power(norm, model, flow["value"], detail)
 
 

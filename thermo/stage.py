@@ -102,6 +102,12 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
 
     Notes
     -----
+    For moist air the model is a :class:`~thermo.humid.MoistAir` of the stage's total
+    water; h and s are per kilogram of dry air, ``mass_flow`` is the dry-air flow and the
+    kinetic energy is that of the whole moist mass. Liquid carried into a stage (a
+    separator of efficiency below 1) evaporates as compression heats the stream, by
+    phase equilibrium along the path.
+
     Efficiencies refer to the adiabatic internal compression from the inlet stagnation
     state to the discharge pressure, whose end enthalpy is
     :math:`h_{2i} = h_{01} + \dot W_\mathrm{gas}/\dot m`:
@@ -124,8 +130,9 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
     v_out = spec["exit_velocity_m_s"]
     q_loss = spec["heat_loss_W"]
     q = q_loss / mass_flow
+    k = getattr(model, "mass_per_dry_kg", 1.0)  # moist air: kinetic energy of 1 + W kg per kg dry air
     start = inlet if inlet_velocity == 0.0 else model.at_hp(
-        inlet.h + 0.5 * inlet_velocity ** 2, inlet.P, where, T_guess=inlet.T)
+        inlet.h + 0.5 * inlet_velocity ** 2 * k, inlet.P, where, T_guess=inlet.T)
     r = p_out / start.P
     t_guess = start.T * r ** 0.3
     iso = model.at_sp(start.s, p_out, f"{where} isentropic discharge", T_guess=t_guess)
@@ -144,7 +151,7 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
         eta_p, dh = eff["value"], path[-1].h - start.h
     else:  # measured discharge temperature
         measured = model.at_tp(eff["value_K"], p_out, f"{where}.efficiency.value_K")
-        dh = measured.h + 0.5 * v_out ** 2 + q - start.h
+        dh = measured.h + 0.5 * v_out ** 2 * k + q - start.h
         if dh <= dh_s:
             raise SecondLawViolation(
                 f"{where}.efficiency.value_K: a discharge temperature of {eff['value_K']:.2f} K "
@@ -156,7 +163,7 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
         raise PropertyRangeError(f"{where}.efficiency.value: {eff.get('value')!r} — the compression work "
                                  "it implies is unbounded; the discharge state leaves the property range",
                                  f"{where}.efficiency.value")
-    h_out = start.h + dh - q - 0.5 * v_out ** 2
+    h_out = start.h + dh - q - 0.5 * v_out ** 2 * k
     outlet = model.at_hp(h_out, p_out, f"{where} discharge", T_guess=path[-1].T)
     w_gas = mass_flow * dh
     w_shaft = w_gas / spec["mechanical_efficiency"]

@@ -41,7 +41,16 @@ class Point:
     s : float
         Specific entropy (model's own reference), [J/(kg K)].
     rho : float
-        Density, [kg/m³].
+        Density, [kg/m³] (of the gas phase: dry air and water vapour).
+    w : float
+        Humidity ratio, water vapour per dry air, [kg/kg] (0 for dry air).
+    wl : float
+        Liquid water carried per dry air, [kg/kg] (0 for dry air).
+
+    Notes
+    -----
+    For moist air, h and s are per kilogram of dry air and include the water (vapour and
+    liquid), as is usual in psychrometrics; for dry air the two bases coincide.
     """
 
     T: float
@@ -49,6 +58,8 @@ class Point:
     h: float
     s: float
     rho: float
+    w: float = 0.0
+    wl: float = 0.0
 
 
 class PropertyModel(Protocol):
@@ -65,4 +76,11 @@ class PropertyModel(Protocol):
 
     def polytropic_slope(self, T: float, P: float, efficiency: float) -> float:
         """dT/d(ln p) along a path of constant polytropic efficiency, [K]."""
+        ...
+
+    def terms(self, T: float, P: float, slope: bool = True) -> tuple:
+        """(h [J/kg], s [J/(kg K)], v [m³/kg], cp [J/(kg K)], (∂h/∂p)_T [m³/kg]) at T, P.
+
+        (∂h/∂p)_T may be returned as 0.0 when ``slope`` is False (it is needed only for
+        polytropic paths)."""
         ...

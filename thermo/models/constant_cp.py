@@ -60,5 +60,10 @@ class ConstantCpAir:
         T = _T_REF * math.exp((s + self.gas_constant * math.log(P / _P_REF)) / self.cp)
         return self.at_tp(T, P, where)
 
+    def terms(self, T: float, P: float, slope: bool = True) -> tuple:
+        """h, s, v, cp and (∂h/∂p)_T (zero for a perfect gas) at T [K], P [Pa]."""
+        s = self.cp * math.log(T / _T_REF) - self.gas_constant * math.log(P / _P_REF)
+        return self.cp * (T - _T_REF), s, self.gas_constant * T / P, self.cp, 0.0
+
     def polytropic_slope(self, T: float, P: float, efficiency: float) -> float:
         return self.gas_constant * T / (self.cp * efficiency)

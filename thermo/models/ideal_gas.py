@@ -96,6 +96,12 @@ class IdealGasAir:
         T = invert_temperature(self._s_and_slope, target, T_guess, where, "entropy")
         return self.at_tp(T, P, where)
 
+    def terms(self, T: float, P: float, slope: bool = True) -> tuple:
+        """h, s, v, cp and (∂h/∂p)_T (zero for an ideal gas) at T [K], P [Pa]."""
+        h, cp = self._hermite(T, self._h, self._cp)
+        s = self._s_and_slope(T)[0] - self.gas_constant * math.log(P / _P_REF)
+        return h, s, self.gas_constant * T / P, cp, 0.0
+
     def polytropic_slope(self, T: float, P: float, efficiency: float) -> float:
         check_range(T, P, "polytropic path")
         return self.gas_constant * T / (self.cp(T) * efficiency)

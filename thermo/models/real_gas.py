@@ -73,6 +73,13 @@ class RealGasAir:
         T = invert_temperature(self._s_and_slope(P, where), s, T_guess, where, "entropy")
         return self.at_tp(T, P, where)
 
+    def terms(self, T: float, P: float, slope: bool = True) -> tuple:
+        """h, s, v, cp and (∂h/∂p)_T (0.0 unless ``slope``) at T [K], P [Pa] from one update."""
+        self._set(T, P, "moist-air state")
+        st = self._state
+        hp = st.first_partial_deriv(cpa.iHmass, cpa.iP, cpa.iT) if slope else 0.0
+        return st.hmass(), st.smass(), 1.0 / st.rhomass(), st.cpmass(), hp
+
     def polytropic_slope(self, T: float, P: float, efficiency: float) -> float:
         self._set(T, P, "polytropic path")
         st = self._state

@@ -1,0 +1,317 @@
+"""A moist-air stream of fixed total water content, in phase equilibrium, as a property model [1]_ [2]_.
+
+:class:`MoistAir` answers the same questions as a dry-air model (``at_tp``, ``at_hp``,
+``at_sp``, ``polytropic_slope``), so stages and coolers use it unchanged. Its points carry
+the vapour and liquid water per kilogram of dry air; h and s are per kilogram of dry air.
+The helpers below turn the site's humidity input into the intake humidity ratio and give
+the per-point humidity figures of the results.
+"""
+from __future__ import annotations
+
+__all__ = ["MoistAir", "intake_humidity_ratio", "humidity_of", "is_moist", "check_humid_range"]
+
+import math
+
+from .errors import InputError
+from .models.base import Point, check_range
+from .models.newton import invert_temperature
+from .moist_mixture import MoistMixture
+from .saturation import T_IF97_MIN
+
+_DT = 1e-3  # central-difference step in T for two-phase derivatives, [K]
+_DP = 1e-6  # relative central-difference step in p for two-phase derivatives
+
+
+class MoistAir:
+    r"""Dry air with a fixed total water content W (vapour + liquid) per kilogram of dry air [1]_.
+
+    At (T, p) the water is split by phase equilibrium:
+
+    .. math::
+
+        w_v = \min(W, w_s(T, p)), \qquad w_l = W - w_v, \qquad
+        h = h_g(T, p, w_v) + w_l\,h_l(T, p), \qquad s = s_g(T, p, w_v) + w_l\,s_l(T, p)
+
+    with the gas phase, saturation humidity ratio :math:`w_s` and condensed water of
+    :class:`~thermo.moist_mixture.MoistMixture`. Liquid is therefore present only where the
+    stream is saturated; compression that heats it evaporates any liquid carried in
+    (a supersaturated stage inlet after a separator of efficiency below 1), cooling below
+    the dew point condenses water.
+
+    Parameters
+    ----------
+    mixture : MoistMixture
+        Formulation of moist air for the chosen property model.
+    water : float
+        Total water per dry air W, [kg/kg], > 0.
+
+    Notes
+    -----
+    In the single-phase (unsaturated) region every property is analytic; in the
+    two-phase region cp, (∂h/∂p)_T and the polytropic slope come from central
+    differences of the equilibrium enthalpy (the kink at the dew point is handled by the
+    bracketed Newton iteration). The kinetic energy of the stream is carried by the
+    whole moist mass, ``mass_per_dry_kg`` = 1 + W per kilogram of dry air.
+
+    Examples
+    --------
+    >>> from thermo.models import ConstantCpAir
+    >>> from thermo.moist_mixture import make_mixture
+    >>> air = MoistAir(make_mixture(ConstantCpAir()), 0.01)
+    >>> p = air.at_tp(290.0, 8e5)  # 8 bar, 16.85 °C: w_s = 0.622 · 1920 / (8e5 − 1920)
+    >>> round(p.w, 5), round(p.wl, 5)
+    (0.0015, 0.0085)
+
+    References
+    ----------
+    .. [1] ASHRAE Handbook — Fundamentals, 2017, ch. 1 (psychrometrics: humidity ratio,
+       saturation, moist-air enthalpy per kilogram of dry air).
+    .. [2] Y. A. Çengel, M. A. Boles, *Thermodynamics: An Engineering Approach*, 8th ed.,
+       McGraw-Hill, 2015, §14-1 to §14-7 (gas–vapour mixtures).
+    """
+
+    def __init__(self, mixture: MoistMixture, water: float):
+        self.mixture = mixture
+        self.dry = mixture.dry
+        self.name = mixture.name
+        self.water = water
+        self.mass_per_dry_kg = 1.0 + water
+        self.gas_constant = (mixture.R_a + water * mixture.R_w) / (1.0 + water)
+        self.molar_mass = getattr(self.dry, "molar_mass", None)
+
+    # ---- equilibrium -------------------------------------------------------------------------
+    def split(self, T: float, P: float) -> tuple[float, float]:
+        """(vapour, liquid) per dry air [kg/kg] at equilibrium."""
+        W = self.water
+        mix = self.mixture
+        if mix.surely_unsaturated(T, P, W):
+            return W, 0.0
+        ws = mix.saturation_ratio(T, P)
+        return (W, 0.0) if W <= ws else (ws, W - ws)
+
+    def _state(self, T: float, P: float, slope: bool):
+        """h, s, v, cp, (∂h/∂p)_T, w_v, w_l at T, P (two-phase derivatives by central differences)."""
+        w_v, w_l = self.split(T, P)
+        mix = self.mixture
+        h, s, v, cp, hp = mix.gas(T, P, w_v, slope)
+        if w_l == 0.0:
+            return h, s, v, cp, hp, w_v, 0.0
+        h_l, s_l = mix.liquid(T, P)
+        h += w_l * h_l
+        s += w_l * s_l
+        v += w_l * mix.liquid_volume(T, P)
+        cp = (self._h(T + _DT, P) - self._h(T - _DT, P)) / (2.0 * _DT)
+        if slope:
+            dp = _DP * P
+            hp = (self._h(T, P + dp) - self._h(T, P - dp)) / (2.0 * dp)
+        return h, s, v, cp, hp, w_v, w_l
+
+    def _h(self, T: float, P: float) -> float:
+        w_v, w_l = self.split(T, P)
+        h = self.mixture.gas(T, P, w_v, False)[0]
+        return h + w_l * self.mixture.liquid(T, P)[0] if w_l > 0.0 else h
+
+    # ---- the property-model interface ------------------------------------------------------
+    def at_tp(self, T: float, P: float, where: str = "") -> Point:
+        check_range(T, P, where)
+        h, s, v, _, _, w_v, w_l = self._state(T, P, slope=False)
+        return Point(T, P, h, s, (1.0 + w_v) / v, w_v, w_l)
+
+    def at_hp(self, h: float, P: float, where: str = "", T_guess: float = 300.0) -> Point:
+        def f(T):
+            st = self._state(T, P, slope=False)
+            return st[0], st[3]
+        return self.at_tp(invert_temperature(f, h, T_guess, where, "enthalpy"), P, where)
+
+    def at_sp(self, s: float, P: float, where: str = "", T_guess: float = 300.0) -> Point:
+        def f(T):
+            st = self._state(T, P, slope=False)
+            return st[1], st[3] / T
+        return self.at_tp(invert_temperature(f, s, T_guess, where, "entropy"), P, where)
+
+    def polytropic_slope(self, T: float, P: float, efficiency: float) -> float:
+        check_range(T, P, "polytropic path")
+        _, _, v, cp, hp, _, _ = self._state(T, P, slope=True)
+        return P * (v / efficiency - hp) / cp
+
+    def _h_saturated(self, T: float, P: float) -> float:
+        """Enthalpy with the vapour held at saturation (liquid W − w_s, negative past the dew point)."""
+        ws = self.mixture.saturation_ratio(T, P)
+        return self.mixture.gas(T, P, ws, False)[0] + (self.water - ws) * self.mixture.liquid(T, P)[0]
+
+    def _slope_saturated(self, T: float, P: float, efficiency: float) -> float:
+        """Polytropic slope of the saturated branch, continued smoothly past the dew point."""
+        mix = self.mixture
+        ws = mix.saturation_ratio(T, P)
+        v = mix.gas(T, P, ws, False)[2] + (self.water - ws) * mix.liquid_volume(T, P)
+        cp = (self._h_saturated(T + _DT, P) - self._h_saturated(T - _DT, P)) / (2.0 * _DT)
+        dp = _DP * P
+        hp = (self._h_saturated(T, P + dp) - self._h_saturated(T, P - dp)) / (2.0 * dp)
+        return P * (v / efficiency - hp) / cp
+
+    def polytropic_path_start(self, inlet: Point, p_out: float, efficiency: float):
+        """Two-phase start of a compression path: (states, state where the last liquid evaporates).
+
+        Liquid carried into a stage evaporates as compression heats the stream. The slope
+        of the path jumps where it does (latent heat stops), so the point is located
+        (Brent's method on the remaining liquid) and the path is integrated on each side
+        separately; the end state then depends smoothly on the efficiency.
+        """
+        from scipy.optimize import brentq  # local: only moist stages with carry-over need it
+        x0, x_end = math.log(inlet.P), math.log(p_out)
+        y0 = math.log(inlet.T)
+
+        def rk4(dx_total: float, m: int = 2) -> float:
+            y, h = y0, dx_total / m
+            for k in range(m):
+                x = x0 + k * h
+                f = lambda yy, xx: self._slope_saturated(math.exp(yy), math.exp(xx), efficiency) / math.exp(yy)
+                k1 = f(y, x)
+                k2 = f(y + 0.5 * h * k1, x + 0.5 * h)
+                k3 = f(y + 0.5 * h * k2, x + 0.5 * h)
+                k4 = f(y + h * k3, x + h)
+                y += h * (k1 + 2 * k2 + 2 * k3 + k4) / 6.0
+            return y
+
+        def liquid_left(dx: float) -> float:
+            return self.water - self.mixture.saturation_ratio(math.exp(rk4(dx)), math.exp(x0 + dx))
+
+        span = x_end - x0
+        n = max(4, math.ceil(span / 0.2))  # fixed by inlet and outlet only, never by the efficiency
+        lo, hi = 0.0, None  # bracket the first point where the liquid is gone, scanning from the inlet
+        for k in range(1, 65):
+            if liquid_left(span * k / 64) <= 0.0:
+                hi = span * k / 64
+                break
+            lo = span * k / 64
+        if hi is None:  # liquid all the way: one smooth branch
+            pts = [inlet] + [self.at_tp(math.exp(rk4(span * k / n, 2 * k)), math.exp(x0 + span * k / n),
+                                        "polytropic path") for k in range(1, n + 1)]
+            return pts, pts[-1]
+        dx = brentq(liquid_left, lo, hi, xtol=1e-12, rtol=1e-14)
+        y = rk4(dx)
+        T, P = math.exp(y), math.exp(x0 + dx)
+        h, s, v, _, _ = self.mixture.gas(T, P, self.water, False)
+        pts = [inlet, Point(T, P, h, s, (1.0 + self.water) / v, self.water, 0.0)]
+        x, step = x0 + dx, (span - dx) / n
+        f = lambda yy, xx: self.polytropic_slope(math.exp(yy), math.exp(xx), efficiency) / math.exp(yy)
+        for k in range(n):  # the dry remainder, classical RK4 on ln T against ln p
+            k1 = f(y, x)
+            k2 = f(y + 0.5 * step * k1, x + 0.5 * step)
+            k3 = f(y + 0.5 * step * k2, x + 0.5 * step)
+            k4 = f(y + step * k3, x + step)
+            y += step * (k1 + 2 * k2 + 2 * k3 + k4) / 6.0
+            x += step
+            pts.append(self.at_tp(math.exp(y), p_out if k == n - 1 else math.exp(x), "polytropic path"))
+        return pts, pts[-1]
+
+    def gas_only(self, T: float, P: float, w_v: float, w_l: float) -> tuple[float, float]:
+        """(h, s) at T, P with the phase split frozen at w_v, w_l (no condensation or evaporation)."""
+        h, s = self.mixture.gas(T, P, w_v, False)[:2]
+        if w_l > 0.0:
+            h_l, s_l = self.mixture.liquid(T, P)
+            h, s = h + w_l * h_l, s + w_l * s_l
+        return h, s
+
+
+# ---- site humidity ---------------------------------------------------------------------------
+def is_moist(site: dict) -> bool:
+    """True when the site section asks for water in the intake air."""
+    return bool(site.get("relative_humidity")) or site.get("dew_point_K") is not None or bool(
+        site.get("humidity_ratio"))
+
+
+def intake_humidity_ratio(site: dict, mixture: MoistMixture, T0: float, P0: float) -> float:
+    r"""Humidity ratio of the intake air from the site's humidity input, [kg/kg] [1]_.
+
+    .. math::
+
+        x_w = \varphi\,x_{ws}(T_0, p_0) \quad\text{or}\quad x_w = f(T_d, p_0)\,p_{ws}(T_d)/p_0,
+        \qquad W = \varepsilon\,\frac{x_w}{1 - x_w}
+
+    Parameters
+    ----------
+    site : dict
+        Normalised ``site`` section: ``dew_point_K``, ``humidity_ratio`` or
+        ``relative_humidity`` (checked in that order; the document allows only one).
+    mixture : MoistMixture
+        Moist-air formulation of the project's model.
+    T0, P0 : float
+        Ambient temperature [K] and barometric pressure [Pa].
+
+    Returns
+    -------
+    float
+        Humidity ratio W, [kg water / kg dry air].
+
+    Raises
+    ------
+    InputError
+        If the humidity ratio given exceeds saturation at the site, or the ambient is
+        below 0 °C (vapour over ice is out of scope).
+
+    Notes
+    -----
+    Relative humidity is on the mole-fraction basis of RP-1485 (:math:`\varphi = x_w/x_{ws}`);
+    for the ideal mixtures (f = 1) this is the usual :math:`p_v/p_{ws}`.
+
+    References
+    ----------
+    .. [1] ASHRAE Handbook — Fundamentals, 2017, ch. 1, eqs. (20), (22), (24).
+    """
+    if T0 < T_IF97_MIN:
+        field = next(k for k in ("dew_point_K", "humidity_ratio", "relative_humidity") if site.get(k))
+        raise InputError(f"site.{field}", site[field],
+                         f"moist intake air needs site.ambient_temperature_K of at least 273.15 K (found "
+                         f"{T0:.2f} K): water vapour over ice is out of scope; give relative_humidity 0")
+    if site.get("dew_point_K") is not None:
+        Td = site["dew_point_K"]
+        x = mixture.saturation_fraction(Td, P0)
+        return mixture.epsilon * x / (1.0 - x)
+    if site.get("humidity_ratio") is not None:
+        W = site["humidity_ratio"]
+        ws = mixture.saturation_ratio(T0, P0)
+        if W > ws:
+            raise InputError("site.humidity_ratio", W,
+                             f"expected at most {ws:.6g} kg/kg, saturation at the site ambient "
+                             f"{T0:.2f} K and {P0:.0f} Pa")
+        return W
+    x = site["relative_humidity"] * mixture.saturation_fraction(T0, P0)
+    return mixture.epsilon * x / (1.0 - x)
+
+
+def humidity_of(mixture: MoistMixture | None, p: Point) -> dict:
+    """Humidity ratio, liquid ratio, relative humidity and pressure dew point of a point (plain data)."""
+    if mixture is None or (p.w == 0.0 and p.wl == 0.0):
+        return {"humidity_ratio": 0.0, "liquid_ratio": 0.0, "relative_humidity": 0.0, "dew_point_K": None}
+    rh = 1.0 if p.wl > 0.0 else mixture.relative_humidity(p.T, p.P, p.w)
+    return {"humidity_ratio": p.w, "liquid_ratio": p.wl, "relative_humidity": rh,
+            "dew_point_K": mixture.dew_point(p.P, p.w)}
+
+
+def check_humid_range(mixture: MoistMixture, points, field: str, what: str) -> None:
+    """Raise InputError when a moist state lies outside the humid-air formulation's range.
+
+    Parameters
+    ----------
+    mixture : MoistMixture
+        Its ``t_max`` / ``p_max`` (None: no limit).
+    points : iterable of Point
+        States to check.
+    field : str
+        Input field to name in the message (e.g. ``stages[1]``).
+    what : str
+        Which state, for the message.
+    """
+    t_max, p_max = mixture.t_max, mixture.p_max
+    if t_max is None:
+        return
+    for p in points:
+        if p.T > t_max or p.P > p_max:
+            hot = p.T > t_max
+            remedy = ("add a stage, lower this stage's pressure ratio, or use fluid.model 'ideal_gas'" if hot
+                      else "use fluid.model 'ideal_gas' for moist air above this pressure")
+            raise InputError(field, round(p.T if hot else p.P, 6),
+                             f"{what} at {p.T:.2f} K and {p.P:.6g} Pa: moist air with the real_gas model "
+                             f"needs states up to {t_max:.2f} K and {p_max:.6g} Pa (range of the ASHRAE "
+                             f"RP-1485 humid-air formulation); {remedy}")

@@ -1,0 +1,359 @@
+"""Moist air as a mixture: dry air and water vapour (gas phase), the saturation law, condensed water [1]_ [2]_.
+
+One :class:`MoistMixture` per property model. It knows the gas phase at any water content
+(per kilogram of dry air), when water vapour saturates, and the properties of the water
+that condenses; :class:`thermo.humid.MoistAir` builds the stream model of a fixed total
+water content on top of it.
+"""
+from __future__ import annotations
+
+__all__ = ["MoistMixture", "make_mixture", "RP1485_EPSILON", "RP1485_T_MAX", "RP1485_P_MAX", "P_REF"]
+
+import math
+from functools import lru_cache
+
+from . import coolprop_adapter as cpa
+from .saturation import T_CRITICAL, saturation_pressure, saturation_pressure_log_slope
+
+P_REF = 101_325.0  #: reference pressure of the ideal-gas entropy of water vapour, [Pa]
+R_MOLAR = 8.314462618  #: molar gas constant, CODATA 2018, [J/(mol K)]
+M_WATER = 0.018015268  #: molar mass of water, IAPWS-95, [kg/mol]
+RP1485_EPSILON = 0.621945  #: M_w / M_a used by ASHRAE RP-1485 (Herrmann et al. 2009)
+RP1485_T_MAX = 623.15  #: upper temperature of the RP-1485 humid-air formulation, [K]
+RP1485_P_MAX = 10.0e6  #: upper pressure of the RP-1485 humid-air formulation, [Pa]
+
+_T_LO, _T_HI, _STEP = 200.0, 1300.0, 2.0
+_DT_LIQUID = 1e-2  # central-difference step for the entropy of condensed water, [K]
+
+
+class _Table:
+    """Cubic Hermite interpolants of several columns on one uniform grid (node values, exact node slopes).
+
+    Each interval stores the cubic's power-basis coefficients, so a look-up is one index
+    computation and a Horner evaluation per column.
+    """
+
+    def __init__(self, columns):
+        self.cols = []
+        for values, slopes in columns:
+            coef = []
+            for k in range(len(values) - 1):
+                y0, y1 = values[k], values[k + 1]
+                m0, m1 = slopes[k] * _STEP, slopes[k + 1] * _STEP
+                coef.append((y0, m0, 3.0 * (y1 - y0) - 2.0 * m0 - m1, 2.0 * (y0 - y1) + m0 + m1))
+            self.cols.append(coef)
+        self.last = len(self.cols[0]) - 1
+
+    def eval(self, T: float, second: bool = False):
+        """Per column (y, dy/dT[, d²y/dT²]) at T (the end cubics extrapolate outside the grid)."""
+        x = (T - _T_LO) / _STEP
+        i = min(max(int(x), 0), self.last)
+        t = x - i
+        out = []
+        for col in self.cols:
+            a, b, c, d = col[i]
+            val = a + t * (b + t * (c + t * d))
+            d1 = (b + t * (2.0 * c + 3.0 * d * t)) / _STEP
+            out.append((val, d1, (2.0 * c + 6.0 * d * t) / (_STEP * _STEP)) if second else (val, d1))
+        return out
+
+
+def _grid():
+    n = int(round((_T_HI - _T_LO) / _STEP)) + 1
+    return [_T_LO + k * _STEP for k in range(n)]
+
+
+_WATER_TABLES = None
+_VIRIAL_TABLES = None
+
+
+def _water_tables():
+    """h°(T) and s°(T, 101 325 Pa) of water vapour, ideal-gas part of IAPWS-95, tabulated once."""
+    global _WATER_TABLES
+    if _WATER_TABLES is None:
+        st = cpa.new_water_state()
+        rows = [cpa.water_ideal_gas(st, T) for T in _grid()]
+        _WATER_TABLES = _Table([([r[0] for r in rows], [r[2] for r in rows]),
+                                ([r[1] for r in rows], [r[2] / T for r, T in zip(rows, _grid())])])
+    return _WATER_TABLES
+
+
+def _virial_tables():
+    """Second virial coefficients B_aa, B_aw, B_ww of RP-1485 (via CoolProp), tabulated once."""
+    global _VIRIAL_TABLES
+    if _VIRIAL_TABLES is None:
+        cols = []
+        for pair in ("aa", "aw", "ww"):
+            vals = [cpa.humid_air_coefficient("B" + pair, T, P_REF) for T in _grid()]
+            ders = [cpa.humid_air_coefficient("dB" + pair, T, P_REF) for T in _grid()]
+            cols.append((vals, ders))
+        _VIRIAL_TABLES = _Table(cols)
+    return _VIRIAL_TABLES
+
+
+@lru_cache(maxsize=512)
+def _rp1485_enhancement(T: float, P: float) -> float:
+    return cpa.humid_air_coefficient("f", T, P)
+
+
+class _IdealGasWater:
+    """Water vapour as an ideal gas, ideal-gas part of IAPWS-95 [3]_."""
+
+    def __init__(self):
+        self._table = _water_tables()
+
+    def __call__(self, T: float):
+        (h, cp), (s, _) = self._table.eval(T)
+        return h, s, cp
+
+
+class _ConstantCpWater:
+    """Water vapour as a perfect gas: cp, h and s° of the IAPWS-95 ideal-gas part at 298.15 K."""
+
+    T_REF = 298.15
+
+    def __init__(self):
+        st = cpa.new_water_state()
+        self.h_ref, self.s_ref, self.cp = cpa.water_ideal_gas(st, self.T_REF)
+
+    def __call__(self, T: float):
+        return self.h_ref + self.cp * (T - self.T_REF), self.s_ref + self.cp * math.log(T / self.T_REF), self.cp
+
+
+class MoistMixture:
+    r"""Moist air: a dry-air property model, water vapour, a saturation law and condensed water [1]_ [2]_ [3]_.
+
+    Gas phase, per kilogram of dry air with vapour content :math:`w` (mole fraction
+    :math:`x_w = w/(\varepsilon + w)`), from one Gibbs function so that every property
+    is consistent:
+
+    .. math::
+
+        g = g_a(T, p) + w\left[g_w^\circ(T) + R_w T \ln\frac{p}{p_\mathrm{ref}}\right]
+            + R_a T\left[\ln x_a + \frac{w}{\varepsilon}\ln x_w\right]
+            + p\,\frac{1}{M_a}\left[-x_w B_{aa} + 2 x_w B_{aw} + \frac{x_w^2}{x_a} B_{ww}\right]
+
+    :math:`g_a` is the dry-air model at the total pressure (for ``real_gas`` the full
+    Lemmon et al. (2000) equation of state), :math:`g_w^\circ` the ideal-gas water
+    vapour of IAPWS-95 and the bracket the ideal (Dalton) mixing term. The last term is
+    the change of the mixture's second virial coefficient caused by the water (ASHRAE
+    RP-1485 coefficients :math:`B_{aw}(T)`, :math:`B_{ww}(T)`); it is present for
+    ``real_gas`` only. ``ideal_gas`` and ``constant_cp`` therefore use an **ideal mixture
+    of ideal gases** (Dalton's law, no interaction); ``constant_cp`` also takes water
+    vapour with constant cp. :math:`R_w = R_a/\varepsilon`.
+
+    Saturation (vapour mole fraction at saturation):
+
+    .. math:: x_{ws} = f(T, p)\,p_{ws}(T)/p
+
+    with :math:`p_{ws}` of IAPWS-IF97 and the enhancement factor :math:`f` of RP-1485
+    (CoolProp's implementation) for ``real_gas``, :math:`f = 1` for the ideal mixtures.
+
+    Condensed water has the Gibbs energy of the vapour it is in equilibrium with,
+    :math:`g_l(T, p) = \mu_w(T, p, x_{ws})`, so that phase equilibrium is exact within
+    the formulation and condensation never creates entropy by itself; its entropy is
+    :math:`s_l = -\partial g_l/\partial T` and its enthalpy :math:`h_l = g_l + T s_l`.
+    For the ideal mixtures the latent heat that follows is the Clausius–Clapeyron value
+    :math:`R_w T^2\,d\ln p_{ws}/dT`.
+
+    Parameters
+    ----------
+    dry : PropertyModel
+        Dry-air model (with ``terms``).
+    vapour : callable
+        ``T -> (h°, s°(p_ref), cp°)`` of water vapour per kilogram.
+    epsilon : float
+        Ratio of molar masses M_w/M_a used for mole fractions, [-].
+    virial : bool
+        Include the RP-1485 interaction term.
+    enhancement : bool
+        Use the RP-1485 enhancement factor (else f = 1).
+
+    Notes
+    -----
+    Against CoolProp's ``HAPropsSI`` (the RP-1485 formulation itself) the real-gas mixture
+    agrees in enthalpy differences to better than about 1e-4 relative, in saturation humidity
+    ratio to about 2e-5 (see the tests); the small differences come from the full dry-air
+    equation of state used here and from the third virial coefficients RP-1485 adds.
+    ``HAPropsSI`` itself is not used in the inner loops: it is several times slower per
+    state and its enthalpy and entropy are not exactly Gibbs-consistent in the water part
+    (about 1e-4 relative in cp − T(∂s/∂T)p), which would show as small negative entropy
+    generation in nearly reversible stages.
+
+    References
+    ----------
+    .. [1] A. Herrmann, H.-J. Kretzschmar, D. P. Gatley, "Thermodynamic Properties of Real
+       Moist Air, Dry Air, Steam, Water, and Ice", ASHRAE RP-1485, HVAC&R Research 15 (2009)
+       961–986.
+    .. [2] ASHRAE Handbook — Fundamentals, 2017, ch. 1, eqs. (22)–(25) (humidity ratio,
+       relative humidity, enhancement factor).
+    .. [3] W. Wagner, A. Pruß, "The IAPWS Formulation 1995 for the Thermodynamic Properties of
+       Ordinary Water Substance", J. Phys. Chem. Ref. Data 31 (2002) 387–535.
+    """
+
+    def __init__(self, dry, vapour, epsilon: float, virial: bool, enhancement: bool):
+        self.dry = dry
+        self.name = dry.name
+        self.vapour = vapour
+        self.epsilon = epsilon
+        self.R_a = dry.gas_constant
+        self.R_w = dry.gas_constant / epsilon
+        self.virial = _virial_tables() if virial else None
+        self.n_a = 1.0 / dry.molar_mass if virial else 0.0
+        self.uses_enhancement = enhancement
+        #: range of the humid-air formulation (None: no limit beyond the dry model's)
+        self.t_max = RP1485_T_MAX if enhancement else None
+        self.p_max = RP1485_P_MAX if enhancement else None
+        self.formulation = ("ASHRAE RP-1485 saturation and virial interaction (via CoolProp) on the "
+                            "Lemmon et al. (2000) dry-air equation of state" if virial else
+                            "ideal mixture of dry air and ideal-gas water vapour (Dalton), IAPWS-IF97 "
+                            "saturation pressure")
+
+    # ---- gas phase ---------------------------------------------------------------------------
+    def _virial_terms(self, T: float, x_w: float):
+        """(D, dD/dT, d²D/dT²) of the interaction volume per kilogram of dry air, [m³/kg]."""
+        if self.virial is None or x_w == 0.0:
+            return 0.0, 0.0, 0.0
+        x_a = 1.0 - x_w
+        ca, cw, cww = -self.n_a * x_w, 2.0 * self.n_a * x_w, self.n_a * x_w * x_w / x_a
+        baa, baw, bww = self.virial.eval(T, second=True)
+        return (ca * baa[0] + cw * baw[0] + cww * bww[0], ca * baa[1] + cw * baw[1] + cww * bww[1],
+                ca * baa[2] + cw * baw[2] + cww * bww[2])
+
+    def gas(self, T: float, P: float, w: float, slope: bool = True):
+        """Gas phase with vapour content w [kg/kg]: (h [J/kg], s [J/(kg K)], v [m³/kg], cp, (∂h/∂p)_T), per kg dry air.
+
+        (∂h/∂p)_T is exact only when ``slope`` is True."""
+        h_a, s_a, v_a, cp_a, hp_a = self.dry.terms(T, P, slope)
+        if w <= 0.0:
+            return h_a, s_a, v_a, cp_a, hp_a
+        hw, sw, cpw = self.vapour(T)
+        x_w = w / (self.epsilon + w)
+        x_a = 1.0 - x_w
+        d, d_t, d_tt = self._virial_terms(T, x_w)
+        s_mix = -self.R_a * (math.log(x_a) + (w / self.epsilon) * math.log(x_w))
+        h = h_a + w * hw + P * (d - T * d_t)
+        s = s_a + w * (sw - self.R_w * math.log(P / P_REF)) + s_mix - P * d_t
+        v = v_a + w * self.R_w * T / P + d
+        cp = cp_a + w * cpw - P * T * d_tt
+        hp = hp_a + d - T * d_t
+        return h, s, v, cp, hp
+
+    def mu_water(self, T: float, P: float, x_w: float) -> float:
+        r"""Chemical potential of water in the gas phase per kilogram of water, [J/kg].
+
+        .. math:: \mu_w = g_w^\circ(T) + R_w T \ln\frac{x_w p}{p_\mathrm{ref}}
+           + \frac{p}{\varepsilon M_a}\left[x_a^2 (2B_{aw} - B_{aa}) + x_w (1 + x_a) B_{ww}\right]
+        """
+        hw, sw, _ = self.vapour(T)
+        return hw - T * sw + self.R_w * T * math.log(x_w * P / P_REF) + self._mu_virial(T, P, x_w)
+
+    # ---- saturation ------------------------------------------------------------------------
+    def enhancement(self, T: float, P: float) -> float:
+        """Enhancement factor f(T, p) [-] (1 for the ideal mixtures)."""
+        return _rp1485_enhancement(T, P) if self.uses_enhancement else 1.0
+
+    def saturation_fraction(self, T: float, P: float) -> float:
+        """Mole fraction of water vapour at saturation, x_ws = f p_ws / p [-]; inf where water cannot condense."""
+        if T >= T_CRITICAL:
+            return math.inf
+        x = self.enhancement(T, P) * saturation_pressure(T) / P
+        return x if x < 1.0 else math.inf
+
+    def saturation_ratio(self, T: float, P: float) -> float:
+        """Humidity ratio at saturation, w_s = ε x_ws / (1 − x_ws), [kg/kg] (inf where water cannot condense)."""
+        x = self.saturation_fraction(T, P)
+        return math.inf if x == math.inf else self.epsilon * x / (1.0 - x)
+
+    def surely_unsaturated(self, T: float, P: float, w: float) -> bool:
+        """Cheap test without the enhancement factor: True when w is certainly below saturation."""
+        if T >= T_CRITICAL:
+            return True
+        return w / (self.epsilon + w) * P < 0.999 * saturation_pressure(T)
+
+    # ---- condensed water ----------------------------------------------------------------------
+    def _ln_fp(self, T: float, P: float) -> float:
+        """ln(f p_ws) at saturation, [ln Pa]."""
+        return math.log(self.enhancement(T, P) * saturation_pressure(T))
+
+    def _mu_virial(self, T: float, P: float, x_w: float) -> float:
+        """Interaction part of the chemical potential of water, [J/kg] (0 for the ideal mixtures)."""
+        if self.virial is None:
+            return 0.0
+        x_a = 1.0 - x_w
+        baa, baw, bww = (c[0] for c in self.virial.eval(T))
+        return P * self.n_a / self.epsilon * (x_a * x_a * (2.0 * baw - baa) + x_w * (1.0 + x_a) * bww)
+
+    def liquid_gibbs(self, T: float, P: float) -> float:
+        """Gibbs energy of condensed water in equilibrium with the vapour, [J/kg]."""
+        return self.mu_water(T, P, self.saturation_fraction(T, P))
+
+    def liquid(self, T: float, P: float):
+        r"""(h_l [J/kg], s_l [J/(kg K)]) of condensed water at T, P (same reference as the vapour).
+
+        With :math:`g_l = h_w^\circ - T s_w^\circ + R_w T \ln(f p_{ws}/p_\mathrm{ref}) + \mu_v`
+        (:math:`\mu_v` the interaction part), :math:`s_l = -\partial g_l/\partial T` and
+        :math:`h_l = h_w^\circ - R_w T^2\,\partial\ln(f p_{ws})/\partial T + \mu_v - T\,\partial\mu_v/\partial T`;
+        only the two small terms are differentiated numerically (central differences).
+        """
+        d = _DT_LIQUID
+        hw, sw, _ = self.vapour(T)
+        ln_fp = self._ln_fp(T, P)
+        dln = saturation_pressure_log_slope(T)
+        if self.uses_enhancement:
+            dln += (math.log(self.enhancement(T + d, P)) - math.log(self.enhancement(T - d, P))) / (2.0 * d)
+        if self.virial is None:
+            mu_v = dmu_v = 0.0
+        else:
+            mu_v = self._mu_virial(T, P, self.saturation_fraction(T, P))
+            dmu_v = (self._mu_virial(T + d, P, self.saturation_fraction(T + d, P))
+                     - self._mu_virial(T - d, P, self.saturation_fraction(T - d, P))) / (2.0 * d)
+        s_l = sw - self.R_w * (ln_fp - math.log(P_REF)) - self.R_w * T * dln - dmu_v
+        h_l = hw - self.R_w * T * T * dln + mu_v - T * dmu_v
+        return h_l, s_l
+
+    def liquid_volume(self, T: float, P: float) -> float:
+        """Specific volume of condensed water ∂g_l/∂p, [m³/kg] (0 for the ideal mixtures)."""
+        if not self.uses_enhancement and self.virial is None:
+            return 0.0
+        dp = 1e-4 * P
+        return (self.liquid_gibbs(T, P + dp) - self.liquid_gibbs(T, P - dp)) / (2.0 * dp)
+
+    # ---- psychrometric quantities ---------------------------------------------------------
+    def relative_humidity(self, T: float, P: float, w: float):
+        """Relative humidity x_w p / (f p_ws(T)) [-] (mole-fraction basis); None at or above the critical temperature.
+
+        Defined also where p_ws(T) exceeds p (hot compressed air, where water cannot condense)."""
+        if T >= T_CRITICAL:
+            return None
+        return (w / (self.epsilon + w)) * P / (self.enhancement(T, P) * saturation_pressure(T))
+
+    def dew_point(self, P: float, w: float):
+        """Temperature at which vapour content w saturates at pressure P, [K] (frost point below 273.15 K).
+
+        Solves :math:`x_w p = f(T_d, p)\\,p_{ws}(T_d)` by fixed-point iteration on f (f varies
+        slowly with T); None when w is 0.
+        """
+        from .saturation import dew_point_from_vapour_pressure  # local: keeps the import list short
+        if w <= 0.0:
+            return None
+        p_v = w / (self.epsilon + w) * P
+        T = dew_point_from_vapour_pressure(p_v)
+        if not self.uses_enhancement:
+            return T
+        for _ in range(30):
+            T_new = dew_point_from_vapour_pressure(p_v / self.enhancement(T, P))
+            if abs(T_new - T) < 1e-10:
+                return T_new
+            T = T_new
+        return T
+
+
+def make_mixture(dry) -> MoistMixture:
+    """The moist mixture that belongs to a dry-air property model (by its name)."""
+    if dry.name == "real_gas":
+        return MoistMixture(dry, _IdealGasWater(), RP1485_EPSILON, virial=True, enhancement=True)
+    if dry.name == "ideal_gas":
+        return MoistMixture(dry, _IdealGasWater(), M_WATER / dry.molar_mass, virial=False, enhancement=False)
+    m_a = R_MOLAR / dry.gas_constant
+    return MoistMixture(dry, _ConstantCpWater(), M_WATER / m_a, virial=False, enhancement=False)
