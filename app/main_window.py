@@ -30,9 +30,10 @@ from .panels.charts_panel import ChartsPanel
 from .panels.duty_panel import DutyPanel
 from .panels.messages_panel import MessagesPanel
 from .panels.site_panel import SitePanel
+from .panels.study_panel import StudyPanel
 from .panels.train_panel import TrainPanel
 
-STATE_VERSION = 1  #: bump when panels are added or renamed, so old saved layouts are ignored
+STATE_VERSION = 2  #: bump when panels are added or renamed, so old saved layouts are ignored
 
 
 class MainWindow(FileOps, ExportOps, RecoveryOps, StudyOps, QMainWindow):
@@ -77,11 +78,16 @@ class MainWindow(FileOps, ExportOps, RecoveryOps, StudyOps, QMainWindow):
         self.add_panel("train", TrainPanel(self.editor), Qt.RightDockWidgetArea)
         self.add_panel("messages", MessagesPanel(self.editor), Qt.LeftDockWidgetArea)
         self.add_panel("balance", BalancePanel(self.editor), Qt.BottomDockWidgetArea)
+        self.add_panel("study", StudyPanel(self.editor), Qt.BottomDockWidgetArea, tabify_with="balance")
+        self.docks["balance"].raise_()
         # inputs and messages run the full height on the left; the balance sheet spans the
         # charts and the train panel, where it has the width its columns need
         self.setCorner(Qt.BottomLeftCorner, Qt.LeftDockWidgetArea)
         self.setCorner(Qt.BottomRightCorner, Qt.BottomDockWidgetArea)
         self.panels["train"].set_actions(self.action_map)
+        self.panels["study"].set_actions(self.action_map)
+        self.panels["study"].messages_changed.connect(self.panels["messages"].set_source_messages)
+        self.connect_study()
         self.panels["messages"].count_changed.connect(self._on_message_count)
         self._build_menus()
         self._build_status()

@@ -9,15 +9,47 @@ from __future__ import annotations
 
 __all__ = ["draw_staging_chart"]
 
+import numpy as np
+from matplotlib.backends.backend_agg import RendererAgg
 from matplotlib.figure import Figure
+from matplotlib.font_manager import FontProperties
 from matplotlib.lines import Line2D
 from matplotlib.ticker import MaxNLocator
 
 from .. import units
 from . import style
 
+_HANDLE, _TEXTPAD, _COLSPACE = 2.2, 0.8, 2.0  # legend spacing, [font sizes] (matplotlib's own units)
+_measure = RendererAgg(10, 10, 72.0)  # 72 dpi: one pixel is one point
 
-def draw_staging_chart(fig: Figure, study_rows: list[dict], system: str = "SI", limit_K: float | None = None) -> Figure:
+
+def _legend_columns(fig, handles) -> int:
+    """Most legend columns (≤ number of entries) whose total width fits the figure."""
+    prop = FontProperties(family=style.FONT, size=style.SIZE_NOTE)
+    size = style.SIZE_NOTE
+    widths = [_measure.get_text_width_height_descent(h.get_label(), prop, ismath=False)[0]
+              + (_HANDLE + _TEXTPAD) * size for h in handles]
+    available = fig.bbox.width / fig.dpi * 72.0 - 2.0 * size  # [pt], less the legend's border
+    for ncol in range(len(handles), 1, -1):
+        cols = np.array_split(np.array(widths), ncol)  # how matplotlib deals entries into columns
+        if sum(c.max() for c in cols if c.size) + _COLSPACE * size * (ncol - 1) <= available:
+            return ncol
+    return 1
+
+
+def _fit_label(fig, text: str) -> str:
+    """An axis label on two lines when one would not fit half the figure's height (a short panel)."""
+    prop = FontProperties(family=style.FONT, size=style.SIZE_LABEL)
+    width = _measure.get_text_width_height_descent(text, prop, ismath=False)[0]
+    if width <= 0.5 * fig.bbox.height / fig.dpi * 72.0 or " [" not in text:
+        return text
+    words = text.split(" ")
+    half = len(words) // 2
+    return " ".join(words[:half]) + "\n" + " ".join(words[half:])
+
+
+def draw_staging_chart(fig: Figure, study_rows: list[dict], system: str = "SI", limit_K: float | None = None,
+                       title: str | None = "Staging study") -> Figure:
     """Draw power and discharge temperature against the number of stages into ``fig``.
 
     Parameters
@@ -32,6 +64,8 @@ def draw_staging_chart(fig: Figure, study_rows: list[dict], system: str = "SI", 
         Display units, ``"SI"`` or ``"US"``.
     limit_K : float, optional
         A discharge-temperature limit to draw, [K].
+    title : str or None
+        Title above the axes (None: none, where the chart sits under a heading of its own).
 
     Returns
     -------
@@ -61,13 +95,13 @@ def draw_staging_chart(fig: Figure, study_rows: list[dict], system: str = "SI", 
                         markerfacecolor=colour if ok else style.PAPER, markeredgewidth=1.2, zorder=4)
     if limit_K is not None:
         ax_t.axhline(tu.to_display(limit_K), color=style.LIMIT, lw=1.0, ls=(0, (6, 2)), gid="staging-limit")
-    style.style_axes(ax, title="Staging study", xlabel="Number of stages",
+    style.style_axes(ax, title=title, xlabel="Number of stages",
                      ylabel=units.label("Driver power", "power", system))
     ax.xaxis.set_major_locator(MaxNLocator(integer=True))
     ax_t.spines["top"].set_visible(False)
     ax_t.spines["right"].set_color(style.MUTED)
     ax_t.tick_params(labelsize=style.SIZE_TICK, colors=style.INK, length=3, width=0.7)
-    ax_t.set_ylabel(units.label("Highest discharge temperature", "temperature", system),
+    ax_t.set_ylabel(_fit_label(fig, units.label("Highest discharge temperature", "temperature", system)),
                     fontsize=style.SIZE_LABEL, color=style.INK, fontfamily=style.FONT)
     handles = [Line2D([], [], color=style.POWER, marker="o", lw=1.6, label="driver power"),
                Line2D([], [], color=style.TEMPERATURE, marker="s", lw=1.4, ls=(0, (5, 2)),
@@ -76,8 +110,10 @@ def draw_staging_chart(fig: Figure, study_rows: list[dict], system: str = "SI", 
                       label="infeasible arrangement")]
     if limit_K is not None:
         handles.append(Line2D([], [], color=style.LIMIT, lw=1.0, ls=(0, (6, 2)), label="discharge limit"))
-    leg = ax.legend(handles=handles, loc="upper left", bbox_to_anchor=(0.0, -0.14), ncol=len(handles),
-                    fontsize=style.SIZE_NOTE, frameon=False, borderaxespad=0.0, handlelength=2.2)
+    # below the axes as a figure legend, so the constrained layout makes room for it, in as
+    # many columns as the figure's width holds (one row of four is wider than a narrow panel)
+    leg = fig.legend(handles=handles, loc="outside lower center", ncol=_legend_columns(fig, handles),
+                     fontsize=style.SIZE_NOTE, frameon=False, handlelength=_HANDLE, columnspacing=_COLSPACE)
     for t in leg.get_texts():
         t.set_color(style.INK)
     return fig

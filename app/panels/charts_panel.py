@@ -89,13 +89,8 @@ class ChartsPanel(QWidget):
         if self.study is None and self.ensure_canvases():
             from .study_tab import StudyTab
             self.study = StudyTab()
-            self.tabs.addTab(self.study, "Staging study")
-            self.editor.model.changed.connect(self._study_out_of_date)
+            self.tabs.addTab(self.study, "Staging study")  # app.study_ops marks it out of date
         return self.study
-
-    def _study_out_of_date(self, _path: str) -> None:
-        if self.study is not None:
-            self.study.mark_stale()
 
     def _limits(self) -> list:
         stages = self.editor.model.get("stages", []) or []

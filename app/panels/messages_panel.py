@@ -65,6 +65,7 @@ class MessagesPanel(QWidget):
         lay.addWidget(foot)
         self._icons = {k: _dot(c) for k, c in _SEVERITY_COLOUR.items()}
         self.messages: list[Message] = []
+        self.sources: dict[str, list[Message]] = {}  # messages other panels publish (e.g. the study)
         editor.problems_changed.connect(self.refresh)
         editor.result_changed.connect(self.refresh)
         editor.prefs.changed.connect(self.refresh)
@@ -94,7 +95,15 @@ class MessagesPanel(QWidget):
                 out.append(Message("ok", "Solved: no warnings.", ""))
         elif not out and ed.solver.busy:
             out.append(Message("note", "Solving…", ""))
+        for extra in self.sources.values():
+            out += [m for m in extra if m not in out]
         return out
+
+    def set_source_messages(self, source: str, messages: list) -> None:
+        """Show ``messages`` (a list of :class:`Message`) from another panel, replacing that
+        source's earlier ones (an empty list removes them)."""
+        self.sources[source] = list(messages)
+        self.refresh()
 
     def _warning_text(self, w: dict) -> str:
         """Result warnings in display units where the message is one we know how to restate."""

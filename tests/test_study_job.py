@@ -1,0 +1,53 @@
+"""A study job of the window, Qt-free: a plain comparison is one case, a sensitivity run one
+case per value, and a cancelled study answers with what it had finished.
+
+Numbers are checked against the closed form of perfect-gas compression
+(``fluids.compressible.isentropic_work_compression``, C. Bell, fluids / ChEDL on PyPI).
+"""
+from __future__ import annotations
+
+import pytest
+from fluids.compressible import isentropic_work_compression
+
+from app.study_job import StudyRequest, partial_answer, run_request
+from conftest import make_doc
+from thermo.study import StudyCancelled
+
+R_MOLAR, M_AIR = 8.314462618, 0.02896546  # J/(mol K) CODATA 2018; kg/mol (CoolProp's air)
+
+
+def doc():
+    d = make_doc(model="constant_cp", stages=2, p_out=9e5, eta=0.8, cool_to=303.15)
+    d["fluid"].update({"cp_J_kgK": R_MOLAR / M_AIR * 3.5, "k": 1.4})
+    return d
+
+
+def test_a_comparison_is_one_case():
+    ans = run_request(StudyRequest(doc(), 3, 6000.0, 0.2))
+    assert ans["variable"] is None and ans["complete"] and len(ans["cases"]) == 1
+    rows = ans["cases"][0]["rows"]
+    assert [r["stages"] for r in rows] == [1, 2, 3]
+    assert rows[0]["operating_hours_per_year"] == 6000.0 and rows[0]["energy_price_per_kWh"] == 0.2
+    assert ans["first_efficiency"] is None
+
+
+def test_a_sensitivity_run_is_one_case_per_value():
+    ans = run_request(StudyRequest(doc(), 2, 8000.0, 0.15, "ambient_temperature_K", (278.15, 298.15)))
+    assert [c["value"] for c in ans["cases"]] == [278.15, 298.15]
+    for case in ans["cases"]:
+        w = isentropic_work_compression(T1=case["value"], k=1.4, Z=1.0, P1=1e5, P2=9e5, eta=0.8) / M_AIR
+        assert case["rows"][0]["driver_power_W"] == pytest.approx(w, rel=1e-9)  # one stage: ratio 9
+
+
+def test_a_cancelled_study_keeps_what_it_finished():
+    fractions = []
+    req = StudyRequest(doc(), 4, 8000.0, 0.15)
+    with pytest.raises(StudyCancelled) as err:
+        run_request(req, lambda f, m: fractions.append(f), lambda: len(fractions) > 2)
+    ans = partial_answer(req, err.value.partial, str(err.value))
+    assert not ans["complete"] and "2 of 4" in ans["message"]
+    rows = ans["cases"][0]["rows"]
+    assert [r["stages"] for r in rows] == [1, 2]
+    assert "repeats the project's first stage" in rows[0]["note"]
+    assert rows[1]["saving_W"] == pytest.approx(rows[0]["driver_power_W"] - rows[1]["driver_power_W"])
+    assert partial_answer(req, [], "study cancelled")["cases"] == []
