@@ -1,8 +1,9 @@
 """An intercooler or aftercooler: heat rejected at the coolant temperature [1]_."""
 from __future__ import annotations
 
-__all__ = ["CoolerResult", "solve_cooler", "cooler_outlet_temperature", "outlet_field"]
+__all__ = ["CoolerResult", "solve_cooler", "cooler_outlet_temperature", "outlet_field", "moist_dew_point"]
 
+import math
 from dataclasses import dataclass
 
 from .condensate import Condensation, condensation, cooling_line
@@ -10,6 +11,7 @@ from .errors import InputError
 from .exchanger import Exchanger, HotSide, make_coolant, rate_exchanger, size_exchanger
 from .exergy import DeadState, heat_exergy
 from .models.base import Point, PropertyModel
+from .roots import bracketed_root
 
 
 @dataclass
@@ -63,6 +65,72 @@ def outlet_field(spec: dict, where: str) -> str:
         if spec.get(key) is not None:
             return f"{where}.{key}"
     return f"{where}.outlet_temperature_K"
+
+
+def moist_dew_point(model, P: float, t_low: float, t_high: float) -> float | None:
+    r"""Dew point [K] of a moist stream's total water at pressure ``P`` when it lies in (t_low, t_high).
+
+    The root of :math:`W - w_s(T, p) = 0` with the stream model's own saturation law (the
+    same one its equilibrium split uses, so the stream's enthalpy has its kink exactly there),
+    by a bracketed root finder (:mod:`thermo.roots`); ``None`` for dry air or when the stream does not start to
+    condense between the two temperatures.
+    """
+    mixture = getattr(model, "mixture", None)
+    if mixture is None or model.water <= 0.0 or not t_low < t_high:
+        return None
+
+    def excess(T: float) -> float:
+        return model.water - mixture.saturation_ratio(T, P)
+
+    guess = mixture.dew_point(P, model.water)  # closed form on the vapour pressure: brackets the root
+    lo, hi = max(t_low, guess - 0.5), min(t_high, guess + 0.5)
+    if not lo < hi:
+        return None
+    e_lo, e_hi = excess(lo), excess(hi)
+    if not (e_lo > 0.0 and e_hi < 0.0):
+        if lo == t_low and e_lo <= 0.0 or hi == t_high and e_hi >= 0.0:
+            return None  # the dew point lies outside (t_low, t_high)
+        lo, hi = max(t_low, guess - 20.0), min(t_high, guess + 20.0)
+        if not (excess(lo) > 0.0 and math.isfinite(excess(hi)) and excess(hi) < 0.0):
+            return None
+    return bracketed_root(excess, lo, hi, xtol=1e-14)
+
+
+def _hot_side(model, where: str, t_stag: float, h_in0: float, p_out: float, mass_flow: float):
+    r"""``hot_at(T_out)`` → :class:`~thermo.exchanger.HotSide` of the air cooled to ``T_out``.
+
+    For moist air that condenses before ``T_out`` the hot side carries the dew point at the
+    cooler outlet pressure, the duty down to it, the equilibrium enthalpy per kg dry air
+    (liquid water included) and the mean specific heat of the unsaturated part, so that
+    the exchanger is split into a dry and a wet zone (:mod:`thermo.exchanger.sizing`,
+    Braun, Klein & Mitchell 1989). Dry air, or moist air that stays above its dew point,
+    gives the plain sensible hot side.
+    """
+    moist = getattr(model, "mixture", None) is not None and model.water > 0.0
+    cache: dict = {}
+
+    def h_eq(T: float) -> float:
+        return model.at_tp(T, p_out, f"{where} outlet").h
+
+    def dew(t_out: float):
+        # the dew point does not depend on the outlet asked for; search once over the widest span
+        if "t" not in cache:
+            cache["t"] = moist_dew_point(model, p_out, 273.15, t_stag)
+        t_dew = cache["t"]
+        return t_dew if t_dew is not None and t_out < t_dew < t_stag else None
+
+    def hot_at(t: float) -> HotSide:
+        duty = mass_flow * (h_in0 - h_eq(t))
+        t_dew = dew(t) if moist else None
+        if t_dew is None:
+            return HotSide(t_stag, t, duty)
+        if "q_dew" not in cache:
+            cache["q_dew"] = mass_flow * (h_in0 - h_eq(t_dew))
+        q_dew = cache["q_dew"]
+        return HotSide(t_stag, t, duty, dew_point_K=t_dew, dew_point_duty_W=q_dew, flow_kg_s=mass_flow,
+                       equilibrium_enthalpy=h_eq, moist_cp_J_kgK=q_dew / (mass_flow * (t_stag - t_dew)))
+
+    return hot_at
 
 
 def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inlet_velocity: float,
@@ -149,8 +217,7 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
         if inlet_velocity > 0.0:
             t_stag = model.at_hp(h_in0, inlet.P, f"{where} inlet (stagnation)", T_guess=inlet.T).T
 
-        def hot_at(t: float) -> HotSide:
-            return HotSide(t_stag, t, mass_flow * (h_in0 - model.at_tp(t, p_out, f"{where} outlet").h))
+        hot_at = _hot_side(model, where, t_stag, h_in0, p_out, mass_flow)
 
         fluid = make_coolant(coolant, (dead.T0, dead.P0, ambient_relative_humidity))
         flow, rise = coolant.get("flow_kg_s"), coolant.get("temperature_rise_K")
