@@ -54,3 +54,44 @@ def test_no_section_means_none_in_results():
     doc = _doc()
     del doc["heat_recovery"]
     assert thermo.solve(doc).to_dict()["recoverable_heat_W"] is None
+
+
+def _humid_doc(rh=0.8, delivery=313.15):
+    doc = make_doc(model="real_gas", stages=2, p_out=8e5, T0=298.15, cool_to=303.15)
+    doc["site"]["relative_humidity"] = rh
+    doc["heat_recovery"] = {"delivery_temperature_K": delivery, "approach_K": 5.0}
+    return doc
+
+
+def test_moist_recovery_counts_the_latent_heat_above_the_source_temperature():
+    # Equilibrium enthalpy of the moist stream per kg dry air from CoolProp HAPropsSI (ASHRAE
+    # RP-1485; liquid water at 4186 J/(kg K) from 0.01 °C, from memory): Q = m_a [h(T_in) − h_eq(T_x)].
+    # The source temperature lies below the stream's dew point, so part of it is latent heat.
+    # 0.5 % covers the two moist-air formulations (tolerance common practice, no source).
+    import CoolProp.CoolProp as CP
+    res = thermo.solve(_humid_doc())
+    t_x = 318.15
+    checked = 0
+    for c, q in zip(res.coolers, res.recovery.coolers_W):
+        P, W = c.outlet.P, c.inlet.w + c.inlet.wl
+        t_dew = CP.HAPropsSI("D", "T", c.inlet.T, "P", P, "W", W)
+        if t_dew <= t_x:
+            continue
+        ws = CP.HAPropsSI("W", "T", t_x, "P", P, "R", 1.0)
+        h_x = CP.HAPropsSI("H", "T", t_x, "P", P, "R", 1.0) + (W - ws) * 4186.0 * (t_x - 273.16)
+        h_in = CP.HAPropsSI("H", "T", c.inlet.T, "P", P, "W", W)  # pressure effect on the vapour phase: small
+        expected = res.mass_flow_kg_s * (h_in - h_x)
+        assert q == pytest.approx(expected, rel=5e-3)
+        # the latent part (about 2.4 MJ/kg condensed, from memory) is far above the tolerance: a dry-air
+        # (sensible-only) reckoning would fail the check above (latent part at least 4× its tolerance)
+        assert res.mass_flow_kg_s * (W - ws) * 2.4e6 > 4 * 5e-3 * expected
+        checked += 1
+    assert checked >= 1
+
+
+def test_dry_intake_recovery_is_unchanged_by_the_stream_model():
+    # zero humidity runs the dry code: the recovered heat is the dry-air model's enthalpy drop
+    res = thermo.solve(_humid_doc(rh=0.0))
+    c = res.coolers[0]
+    h_x = c.stream_model.at_tp(318.15, c.outlet.P).h
+    assert res.recovery.coolers_W[0] == pytest.approx(res.mass_flow_kg_s * (c.outlet.h + c.duty_W / res.mass_flow_kg_s - h_x), rel=1e-12)

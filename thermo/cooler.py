@@ -4,7 +4,7 @@ from __future__ import annotations
 __all__ = ["CoolerResult", "solve_cooler", "cooler_outlet_temperature", "outlet_field", "moist_dew_point"]
 
 import math
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 
 from .condensate import Condensation, condensation, cooling_line
 from .errors import InputError
@@ -33,6 +33,8 @@ class CoolerResult:
     stagnation_inlet_temperature_K: float | None = None
     #: moist air only: condensation and separator (None for dry air)
     water: Condensation | None = None
+    #: the stream model the cooler was solved with (moist air: its total water), for heat recovery
+    stream_model: object = field(default=None, repr=False, compare=False)
 
     @property
     def leaving(self) -> Point:
@@ -262,7 +264,7 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
                             heat_exergy_W=heat_exergy(duty, t_b, dead.T0), entropy_generation_W_K=s_gen,
                             exergy_destroyed_W=dead.T0 * s_gen, path=path,
                             arrangement=spec.get("arrangement", "counter_flow"), exchanger=exchanger,
-                            stagnation_inlet_temperature_K=t_stag, water=water)
+                            stagnation_inlet_temperature_K=t_stag, water=water, stream_model=model)
     path = [inlet]
     for k in range(1, path_points):
         f = k / path_points
@@ -272,4 +274,4 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
     return CoolerResult(index=index, inlet=inlet, outlet=outlet, duty_W=duty, boundary_temperature_K=t_b,
                         heat_exergy_W=heat_exergy(duty, t_b, dead.T0), entropy_generation_W_K=s_gen,
                         exergy_destroyed_W=dead.T0 * s_gen, path=path, arrangement=spec.get("arrangement", "counter_flow"),
-                        exchanger=exchanger, stagnation_inlet_temperature_K=t_stag)
+                        exchanger=exchanger, stagnation_inlet_temperature_K=t_stag, stream_model=model)

@@ -18,6 +18,12 @@ it). The value per year is the boiler fuel it saves:
 .. math:: V = \frac{\dot Q_{rec}\, t_{op}}{1000\,\eta_{boiler}}\, c_{fuel}
 
 with :math:`t_{op}` in hours and :math:`c_{fuel}` per kWh of fuel.
+
+For moist intake air :math:`h` is the equilibrium enthalpy of the cooler's own stream per
+kilogram of dry air (:class:`thermo.humid.MoistAir`, liquid water included) and
+:math:`\dot m` the dry-air flow, so that where :math:`T_x` lies below the stream's dew point
+the latent heat of the water condensed above :math:`T_x` counts as recoverable (ASHRAE
+Handbook—Fundamentals 2017, ch. 1, cooling with dehumidification).
 """
 from __future__ import annotations
 
@@ -52,11 +58,11 @@ def cooler_heat_above(model: PropertyModel, cooler, mass_flow: float, t_x: float
     Parameters
     ----------
     model : PropertyModel
-        Property model of the air.
+        Property model of the air (used when the cooler does not carry its stream model).
     cooler : CoolerResult
-        The solved cooler.
+        The solved cooler; its ``stream_model`` (moist air: the stream's total water) is used.
     mass_flow : float
-        Air mass flow, [kg/s].
+        Air mass flow (dry-air flow for moist air), [kg/s].
     t_x : float
         Coldest air temperature a recovery exchanger can use, [K].
 
@@ -70,8 +76,9 @@ def cooler_heat_above(model: PropertyModel, cooler, mass_flow: float, t_x: float
         return 0.0
     if cooler.outlet.T >= t_x:
         return cooler.duty_W
+    stream = getattr(cooler, "stream_model", None) or model  # moist air: the cooler's own water content
     h_in0 = cooler.outlet.h + cooler.duty_W / mass_flow
-    h_x = model.at_tp(t_x, cooler.outlet.P, f"stages[{cooler.index}].cooler recovery").h
+    h_x = stream.at_tp(t_x, cooler.outlet.P, f"stages[{cooler.index}].cooler recovery").h
     return min(cooler.duty_W, max(0.0, mass_flow * (h_in0 - h_x)))
 
 

@@ -199,7 +199,7 @@ def solve_train(norm: dict, model: PropertyModel, mass_flow: float, detail: bool
         heat_exergy_W=x_heat, exergy_gained_W=x_gain, isothermal_power_W=iso,
         isothermal_efficiency=iso / shaft, second_law_efficiency=x_gain / shaft,
         energy_residual=energy_res, exergy_residual=exergy_res, warnings=warnings, water=water)
-    if norm.get("heat_recovery"):  # moist air: recovery is still reckoned on the dry-air model
+    if norm.get("heat_recovery"):  # moist air: each cooler's own stream model (latent heat included)
         result.recovery = heat_recovery(norm["heat_recovery"], dry_model, specs, stages, coolers, mass_flow, driver,
                                         hours=(norm.get("year") or {}).get("operating_hours_per_year"))
     for name in ("shaft_power_W", "energy_residual", "exergy_residual", "second_law_efficiency"):
