@@ -89,3 +89,15 @@ def test_unreachable_effectiveness_is_a_temperature_cross():
         ntu_from_effectiveness("shell_and_tube_1_2", 0.6, 1.0)
     with pytest.raises(InputError, match="arrangement"):
         effectiveness("spiral", 1.0, 0.5)
+
+
+def test_crossflow_unmixed_within_rounding_of_its_limit_is_a_temperature_cross():
+    # at Cr = 1 both-unmixed cross-flow tends to ε = 1 as NTU → ∞ (Incropera et al. 2007, Table 11.3);
+    # an effectiveness the series reaches only beyond 10⁴ transfer units is refused, not a crash
+    limit = max_effectiveness("cross_flow_unmixed", 1.0, True)
+    eps = 0.5 * (crossflow_unmixed_effectiveness(1e4, 1.0) + limit)
+    if eps < limit:
+        with pytest.raises(InputError, match="temperatures cross"):
+            ntu_from_effectiveness("cross_flow_unmixed", eps, 1.0)
+    assert ntu_from_effectiveness("cross_flow_unmixed", 0.5, 1.0) == pytest.approx(
+        ht.NTU_from_effectiveness(0.5, 1.0, subtype="crossflow"), rel=1e-6)  # ht library (C. Bell)

@@ -347,6 +347,13 @@ def ntu_from_effectiveness(arrangement: str, eps: float, cr: float, hot_is_cmin:
         if not math.isfinite(ntu):
             raise InputError(field, eps, cross)
         return ntu
-    x = brentq(lambda y: arr.eps(math.exp(y), cr, hot_is_cmin) - eps, -40.0, math.log(1e4),
-               xtol=1e-15, rtol=1e-14, maxiter=300)
+    def miss(y: float) -> float:
+        return arr.eps(math.exp(y), cr, hot_is_cmin) - eps
+
+    y_lo, y_hi = -40.0, math.log(1e4)
+    if miss(y_hi) <= 0.0:  # within rounding of the limit: more than 10⁴ transfer units, no finite exchanger
+        raise InputError(field, eps, cross)
+    if miss(y_lo) >= 0.0:
+        return math.exp(y_lo)
+    x = brentq(miss, y_lo, y_hi, xtol=1e-15, rtol=1e-14, maxiter=300)
     return math.exp(x)
