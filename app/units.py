@@ -70,6 +70,8 @@ QUANTITIES: dict[str, tuple[Unit, Unit]] = {
     "ratio": (Unit("", 1.0, 0.0, 4), Unit("", 1.0, 0.0, 4)),
     "conductance": (Unit("kW/K", 1e3, 0.0, 3), Unit("Btu/(h·°F)", _BTU / 3600.0 / _R_PER_K, 0.0, 0)),
     "energy": (Unit("kWh", 3.6e6, 0.0, 0), Unit("kWh", 3.6e6, 0.0, 0)),
+    # condensate or cooling water collected over a period, [m³] inside
+    "liquid_volume": (Unit("m³", 1.0, 0.0, 3), Unit("US gal", _GAL, 0.0, 1)),
 }
 
 

@@ -92,7 +92,10 @@ def test_stage_line_follows_the_polytropic_path(sample):
 def test_real_gas_isobars_match_coolprop_propssi(sample):
     """Isobar entropies relative to the intake, against CoolProp's high-level PropsSI
     (Lemmon et al. 2000 air EOS; PropsSI is a different code path from our AbstractState)."""
-    _, result = sample
+    doc, _ = sample
+    dry_doc = copy.deepcopy(doc)
+    dry_doc["site"]["relative_humidity"] = 0.0  # dry air: the pure-air EOS
+    result = solve(dry_doc).to_dict()
     fig = draw_ts_chart(_fig(), result)
     isobars = sorted(_lines(fig, "isobar-"), key=lambda ln: ln.get_gid())
     pressures = isobar_pressures(result)
@@ -104,6 +107,30 @@ def test_real_gas_isobars_match_coolprop_propssi(sample):
             T = yv + 273.15
             expected = (PropsSI("S", "T", T, "P", p, "Air") - s0) / 1e3
             assert xv == pytest.approx(expected, abs=2e-6)  # kJ/(kg K)
+
+
+def test_moist_isobars_match_hapropssi_above_the_dew_point(sample):
+    """Humid demo: isobars are of the intake air with its water, entropy per kg dry air relative to
+    the intake, against CoolProp's HAPropsSI (ASHRAE RP-1485, Herrmann, Kretzschmar & Gatley 2009),
+    where the air is unsaturated. 2e-4 kJ/(kg K) covers the two moist-air implementations
+    (tolerance common practice, no source)."""
+    from CoolProp.CoolProp import HAPropsSI
+    _, result = sample
+    W = result["intake_humidity_ratio"]
+    assert W > 0.0
+    fig = draw_ts_chart(_fig(), result)
+    T0, P0 = result["intake"]["temperature_K"], result["intake"]["pressure_Pa"]
+    s0 = HAPropsSI("S", "T", T0, "P", P0, "W", W)
+    checked = 0
+    for line, p in zip(sorted(_lines(fig, "isobar-"), key=lambda ln: ln.get_gid()), isobar_pressures(result)):
+        t_dew = HAPropsSI("D", "T", 400.0, "P", p, "W", W)
+        for xv, yv in list(zip(line.get_xdata(), line.get_ydata()))[::5]:
+            T = yv + 273.15
+            if T < t_dew + 1.0:
+                continue
+            assert xv == pytest.approx((HAPropsSI("S", "T", T, "P", p, "W", W) - s0) / 1e3, abs=2e-4)
+            checked += 1
+    assert checked >= 10
 
 
 def test_constant_cp_isobars_use_the_projects_cp_and_k():
@@ -167,16 +194,23 @@ def test_unknown_model_draws_the_path_without_isobars(sample):
 # ------------------------------------------------------------------------------- power split
 
 def test_exergy_cascade_closes_on_shaft_power(sample):
-    """Shaft power = exergy gained + Σ exergy destroyed + exergy of heat (Bejan et al. 1996, §3.5)."""
+    """Shaft power = exergy gained + Σ exergy destroyed + exergy of heat + exergy of the drained
+    condensate (Bejan, Tsatsaronis & Moran 1996, §3.5: exergy balance of an open system, every
+    stream leaving counted; the demo's intake is humid, so water leaves at the separators)."""
     _, result = sample
+    assert result["condensate_kg_s"] > 0.0 and result["condensate_exergy_W"] > 0.0
     fig = draw_power_split(_fig(), result)
     width = {p.get_gid(): p.get_width() for p in _patches(fig, "exergy-")}
     assert width["exergy-shaft"] == pytest.approx(result["shaft_power_W"] / 1e3)
     assert width["exergy-gained"] == pytest.approx(result["exergy_gained_W"] / 1e3)
+    assert width["exergy-condensate"] == pytest.approx(result["condensate_exergy_W"] / 1e3)
     signed = sum(v for _, _, v in exergy_items(result))
     assert (signed + result["exergy_gained_W"]) == pytest.approx(result["shaft_power_W"], rel=1e-9)
+    # the bars themselves close: the last taken-off bar ends where the gained bar ends
+    bars = {p.get_gid(): p for p in _patches(fig, "exergy-")}
+    assert bars["exergy-condensate"].get_x() == pytest.approx(result["exergy_gained_W"] / 1e3, rel=1e-9)
     assert {"exergy-filter", "exergy-stage-1", "exergy-cooler-1", "exergy-stage-2", "exergy-cooler-2",
-            "exergy-heat"} <= set(width)
+            "exergy-heat", "exergy-condensate"} <= set(width)
     # the sample's coolant (22 °C) is colder than ambient (25 °C): heat exergy is negative, hatched
     heat = [p for p in _patches(fig, "exergy-heat")][0]
     assert result["heat_exergy_W"] < 0 and heat.get_hatch()
@@ -187,7 +221,16 @@ def test_heat_panel_adds_up_to_heat_rejected(sample):
     fig = draw_power_split(_fig(), result)
     total = sum(p.get_width() for p in _patches(fig, "heat-"))
     assert total == pytest.approx(result["heat_rejected_W"] / 1e3, rel=1e-12)
-    assert not _patches(fig, "heat-cooler-1-latent")  # dry air: no latent part
+    for i, st in enumerate(result["stages"], 1):  # humid demo: both coolers condense
+        c = st["cooler"]
+        (lat,) = _patches(fig, f"heat-cooler-{i}-latent")
+        assert lat.get_width() == pytest.approx(c["latent_duty_W"] / 1e3, rel=1e-12)
+        (note,) = [t for t in fig.axes[1].texts if t.get_gid() == f"note-cooler-{i}"]
+        # 1 kg/h = 1/3600 kg/s (definition of the hour)
+        assert f"{c['drained_kg_s'] * 3600.0:.2f} kg/h drained" in note.get_text()
+    dry = draw_power_split(_fig(), _result(stages=2, p_out=8e5))
+    assert not _patches(dry, "heat-cooler-1-latent") and not _patches(dry, "exergy-condensate")
+    assert all("drained" not in t.get_text() for t in dry.axes[1].texts)
 
 
 def test_latent_duty_is_shown_when_the_result_has_it(sample):

@@ -91,6 +91,10 @@ def test_message_click_selects_the_offending_field(qtbot, window):
     ed.set_value("stages[1].max_discharge_temperature_K", 400.0)  # below the ~447 K discharge
     wait_solved(qtbot, window, n)
     warnings = [m for m in msgs.messages if m.severity == "warning"]
+    # the humid demo also warns about each separator's condensate (a drain to manage)
+    drains = [m.field for m in warnings if m.field.endswith("separator_efficiency")]
+    assert drains == ["stages[0].cooler.separator_efficiency", "stages[1].cooler.separator_efficiency"]
+    warnings = [m for m in warnings if not m.field.endswith("separator_efficiency")]
     assert [m.field for m in warnings] == ["stages[1].max_discharge_temperature_K"]
     assert "above its limit of 126.85 °C" in warnings[0].text
     assert any(m.severity == "caution" for m in msgs.messages)  # the discharge-temperature caution
@@ -378,4 +382,9 @@ def test_dry_intake_hides_the_humidity_columns(qtbot, window):
     bal = window.panels["balance"]
     from app.panels.balance_panel import POINT_COLUMNS
     col = 1 + [c[0] for c in POINT_COLUMNS].index("w")
+    assert not bal.points.isColumnHidden(col)  # the demo's intake is humid
+    ed = window.editor
+    n = ed.solved_jobs
+    ed.set_value("site.relative_humidity", 0.0)
+    wait_solved(qtbot, window, n)
     assert bal.points.isColumnHidden(col)

@@ -38,3 +38,13 @@ def test_coolant_warmer_than_air_is_refused():
     fluid = make_coolant({"kind": "water"}, (298.15, 101_325.0, 0.0))
     with pytest.raises(InputError, match="coolant_inlet_temperature_K"):
         rate_exchanger("counter_flow", 1000.0, 300.0, lambda t: hot_at(t, 300.0), fluid, 310.0, flow=1.0)
+
+
+@pytest.mark.parametrize("ua, word", [(1e-12, "larger"), (1e12, "smaller")])
+def test_ua_beyond_what_any_outlet_gives_names_the_ua(ua, word):
+    # counter-flow: UA = C_min·NTU with NTU = ln((1−εCr)/(1−ε))/(1−Cr) (Incropera et al. 2007, Table 11.4)
+    # is ~1e-6 W/K for an outlet 1e-7 K below the inlet and ~3e4 W/K for one 1e-10 K above the coolant:
+    # a UA outside that range has no outlet and is refused naming the field
+    fluid = make_coolant({"kind": "water"}, (298.15, 101_325.0, 0.0))
+    with pytest.raises(InputError, match=rf"cooler\.ua_W_K.*expected a {word} UA"):
+        rate_exchanger("counter_flow", ua, 430.0, hot_at, fluid, 298.15, flow=2.0)

@@ -16,8 +16,18 @@ def run(capsys, *argv):
     return code, out, err
 
 
-def test_json_is_one_row_per_stage_count(capsys):
-    code, out, err = run(capsys, SAMPLE, "--max-stages", 3, "--json", "--hours", 5000, "--price", 0.12)
+def _dry_sample(tmp_path):
+    """The demo with a dry intake: its one-stage option then reaches the 473.15 K limit inside the
+    property range (humid, the real-gas moist-air range of 623.15 K refuses it first)."""
+    doc = json.loads(SAMPLE.read_text(encoding="utf-8"))
+    doc["site"]["relative_humidity"] = 0.0
+    path = tmp_path / "dry_plant_air.json"
+    path.write_text(json.dumps(doc), encoding="utf-8")
+    return path
+
+
+def test_json_is_one_row_per_stage_count(capsys, tmp_path):
+    code, out, err = run(capsys, _dry_sample(tmp_path), "--max-stages", 3, "--json", "--hours", 5000, "--price", 0.12)
     rows = json.loads(out)
     assert code == 0 and err == ""
     assert [r["stages"] for r in rows] == [1, 2, 3]
@@ -32,13 +42,15 @@ def test_json_is_one_row_per_stage_count(capsys):
     assert rows[0]["binding_limits"][0]["field"] == "stages[0].max_discharge_temperature_K"
 
 
-def test_text_table_says_how_options_are_built_and_shows_the_caution(capsys):
-    code, out, _ = run(capsys, SAMPLE, "--max-stages", 2)
+def test_text_table_says_how_options_are_built_and_shows_the_caution(capsys, tmp_path):
+    code, out, _ = run(capsys, _dry_sample(tmp_path), "--max-stages", 2)
     assert code == 0
     assert "repeats the project's first stage" in out and "aftercooler" in out
     assert "limits not met" in out and "NOT MET: stages[0].max_discharge_temperature_K" in out
     assert "8000 operating hours per year and 0.15 per kWh" in out
     assert "Caution — Discharge temperature" in out
+    code, out, _ = run(capsys, SAMPLE, "--max-stages", 2)  # the humid demo: condensate in the table
+    assert code == 0 and "NOT MET: stages[0]" in out and "condensate" in out
 
 
 def test_bad_max_stages_is_one_line_and_exit_2(capsys):

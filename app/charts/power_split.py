@@ -2,19 +2,21 @@
 
 Left panel, an exergy cascade read from the top: the shaft power, then the exergy destroyed
 in the intake filter, in each stage and in each cooler, then the exergy carried out with
-rejected heat, leaving the exergy gained by the air (the bars close on the shaft power
-within the result's exergy residual). A negative exergy of heat — heat rejected to a sink
-colder than ambient — is drawn hatched, adding back to the cascade.
+rejected heat and, for moist intake air, the exergy leaving with the drained condensate
+(``condensate_exergy_W``), leaving the exergy gained by the air (the bars close on the shaft
+power within the result's exergy residual). A negative term — heat rejected to a sink colder
+than ambient — is drawn hatched, adding back to the cascade.
 
 Right panel, the first-law view: the heat rejected by each cooler (sensible and latent parts
 when the result gives ``sensible_duty_W`` / ``latent_duty_W``) and, for each stage, the
-casing heat loss and the mechanical losses.
+casing heat loss and the mechanical losses. A cooler that drains condensate has the drained
+water flow written after its total.
 
 Bars carry gids (``"exergy-shaft"``, ``"exergy-stage-1"``, ``"heat-cooler-1"`` …) for tests.
 """
 from __future__ import annotations
 
-__all__ = ["draw_power_split", "exergy_items", "heat_items"]
+__all__ = ["draw_power_split", "exergy_items", "heat_items", "drained_water"]
 
 from matplotlib.figure import Figure
 from matplotlib.patches import Patch
@@ -27,7 +29,8 @@ def exergy_items(result: dict) -> list[tuple[str, str, float]]:
     """(gid suffix, label, exergy [W]) taken off the shaft power, in flow order.
 
     The sum of these and the exergy gained by the air equals the shaft power (to the
-    result's ``exergy_residual``).
+    result's ``exergy_residual``); for moist air that includes the exergy of the drained
+    condensate, which leaves the train as liquid water above the dead state.
     """
     items = [("filter", "Intake filter", result["inlet_filter"]["exergy_destroyed_W"])]
     for i, st in enumerate(result["stages"], 1):
@@ -36,7 +39,14 @@ def exergy_items(result: dict) -> list[tuple[str, str, float]]:
         if c:
             items.append((f"cooler-{i}", f"Cooler {i}", c["exergy_destroyed_W"]))
     items.append(("heat", "Out with rejected heat", result["heat_exergy_W"]))
+    if result.get("condensate_exergy_W"):
+        items.append(("condensate", "Out with condensate", result["condensate_exergy_W"]))
     return items
+
+
+def drained_water(result: dict) -> list[float]:
+    """Condensate drained by each cooler's separator, [kg/s] (0 where none or no cooler), in stage order."""
+    return [((st.get("cooler") or {}).get("drained_kg_s") or 0.0) for st in result["stages"]]
 
 
 def heat_items(result: dict) -> list[tuple[str, str, list[tuple[str, float]]]]:
@@ -66,6 +76,7 @@ _LEGEND_BELOW = dict(loc="upper left", bbox_to_anchor=(0.0, -0.13), ncol=2, font
                      frameon=False, handlelength=1.4, columnspacing=1.2, borderaxespad=0.0)
 _PART_COLOUR = {"sensible": style.SENSIBLE, "latent": style.LATENT,
                 "casing": style.CASING, "mechanical": style.MECHANICAL}
+_EXERGY_COLOUR = {"heat": style.HEAT_EXERGY, "condensate": style.CONDENSATE}
 _PART_LABEL = {"sensible": "cooler, sensible", "latent": "cooler, latent (condensing)",
                "casing": "stage casing", "mechanical": "mechanical losses"}
 
@@ -105,7 +116,7 @@ def _draw_exergy(ax, result: dict, system: str) -> None:
     ax.barh(ypos[0], pw.to_display(shaft), height=h, color=style.SHAFT, gid="exergy-shaft", zorder=3)
     run = shaft
     for (gid, _, v), yy in zip(items, ypos[1:-1]):
-        colour = style.HEAT_EXERGY if gid == "heat" else style.DESTROYED
+        colour = _EXERGY_COLOUR.get(gid, style.DESTROYED)
         if v >= 0.0:
             left, width, hatch = run - v, v, None
         else:  # adds exergy back: heat went to a sink colder than ambient
@@ -141,6 +152,8 @@ def _draw_exergy(ax, result: dict, system: str) -> None:
     else:
         handles.append(Patch(facecolor="none", edgecolor=style.HEAT_EXERGY, hatch="////",
                              label="heat to a sink below ambient (adds back)"))
+    if any(gid == "condensate" for gid, _, _ in items):
+        handles.append(Patch(color=style.CONDENSATE, label="out with drained condensate"))
     leg = ax.legend(handles=handles, **_LEGEND_BELOW)
     for t in leg.get_texts():
         t.set_color(style.INK)
@@ -165,8 +178,15 @@ def _draw_heat(ax, result: dict, system: str) -> None:
                 used.append(part)
         totals.append(left)
     x_max = hu.to_display(max(totals + [1.0]))
-    for yy, t in zip(ypos, totals):
-        ax.annotate(units.format_value(t, "heat_flow", system), (hu.to_display(t), yy), xytext=(3, 0),
+    drained = drained_water(result)
+    wide = False
+    for (gid, _, _), yy, t in zip(rows, ypos, totals):
+        text = units.format_value(t, "heat_flow", system)
+        if gid.startswith("cooler-") and drained[int(gid.split("-")[1]) - 1] > 0.0:
+            water = units.format_value(drained[int(gid.split("-")[1]) - 1], "water_flow", system, with_unit=True)
+            text += f"\n{water} drained"
+            wide = True
+        ax.annotate(text, (hu.to_display(t), yy), xytext=(3, 0), gid=f"note-{gid}",
                     textcoords="offset points", va="center", ha="left", fontsize=style.SIZE_NOTE,
                     color=style.INK, fontfamily=style.FONT)
     ax.set_yticks(ypos, [lab for _, lab, _ in rows])
@@ -175,7 +195,7 @@ def _draw_heat(ax, result: dict, system: str) -> None:
                 transform=ax.transAxes, ha="center", va="center", fontsize=style.SIZE_LABEL,
                 color=style.MUTED, fontfamily=style.FONT)
         ax.set_xticks([])
-    ax.set_xlim(0.0, x_max * 1.3)
+    ax.set_xlim(0.0, x_max * (1.45 if wide else 1.3))
     ax.set_ylim(-0.6, max(n, 1) - 0.4)
     total = units.format_value(result["heat_rejected_W"], "heat_flow", system, with_unit=True)
     style.style_axes(ax, title=f"Heat rejected: {total}",

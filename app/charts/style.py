@@ -29,6 +29,7 @@ DESTROYED = "#c98a3b"    # exergy destroyed (ochre)
 HEAT_EXERGY = "#7d6ba8"  # exergy leaving with heat (lavender)
 SENSIBLE = "#3f88a6"     # sensible cooler duty
 LATENT = "#9cc9dc"       # latent cooler duty
+CONDENSATE = "#5f8f9e"   # exergy leaving with drained condensate (slate teal)
 CASING = "#d08c60"       # casing heat loss
 MECHANICAL = "#8a6d5a"   # mechanical losses
 POWER = SHAFT            # staging chart: driver power

@@ -32,6 +32,10 @@ _ISOBAR_POINTS = 48
 def chart_model(result: dict):
     """The property model that produced ``result``, for drawing isobars (``None`` if unknown).
 
+    For moist intake air (``intake_humidity_ratio`` > 0) it is the moist stream model of the
+    intake's water content, whose entropy per kilogram of dry air is the one the result's
+    states carry (below the dew point at a pressure, the isobar includes the condensed water).
+
     For the constant-cp model the result does not name cp and k, so they are recovered
     exactly from the result's own states: :math:`c_p = \\Delta h / \\Delta T` between the
     intake and the first stage discharge, :math:`R = p / (\\rho T)` and
@@ -47,9 +51,15 @@ def chart_model(result: dict):
             R = a["pressure_Pa"] / (a["density_kg_m3"] * a["temperature_K"])
             fluid.update(cp_J_kgK=round(cp, 9), k=round(cp / (cp - R), 12))
     try:
-        return model_for(fluid)
+        model = model_for(fluid)
     except KeyError:  # a model this front end does not know: draw the path without isobars
         return None
+    w0 = result.get("intake_humidity_ratio") or 0.0
+    if w0 > 0.0:  # moist intake: isobars of the intake air's own water (entropy per kg dry air)
+        from thermo.humid import MoistAir
+        from thermo.train import mixture_for
+        model = MoistAir(mixture_for(model), w0)
+    return model
 
 
 def stage_limits(result: dict, limits_K=None) -> list:

@@ -96,5 +96,11 @@ def rate_exchanger(arrangement: str, ua: float, t_hi: float, hot_at: Callable[[f
     lo, hi = t_ci + 1e-9 * span, t_hi - 1e-9 * span
     if g(lo) <= 0.0:
         lo = t_ci + 1e-12 * span
+    if g(lo) <= 0.0 or g(hi) >= 0.0:  # the root would lie within rounding of an end: no usable outlet
+        big = g(lo) <= 0.0
+        raise InputError(f"{where}.ua_W_K", ua,
+                         f"expected a {'smaller' if big else 'larger'} UA: with {ua:.6g} W/K the air would leave "
+                         f"{'at the coolant inlet' if big else 'at its inlet'} temperature to within rounding "
+                         f"({t_ci:.2f} K coolant, {t_hi:.2f} K air)")
     t_out = brentq(g, lo, hi, xtol=1e-12, rtol=1e-15, maxiter=500)
     return t_out, size_exchanger(arrangement, hot_at(t_out), fluid, t_ci, flow, rise, where)
