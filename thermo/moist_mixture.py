@@ -43,9 +43,16 @@ class _Table:
                 coef.append((y0, m0, 3.0 * (y1 - y0) - 2.0 * m0 - m1, 2.0 * (y0 - y1) + m0 + m1))
             self.cols.append(coef)
         self.last = len(self.cols[0]) - 1
+        self._memo = (None, False, None)  # (T, with second derivatives, answer) of the last look-up
 
     def eval(self, T: float, second: bool = False):
-        """Per column (y, dy/dT[, d²y/dT²]) at T (the end cubics extrapolate outside the grid)."""
+        """Per column (y, dy/dT[, d²y/dT²]) at T (the end cubics extrapolate outside the grid).
+
+        The last answer is kept: a path evaluates the same temperature several times in a row
+        (the Runge–Kutta stage after a reported point, the enthalpy and entropy of one state)."""
+        memo = self._memo
+        if memo[0] == T and memo[1] >= second:
+            return memo[2]
         x = (T - _T_LO) / _STEP
         i = min(max(int(x), 0), self.last)
         t = x - i
@@ -55,6 +62,7 @@ class _Table:
             val = a + t * (b + t * (c + t * d))
             d1 = (b + t * (2.0 * c + 3.0 * d * t)) / _STEP
             out.append((val, d1, (2.0 * c + 6.0 * d * t) / (_STEP * _STEP)) if second else (val, d1))
+        self._memo = (T, second, out)
         return out
 
 
