@@ -107,6 +107,8 @@ def case_four_stage():
     naive = measure(lambda: naive_solve(four_stage_doc(False)), 3)
     report("solve 4-stage real gas" + (" moist" if humid else " (dry: moist n/a)"), ours, naive,
            "naive ref is dry")
+    # the lean solve of studies, sweeps and the shaft-power iteration (no reporting-only work)
+    report("  the same, detail=False (trial solve)", measure(lambda: thermo.solve(doc, detail=False), 50), naive)
 
 
 def case_shaft_power():

@@ -71,6 +71,12 @@ def polytropic_path(model: PropertyModel, inlet: Point, p_out: float, efficiency
     if start is not None and inlet.wl > 0.0:
         head, inlet = start(inlet, p_out, efficiency)
         return head if inlet.P >= p_out else head + polytropic_path(model, inlet, p_out, efficiency)[1:]
+    return [inlet] + [model.at_tp(T, P, "polytropic path") for T, P in _path_nodes(model, inlet, p_out, efficiency)]
+
+
+def _path_nodes(model: PropertyModel, inlet: Point, p_out: float, efficiency: float) -> list[tuple[float, float]]:
+    """(T [K], p [Pa]) at the end of each RK4 step of :func:`polytropic_path` (no liquid at the inlet);
+    the efficiency search needs only the last one, the path's states are made from them all."""
     n = path_steps(inlet.P, p_out)
     x0, dx = math.log(inlet.P), math.log(p_out / inlet.P) / n
     exp = math.exp
@@ -81,7 +87,7 @@ def polytropic_path(model: PropertyModel, inlet: Point, p_out: float, efficiency
         return slope(T, exp(x), efficiency) / T
 
     y = math.log(inlet.T)
-    points = [inlet]
+    nodes = []
     for k in range(n):
         x = x0 + k * dx
         k1 = f(y, x)
@@ -89,8 +95,8 @@ def polytropic_path(model: PropertyModel, inlet: Point, p_out: float, efficiency
         k3 = f(y + 0.5 * dx * k2, x + 0.5 * dx)
         k4 = f(y + dx * k3, x + dx)
         y += dx * (k1 + 2 * k2 + 2 * k3 + k4) / 6.0
-        points.append(model.at_tp(exp(y), p_out if k == n - 1 else exp(x + dx), "polytropic path"))
-    return points
+        nodes.append((exp(y), p_out if k == n - 1 else exp(x + dx)))
+    return nodes
 
 
 def polytropic_efficiency_between(model: PropertyModel, inlet: Point, outlet_enthalpy: float,
@@ -167,14 +173,26 @@ def polytropic_efficiency_between(model: PropertyModel, inlet: Point, outlet_ent
     tol = 1e-10 * (target.T - inlet.T)
     prev = None  # (eta, residual in ln T) of the previous step, for the secant update
     best = None  # (|miss| [K], eta, path): a path with a kink (liquid evaporating) may stall
+    start = getattr(model, "polytropic_path_start", None)
+    two_phase_start = start is not None and inlet.wl > 0.0
+
+    def states(path):  # trial paths are kept as their RK4 nodes; states only for the answer
+        if two_phase_start:
+            return path
+        return [inlet] + [model.at_tp(T, P, "polytropic path") for T, P in path]
     for _ in range(30):
-        path = polytropic_path(model, inlet, p_out, eta)
-        miss = abs(path[-1].T - target.T)
+        if two_phase_start:
+            path = polytropic_path(model, inlet, p_out, eta)
+            T_end = path[-1].T
+        else:
+            path = _path_nodes(model, inlet, p_out, eta)
+            T_end = path[-1][0]
+        miss = abs(T_end - target.T)
         if best is None or miss < best[0]:
             best = (miss, eta, path)
         if miss <= tol:
-            return eta, path
-        lnT_end = math.log(path[-1].T / inlet.T)
+            return eta, states(path)
+        lnT_end = math.log(T_end / inlet.T)
         f = lnT_end - lnT_target
         if prev is None or f == prev[1]:
             nxt = eta * (lnT_end + offset) / (lnT_target + offset)
@@ -187,7 +205,7 @@ def polytropic_efficiency_between(model: PropertyModel, inlet: Point, outlet_ent
             break
         prev, eta = (eta, f), min(1.5, max(0.02, nxt))
     if best[0] <= 1e-7 * (target.T - inlet.T):  # a reported figure: 1e-7 is ample
-        return best[1], best[2]
+        return best[1], states(best[2])
     raise StagewrightError(
         f"no polytropic efficiency reproduces the discharge enthalpy {outlet_enthalpy:.6g} J/kg "
         f"at {p_out:.6g} Pa")
