@@ -7,7 +7,8 @@ built with that pressure as its offset.
 
 Conversion factors are exact by definition (NIST SP 811, 2008 edition, Appendix B):
 1 lb = 0.45359237 kg, 1 ft = 0.3048 m, 1 psi = 6894.757293168 Pa,
-1 Btu(IT) = 1055.05585262 J, 1 hp (mechanical) = 745.69987158 W, 1 US gal = 3.785411784 L.
+1 Btu(IT) = 1055.05585262 J, 1 hp (mechanical) = 745.69987158 W, 1 US gal = 3.785411784 L,
+1 grain = 64.79891 mg.
 """
 from __future__ import annotations
 
@@ -22,6 +23,7 @@ _BTU = 1055.05585262
 _HP = 745.69987158
 _GAL = 3.785411784e-3
 _R_PER_K = 5.0 / 9.0  # K per °F (or °R)
+_GRAIN = 64.79891e-6  # kg (NIST SP 811)
 
 
 @dataclass(frozen=True)
@@ -61,8 +63,10 @@ QUANTITIES: dict[str, tuple[Unit, Unit]] = {
     "density": (Unit("kg/m³", 1.0, 0.0, 4), Unit("lb/ft³", _LB / _FT ** 3, 0.0, 5)),
     "velocity": (Unit("m/s", 1.0, 0.0, 1), Unit("ft/s", _FT, 0.0, 1)),
     "length": (Unit("m", 1.0, 0.0, 0), Unit("ft", _FT, 0.0, 0)),
-    "water_flow": (Unit("L/h", 1.0 / 3600.0, 0.0, 2), Unit("gal/h", _GAL * 1000.0 / 3600.0, 0.0, 2)),
+    # water (condensate, cooling water) as a mass flow, [kg/s] inside: exact, no density assumed
+    "water_flow": (Unit("kg/h", 1.0 / 3600.0, 0.0, 2), Unit("lb/h", _LB / 3600.0, 0.0, 2)),
     "fraction": (Unit("%", 0.01, 0.0, 2), Unit("%", 0.01, 0.0, 2)),
+    "humidity_ratio": (Unit("g/kg", 1e-3, 0.0, 3), Unit("gr/lb", _GRAIN / _LB, 0.0, 1)),
     "ratio": (Unit("", 1.0, 0.0, 4), Unit("", 1.0, 0.0, 4)),
     "conductance": (Unit("kW/K", 1e3, 0.0, 3), Unit("Btu/(h·°F)", _BTU / 3600.0 / _R_PER_K, 0.0, 0)),
     "energy": (Unit("kWh", 3.6e6, 0.0, 0), Unit("kWh", 3.6e6, 0.0, 0)),

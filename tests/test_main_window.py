@@ -350,3 +350,32 @@ def test_layout_and_display_choices_are_remembered(qtbot, tmp_path):
     assert junk.docks["messages"].isVisible()
     again.close()
     junk.close()
+
+
+def test_moist_intake_shows_humidity_condensate_and_dew_point(qtbot, tmp_path):
+    # humidity ratio and condensate equal the solver's own figures (the solver's moist-air
+    # checks against IAPWS-IF97 and ASHRAE tables live in the core tests)
+    import thermo
+    doc = simple_real_gas_doc(stages=2)
+    doc["site"]["relative_humidity"] = 0.7
+    for st in doc["stages"]:
+        st["cooler"]["outlet_temperature_K"] = 303.15
+    doc["site"]["ambient_temperature_K"] = 298.15
+    win = make_window(qtbot, tmp_path, doc)
+    bal = win.panels["balance"]
+    expected = thermo.solve(doc).to_dict()
+    assert not bal.points.isColumnHidden(7)
+    w_shown = shown_number(bal.value_text("points", "intake", "w"))
+    assert w_shown == pytest.approx(expected["intake"]["humidity_ratio"] * 1e3, abs=6e-4)
+    cond = shown_number(bal.value_text("components", "cooler-1", "condensate"))
+    assert cond == pytest.approx(expected["stages"][0]["cooler"]["condensate_kg_s"] * 3600.0, abs=6e-3)
+    assert cond > 0.0
+    pdp = bal.value_text("totals", "delivered_pressure_dew_point_K", "")
+    assert float(pdp.split()[0]) == pytest.approx(expected["delivered_pressure_dew_point_K"] - 273.15, abs=6e-3)
+
+
+def test_dry_intake_hides_the_humidity_columns(qtbot, window):
+    bal = window.panels["balance"]
+    from app.panels.balance_panel import POINT_COLUMNS
+    col = 1 + [c[0] for c in POINT_COLUMNS].index("w")
+    assert bal.points.isColumnHidden(col)

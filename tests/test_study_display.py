@@ -35,7 +35,7 @@ def test_cells_in_si_and_us():
     assert si["power"] == "250.00" and float(us["power"]) == pytest.approx(250_000.0 / HP_W, abs=0.005)
     assert si["eta2"] == "72.00" and si["saving_year"] == "14 400" and si["feasible"] == "yes"
     assert header(COLUMNS[[c.key for c in COLUMNS].index("power")], "US") == "Driver power\n[hp]"
-    assert header(COLUMNS[[c.key for c in COLUMNS].index("condensate")], "SI") == "Condensate\n[L/h]"
+    assert header(COLUMNS[[c.key for c in COLUMNS].index("condensate")], "SI") == "Condensate\n[kg/h]"
     assert "96 000 kWh per year" in tooltip(row(), "saving_year", "SI")
     assert tooltip(row(), "heat", "SI") == "Cooler duties — intercooler 1: 120.00 kW, aftercooler: 118.00 kW"
 

@@ -31,3 +31,11 @@ def test_round_trip(quantity, system):
 def test_format_value_uses_decimals_and_dash_for_missing():
     assert format_value(None, "power") == "—"
     assert format_value(123456.0, "power", with_unit=True) == "123.46 kW"
+
+
+def test_humidity_ratio_and_condensate_units():
+    # NIST SP 811: 1 grain = 64.79891 mg, 1 lb = 0.45359237 kg
+    assert to_display(0.01, "humidity_ratio", "SI") == pytest.approx(10.0)
+    assert to_display(64.79891e-6 / 0.45359237, "humidity_ratio", "US") == pytest.approx(1.0)
+    assert to_display(1.0 / 3600.0, "water_flow", "SI") == pytest.approx(1.0)
+    assert to_display(0.45359237 / 3600.0, "water_flow", "US") == pytest.approx(1.0)

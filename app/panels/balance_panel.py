@@ -6,7 +6,7 @@ banner that says they are out of date.
 """
 from __future__ import annotations
 
-__all__ = ["BalancePanel", "POINT_COLUMNS", "COMPONENT_COLUMNS", "TOTALS"]
+__all__ = ["BalancePanel", "POINT_COLUMNS", "COMPONENT_COLUMNS", "TOTALS", "MOIST_TOTALS"]
 
 from PySide6.QtCore import Qt
 from PySide6.QtGui import QBrush, QColor
@@ -25,7 +25,12 @@ POINT_COLUMNS = [
     ("s", "s", "specific_entropy", lambda p: p["entropy_J_kgK"]),
     ("rho", "ρ", "density", lambda p: p["density_kg_m3"]),
     ("V", "V", "velocity", lambda p: p["velocity_m_s"]),
+    ("w", "w", "humidity_ratio", lambda p: p.get("humidity_ratio")),
+    ("rh", "RH", "fraction", lambda p: p.get("relative_humidity")),
+    ("dew", "Dew pt", "temperature", lambda p: p.get("dew_point_K")),
 ]
+#: point columns shown only for moist intake air
+MOIST_POINT_COLUMNS = ("w", "rh", "dew")
 #: (key, header, quantity)
 COMPONENT_COLUMNS = [
     ("ratio", "Ratio", "ratio"),
@@ -35,8 +40,11 @@ COMPONENT_COLUMNS = [
     ("eta_p", "ηp", "fraction"),
     ("sgen", "S_gen", "entropy_rate"),
     ("xdest", "X_dest", "power"),
+    ("latent", "Latent", "heat_flow"),
+    ("condensate", "Condensate", "water_flow"),
 ]
-#: (result key, label, quantity; None = plain number in scientific notation)
+MOIST_COMPONENT_COLUMNS = ("latent", "condensate")
+#: (result key, label, quantity; None = plain number in scientific notation, "text" = as is)
 TOTALS = [
     ("mass_flow_kg_s", "Mass flow", "mass_flow"),
     ("free_air_delivery_m3_s", "Free air delivery", "volume_flow"),
@@ -52,9 +60,21 @@ TOTALS = [
     ("exergy_destroyed_W", "Exergy destroyed", "power"),
     ("heat_exergy_W", "Exergy out with heat", "power"),
     ("entropy_generation_W_K", "Entropy generation", "entropy_rate"),
+    ("condensate_kg_s", "Condensate", "water_flow"),
+    ("delivered_pressure_dew_point_K", "Pressure dew point", "temperature"),
+    ("delivered_atmospheric_dew_point_K", "Atm. dew point", "temperature"),
+    ("iso8573_humidity_class", "ISO 8573-1 class", "text"),
     ("energy_residual", "Energy closure residual", None),
     ("exergy_residual", "Exergy closure residual", None),
 ]
+#: totals shown only for moist intake air
+MOIST_TOTALS = ("condensate_kg_s", "delivered_pressure_dew_point_K", "delivered_atmospheric_dew_point_K",
+                "iso8573_humidity_class")
+
+
+def is_moist(r: dict) -> bool:
+    """True when the result carries water (a humid intake)."""
+    return bool(r.get("intake_humidity_ratio") or r["intake"].get("humidity_ratio"))
 
 
 class FitTable(QTableWidget):
@@ -169,8 +189,18 @@ class BalancePanel(QWidget):
         self._fill_points(r, system)
         self._fill_components(r, system)
         self._fill_totals(r, system)
+        self._show_moist(is_moist(r))
         for t in (self.points, self.components, self.totals):
             t.fit_columns()
+
+    def _show_moist(self, moist: bool) -> None:
+        """Humidity columns and water totals only where there is water to speak of."""
+        for col, (key, *_rest) in enumerate(POINT_COLUMNS, 1):
+            self.points.setColumnHidden(col, key in MOIST_POINT_COLUMNS and not moist)
+        for col, (key, *_rest) in enumerate(COMPONENT_COLUMNS, 1):
+            self.components.setColumnHidden(col, key in MOIST_COMPONENT_COLUMNS and not moist)
+        for row, (key, *_rest) in enumerate(TOTALS):
+            self.totals.setRowHidden(row, key in MOIST_TOTALS and not moist)
 
     def _pressure_kw(self) -> dict:
         return {"gauge": self.editor.prefs.gauge, "barometric_Pa": self.editor.barometric_Pa()}
@@ -233,9 +263,11 @@ class BalancePanel(QWidget):
             c = st["cooler"]
             if c:
                 rows.append((f"cooler-{i}", "Aftercooler" if i == n else f"Intercooler {i}", {
-                    "heat": c["duty_W"], "sgen": c["entropy_generation_W_K"], "xdest": c["exergy_destroyed_W"]}))
+                    "heat": c["duty_W"], "sgen": c["entropy_generation_W_K"], "xdest": c["exergy_destroyed_W"],
+                    "latent": c.get("latent_duty_W"), "condensate": c.get("condensate_kg_s")}))
         rows.append(("total", "Whole train", {"power": r["shaft_power_W"], "heat": r["heat_rejected_W"],
-                                              "sgen": r["entropy_generation_W_K"], "xdest": r["exergy_destroyed_W"]}))
+                                              "sgen": r["entropy_generation_W_K"], "xdest": r["exergy_destroyed_W"],
+                                              "condensate": r.get("condensate_kg_s")}))
         self.components.setRowCount(len(rows))
         self._row_keys["components"] = [k for k, _, _ in rows]
         for row, (key, label, vals) in enumerate(rows):
@@ -252,6 +284,8 @@ class BalancePanel(QWidget):
             v = r.get(key)
             if q is None:
                 text = "—" if v is None else f"{v:.2e}"
+            elif q == "text":
+                text = "—" if v is None else str(v)
             else:
                 text = units.format_value(v, q, system, with_unit=True)
             self._set(self.totals, row, 0, label, left=True)
