@@ -3,7 +3,6 @@
 A few seconds after a change, while the project has unsaved changes, the document and its
 source path are written to the recovery file; a save, an explicit "don't save" and a
 clean exit remove it. At start the window offers to restore what a previous session left.
-When :mod:`app.recovery` is not installed the window simply runs without autosave.
 """
 from __future__ import annotations
 
@@ -14,15 +13,9 @@ import sys
 from PySide6.QtCore import QTimer
 from PySide6.QtWidgets import QMessageBox
 
+from . import recovery as rec
+
 AUTOSAVE_MS = 3000
-
-
-def _recovery():
-    try:
-        from . import recovery
-    except ImportError:
-        return None
-    return recovery
 
 
 class RecoveryOps:
@@ -31,7 +24,7 @@ class RecoveryOps:
     def setup_autosave(self, interval_ms: int | None = AUTOSAVE_MS) -> None:
         """Start autosaving (``None``: off, e.g. screenshots and most tests)."""
         self._autosave = None
-        if interval_ms is None or _recovery() is None:
+        if interval_ms is None:
             return
         self._autosave = QTimer(self)
         self._autosave.setSingleShot(True)
@@ -54,8 +47,7 @@ class RecoveryOps:
             self.clear_recovery_file()
 
     def write_recovery_now(self) -> bool:
-        rec = _recovery()
-        if rec is None or not self.is_modified():
+        if not self.is_modified():
             return False
         try:
             rec.write_recovery(self.editor.model.snapshot(), self.path)
@@ -67,8 +59,7 @@ class RecoveryOps:
     def clear_recovery_file(self) -> None:
         if getattr(self, "_autosave", None) is not None:
             self._autosave.stop()
-        rec = _recovery()
-        if rec is None or not self.autosave_enabled:
+        if not self.autosave_enabled:
             return
         try:
             rec.clear_recovery()
@@ -88,8 +79,7 @@ class RecoveryOps:
 
     def offer_recovery(self) -> bool:
         """If a previous session left unsaved work, offer to restore it; True if restored."""
-        rec = _recovery()
-        if rec is None or not self.autosave_enabled:
+        if not self.autosave_enabled:
             return False
         try:
             found = rec.read_recovery()

@@ -85,3 +85,12 @@ def test_separator_carry_over_evaporates_in_the_next_stage_and_water_is_conserve
 
 def test_volume_of_nothing_is_zero():
     assert condensate_volume_L_h(0.0, 300.0, 1e5) == 0.0
+
+
+def test_condensate_and_carry_over_are_reported_as_messages_with_their_field():
+    # condensate is a hazard to manage (drains, treatment): the result says so per cooler
+    r = thermo.solve(case(stages=2, p_d=9e5, sep=0.7)).to_dict()
+    by_field = [w for w in r["warnings"] if w["field"] == "stages[0].cooler.separator_efficiency"]
+    drained = r["stages"][0]["cooler"]["drained_kg_s"] * 3600.0
+    assert any(f"drains {drained:.2f} kg/h of condensate" in w["message"] for w in by_field)
+    assert any("passes the intercooler 1's separator into stage 2" in w["message"] for w in by_field)

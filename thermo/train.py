@@ -149,6 +149,7 @@ def solve_train(norm: dict, model: PropertyModel, mass_flow: float, detail: bool
                 w = c.water
                 if w.drained_kg_s > 0.0:
                     drains.append((w.drained_kg_s, w.liquid_enthalpy_J_kg, w.liquid_entropy_J_kgK, point.T, point.P))
+                warnings.extend(_water_notes(i, len(specs), w, mass_flow))
                 model = MoistAir(mixture, w.water_after)
         else:
             coolers.append(None)
@@ -223,3 +224,22 @@ def _water_result(mixture, dry_model, mass_flow, W0, delivered, P0, drains, x_dr
         delivered_liquid_kg_m3=liquid_conc, iso8573_humidity_class=humidity_class(pdp, liquid_conc),
         condensate_exergy_W=x_drained,
         water_balance_residual=(mass_flow * W0 - delivered_water - drained) / (mass_flow * W0))
+
+
+def _water_notes(i: int, n: int, water, mass_flow: float) -> list:
+    """Messages about water a cooler knocks out or lets through (condensate is a hazard to manage)."""
+    name = "aftercooler" if i == n - 1 else f"intercooler {i + 1}"
+    notes = []
+    if water.drained_kg_s > 0.0:
+        notes.append(Warning_(f"stages[{i}].cooler.separator_efficiency",
+                              f"{name} drains {water.drained_kg_s * 3600.0:.2f} kg/h of condensate: it needs a "
+                              "working drain, and the condensate must be treated or disposed of as local "
+                              "rules require"))
+    carried = getattr(water, "carry_over_kg_s", 0.0) or 0.0
+    if carried > 0.0:
+        where = "the delivered air" if i == n - 1 else f"stage {i + 2}"
+        notes.append(Warning_(f"stages[{i}].cooler.separator_efficiency",
+                              f"{carried * 3600.0:.2f} kg/h of liquid water passes the {name}'s separator "
+                              f"into {where}"))
+    return notes
+

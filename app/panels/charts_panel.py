@@ -66,14 +66,10 @@ class ChartsPanel(QWidget):
         editor.prefs.changed.connect(self.refresh)
 
     def ensure_canvases(self) -> bool:
-        """Create the chart tabs (imports matplotlib); False if app.charts is not installed."""
+        """Create the chart tabs (imports matplotlib); True once they exist."""
         if self.ts is not None:
             return True
-        try:
-            from ..charts import draw_power_split, draw_ts_chart
-        except ImportError:
-            self._placeholder.setText("The charts need app/charts, which is not installed.")
-            return False
+        from ..charts import draw_power_split, draw_ts_chart  # here: matplotlib loads after first paint
         self.tabs.blockSignals(True)
         self.tabs.clear()
         self.ts = ChartTab(draw_ts_chart)
