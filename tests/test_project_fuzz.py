@@ -145,8 +145,11 @@ def test_many_mutated_files_never_crash_load_or_solve(seed):
 @given(doc=documents(), cut=st.floats(0.0, 1.0))
 def test_truncated_documents_are_refused_with_a_position(doc, cut):
     text = dumps(doc)
-    assert _check(text[: int(len(text) * cut)].encode()) in {"refused by the reader", "refused by validation"} \
-        or cut > 0.999
+    cut_text = text[: int(len(text) * cut)]
+    # a cut that removes only trailing whitespace (the final newline of a short file, cut near 1)
+    # leaves the whole document: it solves, as it should
+    assert _check(cut_text.encode()) in {"refused by the reader", "refused by validation"} \
+        or cut > 0.999 or cut_text.rstrip() == text.rstrip()
 
 
 @settings(max_examples=100, deadline=None, suppress_health_check=[HealthCheck.filter_too_much, HealthCheck.too_slow])

@@ -90,8 +90,10 @@ class MoistAir:
         ws = mix.saturation_ratio(T, P)
         return (W, 0.0) if W <= ws else (ws, W - ws)
 
-    def _state(self, T: float, P: float, slope: bool):
-        """h, s, v, cp, (∂h/∂p)_T, w_v, w_l at T, P (two-phase derivatives by central differences)."""
+    def _state(self, T: float, P: float, slope: bool, need_cp: bool = True):
+        """h, s, v, cp, (∂h/∂p)_T, w_v, w_l at T, P (two-phase derivatives by central differences).
+
+        Without ``need_cp`` a two-phase cp is not computed (NaN): a state wants only h, s, v."""
         w_v, w_l = self.split(T, P)
         mix = self.mixture
         h, s, v, cp, hp = mix.gas(T, P, w_v, slope)
@@ -101,7 +103,7 @@ class MoistAir:
         h += w_l * h_l
         s += w_l * s_l
         v += w_l * mix.liquid_volume(T, P)
-        cp = (self._h(T + _DT, P) - self._h(T - _DT, P)) / (2.0 * _DT)
+        cp = (self._h(T + _DT, P) - self._h(T - _DT, P)) / (2.0 * _DT) if need_cp else math.nan
         if slope:
             dp = _DP * P
             hp = (self._h(T, P + dp) - self._h(T, P - dp)) / (2.0 * dp)
@@ -115,7 +117,7 @@ class MoistAir:
     # ---- the property-model interface ------------------------------------------------------
     def at_tp(self, T: float, P: float, where: str = "") -> Point:
         check_range(T, P, where)
-        h, s, v, _, _, w_v, w_l = self._state(T, P, slope=False)
+        h, s, v, _, _, w_v, w_l = self._state(T, P, slope=False, need_cp=False)
         return Point(T, P, h, s, (1.0 + w_v) / v, w_v, w_l)
 
     def at_hp(self, h: float, P: float, where: str = "", T_guess: float = 300.0) -> Point:

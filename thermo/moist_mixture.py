@@ -43,9 +43,16 @@ class _Table:
                 coef.append((y0, m0, 3.0 * (y1 - y0) - 2.0 * m0 - m1, 2.0 * (y0 - y1) + m0 + m1))
             self.cols.append(coef)
         self.last = len(self.cols[0]) - 1
+        self._memo = (None, False, None)  # (T, with second derivatives, answer) of the last look-up
 
     def eval(self, T: float, second: bool = False):
-        """Per column (y, dy/dT[, d²y/dT²]) at T (the end cubics extrapolate outside the grid)."""
+        """Per column (y, dy/dT[, d²y/dT²]) at T (the end cubics extrapolate outside the grid).
+
+        The last answer is kept: a path evaluates the same temperature several times in a row
+        (the Runge–Kutta stage after a reported point, the enthalpy and entropy of one state)."""
+        memo = self._memo
+        if memo[0] == T and memo[1] >= second:
+            return memo[2]
         x = (T - _T_LO) / _STEP
         i = min(max(int(x), 0), self.last)
         t = x - i
@@ -55,6 +62,7 @@ class _Table:
             val = a + t * (b + t * (c + t * d))
             d1 = (b + t * (2.0 * c + 3.0 * d * t)) / _STEP
             out.append((val, d1, (2.0 * c + 6.0 * d * t) / (_STEP * _STEP)) if second else (val, d1))
+        self._memo = (T, second, out)
         return out
 
 
@@ -199,6 +207,9 @@ class MoistMixture:
         self.R_a = dry.gas_constant
         self.R_w = dry.gas_constant / epsilon
         self.virial = _virial_tables() if virial else None
+        # real_gas: the vapour and virial tables share one grid, so gas() reads both at one index
+        self._fused = ((vapour._table.cols[0], vapour._table.cols[1], *self.virial.cols)
+                       if virial and isinstance(vapour, _IdealGasWater) else None)
         self.n_a = 1.0 / dry.molar_mass if virial else 0.0
         self.uses_enhancement = enhancement
         #: range of the humid-air formulation (None: no limit beyond the dry model's)
@@ -220,6 +231,32 @@ class MoistMixture:
         return (ca * baa[0] + cw * baw[0] + cww * bww[0], ca * baa[1] + cw * baw[1] + cww * bww[1],
                 ca * baa[2] + cw * baw[2] + cww * bww[2])
 
+    def _fused_terms(self, T: float, x_w: float, x_a: float):
+        """h°, s°, cp° of the vapour and (D, dD/dT, d²D/dT²) from one grid index: the same
+        arithmetic as ``vapour(T)`` and :meth:`_virial_terms`, without their per-column tuples."""
+        hc, sc, aa, aw, ww = self._fused
+        x = (T - _T_LO) / _STEP
+        i = min(max(int(x), 0), len(hc) - 1)
+        t = x - i
+        a, b, c, e = hc[i]
+        hw = a + t * (b + t * (c + t * e))
+        cpw = (b + t * (2.0 * c + 3.0 * e * t)) / _STEP
+        a, b, c, e = sc[i]
+        sw = a + t * (b + t * (c + t * e))
+        ca, cw, cww = -self.n_a * x_w, 2.0 * self.n_a * x_w, self.n_a * x_w * x_w / x_a
+        ss = _STEP * _STEP
+        a, b, c, e = aa[i]
+        v_aa, d_aa, t_aa = a + t * (b + t * (c + t * e)), (b + t * (2.0 * c + 3.0 * e * t)) / _STEP, (
+            2.0 * c + 6.0 * e * t) / ss
+        a, b, c, e = aw[i]
+        v_aw, d_aw, t_aw = a + t * (b + t * (c + t * e)), (b + t * (2.0 * c + 3.0 * e * t)) / _STEP, (
+            2.0 * c + 6.0 * e * t) / ss
+        a, b, c, e = ww[i]
+        v_ww, d_ww, t_ww = a + t * (b + t * (c + t * e)), (b + t * (2.0 * c + 3.0 * e * t)) / _STEP, (
+            2.0 * c + 6.0 * e * t) / ss
+        return (hw, sw, cpw, ca * v_aa + cw * v_aw + cww * v_ww, ca * d_aa + cw * d_aw + cww * d_ww,
+                ca * t_aa + cw * t_aw + cww * t_ww)
+
     def gas(self, T: float, P: float, w: float, slope: bool = True):
         """Gas phase with vapour content w [kg/kg]: (h [J/kg], s [J/(kg K)], v [m³/kg], cp, (∂h/∂p)_T), per kg dry air.
 
@@ -227,10 +264,13 @@ class MoistMixture:
         h_a, s_a, v_a, cp_a, hp_a = self.dry.terms(T, P, slope)
         if w <= 0.0:
             return h_a, s_a, v_a, cp_a, hp_a
-        hw, sw, cpw = self.vapour(T)
         x_w = w / (self.epsilon + w)
         x_a = 1.0 - x_w
-        d, d_t, d_tt = self._virial_terms(T, x_w)
+        if self._fused is not None and x_w != 0.0:
+            hw, sw, cpw, d, d_t, d_tt = self._fused_terms(T, x_w, x_a)
+        else:
+            hw, sw, cpw = self.vapour(T)
+            d, d_t, d_tt = self._virial_terms(T, x_w)
         s_mix = -self.R_a * (math.log(x_a) + (w / self.epsilon) * math.log(x_w))
         h = h_a + w * hw + P * (d - T * d_t)
         s = s_a + w * (sw - self.R_w * math.log(P / P_REF)) + s_mix - P * d_t

@@ -101,16 +101,22 @@ def _solve_for_power(norm: dict, model, target_W: float, detail: bool = True) ->
         raise InputError("flow.value", target_W,
                          f"shaft power must exceed {fixed:.6g} W, the casing heat losses alone; "
                          "this power is too small to move any air")
+    # The trial solves skip the reporting-only work (their shaft power is the same either way);
+    # the converged flow is then solved once with ``detail``. Without casing heat loss the
+    # power per kilogram does not depend on the flow, so the first estimate is usually the
+    # answer: it is solved with ``detail`` at once.
     m0 = 1.0
-    r0 = solve_train(norm, model, m0, detail)
+    r0 = solve_train(norm, model, m0, False)
     per_kg = (r0.shaft_power_W - fixed) / m0
     m1 = (target_W - fixed) / per_kg
     m_prev, f_prev = m0, r0.shaft_power_W - target_W
+    trial_detail = detail and fixed == 0.0
     for _ in range(40):
-        r1 = solve_train(norm, model, m1, detail)
+        r1 = solve_train(norm, model, m1, trial_detail)
         f1 = r1.shaft_power_W - target_W
         if abs(f1) <= 1e-12 * target_W:
-            return r1
+            return r1 if trial_detail == detail else solve_train(norm, model, m1, detail)
+        trial_detail = False
         if f1 == f_prev:
             break
         m_next = m1 - f1 * (m1 - m_prev) / (f1 - f_prev)

@@ -39,10 +39,15 @@ class RealGasAir:
         self._state = cpa.new_air_state()
         self.gas_constant = self._state.gas_constant() / self._state.molar_mass()
         self.molar_mass = self._state.molar_mass()
+        self._at = None  # (T, P) the state was last set to; a repeat needs no new update
 
     def _set(self, T: float, P: float, where: str) -> None:
         check_range(T, P, where)
+        if self._at == (T, P):
+            return
+        self._at = None  # stays None if the update fails
         cpa.update_tp(self._state, T, P, where)
+        self._at = (T, P)
 
     def at_tp(self, T: float, P: float, where: str = "") -> Point:
         self._set(T, P, where)
