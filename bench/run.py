@@ -145,13 +145,11 @@ def case_sweep():
 
 
 def case_year():
-    try:
-        from thermo.year import solve_year
-    except ImportError:
-        print(f"{'year at site':<44}  (thermo.year not available)")
-        return
-    doc = json.loads((ROOT / "sample_projects" / "two_stage_plant_air.json").read_text())
-    report("year at site (12 months)", measure(lambda: solve_year(doc), 5))
+    from thermo.year import run_year
+    doc = json.loads((ROOT / "sample_projects" / "three_stage_site_year.json").read_text())
+    profile = doc["year"]["profile"]
+    report(f"year at site ({len(profile.get('months') or profile.get('bins') or [])} bins)",
+           measure(lambda: run_year(doc), 5))
 
 
 def case_files():
