@@ -20,3 +20,9 @@ def test_agrees_with_brentq(f, lo, hi):
 def test_refuses_a_bracket_without_sign_change():
     with pytest.raises(ValueError, match="same sign"):
         bracketed_root(lambda x: x * x + 1.0, -1.0, 1.0)
+
+
+def test_flat_ends_do_not_give_nan():
+    # a step-like function: both ends equal in size, regula falsi must not divide 0 by 0
+    x = bracketed_root(lambda x: 1.0 if x > 0.3 else -1.0, 0.0, 1.0, xtol=1e-12)
+    assert x == pytest.approx(0.3, abs=1e-9)

@@ -6,9 +6,8 @@ __all__ = ["Condensation", "condensation", "condensate_volume_L_h", "cooling_lin
 import math
 from dataclasses import dataclass
 
-from scipy.optimize import brentq
-
 from . import coolprop_adapter as cpa
+from .roots import bracketed_root
 from .models.base import Point
 
 
@@ -129,7 +128,7 @@ def cooling_line(model, inlet: Point, t_out: float, p_out: float, where: str, po
 
     temps = [t_in + k / points * (t_out - t_in) for k in range(1, points)]
     if inlet.wl == 0.0 and t_in > t_out and excess(t_out) > 0.0 and excess(t_in) < 0.0:
-        t_dew = brentq(excess, t_out, t_in, xtol=1e-9)
+        t_dew = bracketed_root(excess, t_out, t_in, xtol=1e-12)
         n_cond = max(points // 2, math.ceil(points * (t_dew - t_out) / (t_in - t_out)))
         n_sens = max(1, points - n_cond)
         temps = ([t_in + k / n_sens * (t_dew - t_in) for k in range(1, n_sens + 1)]

@@ -60,7 +60,9 @@ def bracketed_root(f: Callable[[float], float], lo: float, hi: float, xtol: floa
         raise ValueError("bracketed_root: f(lo) and f(hi) have the same sign")
     side = 0
     for _ in range(max_iter):
-        x = (a * fb - b * fa) / (fb - fa)
+        x = (a * fb - b * fa) / (fb - fa) if fb != fa else 0.5 * (a + b)
+        if not min(a, b) <= x <= max(a, b):  # rounding at convergence: fall back to bisection
+            x = 0.5 * (a + b)
         fx = f(x)
         if fx == 0.0 or abs(b - a) <= xtol * max(1.0, abs(x)):
             return x
