@@ -19,7 +19,6 @@ __all__ = ["MIN_STAGE_RATIO", "RATIO_CAP", "BindingLimit", "LimitNotMet", "Ratio
 import math
 from dataclasses import dataclass
 
-from scipy.optimize import brentq
 
 from ..errors import InputError
 from ..split import delivered_pressure
@@ -29,6 +28,12 @@ from ..split import delivered_pressure
 MIN_STAGE_RATIO = 1.001
 #: Largest stage ratio the project format accepts (``stages[].pressure_ratio``).
 RATIO_CAP = 40.0
+
+
+def brentq(*args, **kwargs):
+    """scipy.optimize.brentq, imported on first use (keeps the window's start-up light)."""
+    from scipy.optimize import brentq as _brentq
+    return _brentq(*args, **kwargs)
 
 
 @dataclass(frozen=True)

@@ -8,7 +8,6 @@ from dataclasses import dataclass, field
 from typing import Any, Callable
 
 import numpy as np
-from scipy.optimize import minimize
 
 from ..document import site_pressure
 from ..results import TrainResult
@@ -30,6 +29,12 @@ _T_INSIDE = 1e-5  # K kept inside every temperature limit by the optimiser's con
 _ACTIVE_K = 0.01  # K: a limit this close is reported as active
 _FD_STEP = 1e-6  # step in ln r for forward differences
 _PENALTY = 10.0  # scaled objective of a trial split the train cannot run
+
+
+def minimize(*args, **kwargs):
+    """scipy.optimize.minimize, imported on first use (keeps the window's start-up light)."""
+    from scipy.optimize import minimize as _minimize
+    return _minimize(*args, **kwargs)
 
 
 @dataclass

@@ -6,7 +6,6 @@ __all__ = ["equal_split", "ideal_gas_split"]
 import math
 from typing import Callable
 
-from scipy.optimize import brentq
 
 from ..cooler import cooler_outlet_temperature
 from ..document import site_pressure
@@ -15,6 +14,12 @@ from ..flow import mass_flow_from
 from ..models.base import PropertyModel
 from ..split import delivered_pressure, stage_pressure_ratios
 from .limits import RATIO_CAP, RatioBounds
+
+
+def brentq(*args, **kwargs):
+    """scipy.optimize.brentq, imported on first use (keeps the window's start-up light)."""
+    from scipy.optimize import brentq as _brentq
+    return _brentq(*args, **kwargs)
 
 
 def _meeting(p_in: float, p_delivery: float, drops: list[float], lo: list[float], hi: list[float],
