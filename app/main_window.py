@@ -31,6 +31,7 @@ from .panels.duty_panel import DutyPanel
 from .panels.messages_panel import MessagesPanel
 from .panels.site_panel import SitePanel
 from .panels.study_panel import StudyPanel
+from .panels.year_panel import YearPanel
 from .panels.train_panel import TrainPanel
 
 STATE_VERSION = 2  #: bump when panels are added or renamed, so old saved layouts are ignored
@@ -79,6 +80,7 @@ class MainWindow(FileOps, ExportOps, RecoveryOps, StudyOps, QMainWindow):
         self.add_panel("messages", MessagesPanel(self.editor), Qt.LeftDockWidgetArea)
         self.add_panel("balance", BalancePanel(self.editor), Qt.BottomDockWidgetArea)
         self.add_panel("study", StudyPanel(self.editor), Qt.BottomDockWidgetArea, tabify_with="balance")
+        self.add_panel("year", YearPanel(self.editor), Qt.BottomDockWidgetArea, tabify_with="balance")
         self.docks["balance"].raise_()
         # inputs and messages run the full height on the left; the balance sheet spans the
         # charts and the train panel, where it has the width its columns need
@@ -346,6 +348,7 @@ class MainWindow(FileOps, ExportOps, RecoveryOps, StudyOps, QMainWindow):
             return
         self.wait_for_export()
         self.stop_study()
+        self.panels["year"].runner.shutdown()
         self.clear_recovery_file()  # a clean exit: the work is saved or was let go
         self.editor.shutdown()
         self.settings.setValue("window/geometry", self.saveGeometry())

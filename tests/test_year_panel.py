@@ -1,0 +1,37 @@
+"""The year-at-site panel runs the project's year off the GUI thread and shows every bin."""
+import json
+
+import pytest
+
+pytest.importorskip("PySide6")
+
+from app.panels.year_panel import YEAR_COLUMNS  # noqa: E402
+from gui_support import ROOT, make_window, window  # noqa: E402,F401
+
+YEAR_SAMPLE = ROOT / "sample_projects" / "three_stage_site_year.json"
+pytestmark = pytest.mark.gui
+
+
+def test_year_run_fills_one_row_per_bin_and_matches_the_core(qtbot, tmp_path):
+    # the panel shows thermo.year's own figures (whose checks against twelve identical months
+    # and the coolant balance live in the core tests)
+    from thermo.year import run_year
+    doc = json.loads(YEAR_SAMPLE.read_text(encoding="utf-8"))
+    win = make_window(qtbot, tmp_path, doc)
+    panel = win.panels["year"]
+    assert panel.run_button.isEnabled()
+    with qtbot.waitSignal(panel.runner.finished, timeout=120_000):
+        panel.run()
+    expected = run_year(doc).to_dict()
+    assert panel.table.rowCount() == len(expected["bins"]) == 12
+    energy_col = [c[0] for c in YEAR_COLUMNS].index("energy_kWh")
+    shown = float(panel.table.item(6, energy_col).text().replace(" ", ""))
+    assert shown == pytest.approx(expected["bins"][6]["energy_kWh"], abs=0.6)
+    assert panel._canvas is not None
+    assert "hottest discharge" in panel.totals.text()
+
+
+def test_project_without_year_profile_says_so(qtbot, window):
+    panel = window.panels["year"]
+    assert not panel.run_button.isEnabled()
+    assert "no year profile" in panel.status.text()
