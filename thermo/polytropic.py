@@ -5,9 +5,10 @@ __all__ = ["polytropic_path", "polytropic_efficiency_between", "path_steps"]
 
 import math
 
-from .errors import StagewrightError
-from .models.base import Point, PropertyModel
+from .errors import PropertyRangeError, StagewrightError
+from .models.base import T_MAX, Point, PropertyModel
 
+_LN_T_BEYOND = math.log(2.0 * T_MAX)  # ln T past which a path has left every model's range
 _MAX_STEP_LN_P = 0.2  # RK4 step in ln p, on ln T; error about 1e-8 relative in Δh (see tests)
 
 
@@ -83,6 +84,9 @@ def _path_nodes(model: PropertyModel, inlet: Point, p_out: float, efficiency: fl
     slope = model.polytropic_slope
 
     def f(y: float, x: float) -> float:  # d(ln T)/d(ln p): nearly constant, so RK4 is very accurate
+        if y > _LN_T_BEYOND:  # a trial efficiency far too low: leave before exp() overflows
+            raise PropertyRangeError(f"polytropic path: temperature above the property range "
+                                     f"(at most {T_MAX:g} K) at efficiency {efficiency:.4g}", "polytropic path")
         T = exp(y)
         return slope(T, exp(x), efficiency) / T
 
