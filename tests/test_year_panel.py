@@ -35,3 +35,14 @@ def test_project_without_year_profile_says_so(qtbot, window):
     panel = window.panels["year"]
     assert not panel.run_button.isEnabled()
     assert "no year profile" in panel.status.text()
+
+
+def test_exchanger_figures_appear_in_the_balance_sheet(qtbot, tmp_path):
+    # UA and LMTD as the core reports them (their checks against `ht` live in the core tests)
+    import thermo
+    doc = json.loads(YEAR_SAMPLE.read_text(encoding="utf-8"))
+    win = make_window(qtbot, tmp_path, doc)
+    bal = win.panels["balance"]
+    expected = thermo.solve(doc).to_dict()["stages"][0]["cooler"]
+    ua = float(bal.value_text("components", "cooler-1", "ua").replace(" ", ""))
+    assert ua == pytest.approx(expected["ua_W_K"] / 1e3, abs=6e-4)

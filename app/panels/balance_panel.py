@@ -42,8 +42,14 @@ COMPONENT_COLUMNS = [
     ("xdest", "X_dest", "power"),
     ("latent", "Latent", "heat_flow"),
     ("condensate", "Condensate", "water_flow"),
+    ("ua", "UA", "conductance"),
+    ("lmtd", "LMTD", "temperature_difference"),
+    ("coolant", "Coolant flow", "mass_flow"),
+    ("coolant_out", "Coolant out", "temperature"),
 ]
 MOIST_COMPONENT_COLUMNS = ("latent", "condensate")
+#: exchanger figures, shown when some cooler has a coolant side
+EXCHANGER_COLUMNS = ("ua", "lmtd", "coolant", "coolant_out")
 #: (result key, label, quantity; None = plain number in scientific notation, "text" = as is)
 TOTALS = [
     ("mass_flow_kg_s", "Mass flow", "mass_flow"),
@@ -190,6 +196,10 @@ class BalancePanel(QWidget):
         self._fill_components(r, system)
         self._fill_totals(r, system)
         self._show_moist(is_moist(r))
+        exchangers = any((st["cooler"] or {}).get("ua_W_K") for st in r["stages"])
+        for col, (key, *_rest) in enumerate(COMPONENT_COLUMNS, 1):
+            if key in EXCHANGER_COLUMNS:
+                self.components.setColumnHidden(col, not exchangers)
         for t in (self.points, self.components, self.totals):
             t.fit_columns()
 
@@ -264,7 +274,9 @@ class BalancePanel(QWidget):
             if c:
                 rows.append((f"cooler-{i}", "Aftercooler" if i == n else f"Intercooler {i}", {
                     "heat": c["duty_W"], "sgen": c["entropy_generation_W_K"], "xdest": c["exergy_destroyed_W"],
-                    "latent": c.get("latent_duty_W"), "condensate": c.get("condensate_kg_s")}))
+                    "latent": c.get("latent_duty_W"), "condensate": c.get("condensate_kg_s"),
+                    "ua": c.get("ua_W_K"), "lmtd": c.get("lmtd_K"), "coolant": c.get("coolant_flow_kg_s"),
+                    "coolant_out": c.get("coolant_outlet_temperature_K")}))
         rows.append(("total", "Whole train", {"power": r["shaft_power_W"], "heat": r["heat_rejected_W"],
                                               "sgen": r["entropy_generation_W_K"], "xdest": r["exergy_destroyed_W"],
                                               "condensate": r.get("condensate_kg_s")}))
