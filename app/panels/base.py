@@ -23,6 +23,17 @@ class FieldPanel(QWidget):
     unit system changes, and can bring a field into view for the messages area.
     """
 
+    def form_layout(self, margins: tuple[int, int, int, int]) -> tuple:
+        """The panel's vertical layout with one growing form in it: ``(layout, form)``."""
+        from PySide6.QtWidgets import QFormLayout, QVBoxLayout
+        lay = QVBoxLayout(self)
+        lay.setContentsMargins(*margins)
+        form = QFormLayout()
+        form.setFieldGrowthPolicy(QFormLayout.AllNonFixedFieldsGrow)
+        self.form = form
+        lay.addLayout(form)
+        return lay, form
+
     def __init__(self, editor, parent=None):
         super().__init__(parent)
         self.editor = editor

@@ -5,7 +5,6 @@ from __future__ import annotations
 
 __all__ = ["CoolerForm", "OUTLET_CHOICES", "COOLANT_CHOICES", "default_cooler"]
 
-from PySide6.QtWidgets import QFormLayout, QVBoxLayout
 
 from ..doc_paths import ABSENT, stage_path
 from ..widgets.choice_field import ChoiceField
@@ -33,12 +32,7 @@ class CoolerForm(FieldPanel):
     def __init__(self, editor, parent=None):
         super().__init__(editor, parent)
         self.index = 0
-        lay = QVBoxLayout(self)
-        lay.setContentsMargins(0, 0, 0, 0)
-        form = QFormLayout()
-        form.setFieldGrowthPolicy(QFormLayout.AllNonFixedFieldsGrow)
-        self.form = form
-        lay.addLayout(form)
+        lay, form = self.form_layout((0, 0, 0, 0))
         lay.addStretch(1)
         self.heading = section_title("Cooler")
         form.addRow(self.heading)

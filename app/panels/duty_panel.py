@@ -3,7 +3,7 @@ from __future__ import annotations
 
 __all__ = ["DutyPanel", "FLOW_CHOICES"]
 
-from PySide6.QtWidgets import QComboBox, QFormLayout, QVBoxLayout
+from PySide6.QtWidgets import QComboBox
 
 from ..widgets.choice_field import ChoiceField
 from ..widgets.quantity_field import QuantityField
@@ -28,11 +28,7 @@ class DutyPanel(FieldPanel):
 
     def __init__(self, editor, parent=None):
         super().__init__(editor, parent)
-        lay = QVBoxLayout(self)
-        lay.setContentsMargins(10, 8, 10, 8)
-        form = QFormLayout()
-        form.setFieldGrowthPolicy(QFormLayout.AllNonFixedFieldsGrow)
-        lay.addLayout(form)
+        lay, form = self.form_layout((10, 8, 10, 8))
         lay.addStretch(1)
         self.kind = self.add_row(form, "Flow given as", ChoiceField(editor, "flow.kind", FLOW_CHOICES,
                                                                     self._choose_kind),

@@ -3,7 +3,7 @@ from __future__ import annotations
 
 __all__ = ["SitePanel", "elevation_for_pressure"]
 
-from PySide6.QtWidgets import QFormLayout, QHBoxLayout, QVBoxLayout, QWidget
+from PySide6.QtWidgets import QHBoxLayout, QWidget
 
 from thermo.atmosphere import standard_pressure
 from thermo.schema import PROJECT
@@ -51,12 +51,7 @@ class SitePanel(FieldPanel):
 
     def __init__(self, editor, parent=None):
         super().__init__(editor, parent)
-        lay = QVBoxLayout(self)
-        lay.setContentsMargins(10, 8, 10, 8)
-        form = QFormLayout()
-        form.setFieldGrowthPolicy(QFormLayout.AllNonFixedFieldsGrow)
-        self.form = form
-        lay.addLayout(form)
+        lay, form = self.form_layout((10, 8, 10, 8))
         lay.addStretch(1)
 
         self.add_row(form, "Project title", TextField(editor, "title", "untitled project"))

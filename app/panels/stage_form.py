@@ -3,7 +3,6 @@ from __future__ import annotations
 
 __all__ = ["StageForm", "EFFICIENCY_CHOICES"]
 
-from PySide6.QtWidgets import QFormLayout, QVBoxLayout
 
 from ..doc_paths import stage_path
 from ..widgets.choice_field import ChoiceField
@@ -29,12 +28,7 @@ class StageForm(FieldPanel):
     def __init__(self, editor, parent=None):
         super().__init__(editor, parent)
         self.index = 0
-        lay = QVBoxLayout(self)
-        lay.setContentsMargins(0, 0, 0, 0)
-        form = QFormLayout()
-        form.setFieldGrowthPolicy(QFormLayout.AllNonFixedFieldsGrow)
-        self.form = form
-        lay.addLayout(form)
+        lay, form = self.form_layout((0, 0, 0, 0))
         lay.addStretch(1)
         self.heading = section_title("Stage")
         form.addRow(self.heading)
