@@ -1,7 +1,7 @@
 """Water that condenses in a cooler: latent and sensible duty, the separator, condensate volume [1]_ [2]_."""
 from __future__ import annotations
 
-__all__ = ["Condensation", "condensation", "condensate_volume_L_h", "cooling_line"]
+__all__ = ["Condensation", "condensation", "condensate_volume_L_h", "cooling_line", "line_dew_point"]
 
 import math
 from dataclasses import dataclass
@@ -9,6 +9,7 @@ from dataclasses import dataclass
 from . import coolprop_adapter as cpa
 from .roots import bracketed_root
 from .models.base import Point
+from .saturation import dew_point_from_vapour_pressure
 
 
 @dataclass(frozen=True)
@@ -95,6 +96,60 @@ def condensate_volume_L_h(mass_kg_s: float, T: float, P: float) -> float:
     return mass_kg_s / cpa.liquid_water_density(T, P) * 1000.0 * 3600.0
 
 
+def line_dew_point(model, t_in: float, t_out: float, p_at, tol: float = 1e-11):
+    r"""Temperature at which a cooling line p(T) reaches the dew point of the stream, [K], or None.
+
+    Solves :math:`x_w\,p(T) = f(T, p(T))\,p_{ws}(T)` for T by fixed-point iteration,
+    :math:`T_{k+1} = T_{ws}\!\left(x_w\,p(T_k) / f(T_k, p(T_k))\right)`, with
+    :math:`T_{ws}` the IAPWS-IF97 backward saturation-temperature equation [1]_ and f the
+    enhancement factor of the mixture (1 for the ideal mixtures, which converge at once).
+    The map contracts by about :math:`|d\ln(p/f)/dT| / (d\ln p_{ws}/dT)`, of order 1e-2
+    for a cooler's pressure drop, so a few evaluations of f reach ``tol``; a bracketing
+    search would take ten or more.
+
+    Parameters
+    ----------
+    model : MoistAir
+        Stream model (its total water is the vapour content that saturates).
+    t_in, t_out : float
+        Cooler inlet and outlet temperatures, [K]; the dew point lies between them.
+    p_at : callable
+        Pressure [Pa] along the line as a function of temperature [K].
+    tol : float
+        Convergence tolerance on T, [K].
+
+    Returns
+    -------
+    float or None
+        The dew point on the line, or None if the iteration does not settle inside
+        [t_out, t_in] within 40 steps (the caller then brackets the root).
+
+    Examples
+    --------
+    >>> from thermo.models.ideal_gas import IdealGasAir
+    >>> from thermo.humid import MoistAir
+    >>> from thermo.train import mixture_for
+    >>> m = MoistAir(mixture_for(IdealGasAir()), 0.01)
+    >>> round(line_dew_point(m, 400.0, 300.0, lambda T: 5e5), 2)
+    314.45
+
+    References
+    ----------
+    .. [1] IAPWS, *Revised Release on the IAPWS Industrial Formulation 1997 for the
+       Thermodynamic Properties of Water and Steam*, 2007, eq. (31).
+    """
+    mixture = model.mixture
+    x_w = model.water / (mixture.epsilon + model.water)
+    T = t_out
+    for _ in range(40):
+        p = p_at(T)
+        T_new = dew_point_from_vapour_pressure(x_w * p / mixture.enhancement(T, p))
+        if abs(T_new - T) < tol:
+            return T_new if t_out <= T_new <= t_in else None
+        T = T_new
+    return None
+
+
 def cooling_line(model, inlet: Point, t_out: float, p_out: float, where: str, points: int = 8) -> list[Point]:
     """States along a cooler's line (p linear in T), with the point where condensation starts.
 
@@ -128,7 +183,9 @@ def cooling_line(model, inlet: Point, t_out: float, p_out: float, where: str, po
 
     temps = [t_in + k / points * (t_out - t_in) for k in range(1, points)]
     if inlet.wl == 0.0 and t_in > t_out and excess(t_out) > 0.0 and excess(t_in) < 0.0:
-        t_dew = bracketed_root(excess, t_out, t_in, xtol=1e-12)
+        t_dew = line_dew_point(model, t_in, t_out, p_at)
+        if t_dew is None:
+            t_dew = bracketed_root(excess, t_out, t_in, xtol=1e-12)
         n_cond = max(points // 2, math.ceil(points * (t_dew - t_out) / (t_in - t_out)))
         n_sens = max(1, points - n_cond)
         temps = ([t_in + k / n_sens * (t_dew - t_in) for k in range(1, n_sens + 1)]

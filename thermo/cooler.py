@@ -163,7 +163,8 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
     dead : DeadState
         Site dead state.
     path_points : int
-        Number of states returned along the cooling line (for the T–s chart).
+        Number of segments of the cooling line returned for the T–s chart; 0 returns only
+        inlet and outlet (trial solves: no chart, and no dew-point search on the line).
     ambient_relative_humidity : float
         Site relative humidity, [-] (humidity of an air coolant).
 
@@ -257,7 +258,7 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
     s_gen = mass_flow * (outlet.s - inlet.s) + duty / t_b
     if moist:
         water = condensation(model, inlet, outlet, duty, mass_flow, spec["separator_efficiency"])
-        path = cooling_line(model, inlet, t_out, p_out, where, path_points) + [outlet]
+        path = (cooling_line(model, inlet, t_out, p_out, where, path_points) if path_points else [inlet]) + [outlet]
         if water.drained_kg_s > 0.0:
             path.append(water.after)
         return CoolerResult(index=index, inlet=inlet, outlet=outlet, duty_W=duty, boundary_temperature_K=t_b,

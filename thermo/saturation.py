@@ -190,7 +190,7 @@ def dew_point_from_vapour_pressure(p_v: float) -> float:
 
     Above the IF97 lower end (611.213 Pa at 273.15 K) this is the IF97 backward equation;
     below, the frost point over ice, found by Newton's method on the IAPWS 2011
-    sublimation equation (d ln p / dT from a central difference).
+    sublimation equation (with its exact d ln p / dT).
 
     Parameters
     ----------
@@ -210,11 +210,12 @@ def dew_point_from_vapour_pressure(p_v: float) -> float:
     """
     if p_v >= saturation_pressure(T_IF97_MIN):
         return saturation_temperature(p_v)
-    target = math.log(p_v)
+    target = math.log(p_v / P_TRIPLE)
     T = 260.0
-    for _ in range(50):
-        f = math.log(sublimation_pressure(T)) - target
-        slope = (math.log(sublimation_pressure(T + 1e-3)) - math.log(sublimation_pressure(T - 1e-3))) / 2e-3
+    for _ in range(50):  # ln(p/p_t) = Σ a θ^(b−1), so d/dT = Σ a (b−1) θ^(b−2) / T_t (exact slope)
+        th = T / T_TRIPLE
+        f = sum(a * th ** (b - 1.0) for a, b in zip(_A_SUB, _B_SUB)) - target
+        slope = sum(a * (b - 1.0) * th ** (b - 2.0) for a, b in zip(_A_SUB, _B_SUB)) / T_TRIPLE
         step = f / slope
         T = max(T - step, 0.5 * T)
         if abs(step) < 1e-10:

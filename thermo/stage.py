@@ -164,7 +164,10 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
                                  "it implies is unbounded; the discharge state leaves the property range",
                                  f"{where}.efficiency.value")
     h_out = start.h + dh - q - 0.5 * v_out ** 2 * k
-    outlet = model.at_hp(h_out, p_out, f"{where} discharge", T_guess=path[-1].T)
+    if not detail and q_loss == 0.0 and v_out == 0.0:  # a trial's path ends at h_out already
+        outlet = path[-1]
+    else:
+        outlet = model.at_hp(h_out, p_out, f"{where} discharge", T_guess=path[-1].T)
     w_gas = mass_flow * dh
     w_shaft = w_gas / spec["mechanical_efficiency"]
     w_mech = w_shaft - w_gas

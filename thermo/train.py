@@ -141,7 +141,7 @@ def solve_train(norm: dict, model: PropertyModel, mass_flow: float, detail: bool
                                      f"stage {i + 1} discharge {st.outlet.T:.1f} K exceeds its limit {limit:.1f} K"))
         point, velocity = st.outlet, st.exit_velocity_m_s
         if spec["cooler"] is not None:
-            c = solve_cooler(model, spec["cooler"], i, point, velocity, mass_flow, dead, 8 if detail else 1,
+            c = solve_cooler(model, spec["cooler"], i, point, velocity, mass_flow, dead, 8 if detail else 0,
                              ambient_relative_humidity=rh0)
             coolers.append(c)
             point, velocity = c.leaving, 0.0
