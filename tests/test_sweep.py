@@ -19,6 +19,23 @@ def test_grid_order_and_values_match_single_solves():
         assert res.values["shaft_power_W"][i] == pytest.approx(thermo.solve(d).shaft_power_W, rel=1e-12)
 
 
+def test_humid_sweep_reports_the_condensate_of_each_point():
+    # every output of a humid real-gas sweep (fast path) against the exact full solve at the same
+    # point, to the fast path's 1e-4 (tests/test_fast_path.py); the condensate was once always 0
+    doc = make_doc(model="real_gas", cool_to=305.0)
+    doc["site"]["relative_humidity"] = 0.7
+    res = sweep(doc, {"discharge_pressure_Pa": [6e5, 9e5]}, processes=1)
+    for i, (p,) in enumerate(res.points):
+        d = make_doc(model="real_gas", p_out=p, cool_to=305.0)
+        d["site"]["relative_humidity"] = 0.7
+        exact = thermo.solve(d)
+        assert exact.water.condensate_kg_s > 0.0
+        assert res.values["condensate_kg_s"][i] == pytest.approx(exact.water.condensate_kg_s, rel=1e-4)
+        assert res.values["max_discharge_temperature_K"][i] == pytest.approx(
+            max(s.outlet.T for s in exact.stages), rel=1e-4)
+        assert res.values["second_law_efficiency"][i] == pytest.approx(exact.second_law_efficiency, rel=1e-4)
+
+
 def test_failed_points_are_recorded_not_nan():
     doc = make_doc()
     res = sweep(doc, {"stages[0].efficiency.value": [0.8, 1.5]}, processes=1)

@@ -199,7 +199,7 @@ class MoistMixture:
        Ordinary Water Substance", J. Phys. Chem. Ref. Data 31 (2002) 387–535.
     """
 
-    def __init__(self, dry, vapour, epsilon: float, virial: bool, enhancement: bool):
+    def __init__(self, dry, vapour, epsilon: float, virial: bool, enhancement: bool, table=None):
         self.dry = dry
         self.name = dry.name
         self.vapour = vapour
@@ -212,6 +212,7 @@ class MoistMixture:
                        if virial and isinstance(vapour, _IdealGasWater) else None)
         self.n_a = 1.0 / dry.molar_mass if virial else 0.0
         self.uses_enhancement = enhancement
+        self._table = table  # an EnhancementTable: the fast path of trial solves (None: exact f)
         #: range of the humid-air formulation (None: no limit beyond the dry model's)
         self.t_max = RP1485_T_MAX if enhancement else None
         self.p_max = RP1485_P_MAX if enhancement else None
@@ -291,7 +292,9 @@ class MoistMixture:
     # ---- saturation ------------------------------------------------------------------------
     def enhancement(self, T: float, P: float) -> float:
         """Enhancement factor f(T, p) [-] (1 for the ideal mixtures)."""
-        return _rp1485_enhancement(T, P) if self.uses_enhancement else 1.0
+        if not self.uses_enhancement:
+            return 1.0
+        return _rp1485_enhancement(T, P) if self._table is None else self._table(T, P)
 
     def saturation_fraction(self, T: float, P: float) -> float:
         """Mole fraction of water vapour at saturation, x_ws = f p_ws / p [-]; inf where water cannot condense."""
@@ -389,10 +392,28 @@ class MoistMixture:
         return T
 
 
+_FAST_TABLE = None
+
+
+def _fast_table():
+    """The process's one enhancement-factor table (its nodes are kept for later trials),
+    behind the same small cache of recent (T, p) as the exact factor."""
+    global _FAST_TABLE
+    if _FAST_TABLE is None:
+        from .enhancement_table import EnhancementTable  # local: only fast trial solves need it
+        _FAST_TABLE = lru_cache(maxsize=512)(EnhancementTable())
+    return _FAST_TABLE
+
+
 def make_mixture(dry) -> MoistMixture:
-    """The moist mixture that belongs to a dry-air property model (by its name)."""
+    """The moist mixture that belongs to a dry-air property model (by its name).
+
+    A model flagged ``fast_properties`` (trial solves of studies and sweeps) gets the
+    interpolated enhancement factor of :mod:`thermo.enhancement_table`; all others the exact one.
+    """
     if dry.name == "real_gas":
-        return MoistMixture(dry, _IdealGasWater(), RP1485_EPSILON, virial=True, enhancement=True)
+        table = _fast_table() if getattr(dry, "fast_properties", False) else None
+        return MoistMixture(dry, _IdealGasWater(), RP1485_EPSILON, virial=True, enhancement=True, table=table)
     if dry.name == "ideal_gas":
         return MoistMixture(dry, _IdealGasWater(), M_WATER / dry.molar_mass, virial=False, enhancement=False)
     m_a = R_MOLAR / dry.gas_constant

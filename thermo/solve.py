@@ -29,14 +29,20 @@ def release_thread_models() -> None:
     _release_models()
 
 
-def model_for(fluid: dict):
-    """Property model for a ``fluid`` section, reused per thread (one AbstractState each)."""
+def model_for(fluid: dict, fast: bool = False):
+    """Property model for a ``fluid`` section, reused per thread (one AbstractState each).
+
+    ``fast`` gives a separate model flagged ``fast_properties``: its moist-air mixture
+    interpolates the enhancement factor (:mod:`thermo.enhancement_table`)."""
     cache = getattr(_local, "models", None)
     if cache is None:
         cache = _local.models = {}
-    key = (fluid.get("model", "real_gas"), fluid.get("cp_J_kgK"), fluid.get("k"))
+    key = (fluid.get("model", "real_gas"), fluid.get("cp_J_kgK"), fluid.get("k"), fast)
     if key not in cache:
-        cache[key] = make_model(fluid)
+        model = make_model(fluid)
+        if fast:
+            model.fast_properties = True
+        cache[key] = model
     return cache[key]
 
 
@@ -80,12 +86,16 @@ def solve(doc: dict, detail: bool = True) -> TrainResult:
     return solve_normalised(normalise(doc), detail)
 
 
-def solve_normalised(norm: dict, detail: bool = True) -> TrainResult:
+def solve_normalised(norm: dict, detail: bool = True, fast: bool = False) -> TrainResult:
     """:func:`solve` for a document already passed through :func:`thermo.document.normalise`.
 
     For callers that validate once and then solve many variants (sweeps, studies).
+    ``fast`` selects the fast property path of trial solves: for moist real-gas air the
+    enhancement factor is interpolated (:mod:`thermo.enhancement_table`); reported figures
+    agree with the exact path to better than 1e-4 relative (tests/test_fast_path.py), and
+    the other models are unaffected.
     """
-    model = model_for(norm["fluid"])
+    model = model_for(norm["fluid"], fast)
     flow = norm["flow"]
     T0, P0 = norm["site"]["ambient_temperature_K"], site_pressure(norm)
     if flow["kind"] != "shaft_power":

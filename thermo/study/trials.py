@@ -89,8 +89,11 @@ class TrialSolver:
     -----
     Trials use ``solve_normalised(doc, detail=False)``: the same energy and entropy balances
     as a full solve, without the reporting-only polytropic-efficiency search of isentropic
-    stages (about ten times cheaper on the real-gas model). The document is normalised once;
-    a trial changes only the stage ratios, so only they are checked against the schema.
+    stages (about ten times cheaper on the real-gas model), on the fast property path
+    (``fast=True``: interpolated enhancement factor for moist real-gas air, within 1e-4 of
+    the exact path). The chosen split is then solved in full on the exact path. The document
+    is normalised once; a trial changes only the stage ratios, so only they are checked
+    against the schema.
     """
 
     def __init__(self, doc: dict, limits: list[SoftLimit], should_stop: Callable[[], bool]):
@@ -111,7 +114,7 @@ class TrialSolver:
         self.solves += 1
         try:
             _check_ratios(key)
-            result = solve_normalised(doc, detail=False)
+            result = solve_normalised(doc, detail=False, fast=True)
         except StagewrightError as exc:
             trial = Trial(key, None, exc, None)
         else:
