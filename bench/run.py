@@ -138,10 +138,14 @@ def case_sweep():
         return
     doc = json.loads((ROOT / "sample_projects" / "two_stage_plant_air.json").read_text())
     import numpy as np
-    axes = {"site.ambient_temperature_K": list(np.linspace(263.15, 318.15, 100)),
+    # ambient 2–45 °C: the demo's intake is humid, and moist air below 0 °C is out of scope
+    # (such points fail at once and would flatter the figure)
+    axes = {"site.ambient_temperature_K": list(np.linspace(275.15, 318.15, 100)),
             "discharge_pressure_Pa": list(np.linspace(6e5, 13e5, 100))}
-    report("sweep 10 000 points (T0 × p_d)", measure(lambda: sweep(doc, axes), 3, warmup=0),
-           extra=f"peak RSS {_peak_mb():.0f} MB (this process)")
+    failed = []
+    timing = measure(lambda: failed.append(len(sweep(doc, axes).errors)), 3, warmup=0)
+    report("sweep 10 000 points (T0 × p_d)", timing,
+           extra=f"peak RSS {_peak_mb():.0f} MB (this process); {max(failed)} points failed")
 
 
 def case_year():

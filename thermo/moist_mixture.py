@@ -213,6 +213,7 @@ class MoistMixture:
         self.n_a = 1.0 / dry.molar_mass if virial else 0.0
         self.uses_enhancement = enhancement
         self._table = table  # an EnhancementTable: the fast path of trial solves (None: exact f)
+        self._liquid_memo: dict = {}
         #: range of the humid-air formulation (None: no limit beyond the dry model's)
         self.t_max = RP1485_T_MAX if enhancement else None
         self.p_max = RP1485_P_MAX if enhancement else None
@@ -334,11 +335,25 @@ class MoistMixture:
     def liquid(self, T: float, P: float):
         r"""(h_l [J/kg], s_l [J/(kg K)]) of condensed water at T, P (same reference as the vapour).
 
+        The last few answers are kept: a cooler asks for its outlet's liquid several times
+        (outlet state, condensation balance, drain).
+
         With :math:`g_l = h_w^\circ - T s_w^\circ + R_w T \ln(f p_{ws}/p_\mathrm{ref}) + \mu_v`
         (:math:`\mu_v` the interaction part), :math:`s_l = -\partial g_l/\partial T` and
         :math:`h_l = h_w^\circ - R_w T^2\,\partial\ln(f p_{ws})/\partial T + \mu_v - T\,\partial\mu_v/\partial T`;
         only the two small terms are differentiated numerically (central differences).
         """
+        key = (T, P)
+        memo = self._liquid_memo
+        hit = memo.get(key)
+        if hit is not None:
+            return hit
+        if len(memo) >= 16:
+            memo.clear()
+        memo[key] = out = self._liquid(T, P)
+        return out
+
+    def _liquid(self, T: float, P: float):
         d = _DT_LIQUID
         hw, sw, _ = self.vapour(T)
         ln_fp = self._ln_fp(T, P)

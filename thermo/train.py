@@ -186,7 +186,7 @@ def solve_train(norm: dict, model: PropertyModel, mass_flow: float, detail: bool
         energy_res = (shaft - mass_flow * (point.h + ke - ambient.h) - h_drained - q_rej) / shaft
         exergy_res = (shaft - x_gain - x_drained - x_dest - x_heat) / shaft
         fad = mass_flow * (1.0 + ambient.w) / ambient.rho
-        water = _water_result(mixture, dry_model, mass_flow, W0, point, P0, drains, x_drained)
+        water = _water_result(mixture, dry_model, mass_flow, W0, point, P0, drains, x_drained, detail)
     driver_eff = norm["driver"]["efficiency"]
     normal = mass_flow / dry_model.at_tp(NORMAL_TEMPERATURE, NORMAL_PRESSURE, "normal state").rho
     driver = shaft / driver_eff
@@ -209,12 +209,14 @@ def solve_train(norm: dict, model: PropertyModel, mass_flow: float, detail: bool
     return result
 
 
-def _water_result(mixture, dry_model, mass_flow, W0, delivered, P0, drains, x_drained) -> WaterResult:
-    """Water totals of a moist train: condensate, delivered dew points, ISO 8573-1 class."""
+def _water_result(mixture, dry_model, mass_flow, W0, delivered, P0, drains, x_drained,
+                  detail: bool = True) -> WaterResult:
+    """Water totals of a moist train: condensate, delivered dew points, ISO 8573-1 class
+    (the atmospheric dew point is reporting-only: None in a trial solve)."""
     drained = sum(m for m, *_ in drains)
     delivered_water = mass_flow * (delivered.w + delivered.wl)
     pdp = mixture.dew_point(delivered.P, delivered.w)
-    adp = mixture.dew_point(P0, delivered.w)
+    adp = mixture.dew_point(P0, delivered.w) if detail else None
     ref = dry_model.at_tp(REFERENCE_TEMPERATURE, REFERENCE_PRESSURE, "ISO 8573-1 reference state")
     liquid_conc = delivered.wl * ref.rho  # kg liquid per m³ of air at the reference conditions
     return WaterResult(
