@@ -14,7 +14,7 @@ import math
 
 from .errors import InputError
 from .models.base import Point, check_range
-from .models.newton import invert_temperature
+from .models.newton import invert_to_state
 from .moist_mixture import MoistMixture
 from .saturation import T_IF97_MIN
 
@@ -123,14 +123,23 @@ class MoistAir:
     def at_hp(self, h: float, P: float, where: str = "", T_guess: float = 300.0) -> Point:
         def f(T):
             st = self._state(T, P, slope=False)
-            return st[0], st[3]
-        return self.at_tp(invert_temperature(f, h, T_guess, where, "enthalpy"), P, where)
+            return st[0], st[3], st
+        T, st = invert_to_state(f, h, T_guess, where, "enthalpy")
+        return self._point(T, P, st, where)
 
     def at_sp(self, s: float, P: float, where: str = "", T_guess: float = 300.0) -> Point:
         def f(T):
             st = self._state(T, P, slope=False)
-            return st[1], st[3] / T
-        return self.at_tp(invert_temperature(f, s, T_guess, where, "entropy"), P, where)
+            return st[1], st[3] / T, st
+        T, st = invert_to_state(f, s, T_guess, where, "entropy")
+        return self._point(T, P, st, where)
+
+    @staticmethod
+    def _point(T: float, P: float, st: tuple, where: str) -> Point:
+        """The Point of a state tuple from :meth:`_state` (the last Newton evaluation)."""
+        check_range(T, P, where)
+        h, s, v, _, _, w_v, w_l = st
+        return Point(T, P, h, s, (1.0 + w_v) / v, w_v, w_l)
 
     def polytropic_slope(self, T: float, P: float, efficiency: float) -> float:
         check_range(T, P, "polytropic path")

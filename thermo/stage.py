@@ -134,7 +134,7 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
     start = inlet if inlet_velocity == 0.0 else model.at_hp(
         inlet.h + 0.5 * inlet_velocity ** 2 * k, inlet.P, where, T_guess=inlet.T)
     r = p_out / start.P
-    t_guess = start.T * r ** 0.3
+    t_guess = start.T * r ** 0.285
     iso = model.at_sp(start.s, p_out, f"{where} isentropic discharge", T_guess=t_guess)
     dh_s = iso.h - start.h
     if not (r > 1.0 + 1e-9 and dh_s > 0.0):  # a ratio of 1 + 1e-16 passes "> 1" but gives 0/0 below
@@ -167,7 +167,8 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
     if not detail and q_loss == 0.0 and v_out == 0.0:  # a trial's path ends at h_out already
         outlet = path[-1]
     else:
-        outlet = model.at_hp(h_out, p_out, f"{where} discharge", T_guess=path[-1].T)
+        cp_mean = dh_s / (iso.T - start.T) if iso.T > start.T else 1000.0  # secant cp, a guess only
+        outlet = model.at_hp(h_out, p_out, f"{where} discharge", T_guess=path[-1].T + (h_out - path[-1].h) / cp_mean)
     w_gas = mass_flow * dh
     w_shaft = w_gas / spec["mechanical_efficiency"]
     w_mech = w_shaft - w_gas

@@ -1,7 +1,7 @@
 """Temperature from enthalpy or entropy at fixed pressure by Newton's method."""
 from __future__ import annotations
 
-__all__ = ["invert_temperature"]
+__all__ = ["invert_temperature", "invert_to_state"]
 
 from typing import Callable
 
@@ -69,3 +69,56 @@ def invert_temperature(value_and_slope: Callable[[float], tuple[float, float]], 
             f"{where}: the {what} asked for lies outside the property range "
             f"{T_MIN:g} K … {T_MAX:g} K", where)
     return T
+
+
+def invert_to_state(evaluate: Callable[[float], tuple], target: float, T_guess: float, where: str, what: str,
+                    tol_K: float = 1e-9) -> tuple:
+    """Like :func:`invert_temperature`, but return the last evaluation itself [1]_.
+
+    Parameters
+    ----------
+    evaluate : callable
+        ``T -> (f(T), df/dT, state)``; ``state`` is whatever the caller needs at T.
+    target, T_guess, where, what, tol_K
+        As for :func:`invert_temperature`.
+
+    Returns
+    -------
+    (float, object)
+        The temperature of the last evaluation, [K], and its ``state``. Newton's step from
+        it was below ``tol_K``, so it is within about ``tol_K`` of the root, and the caller
+        needs no further evaluation to build the answer.
+
+    Raises
+    ------
+    PropertyRangeError
+        If the root lies outside the model temperature window.
+
+    References
+    ----------
+    .. [1] W. H. Press, S. A. Teukolsky, W. T. Vetterling, B. P. Flannery, *Numerical
+       Recipes*, 3rd ed., Cambridge University Press, 2007, §9.4 (rtsafe).
+    """
+    lo, hi = T_MIN, T_MAX
+    T = min(max(T_guess, lo), hi)
+    for _ in range(60):
+        f, dfdT, state = evaluate(T)
+        r = f - target
+        if r > 0:
+            hi = T
+        else:
+            lo = T
+        step = r / dfdT
+        if abs(step) < tol_K:
+            return T, state
+        T_new = T - step
+        if not (lo <= T_new <= hi):
+            T_new = 0.5 * (lo + hi)
+        if hi - lo < tol_K:
+            break
+        T = T_new
+    if T <= T_MIN + 1e-6 or T >= T_MAX - 1e-6:
+        raise PropertyRangeError(
+            f"{where}: the {what} asked for lies outside the property range "
+            f"{T_MIN:g} K … {T_MAX:g} K", where)
+    return T, evaluate(T)[2]
