@@ -374,8 +374,15 @@ class MoistMixture:
         """Specific volume of condensed water ∂g_l/∂p, [m³/kg] (0 for the ideal mixtures)."""
         if not self.uses_enhancement and self.virial is None:
             return 0.0
-        dp = 1e-4 * P
-        return (self.liquid_gibbs(T, P + dp) - self.liquid_gibbs(T, P - dp)) / (2.0 * dp)
+        key = (T, P, "v")  # kept with the liquid's h and s: asked for at the same (T, p)
+        memo = self._liquid_memo
+        v = memo.get(key)
+        if v is None:
+            if len(memo) >= 16:
+                memo.clear()
+            dp = 1e-4 * P
+            v = memo[key] = (self.liquid_gibbs(T, P + dp) - self.liquid_gibbs(T, P - dp)) / (2.0 * dp)
+        return v
 
     # ---- psychrometric quantities ---------------------------------------------------------
     def relative_humidity(self, T: float, P: float, w: float):

@@ -83,5 +83,41 @@ def stage_pressure_ratios(p_in: float, p_delivery: float, given: list, cooler_dr
     if miss(40.0) < 0.0:
         raise InputError("discharge_pressure_Pa", p_delivery,
                          "cannot be reached with stage pressure ratios up to 40; add stages")
-    r = bracketed_root(miss, 1.0, 40.0, xtol=1e-15)
+    r = _newton_ratio(p_in, p_delivery, given, cooler_drops)
+    if r is None:
+        r = bracketed_root(miss, 1.0, 40.0, xtol=1e-15)
     return [r if g is None else g for g in given]
+
+
+def _newton_ratio(p_in: float, p_delivery: float, given: list, cooler_drops: list[float]):
+    """The shared ratio by Newton's method [1]_ from the geometric split, or None if it strays.
+
+    The delivered pressure and its derivative in r follow from the same recurrence,
+    :math:`p_{k+1} = p_k r_k - \Delta p_k`, :math:`p'_{k+1} = p'_k r_k + p_k [k \text{ free}]`;
+    the delivered pressure is a polynomial in r with positive leading terms, so from the
+    geometric-split start Newton converges in a few steps.
+
+    References
+    ----------
+    .. [1] W. H. Press et al., *Numerical Recipes*, 3rd ed., 2007, §9.4.
+    """
+    n_free = sum(1 for g in given if g is None)
+    fixed = 1.0
+    for g in given:
+        if g is not None:
+            fixed *= g
+    r = ((p_delivery + sum(cooler_drops)) / (p_in * fixed)) ** (1.0 / n_free)
+    for _ in range(30):
+        p, dp = p_in, 0.0
+        for g, drop in zip(given, cooler_drops):
+            if g is None:
+                p, dp = p * r - drop, dp * r + p
+            else:
+                p, dp = p * g - drop, dp * g
+        if not (dp > 0.0 and 1.0 < r <= 40.0):
+            return None
+        step = (p - p_delivery) / dp
+        r -= step
+        if abs(step) <= 1e-15 * r:
+            return r if 1.0 < r <= 40.0 else None
+    return None

@@ -37,11 +37,43 @@ def intake_model(norm: dict, model: PropertyModel):
     site = norm["site"]
     if not is_moist(site):
         return model, None, 0.0
+    key = (site["ambient_temperature_K"], site_pressure(norm), site.get("relative_humidity"),
+           site.get("dew_point_K"), site.get("humidity_ratio"))
+    memo = getattr(model, "_intake_memo", None)  # the last site: a sweep's fast axis often keeps it
+    if memo is not None and memo[0] == key:
+        return memo[1]
     mixture = mixture_for(model)
     W0 = intake_humidity_ratio(site, mixture, site["ambient_temperature_K"], site_pressure(norm))
-    if W0 <= 0.0:
-        return model, None, 0.0
-    return MoistAir(mixture, W0), mixture, W0
+    out = (model, None, 0.0) if W0 <= 0.0 else (MoistAir(mixture, W0), mixture, W0)
+    model._intake_memo = (key, out)
+    return out
+
+
+def _intake_states(norm: dict, dry_model: PropertyModel, mass_flow: float):
+    """(stream model, mixture, W0, ambient state, dead state, filter outlet, filter balance, site RH).
+
+    The same site and intake filter give the same states: the last answer is kept on the model
+    (sweeps and studies solve many trains at one site)."""
+    T0 = norm["site"]["ambient_temperature_K"]
+    P0 = site_pressure(norm)
+    model, mixture, W0 = intake_model(norm, dry_model)
+    key = (id(model), T0, P0, norm["inlet_pressure_drop_Pa"], norm["site"]["relative_humidity"])
+    memo = getattr(dry_model, "_intake_states_memo", None)
+    if memo is not None and memo[0] == key:
+        ambient, dead, after_filter, rh0 = memo[1]
+    else:
+        ambient = model.at_tp(T0, P0, "site intake")
+        if mixture is None:
+            dead = DeadState(T0, P0, ambient.h, ambient.s)
+        else:
+            dead = DeadState(T0, P0, ambient.h, ambient.s, W0, *_water_reference(mixture, T0, P0, W0))
+        p1 = P0 - norm["inlet_pressure_drop_Pa"]
+        after_filter = model.at_hp(ambient.h, p1, "intake filter outlet", T_guess=T0)
+        rh0 = norm["site"]["relative_humidity"] if mixture is None else mixture.relative_humidity(T0, P0, W0)
+        dry_model._intake_states_memo = (key, (ambient, dead, after_filter, rh0))
+    filt_sgen = mass_flow * (after_filter.s - ambient.s)
+    return model, mixture, W0, ambient, dead, after_filter, InletResult(ambient, after_filter, filt_sgen,
+                                                                      T0 * filt_sgen), rh0
 
 
 def _water_reference(mixture: MoistMixture, T0: float, P0: float, W0: float):
@@ -109,16 +141,9 @@ def solve_train(norm: dict, model: PropertyModel, mass_flow: float, detail: bool
     T0 = norm["site"]["ambient_temperature_K"]
     P0 = site_pressure(norm)
     dry_model = model
-    model, mixture, W0 = intake_model(norm, dry_model)
-    ambient = model.at_tp(T0, P0, "site intake")
-    if mixture is None:
-        dead = DeadState(T0, P0, ambient.h, ambient.s)
-    else:
-        dead = DeadState(T0, P0, ambient.h, ambient.s, W0, *_water_reference(mixture, T0, P0, W0))
-    p1 = P0 - norm["inlet_pressure_drop_Pa"]
-    after_filter = model.at_hp(ambient.h, p1, "intake filter outlet", T_guess=T0)
-    filt_sgen = mass_flow * (after_filter.s - ambient.s)
-    inlet = InletResult(ambient, after_filter, filt_sgen, T0 * filt_sgen)
+    model, mixture, W0, ambient, dead, after_filter, inlet, rh0 = _intake_states(norm, dry_model, mass_flow)
+    filt_sgen = inlet.entropy_generation_W_K
+    p1 = after_filter.P
 
     specs = norm["stages"]
     drops = [(s["cooler"] or {}).get("pressure_drop_Pa", 0.0) for s in specs]
@@ -128,7 +153,6 @@ def solve_train(norm: dict, model: PropertyModel, mass_flow: float, detail: bool
     stages, coolers = [], []
     point, velocity = after_filter, 0.0
     drains = []  # (kg/s, h, s, T, p) of condensate leaving each separator
-    rh0 = norm["site"]["relative_humidity"] if mixture is None else mixture.relative_humidity(T0, P0, W0)
     for i, spec in enumerate(specs):
         st = solve_stage(model, spec, i, point, velocity, point.P * ratios[i], mass_flow, dead, detail)
         if mixture is not None:
