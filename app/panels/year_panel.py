@@ -91,7 +91,7 @@ class YearPanel(QWidget):
         self.progress.setMaximum(total)
         self.progress.setValue(done)
 
-    def _on_finished(self, _job: int, result: dict) -> None:
+    def _on_finished(self, _job: int, result: dict, _seconds: float) -> None:
         self.result = result
         self._idle("Year solved.")
         self.refresh()
