@@ -155,7 +155,7 @@ class MoistAir:
         of rounding size would otherwise put the latent heat into a finite-difference cp
         and make the path jump.
         """
-        _, _, v, cp, hp = self.mixture.gas(T, P, self.water, True)
+        v, cp, hp = self.mixture.gas_slope_terms(T, P, self.water)
         return P * (v / efficiency - hp) / cp
 
     def _h_saturated(self, T: float, P: float) -> float:
