@@ -102,3 +102,22 @@ def test_ideal_efficiency_with_exit_velocity_is_refused():
     # total-to-static efficiency 1 leaves nothing for the exit kinetic energy
     with pytest.raises(SecondLawViolation, match="total-to-static"):
         thermo.solve(one_stage(1.0, exit_velocity_m_s=50.0))
+
+
+@pytest.mark.parametrize("ratio", [2.0, 10.0, 40.0])
+def test_measured_discharge_near_the_top_of_the_property_range(ratio):
+    # A measured 1290 K discharge (the models reach 1300 K): trial paths of too low an efficiency
+    # leave the range and must be followed by more efficient ones, not reported as an error.
+    # Perfect gas: ηp = (R/cp) ln r / ln(T2/T1) (Dixon & Hall, Fluid Mechanics and Thermodynamics
+    # of Turbomachinery, 7th ed., 2014, §2.9), with k = 1.4
+    import math
+    doc = {"site": {"ambient_temperature_K": 293.15, "barometric_pressure_Pa": 1e5}, "fluid": {"model": "constant_cp"},
+           "flow": {"kind": "mass", "value": 1.0}, "discharge_pressure_Pa": 1e5 * ratio,
+           "stages": [{"efficiency": {"kind": "discharge_temperature", "value_K": 1290.0}}]}
+    st = thermo.solve(doc).stages[0]
+    assert st.outlet.T == pytest.approx(1290.0, abs=1e-9)
+    assert st.polytropic_efficiency == pytest.approx((0.4 / 1.4) * math.log(ratio) / math.log(1290.0 / 293.15),
+                                                     rel=1e-9)
+    for model in ("real_gas", "ideal_gas"):
+        doc["fluid"]["model"] = model
+        assert 0.1 < thermo.solve(doc).stages[0].polytropic_efficiency < 0.7

@@ -151,6 +151,9 @@ def polytropic_efficiency_between(model: PropertyModel, inlet: Point, outlet_ent
 
     Raises
     ------
+    PropertyRangeError
+        If even the most efficient trial path leaves the property range (a trial whose path
+        leaves it is otherwise followed by a more efficient one).
     StagewrightError
         If the end temperature cannot be matched to 1e-7 of the temperature rise (the
         iteration aims at 1e-10 and accepts 1e-7 where the path has a kink, e.g. where
@@ -197,12 +200,20 @@ def polytropic_efficiency_between(model: PropertyModel, inlet: Point, outlet_ent
             return path
         return [inlet] + [model.at_tp(T, P, "polytropic path") for T, P in path]
     for _ in range(30):
-        if two_phase_start:
-            path = polytropic_path(model, inlet, p_out, eta)
-            T_end = path[-1].T
-        else:
-            path = _path_nodes(model, inlet, p_out, eta)
-            T_end = path[-1][0]
+        try:
+            if two_phase_start:
+                path = polytropic_path(model, inlet, p_out, eta)
+                T_end = path[-1].T
+            else:
+                path = _path_nodes(model, inlet, p_out, eta)
+                T_end = path[-1][0]
+        except PropertyRangeError:
+            # a trial efficiency too low for a discharge near the top of the property range: its
+            # path leaves the range before the discharge pressure; the answer is more efficient
+            if eta >= 1.5:
+                raise
+            prev, eta = None, min(1.5, 1.05 * eta)
+            continue
         miss = abs(T_end - target.T)
         if best is None or miss < best[0]:
             best = (miss, eta, path)
