@@ -121,3 +121,17 @@ def test_measured_discharge_near_the_top_of_the_property_range(ratio):
     for model in ("real_gas", "ideal_gas"):
         doc["fluid"]["model"] = model
         assert 0.1 < thermo.solve(doc).stages[0].polytropic_efficiency < 0.7
+
+
+@pytest.mark.parametrize("model", ["real_gas", "ideal_gas"])
+def test_casing_loss_that_cools_below_the_property_range_is_named(model):
+    # a fuzz finding: the discharge state's Newton search converged onto the model's 200 K bound
+    # and returned it as if it were the answer; the root lies beyond the range, so the user must
+    # get the stage and the reason, not a state pinned at the bound
+    from thermo.errors import PropertyRangeError
+    doc = {"site": {"ambient_temperature_K": 315.0, "barometric_pressure_Pa": 1e5}, "fluid": {"model": model},
+           "flow": {"kind": "mass", "value": 1.0}, "discharge_pressure_Pa": 6e5,
+           "stages": [{"efficiency": {"kind": "isentropic", "value": 0.9}, "heat_loss_W": 4.0e5,
+                       "heat_loss_boundary_temperature_K": 200.0}]}
+    with pytest.raises(PropertyRangeError, match=r"stages\[0\] discharge.*outside the property range"):
+        thermo.solve(doc, detail=False)

@@ -194,6 +194,7 @@ def polytropic_efficiency_between(model: PropertyModel, inlet: Point, outlet_ent
     best = None  # (|miss| [K], eta, path): a path with a kink (liquid evaporating) may stall
     start = getattr(model, "polytropic_path_start", None)
     two_phase_start = start is not None and inlet.wl > 0.0
+    fail_below = 0.0  # trial efficiencies at or below this left the property range
 
     def states(path):  # trial paths are kept as their RK4 nodes; states only for the answer
         if two_phase_start:
@@ -209,10 +210,13 @@ def polytropic_efficiency_between(model: PropertyModel, inlet: Point, outlet_ent
                 T_end = path[-1][0]
         except PropertyRangeError:
             # a trial efficiency too low for a discharge near the top of the property range: its
-            # path leaves the range before the discharge pressure; the answer is more efficient
-            if eta >= 1.5:
+            # path leaves the range before the discharge pressure; the answer is more efficient:
+            # halve the way to the best trial that stayed in range (or to the largest allowed)
+            fail_below = max(fail_below, eta)
+            nxt = 0.5 * (eta + (best[1] if best is not None and best[1] > eta else 1.5))
+            if nxt - eta <= 1e-9 * eta:
                 raise
-            prev, eta = None, min(1.5, 1.05 * eta)
+            prev, eta = None, nxt
             continue
         miss = abs(T_end - target.T)
         if best is None or miss < best[0]:
@@ -235,8 +239,10 @@ def polytropic_efficiency_between(model: PropertyModel, inlet: Point, outlet_ent
             nxt = eta - f * (eta - prev[0]) / (f - prev[1])
         if abs(nxt - eta) <= 1e-14 * eta:
             break
+        if nxt <= fail_below:  # back towards efficiencies already found too low
+            nxt = 0.5 * (fail_below + eta)
         prev, eta = (eta, f, path), min(1.5, max(0.02, nxt))
-    if best[0] <= 1e-7 * (target.T - inlet.T):  # a reported figure: 1e-7 is ample
+    if best is not None and best[0] <= 1e-7 * (target.T - inlet.T):  # a reported figure: 1e-7 is ample
         return best[1], states(best[2])
     raise StagewrightError(
         f"no polytropic efficiency reproduces the discharge enthalpy {outlet_enthalpy:.6g} J/kg "

@@ -90,7 +90,7 @@ def stage_pressure_ratios(p_in: float, p_delivery: float, given: list, cooler_dr
 
 
 def _newton_ratio(p_in: float, p_delivery: float, given: list, cooler_drops: list[float]):
-    """The shared ratio by Newton's method [1]_ from the geometric split, or None if it strays.
+    r"""The shared ratio by Newton's method [1]_ from the geometric split, or None if it strays.
 
     The delivered pressure and its derivative in r follow from the same recurrence,
     :math:`p_{k+1} = p_k r_k - \Delta p_k`, :math:`p'_{k+1} = p'_k r_k + p_k [k \text{ free}]`;

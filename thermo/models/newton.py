@@ -60,11 +60,12 @@ def invert_temperature(value_and_slope: Callable[[float], tuple[float, float]], 
         if not (lo <= T_new <= hi):
             T_new = 0.5 * (lo + hi)
         if abs(T_new - T) < tol_K:
-            return T_new
+            T = T_new
+            break
         T = T_new
         if hi - lo < tol_K:
             break
-    if T <= T_MIN + 1e-6 or T >= T_MAX - 1e-6:
+    if T <= T_MIN + 1e-6 or T >= T_MAX - 1e-6:  # converged onto a bound: the root lies beyond it
         raise PropertyRangeError(
             f"{where}: the {what} asked for lies outside the property range "
             f"{T_MIN:g} K … {T_MAX:g} K", where)
@@ -110,7 +111,9 @@ def invert_to_state(evaluate: Callable[[float], tuple], target: float, T_guess: 
             lo = T
         step = r / dfdT
         if abs(step) < tol_K:
-            return T, state
+            if T_MIN + 1e-6 < T < T_MAX - 1e-6:
+                return T, state
+            break  # converged onto a bound: the root lies beyond it
         T_new = T - step
         if not (lo <= T_new <= hi):
             T_new = 0.5 * (lo + hi)
