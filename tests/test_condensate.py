@@ -94,3 +94,24 @@ def test_condensate_and_carry_over_are_reported_as_messages_with_their_field():
     drained = r["stages"][0]["cooler"]["drained_kg_s"] * 3600.0
     assert any(f"drains {drained:.2f} kg/h of condensate" in w["message"] for w in by_field)
     assert any("passes the intercooler 1's separator into stage 2" in w["message"] for w in by_field)
+
+
+@pytest.mark.parametrize("model_name", ["real_gas", "ideal_gas"])
+def test_dew_point_on_a_cooling_line_saturates_the_stream(model_name):
+    # at the dew point the saturation humidity ratio at the line's pressure equals the stream's
+    # water (ASHRAE Handbook — Fundamentals 2017, ch. 1, eq. (23) with the enhancement factor of
+    # RP-1485 for real gas); the secant iteration must find it to 1e-9 K
+    from thermo.condensate import line_dew_point
+    from thermo.humid import MoistAir
+    from thermo.models import make_model
+    from thermo.train import mixture_for
+    model = MoistAir(mixture_for(make_model({"model": model_name})), 0.012)
+    t_in, t_out, p_in, p_out = 420.0, 303.0, 4.0e5, 3.8e5
+
+    def p_at(T):
+        return p_out + (T - t_out) / (t_in - t_out) * (p_in - p_out)
+    T = line_dew_point(model, t_in, t_out, p_at)
+    assert t_out < T < t_in
+    ws = model.mixture.saturation_ratio
+    assert ws(T, p_at(T)) == pytest.approx(0.012, rel=1e-10)
+    assert ws(T - 1e-6, p_at(T - 1e-6)) < 0.012 < ws(T + 1e-6, p_at(T + 1e-6))

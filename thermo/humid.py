@@ -16,7 +16,7 @@ from .errors import InputError
 from .models.base import Point, check_range
 from .models.newton import invert_to_state
 from .moist_mixture import MoistMixture
-from .saturation import T_IF97_MIN
+from .saturation import T_CRITICAL, T_IF97_MIN, saturation_pressure
 
 _LIQUID_NEGLIGIBLE = 1e-9  # liquid share (of the stream's water) treated as none on a path
 _DT = 1e-3  # central-difference step in T for two-phase derivatives, [K]
@@ -73,6 +73,7 @@ class MoistAir:
 
     def __init__(self, mixture: MoistMixture, water: float):
         self.mixture = mixture
+        self._dry_T, self._dry_P_limit = math.inf, 0.0  # see split()
         self.dry = mixture.dry
         self.name = mixture.name
         self.water = water
@@ -82,10 +83,20 @@ class MoistAir:
 
     # ---- equilibrium -------------------------------------------------------------------------
     def split(self, T: float, P: float) -> tuple[float, float]:
-        """(vapour, liquid) per dry air [kg/kg] at equilibrium."""
+        """(vapour, liquid) per dry air [kg/kg] at equilibrium.
+
+        A state at least as hot as one already found surely unsaturated, at a pressure below
+        the one at which that state's vapour pressure would saturate the stream, is unsaturated
+        too (p_ws grows with T): the saturation pressure need not be evaluated again. Along a
+        compression path that answers almost every slope evaluation."""
         W = self.water
+        if T >= self._dry_T and P < self._dry_P_limit:
+            return W, 0.0
         mix = self.mixture
         if mix.surely_unsaturated(T, P, W):
+            if T < T_CRITICAL and W > 0.0:
+                self._dry_T = T
+                self._dry_P_limit = 0.999 * saturation_pressure(T) * (mix.epsilon + W) / W
             return W, 0.0
         ws = mix.saturation_ratio(T, P)
         return (W, 0.0) if W <= ws else (ws, W - ws)
@@ -155,7 +166,7 @@ class MoistAir:
         of rounding size would otherwise put the latent heat into a finite-difference cp
         and make the path jump.
         """
-        _, _, v, cp, hp = self.mixture.gas(T, P, self.water, True)
+        v, cp, hp = self.mixture.gas_slope_terms(T, P, self.water)
         return P * (v / efficiency - hp) / cp
 
     def _h_saturated(self, T: float, P: float) -> float:

@@ -259,6 +259,31 @@ class MoistMixture:
         return (hw, sw, cpw, ca * v_aa + cw * v_aw + cww * v_ww, ca * d_aa + cw * d_aw + cww * d_ww,
                 ca * t_aa + cw * t_aw + cww * t_ww)
 
+    def gas_slope_terms(self, T: float, P: float, w: float):
+        """(v, cp, (∂h/∂p)_T) of the gas phase, per kg dry air: :meth:`gas` without h and s,
+        the same arithmetic (a polytropic path's slope needs only these)."""
+        dry_terms = getattr(self.dry, "slope_terms", None)
+        if self._fused is None or w <= 0.0 or dry_terms is None:
+            _, _, v, cp, hp = self.gas(T, P, w, True)
+            return v, cp, hp
+        v_a, cp_a, hp_a = dry_terms(T, P)
+        x_w = w / (self.epsilon + w)
+        x_a = 1.0 - x_w
+        hc, sc, aa, aw, ww = self._fused
+        x = (T - _T_LO) / _STEP
+        i = min(max(int(x), 0), len(hc) - 1)
+        t = x - i
+        _, b, c, e = hc[i]
+        cpw = (b + t * (2.0 * c + 3.0 * e * t)) / _STEP
+        ca, cw, cww = -self.n_a * x_w, 2.0 * self.n_a * x_w, self.n_a * x_w * x_w / x_a
+        ss = _STEP * _STEP
+        d = d_t = d_tt = 0.0
+        for (a, b, c, e), k in ((aa[i], ca), (aw[i], cw), (ww[i], cww)):
+            d += k * (a + t * (b + t * (c + t * e)))
+            d_t += k * ((b + t * (2.0 * c + 3.0 * e * t)) / _STEP)
+            d_tt += k * ((2.0 * c + 6.0 * e * t) / ss)
+        return v_a + w * self.R_w * T / P + d, cp_a + w * cpw - P * T * d_tt, hp_a + d - T * d_t
+
     def gas(self, T: float, P: float, w: float, slope: bool = True):
         """Gas phase with vapour content w [kg/kg]: (h [J/kg], s [J/(kg K)], v [m³/kg], cp, (∂h/∂p)_T), per kg dry air.
 

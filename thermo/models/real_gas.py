@@ -85,6 +85,12 @@ class RealGasAir:
         hp = st.first_partial_deriv(cpa.iHmass, cpa.iP, cpa.iT) if slope else 0.0
         return st.hmass(), st.smass(), 1.0 / st.rhomass(), st.cpmass(), hp
 
+    def slope_terms(self, T: float, P: float) -> tuple:
+        """v, cp and (∂h/∂p)_T at T [K], P [Pa]: the part of :meth:`terms` a path slope needs."""
+        self._set(T, P, "moist-air state")
+        st = self._state
+        return 1.0 / st.rhomass(), st.cpmass(), st.first_partial_deriv(cpa.iHmass, cpa.iP, cpa.iT)
+
     def polytropic_slope(self, T: float, P: float, efficiency: float) -> float:
         self._set(T, P, "polytropic path")
         st = self._state
