@@ -20,6 +20,7 @@ __all__ = ["FittingLayoutEngine", "install", "wrap_lines"]
 
 import re
 import textwrap
+import warnings
 
 from matplotlib.layout_engine import ConstrainedLayoutEngine
 
@@ -108,11 +109,13 @@ class FittingLayoutEngine(ConstrainedLayoutEngine):
     """Constrained layout, then titles and x tick labels fitted to the width, then again."""
 
     def execute(self, fig):
-        super().execute(fig)
-        renderer = fig._get_renderer()  # the renderer matplotlib's own layout measures with
-        for ax in fig.axes:
-            _fit_ticks(ax, renderer)
-        super().execute(fig)  # axes placed for the tick labels' height before titles are measured
+        with warnings.catch_warnings():  # a figure too small to lay out is said once, by the last pass
+            warnings.filterwarnings("ignore", message="constrained_layout not applied")
+            super().execute(fig)
+            renderer = fig._get_renderer()  # the renderer matplotlib's own layout measures with
+            for ax in fig.axes:
+                _fit_ticks(ax, renderer)
+            super().execute(fig)  # axes placed for the tick labels' height before titles are measured
         for ax in fig.axes:
             for text in _titles(ax):
                 _fit_title(text, renderer, fig)
