@@ -1,4 +1,6 @@
 """Year-at-site chart: bars and line carry the year run's own figures, in the display units."""
+import math
+
 import pytest
 from matplotlib.backends.backend_agg import FigureCanvasAgg
 from matplotlib.figure import Figure
@@ -50,3 +52,54 @@ def test_us_units_and_empty_year(year):
     assert line.get_ydata()[0] == pytest.approx((year["bins"][0]["max_discharge_temperature_K"]) * 9 / 5 - 459.67)
     empty = draw_year_chart(_fig(), {"bins": [], "totals": {}})
     assert not _patches(empty, "year-") and any("No year run" in t.get_text() for ax in empty.axes for t in ax.texts)
+
+
+def _title_texts(ax):
+    from matplotlib.text import Text
+    full = ax.get_title(loc="left")
+    return [c for c in ax.get_children() if isinstance(c, Text) and full and c.get_text() == full]
+
+
+@pytest.mark.parametrize("system", ["SI", "US"])
+@pytest.mark.parametrize("size_px", [(320, 200), (480, 300), (1200, 700)])
+def test_titles_and_labels_lie_inside_the_figure(year, system, size_px):
+    # 320 px is the panel's narrowest chart area; every title, axis label and tick label must be
+    # drawn inside the figure, and neighbouring month labels must not run into each other
+    w, h = size_px
+    fig = Figure(figsize=(w / 100, h / 100), dpi=100)
+    FigureCanvasAgg(fig)
+    draw_year_chart(fig, year, system, limit_K=473.15)
+    fig.canvas.draw()
+    renderer = fig.canvas.get_renderer()
+    box = fig.bbox
+    titles = [t for ax in fig.axes for t in _title_texts(ax)]
+    assert len(titles) == 3
+    texts = titles + [ax.yaxis.label for ax in fig.axes]
+    ticks = [t for t in fig.axes[-1].get_xticklabels() if t.get_visible() and t.get_text()]
+    assert len(ticks) == 12
+    for t in texts + ticks:
+        e = t.get_window_extent(renderer)
+        assert box.x0 <= e.x0 and e.x1 <= box.x1 and box.y0 <= e.y0 and e.y1 <= box.y1, t.get_text()
+    rotation = ticks[0].get_rotation()
+    if rotation == 0.0:
+        spans = sorted((t.get_window_extent(renderer) for t in ticks), key=lambda e: e.x0)
+        assert all(a.x1 <= b.x0 for a, b in zip(spans, spans[1:]))
+    else:  # turned labels: parallel lines one tick apart must be at least a text height apart
+        step = fig.axes[-1].transData.transform((1, 0))[0] - fig.axes[-1].transData.transform((0, 0))[0]
+        height = ticks[0].get_fontsize() * fig.dpi / 72.0
+        assert step * math.sin(math.radians(rotation)) >= height
+
+
+def test_fitting_keeps_the_words_and_gives_them_back_when_wide(year):
+    fig = Figure(figsize=(3.2, 2.0), dpi=100)
+    FigureCanvasAgg(fig)
+    draw_year_chart(fig, year)
+    full = [ax.get_title(loc="left") for ax in fig.axes]
+    assert full[0].startswith("Energy per bin (year: ") and "\n" not in full[0]
+    fig.canvas.draw()
+    narrow = [ax.get_title(loc="left") for ax in fig.axes]
+    assert [" ".join(t.split()) for t in narrow] == full  # same words, at most other line breaks
+    fig.set_size_inches(9.0, 6.0)
+    fig.canvas.draw()
+    assert [ax.get_title(loc="left") for ax in fig.axes] == full
+    assert fig.axes[-1].get_xticklabels()[0].get_rotation() == 0.0

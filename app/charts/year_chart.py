@@ -4,7 +4,8 @@ Built on a plain matplotlib ``Figure`` (no Qt, no pyplot) from ``YearResult.to_d
 (:func:`thermo.year.run_year`): three panels sharing the bin axis — energy per bin
 (bars, gid ``"year-energy-<i>"``), condensate drained per bin (bars, ``"year-condensate-<i>"``)
 and the highest stage discharge temperature of the bin (line ``"year-discharge"``), with the
-worst bin marked (``"year-worst"``).
+worst bin marked (``"year-worst"``). Titles and month labels are fitted to the figure's width
+at every draw (:mod:`app.charts.fit_layout`).
 """
 from __future__ import annotations
 
@@ -13,7 +14,7 @@ __all__ = ["draw_year_chart"]
 from matplotlib.figure import Figure
 
 from .. import units
-from . import style
+from . import fit_layout, style
 
 _MONTHS = ("January", "February", "March", "April", "May", "June", "July", "August", "September", "October",
            "November", "December")
@@ -40,6 +41,7 @@ def draw_year_chart(fig: Figure, year: dict, system: str = "SI", limit_K: float 
         The same figure.
     """
     style.prepare(fig)
+    fit_layout.install(fig)  # titles and month labels fit a narrow panel (wrapped or smaller, same words)
     bins = year.get("bins") or []
     ax_e, ax_w, ax_t = fig.subplots(3, 1, sharex=True)
     if not bins:

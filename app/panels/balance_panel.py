@@ -6,7 +6,8 @@ banner that says they are out of date.
 """
 from __future__ import annotations
 
-__all__ = ["BalancePanel", "POINT_COLUMNS", "COMPONENT_COLUMNS", "TOTALS", "MOIST_TOTALS"]
+__all__ = ["BalancePanel", "POINT_COLUMNS", "COMPONENT_COLUMNS", "TOTALS", "MOIST_TOTALS", "TOTAL_TIPS",
+           "NEGATIVE_TIPS"]
 
 from PySide6.QtCore import Qt
 from PySide6.QtGui import QBrush, QColor
@@ -76,6 +77,17 @@ TOTALS = [
 #: totals shown only for moist intake air
 MOIST_TOTALS = ("condensate_kg_s", "delivered_pressure_dew_point_K", "delivered_atmospheric_dew_point_K",
                 "iso8573_humidity_class")
+#: tooltips of the totals' labels: what the figure is
+TOTAL_TIPS = {
+    "heat_exergy_W": "Exergy carried away by the heat the train rejects: Q\u00b7(1 \u2212 T0/Tb) for heat Q leaving "
+                     "at boundary temperature Tb, with T0 the site ambient. Heat rejected at ambient carries none.",
+}
+#: tooltips of the totals' values when negative: why that is not an error
+NEGATIVE_TIPS = {
+    "heat_exergy_W": "Negative because heat leaves below the site ambient temperature (a coolant colder than "
+                     "ambient). Heat rejected below ambient carries negative exergy: the cold coolant gives "
+                     "exergy to the train rather than receiving any, so this is expected, not an error.",
+}
 
 
 def is_moist(r: dict) -> bool:
@@ -154,14 +166,23 @@ class BalancePanel(QWidget):
     # ---- reading (tests and reports) -------------------------------------------------------
     def value_text(self, table: str, row_key: str, column: str) -> str:
         """Shown text of a cell: ``value_text("components", "stage-2", "power")``."""
+        return self._item(table, row_key, column).text()
+
+    def tool_tip(self, table: str, row_key: str, column: str) -> str:
+        """Tooltip of a cell; ``column`` ``"label"`` is a row's label (``tool_tip("totals", key, "label")``)."""
+        return self._item(table, row_key, column).toolTip()
+
+    def _item(self, table: str, row_key: str, column: str) -> QTableWidgetItem:
         t = getattr(self, table)
         row = self._row_keys[table].index(row_key)
-        if table == "totals":
+        if column == "label":
+            col = 0
+        elif table == "totals":
             col = 1
         else:
             cols = POINT_COLUMNS if table == "points" else COMPONENT_COLUMNS
             col = 1 + [c[0] for c in cols].index(column)
-        return t.item(row, col).text()
+        return t.item(row, col)
 
     def row_keys(self, table: str) -> list[str]:
         return list(self._row_keys[table])
@@ -300,11 +321,13 @@ class BalancePanel(QWidget):
                 text = "—" if v is None else str(v)
             else:
                 text = units.format_value(v, q, system, with_unit=True)
-            self._set(self.totals, row, 0, label, left=True)
-            self._set(self.totals, row, 1, text)
+            self._set(self.totals, row, 0, label, left=True).setToolTip(TOTAL_TIPS.get(key, ""))
+            negative = isinstance(v, (int, float)) and v < 0.0
+            self._set(self.totals, row, 1, text).setToolTip(NEGATIVE_TIPS.get(key, "") if negative else "")
 
     @staticmethod
-    def _set(table: QTableWidget, row: int, col: int, text: str, left: bool = False, bold: bool = False) -> None:
+    def _set(table: QTableWidget, row: int, col: int, text: str, left: bool = False,
+             bold: bool = False) -> QTableWidgetItem:
         item = table.item(row, col)
         if item is None:
             item = QTableWidgetItem()
