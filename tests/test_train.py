@@ -325,3 +325,31 @@ def test_flow_from_shaft_power_equals_the_solve_at_its_mass_flow(heat_loss):
     doc["flow"] = {"kind": "mass", "value": res.mass_flow_kg_s}
     again = thermo.solve(doc)
     assert res.to_dict() == again.to_dict()
+
+
+def test_remembered_intake_states_follow_every_site_input():
+    # consistency check of the intake memo (sweeps and studies solve many trains at one site):
+    # alternating humidity inputs at the same ambient and pressure must give exactly the results
+    # of a fresh model each time — a memo keyed too loosely would hand one site's water to another
+    from thermo.document import normalise
+    from thermo.models import make_model
+    from thermo.train import solve_train
+
+    def doc(site_humidity):
+        return {"site": {"ambient_temperature_K": 300.0, "barometric_pressure_Pa": 1e5, **site_humidity},
+                "fluid": {"model": "real_gas"}, "flow": {"kind": "mass", "value": 1.0}, "discharge_pressure_Pa": 7e5,
+                "inlet_pressure_drop_Pa": 800.0,
+                "stages": [{"efficiency": {"kind": "isentropic", "value": 0.8},
+                            "cooler": {"outlet_temperature_K": 305.0}} for _ in range(2)]}
+    cases = [{"humidity_ratio": 0.005}, {"humidity_ratio": 0.012}, {"dew_point_K": 290.0},
+             {"relative_humidity": 0.5}, {"humidity_ratio": 0.005}, {"relative_humidity": 0.0}]
+    shared = make_model({"model": "real_gas"})
+    for humidity in cases:
+        norm = normalise(doc(humidity))
+        a = solve_train(norm, shared, 1.0, detail=False)
+        b = solve_train(norm, make_model({"model": "real_gas"}), 1.0, detail=False)
+        assert a.shaft_power_W == b.shaft_power_W, humidity
+        assert a.inlet.outlet == b.inlet.outlet and a.dead == b.dead, humidity
+        assert (a.water is None) == (b.water is None)
+        if a.water is not None:
+            assert a.water.condensate_kg_s == b.water.condensate_kg_s
