@@ -18,7 +18,7 @@ from thermo.schema_types import Items, Num, Obj, Variant
 from thermo.year_profile import MONTH_NAMES
 
 from . import units
-from .doc_paths import get_in, parse_path
+from .doc_paths import format_path, get_in, parse_path
 
 
 @dataclass(frozen=True)
@@ -123,7 +123,10 @@ def _where(path: str, doc: dict) -> str:
     if tokens and tokens[0] == "site":
         return "site"
     if len(tokens) >= 4 and tokens[:2] == ["year", "profile"] and isinstance(tokens[3], int):
-        return MONTH_NAMES[tokens[3]] if tokens[2] == "months" and tokens[3] < 12 else f"bin {tokens[3] + 1}"
+        if tokens[2] == "months" and tokens[3] < 12:
+            return MONTH_NAMES[tokens[3]]
+        name = get_in(doc, format_path(tokens[:4]) + ".label", "")
+        return f"bin {tokens[3] + 1}" + (f" ({name})" if isinstance(name, str) and name else "")
     return ""
 
 

@@ -62,6 +62,7 @@ class YearPanel(QWidget):
         self.split = QSplitter(Qt.Horizontal)
         self.table = QTableWidget(0, len(YEAR_COLUMNS))
         self.table.verticalHeader().setVisible(False)
+        self.table.verticalHeader().setDefaultSectionSize(self.table.fontMetrics().height() + 8)
         self.table.setEditTriggers(QTableWidget.NoEditTriggers)
         self.split.addWidget(self.table)
         self.chart_box = QWidget()
