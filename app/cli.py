@@ -6,6 +6,8 @@
     stagewright check FILE|FOLDER …            validate project files
     stagewright year PROJECT.json … [--json]   a year at the site: annual energy, cost, condensate
     stagewright study PROJECT --max-stages N   staging options side by side (see app/study_cli.py)
+    stagewright sweep PROJECT --axis FIELD=START:STOP:N …
+                                               a grid of input values, one CSV row per point
     stagewright report FILE|FOLDER … [-o OUT] [--csv [OUT.csv]] [--units SI|US]
                                                PDF (and CSV) reports
 
@@ -99,6 +101,11 @@ def _study(args) -> int:
     return run(args)
 
 
+def _sweep(args) -> int:
+    from .sweep_cli import run
+    return run(args)
+
+
 def _report(args) -> int:
     from .report.batch import run_report
     return run_report(args, expand_paths)
@@ -149,7 +156,8 @@ def _report_arguments(p: argparse.ArgumentParser) -> None:
     add_arguments(p)
 
 
-SUBCOMMANDS = {"solve": _solve, "check": _check, "report": _report, "study": _study, "year": _year}
+SUBCOMMANDS = {"solve": _solve, "check": _check, "report": _report, "study": _study, "year": _year,
+               "sweep": _sweep}
 
 #: sub-command -> function adding its own options to its parser
 SUBCOMMAND_OPTIONS = {"solve": _solve_arguments, "report": _report_arguments, "year": _solve_arguments}
@@ -159,6 +167,9 @@ def _headless_parser(name: str) -> argparse.ArgumentParser:
     if name == "study":
         from .study_cli import build_parser
         return build_parser()
+    if name == "sweep":
+        from .sweep_cli import build_parser as sweep_parser
+        return sweep_parser()
     p = argparse.ArgumentParser(prog=f"stagewright {name}")
     p.add_argument("files", nargs="+", help="project files or folders of them")
     SUBCOMMAND_OPTIONS.get(name, lambda _: None)(p)

@@ -114,6 +114,18 @@ def test_pdf_title_block_charts_and_cautions(path, si_reports, capsys):
     assert "Staging comparison" not in text  # no study was run
 
 
+@pytest.mark.parametrize("path", SAMPLE_FILES, ids=lambda p: p.stem)
+def test_negative_heat_exergy_is_explained_in_the_report(path, si_reports, capsys):
+    # heat rejected below the ambient temperature carries negative exergy, Q(1 − T0/Tb) < 0
+    # (Bejan, Tsatsaronis & Moran, Thermal Design and Optimization, 1996, §3.2): the report says
+    # so where the figure is negative, and only there
+    from app.result_notes import NEGATIVE_TIPS
+    r = _solve_json(path, capsys)
+    flat = _flat(_pdf_text(si_reports[path][0])[0])
+    note = _flat(NEGATIVE_TIPS["heat_exergy_W"])[1:]  # the report lower-cases its first letter
+    assert (note in flat) == (r["heat_exergy_W"] < 0.0)
+
+
 def test_us_report_prints_us_units(tmp_path, capsys):
     path = SAMPLE_FILES[0]
     r = _solve_json(path, capsys)

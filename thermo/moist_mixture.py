@@ -236,7 +236,7 @@ class MoistMixture:
     def _fused_terms(self, T: float, x_w: float, x_a: float):
         """h°, s°, cp° of the vapour and (D, dD/dT, d²D/dT²) from one grid index: the same
         arithmetic as ``vapour(T)`` and :meth:`_virial_terms`, without their per-column tuples."""
-        hc, sc, aa, aw, ww = self._fused
+        hc, sc = self._fused[:2]
         x = (T - _T_LO) / _STEP
         i = min(max(int(x), 0), len(hc) - 1)
         t = x - i
@@ -245,19 +245,19 @@ class MoistMixture:
         cpw = (b + t * (2.0 * c + 3.0 * e * t)) / _STEP
         a, b, c, e = sc[i]
         sw = a + t * (b + t * (c + t * e))
+        return (hw, sw, cpw, *self._fused_virial(i, t, x_w, x_a))
+
+    def _fused_virial(self, i: int, t: float, x_w: float, x_a: float):
+        """(D, dD/dT, d²D/dT²) at grid interval i, fraction t (see :meth:`_fused_terms`)."""
+        _, _, aa, aw, ww = self._fused
         ca, cw, cww = -self.n_a * x_w, 2.0 * self.n_a * x_w, self.n_a * x_w * x_w / x_a
         ss = _STEP * _STEP
-        a, b, c, e = aa[i]
-        v_aa, d_aa, t_aa = a + t * (b + t * (c + t * e)), (b + t * (2.0 * c + 3.0 * e * t)) / _STEP, (
-            2.0 * c + 6.0 * e * t) / ss
-        a, b, c, e = aw[i]
-        v_aw, d_aw, t_aw = a + t * (b + t * (c + t * e)), (b + t * (2.0 * c + 3.0 * e * t)) / _STEP, (
-            2.0 * c + 6.0 * e * t) / ss
-        a, b, c, e = ww[i]
-        v_ww, d_ww, t_ww = a + t * (b + t * (c + t * e)), (b + t * (2.0 * c + 3.0 * e * t)) / _STEP, (
-            2.0 * c + 6.0 * e * t) / ss
-        return (hw, sw, cpw, ca * v_aa + cw * v_aw + cww * v_ww, ca * d_aa + cw * d_aw + cww * d_ww,
-                ca * t_aa + cw * t_aw + cww * t_ww)
+        d = d_t = d_tt = 0.0
+        for (a, b, c, e), k in ((aa[i], ca), (aw[i], cw), (ww[i], cww)):
+            d += k * (a + t * (b + t * (c + t * e)))
+            d_t += k * ((b + t * (2.0 * c + 3.0 * e * t)) / _STEP)
+            d_tt += k * ((2.0 * c + 6.0 * e * t) / ss)
+        return d, d_t, d_tt
 
     def gas_slope_terms(self, T: float, P: float, w: float):
         """(v, cp, (∂h/∂p)_T) of the gas phase, per kg dry air: :meth:`gas` without h and s,
@@ -268,20 +268,13 @@ class MoistMixture:
             return v, cp, hp
         v_a, cp_a, hp_a = dry_terms(T, P)
         x_w = w / (self.epsilon + w)
-        x_a = 1.0 - x_w
-        hc, sc, aa, aw, ww = self._fused
+        hc = self._fused[0]
         x = (T - _T_LO) / _STEP
         i = min(max(int(x), 0), len(hc) - 1)
         t = x - i
         _, b, c, e = hc[i]
         cpw = (b + t * (2.0 * c + 3.0 * e * t)) / _STEP
-        ca, cw, cww = -self.n_a * x_w, 2.0 * self.n_a * x_w, self.n_a * x_w * x_w / x_a
-        ss = _STEP * _STEP
-        d = d_t = d_tt = 0.0
-        for (a, b, c, e), k in ((aa[i], ca), (aw[i], cw), (ww[i], cww)):
-            d += k * (a + t * (b + t * (c + t * e)))
-            d_t += k * ((b + t * (2.0 * c + 3.0 * e * t)) / _STEP)
-            d_tt += k * ((2.0 * c + 6.0 * e * t) / ss)
+        d, d_t, d_tt = self._fused_virial(i, t, x_w, 1.0 - x_w)
         return v_a + w * self.R_w * T / P + d, cp_a + w * cpw - P * T * d_tt, hp_a + d - T * d_t
 
     def gas(self, T: float, P: float, w: float, slope: bool = True):
@@ -368,15 +361,17 @@ class MoistMixture:
         :math:`h_l = h_w^\circ - R_w T^2\,\partial\ln(f p_{ws})/\partial T + \mu_v - T\,\partial\mu_v/\partial T`;
         only the two small terms are differentiated numerically (central differences).
         """
-        key = (T, P)
+        return self._remembered((T, P), self._liquid, T, P)
+
+    def _remembered(self, key: tuple, compute, *args):
+        """``compute(*args)``, kept under ``key`` among the last few condensed-water answers."""
         memo = self._liquid_memo
         hit = memo.get(key)
-        if hit is not None:
-            return hit
-        if len(memo) >= 16:
-            memo.clear()
-        memo[key] = out = self._liquid(T, P)
-        return out
+        if hit is None:
+            if len(memo) >= 16:
+                memo.clear()
+            hit = memo[key] = compute(*args)
+        return hit
 
     def _liquid(self, T: float, P: float):
         d = _DT_LIQUID
@@ -399,15 +394,11 @@ class MoistMixture:
         """Specific volume of condensed water ∂g_l/∂p, [m³/kg] (0 for the ideal mixtures)."""
         if not self.uses_enhancement and self.virial is None:
             return 0.0
-        key = (T, P, "v")  # kept with the liquid's h and s: asked for at the same (T, p)
-        memo = self._liquid_memo
-        v = memo.get(key)
-        if v is None:
-            if len(memo) >= 16:
-                memo.clear()
-            dp = 1e-4 * P
-            v = memo[key] = (self.liquid_gibbs(T, P + dp) - self.liquid_gibbs(T, P - dp)) / (2.0 * dp)
-        return v
+        return self._remembered((T, P, "v"), self._liquid_volume, T, P)  # asked for with h_l, s_l
+
+    def _liquid_volume(self, T: float, P: float) -> float:
+        dp = 1e-4 * P
+        return (self.liquid_gibbs(T, P + dp) - self.liquid_gibbs(T, P - dp)) / (2.0 * dp)
 
     # ---- psychrometric quantities ---------------------------------------------------------
     def relative_humidity(self, T: float, P: float, w: float):

@@ -57,7 +57,8 @@ def _intake_states(norm: dict, dry_model: PropertyModel, mass_flow: float):
     T0 = norm["site"]["ambient_temperature_K"]
     P0 = site_pressure(norm)
     model, mixture, W0 = intake_model(norm, dry_model)
-    key = (id(model), T0, P0, norm["inlet_pressure_drop_Pa"], norm["site"]["relative_humidity"])
+    # the stream model itself (not its id, which a later object could reuse) identifies the water
+    key = (model, T0, P0, norm["inlet_pressure_drop_Pa"], norm["site"]["relative_humidity"])
     memo = getattr(dry_model, "_intake_states_memo", None)
     if memo is not None and memo[0] == key:
         ambient, dead, after_filter, rh0 = memo[1]

@@ -15,6 +15,7 @@ from PySide6.QtWidgets import (QAbstractItemView, QHeaderView, QLabel, QSplitter
                                QTableWidgetItem, QVBoxLayout, QWidget)
 
 from .. import units
+from ..result_notes import NEGATIVE_TIPS, TOTAL_TIPS
 from ..doc_paths import stage_index
 
 WARNING_BG = "#fde7c4"  # a value a warning in Messages is about
@@ -77,19 +78,6 @@ TOTALS = [
 #: totals shown only for moist intake air
 MOIST_TOTALS = ("condensate_kg_s", "delivered_pressure_dew_point_K", "delivered_atmospheric_dew_point_K",
                 "iso8573_humidity_class")
-#: tooltips of the totals' labels: what the figure is
-TOTAL_TIPS = {
-    "heat_exergy_W": "Exergy carried away by the heat the train rejects: Q\u00b7(1 \u2212 T0/Tb) for heat Q leaving "
-                     "at boundary temperature Tb, with T0 the site ambient. Heat rejected at ambient carries none.",
-}
-#: tooltips of the totals' values when negative: why that is not an error
-NEGATIVE_TIPS = {
-    "heat_exergy_W": "Negative because heat leaves below the site ambient temperature (a coolant colder than "
-                     "ambient). Heat rejected below ambient carries negative exergy: the cold coolant gives "
-                     "exergy to the train rather than receiving any, so this is expected, not an error.",
-}
-
-
 def is_moist(r: dict) -> bool:
     """True when the result carries water (a humid intake)."""
     return bool(r.get("intake_humidity_ratio") or r["intake"].get("humidity_ratio"))

@@ -15,6 +15,7 @@ from thermo.document import normalise
 
 from .. import units
 from ..cautions import CAUTIONS, DEFERRAL
+from ..result_notes import negative_notes
 from ..charts import draw_power_split, draw_staging_chart, draw_ts_chart
 from .layout import Column, Pager, Table
 
@@ -305,9 +306,10 @@ def totals_table(p: Pager, result: dict, system: str) -> None:
         ["Exergy balance closure", f"{result['exergy_residual']:.2e}"],
     ]
     p.table(Table("Totals", [Column("", align="left"), Column("", align="right")], rows, header=False,
-                  note="Closure figures are the balance residuals relative to the shaft power "
-                       "(energy: shaft power − enthalpy gained − heat rejected; exergy: shaft power − "
-                       "exergy gained − destroyed − carried out with heat)."))
+                  note=" ".join(["Closure figures are the balance residuals relative to the shaft power "
+                                 "(energy: shaft power − enthalpy gained − heat rejected; exergy: shaft power − "
+                                 "exergy gained − destroyed − carried out with heat)."]
+                                + [f"Exergy carried out with heat: {n[0].lower()}{n[1:]}" for n in negative_notes(result)])))
 
 
 # ------------------------------------------------------------------------------ charts etc.
