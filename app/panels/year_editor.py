@@ -11,7 +11,7 @@ __all__ = ["YearEditor", "SCALAR_FIELDS", "KIND_CHOICES"]
 from PySide6.QtCore import Qt, Signal
 from PySide6.QtGui import QColor, QFont
 from PySide6.QtWidgets import (QComboBox, QFormLayout, QHBoxLayout, QLabel, QLineEdit, QPushButton,
-                               QStackedWidget, QTableWidget, QTableWidgetItem, QVBoxLayout, QWidget)
+                               QScrollArea, QStackedWidget, QTableWidget, QTableWidgetItem, QVBoxLayout, QWidget)
 
 from thermo.year_profile import MONTH_NAMES
 
@@ -102,6 +102,7 @@ class YearEditor(QWidget):
         lay.addWidget(self.note)
         body = QHBoxLayout()
         self.table = QTableWidget(0, len(ENTRY_COLUMNS))
+        self.table.setMinimumHeight(60)
         self.table.verticalHeader().setVisible(False)
         self.table.verticalHeader().setDefaultSectionSize(self.table.fontMetrics().height() + 8)
         self.table.setSelectionBehavior(QTableWidget.SelectRows)
@@ -131,11 +132,18 @@ class YearEditor(QWidget):
             form.addRow(lab, cell)
             edit.editingFinished.connect(lambda p=path: self._commit_field(p))
             self.fields[path] = (edit, unit, quantity)
-        body.addWidget(form_box, 0, Qt.AlignTop)
+        scroll = QScrollArea()  # the panel stays as short as the other bottom panels
+        scroll.setWidget(form_box)
+        scroll.setWidgetResizable(True)
+        scroll.setFrameShape(QScrollArea.NoFrame)
+        scroll.setHorizontalScrollBarPolicy(Qt.ScrollBarAlwaysOff)
+        scroll.setMinimumWidth(form_box.sizeHint().width() + 16)
+        body.addWidget(scroll, 0)
         lay.addLayout(body, 1)
         self.message = QLabel()
         self.message.setObjectName("editRefusal")
         self.message.setWordWrap(True)
+        self.message.hide()
         lay.addWidget(self.message)
         return page
 
@@ -194,14 +202,18 @@ class YearEditor(QWidget):
         why = refusal(self.editor.model.doc, pairs, self.editor.prefs.system)
         if why is not None:
             return self._refuse(why)
-        self.message.clear()
+        self._say("")
         changed = self.editor.set_values(pairs, text)
         if not changed:
             self.refresh()
         return changed
 
-    def _refuse(self, message: str) -> bool:
+    def _say(self, message: str) -> None:
         self.message.setText(message)
+        self.message.setVisible(bool(message))
+
+    def _refuse(self, message: str) -> bool:
+        self._say(message)
         self.refresh(keep_message=True)
         self.refused.emit(message)
         return False
@@ -225,7 +237,7 @@ class YearEditor(QWidget):
         doc = self.editor.model.doc
         year = doc.get("year")
         if not keep_message:
-            self.message.clear()
+            self._say("")
         if not year:
             self.stack.setCurrentIndex(0)
             return
