@@ -119,4 +119,6 @@ def test_undo_text_keeps_month_names_capitalised(sample):
     assert undo_text("year.profile.months[2].temperature_K", sample) == "Change March temperature"
     assert undo_text("year.load", sample) == "Change year load"
     bins = _apply(sample, profile_as(sample, "bins"))
+    assert undo_text("year.profile.bins[2].hours", bins) == "Change bin 3 (March) hours"
+    del bins["year"]["profile"]["bins"][2]["label"]
     assert undo_text("year.profile.bins[2].hours", bins) == "Change bin 3 hours"
