@@ -15,9 +15,10 @@ from dataclasses import dataclass
 from thermo.errors import Problem
 from thermo.schema import PROJECT
 from thermo.schema_types import Items, Num, Obj, Variant
+from thermo.year_profile import MONTH_NAMES
 
 from . import units
-from .doc_paths import get_in, parse_path
+from .doc_paths import format_path, get_in, parse_path
 
 
 @dataclass(frozen=True)
@@ -78,6 +79,17 @@ _SPECS = {
     "heat_recovery.approach_K": FieldSpec("heat recovery approach", "temperature_difference"),
     "heat_recovery.casing_share": FieldSpec("recovered share of casing heat", "fraction"),
     "heat_recovery.boiler_efficiency": FieldSpec("boiler efficiency", "fraction"),
+    "year.operating_hours_per_year": FieldSpec("operating hours per year", "hours"),
+    "year.load": FieldSpec("year load", "fraction"),
+    "year.energy_price_per_kWh": FieldSpec("energy price per kWh", "ratio"),
+    "year.water_price_per_m3": FieldSpec("water price per m³", "ratio"),
+    **{f"year.profile.{entries}[*].{key}": FieldSpec(label, quantity)
+       for entries in ("months", "bins")
+       for key, label, quantity in (("temperature_K", "temperature", "temperature"),
+                                    ("relative_humidity", "relative humidity", "fraction"),
+                                    ("hours", "hours", "hours"), ("load", "load", "fraction"),
+                                    ("coolant_inlet_temperature_K", "coolant inlet temperature", "temperature"),
+                                    ("label", "name", None))},
 }
 
 _INDEX = re.compile(r"\[\d+\]")
@@ -110,6 +122,11 @@ def _where(path: str, doc: dict) -> str:
         return f"stage {n}"
     if tokens and tokens[0] == "site":
         return "site"
+    if len(tokens) >= 4 and tokens[:2] == ["year", "profile"] and isinstance(tokens[3], int):
+        if tokens[2] == "months" and tokens[3] < 12:
+            return MONTH_NAMES[tokens[3]]
+        name = get_in(doc, format_path(tokens[:4]) + ".label", "")
+        return f"bin {tokens[3] + 1}" + (f" ({name})" if isinstance(name, str) and name else "")
     return ""
 
 
@@ -129,7 +146,9 @@ def describe(path: str, doc: dict) -> str:
             label = ""
     else:
         label = spec.label
-    if where.startswith("stage") or where.endswith("cooler") or where.startswith("intercooler"):
+    if path.startswith("year.profile.") and where:
+        text = f"{where} {label}"
+    elif where.startswith("stage") or where.endswith("cooler") or where.startswith("intercooler"):
         label = label.replace("cooler ", "") if "cooler" in where else label
         text = f"{where} {label}".strip()
     else:

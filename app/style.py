@@ -16,6 +16,7 @@ QDockWidget::title {{ background: #e9edf1; padding: 4px 8px; border-bottom: 1px 
 QDockWidget > QWidget {{ font-weight: normal; }}
 QLabel#sectionTitle {{ color: {ACCENT}; font-weight: 600; padding-top: 8px; }}
 QLabel#unitLabel {{ color: #52606d; }}
+QLabel#editRefusal {{ color: {PROBLEM}; }}
 QLabel#footNote {{ color: #5b6b7a; font-size: 11px; }}
 QLabel#staleBanner {{ background: #fff4e0; color: #7a4b00; border: 1px solid #f0c36d;
                       border-radius: 3px; padding: 4px 8px; }}

@@ -72,6 +72,8 @@ QUANTITIES: dict[str, tuple[Unit, Unit]] = {
     "energy": (Unit("kWh", 3.6e6, 0.0, 0), Unit("kWh", 3.6e6, 0.0, 0)),
     # condensate or cooling water collected over a period, [m³] inside
     "liquid_volume": (Unit("m³", 1.0, 0.0, 3), Unit("US gal", _GAL, 0.0, 1)),
+    # operating hours (a year's profile keeps hours, [h], as its unit)
+    "hours": (Unit("h", 1.0, 0.0, 0), Unit("h", 1.0, 0.0, 0)),
 }
 
 

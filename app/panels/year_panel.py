@@ -1,14 +1,16 @@
-"""The year-at-site panel: run the project's year profile, month by month, off the GUI thread."""
+"""The year-at-site panel: edit the project's year profile, and run it month by month (or bin
+by bin) off the GUI thread."""
 from __future__ import annotations
 
 __all__ = ["YearPanel", "YEAR_COLUMNS"]
 
 from PySide6.QtCore import Qt
 from PySide6.QtWidgets import (QHBoxLayout, QLabel, QProgressBar, QPushButton, QSplitter, QTableWidget,
-                               QTableWidgetItem, QVBoxLayout, QWidget)
+                               QTableWidgetItem, QTabWidget, QVBoxLayout, QWidget)
 
 from .. import units
 from ..year_worker import YearRunner
+from .year_editor import YearEditor
 
 #: (bin key, header, quantity, factor to SI; quantity None = plain text, "count" = whole number)
 YEAR_COLUMNS = [
@@ -25,7 +27,8 @@ YEAR_COLUMNS = [
 
 
 class YearPanel(QWidget):
-    """Runs :func:`thermo.year.run_year` on the open project and shows each bin and the chart."""
+    """Edits the project's ``year`` (Profile tab), runs :func:`thermo.year.run_year` on it and
+    shows each bin and the chart (Results tab)."""
 
     title = "Year at site"
 
@@ -49,9 +52,17 @@ class YearPanel(QWidget):
             row.addWidget(w)
         row.addWidget(self.status, 1)
         lay.addLayout(row)
+        self.tabs = QTabWidget()
+        self.tabs.setDocumentMode(True)
+        self.profile_editor = YearEditor(editor)
+        self.tabs.addTab(self.profile_editor, "Profile")
+        results = QWidget()
+        rlay = QVBoxLayout(results)
+        rlay.setContentsMargins(0, 4, 0, 0)
         self.split = QSplitter(Qt.Horizontal)
         self.table = QTableWidget(0, len(YEAR_COLUMNS))
         self.table.verticalHeader().setVisible(False)
+        self.table.verticalHeader().setDefaultSectionSize(self.table.fontMetrics().height() + 8)
         self.table.setEditTriggers(QTableWidget.NoEditTriggers)
         self.split.addWidget(self.table)
         self.chart_box = QWidget()
@@ -61,10 +72,12 @@ class YearPanel(QWidget):
         self.split.setStretchFactor(0, 1)
         self.split.setStretchFactor(1, 1)
         self.split.setChildrenCollapsible(False)
-        lay.addWidget(self.split, 1)
+        rlay.addWidget(self.split, 1)
         self.totals = QLabel()
         self.totals.setWordWrap(True)
-        lay.addWidget(self.totals)
+        rlay.addWidget(self.totals)
+        self.tabs.addTab(results, "Results")
+        lay.addWidget(self.tabs, 1)
         self.run_button.clicked.connect(self.run)
         self.cancel_button.clicked.connect(self.runner.cancel)
         self.runner.progress.connect(self._on_progress)
@@ -72,6 +85,8 @@ class YearPanel(QWidget):
         self.runner.failed.connect(self._on_failed)
         editor.prefs.changed.connect(self.refresh)
         editor.result_changed.connect(self._on_project_changed)
+        editor.model.changed.connect(lambda _path: self._on_project_changed())
+        self.profile_editor.refused.connect(lambda _m: self.tabs.setCurrentIndex(0))
         self._on_project_changed()
 
     # ---- running -------------------------------------------------------------------------
@@ -94,6 +109,7 @@ class YearPanel(QWidget):
     def _on_finished(self, _job: int, result: dict, _seconds: float) -> None:
         self.result = result
         self._idle("Year solved.")
+        self.tabs.setCurrentIndex(1)  # shown before drawing: the chart lays out at its real size
         self.refresh()
 
     def _on_failed(self, _job: int, message: str, _field: str) -> None:
@@ -108,10 +124,12 @@ class YearPanel(QWidget):
         if not self.runner.busy:
             self.run_button.setEnabled(self.has_profile())
         if not self.has_profile():
-            self.status.setText("This project has no year profile: add a \u201cyear\u201d section "
-                                "(see docs/project-format.md).")
+            self.status.setText("This project has no year profile: start one from the site "
+                                "in the Profile tab.")
         elif self.result is not None:
             self.status.setText("The project changed since this year was run: run it again.")
+        elif not self.runner.busy:
+            self.status.setText("Run the year to see each month's energy, condensate and temperatures.")
 
     # ---- showing -------------------------------------------------------------------------
     def refresh(self) -> None:
