@@ -31,6 +31,23 @@ def test_year_run_fills_one_row_per_bin_and_matches_the_core(qtbot, tmp_path):
     assert "hottest discharge" in panel.totals.text()
 
 
+def test_wide_window_gives_the_chart_the_room_the_table_does_not_need(qtbot, tmp_path):
+    # layout check (common practice, no source): in a wide window the table is sized to its
+    # columns and the chart takes the rest, instead of the table's size hint taking nearly all
+    doc = json.loads(YEAR_SAMPLE.read_text(encoding="utf-8"))
+    win = make_window(qtbot, tmp_path, doc)
+    win.resize(1920, 1080)
+    win.docks["year"].raise_()
+    panel = win.panels["year"]
+    with qtbot.waitSignal(panel.runner.finished, timeout=120_000):
+        panel.run()
+    qtbot.waitUntil(lambda: panel.split.sizes()[1] > 0, timeout=5_000)
+    table_w, chart_w = panel.split.sizes()
+    need = panel.table.horizontalHeader().length()
+    assert need <= table_w <= need + 80
+    assert chart_w > 2 * panel.chart_box.minimumWidth()
+
+
 def test_project_without_year_profile_says_so(qtbot, window):
     panel = window.panels["year"]
     assert not panel.run_button.isEnabled()

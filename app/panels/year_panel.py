@@ -157,6 +157,7 @@ class YearPanel(QWidget):
                 item.setTextAlignment((Qt.AlignLeft if q is None else Qt.AlignRight) | Qt.AlignVCenter)
                 self.table.setItem(row, col, item)
         self.table.resizeColumnsToContents()
+        self._give_chart_the_rest()
         t = self.result["totals"]
         worst = self.result["worst_discharge_temperature"]
         self.totals.setText(
@@ -165,6 +166,18 @@ class YearPanel(QWidget):
             f"hottest discharge {units.format_value(worst['temperature_K'], 'temperature', system, with_unit=True)}"
             f" in {worst['bin']}")
         self._draw(system)
+
+    def _give_chart_the_rest(self) -> None:
+        """Size the table to its columns (at most 60 % of the width) and give the chart the rest:
+        the table's size hint alone would take nearly all of a wide window."""
+        total = sum(self.split.sizes())
+        if total <= 0:
+            return
+        need = (self.table.horizontalHeader().length() + self.table.verticalScrollBar().sizeHint().width()
+                + 2 * self.table.frameWidth() + 4)
+        table = min(need, int(0.6 * total), total - self.chart_box.minimumWidth())
+        if table > 0:
+            self.split.setSizes([table, total - table])
 
     def _draw(self, system: str) -> None:
         from matplotlib.backends.backend_qtagg import FigureCanvasQTAgg
