@@ -46,29 +46,8 @@ def invert_temperature(value_and_slope: Callable[[float], tuple[float, float]], 
     .. [1] W. H. Press, S. A. Teukolsky, W. T. Vetterling, B. P. Flannery, *Numerical
        Recipes*, 3rd ed., Cambridge University Press, 2007, §9.4 (rtsafe).
     """
-    lo, hi = T_MIN, T_MAX
-    T = min(max(T_guess, lo), hi)
-    for _ in range(60):
-        f, dfdT = value_and_slope(T)
-        r = f - target
-        if r > 0:
-            hi = T
-        else:
-            lo = T
-        step = r / dfdT
-        T_new = T - step
-        if not (lo <= T_new <= hi):
-            T_new = 0.5 * (lo + hi)
-        if abs(T_new - T) < tol_K:
-            T = T_new
-            break
-        T = T_new
-        if hi - lo < tol_K:
-            break
-    if T <= T_MIN + 1e-6 or T >= T_MAX - 1e-6:  # converged onto a bound: the root lies beyond it
-        raise PropertyRangeError(
-            f"{where}: the {what} asked for lies outside the property range "
-            f"{T_MIN:g} K … {T_MAX:g} K", where)
+    T, _ = _newton(lambda T: (*value_and_slope(T), None), target, T_guess, tol_K, keep_last=False)
+    _check_inside(T, where, what)
     return T
 
 
@@ -100,6 +79,14 @@ def invert_to_state(evaluate: Callable[[float], tuple], target: float, T_guess: 
     .. [1] W. H. Press, S. A. Teukolsky, W. T. Vetterling, B. P. Flannery, *Numerical
        Recipes*, 3rd ed., Cambridge University Press, 2007, §9.4 (rtsafe).
     """
+    T, state = _newton(evaluate, target, T_guess, tol_K, keep_last=True)
+    _check_inside(T, where, what)
+    return T, (state if state is not None else evaluate(T)[2])
+
+
+def _newton(evaluate, target: float, T_guess: float, tol_K: float, keep_last: bool) -> tuple:
+    """The safeguarded Newton iteration of both inversions: (T, state of the last evaluation
+    if ``keep_last`` and it is the answer, else None)."""
     lo, hi = T_MIN, T_MAX
     T = min(max(T_guess, lo), hi)
     for _ in range(60):
@@ -110,18 +97,22 @@ def invert_to_state(evaluate: Callable[[float], tuple], target: float, T_guess: 
         else:
             lo = T
         step = r / dfdT
-        if abs(step) < tol_K:
-            if T_MIN + 1e-6 < T < T_MAX - 1e-6:
-                return T, state
-            break  # converged onto a bound: the root lies beyond it
+        if keep_last and abs(step) < tol_K:
+            return T, state
         T_new = T - step
         if not (lo <= T_new <= hi):
             T_new = 0.5 * (lo + hi)
+        if abs(T_new - T) < tol_K:
+            return T_new, None
+        T = T_new
         if hi - lo < tol_K:
             break
-        T = T_new
+    return T, None
+
+
+def _check_inside(T: float, where: str, what: str) -> None:
+    """A root on (or within 1e-6 K of) a bound of the model window lies beyond it."""
     if T <= T_MIN + 1e-6 or T >= T_MAX - 1e-6:
         raise PropertyRangeError(
             f"{where}: the {what} asked for lies outside the property range "
             f"{T_MIN:g} K … {T_MAX:g} K", where)
-    return T, evaluate(T)[2]
