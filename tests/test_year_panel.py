@@ -20,8 +20,10 @@ def test_year_run_fills_one_row_per_bin_and_matches_the_core(qtbot, tmp_path):
     win = make_window(qtbot, tmp_path, doc)
     panel = win.panels["year"]
     assert panel.run_button.isEnabled()
+    assert panel.progress.isHidden()  # no empty bar before the first run
     with qtbot.waitSignal(panel.runner.finished, timeout=120_000):
         panel.run()
+    assert not panel.progress.isHidden() and panel.progress.value() == panel.progress.maximum()
     expected = run_year(doc).to_dict()
     assert panel.table.rowCount() == len(expected["bins"]) == 12
     energy_col = [c[0] for c in YEAR_COLUMNS].index("energy_kWh")

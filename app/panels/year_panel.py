@@ -46,6 +46,7 @@ class YearPanel(QWidget):
         self.cancel_button.setEnabled(False)
         self.progress = QProgressBar()
         self.progress.setTextVisible(True)
+        self.progress.setVisible(False)  # an empty bar before the first run reads as a broken widget
         self.status = QLabel()
         self.status.setWordWrap(True)
         for w in (self.run_button, self.cancel_button, self.progress):
@@ -100,6 +101,7 @@ class YearPanel(QWidget):
         self.run_button.setEnabled(False)
         self.cancel_button.setEnabled(True)
         self.progress.setValue(0)
+        self.progress.setVisible(True)
         self.status.setText("Running…")
 
     def _on_progress(self, _job: int, done: int, total: int) -> None:
