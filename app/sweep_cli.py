@@ -19,7 +19,6 @@ from __future__ import annotations
 __all__ = ["build_parser", "run", "parse_axis"]
 
 import argparse
-import copy
 import csv
 import math
 import sys
@@ -76,24 +75,12 @@ def _reject_dead_axes(doc: dict, axes: dict) -> None:
     """An axis none of whose values gives a valid project (a misspelt field, a range wholly
     outside the schema) rejects the sweep with the first value's own message."""
     from thermo import StagewrightError
-    from thermo.doc_paths import set_path
-    from thermo.document import normalise
+    from thermo.sweep import axis_problems
 
+    bad = axis_problems(doc, axes)
     for field, values in axes.items():
-        first = None
-        for v in values:
-            trial = copy.deepcopy(doc)
-            try:
-                set_path(trial, field, v)
-                normalise(trial)
-                break
-            except (StagewrightError, TypeError, KeyError, IndexError) as exc:
-                first = first or exc
-        else:
-            from thermo import InputError
-            if isinstance(first, StagewrightError):
-                raise first
-            raise InputError("--axis", field, f"expected a field path of the project file ({first})")
+        if all((field, float(v)) in bad for v in values):
+            raise StagewrightError(bad[(field, float(values[0]))], field)
 
 
 def run(args) -> int:

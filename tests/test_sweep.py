@@ -65,3 +65,12 @@ def test_process_pool_gives_the_same_numbers():
     a = sweep(doc, axes, processes=1)
     b = sweep(doc, axes, processes=2)
     assert a.values == b.values
+
+
+def test_axis_path_outside_the_project_is_an_input_error_not_a_crash():
+    # an index past the last stage once raised IndexError out of the sweep; it is a problem of
+    # every value, recorded like any other input error (no point solves)
+    res = sweep(make_doc(), {"stages[5].efficiency.value": [0.8, 0.9]}, processes=1)
+    assert all(v is None for v in res.values["shaft_power_W"])
+    assert all("expected a field path of the project file" in m for m in res.errors.values())
+    assert len(res.errors) == 2

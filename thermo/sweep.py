@@ -6,7 +6,7 @@ what a user sees.
 """
 from __future__ import annotations
 
-__all__ = ["sweep", "SweepResult", "SweepCancelled", "SWEEP_OUTPUTS"]
+__all__ = ["sweep", "axis_problems", "SweepResult", "SweepCancelled", "SWEEP_OUTPUTS"]
 
 import copy
 import itertools
@@ -62,13 +62,20 @@ def _summary(result) -> tuple:
     return tuple(out)
 
 
-def _value_problems(doc: dict, paths: list, axes: dict) -> dict:
-    """Validate each axis value once (not each grid point): (path, value) -> message."""
+def axis_problems(doc: dict, axes: dict) -> dict:
+    """Validate each axis value once (not each grid point): (path, value) -> message.
+
+    A path that does not lead into the project file (an index past the last stage, a key under
+    a number) is a problem of every value, named like any other input error."""
     bad = {}
-    for p in paths:
+    for p in axes:
         for v in axes[p]:
             trial = copy.deepcopy(doc)
-            set_path(trial, p, float(v))
+            try:
+                set_path(trial, p, float(v))
+            except (TypeError, KeyError, IndexError) as exc:
+                bad[(p, float(v))] = str(InputError(f"axes.{p}", p, f"expected a field path of the project file ({exc})"))
+                continue
             try:
                 normalise(trial)
             except StagewrightError as exc:
@@ -148,7 +155,7 @@ def sweep(doc: dict, axes: dict, *, processes: int | None = None, progress=None,
     if len(points) > MAX_POINTS:
         raise InputError("axes", len(points), f"a sweep is limited to {MAX_POINTS} points")
     base_norm = normalise(doc)
-    bad = _value_problems(doc, paths, axes)
+    bad = axis_problems(doc, axes)
     is_cancelled = (cancel.is_set if hasattr(cancel, "is_set") else cancel) or (lambda: False)
     chunks = [points[i:i + _CHUNK] for i in range(0, len(points), _CHUNK)]
     n_proc = processes or ((os.cpu_count() or 1) if len(points) >= _POOL_THRESHOLD else 1)
