@@ -14,6 +14,16 @@ def _sample():
     return json.loads((SAMPLES / "two_stage_plant_air.json").read_text())
 
 
+def _sized_and_rated(doc):
+    """The train sized from its approaches, and again rated from the UA that sizing found."""
+    sized = thermo.solve(doc)
+    rated_doc = copy.deepcopy(doc)
+    for st, c in zip(rated_doc["stages"], sized.coolers):
+        del st["cooler"]["approach_K"]
+        st["cooler"]["ua_W_K"] = c.exchanger.ua_W_K
+    return sized, thermo.solve(rated_doc)
+
+
 def _with_coolant(doc, coolant, arrangement="counter_flow"):
     doc = copy.deepcopy(doc)
     for st in doc["stages"]:
@@ -53,12 +63,7 @@ def test_coolant_energy_balance_matches_air_duty(model):
 @pytest.mark.parametrize("arrangement", ["counter_flow", "cross_flow_unmixed", "shell_and_tube_1_2"])
 def test_train_rating_from_ua_inverts_sizing(arrangement):
     doc = _with_coolant(_sample(), {"kind": "water", "flow_kg_s": 2.0}, arrangement)
-    sized = thermo.solve(doc)
-    rated_doc = copy.deepcopy(doc)
-    for st, c in zip(rated_doc["stages"], sized.coolers):
-        del st["cooler"]["approach_K"]
-        st["cooler"]["ua_W_K"] = c.exchanger.ua_W_K
-    rated = thermo.solve(rated_doc)
+    sized, rated = _sized_and_rated(doc)
     for a, b in zip(sized.coolers, rated.coolers):
         assert b.outlet.T == pytest.approx(a.outlet.T, rel=1e-6)
         assert b.duty_W == pytest.approx(a.duty_W, rel=1e-6)
@@ -175,12 +180,7 @@ def test_condensing_wet_zone_matches_direct_integration_with_hapropssi():
 @pytest.mark.parametrize("arrangement", ["counter_flow", "cross_flow_unmixed", "shell_and_tube_1_2"])
 def test_condensing_train_rating_from_ua_inverts_sizing(arrangement):
     doc = _humid_with_coolant(arrangement=arrangement)
-    sized = thermo.solve(doc)
-    rated_doc = copy.deepcopy(doc)
-    for st, c in zip(rated_doc["stages"], sized.coolers):
-        del st["cooler"]["approach_K"]
-        st["cooler"]["ua_W_K"] = c.exchanger.ua_W_K
-    rated = thermo.solve(rated_doc)
+    sized, rated = _sized_and_rated(doc)
     for a, b in zip(sized.coolers, rated.coolers):
         assert [z.kind for z in b.exchanger.zones] == ["dry", "wet"]
         assert b.outlet.T == pytest.approx(a.outlet.T, rel=1e-6)
