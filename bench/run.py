@@ -191,7 +191,7 @@ def case_startup():
         shot = str(Path(tmp) / "s.png")
 
         def run():
-            subprocess.run([sys.executable, "-m", "app.cli", "--screenshot", shot], cwd=ROOT, env=env,
+            subprocess.run([sys.executable, "-m", "app.entry", "--screenshot", shot], cwd=ROOT, env=env,
                            check=True, capture_output=True)
         ours = measure(run, 5)
     peak = resource.getrusage(resource.RUSAGE_CHILDREN).ru_maxrss / 1024.0

@@ -29,9 +29,9 @@ def child() -> int:
     from PySide6.QtCore import QEventLoop, QSettings, QTimer
     from PySide6.QtWidgets import QApplication
 
-    from app.gui_main import DEMO_PROJECT
-    from app.main_window import MainWindow
-    from app.style import apply_style
+    from app.window.launch import DEMO_PROJECT
+    from app.window.main_window import MainWindow
+    from app.window.style import apply_style
     from thermo.project import load
 
     app = QApplication(sys.argv[:1])

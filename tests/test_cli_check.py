@@ -5,7 +5,7 @@ import json
 import subprocess
 import sys
 
-from app.cli import main
+from app.cli.main import main
 from tests.conftest import ROOT, SAMPLES, make_doc
 from thermo.schema import PROJECT
 
@@ -75,7 +75,7 @@ def test_garbage_never_gives_a_traceback(tmp_path):
     for i, content in enumerate(garbage):
         paths.append(tmp_path / f"garbage{i}.json")
         paths[-1].write_bytes(content)
-    proc = subprocess.run([sys.executable, "-m", "app.cli", "check", *map(str, paths)], cwd=ROOT,
+    proc = subprocess.run([sys.executable, "-m", "app.entry", "check", *map(str, paths)], cwd=ROOT,
                           capture_output=True, text=True)
     assert proc.returncode == 2
     assert "Traceback" not in proc.stdout + proc.stderr and proc.stderr == ""

@@ -3,8 +3,8 @@ from __future__ import annotations
 
 import copy
 
-from app.doc_paths import ABSENT
-from app.document_model import ProjectModel, Signal, new_document
+from app.document.paths import ABSENT
+from app.document.model import ProjectModel, Signal, new_document
 from thermo.document import problems
 
 

@@ -15,7 +15,7 @@ pytest.importorskip("pytestqt")
 
 from PySide6.QtCore import Signal  # noqa: E402
 
-from app.job_runner import JobCancelled, JobRunner  # noqa: E402
+from app.jobs.job_runner import JobCancelled, JobRunner  # noqa: E402
 
 pytestmark = pytest.mark.gui
 

@@ -33,7 +33,7 @@ def test_importing_and_solving_loads_no_qt():
 
 
 def test_headless_cli_loads_no_qt():
-    code = ("import sys; from app.cli import main; "
+    code = ("import sys; from app.cli.main import main; "
             "main(['check', 'sample_projects']); "
             "bad = [m for m in sys.modules if m.split('.')[0] in ('PySide6', 'shiboken6')]; "
             "sys.exit(1 if bad else 0)")

@@ -272,8 +272,8 @@ def test_warned_value_is_highlighted_in_the_balance(qtbot, window):
 
 
 def test_help_shows_the_cautions_and_the_deferral_to_local_codes(qtbot, window):
-    from app.cautions import CAUTIONS, DEFERRAL
-    from app.help_dialogs import CautionsDialog
+    from app.presentation.cautions import CAUTIONS, DEFERRAL
+    from app.window.help_dialogs import CautionsDialog
     dlg = CautionsDialog(window)
     text = dlg.browser.toPlainText()
     for title, body in CAUTIONS:
@@ -333,7 +333,7 @@ def test_staging_study_runs_off_the_gui_thread_and_fills_its_tab(qtbot, tmp_path
 def test_layout_and_display_choices_are_remembered(qtbot, tmp_path):
     from PySide6.QtCore import QSettings
 
-    from app.main_window import MainWindow
+    from app.window.main_window import MainWindow
     win = make_window(qtbot, tmp_path, simple_real_gas_doc())
     win.docks["messages"].hide()
     win.action_map["view.us_units"].trigger()

@@ -1,10 +1,10 @@
-"""Autosave to the recovery file and the offer to restore it at start (needs app.recovery)."""
+"""Autosave to the recovery file and the offer to restore it at start (needs app.document.recovery_file)."""
 from __future__ import annotations
 
 import pytest
 
 pytest.importorskip("pytestqt")
-recovery = pytest.importorskip("app.recovery")
+recovery = pytest.importorskip("app.document.recovery_file")
 
 from gui_support import make_window, simple_real_gas_doc  # noqa: E402
 

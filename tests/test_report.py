@@ -4,7 +4,7 @@ The PDF is read back with pypdf (a general-purpose PDF library) and the printed 
 compared with the JSON results of the ``solve`` sub-command at the printed precision. Unit
 conversions in these checks are written out from their exact definitions (NIST SP 811, 2008
 edition, Appendix B: 1 hp = 745.69987158 W, 1 Btu(IT) = 1055.05585262 J,
-1 psi = 6894.757293168 Pa, t/°F = 1.8·T/K − 459.67), not taken from app.units.
+1 psi = 6894.757293168 Pa, t/°F = 1.8·T/K − 459.67), not taken from app.presentation.units.
 """
 from __future__ import annotations
 
@@ -16,10 +16,10 @@ import re
 import pypdf
 import pytest
 
-from app import units
-from app.cautions import CAUTIONS, DEFERRAL
-from app.cli import main
-from app.progress import Progress
+from app.presentation import units
+from app.presentation.cautions import CAUTIONS, DEFERRAL
+from app.cli.main import main
+from app.cli.progress import Progress
 from app.report import csv_rows, export_report
 from app.report.csv_export import COLUMNS
 from app.report.layout import Column, Pager, Table
@@ -119,7 +119,7 @@ def test_negative_heat_exergy_is_explained_in_the_report(path, si_reports, capsy
     # heat rejected below the ambient temperature carries negative exergy, Q(1 − T0/Tb) < 0
     # (Bejan, Tsatsaronis & Moran, Thermal Design and Optimization, 1996, §3.2): the report says
     # so where the figure is negative, and only there
-    from app.result_notes import NEGATIVE_TIPS
+    from app.presentation.result_notes import NEGATIVE_TIPS
     r = _solve_json(path, capsys)
     flat = _flat(_pdf_text(si_reports[path][0])[0])
     note = _flat(NEGATIVE_TIPS["heat_exergy_W"])[1:]  # the report lower-cases its first letter

@@ -8,7 +8,7 @@ import pytest
 
 pytest.importorskip("pytestqt")
 
-from app.solve_worker import SolveController  # noqa: E402
+from app.jobs.solve_worker import SolveController  # noqa: E402
 
 pytestmark = pytest.mark.gui
 

@@ -14,8 +14,8 @@ import json
 import pytest
 from fluids.compressible import isentropic_work_compression
 
-from app.study_apply import apply_text, option_stages, project_field, study_key
-from app.study_job import StudyRequest, run_request
+from app.study.apply import apply_text, option_stages, project_field, study_key
+from app.study.job import StudyRequest, run_request
 from conftest import SAMPLES, make_doc
 from thermo import solve
 from thermo.document import problems

@@ -9,7 +9,7 @@ from __future__ import annotations
 
 import pytest
 
-from app.study_display import (COLUMNS, case_label, cells, format_values, header, limit_messages,
+from app.study.display import (COLUMNS, case_label, cells, format_values, header, limit_messages,
                                limit_summary, parse_values, tooltip)
 
 HP_W = 745.69987158

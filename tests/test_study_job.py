@@ -9,7 +9,7 @@ from __future__ import annotations
 import pytest
 from fluids.compressible import isentropic_work_compression
 
-from app.study_job import StudyRequest, partial_answer, run_request
+from app.study.job import StudyRequest, partial_answer, run_request
 from conftest import make_doc
 from thermo.study import StudyCancelled
 

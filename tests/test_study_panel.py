@@ -245,7 +245,7 @@ def test_the_panel_has_a_view_toggle_and_its_layout_is_remembered(qtbot, tmp_pat
     from PySide6.QtCore import QSettings
     from PySide6.QtWidgets import QToolBar
 
-    from app.main_window import MainWindow
+    from app.window.main_window import MainWindow
     win = make_window(qtbot, tmp_path, perfect_gas_doc())
     view = next(a.menu() for a in win.menuBar().actions() if a.text() == "&View")
     toggle = next(a for a in view.actions() if a.text() == "Staging study")

@@ -12,8 +12,8 @@ pytest.importorskip("pytestqt")
 
 from fluids.compressible import isentropic_work_compression  # noqa: E402
 
-from app.study_job import StudyRequest  # noqa: E402
-from app.study_worker import StudyController  # noqa: E402
+from app.study.job import StudyRequest  # noqa: E402
+from app.study.worker import StudyController  # noqa: E402
 from conftest import make_doc  # noqa: E402
 
 pytestmark = pytest.mark.gui

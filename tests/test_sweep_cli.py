@@ -7,8 +7,8 @@ import sys
 import pytest
 
 import thermo
-from app.cli import main
-from app.sweep_cli import parse_axis
+from app.cli.main import main
+from app.cli.sweep import parse_axis
 from conftest import SAMPLES
 
 DEMO = SAMPLES / "two_stage_plant_air.json"
@@ -68,7 +68,7 @@ def test_axis_forms():
 
 
 def test_sweep_never_imports_qt(tmp_path):
-    code = ("import sys; from app.cli import main; "
+    code = ("import sys; from app.cli.main import main; "
             f"main(['sweep', {str(DEMO)!r}, '--axis', 'discharge_pressure_Pa=7e5,8e5', '-o', {str(tmp_path / 'o.csv')!r}]); "
             "assert not any(m.startswith('PySide6') for m in sys.modules), 'Qt imported'")
     subprocess.run([sys.executable, "-c", code], check=True)

@@ -7,7 +7,7 @@ import pytest
 
 pytest.importorskip("PySide6")
 
-from app.year_edits import ENTRY_COLUMNS  # noqa: E402
+from app.year.edits import ENTRY_COLUMNS  # noqa: E402
 from gui_support import ROOT, make_window, simple_real_gas_doc  # noqa: E402
 
 YEAR_SAMPLE = ROOT / "sample_projects" / "three_stage_site_year.json"

@@ -5,7 +5,7 @@ import pytest
 
 pytest.importorskip("PySide6")
 
-from app.panels.year_panel import YEAR_COLUMNS  # noqa: E402
+from app.year.panel import YEAR_COLUMNS  # noqa: E402
 from gui_support import ROOT, make_window, window  # noqa: E402,F401
 
 YEAR_SAMPLE = ROOT / "sample_projects" / "three_stage_site_year.json"

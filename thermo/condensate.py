@@ -6,10 +6,10 @@ __all__ = ["Condensation", "condensation", "condensate_volume_L_h", "cooling_lin
 import math
 from dataclasses import dataclass
 
-from . import coolprop_adapter as cpa
-from .roots import bracketed_root
-from .models.base import Point
-from .saturation import dew_point_from_vapour_pressure
+from thermo import coolprop_adapter as cpa
+from thermo.roots import bracketed_root
+from thermo.models.base import Point
+from thermo.saturation import dew_point_from_vapour_pressure
 
 
 @dataclass(frozen=True)

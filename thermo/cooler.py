@@ -6,12 +6,12 @@ __all__ = ["CoolerResult", "solve_cooler", "cooler_outlet_temperature", "outlet_
 import math
 from dataclasses import dataclass, field
 
-from .condensate import Condensation, condensation, cooling_line
-from .errors import InputError
-from .exchanger import Exchanger, HotSide, make_coolant, rate_exchanger, size_exchanger
-from .exergy import DeadState, heat_exergy
-from .models.base import Point, PropertyModel
-from .roots import bracketed_root
+from thermo.condensate import Condensation, condensation, cooling_line
+from thermo.errors import InputError
+from thermo.exchanger import Exchanger, HotSide, make_coolant, rate_exchanger, size_exchanger
+from thermo.exergy import DeadState, heat_exergy
+from thermo.models.base import Point, PropertyModel
+from thermo.roots import bracketed_root
 
 
 @dataclass

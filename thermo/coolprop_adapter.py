@@ -16,7 +16,7 @@ from functools import lru_cache
 import CoolProp
 import CoolProp.CoolProp as _CP
 
-from .errors import PropertyRangeError
+from thermo.errors import PropertyRangeError
 
 PT_INPUTS = _CP.PT_INPUTS
 DmassT_INPUTS = _CP.DmassT_INPUTS

@@ -9,7 +9,7 @@ __all__ = ["parse_path", "get_path", "set_path"]
 
 import re
 
-from .errors import InputError
+from thermo.errors import InputError
 
 _TOKEN = re.compile(r"([A-Za-z_][A-Za-z0-9_]*)|\[(\d+)\]")
 

@@ -10,11 +10,11 @@ __all__ = ["problems", "normalise", "site_pressure"]
 
 from typing import Any
 
-from .atmosphere import standard_pressure
-from .errors import InputError, Problem
-from .schema import PROJECT
-from .schema_types import check
-from .year_profile import year_problems
+from thermo.atmosphere import standard_pressure
+from thermo.errors import InputError, Problem
+from thermo.schema import PROJECT
+from thermo.schema_types import check
+from thermo.year_profile import year_problems
 
 
 def _check(doc: Any) -> tuple[dict, list[Problem]]:

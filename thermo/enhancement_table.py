@@ -15,8 +15,8 @@ __all__ = ["EnhancementTable", "T_STEP", "LN_P_STEP", "T_FIRST", "T_LAST"]
 
 import math
 
-from . import coolprop_adapter as cpa
-from .saturation import saturation_pressure
+from thermo import coolprop_adapter as cpa
+from thermo.saturation import saturation_pressure
 
 T_STEP = 2.0  #: grid step in temperature, [K]
 LN_P_STEP = 0.025  #: grid step in ln p, [-]

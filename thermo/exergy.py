@@ -5,7 +5,7 @@ __all__ = ["DeadState", "flow_exergy", "heat_exergy", "water_exergy"]
 
 from dataclasses import dataclass
 
-from .models.base import Point
+from thermo.models.base import Point
 
 
 @dataclass(frozen=True)

@@ -3,7 +3,7 @@ from __future__ import annotations
 
 __all__ = ["NORMAL_TEMPERATURE", "NORMAL_PRESSURE", "mass_flow_from", "VOLUME_KINDS"]
 
-from .models.base import PropertyModel
+from thermo.models.base import PropertyModel
 
 NORMAL_TEMPERATURE = 273.15  #: DIN 1343 normal temperature, [K]
 NORMAL_PRESSURE = 101_325.0  #: DIN 1343 normal pressure, [Pa]

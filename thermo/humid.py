@@ -12,11 +12,11 @@ __all__ = ["MoistAir", "intake_humidity_ratio", "humidity_of", "is_moist", "chec
 
 import math
 
-from .errors import InputError
-from .models.base import Point, check_range
-from .models.newton import invert_to_state
-from .moist_mixture import MoistMixture
-from .saturation import T_CRITICAL, T_IF97_MIN, saturation_pressure
+from thermo.errors import InputError
+from thermo.models.base import Point, check_range
+from thermo.models.newton import invert_to_state
+from thermo.moist_mixture import MoistMixture
+from thermo.saturation import T_CRITICAL, T_IF97_MIN, saturation_pressure
 
 _LIQUID_NEGLIGIBLE = 1e-9  # liquid share (of the stream's water) treated as none on a path
 _DT = 1e-3  # central-difference step in T for two-phase derivatives, [K]

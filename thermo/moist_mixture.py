@@ -12,8 +12,8 @@ __all__ = ["MoistMixture", "make_mixture", "RP1485_EPSILON", "RP1485_T_MAX", "RP
 import math
 from functools import lru_cache
 
-from . import coolprop_adapter as cpa
-from .saturation import T_CRITICAL, saturation_pressure, saturation_pressure_log_slope
+from thermo import coolprop_adapter as cpa
+from thermo.saturation import T_CRITICAL, saturation_pressure, saturation_pressure_log_slope
 
 P_REF = 101_325.0  #: reference pressure of the ideal-gas entropy of water vapour, [Pa]
 R_MOLAR = 8.314462618  #: molar gas constant, CODATA 2018, [J/(mol K)]
@@ -415,7 +415,7 @@ class MoistMixture:
         Solves :math:`x_w p = f(T_d, p)\\,p_{ws}(T_d)` by fixed-point iteration on f (f varies
         slowly with T); None when w is 0.
         """
-        from .saturation import dew_point_from_vapour_pressure  # local: keeps the import list short
+        from thermo.saturation import dew_point_from_vapour_pressure  # local: keeps the import list short
         if w <= 0.0:
             return None
         p_v = w / (self.epsilon + w) * P
@@ -438,7 +438,7 @@ def _fast_table():
     behind the same small cache of recent (T, p) as the exact factor."""
     global _FAST_TABLE
     if _FAST_TABLE is None:
-        from .enhancement_table import EnhancementTable  # local: only fast trial solves need it
+        from thermo.enhancement_table import EnhancementTable  # local: only fast trial solves need it
         _FAST_TABLE = lru_cache(maxsize=512)(EnhancementTable())
     return _FAST_TABLE
 

@@ -5,8 +5,8 @@ __all__ = ["polytropic_path", "polytropic_efficiency_between", "path_steps"]
 
 import math
 
-from .errors import PropertyRangeError, StagewrightError
-from .models.base import T_MAX, Point, PropertyModel
+from thermo.errors import PropertyRangeError, StagewrightError
+from thermo.models.base import T_MAX, Point, PropertyModel
 
 _LN_T_BEYOND = math.log(2.0 * T_MAX)  # ln T past which a path has left every model's range
 _MAX_STEP_LN_P = 0.2  # RK4 step in ln p, on ln T; error about 1e-8 relative in Δh (see tests)

@@ -31,7 +31,7 @@ __all__ = ["RecoveryResult", "heat_recovery", "cooler_heat_above"]
 
 from dataclasses import dataclass, field
 
-from .models.base import PropertyModel
+from thermo.models.base import PropertyModel
 
 HOURS_PER_YEAR = 8760.0
 

@@ -6,11 +6,11 @@ __all__ = ["TrainResult", "InletResult", "Warning_", "WaterResult", "point_dict"
 import math
 from dataclasses import dataclass, field
 
-from .cooler import CoolerResult
-from .exergy import DeadState
-from .humid import humidity_of
-from .models.base import Point
-from .stage import StageResult
+from thermo.cooler import CoolerResult
+from thermo.exergy import DeadState
+from thermo.humid import humidity_of
+from thermo.models.base import Point
+from thermo.stage import StageResult
 
 
 @dataclass(frozen=True)

@@ -23,8 +23,8 @@ import re
 import sys
 from pathlib import Path
 
-from .schema import PROJECT
-from .schema_types import MISSING, Choice, Items, Num, Obj, Text, Variant, walk
+from thermo.schema import PROJECT
+from thermo.schema_types import MISSING, Choice, Items, Num, Obj, Text, Variant, walk
 
 #: schema path → meaning
 PROJECT_KEYS = {

@@ -15,7 +15,7 @@ import math
 from dataclasses import dataclass, field
 from typing import Any
 
-from .errors import Problem
+from thermo.errors import Problem
 
 MISSING = object()
 

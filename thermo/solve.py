@@ -6,12 +6,12 @@ __all__ = ["solve", "solve_normalised", "model_for", "release_thread_models"]
 import atexit
 import threading
 
-from .document import normalise, site_pressure
-from .errors import InputError, StagewrightError
-from .flow import mass_flow_from
-from .models import make_model
-from .results import TrainResult
-from .train import intake_model, solve_train
+from thermo.document import normalise, site_pressure
+from thermo.errors import InputError, StagewrightError
+from thermo.flow import mass_flow_from
+from thermo.models import make_model
+from thermo.results import TrainResult
+from thermo.train import intake_model, solve_train
 
 _local = threading.local()
 

@@ -3,8 +3,8 @@ from __future__ import annotations
 
 __all__ = ["stage_pressure_ratios", "delivered_pressure"]
 
-from .errors import InputError
-from .roots import bracketed_root
+from thermo.errors import InputError
+from thermo.roots import bracketed_root
 
 
 def delivered_pressure(p_in: float, ratios: list[float], cooler_drops: list[float]) -> float:

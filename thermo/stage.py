@@ -6,10 +6,10 @@ __all__ = ["StageResult", "solve_stage"]
 import math
 from dataclasses import dataclass
 
-from .errors import InputError, PropertyRangeError, SecondLawViolation
-from .exergy import DeadState, heat_exergy
-from .models.base import Point, PropertyModel
-from .polytropic import polytropic_efficiency_between, polytropic_path
+from thermo.errors import InputError, PropertyRangeError, SecondLawViolation
+from thermo.exergy import DeadState, heat_exergy
+from thermo.models.base import Point, PropertyModel
+from thermo.polytropic import polytropic_efficiency_between, polytropic_path
 
 
 @dataclass

@@ -16,10 +16,10 @@ import os
 from concurrent.futures import ProcessPoolExecutor
 from dataclasses import dataclass, field
 
-from .doc_paths import set_path
-from .errors import InputError, StagewrightError
-from .document import normalise
-from .solve import solve_normalised
+from thermo.doc_paths import set_path
+from thermo.errors import InputError, StagewrightError
+from thermo.document import normalise
+from thermo.solve import solve_normalised
 
 #: result keys collected at every point (totals of ``TrainResult.to_dict()``)
 SWEEP_OUTPUTS = ("mass_flow_kg_s", "shaft_power_W", "driver_power_W", "specific_power_kW_per_m3_min",

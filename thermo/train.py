@@ -5,19 +5,19 @@ __all__ = ["solve_train", "intake_model", "mixture_for"]
 
 import math
 
-from .cooler import solve_cooler
-from .document import site_pressure
-from .exergy import DeadState, flow_exergy, water_exergy
-from .flow import NORMAL_PRESSURE, NORMAL_TEMPERATURE
-from .humid import MoistAir, check_humid_range, intake_humidity_ratio, is_moist
-from .iso8573 import REFERENCE_PRESSURE, REFERENCE_TEMPERATURE, humidity_class
-from .models.base import PropertyModel
-from .moist_mixture import MoistMixture, make_mixture
-from .recovery import heat_recovery
-from .results import InletResult, TrainResult, Warning_, WaterResult
-from .split import stage_pressure_ratios
-from .stage import solve_stage
-from . import coolprop_adapter
+from thermo.cooler import solve_cooler
+from thermo.document import site_pressure
+from thermo.exergy import DeadState, flow_exergy, water_exergy
+from thermo.flow import NORMAL_PRESSURE, NORMAL_TEMPERATURE
+from thermo.humid import MoistAir, check_humid_range, intake_humidity_ratio, is_moist
+from thermo.iso8573 import REFERENCE_PRESSURE, REFERENCE_TEMPERATURE, humidity_class
+from thermo.models.base import PropertyModel
+from thermo.moist_mixture import MoistMixture, make_mixture
+from thermo.recovery import heat_recovery
+from thermo.results import InletResult, TrainResult, Warning_, WaterResult
+from thermo.split import stage_pressure_ratios
+from thermo.stage import solve_stage
+from thermo import coolprop_adapter
 
 
 def mixture_for(model: PropertyModel) -> MoistMixture:

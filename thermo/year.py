@@ -24,10 +24,10 @@ __all__ = ["YearResult", "BinResult", "YearCancelled", "run_year", "CONDENSATE_D
 import copy
 from dataclasses import asdict, dataclass, field
 
-from .document import normalise
-from .errors import InputError, StagewrightError
-from .solve import solve
-from .year_profile import Bin, operating_bins
+from thermo.document import normalise
+from thermo.errors import InputError, StagewrightError
+from thermo.solve import solve
+from thermo.year_profile import Bin, operating_bins
 
 CONDENSATE_DENSITY_KG_M3 = 1000.0
 

@@ -23,8 +23,8 @@ from thermo.errors import StagewrightError
 from thermo.models.base import T_MAX, T_MIN
 from thermo.solve import model_for
 
-from .. import units
-from . import style
+from app.presentation import units
+from app.charts import style
 
 _ISOBAR_POINTS = 48
 
@@ -120,7 +120,7 @@ def draw_ts_chart(fig: Figure, result: dict, system: str = "SI", limits_K=None) 
     result : dict
         ``TrainResult.to_dict()`` of a solve.
     system : str
-        Display units, ``"SI"`` or ``"US"`` (see :mod:`app.units`).
+        Display units, ``"SI"`` or ``"US"`` (see :mod:`app.presentation.units`).
     limits_K : float or list, optional
         Discharge-temperature limit(s), [K]; by default each stage's
         ``max_discharge_temperature_K`` in the result, if present.

@@ -13,8 +13,8 @@ __all__ = ["draw_year_chart"]
 
 from matplotlib.figure import Figure
 
-from .. import units
-from . import fit_layout, style
+from app.presentation import units
+from app.charts import fit_layout, style
 
 _MONTHS = ("January", "February", "March", "April", "May", "June", "July", "August", "September", "October",
            "November", "December")

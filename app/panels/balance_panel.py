@@ -14,9 +14,9 @@ from PySide6.QtGui import QBrush, QColor
 from PySide6.QtWidgets import (QAbstractItemView, QHeaderView, QLabel, QSplitter, QTableWidget,
                                QTableWidgetItem, QVBoxLayout, QWidget)
 
-from .. import units
-from ..result_notes import NEGATIVE_TIPS, TOTAL_TIPS
-from ..doc_paths import stage_index
+from app.presentation import units
+from app.presentation.result_notes import NEGATIVE_TIPS, TOTAL_TIPS
+from app.document.paths import stage_index
 
 WARNING_BG = "#fde7c4"  # a value a warning in Messages is about
 #: (key, header, quantity, getter of the SI value from a point dict)

@@ -11,7 +11,7 @@ __all__ = ["ChartsPanel", "ChartTab"]
 from PySide6.QtCore import Qt
 from PySide6.QtWidgets import QLabel, QTabWidget, QVBoxLayout, QWidget
 
-from ..doc_paths import get_in
+from app.document.paths import get_in
 
 
 class ChartTab(QWidget):
@@ -69,7 +69,7 @@ class ChartsPanel(QWidget):
         """Create the chart tabs (imports matplotlib); True once they exist."""
         if self.ts is not None:
             return True
-        from ..charts import draw_power_split, draw_ts_chart  # here: matplotlib loads after first paint
+        from app.charts import draw_power_split, draw_ts_chart  # here: matplotlib loads after first paint
         self.tabs.blockSignals(True)
         self.tabs.clear()
         self.ts = ChartTab(draw_ts_chart)
@@ -83,9 +83,9 @@ class ChartsPanel(QWidget):
     def study_tab(self):
         """The Staging study tab, made on first use (None without app/charts)."""
         if self.study is None and self.ensure_canvases():
-            from .study_tab import StudyTab
+            from app.study.tab import StudyTab
             self.study = StudyTab()
-            self.tabs.addTab(self.study, "Staging study")  # app.study_ops marks it out of date
+            self.tabs.addTab(self.study, "Staging study")  # app.study.ops marks it out of date
         return self.study
 
     def _limits(self) -> list:

@@ -6,10 +6,10 @@ from __future__ import annotations
 __all__ = ["CoolerForm", "OUTLET_CHOICES", "COOLANT_CHOICES", "default_cooler"]
 
 
-from ..doc_paths import ABSENT, stage_path
-from ..widgets.choice_field import ChoiceField
-from ..widgets.quantity_field import QuantityField
-from .base import FieldPanel, section_title
+from app.document.paths import ABSENT, stage_path
+from app.widgets.choice_field import ChoiceField
+from app.widgets.quantity_field import QuantityField
+from app.panels.base import FieldPanel, section_title
 
 OUTLET_CHOICES = [("outlet", "Outlet temperature"), ("approach", "Approach to coolant"),
                   ("ua", "UA rating")]

@@ -5,10 +5,10 @@ __all__ = ["DutyPanel", "FLOW_CHOICES"]
 
 from PySide6.QtWidgets import QComboBox
 
-from ..widgets.choice_field import ChoiceField
-from ..widgets.quantity_field import QuantityField
-from ..widgets.signals_blocked import signals_blocked
-from .base import FieldPanel
+from app.widgets.choice_field import ChoiceField
+from app.widgets.quantity_field import QuantityField
+from app.widgets.signals_blocked import signals_blocked
+from app.panels.base import FieldPanel
 
 FLOW_CHOICES = [
     ("free_air_delivery", "Free air delivery"),

@@ -11,10 +11,10 @@ from PySide6.QtCore import QSize, Qt, Signal
 from PySide6.QtGui import QColor, QIcon, QPainter, QPixmap
 from PySide6.QtWidgets import QLabel, QListWidget, QListWidgetItem, QVBoxLayout, QWidget
 
-from .. import units
-from ..cautions import CAUTIONS
-from ..doc_paths import get_in, stage_index
-from ..field_specs import describe, problem_message
+from app.presentation import units
+from app.presentation.cautions import CAUTIONS
+from app.document.paths import get_in, stage_index
+from app.document.field_specs import describe, problem_message
 
 _CAUTION = dict(CAUTIONS)
 _SEVERITY_COLOUR = {"problem": "#c0392b", "warning": "#d98e04", "caution": "#7b5ea7", "ok": "#2e8b57",

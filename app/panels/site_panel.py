@@ -8,11 +8,11 @@ from PySide6.QtWidgets import QHBoxLayout, QWidget
 from thermo.atmosphere import standard_pressure
 from thermo.schema import PROJECT
 
-from ..doc_paths import ABSENT
-from ..widgets.choice_field import ChoiceField
-from ..widgets.quantity_field import QuantityField
-from ..widgets.text_field import TextField
-from .base import FieldPanel, section_title
+from app.document.paths import ABSENT
+from app.widgets.choice_field import ChoiceField
+from app.widgets.quantity_field import QuantityField
+from app.widgets.text_field import TextField
+from app.panels.base import FieldPanel, section_title
 
 MODEL_CHOICES = [
     ("real_gas", "Real gas (Lemmon 2000)"),

@@ -4,11 +4,11 @@ from __future__ import annotations
 __all__ = ["StageForm", "EFFICIENCY_CHOICES"]
 
 
-from ..doc_paths import stage_path
-from ..widgets.choice_field import ChoiceField
-from ..widgets.quantity_field import QuantityField
-from ..widgets.text_field import TextField
-from .base import FieldPanel, section_title
+from app.document.paths import stage_path
+from app.widgets.choice_field import ChoiceField
+from app.widgets.quantity_field import QuantityField
+from app.widgets.text_field import TextField
+from app.panels.base import FieldPanel, section_title
 
 EFFICIENCY_CHOICES = [
     ("isentropic", "Isentropic"),

@@ -12,11 +12,11 @@ from PySide6.QtWidgets import (QFrame, QListWidget, QListWidgetItem, QScrollArea
 
 from thermo.schema import PROJECT
 
-from .. import units
-from ..doc_paths import ABSENT, stage_index, stage_path
-from ..icons import icon
-from .cooler_form import CoolerForm, default_cooler
-from .stage_form import StageForm
+from app.presentation import units
+from app.document.paths import ABSENT, stage_index, stage_path
+from app.window.icons import icon
+from app.panels.cooler_form import CoolerForm, default_cooler
+from app.panels.stage_form import StageForm
 
 _STAGES = PROJECT.fields["stages"]  # min_length / max_length come from the schema
 ROLE = Qt.UserRole
@@ -69,7 +69,7 @@ class TrainPanel(QWidget):
 
     # ---- toolbar -------------------------------------------------------------------------
     def set_actions(self, actions: dict) -> None:
-        """Put the window's stage actions (declared in app/actions.py) on the panel toolbar."""
+        """Put the window's stage actions (declared in app/window/actions.py) on the panel toolbar."""
         self.action_map = actions
         for key in ("train.add_stage", "train.insert_stage", "train.duplicate_stage", "train.remove_stage",
                     "train.move_up", "train.move_down", "train.toggle_cooler"):
@@ -201,7 +201,7 @@ class TrainPanel(QWidget):
         else:
             self._selected = ("stage", max(0, new_index))
 
-    # ---- actions (bound in app/actions.py) -------------------------------------------------
+    # ---- actions (bound in app/window/actions.py) -------------------------------------------------
     def _new_stage_from(self, i: int, name: str) -> dict:
         st = copy.deepcopy(self.editor.model.get(stage_path(i), {}) or {})
         st["name"] = name

@@ -9,9 +9,9 @@ __all__ = ["export_report", "write_csv", "write_pdf", "csv_rows", "program_versi
 
 import datetime as _dt
 
-from .csv_export import csv_rows, write_csv
-from .pdf import program_version, write_pdf
-from .sections import ReportInfo
+from app.report.csv_export import csv_rows, write_csv
+from app.report.pdf import program_version, write_pdf
+from app.report.sections import ReportInfo
 
 
 def export_report(doc: dict, result, pdf_path, csv_path=None, system: str = "SI", source_name: str = "",

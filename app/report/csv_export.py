@@ -2,7 +2,7 @@
 
 Layout: a header row of column names, a units row, then data rows. The first column says
 what the row is (``state``, ``component`` or ``train``). Numbers are written in the chosen
-display units to 12 significant digits, so converting back with :func:`app.units.to_si`
+display units to 12 significant digits, so converting back with :func:`app.presentation.units.to_si`
 returns the solver's SI values to 1e-12 relative; a missing value is an empty cell.
 Written with the standard library's :mod:`csv` (RFC 4180 quoting, UTF-8).
 """
@@ -13,11 +13,11 @@ __all__ = ["COLUMNS", "csv_rows", "write_csv"]
 import csv
 import io
 
-from .. import units
-from .atomic import atomic_path
-from .sections import state_points
+from app.presentation import units
+from app.report.atomic import atomic_path
+from app.report.sections import state_points
 
-#: (column name, quantity of app.units or None for text, result key for state points)
+#: (column name, quantity of app.presentation.units or None for text, result key for state points)
 COLUMNS = [
     ("kind", None), ("name", None),
     ("temperature", "temperature"), ("pressure", "pressure"), ("enthalpy", "specific_enthalpy"),

@@ -18,7 +18,7 @@ from matplotlib.font_manager import FontProperties
 from matplotlib.lines import Line2D
 from matplotlib.patches import Rectangle
 
-from ..charts import style
+from app.charts import style
 
 #: paper name -> (width, height), [in]; ISO 216 A4 is 210 mm × 297 mm, US Letter 8.5 in × 11 in
 PAPER_SIZES = {"A4": (210.0 / 25.4, 297.0 / 25.4), "Letter": (8.5, 11.0)}

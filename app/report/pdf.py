@@ -15,9 +15,9 @@ from importlib import metadata
 import matplotlib
 from matplotlib.backends.backend_pdf import PdfPages
 
-from . import sections
-from .atomic import atomic_path
-from .layout import Pager
+from app.report import sections
+from app.report.atomic import atomic_path
+from app.report.layout import Pager
 
 
 def program_version() -> str:

@@ -1,6 +1,6 @@
 """What the printed report says: each section as tables and text, in display units.
 
-Every number goes through :mod:`app.units` (the one table of display units). Section
+Every number goes through :mod:`app.presentation.units` (the one table of display units). Section
 functions take the project document, its solved result (``TrainResult.to_dict()``) and a
 :class:`~app.report.layout.Pager`, and print themselves onto the pager.
 """
@@ -13,11 +13,11 @@ from dataclasses import dataclass
 
 from thermo.document import normalise
 
-from .. import units
-from ..cautions import CAUTIONS, DEFERRAL
-from ..result_notes import negative_notes
-from ..charts import draw_power_split, draw_staging_chart, draw_ts_chart
-from .layout import Column, Pager, Table
+from app.presentation import units
+from app.presentation.cautions import CAUTIONS, DEFERRAL
+from app.presentation.result_notes import negative_notes
+from app.charts import draw_power_split, draw_staging_chart, draw_ts_chart
+from app.report.layout import Column, Pager, Table
 
 _DASH = "—"
 

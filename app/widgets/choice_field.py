@@ -7,7 +7,7 @@ from typing import Callable
 
 from PySide6.QtWidgets import QComboBox
 
-from .signals_blocked import signals_blocked
+from app.widgets.signals_blocked import signals_blocked
 
 
 class ChoiceField(QComboBox):
@@ -39,7 +39,7 @@ class ChoiceField(QComboBox):
         if value is None:
             value = self.editor.model.get(self.path)
             if value not in self._values:
-                from ..doc_paths import get_in
+                from app.document.paths import get_in
                 value = get_in(self.editor.model.normalised(), self.path, None)
         with signals_blocked(self):
             self.setCurrentIndex(self._values.index(value) if value in self._values else -1)

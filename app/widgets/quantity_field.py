@@ -1,6 +1,6 @@
 """An entry field bound to one document path, typed in the display unit of its quantity.
 
-The field shows the SI value of the document converted with :mod:`app.units`, writes back
+The field shows the SI value of the document converted with :mod:`app.presentation.units`, writes back
 only when the user changed the text, and never clamps: text that is not a number is kept,
 marked and reported through :meth:`Editor.set_entry_error`; a number out of range goes into
 the document, where :func:`thermo.document.problems` reports it with the schema's range.
@@ -14,10 +14,10 @@ import math
 from PySide6.QtCore import Qt, Signal
 from PySide6.QtWidgets import QHBoxLayout, QLabel, QLineEdit, QWidget
 
-from .. import units
-from ..doc_paths import ABSENT
-from ..field_specs import quantity_for, spec_for
-from .signals_blocked import signals_blocked
+from app.presentation import units
+from app.document.paths import ABSENT
+from app.document.field_specs import quantity_for, spec_for
+from app.widgets.signals_blocked import signals_blocked
 
 ENTRY_DIGITS = 12  # significant digits kept from what was typed (far beyond any entry)
 
@@ -176,5 +176,5 @@ class QuantityField(QWidget):
 
 def _normalised_default(editor, path: str):
     """Schema default for a key the document leaves out (shown, not written)."""
-    from ..doc_paths import get_in
+    from app.document.paths import get_in
     return get_in(editor.model.normalised(), path, ABSENT)

@@ -5,8 +5,8 @@ __all__ = ["TextField"]
 
 from PySide6.QtWidgets import QLineEdit
 
-from ..doc_paths import ABSENT
-from .signals_blocked import signals_blocked
+from app.document.paths import ABSENT
+from app.widgets.signals_blocked import signals_blocked
 
 
 class TextField(QLineEdit):

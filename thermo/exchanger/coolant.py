@@ -30,8 +30,8 @@ import math
 from dataclasses import dataclass
 
 
-from .. import coolprop_adapter as cpa
-from ..errors import InputError, PropertyRangeError
+from thermo import coolprop_adapter as cpa
+from thermo.errors import InputError, PropertyRangeError
 
 #: pressure at which liquid-coolant properties are evaluated, [Pa]; liquids are nearly
 #: incompressible, and CoolProp's incompressible tables do not depend on it.

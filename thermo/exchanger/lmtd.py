@@ -5,8 +5,8 @@ __all__ = ["log_mean", "counterflow_lmtd", "correction_factor"]
 
 import math
 
-from ..errors import InputError
-from .effectiveness import ntu_from_effectiveness
+from thermo.errors import InputError
+from thermo.exchanger.effectiveness import ntu_from_effectiveness
 
 
 def log_mean(dt1: float, dt2: float, field: str = "temperature difference") -> float:

@@ -19,8 +19,8 @@ import math
 from typing import Callable
 
 
-from ..errors import InputError, PropertyRangeError
-from .sizing import Exchanger, HotSide, size_exchanger
+from thermo.errors import InputError, PropertyRangeError
+from thermo.exchanger.sizing import Exchanger, HotSide, size_exchanger
 
 _INFEASIBLE = 60.0
 

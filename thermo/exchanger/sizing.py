@@ -35,10 +35,10 @@ from dataclasses import dataclass, field
 from typing import Callable
 
 
-from ..errors import InputError
-from .coolant import CoolantSide, coolant_side
-from .effectiveness import ARRANGEMENTS, max_effectiveness, ntu_from_effectiveness
-from .lmtd import counterflow_lmtd
+from thermo.errors import InputError
+from thermo.exchanger.coolant import CoolantSide, coolant_side
+from thermo.exchanger.effectiveness import ARRANGEMENTS, max_effectiveness, ntu_from_effectiveness
+from thermo.exchanger.lmtd import counterflow_lmtd
 
 
 def brentq(*args, **kwargs):

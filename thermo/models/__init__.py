@@ -3,10 +3,10 @@ from __future__ import annotations
 
 __all__ = ["MODELS", "make_model", "Point", "PropertyModel"]
 
-from .base import Point, PropertyModel
-from .constant_cp import ConstantCpAir
-from .ideal_gas import IdealGasAir
-from .real_gas import RealGasAir
+from thermo.models.base import Point, PropertyModel
+from thermo.models.constant_cp import ConstantCpAir
+from thermo.models.ideal_gas import IdealGasAir
+from thermo.models.real_gas import RealGasAir
 
 #: model name -> factory taking the project's ``fluid`` section
 MODELS = {

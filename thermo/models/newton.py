@@ -5,8 +5,8 @@ __all__ = ["invert_temperature", "invert_to_state"]
 
 from typing import Callable
 
-from ..errors import PropertyRangeError
-from .base import T_MAX, T_MIN
+from thermo.errors import PropertyRangeError
+from thermo.models.base import T_MAX, T_MIN
 
 
 def invert_temperature(value_and_slope: Callable[[float], tuple[float, float]], target: float,

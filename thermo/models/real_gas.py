@@ -3,9 +3,9 @@ from __future__ import annotations
 
 __all__ = ["RealGasAir"]
 
-from .. import coolprop_adapter as cpa
-from .base import Point, check_range
-from .newton import invert_temperature
+from thermo import coolprop_adapter as cpa
+from thermo.models.base import Point, check_range
+from thermo.models.newton import invert_temperature
 
 
 class RealGasAir:

@@ -10,10 +10,10 @@ Modules: :mod:`.parse` (untrusted bytes → JSON data, with size and depth limit
 """
 from __future__ import annotations
 
-from . import migrate  # the module (its function: thermo.project.migrate.migrate)
-from .parse import MAX_DEPTH, MAX_FILE_BYTES
-from .reading import load, load_with_problems, loads, read_document
-from .writing import atomic_write, backup_path, dumps, save
+from thermo.project import migrate  # the module (its function: thermo.project.migrate.migrate)
+from thermo.project.parse import MAX_DEPTH, MAX_FILE_BYTES
+from thermo.project.reading import load, load_with_problems, loads, read_document
+from thermo.project.writing import atomic_write, backup_path, dumps, save
 
 __all__ = ["load", "load_with_problems", "loads", "save", "dumps", "backup_path", "atomic_write",
            "read_document", "MAX_FILE_BYTES", "MAX_DEPTH"]

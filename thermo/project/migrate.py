@@ -24,8 +24,8 @@ import copy
 import math
 from typing import Callable
 
-from .. import schema
-from ..errors import ProjectFileError
+from thermo import schema
+from thermo.errors import ProjectFileError
 
 #: from-version → function turning a document of that version into the next version's
 STEPS: dict[int, Callable[[dict], dict]] = {}

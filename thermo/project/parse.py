@@ -20,7 +20,7 @@ import stat
 from pathlib import Path
 from typing import Any
 
-from ..errors import ProjectFileError
+from thermo.errors import ProjectFileError
 
 #: Largest project file read, [bytes]. The largest document the schema allows (an hourly
 #: year profile of 8784 labelled bins, 12 stages with the longest names, all text in 4-byte

@@ -10,11 +10,11 @@ __all__ = ["load", "loads", "load_with_problems", "read_document", "accept", "re
 from pathlib import Path
 from typing import Any
 
-from .. import schema
-from ..document import problems
-from ..errors import InputError, ProjectFileError, StagewrightError
-from .migrate import migrate
-from .parse import parse_bytes, read_limited
+from thermo import schema
+from thermo.document import problems
+from thermo.errors import InputError, ProjectFileError, StagewrightError
+from thermo.project.migrate import migrate
+from thermo.project.parse import parse_bytes, read_limited
 
 
 def recognise(data: Any) -> dict:

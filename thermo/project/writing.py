@@ -25,10 +25,10 @@ import stat
 from pathlib import Path
 from typing import Any
 
-from .. import schema
-from ..errors import InputError, SaveError
-from ..schema_types import Items, Obj, Variant
-from .parse import MAX_FILE_BYTES
+from thermo import schema
+from thermo.errors import InputError, SaveError
+from thermo.schema_types import Items, Obj, Variant
+from thermo.project.parse import MAX_FILE_BYTES
 
 
 def backup_path(path) -> Path:

@@ -14,13 +14,13 @@ study only chooses the stage ratios and the number of stages. Modules, one conce
 * :mod:`~thermo.study.sensitivity` — :func:`sensitivity`
 * :mod:`~thermo.study.progress` — progress spans, cancellation, :class:`StudyCancelled`
 """
-from .compare import (DEFAULT_ENERGY_PRICE, DEFAULT_OPERATING_HOURS, StagingComparison, StagingOption,
+from thermo.study.compare import (DEFAULT_ENERGY_PRICE, DEFAULT_OPERATING_HOURS, StagingComparison, StagingOption,
                       compare_stagings)
-from .limits import BindingLimit, LimitNotMet
-from .optimal_split import SplitResult, optimal_split
-from .options import MAX_STAGES
-from .progress import StudyCancelled
-from .sensitivity import SITE_VARIABLES, SensitivityStudy, sensitivity
+from thermo.study.limits import BindingLimit, LimitNotMet
+from thermo.study.optimal_split import SplitResult, optimal_split
+from thermo.study.options import MAX_STAGES
+from thermo.study.progress import StudyCancelled
+from thermo.study.sensitivity import SITE_VARIABLES, SensitivityStudy, sensitivity
 
 __all__ = ["optimal_split", "compare_stagings", "sensitivity", "SplitResult", "StagingOption",
            "StagingComparison", "SensitivityStudy", "BindingLimit", "LimitNotMet", "StudyCancelled",

@@ -8,11 +8,11 @@ import math
 from dataclasses import dataclass, field
 from typing import Any, Callable
 
-from ..errors import InputError
-from .optimal_split import SplitResult, split_prepared
-from .options import check_stage_count, staging_note, staging_stages
-from .prepare import prepare
-from .progress import ProgressSpan, StudyCancelled, cancel_check
+from thermo.errors import InputError
+from thermo.study.optimal_split import SplitResult, split_prepared
+from thermo.study.options import check_stage_count, staging_note, staging_stages
+from thermo.study.prepare import prepare
+from thermo.study.progress import ProgressSpan, StudyCancelled, cancel_check
 
 #: Operating hours per year used for the yearly saving unless given (two shifts and
 #: weekends, close to continuous; common practice, no source).

@@ -20,8 +20,8 @@ import math
 from dataclasses import dataclass
 
 
-from ..errors import InputError
-from ..split import delivered_pressure
+from thermo.errors import InputError
+from thermo.split import delivered_pressure
 
 #: Smallest ratio the study gives a stage: a numerical floor (a stage at ratio 1 does
 #: nothing and its polytropic exponent is undefined), not an engineering limit.

@@ -9,15 +9,15 @@ from typing import Any, Callable
 
 import numpy as np
 
-from ..document import site_pressure
-from ..results import TrainResult
-from ..solve import model_for, solve
-from .limits import (BindingLimit, LimitNotMet, RatioBounds, implied_ratio, pressure_reach_problems,
+from thermo.document import site_pressure
+from thermo.results import TrainResult
+from thermo.solve import model_for, solve
+from thermo.study.limits import (BindingLimit, LimitNotMet, RatioBounds, implied_ratio, pressure_reach_problems,
                      ratio_bounds)
-from .prepare import Prepared, prepare
-from .progress import cancel_check
-from .start import equal_split, ideal_gas_split
-from .trials import SoftLimit, Trial, TrialSolver, soft_limits
+from thermo.study.prepare import Prepared, prepare
+from thermo.study.progress import cancel_check
+from thermo.study.start import equal_split, ideal_gas_split
+from thermo.study.trials import SoftLimit, Trial, TrialSolver, soft_limits
 
 METHOD = ("SLSQP (scipy.optimize) on the logarithms of the stage ratios; the last free stage's "
           "ratio follows from the discharge pressure (thermo.split.delivered_pressure), so it is "

@@ -6,8 +6,8 @@ __all__ = ["Prepared", "prepare"]
 import copy
 from dataclasses import dataclass, field
 
-from ..document import normalise
-from ..solve import solve
+from thermo.document import normalise
+from thermo.solve import solve
 
 
 @dataclass

@@ -5,7 +5,7 @@ __all__ = ["StudyCancelled", "cancel_check", "ProgressSpan"]
 
 from typing import Any, Callable
 
-from ..errors import StagewrightError
+from thermo.errors import StagewrightError
 
 
 class StudyCancelled(StagewrightError):

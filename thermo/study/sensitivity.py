@@ -7,12 +7,12 @@ import copy
 from dataclasses import dataclass
 from typing import Any, Callable
 
-from ..document import normalise
-from ..errors import InputError, StagewrightError
-from .compare import (DEFAULT_ENERGY_PRICE, DEFAULT_OPERATING_HOURS, StagingComparison, check_economics,
+from thermo.document import normalise
+from thermo.errors import InputError, StagewrightError
+from thermo.study.compare import (DEFAULT_ENERGY_PRICE, DEFAULT_OPERATING_HOURS, StagingComparison, check_economics,
                       compare_stagings)
-from .options import check_stage_count
-from .progress import ProgressSpan, StudyCancelled, cancel_check
+from thermo.study.options import check_stage_count
+from thermo.study.progress import ProgressSpan, StudyCancelled, cancel_check
 
 #: site variable -> (section, key) of the project document it sets
 SITE_VARIABLES = {

@@ -7,13 +7,13 @@ import math
 from typing import Callable
 
 
-from ..cooler import cooler_outlet_temperature
-from ..document import site_pressure
-from ..errors import InputError
-from ..flow import mass_flow_from
-from ..models.base import PropertyModel
-from ..split import delivered_pressure, stage_pressure_ratios
-from .limits import RATIO_CAP, RatioBounds
+from thermo.cooler import cooler_outlet_temperature
+from thermo.document import site_pressure
+from thermo.errors import InputError
+from thermo.flow import mass_flow_from
+from thermo.models.base import PropertyModel
+from thermo.split import delivered_pressure, stage_pressure_ratios
+from thermo.study.limits import RATIO_CAP, RatioBounds
 
 
 def brentq(*args, **kwargs):

@@ -7,12 +7,12 @@ import math
 from dataclasses import dataclass
 from typing import Callable
 
-from ..cooler import cooler_outlet_temperature, outlet_field
-from ..errors import InputError, StagewrightError
-from ..results import TrainResult
-from ..schema import STAGE
-from ..solve import solve_normalised
-from .progress import StudyCancelled
+from thermo.cooler import cooler_outlet_temperature, outlet_field
+from thermo.errors import InputError, StagewrightError
+from thermo.results import TrainResult
+from thermo.schema import STAGE
+from thermo.solve import solve_normalised
+from thermo.study.progress import StudyCancelled
 
 
 @dataclass(frozen=True)

@@ -1,0 +1,114 @@
+"""One staging-study job of the window: what to run, running it, and the plain-data answer.
+
+Qt-free, so the window's worker thread (:mod:`app.study.worker`) only moves these around.
+The answer is a list of *cases*: one for a plain comparison, one per value of the site
+variable for a sensitivity run. Each case carries the comparison rows of
+:meth:`thermo.study.StagingComparison.rows` (SI, unit in each key).
+"""
+from __future__ import annotations
+
+__all__ = ["StudyRequest", "run_request", "partial_answer"]
+
+import copy
+from dataclasses import dataclass, field
+from typing import Any, Callable
+
+
+@dataclass(frozen=True)
+class StudyRequest:
+    """What the user asked for.
+
+    Attributes
+    ----------
+    doc : dict
+        A private copy of the project document.
+    max_stages : int
+        Most stages, 1 … 8.
+    operating_hours_per_year : float
+        [h]
+    energy_price_per_kWh : float
+        [currency/kWh]
+    variable : str or None
+        A key of :data:`thermo.study.SITE_VARIABLES` for a sensitivity run.
+    values : tuple of float
+        Values of ``variable`` in its SI unit.
+    """
+
+    doc: dict
+    max_stages: int
+    operating_hours_per_year: float
+    energy_price_per_kWh: float
+    variable: str | None = None
+    values: tuple = field(default_factory=tuple)
+
+
+def _first_efficiency(doc: dict) -> dict | None:
+    """The efficiency the study gave the first stage when the project measures its discharge
+    temperature (the isentropic efficiency that temperature implies); None otherwise."""
+    stages = doc.get("stages") or []
+    eff = stages[0].get("efficiency") if stages and isinstance(stages[0], dict) else None
+    if not isinstance(eff, dict) or eff.get("kind") != "discharge_temperature":
+        return None
+    from thermo.study.prepare import prepare
+    return copy.deepcopy(prepare(doc).doc["stages"][0]["efficiency"])
+
+
+def _case(value, comparison=None, rows=None, error=None) -> dict:
+    if comparison is not None:
+        rows = comparison.rows()
+    return {"value": value, "rows": rows or [], "error": error}
+
+
+def _answer(req: StudyRequest, cases: list[dict], complete: bool, message: str = "") -> dict:
+    return {"variable": req.variable, "max_stages": req.max_stages, "cases": cases, "complete": complete,
+            "message": message, "operating_hours_per_year": req.operating_hours_per_year,
+            "energy_price_per_kWh": req.energy_price_per_kWh}
+
+
+def run_request(req: StudyRequest, progress: Callable[[float, str], Any] | None = None,
+                cancel: Any = None) -> dict:
+    """Run the comparison (or the sensitivity run) of a request.
+
+    Returns
+    -------
+    dict
+        ``variable``, ``max_stages``, ``cases`` (each ``value``, ``rows``, ``error``),
+        ``complete`` (True), ``message``, the economics, and ``first_efficiency`` (see
+        :func:`_first_efficiency`).
+
+    Raises
+    ------
+    thermo.errors.StagewrightError
+        Bad input (named field) or :class:`thermo.study.StudyCancelled`.
+    """
+    from thermo.study import compare_stagings, sensitivity
+
+    kw = dict(operating_hours_per_year=req.operating_hours_per_year,
+              energy_price_per_kWh=req.energy_price_per_kWh, progress=progress, cancel=cancel)
+    if req.variable:
+        study = sensitivity(req.doc, req.variable, list(req.values), req.max_stages, **kw)
+        cases = [_case(p.value, p.comparison, error=p.error) for p in study.points]
+    else:
+        cases = [_case(None, compare_stagings(req.doc, max_stages=req.max_stages, **kw))]
+    out = _answer(req, cases, True)
+    out["first_efficiency"] = _first_efficiency(req.doc)
+    return out
+
+
+def partial_answer(req: StudyRequest, partial: list, message: str) -> dict:
+    """The answer made of what a cancelled study had finished (``StudyCancelled.partial``)."""
+    from thermo.document import normalise
+    from thermo.study import StagingComparison
+    from thermo.study.options import staging_note
+
+    if req.variable:
+        cases = [_case(p.value, p.comparison, error=p.error) for p in partial]
+    elif partial:
+        note = staging_note(normalise(req.doc)["stages"])
+        comp = StagingComparison(list(partial), note, req.operating_hours_per_year, req.energy_price_per_kWh)
+        cases = [_case(None, comp)]
+    else:
+        cases = []
+    out = _answer(req, cases, False, message)
+    out["first_efficiency"] = _first_efficiency(req.doc) if cases else None
+    return out

@@ -1,0 +1,44 @@
+"""Run staging studies off the GUI thread, with progress, cancellation and stale answers dropped.
+
+A :class:`~app.jobs.job_runner.JobRunner`: every study gets a job id one higher than the last, and
+only the newest job's progress and answer are passed on. Each job has its own
+``threading.Event``: Cancel sets it and the study stops before its next trial solve
+(``thermo.study`` checks it), answering ``cancelled`` with what it had finished. Errors
+become a ``failed`` signal with the reason and the field path.
+"""
+from __future__ import annotations
+
+__all__ = ["StudyController"]
+
+import threading
+from typing import Callable
+
+from PySide6.QtCore import Signal
+
+from app.jobs.job_runner import JobCancelled, JobRunner
+from app.study.job import StudyRequest, partial_answer, run_request
+
+
+def _study(request: StudyRequest, report: Callable[[float, str], None], cancel: threading.Event) -> dict:
+    from thermo.study import StudyCancelled
+    try:
+        return run_request(request, report, cancel)
+    except StudyCancelled as exc:
+        raise JobCancelled(partial_answer(request, exc.partial, str(exc)), str(exc)) from None
+
+
+class StudyController(JobRunner):
+    """Owns the study thread; the study panel calls :meth:`run` (a :class:`~app.study.job.StudyRequest`),
+    :meth:`cancel` and :meth:`forget`.
+
+    Signals
+    -------
+    started(job), progress(job, fraction, message), finished(job, answer, seconds),
+    cancelled(job, partial answer, message), failed(job, message, field)
+        All but ``started`` only ever carry the newest job.
+    """
+
+    progress = Signal(int, float, str)
+
+    def __init__(self, parent=None):
+        super().__init__(_study, what="the staging study", thread_name="stagewright-study", parent=parent)

@@ -1,0 +1,173 @@
+"""The glue between views and the document: edits become undo commands, problems are
+collected, solves are requested and results published.
+
+Views call :meth:`Editor.set_value` (one undo step per user action) and listen to the
+signals below; they never touch the document or the undo stack directly.
+"""
+from __future__ import annotations
+
+__all__ = ["Editor", "ABSENT"]
+
+import copy
+from typing import Any
+
+from PySide6.QtCore import QObject, Signal
+from PySide6.QtGui import QUndoStack
+
+from thermo.atmosphere import standard_pressure
+from thermo.errors import Problem
+
+from app.window.commands import InsertStage, MoveStage, RemoveStage, SetValues
+from app.document.display_prefs import DisplayPrefs
+from app.document.paths import ABSENT, is_related, stage_path
+from app.document.model import ProjectModel
+from app.document.field_specs import edit_text
+from app.jobs.solve_worker import SolveController
+
+
+class Editor(QObject):
+    """One per window.
+
+    Signals
+    -------
+    problems_changed()
+        Document problems or unreadable entries changed (see :attr:`problems`, :attr:`entry_errors`).
+    result_changed()
+        A new result arrived, a solve failed, or the result went stale.
+    solve_started()
+    focus_requested(str)
+        The messages area asks the panels to show the field at this path.
+    """
+
+    problems_changed = Signal()
+    result_changed = Signal()
+    solve_started = Signal()
+    focus_requested = Signal(str)
+
+    def __init__(self, model: ProjectModel, prefs: DisplayPrefs, parent=None, debounce_ms: int = 150):
+        super().__init__(parent)
+        self.model = model
+        self.prefs = prefs
+        self.undo_stack = QUndoStack(self)
+        self.solver = SolveController(self, debounce_ms=debounce_ms)
+        self.problems: list[Problem] = []
+        self.entry_errors: dict[str, str] = {}  # path -> message for text that is not a number
+        self.result: dict | None = None  # last good result (may be stale)
+        self.stale = True
+        self.failure: tuple[str, str] | None = None  # (message, field) of the last failed solve
+        self.solve_seconds: float | None = None
+        self.solved_jobs = 0
+        self.solver.finished.connect(self._on_solved)
+        self.solver.failed.connect(self._on_failed)
+        self.solver.started.connect(lambda _job: self.solve_started.emit())
+        model.changed.connect(self._on_model_changed)
+
+    # ---- reading helpers for views -----------------------------------------------------
+    def barometric_Pa(self) -> float:
+        """Site barometric pressure [Pa] for gauge display (standard atmosphere from elevation)."""
+        site = self.model.get("site", {}) or {}
+        p = site.get("barometric_pressure_Pa")
+        if isinstance(p, (int, float)) and not isinstance(p, bool) and p > 0:
+            return float(p)
+        z = site.get("elevation_m")
+        if isinstance(z, (int, float)) and not isinstance(z, bool):
+            try:
+                return standard_pressure(float(z))
+            except Exception:  # out of the standard atmosphere: the field shows the problem
+                pass
+        return 101_325.0
+
+    def problem_for(self, path: str) -> str | None:
+        """Message marking the field at ``path`` (unreadable entry first, then range problem)."""
+        if path in self.entry_errors:
+            return self.entry_errors[path]
+        for p in self.problems:
+            if p.field == path:
+                return p.expected
+        return None
+
+    # ---- edits ---------------------------------------------------------------------------
+    def set_value(self, path: str, value: Any, text: str | None = None) -> bool:
+        """Change one value as one undo step; return False when nothing changed."""
+        return self.set_values([(path, value)], text or edit_text(path, self.model.doc))
+
+    def set_values(self, pairs: list[tuple[str, Any]], text: str) -> bool:
+        pairs = [(p, v) for p, v in pairs if self.model.get(p) != v or type(self.model.get(p)) is not type(v)]
+        if not pairs:
+            return False
+        self.undo_stack.push(SetValues(self.model, pairs, text))
+        return True
+
+    def insert_stage(self, index: int, stage: dict, text: str) -> None:
+        self.undo_stack.push(InsertStage(self.model, index, stage, text))
+
+    def remove_stage(self, index: int) -> None:
+        self.undo_stack.push(RemoveStage(self.model, index, f"Remove stage {index + 1}"))
+
+    def move_stage(self, index: int, new_index: int) -> None:
+        direction = "up" if new_index < index else "down"
+        self.undo_stack.push(MoveStage(self.model, index, new_index, f"Move stage {index + 1} {direction}"))
+
+    def set_entry_error(self, path: str, message: str | None) -> None:
+        """Record (or clear, with None) text in a field that could not be read as a value."""
+        if message is None:
+            if self.entry_errors.pop(path, None) is None:
+                return
+        else:
+            if self.entry_errors.get(path) == message:
+                return
+            self.entry_errors[path] = message
+        self._revalidate()
+
+    def request_focus(self, path: str) -> None:
+        self.focus_requested.emit(path)
+
+    # ---- solving -------------------------------------------------------------------------
+    def _on_model_changed(self, path: str) -> None:
+        if path == "":
+            self.entry_errors.clear()
+        else:
+            for p in [p for p in self.entry_errors if is_related(p, path)]:
+                del self.entry_errors[p]
+        self._revalidate()
+
+    def _revalidate(self) -> None:
+        self.problems = self.model.problems()
+        self.problems_changed.emit()
+        if self.problems or self.entry_errors:
+            self.solver.cancel()
+            self.failure = None
+            self._mark_stale()
+        else:
+            self.solve_now(immediate=False)
+
+    def solve_now(self, immediate: bool = True) -> None:
+        """Ask the worker to solve the current document (no-op while it has problems)."""
+        self.problems = self.model.problems()
+        if self.problems or self.entry_errors:
+            self._mark_stale()
+            return
+        self.solver.request(self.model.snapshot(), immediate=immediate)
+        self._mark_stale()
+
+    def _mark_stale(self) -> None:
+        if not self.stale:
+            self.stale = True
+            self.result_changed.emit()
+
+    def _on_solved(self, job_id: int, result: dict, seconds: float) -> None:
+        self.result, self.stale, self.failure, self.solve_seconds = result, False, None, seconds
+        self.solved_jobs += 1
+        self.result_changed.emit()
+
+    def _on_failed(self, job_id: int, message: str, field: str) -> None:
+        self.stale, self.failure, self.solve_seconds = True, (message, field), None
+        self.result_changed.emit()
+
+    # ---- stage helpers -------------------------------------------------------------------
+    def stage(self, index: int) -> dict:
+        return copy.deepcopy(self.model.get(stage_path(index), {}))
+
+    def shutdown(self) -> None:
+        self.solver.shutdown()
+

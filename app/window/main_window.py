@@ -1,0 +1,359 @@
+"""The workbench window: charts in the middle, input panels, balance sheet and messages in
+docks, one undo stack, a live solve, and the File/Edit/Train/View/Help menus."""
+from __future__ import annotations
+
+__all__ = ["MainWindow", "STATE_VERSION"]
+
+from pathlib import Path
+
+from PySide6.QtCore import QSettings, Qt, QTimer
+from PySide6.QtGui import QAction, QKeySequence
+from PySide6.QtWidgets import (QDockWidget, QFrame, QLabel, QMainWindow, QMessageBox, QScrollArea, QStyle,
+                               QWidget)
+
+import thermo
+from thermo.coolprop_adapter import eos_reference
+
+from app.presentation import units
+from app.window.actions import ACTIONS, MENUS, TOOLBAR
+from app.document.display_prefs import DisplayPrefs
+from app.document.model import ProjectModel
+from app.window.editor import Editor
+from app.window.export_ops import ExportOps
+from app.window.file_ops import FileOps
+from app.window.recovery_ops import AUTOSAVE_MS, RecoveryOps
+from app.study.ops import StudyOps
+from app.window.help_dialogs import CautionsDialog, about_text
+from app.window.icons import icon
+from app.panels.balance_panel import BalancePanel
+from app.panels.charts_panel import ChartsPanel
+from app.panels.duty_panel import DutyPanel
+from app.panels.messages_panel import MessagesPanel
+from app.panels.site_panel import SitePanel
+from app.study.panel import StudyPanel
+from app.year.panel import YearPanel
+from app.panels.train_panel import TrainPanel
+
+STATE_VERSION = 2  #: bump when panels are added or renamed, so old saved layouts are ignored
+
+
+class MainWindow(FileOps, ExportOps, RecoveryOps, StudyOps, QMainWindow):
+    """One project per window.
+
+    Parameters
+    ----------
+    doc : dict, optional
+        Project document to show (a new project when None).
+    path : path-like, optional
+        File the document came from.
+    settings : QSettings, optional
+        Where layout, unit system and recent files live (tests pass a temporary file).
+    debounce_ms : int
+        Delay between the last edit and the solve.
+    autosave_ms : int or None
+        Delay from a change to the recovery-file write (None: no autosave).
+    """
+
+    def __init__(self, doc: dict | None = None, path=None, settings: QSettings | None = None,
+                 debounce_ms: int = 150, restore_layout: bool = True, autosave_ms: int | None = AUTOSAVE_MS):
+        super().__init__()
+        self.settings = settings if settings is not None else QSettings()
+        system = self.settings.value("display/system", "SI")
+        gauge = self.settings.value("display/gauge", True, type=bool)
+        self.prefs = DisplayPrefs(system if system in units.SYSTEMS else "SI", gauge)
+        self.model = ProjectModel(doc)
+        self.editor = Editor(self.model, self.prefs, self, debounce_ms=debounce_ms)
+        self.path = Path(path) if path else None
+        self.setWindowIcon(icon("app"))
+        self.setDockOptions(QMainWindow.AnimatedDocks | QMainWindow.AllowTabbedDocks
+                            | QMainWindow.AllowNestedDocks)
+
+        self.panels: dict[str, QWidget] = {}
+        self.docks: dict[str, QDockWidget] = {}
+        self.charts = ChartsPanel(self.editor)
+        self.setCentralWidget(self.charts)
+        self.panels["charts"] = self.charts
+        self._build_actions()
+        self.add_panel("site", SitePanel(self.editor), Qt.LeftDockWidgetArea, scroll=True)
+        self.add_panel("duty", DutyPanel(self.editor), Qt.LeftDockWidgetArea, scroll=True)
+        self.add_panel("train", TrainPanel(self.editor), Qt.RightDockWidgetArea)
+        self.add_panel("messages", MessagesPanel(self.editor), Qt.LeftDockWidgetArea)
+        self.add_panel("balance", BalancePanel(self.editor), Qt.BottomDockWidgetArea)
+        self.add_panel("study", StudyPanel(self.editor), Qt.BottomDockWidgetArea, tabify_with="balance")
+        self.add_panel("year", YearPanel(self.editor), Qt.BottomDockWidgetArea, tabify_with="balance")
+        self.docks["balance"].raise_()
+        # inputs and messages run the full height on the left; the balance sheet spans the
+        # charts and the train panel, where it has the width its columns need
+        self.setCorner(Qt.BottomLeftCorner, Qt.LeftDockWidgetArea)
+        self.setCorner(Qt.BottomRightCorner, Qt.BottomDockWidgetArea)
+        self.panels["train"].set_actions(self.action_map)
+        self.panels["study"].set_actions(self.action_map)
+        self.panels["study"].messages_changed.connect(self.panels["messages"].set_source_messages)
+        self.connect_study()
+        self.panels["messages"].count_changed.connect(self._on_message_count)
+        self._build_menus()
+        self._build_status()
+
+        # bound methods, not lambdas: Qt drops these connections when the window is deleted
+        # (the undo stack still announces its last index change while it is destroyed)
+        self.editor.undo_stack.cleanChanged.connect(self._on_undo_changed)
+        self.editor.undo_stack.indexChanged.connect(self._on_undo_changed)
+        self.editor.focus_requested.connect(self.focus_field)
+        self.editor.result_changed.connect(self._update_status)
+        self.editor.solve_started.connect(self._update_status)
+        self.prefs.changed.connect(self._on_prefs)
+        self.resize(1280, 800)
+        self._default_state = None
+        self._restore_layout = restore_layout
+        self.update_title()
+        self._on_prefs()
+        self.setup_autosave(autosave_ms)
+        self.editor.solve_now(immediate=True)
+
+    def _on_undo_changed(self, *_args) -> None:
+        self.update_title()
+
+    # ---- panels --------------------------------------------------------------------------
+    def add_panel(self, pid: str, widget: QWidget, area, split_from: str | None = None,
+                  orientation=Qt.Vertical, tabify_with: str | None = None,
+                  scroll: bool = False) -> QDockWidget:
+        """Put ``widget`` in a dock (object name ``panel-<id>`` for saveState) with a View toggle.
+
+        With ``scroll`` the panel sits in a scroll area: a narrow dock scrolls instead of
+        cutting fields off or forcing the window wider.
+        """
+        dock = QDockWidget(widget.title.replace("&", "&&"), self)
+        dock.setObjectName(f"panel-{pid}")
+        if scroll:
+            area_widget = QScrollArea()
+            area_widget.setWidgetResizable(True)
+            area_widget.setFrameShape(QFrame.NoFrame)
+            area_widget.setWidget(widget)
+            dock.setWidget(area_widget)
+        else:
+            dock.setWidget(widget)
+        dock.setFeatures(QDockWidget.DockWidgetMovable | QDockWidget.DockWidgetFloatable
+                         | QDockWidget.DockWidgetClosable)
+        if split_from:
+            self.addDockWidget(area, dock)
+            self.splitDockWidget(self.docks[split_from], dock, orientation)
+        elif tabify_with:
+            self.tabifyDockWidget(self.docks[tabify_with], dock)
+        else:
+            self.addDockWidget(area, dock)
+        toggle = dock.toggleViewAction()
+        toggle.setText(widget.title.replace("&", "&&"))
+        toggle.setStatusTip(f"Show or hide the {widget.title.lower()} panel")
+        self.panels[pid] = widget
+        self.docks[pid] = dock
+        return dock
+
+    def focus_field(self, path: str) -> None:
+        """Bring the panel that owns ``path`` to the front and focus its field."""
+        order = ["train", "site", "duty"]
+        for pid in order:
+            panel = self.panels[pid]
+            owns = panel.focus_field(path) if pid == "train" else panel.field_for(path) is not None
+            if owns:
+                dock = self.docks[pid]
+                dock.show()
+                dock.raise_()
+                if pid != "train":
+                    panel.focus_field(path)
+                return
+        self.statusBar().showMessage(f"{path}: no entry field for this item", 4000)
+
+    # ---- actions and menus ---------------------------------------------------------------
+    def _build_actions(self) -> None:
+        self.action_map: dict[str, QAction] = {}
+        for spec in ACTIONS:
+            act = QAction(spec.text, self)
+            act.setObjectName(spec.id)
+            if spec.icon.startswith("std:"):
+                act.setIcon(self.style().standardIcon(getattr(QStyle.StandardPixmap, spec.icon[4:])))
+            elif spec.icon:
+                act.setIcon(icon(spec.icon))
+            if spec.shortcut:
+                std = getattr(QKeySequence.StandardKey, spec.shortcut, None)
+                act.setShortcut(QKeySequence(std) if std is not None else QKeySequence(spec.shortcut))
+            if spec.tip:
+                act.setToolTip(spec.tip)
+                act.setStatusTip(spec.tip)
+            act.setCheckable(spec.checkable)
+            if spec.short:
+                act.setIconText(spec.short)
+            target, method = spec.handler.split(".", 1)
+            if spec.checkable:
+                act.toggled.connect(lambda on, t=target, m=method: self._call(t, m, on))
+            else:
+                act.triggered.connect(lambda _=False, t=target, m=method: self._call(t, m))
+            self.addAction(act)
+            self.action_map[spec.id] = act
+        self.undo_action = self.editor.undo_stack.createUndoAction(self, "&Undo")
+        self.undo_action.setShortcut(QKeySequence.Undo)
+        self.undo_action.setIcon(self.style().standardIcon(QStyle.StandardPixmap.SP_ArrowBack))
+        self.redo_action = self.editor.undo_stack.createRedoAction(self, "&Redo")
+        self.redo_action.setShortcut(QKeySequence.Redo)
+        self.redo_action.setIcon(self.style().standardIcon(QStyle.StandardPixmap.SP_ArrowForward))
+
+    def _call(self, target: str, method: str, *args) -> None:
+        owner = self if target == "window" else self.panels[target]
+        getattr(owner, method)(*args)
+
+    def _special(self, key: str):
+        return {"@undo": self.undo_action, "@redo": self.redo_action}.get(key)
+
+    def _build_menus(self) -> None:
+        bar = self.menuBar()
+        for title, items in MENUS.items():
+            menu = bar.addMenu(title)
+            for key in items:
+                if key == "-":
+                    menu.addSeparator()
+                elif key == "@recent":
+                    self.recent_menu = menu.addMenu("Open &Recent")
+                    self.rebuild_recent_menu()
+                elif key == "@panels":
+                    for dock in self.docks.values():
+                        menu.addAction(dock.toggleViewAction())
+                elif self._special(key) is not None:
+                    menu.addAction(self._special(key))
+                else:
+                    menu.addAction(self.action_map[key])
+        tb = self.addToolBar("Main")
+        tb.setObjectName("toolbar-main")
+        tb.setMovable(False)
+        for key in TOOLBAR:
+            if key == "-":
+                tb.addSeparator()
+            else:
+                tb.addAction(self._special(key) or self.action_map[key])
+
+    def _build_status(self) -> None:
+        sb = self.statusBar()
+        self.status_solve = QLabel()
+        self.status_residual = QLabel()
+        self.status_units = QLabel()
+        sb.addPermanentWidget(self.status_solve)
+        sb.addPermanentWidget(self.status_residual)
+        sb.addPermanentWidget(self.status_units)
+
+    def _update_status(self) -> None:
+        ed = self.editor
+        if ed.solver.busy:
+            self.status_solve.setText("Solving…")
+        elif ed.problems or ed.entry_errors:
+            n = len(ed.problems) + len(ed.entry_errors)
+            self.status_solve.setText(f"Not solved: {n} input problem(s)")
+        elif ed.failure is not None:
+            self.status_solve.setText("Solve failed (see Messages)")
+        elif ed.solve_seconds is not None:
+            self.status_solve.setText(f"Solved in {ed.solve_seconds * 1000:.0f} ms")
+        r = ed.result
+        if ed.solver.busy and r is not None:
+            return  # keep the last closure figures until the new answer arrives
+        if r is not None and not ed.stale:
+            self.status_residual.setText(f"Closure: energy {r['energy_residual']:.1e} · "
+                                         f"exergy {r['exergy_residual']:.1e}")
+        elif r is not None:
+            self.status_residual.setText("Results out of date")
+        else:
+            self.status_residual.setText("")
+
+    def _on_message_count(self, n: int) -> None:
+        self.docks["messages"].setWindowTitle(f"Messages ({n})" if n else "Messages")
+        self.docks["messages"].toggleViewAction().setText("Messages")
+
+    # ---- view ----------------------------------------------------------------------------
+    def _on_prefs(self) -> None:
+        p = self.prefs
+        for key, on in (("view.us_units", p.system == "US"), ("view.gauge", p.gauge)):
+            act = self.action_map[key]
+            if act.isChecked() != on:
+                act.blockSignals(True)
+                act.setChecked(on)
+                act.blockSignals(False)
+        self.status_units.setText(f"{'US customary' if p.system == 'US' else 'SI'} · "
+                                  f"{'gauge' if p.gauge else 'absolute'} pressure")
+
+    def set_us_units(self, on: bool) -> None:
+        self.prefs.system = "US" if on else "SI"
+
+    def set_gauge(self, on: bool) -> None:
+        self.prefs.gauge = on
+
+    def solve_now(self) -> None:
+        self.editor.solve_now(immediate=True)
+
+    def default_layout(self) -> None:
+        """Initial dock sizes for the window size (also used by Reset panel layout)."""
+        w, h = self.width(), self.height()
+        bar = self.style().pixelMetric(QStyle.PM_ScrollBarExtent) + 6
+        # wide enough that no form needs its horizontal scroll bar, when the window allows
+        need_left = max(self.panels[p].minimumSizeHint().width() for p in ("site", "duty")) + bar
+        need_right = self.panels["train"].minimumSizeHint().width() + 4
+        left = max(need_left, min(360, int(w * 0.22)))
+        right = max(need_right, min(400, int(w * 0.235)))
+        if w - left - right < 480:  # a small window: share the shortfall, the forms scroll
+            short = 480 - (w - left - right)
+            left, right = max(220, left - short // 2), max(240, right - short // 2)
+        self.resizeDocks([self.docks["site"], self.docks["train"]], [left, right], Qt.Horizontal)
+        self.resizeDocks([self.docks["balance"]], [max(260, min(420, int(h * 0.42)))], Qt.Vertical)
+        self.resizeDocks([self.docks["site"], self.docks["duty"], self.docks["messages"]],
+                         [int(h * 0.40), int(h * 0.25), int(h * 0.35)], Qt.Vertical)
+
+    def reset_layout(self) -> None:
+        if self._default_state is not None:
+            self.restoreState(self._default_state, STATE_VERSION)
+        for dock in self.docks.values():
+            dock.show()
+        self.default_layout()
+
+    def showEvent(self, event) -> None:
+        super().showEvent(event)
+        if self._default_state is None:
+            self.default_layout()
+            self._default_state = self.saveState(STATE_VERSION)
+            if self._restore_layout:
+                QTimer.singleShot(0, self._restore_saved_layout)
+            # matplotlib (slow to import) only after the first paint and the first answer, so
+            # the balance sheet is filled first; a timer in case that answer takes long
+            self.editor.result_changed.connect(self._load_charts_soon)
+            QTimer.singleShot(1500, self.charts.ensure_canvases)
+
+    def _load_charts_soon(self) -> None:
+        if self.editor.solved_jobs or self.editor.failure or not self.editor.solver.busy:
+            self.editor.result_changed.disconnect(self._load_charts_soon)
+            QTimer.singleShot(10, self.charts.ensure_canvases)
+
+    def _restore_saved_layout(self) -> None:
+        geometry = self.settings.value("window/geometry")
+        state = self.settings.value("window/state")
+        if geometry is not None and hasattr(geometry, "size"):
+            self.restoreGeometry(geometry)
+        if state is not None and hasattr(state, "size"):
+            self.restoreState(state, STATE_VERSION)
+
+    # ---- help ----------------------------------------------------------------------------
+    def show_cautions(self) -> None:
+        CautionsDialog(self).exec()
+
+    def show_about(self) -> None:
+        QMessageBox.about(self, "About Stagewright", about_text(thermo.__version__, eos_reference("real_gas")))
+
+    # ---- closing -------------------------------------------------------------------------
+    def closeEvent(self, event) -> None:
+        if not self.maybe_save():
+            event.ignore()
+            return
+        self.wait_for_export()
+        self.stop_study()
+        self.panels["year"].runner.shutdown()
+        self.clear_recovery_file()  # a clean exit: the work is saved or was let go
+        self.editor.shutdown()
+        self.settings.setValue("window/geometry", self.saveGeometry())
+        self.settings.setValue("window/state", self.saveState(STATE_VERSION))
+        self.settings.setValue("display/system", self.prefs.system)
+        self.settings.setValue("display/gauge", self.prefs.gauge)
+        self.settings.sync()
+        event.accept()

@@ -1,0 +1,321 @@
+"""The year profile editor: months or bins in a unit-aware table, hours, load and prices.
+
+Every change is one undo step through :meth:`app.window.editor.Editor.set_values`; an edit that
+would make the year invalid is refused (see :func:`app.year.edits.refusal`) and the
+document stays as it was, with the reason shown under the table.
+"""
+from __future__ import annotations
+
+__all__ = ["YearEditor", "SCALAR_FIELDS", "KIND_CHOICES"]
+
+from PySide6.QtCore import Qt, Signal
+from PySide6.QtGui import QColor, QFont
+from PySide6.QtWidgets import (QComboBox, QFormLayout, QHBoxLayout, QLabel, QLineEdit, QPushButton,
+                               QScrollArea, QStackedWidget, QTableWidget, QTableWidgetItem, QVBoxLayout, QWidget)
+
+from thermo.year_profile import MONTH_NAMES
+
+from app.presentation import units
+from app.document.paths import ABSENT, get_in, is_related
+from app.widgets.quantity_field import format_entry, parse_number
+from app.widgets.signals_blocked import signals_blocked
+from app.year.edits import (ENTRY_COLUMNS, cell_pairs, entries_key, entries_path, month_hours, profile_as, refusal,
+                          start_from_site, undo_text, with_entry_added, with_entry_removed)
+
+#: (path, label, quantity, unit text when the quantity has none, tooltip)
+SCALAR_FIELDS = [
+    ("year.operating_hours_per_year", "Operating hours", "hours", "",
+     "Hours the train runs in a year. Empty: 8760 h spread by the days of each month (monthly), "
+     "or the bins' own hours (bins)."),
+    ("year.load", "Load", "fraction", "", "Share of the project's flow for entries without a load."),
+    ("year.energy_price_per_kWh", "Energy price", "ratio", "per kWh", "Price of electric energy."),
+    ("year.water_price_per_m3", "Water price", "ratio", "per m³", "Price of once-through cooling water."),
+]
+KIND_CHOICES = [("monthly", "Monthly means"), ("bins", "Bins of hours")]
+PLACEHOLDER_NOTE = ("Placeholders: every month holds the site's ambient temperature and humidity. "
+                    "Replace them with the site's own monthly means.")
+
+
+class YearEditor(QWidget):
+    """Create and edit ``year``; ``refused(message)`` tells the panel about a refused edit."""
+
+    refused = Signal(str)
+
+    def __init__(self, editor, parent=None):
+        super().__init__(parent)
+        self.editor = editor
+        self.stack = QStackedWidget()
+        QVBoxLayout(self).setContentsMargins(0, 0, 0, 0)
+        self.layout().addWidget(self.stack)
+        self.stack.addWidget(self._empty_page())
+        self.stack.addWidget(self._profile_page())
+        editor.model.changed.connect(self._on_model_changed)
+        editor.prefs.changed.connect(self.refresh)
+        self.refresh()
+
+    # ---- building ------------------------------------------------------------------------
+    def _empty_page(self) -> QWidget:
+        page = QWidget()
+        lay = QVBoxLayout(page)
+        lay.setContentsMargins(4, 8, 4, 4)
+        text = QLabel("This project has no year at the site yet. Start from the site to get twelve "
+                      "monthly entries at its ambient temperature and humidity, then type the site's "
+                      "own monthly means over them.")
+        text.setWordWrap(True)
+        self.start_button = QPushButton("Start from the site")
+        self.start_button.clicked.connect(self.start)
+        row = QHBoxLayout()
+        row.addWidget(self.start_button)
+        row.addStretch(1)
+        lay.addWidget(text)
+        lay.addLayout(row)
+        lay.addStretch(1)
+        return page
+
+    def _profile_page(self) -> QWidget:
+        page = QWidget()
+        lay = QVBoxLayout(page)
+        lay.setContentsMargins(0, 2, 0, 0)
+        bar = QHBoxLayout()
+        bar.addWidget(QLabel("Profile"))
+        self.kind = QComboBox()
+        for _v, text in KIND_CHOICES:
+            self.kind.addItem(text)
+        self.kind.setToolTip("Monthly means: exactly 12 months. Bins of hours: any number of ambient "
+                             "states, each with its hours. Switching keeps the year as it is solved.")
+        self.kind.activated.connect(lambda i: self.set_kind(KIND_CHOICES[i][0]))
+        self.add_button = QPushButton("Add bin")
+        self.remove_button = QPushButton("Remove bin")
+        self.delete_button = QPushButton("Delete year")
+        self.delete_button.setToolTip("Remove the whole year profile from the project (undo brings it back).")
+        self.add_button.clicked.connect(self.add_entry)
+        self.remove_button.clicked.connect(self.remove_entry)
+        self.delete_button.clicked.connect(self.delete_year)
+        for w in (self.kind, self.add_button, self.remove_button):
+            bar.addWidget(w)
+        bar.addStretch(1)
+        bar.addWidget(self.delete_button)
+        lay.addLayout(bar)
+        self.note = QLabel(PLACEHOLDER_NOTE)
+        self.note.setObjectName("staleBanner")
+        self.note.setWordWrap(True)
+        lay.addWidget(self.note)
+        body = QHBoxLayout()
+        self.table = QTableWidget(0, len(ENTRY_COLUMNS))
+        self.table.setMinimumHeight(60)
+        self.table.verticalHeader().setVisible(False)
+        self.table.verticalHeader().setDefaultSectionSize(self.table.fontMetrics().height() + 8)
+        self.table.setSelectionBehavior(QTableWidget.SelectRows)
+        self.table.setSelectionMode(QTableWidget.SingleSelection)
+        self.table.itemChanged.connect(self._on_item_changed)
+        self.table.itemSelectionChanged.connect(self._update_buttons)
+        body.addWidget(self.table, 1)
+        form_box = QWidget()
+        form = QFormLayout(form_box)
+        form.setContentsMargins(6, 0, 0, 0)
+        self.fields: dict[str, tuple[QLineEdit, QLabel, str]] = {}
+        for path, label, quantity, unit_text, tip in SCALAR_FIELDS:
+            edit = QLineEdit()
+            edit.setAlignment(Qt.AlignRight | Qt.AlignVCenter)
+            edit.setMinimumWidth(72)
+            edit.setToolTip(tip)
+            unit = QLabel(unit_text)
+            unit.setObjectName("unitLabel")
+            unit.setMinimumWidth(44)
+            cell = QWidget()
+            cl = QHBoxLayout(cell)
+            cl.setContentsMargins(0, 0, 0, 0)
+            cl.addWidget(edit, 1)
+            cl.addWidget(unit)
+            lab = QLabel(label)
+            lab.setToolTip(tip)
+            form.addRow(lab, cell)
+            edit.editingFinished.connect(lambda p=path: self._commit_field(p))
+            self.fields[path] = (edit, unit, quantity)
+        scroll = QScrollArea()  # the panel stays as short as the other bottom panels
+        scroll.setWidget(form_box)
+        scroll.setWidgetResizable(True)
+        scroll.setFrameShape(QScrollArea.NoFrame)
+        scroll.setHorizontalScrollBarPolicy(Qt.ScrollBarAlwaysOff)
+        scroll.setMinimumWidth(form_box.sizeHint().width() + 16)
+        body.addWidget(scroll, 0)
+        lay.addLayout(body, 1)
+        self.message = QLabel()
+        self.message.setObjectName("editRefusal")
+        self.message.setWordWrap(True)
+        self.message.hide()
+        lay.addWidget(self.message)
+        return page
+
+    # ---- actions -------------------------------------------------------------------------
+    def start(self) -> None:
+        """Create a monthly year at the site's ambient state (one undo step)."""
+        self._push([("year", start_from_site(self.editor.model.doc))], "Start the year from the site")
+
+    def delete_year(self) -> None:
+        self._push([("year", ABSENT)], "Delete the year at the site")
+
+    def set_kind(self, kind: str) -> bool:
+        text = "Give the year as " + dict(KIND_CHOICES)[kind].lower()
+        return self._push(profile_as(self.editor.model.doc, kind), text)
+
+    def add_entry(self) -> bool:
+        rows = self.table.selectionModel().selectedRows()
+        after = rows[0].row() if rows else None
+        return self._push(with_entry_added(self.editor.model.doc, after), "Add a bin")
+
+    def remove_entry(self) -> bool:
+        rows = self.table.selectionModel().selectedRows()
+        index = rows[0].row() if rows else self.table.rowCount() - 1
+        return self._push(with_entry_removed(self.editor.model.doc, index), f"Remove bin {index + 1}")
+
+    def set_cell(self, row: int, key: str, text: str) -> bool:
+        """Take ``text`` typed in the display unit for entry ``row``'s ``key``; False if refused."""
+        doc = self.editor.model.doc
+        value = self._read(text, next(c.quantity for c in ENTRY_COLUMNS if c.key == key))
+        if isinstance(value, str) and key != "label":
+            return self._refuse(value)
+        return self._push(cell_pairs(doc, row, key, value), undo_text(f"{entries_path(doc)}[{row}].{key}", doc))
+
+    def set_field(self, path: str, text: str) -> bool:
+        quantity = self.fields[path][2]
+        value = self._read(text, quantity)
+        if isinstance(value, str):
+            return self._refuse(value)
+        return self._push([(path, value)], undo_text(path, self.editor.model.doc))
+
+    def _read(self, text: str, quantity: str | None):
+        """SI value of typed text, ``ABSENT`` when empty, or a refusal message (str)."""
+        text = text.strip()
+        if quantity is None:
+            return text or ABSENT
+        if text == "":
+            return ABSENT
+        shown = parse_number(text)
+        if shown is None:
+            return f"Not changed: '{text}' is not a number (use digits, a point for decimals, e.g. 12.5)."
+        return float(f"{units.to_si(shown, quantity, self.editor.prefs.system):.12g}")
+
+    def _push(self, pairs: list, text: str) -> bool:
+        if not pairs:
+            return False
+        why = refusal(self.editor.model.doc, pairs, self.editor.prefs.system)
+        if why is not None:
+            return self._refuse(why)
+        self._say("")
+        changed = self.editor.set_values(pairs, text)
+        if not changed:
+            self.refresh()
+        return changed
+
+    def _say(self, message: str) -> None:
+        self.message.setText(message)
+        self.message.setVisible(bool(message))
+
+    def _refuse(self, message: str) -> bool:
+        self._say(message)
+        self.refresh(keep_message=True)
+        self.refused.emit(message)
+        return False
+
+    def _on_item_changed(self, item: QTableWidgetItem) -> None:
+        key = ENTRY_COLUMNS[item.column()].key
+        self.set_cell(item.row(), key, item.text())
+
+    def _commit_field(self, path: str) -> None:
+        edit = self.fields[path][0]
+        if edit.isModified():
+            edit.setModified(False)
+            self.set_field(path, edit.text())
+
+    # ---- showing -------------------------------------------------------------------------
+    def _on_model_changed(self, path: str) -> None:
+        if path == "" or is_related(path, "year") or is_related(path, "site"):
+            self.refresh()
+
+    def refresh(self, keep_message: bool = False) -> None:
+        doc = self.editor.model.doc
+        year = doc.get("year")
+        if not keep_message:
+            self._say("")
+        if not year:
+            self.stack.setCurrentIndex(0)
+            return
+        self.stack.setCurrentIndex(1)
+        system = self.editor.prefs.system
+        kind = get_in(doc, "year.profile.kind", "monthly")
+        monthly = kind == "monthly"
+        entries = get_in(doc, "year.profile." + entries_key(kind), [])
+        spread = month_hours(doc) if monthly else None
+        self.kind.setCurrentIndex([k for k, _ in KIND_CHOICES].index(kind))
+        heads = []
+        for c in ENTRY_COLUMNS:
+            name = "Month" if (monthly and c.key == "label") else c.header
+            sym = units.unit(c.quantity, system).symbol if c.quantity else ""
+            heads.append(f"{name}\n[{sym}]" if sym else f"{name}\n")
+        with signals_blocked(self.table):
+            self.table.setHorizontalHeaderLabels(heads)
+            for col, c in enumerate(ENTRY_COLUMNS):
+                self.table.horizontalHeaderItem(col).setToolTip(c.tip)
+            self.table.setRowCount(len(entries))
+            for row, entry in enumerate(entries):
+                for col, c in enumerate(ENTRY_COLUMNS):
+                    self.table.setItem(row, col, self._cell(row, entry, c, monthly, spread, system))
+        self.table.resizeColumnsToContents()
+        for path, (edit, unit, quantity) in self.fields.items():
+            value = get_in(doc, path, None)
+            u = units.unit(quantity, system)
+            if u.symbol:
+                unit.setText(u.symbol)
+            with signals_blocked(edit):
+                edit.setText("" if value is None or value is ABSENT else format_entry(u.to_display(value), u.decimals))
+                edit.setModified(False)
+        self.note.setVisible(monthly and _is_placeholder(doc))
+        self._update_buttons()
+
+    def _cell(self, row, entry, c, monthly, spread, system) -> QTableWidgetItem:
+        value = entry.get(c.key)
+        item = QTableWidgetItem()
+        if c.key == "label":
+            item.setText(MONTH_NAMES[row] if monthly and row < 12 else (value or f"bin {row + 1}"))
+            if monthly:
+                item.setFlags(item.flags() & ~Qt.ItemIsEditable)
+            elif not value:
+                item.setForeground(QColor("#8a96a3"))
+            item.setTextAlignment(Qt.AlignLeft | Qt.AlignVCenter)
+            return item
+        u = units.unit(c.quantity, system)
+        if value is not None:
+            item.setText(format_entry(u.to_display(value), u.decimals))
+        elif c.key == "hours" and spread is not None and row < len(spread):
+            item.setText(f"{spread[row]:.0f}")  # spread by days: shown, not stored
+            _soft(item, "Spread from the operating hours by the days of the month (not stored).")
+        elif c.key == "load":
+            year_load = get_in(self.editor.model.doc, "year.load", 1.0)
+            item.setText(format_entry(u.to_display(year_load), u.decimals))
+            _soft(item, "The year's load (not stored here); type a value to give this entry its own.")
+        item.setTextAlignment(Qt.AlignRight | Qt.AlignVCenter)
+        return item
+
+    def _update_buttons(self) -> None:
+        bins = get_in(self.editor.model.doc, "year.profile.kind") == "bins"
+        for b in (self.add_button, self.remove_button):
+            b.setVisible(bins)
+        self.remove_button.setEnabled(bins and self.table.rowCount() > 1)
+
+
+def _soft(item: QTableWidgetItem, tip: str) -> None:
+    item.setForeground(QColor("#8a96a3"))
+    font = QFont(item.font())
+    font.setItalic(True)
+    item.setFont(font)
+    item.setToolTip(tip)
+
+
+def _is_placeholder(doc: dict) -> bool:
+    """True while every month still holds the site's own temperature and humidity."""
+    months = get_in(doc, "year.profile.months", [])
+    site = doc.get("site") or {}
+    return len(months) == 12 and all(
+        m.get("temperature_K") == site.get("ambient_temperature_K")
+        and m.get("relative_humidity") == site.get("relative_humidity", 0.0) for m in months)
