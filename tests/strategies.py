@@ -1,6 +1,6 @@
 """Hypothesis strategies that build project documents from the schema itself.
 
-Because they are derived from ``thermo.schema.PROJECT``, a key added to the schema is
+Because they are derived from ``thermo.project.schema.PROJECT``, a key added to the schema is
 exercised by the round-trip and fuzz tests without touching this file.
 """
 from __future__ import annotations
@@ -9,9 +9,9 @@ import math
 
 from hypothesis import strategies as st
 
-from thermo.document import problems
-from thermo.schema import PROJECT
-from thermo.schema_types import Choice, Items, Num, Obj, Text, Variant
+from thermo.project.validation import problems
+from thermo.project.schema import PROJECT
+from thermo.project.schema_types import Choice, Items, Num, Obj, Text, Variant
 
 
 def _num(node: Num):

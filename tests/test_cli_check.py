@@ -7,7 +7,7 @@ import sys
 
 from app.cli.main import main
 from tests.conftest import ROOT, SAMPLES, make_doc
-from thermo.schema import PROJECT
+from thermo.project.schema import PROJECT
 
 
 def _write(path, doc):

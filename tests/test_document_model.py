@@ -5,7 +5,7 @@ import copy
 
 from app.document.paths import ABSENT
 from app.document.model import ProjectModel, Signal, new_document
-from thermo.document import problems
+from thermo.project.validation import problems
 
 
 def test_signal_connect_emit_disconnect():

@@ -7,7 +7,7 @@ import pytest
 from thermo.errors import InputError
 from thermo.exchanger.effectiveness import (ARRANGEMENTS, crossflow_unmixed_effectiveness, effectiveness,
                                             max_effectiveness, ntu_from_effectiveness)
-from thermo.schema import ARRANGEMENT_NAMES
+from thermo.project.schema import ARRANGEMENT_NAMES
 
 NTUS = [0.05, 0.4, 1.0, 2.5, 6.0]
 CRS = [0.0, 0.2, 0.55, 0.9, 1.0]

@@ -1,7 +1,7 @@
 """The fast property path of studies and sweeps against the exact path, on random trains.
 
 The fast path (``solve_normalised(..., detail=False, fast=True)``) skips reporting-only work
-and interpolates the RP-1485 enhancement factor (thermo.enhancement_table); the exact path is
+and interpolates the RP-1485 enhancement factor (thermo.moist.enhancement_table); the exact path is
 the full solve, itself checked against CoolProp's HAPropsSI in tests/test_moist_mixture.py
 and against handbook values elsewhere. What is checked here is agreement, not speed: every
 figure a sweep reports must agree to 1e-4 relative (the tolerance the fast path promises).
@@ -14,7 +14,7 @@ import pytest
 from hypothesis import HealthCheck, given, settings
 
 import thermo
-from thermo.document import normalise
+from thermo.project.validation import normalise
 from thermo.solve import solve_normalised
 from thermo.sweep import SWEEP_OUTPUTS, _summary
 from tests.test_train import moist_projects
@@ -56,7 +56,7 @@ def test_fast_path_changes_nothing_for_the_ideal_mixtures(doc):
 def test_fast_path_uses_the_table_and_the_full_solve_does_not():
     # a humid plant-air train: the fast solve must differ from the exact one (the table is in
     # use) by far less than the promised tolerance, and a full solve must stay exact
-    from thermo import moist_mixture
+    from thermo.moist import mixture as moist_mixture
     doc = {"site": {"ambient_temperature_K": 303.15, "barometric_pressure_Pa": 100e3, "relative_humidity": 0.8},
            "fluid": {"model": "real_gas"}, "flow": {"kind": "mass", "value": 1.0}, "discharge_pressure_Pa": 8e5,
            "stages": [{"efficiency": {"kind": "isentropic", "value": 0.8},

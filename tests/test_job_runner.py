@@ -4,7 +4,7 @@ one-line messages naming field, value and range, a bug as "internal error", neve
 
 These tests check the runner's own contract (threads and signals), so no physical value is
 checked here: the out-of-range input comes from the project schema's own range
-(``thermo.schema``), not from a published source."""
+(``thermo.project.schema``), not from a published source."""
 from __future__ import annotations
 
 import threading
@@ -146,11 +146,11 @@ def test_forget_drops_the_running_job(qtbot, runner):
 
 
 def test_bad_input_fails_with_field_value_and_range(qtbot):
-    from thermo.document import normalise
+    from thermo.project.validation import normalise
 
     from conftest import make_doc
     doc = make_doc()
-    doc["site"]["ambient_temperature_K"] = 400.0  # above the schema's 333.15 K (thermo/schema.py)
+    doc["site"]["ambient_temperature_K"] = 400.0  # above the schema's 333.15 K (thermo/project/schema.py)
     r = JobRunner(lambda d, report, cancel: normalise(d), what="the test job", thread_name="stagewright-test-job")
     try:
         with qtbot.waitSignal(r.failed, timeout=WAIT_MS) as blocker:

@@ -3,7 +3,7 @@ import CoolProp.CoolProp as CP
 import pytest
 
 from thermo.models import ConstantCpAir, IdealGasAir, RealGasAir
-from thermo.moist_mixture import make_mixture
+from thermo.moist.mixture import make_mixture
 
 REAL = make_mixture(RealGasAir())
 IDEAL = make_mixture(IdealGasAir())

@@ -1,7 +1,7 @@
 """Format versions: the upgrade chain is complete, every old version has a fixture, newer
 versions are refused and left untouched.
 
-Whoever bumps ``thermo.schema.FORMAT_VERSION`` must add, for the old version n:
+Whoever bumps ``thermo.project.schema.FORMAT_VERSION`` must add, for the old version n:
 a step ``@step(n)`` in thermo/project/migrate.py, a fixture tests/fixtures/project_v<n+1>.json
 (the old tests/fixtures/project_v<n>.json stays, frozen), and a test named
 ``test_step_<n>_to_<n+1>`` in this file that checks what the step changes.
@@ -16,8 +16,8 @@ import sys
 import pytest
 
 from tests.conftest import ROOT
-from thermo import schema
-from thermo.document import problems
+from thermo.project import schema
+from thermo.project.validation import problems
 from thermo.errors import ProjectFileError
 from thermo.project import load, migrate
 from thermo.project.migrate import migrate as migrate_doc

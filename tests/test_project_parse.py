@@ -99,7 +99,7 @@ def test_position_agrees_with_counting_lines(text, index):
 def _largest(node):
     """The largest value the schema allows: every key, every list full, every text at its
     longest in 4-byte characters, every number with 17 significant digits."""
-    from thermo.schema_types import Choice, Items, Num, Obj, Text, Variant
+    from thermo.project.schema_types import Choice, Items, Num, Obj, Text, Variant
     if isinstance(node, Num):
         return 123456789 if node.integer else -1.2345678901234567e-100
     if isinstance(node, Choice):
@@ -120,7 +120,7 @@ def _largest(node):
 
 def test_the_largest_document_the_schema_allows_fits_the_limits():
     from thermo.project import dumps
-    from thermo.schema import PROJECT
+    from thermo.project.schema import PROJECT
     data = dumps(_largest(PROJECT)).encode("utf-8")
     assert len(data) < MAX_FILE_BYTES / 2, f"{len(data)} bytes: raise MAX_FILE_BYTES"
     assert parse_bytes(data)["stages"][0]["name"].startswith("\U0001F600")  # and depth is within MAX_DEPTH

@@ -20,7 +20,7 @@ import pytest
 from app.document import recovery_file as recovery
 from app.document.recovery_file import clear_recovery, read_recovery, recovery_dir, recovery_file, write_recovery
 from tests.conftest import ROOT, SAMPLES, make_doc
-from thermo.document import problems
+from thermo.project.validation import problems
 from thermo.errors import ProjectFileError, SaveError, StagewrightError
 from thermo.project import load
 

@@ -18,7 +18,7 @@ from app.study.apply import apply_text, option_stages, project_field, study_key
 from app.study.job import StudyRequest, run_request
 from conftest import SAMPLES, make_doc
 from thermo import solve
-from thermo.document import problems
+from thermo.project.validation import problems
 
 R_MOLAR, M_AIR = 8.314462618, 0.02896546  # J/(mol K) CODATA 2018; kg/mol (CoolProp's air)
 

@@ -26,7 +26,7 @@ def test_lean_solve_equals_full_solve(model, kind):
 
 
 def test_trials_are_cached_and_cancellable():
-    doc = thermo.document.normalise(make_doc(model="constant_cp", stages=2))
+    doc = thermo.project.validation.normalise(make_doc(model="constant_cp", stages=2))
     doc["stages"] = [dict(s, max_discharge_temperature_K=400.0) for s in doc["stages"]]
     stop = {"now": False}
     ts = TrialSolver(doc, soft_limits(doc["stages"], 293.15), lambda: stop["now"])

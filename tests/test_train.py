@@ -331,7 +331,7 @@ def test_remembered_intake_states_follow_every_site_input():
     # consistency check of the intake memo (sweeps and studies solve many trains at one site):
     # alternating humidity inputs at the same ambient and pressure must give exactly the results
     # of a fresh model each time — a memo keyed too loosely would hand one site's water to another
-    from thermo.document import normalise
+    from thermo.project.validation import normalise
     from thermo.models import make_model
     from thermo.train import solve_train
 

@@ -105,7 +105,7 @@ def test_an_out_of_range_cell_is_refused_naming_field_value_and_range(qtbot, tmp
 
 
 def test_monthly_hours_typed_once_fill_the_other_months_so_the_year_keeps_its_hours(qtbot, tmp_path):
-    from thermo.document import normalise
+    from thermo.project.validation import normalise
     from thermo.year_profile import operating_bins
     win = _sample_window(qtbot, tmp_path)
     ed = win.panels["year"].profile_editor
@@ -119,7 +119,7 @@ def test_monthly_hours_typed_once_fill_the_other_months_so_the_year_keeps_its_ho
 
 
 def test_switch_to_bins_keeps_the_year_then_add_and_remove_bins(qtbot, tmp_path):
-    from thermo.document import normalise
+    from thermo.project.validation import normalise
     from thermo.year_profile import operating_bins
     win = _sample_window(qtbot, tmp_path)
     ed = win.panels["year"].profile_editor

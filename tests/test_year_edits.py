@@ -8,7 +8,7 @@ import pytest
 from app.document.paths import set_in
 from app.year.edits import (cell_pairs, month_hours, profile_as, refusal, start_from_site, undo_text,
                             with_entry_added, with_entry_removed)
-from thermo.document import normalise, problems
+from thermo.project.validation import normalise, problems
 from thermo.year_profile import DAYS_IN_MONTH, operating_bins
 
 from conftest import SAMPLES, make_doc

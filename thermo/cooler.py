@@ -1,17 +1,16 @@
 """An intercooler or aftercooler: heat rejected at the coolant temperature [1]_."""
 from __future__ import annotations
 
-__all__ = ["CoolerResult", "solve_cooler", "cooler_outlet_temperature", "outlet_field", "moist_dew_point"]
+__all__ = ["CoolerResult", "solve_cooler", "cooler_outlet_temperature", "outlet_field"]
 
-import math
 from dataclasses import dataclass, field
 
-from thermo.condensate import Condensation, condensation, cooling_line
+from thermo.moist.condensation import Condensation, condensation, cooling_line
+from thermo.moist.dew_point import dew_point
 from thermo.errors import InputError
 from thermo.exchanger import Exchanger, HotSide, make_coolant, rate_exchanger, size_exchanger
 from thermo.exergy import DeadState, heat_exergy
 from thermo.models.base import Point, PropertyModel
-from thermo.roots import bracketed_root
 
 
 @dataclass
@@ -69,35 +68,6 @@ def outlet_field(spec: dict, where: str) -> str:
     return f"{where}.outlet_temperature_K"
 
 
-def moist_dew_point(model, P: float, t_low: float, t_high: float) -> float | None:
-    r"""Dew point [K] of a moist stream's total water at pressure ``P`` when it lies in (t_low, t_high).
-
-    The root of :math:`W - w_s(T, p) = 0` with the stream model's own saturation law (the
-    same one its equilibrium split uses, so the stream's enthalpy has its kink exactly there),
-    by a bracketed root finder (:mod:`thermo.roots`); ``None`` for dry air or when the stream does not start to
-    condense between the two temperatures.
-    """
-    mixture = getattr(model, "mixture", None)
-    if mixture is None or model.water <= 0.0 or not t_low < t_high:
-        return None
-
-    def excess(T: float) -> float:
-        return model.water - mixture.saturation_ratio(T, P)
-
-    guess = mixture.dew_point(P, model.water)  # closed form on the vapour pressure: brackets the root
-    lo, hi = max(t_low, guess - 0.5), min(t_high, guess + 0.5)
-    if not lo < hi:
-        return None
-    e_lo, e_hi = excess(lo), excess(hi)
-    if not (e_lo > 0.0 and e_hi < 0.0):
-        if lo == t_low and e_lo <= 0.0 or hi == t_high and e_hi >= 0.0:
-            return None  # the dew point lies outside (t_low, t_high)
-        lo, hi = max(t_low, guess - 20.0), min(t_high, guess + 20.0)
-        if not (excess(lo) > 0.0 and math.isfinite(excess(hi)) and excess(hi) < 0.0):
-            return None
-    return bracketed_root(excess, lo, hi, xtol=1e-14)
-
-
 def _hot_side(model, where: str, t_stag: float, h_in0: float, p_out: float, mass_flow: float):
     r"""``hot_at(T_out)`` → :class:`~thermo.exchanger.HotSide` of the air cooled to ``T_out``.
 
@@ -117,7 +87,7 @@ def _hot_side(model, where: str, t_stag: float, h_in0: float, p_out: float, mass
     def dew(t_out: float):
         # the dew point does not depend on the outlet asked for; search once over the widest span
         if "t" not in cache:
-            cache["t"] = moist_dew_point(model, p_out, 273.15, t_stag)
+            cache["t"] = dew_point(model.mixture, model.water, p_out, 273.15, t_stag)
         t_dew = cache["t"]
         return t_dew if t_dew is not None and t_out < t_dew < t_stag else None
 
@@ -181,11 +151,11 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
 
     Notes
     -----
-    For moist air (a :class:`~thermo.humid.MoistAir` model) the outlet is at phase
+    For moist air (a :class:`~thermo.moist.stream.MoistAir` model) the outlet is at phase
     equilibrium: below the dew point at the outlet pressure it is saturated and the rest
     of the water is liquid. The duty is split into sensible and latent parts and the
     separator after the cooler removes its fraction of that liquid
-    (:func:`thermo.condensate.condensation`); the entropy balance covers cooler and
+    (:func:`thermo.moist.condensation.condensation`); the entropy balance covers cooler and
     separator, whose phase split itself generates no entropy. The chart line includes the
     dew point and ends with the separator step at the outlet temperature.
 

@@ -54,7 +54,7 @@ def mass_flow_from(kind: str, value: float, model: PropertyModel, T0: float, P0:
     memory). Normal volume is referred to the DIN 1343 normal state, 273.15 K and
     101 325 Pa, dry gas.
 
-    With moist intake air (``model`` a :class:`~thermo.humid.MoistAir`) the mass flow
+    With moist intake air (``model`` a :class:`~thermo.moist.stream.MoistAir`) the mass flow
     returned is that of the dry air. Free air delivery is the volume of the moist intake
     air, vapour included, at the site's temperature, pressure and humidity (ISO 1217
     refers FAD to the total temperature, pressure and composition at the inlet point, from

@@ -8,7 +8,7 @@ from dataclasses import dataclass, field
 
 from thermo.cooler import CoolerResult
 from thermo.exergy import DeadState
-from thermo.humid import humidity_of
+from thermo.moist.stream import humidity_of
 from thermo.models.base import Point
 from thermo.stage import StageResult
 
@@ -169,7 +169,7 @@ class TrainResult:
     energy_residual: float
     exergy_residual: float
     warnings: list = field(default_factory=list)
-    recovery: object = None  #: thermo.recovery.RecoveryResult when the project asks for heat recovery
+    recovery: object = None  #: thermo.heat_recovery.RecoveryResult when the project asks for heat recovery
     water: WaterResult | None = None  #: moist intake air only
 
     def to_dict(self) -> dict:

@@ -6,7 +6,7 @@ __all__ = ["solve", "solve_normalised", "model_for", "release_thread_models"]
 import atexit
 import threading
 
-from thermo.document import normalise, site_pressure
+from thermo.project.validation import normalise, site_pressure
 from thermo.errors import InputError, StagewrightError
 from thermo.flow import mass_flow_from
 from thermo.models import make_model
@@ -33,7 +33,7 @@ def model_for(fluid: dict, fast: bool = False):
     """Property model for a ``fluid`` section, reused per thread (one AbstractState each).
 
     ``fast`` gives a separate model flagged ``fast_properties``: its moist-air mixture
-    interpolates the enhancement factor (:mod:`thermo.enhancement_table`)."""
+    interpolates the enhancement factor (:mod:`thermo.moist.enhancement_table`)."""
     cache = getattr(_local, "models", None)
     if cache is None:
         cache = _local.models = {}
@@ -87,11 +87,11 @@ def solve(doc: dict, detail: bool = True) -> TrainResult:
 
 
 def solve_normalised(norm: dict, detail: bool = True, fast: bool = False) -> TrainResult:
-    """:func:`solve` for a document already passed through :func:`thermo.document.normalise`.
+    """:func:`solve` for a document already passed through :func:`thermo.project.validation.normalise`.
 
     For callers that validate once and then solve many variants (sweeps, studies).
     ``fast`` selects the fast property path of trial solves: for moist real-gas air the
-    enhancement factor is interpolated (:mod:`thermo.enhancement_table`); reported figures
+    enhancement factor is interpolated (:mod:`thermo.moist.enhancement_table`); reported figures
     agree with the exact path to better than 1e-4 relative (tests/test_fast_path.py), and
     the other models are unaffected.
     """

@@ -102,7 +102,7 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
 
     Notes
     -----
-    For moist air the model is a :class:`~thermo.humid.MoistAir` of the stage's total
+    For moist air the model is a :class:`~thermo.moist.stream.MoistAir` of the stage's total
     water; h and s are per kilogram of dry air, ``mass_flow`` is the dry-air flow and the
     kinetic energy is that of the whole moist mass. Liquid carried into a stage (a
     separator of efficiency below 1) evaporates as compression heats the stream, by

@@ -16,9 +16,9 @@ import os
 from concurrent.futures import ProcessPoolExecutor
 from dataclasses import dataclass, field
 
-from thermo.doc_paths import set_path
+from thermo.project.paths import set_path
 from thermo.errors import InputError, StagewrightError
-from thermo.document import normalise
+from thermo.project.validation import normalise
 from thermo.solve import solve_normalised
 
 #: result keys collected at every point (totals of ``TrainResult.to_dict()``)

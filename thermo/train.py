@@ -6,14 +6,14 @@ __all__ = ["solve_train", "intake_model", "mixture_for"]
 import math
 
 from thermo.cooler import solve_cooler
-from thermo.document import site_pressure
+from thermo.project.validation import site_pressure
 from thermo.exergy import DeadState, flow_exergy, water_exergy
 from thermo.flow import NORMAL_PRESSURE, NORMAL_TEMPERATURE
-from thermo.humid import MoistAir, check_humid_range, intake_humidity_ratio, is_moist
-from thermo.iso8573 import REFERENCE_PRESSURE, REFERENCE_TEMPERATURE, humidity_class
+from thermo.moist.stream import MoistAir, check_humid_range, intake_humidity_ratio, is_moist
+from thermo.moist.iso8573 import REFERENCE_PRESSURE, REFERENCE_TEMPERATURE, humidity_class
 from thermo.models.base import PropertyModel
-from thermo.moist_mixture import MoistMixture, make_mixture
-from thermo.recovery import heat_recovery
+from thermo.moist.mixture import MoistMixture, make_mixture
+from thermo.heat_recovery import heat_recovery
 from thermo.results import InletResult, TrainResult, Warning_, WaterResult
 from thermo.split import stage_pressure_ratios
 from thermo.stage import solve_stage
@@ -101,7 +101,7 @@ def solve_train(norm: dict, model: PropertyModel, mass_flow: float, detail: bool
     Parameters
     ----------
     norm : dict
-        Normalised project document (:func:`thermo.document.normalise`).
+        Normalised project document (:func:`thermo.project.validation.normalise`).
     model : PropertyModel
         Property model named by the project.
     mass_flow : float
@@ -116,7 +116,7 @@ def solve_train(norm: dict, model: PropertyModel, mass_flow: float, detail: bool
 
     Notes
     -----
-    Moist intake air (see :mod:`thermo.humid`): ``mass_flow`` is the dry-air flow; each
+    Moist intake air (see :mod:`thermo.moist.stream`): ``mass_flow`` is the dry-air flow; each
     stage and cooler uses the stream model of its total water; the condensate drained by
     the separators leaves the train at its cooler's outlet temperature and pressure and
     enters both closures:

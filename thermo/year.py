@@ -24,7 +24,7 @@ __all__ = ["YearResult", "BinResult", "YearCancelled", "run_year", "CONDENSATE_D
 import copy
 from dataclasses import asdict, dataclass, field
 
-from thermo.document import normalise
+from thermo.project.validation import normalise
 from thermo.errors import InputError, StagewrightError
 from thermo.solve import solve
 from thermo.year_profile import Bin, operating_bins

@@ -13,7 +13,7 @@ def run(args) -> int:
     from thermo import StagewrightError
     from thermo.project.parse import read_limited
     from thermo.project.reading import read_document
-    from thermo.schema import FORMAT_VERSION
+    from thermo.project.schema import FORMAT_VERSION
 
     status = EXIT_OK
     paths = expand_paths(args.files)

@@ -1,7 +1,7 @@
 """What each document field is called, which display quantity it has, and its schema range.
 
 Entry fields, undo descriptions and the messages area all take their words from here,
-and every range comes from :mod:`thermo.schema` (the one schema), converted to the
+and every range comes from :mod:`thermo.project.schema` (the one schema), converted to the
 display unit only when shown. Qt-free.
 """
 from __future__ import annotations
@@ -13,8 +13,8 @@ import re
 from dataclasses import dataclass
 
 from thermo.errors import Problem
-from thermo.schema import PROJECT
-from thermo.schema_types import Items, Num, Obj, Variant
+from thermo.project.schema import PROJECT
+from thermo.project.schema_types import Items, Num, Obj, Variant
 from thermo.year_profile import MONTH_NAMES
 
 from app.presentation import units

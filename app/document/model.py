@@ -12,9 +12,9 @@ __all__ = ["Signal", "ProjectModel", "new_document"]
 import copy
 from typing import Any, Callable
 
-from thermo.document import problems as doc_problems
-from thermo.schema import FORMAT_NAME, FORMAT_VERSION, PROJECT
-from thermo.schema_types import check
+from thermo.project.validation import problems as doc_problems
+from thermo.project.schema import FORMAT_NAME, FORMAT_VERSION, PROJECT
+from thermo.project.schema_types import check
 
 from app.document.paths import ABSENT, format_path, get_in, parse_path, set_in
 

@@ -17,7 +17,7 @@ API (keep this shape; the window's autosave timer and start-up prompt call it)::
         None when there is nothing to recover. Otherwise the document, upgraded to the
         current format version, and the source path (a Path, or None). The document is
         returned even when it has validation problems (work in progress is kept as it
-        was; thermo.document.problems lists them). Raises ProjectFileError (a
+        was; thermo.project.validation.problems lists them). Raises ProjectFileError (a
         StagewrightError) when a recovery file exists but is damaged or of an unknown
         version; the window shows the message and may call clear_recovery().
     clear_recovery() -> None
@@ -53,7 +53,7 @@ from thermo.errors import InputError, ProjectFileError, SaveError
 from thermo.project.parse import MAX_FILE_BYTES, parse_bytes, read_limited
 from thermo.project.migrate import migrate
 from thermo.project.reading import recognise
-from thermo.schema import FORMAT_NAME
+from thermo.project.schema import FORMAT_NAME
 from thermo.project.writing import atomic_write, dumps
 
 ENV_VAR = "STAGEWRIGHT_DATA_DIR"

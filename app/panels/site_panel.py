@@ -6,7 +6,7 @@ __all__ = ["SitePanel", "elevation_for_pressure"]
 from PySide6.QtWidgets import QHBoxLayout, QWidget
 
 from thermo.atmosphere import standard_pressure
-from thermo.schema import PROJECT
+from thermo.project.schema import PROJECT
 
 from app.document.paths import ABSENT
 from app.widgets.choice_field import ChoiceField

@@ -10,7 +10,7 @@ from PySide6.QtCore import QItemSelectionModel, QSize, Qt, Signal
 from PySide6.QtWidgets import (QFrame, QListWidget, QListWidgetItem, QScrollArea, QStackedWidget,
                                QToolButton, QHBoxLayout, QVBoxLayout, QWidget, QSizePolicy)
 
-from thermo.schema import PROJECT
+from thermo.project.schema import PROJECT
 
 from app.presentation import units
 from app.document.paths import ABSENT, stage_index, stage_path

@@ -11,7 +11,7 @@ __all__ = ["ReportInfo", "title_block", "inputs", "state_points_table", "compone
 
 from dataclasses import dataclass
 
-from thermo.document import normalise
+from thermo.project.validation import normalise
 
 from app.presentation import units
 from app.presentation.cautions import CAUTIONS, DEFERRAL

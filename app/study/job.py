@@ -97,7 +97,7 @@ def run_request(req: StudyRequest, progress: Callable[[float, str], Any] | None 
 
 def partial_answer(req: StudyRequest, partial: list, message: str) -> dict:
     """The answer made of what a cancelled study had finished (``StudyCancelled.partial``)."""
-    from thermo.document import normalise
+    from thermo.project.validation import normalise
     from thermo.study import StagingComparison
     from thermo.study.options import staging_note
 

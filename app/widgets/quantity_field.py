@@ -3,7 +3,7 @@
 The field shows the SI value of the document converted with :mod:`app.presentation.units`, writes back
 only when the user changed the text, and never clamps: text that is not a number is kept,
 marked and reported through :meth:`Editor.set_entry_error`; a number out of range goes into
-the document, where :func:`thermo.document.problems` reports it with the schema's range.
+the document, where :func:`thermo.project.validation.problems` reports it with the schema's range.
 """
 from __future__ import annotations
 

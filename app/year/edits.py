@@ -2,9 +2,9 @@
 
 The year editor turns each user action into a list of ``(path, value)`` pairs for
 :meth:`app.window.editor.Editor.set_values` (one undo step). :func:`refusal` applies the pairs
-to a copy of the document and runs :func:`thermo.document.problems` on it: an edit that
+to a copy of the document and runs :func:`thermo.project.validation.problems` on it: an edit that
 would add a problem is refused with the field path, the value and the schema's range
-(:meth:`thermo.schema_types.Num.describe`), so the year section always stays valid.
+(:meth:`thermo.project.schema_types.Num.describe`), so the year section always stays valid.
 """
 from __future__ import annotations
 
@@ -16,7 +16,7 @@ import copy
 from dataclasses import dataclass
 from typing import Any
 
-from thermo.document import normalise, problems
+from thermo.project.validation import normalise, problems
 from thermo.year_profile import DAYS_IN_MONTH, MONTH_NAMES, operating_bins
 
 from app.presentation import units

@@ -1,9 +1,17 @@
-"""Project files: load and save a project document as UTF-8 JSON without ever losing work.
+"""The project document: its schema, validation, field paths, and its files.
 
     doc = load("plant.json")      # parse safely, upgrade old versions, validate
     save(doc, "plant.json")       # validate, write atomically, keep plant.json.bak
 
-Modules: :mod:`.parse` (untrusted bytes → JSON data, with size and depth limits),
+The document: :mod:`.schema_types` (a tiny declarative schema language), :mod:`.schema`
+(every key, unit, range and default), :mod:`.validation` (problems and normalise),
+:mod:`.paths` (field paths like ``stages[1].efficiency.value``), :mod:`.schema_docs` (the
+meaning of every key; generates ``docs/project-format.md``).
+
+    doc = load("plant.json")      # parse safely, upgrade old versions, validate
+    save(doc, "plant.json")       # validate, write atomically, keep plant.json.bak
+
+Its files: :mod:`.parse` (untrusted bytes → JSON data, with size and depth limits),
 :mod:`.migrate` (format versions and the upgrade chain), :mod:`.reading` (load),
 :mod:`.writing` (dumps, atomic save, backup). The file format is documented in
 ``docs/project-format.md``.

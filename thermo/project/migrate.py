@@ -1,9 +1,9 @@
 """Format versions of the project document and the chain that upgrades old files.
 
 Every project file carries an integer ``version``. This release writes
-:data:`~thermo.schema.FORMAT_VERSION` and reads every version from 1 up to it: a file of
+:data:`~thermo.project.schema.FORMAT_VERSION` and reads every version from 1 up to it: a file of
 version *n* is passed through the registered steps *n → n+1 → …* until it is current,
-then validated against :mod:`thermo.schema`. A file of a newer version than this release
+then validated against :mod:`thermo.project.schema`. A file of a newer version than this release
 knows is refused, and nothing is written.
 
 Only version 1 exists today, so :data:`STEPS` is empty. Whoever changes the meaning of a
@@ -24,7 +24,7 @@ import copy
 import math
 from typing import Callable
 
-from thermo import schema
+from thermo.project import schema
 from thermo.errors import ProjectFileError
 
 #: from-version → function turning a document of that version into the next version's

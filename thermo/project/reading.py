@@ -10,8 +10,8 @@ __all__ = ["load", "loads", "load_with_problems", "read_document", "accept", "re
 from pathlib import Path
 from typing import Any
 
-from thermo import schema
-from thermo.document import problems
+from thermo.project import schema
+from thermo.project.validation import problems
 from thermo.errors import InputError, ProjectFileError, StagewrightError
 from thermo.project.migrate import migrate
 from thermo.project.parse import parse_bytes, read_limited
@@ -90,7 +90,7 @@ def load(path) -> dict:
     -------
     dict
         The document as written in the file (defaults are not filled in; use
-        :func:`thermo.document.normalise` for that), upgraded to the current format
+        :func:`thermo.project.validation.normalise` for that), upgraded to the current format
         version, with ``format`` and ``version`` set. ``load → save → load`` gives an
         identical document.
 

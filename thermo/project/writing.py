@@ -1,7 +1,7 @@
 """Write project files so that no failure can lose the last good file.
 
 :func:`dumps` gives the on-disk text: UTF-8 JSON, two-space indent, keys in the order of
-:mod:`thermo.schema` (``format`` and ``version`` first, a variant's ``kind`` first), so
+:mod:`thermo.project.schema` (``format`` and ``version`` first, a variant's ``kind`` first), so
 that files read well and diff well under version control.
 
 :func:`atomic_write` writes a temporary file in the destination's folder, flushes and
@@ -25,9 +25,9 @@ import stat
 from pathlib import Path
 from typing import Any
 
-from thermo import schema
+from thermo.project import schema
 from thermo.errors import InputError, SaveError
-from thermo.schema_types import Items, Obj, Variant
+from thermo.project.schema_types import Items, Obj, Variant
 from thermo.project.parse import MAX_FILE_BYTES
 
 

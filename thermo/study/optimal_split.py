@@ -9,7 +9,7 @@ from typing import Any, Callable
 
 import numpy as np
 
-from thermo.document import site_pressure
+from thermo.project.validation import site_pressure
 from thermo.results import TrainResult
 from thermo.solve import model_for, solve
 from thermo.study.limits import (BindingLimit, LimitNotMet, RatioBounds, implied_ratio, pressure_reach_problems,

@@ -6,7 +6,7 @@ __all__ = ["Prepared", "prepare"]
 import copy
 from dataclasses import dataclass, field
 
-from thermo.document import normalise
+from thermo.project.validation import normalise
 from thermo.solve import solve
 
 

@@ -7,7 +7,7 @@ import copy
 from dataclasses import dataclass
 from typing import Any, Callable
 
-from thermo.document import normalise
+from thermo.project.validation import normalise
 from thermo.errors import InputError, StagewrightError
 from thermo.study.compare import (DEFAULT_ENERGY_PRICE, DEFAULT_OPERATING_HOURS, StagingComparison, check_economics,
                       compare_stagings)

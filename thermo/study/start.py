@@ -8,7 +8,7 @@ from typing import Callable
 
 
 from thermo.cooler import cooler_outlet_temperature
-from thermo.document import site_pressure
+from thermo.project.validation import site_pressure
 from thermo.errors import InputError
 from thermo.flow import mass_flow_from
 from thermo.models.base import PropertyModel

@@ -10,7 +10,7 @@ from typing import Callable
 from thermo.cooler import cooler_outlet_temperature, outlet_field
 from thermo.errors import InputError, StagewrightError
 from thermo.results import TrainResult
-from thermo.schema import STAGE
+from thermo.project.schema import STAGE
 from thermo.solve import solve_normalised
 from thermo.study.progress import StudyCancelled
 

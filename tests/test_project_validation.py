@@ -3,7 +3,7 @@ import pytest
 
 import thermo
 from tests.conftest import make_doc
-from thermo.document import normalise, problems
+from thermo.project.validation import normalise, problems
 from thermo.errors import InputError, SecondLawViolation
 
 
@@ -88,7 +88,7 @@ def test_casing_loss_that_cools_below_boundary_is_second_law_violation():
 import pytest
 
 import thermo
-from thermo.document import problems
+from thermo.project.validation import problems
 from thermo.errors import InputError
 from tests.conftest import make_doc
 

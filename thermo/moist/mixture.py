@@ -2,7 +2,7 @@
 
 One :class:`MoistMixture` per property model. It knows the gas phase at any water content
 (per kilogram of dry air), when water vapour saturates, and the properties of the water
-that condenses; :class:`thermo.humid.MoistAir` builds the stream model of a fixed total
+that condenses; :class:`thermo.moist.stream.MoistAir` builds the stream model of a fixed total
 water content on top of it.
 """
 from __future__ import annotations
@@ -13,7 +13,7 @@ import math
 from functools import lru_cache
 
 from thermo import coolprop_adapter as cpa
-from thermo.saturation import T_CRITICAL, saturation_pressure, saturation_pressure_log_slope
+from thermo.moist.saturation import T_CRITICAL, saturation_pressure, saturation_pressure_log_slope
 
 P_REF = 101_325.0  #: reference pressure of the ideal-gas entropy of water vapour, [Pa]
 R_MOLAR = 8.314462618  #: molar gas constant, CODATA 2018, [J/(mol K)]
@@ -410,24 +410,10 @@ class MoistMixture:
         return (w / (self.epsilon + w)) * P / (self.enhancement(T, P) * saturation_pressure(T))
 
     def dew_point(self, P: float, w: float):
-        """Temperature at which vapour content w saturates at pressure P, [K] (frost point below 273.15 K).
-
-        Solves :math:`x_w p = f(T_d, p)\\,p_{ws}(T_d)` by fixed-point iteration on f (f varies
-        slowly with T); None when w is 0.
-        """
-        from thermo.saturation import dew_point_from_vapour_pressure  # local: keeps the import list short
-        if w <= 0.0:
-            return None
-        p_v = w / (self.epsilon + w) * P
-        T = dew_point_from_vapour_pressure(p_v)
-        if not self.uses_enhancement:
-            return T
-        for _ in range(30):
-            T_new = dew_point_from_vapour_pressure(p_v / self.enhancement(T, P))
-            if abs(T_new - T) < 1e-10:
-                return T_new
-            T = T_new
-        return T
+        """Temperature at which vapour content w saturates at pressure P, [K] (frost point below
+        273.16 K); None when w is 0. See :func:`thermo.moist.dew_point.dew_point`."""
+        from thermo.moist.dew_point import dew_point  # local: dew_point's doctest builds a mixture
+        return dew_point(self, w, P)
 
 
 _FAST_TABLE = None
@@ -438,7 +424,7 @@ def _fast_table():
     behind the same small cache of recent (T, p) as the exact factor."""
     global _FAST_TABLE
     if _FAST_TABLE is None:
-        from thermo.enhancement_table import EnhancementTable  # local: only fast trial solves need it
+        from thermo.moist.enhancement_table import EnhancementTable  # local: only fast trial solves need it
         _FAST_TABLE = lru_cache(maxsize=512)(EnhancementTable())
     return _FAST_TABLE
 
@@ -447,7 +433,7 @@ def make_mixture(dry) -> MoistMixture:
     """The moist mixture that belongs to a dry-air property model (by its name).
 
     A model flagged ``fast_properties`` (trial solves of studies and sweeps) gets the
-    interpolated enhancement factor of :mod:`thermo.enhancement_table`; all others the exact one.
+    interpolated enhancement factor of :mod:`thermo.moist.enhancement_table`; all others the exact one.
     """
     if dry.name == "real_gas":
         table = _fast_table() if getattr(dry, "fast_properties", False) else None

@@ -2,7 +2,7 @@
 import pytest
 
 from tests.conftest import make_doc
-from thermo.doc_paths import get_path, parse_path, set_path
+from thermo.project.paths import get_path, parse_path, set_path
 from thermo.errors import InputError
 
 

@@ -16,7 +16,7 @@ __all__ = ["EnhancementTable", "T_STEP", "LN_P_STEP", "T_FIRST", "T_LAST"]
 import math
 
 from thermo import coolprop_adapter as cpa
-from thermo.saturation import saturation_pressure
+from thermo.moist.saturation import saturation_pressure
 
 T_STEP = 2.0  #: grid step in temperature, [K]
 LN_P_STEP = 0.025  #: grid step in ln p, [-]
@@ -58,7 +58,7 @@ class EnhancementTable:
     pressure of water (where f bends sharply towards 1 as the air becomes nearly pure steam)
     and above the triple point (where CoolProp's factor switches from ice to liquid water and
     jumps by 2e-4); elsewhere the exact factor is returned. Measured against the exact factor
-    at random points of the grid's domain: largest error in ln f 8e-9 (tests/test_enhancement_table.py
+    at random points of the grid's domain: largest error in ln f 8e-9 (tests/test_moist_enhancement_table.py
     checks 1e-7), far below the factor's own uncertainty.
 
     Examples

@@ -3,9 +3,9 @@ import CoolProp.CoolProp as CP
 import pytest
 
 from thermo.errors import InputError
-from thermo.humid import MoistAir, humidity_of, intake_humidity_ratio
+from thermo.moist.stream import MoistAir, humidity_of, intake_humidity_ratio
 from thermo.models import ConstantCpAir, IdealGasAir, RealGasAir
-from thermo.moist_mixture import make_mixture
+from thermo.moist.mixture import make_mixture
 
 MIXES = [make_mixture(RealGasAir()), make_mixture(IdealGasAir()), make_mixture(ConstantCpAir())]
 

@@ -5,7 +5,7 @@ import CoolProp.CoolProp as CP
 import pytest
 
 import thermo
-from thermo.condensate import condensate_volume_L_h
+from thermo.moist.condensation import condensate_volume_L_h
 
 EPS = 18.015268 / 28.9647  # M_w / M_a (IAPWS-95; ASHRAE 2017 ch. 1 molar mass of dry air), hand value
 
@@ -101,8 +101,8 @@ def test_dew_point_on_a_cooling_line_saturates_the_stream(model_name):
     # at the dew point the saturation humidity ratio at the line's pressure equals the stream's
     # water (ASHRAE Handbook — Fundamentals 2017, ch. 1, eq. (23) with the enhancement factor of
     # RP-1485 for real gas); the secant iteration must find it to 1e-9 K
-    from thermo.condensate import line_dew_point
-    from thermo.humid import MoistAir
+    from thermo.moist.dew_point import dew_point
+    from thermo.moist.stream import MoistAir
     from thermo.models import make_model
     from thermo.train import mixture_for
     model = MoistAir(mixture_for(make_model({"model": model_name})), 0.012)
@@ -110,7 +110,7 @@ def test_dew_point_on_a_cooling_line_saturates_the_stream(model_name):
 
     def p_at(T):
         return p_out + (T - t_out) / (t_in - t_out) * (p_in - p_out)
-    T = line_dew_point(model, t_in, t_out, p_at)
+    T = dew_point(model.mixture, model.water, p_at, t_out, t_in)
     assert t_out < T < t_in
     ws = model.mixture.saturation_ratio
     assert ws(T, p_at(T)) == pytest.approx(0.012, rel=1e-10)

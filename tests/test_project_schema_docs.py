@@ -9,20 +9,20 @@ import pytest
 
 import thermo
 from tests.conftest import ROOT, SAMPLES, make_doc
-from thermo import schema_docs
+from thermo.project import schema_docs
 from thermo.project import load
-from thermo.schema import PROJECT
-from thermo.schema_types import Num, walk
+from thermo.project.schema import PROJECT
+from thermo.project.schema_types import Num, walk
 
 DOC = ROOT / "docs" / "project-format.md"
-FIX = "run `python -m thermo.schema_docs --write` after describing the key in thermo/schema_docs.py"
+FIX = "run `python -m thermo.project.schema_docs --write` after describing the key in thermo/project/schema_docs.py"
 
 
 def test_every_schema_key_has_a_meaning_and_none_is_stale():
     paths = [p for p, _ in walk(PROJECT)]
     missing = [p for p in paths if p not in schema_docs.PROJECT_KEYS]
     stale = [p for p in schema_docs.PROJECT_KEYS if p not in paths]
-    assert not missing, f"describe these keys in thermo/schema_docs.py PROJECT_KEYS: {missing}"
+    assert not missing, f"describe these keys in thermo/project/schema_docs.py PROJECT_KEYS: {missing}"
     assert not stale, f"these keys are no longer in the schema; remove them from PROJECT_KEYS: {stale}"
 
 
@@ -38,7 +38,7 @@ def _results():
 def test_every_result_key_has_a_meaning_and_none_is_stale():
     produced = set().union(*(schema_docs.result_paths(r) for r in _results()))
     described = set(schema_docs.RESULT_KEYS)
-    assert not produced - described, f"describe in thermo/schema_docs.py RESULT_KEYS: {sorted(produced - described)}"
+    assert not produced - described, f"describe in thermo/project/schema_docs.py RESULT_KEYS: {sorted(produced - described)}"
     assert not described - produced, f"no longer produced; remove from RESULT_KEYS: {sorted(described - produced)}"
 
 

@@ -11,8 +11,8 @@ import random
 import pytest
 
 from thermo import coolprop_adapter as cpa
-from thermo.enhancement_table import T_FIRST, T_LAST, EnhancementTable
-from thermo.saturation import saturation_pressure
+from thermo.moist.enhancement_table import T_FIRST, T_LAST, EnhancementTable
+from thermo.moist.saturation import saturation_pressure
 
 
 def _exact(T, p):

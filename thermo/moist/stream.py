@@ -15,8 +15,8 @@ import math
 from thermo.errors import InputError
 from thermo.models.base import Point, check_range
 from thermo.models.newton import invert_to_state
-from thermo.moist_mixture import MoistMixture
-from thermo.saturation import T_CRITICAL, T_IF97_MIN, saturation_pressure
+from thermo.moist.mixture import MoistMixture
+from thermo.moist.saturation import T_CRITICAL, T_IF97_MIN, saturation_pressure
 
 _LIQUID_NEGLIGIBLE = 1e-9  # liquid share (of the stream's water) treated as none on a path
 _DT = 1e-3  # central-difference step in T for two-phase derivatives, [K]
@@ -34,7 +34,7 @@ class MoistAir:
         h = h_g(T, p, w_v) + w_l\,h_l(T, p), \qquad s = s_g(T, p, w_v) + w_l\,s_l(T, p)
 
     with the gas phase, saturation humidity ratio :math:`w_s` and condensed water of
-    :class:`~thermo.moist_mixture.MoistMixture`. Liquid is therefore present only where the
+    :class:`~thermo.moist.mixture.MoistMixture`. Liquid is therefore present only where the
     stream is saturated; compression that heats it evaporates any liquid carried in
     (a supersaturated stage inlet after a separator of efficiency below 1), cooling below
     the dew point condenses water.
@@ -57,7 +57,7 @@ class MoistAir:
     Examples
     --------
     >>> from thermo.models import ConstantCpAir
-    >>> from thermo.moist_mixture import make_mixture
+    >>> from thermo.moist.mixture import make_mixture
     >>> air = MoistAir(make_mixture(ConstantCpAir()), 0.01)
     >>> p = air.at_tp(290.0, 8e5)  # 8 bar, 16.85 °C: w_s = 0.622 · 1920 / (8e5 − 1920)
     >>> round(p.w, 5), round(p.wl, 5)

@@ -10,7 +10,7 @@ __all__ = ["FORMAT_NAME", "FORMAT_VERSION", "PROJECT", "STAGE", "COOLER", "EFFIC
            "FLOW_KINDS", "MODEL_NAMES", "COOLANT", "COOLANT_KINDS", "ARRANGEMENT_NAMES",
            "HEAT_RECOVERY", "YEAR"]
 
-from thermo.schema_types import Choice, Items, Num, Obj, Text, Variant
+from thermo.project.schema_types import Choice, Items, Num, Obj, Text, Variant
 
 FORMAT_NAME = "stagewright-project"
 FORMAT_VERSION = 1

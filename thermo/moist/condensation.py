@@ -1,15 +1,14 @@
 """Water that condenses in a cooler: latent and sensible duty, the separator, condensate volume [1]_ [2]_."""
 from __future__ import annotations
 
-__all__ = ["Condensation", "condensation", "condensate_volume_L_h", "cooling_line", "line_dew_point"]
+__all__ = ["Condensation", "condensation", "condensate_volume_L_h", "cooling_line"]
 
 import math
 from dataclasses import dataclass
 
 from thermo import coolprop_adapter as cpa
-from thermo.roots import bracketed_root
 from thermo.models.base import Point
-from thermo.saturation import dew_point_from_vapour_pressure
+from thermo.moist.dew_point import dew_point
 
 
 @dataclass(frozen=True)
@@ -96,68 +95,6 @@ def condensate_volume_L_h(mass_kg_s: float, T: float, P: float) -> float:
     return mass_kg_s / cpa.liquid_water_density(T, P) * 1000.0 * 3600.0
 
 
-def line_dew_point(model, t_in: float, t_out: float, p_at, tol: float = 1e-11):
-    r"""Temperature at which a cooling line p(T) reaches the dew point of the stream, [K], or None.
-
-    Solves :math:`T = g(T) = T_{ws}\!\left(x_w\,p(T) / f(T, p(T))\right)`, with
-    :math:`T_{ws}` the IAPWS-IF97 backward saturation-temperature equation [1]_ and f the
-    enhancement factor of the mixture (1 for the ideal mixtures), by one fixed-point step
-    and then secant steps on :math:`g(T) - T` [2]_. g contracts by about
-    :math:`|d\ln(p/f)/dT| / (d\ln p_{ws}/dT)`, of order 1e-2 for a cooler's pressure drop,
-    so the secant steps converge in three or four evaluations of f; a bracketing search
-    would take ten or more.
-
-    Parameters
-    ----------
-    model : MoistAir
-        Stream model (its total water is the vapour content that saturates).
-    t_in, t_out : float
-        Cooler inlet and outlet temperatures, [K]; the dew point lies between them.
-    p_at : callable
-        Pressure [Pa] along the line as a function of temperature [K].
-    tol : float
-        Convergence tolerance on T, [K].
-
-    Returns
-    -------
-    float or None
-        The dew point on the line, or None if the iteration does not settle inside
-        [t_out, t_in] within 40 steps (the caller then brackets the root).
-
-    Examples
-    --------
-    >>> from thermo.models.ideal_gas import IdealGasAir
-    >>> from thermo.humid import MoistAir
-    >>> from thermo.train import mixture_for
-    >>> m = MoistAir(mixture_for(IdealGasAir()), 0.01)
-    >>> round(line_dew_point(m, 400.0, 300.0, lambda T: 5e5), 2)
-    314.45
-
-    References
-    ----------
-    .. [1] IAPWS, *Revised Release on the IAPWS Industrial Formulation 1997 for the
-       Thermodynamic Properties of Water and Steam*, 2007, eq. (31).
-    .. [2] K. E. Atkinson, *An Introduction to Numerical Analysis*, 2nd ed., Wiley, 1989, §2.3.
-    """
-    mixture = model.mixture
-    x_w = model.water / (mixture.epsilon + model.water)
-
-    def g(T: float) -> float:
-        p = p_at(T)
-        return dew_point_from_vapour_pressure(x_w * p / mixture.enhancement(T, p))
-    T_prev, h_prev = t_out, g(t_out) - t_out
-    T = T_prev + h_prev
-    for _ in range(40):
-        h = g(T) - T
-        if abs(h) < tol:
-            T += h
-            return T if t_out <= T <= t_in else None
-        if h == h_prev:
-            return None
-        T, T_prev, h_prev = T - h * (T - T_prev) / (h - h_prev), T, h  # secant on g(T) − T = 0
-    return None
-
-
 def cooling_line(model, inlet: Point, t_out: float, p_out: float, where: str, points: int = 8) -> list[Point]:
     """States along a cooler's line (p linear in T), with the point where condensation starts.
 
@@ -191,9 +128,7 @@ def cooling_line(model, inlet: Point, t_out: float, p_out: float, where: str, po
 
     temps = [t_in + k / points * (t_out - t_in) for k in range(1, points)]
     if inlet.wl == 0.0 and t_in > t_out and excess(t_out) > 0.0 and excess(t_in) < 0.0:
-        t_dew = line_dew_point(model, t_in, t_out, p_at)
-        if t_dew is None:
-            t_dew = bracketed_root(excess, t_out, t_in, xtol=1e-12)
+        t_dew = dew_point(model.mixture, model.water, p_at, t_out, t_in)
         n_cond = max(points // 2, math.ceil(points * (t_dew - t_out) / (t_in - t_out)))
         n_sens = max(1, points - n_cond)
         temps = ([t_in + k / n_sens * (t_dew - t_in) for k in range(1, n_sens + 1)]

@@ -12,8 +12,8 @@ from typing import Any
 
 from thermo.atmosphere import standard_pressure
 from thermo.errors import InputError, Problem
-from thermo.schema import PROJECT
-from thermo.schema_types import check
+from thermo.project.schema import PROJECT
+from thermo.project.schema_types import check
 from thermo.year_profile import year_problems
 
 

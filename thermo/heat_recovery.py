@@ -20,7 +20,7 @@ it). The value per year is the boiler fuel it saves:
 with :math:`t_{op}` in hours and :math:`c_{fuel}` per kWh of fuel.
 
 For moist intake air :math:`h` is the equilibrium enthalpy of the cooler's own stream per
-kilogram of dry air (:class:`thermo.humid.MoistAir`, liquid water included) and
+kilogram of dry air (:class:`thermo.moist.stream.MoistAir`, liquid water included) and
 :math:`\dot m` the dry-air flow, so that where :math:`T_x` lies below the stream's dew point
 the latent heat of the water condensed above :math:`T_x` counts as recoverable (ASHRAE
 Handbook—Fundamentals 2017, ch. 1, cooling with dehumidification).

@@ -1,0 +1,1 @@
+"""Water in air: saturation (IAPWS), the moist mixture, the moist stream model, the enhancement-factor table of the fast path, condensation in coolers, dew and frost points, ISO 8573-1 humidity classes."""
