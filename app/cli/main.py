@@ -18,15 +18,16 @@ from __future__ import annotations
 __all__ = ["main", "SUBCOMMANDS", "expand_paths"]
 
 import argparse
-import importlib
 import os
 import sys
 
+from app.cli import check, report, solve, study, sweep, year
 from app.cli.paths import EXIT_FAILED, expand_paths
 
 #: sub-command -> module with ``run(args)`` and either ``build_parser()`` or ``add_arguments(p)``
-SUBCOMMANDS = {"solve": "app.cli.solve", "check": "app.cli.check", "report": "app.cli.report",
-               "study": "app.cli.study", "year": "app.cli.year", "sweep": "app.cli.sweep"}
+#: (imported here, not by name at run time, so the import contracts see them; each module
+#: imports the core only when it runs)
+SUBCOMMANDS = {"solve": solve, "check": check, "report": report, "study": study, "year": year, "sweep": sweep}
 
 #: sub-commands that take the ``solve`` options (``--json``)
 _SOLVE_OPTIONS = ("year",)
@@ -40,7 +41,7 @@ def _parser(name: str, module) -> argparse.ArgumentParser:
     if hasattr(module, "add_arguments"):
         module.add_arguments(p)
     elif name in _SOLVE_OPTIONS:
-        importlib.import_module("app.cli.solve").add_arguments(p)
+        solve.add_arguments(p)
     return p
 
 
@@ -56,7 +57,7 @@ def main(argv: list[str] | None = None) -> int:
     if not argv or argv[0] not in SUBCOMMANDS:
         argparse.ArgumentParser(prog="stagewright").error(
             f"expected one of {', '.join(SUBCOMMANDS)} (no sub-command opens the window)")
-    module = importlib.import_module(SUBCOMMANDS[argv[0]])
+    module = SUBCOMMANDS[argv[0]]
     args = _parser(argv[0], module).parse_args(argv[1:])
     try:
         return module.run(args)

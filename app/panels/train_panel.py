@@ -14,7 +14,7 @@ from thermo.project.schema import PROJECT
 
 from app.presentation import units
 from app.document.paths import ABSENT, stage_index, stage_path
-from app.window.icons import icon
+from app.widgets.icons import icon
 from app.panels.cooler_form import CoolerForm, default_cooler
 from app.panels.stage_form import StageForm
 

@@ -62,7 +62,7 @@ def run_gui(project: str | None = None, screenshot: str | None = None, size: str
     from thermo import StagewrightError
     from thermo.project import load
 
-    from app.window.icons import icon
+    from app.widgets.icons import icon
     from app.window.main_window import MainWindow
     from app.window.recovery_ops import AUTOSAVE_MS
     from app.window.style import apply_style

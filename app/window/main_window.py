@@ -24,9 +24,9 @@ from app.window.file_ops import FileOps
 from app.window.recovery_ops import AUTOSAVE_MS, RecoveryOps
 from app.study.ops import StudyOps
 from app.window.help_dialogs import CautionsDialog, about_text
-from app.window.icons import icon
+from app.widgets.icons import icon
 from app.panels.balance_panel import BalancePanel
-from app.panels.charts_panel import ChartsPanel
+from app.window.charts_area import ChartsPanel
 from app.panels.duty_panel import DutyPanel
 from app.panels.messages_panel import MessagesPanel
 from app.panels.site_panel import SitePanel
