@@ -260,7 +260,7 @@ def test_the_panel_has_a_view_toggle_and_its_layout_is_remembered(qtbot, tmp_pat
 
     settings = QSettings(str(tmp_path / "settings.ini"), QSettings.IniFormat)
     again = MainWindow(perfect_gas_doc(), settings=settings, debounce_ms=10, restore_layout=True)
-    again.ask_save_changes = lambda: "discard"
+    again.prompts.ask_save_changes = lambda _name: "discard"
     qtbot.addWidget(again)
     again.show()
     qtbot.waitUntil(lambda: again.docks["study"].isFloating() and not again.docks["study"].isVisible(),

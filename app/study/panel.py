@@ -25,7 +25,6 @@ from app.study.apply import apply_text, option_stages, study_key
 from app.study.display import (COLUMNS, VARIABLES, case_label, cells, format_values, header, limit_messages,
                              parse_values, tooltip)
 from app.study.job import StudyRequest
-from app.study.ops import study_stage_count
 from app.study.worker import StudyController
 from app.widgets.signals_blocked import signals_blocked
 from app.panels.messages_panel import Message
@@ -33,6 +32,11 @@ from app.panels.messages_panel import Message
 _INFEASIBLE = QColor("#8a96a3")
 _SIDE_BY_SIDE_PX = 900  # table and chart side by side from this width, else on two tabs
 _STUDY_INPUTS = ("max_stages", "operating_hours_per_year", "energy_price_per_kWh", "variable", "values")
+
+
+def study_stage_count(n_stages: int) -> int:
+    """Most stages to compare: two more than the project has, at least 4, at most the study's limit."""
+    return max(1, min(MAX_STAGES, max(4, n_stages + 2)))
 
 
 class StudyPanel(QWidget):
@@ -53,6 +57,7 @@ class StudyPanel(QWidget):
     messages_changed = Signal(str, object)
     shown_changed = Signal()  #: the rows shown (and so the chart) changed
     stale_changed = Signal(bool)  #: the study stopped (True) or started again (False) to fit the project
+    run_started = Signal(int)  #: a study started, comparing 1 to this many stages
 
     def __init__(self, editor, parent=None):
         super().__init__(parent)
@@ -375,6 +380,7 @@ class StudyPanel(QWidget):
         what = (f"{len(values)} value(s) of {VARIABLES[variable][0].lower()}, " if variable else "")
         self._set_status(f"Running: {what}1 to {req.max_stages} stages…")
         self._update_state()
+        self.run_started.emit(req.max_stages)
 
     def cancel_study(self) -> None:
         """Stop the running study (handler of the "train.study_cancel" action)."""
