@@ -33,7 +33,7 @@ def make_window(qtbot, tmp_path, doc=None, autosave_ms=None):
     settings = QSettings(str(tmp_path / "settings.ini"), QSettings.IniFormat)
     win = MainWindow(doc if doc is not None else json.loads(SAMPLE.read_text(encoding="utf-8")),
                      settings=settings, debounce_ms=10, restore_layout=False, autosave_ms=autosave_ms)
-    win.ask_save_changes = lambda: "discard"  # never a modal question in a test
+    win.prompts.ask_save_changes = lambda _name: "discard"  # never a modal question in a test
     qtbot.addWidget(win)
     win.show()
     wait_solved(qtbot, win, 0)

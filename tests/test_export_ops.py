@@ -22,9 +22,9 @@ EXPORT_TIMEOUT_MS = 60_000
 
 
 def _export(qtbot, win, target, chosen):
-    win.export_target = lambda: (str(target), chosen)
+    win.prompts.export_target = lambda _start: (str(target), chosen)
     win.action_map["file.export"].trigger()
-    qtbot.waitUntil(lambda: win.export_job is not None and not win.export_job.thread.is_alive(),
+    qtbot.waitUntil(lambda: win.exports.job is not None and not win.exports.job.thread.is_alive(),
                     timeout=EXPORT_TIMEOUT_MS)
     qtbot.wait(50)  # let the queued done signal arrive
 
@@ -32,7 +32,7 @@ def _export(qtbot, win, target, chosen):
 def test_export_writes_pdf_and_csv_matching_the_window(qtbot, tmp_path):
     win = make_window(qtbot, tmp_path)
     errors = []
-    win.show_error = lambda title, text: errors.append(text)
+    win.prompts.show_error = lambda title, text: errors.append(text)
     assert win.action_map["file.export"] in win.menuBar().actions()[0].menu().actions()
     _export(qtbot, win, tmp_path / "out", PDF_AND_CSV)  # no suffix typed: .pdf is added
     assert errors == []
@@ -62,18 +62,18 @@ def test_export_in_us_units_and_pdf_only(qtbot, tmp_path):
 def test_export_refuses_stale_results(qtbot, tmp_path):
     win = make_window(qtbot, tmp_path)
     errors = []
-    win.show_error = lambda title, text: errors.append(title)
+    win.prompts.show_error = lambda title, text: errors.append(title)
     type_into(qtbot, win.panels["train"].stage_form.value, "abc")  # results go stale
-    win.export_target = lambda: pytest.fail("no file dialog for stale results")
+    win.prompts.export_target = lambda _start: pytest.fail("no file dialog for stale results")
     win.action_map["file.export"].trigger()
-    assert errors == ["Nothing to export yet"] and win.export_job is None
+    assert errors == ["Nothing to export yet"] and win.exports.job is None
     win.close()
 
 
 def test_export_failure_is_a_message_not_a_crash(qtbot, tmp_path):
     win = make_window(qtbot, tmp_path)
     errors = []
-    win.show_error = lambda title, text: errors.append((title, text))
+    win.prompts.show_error = lambda title, text: errors.append((title, text))
     _export(qtbot, win, tmp_path / "missing_folder" / "x.pdf", PDF_ONLY)
     assert errors and errors[0][0] == "Cannot export the report" and "x.pdf" in errors[0][1]
     win.close()

@@ -221,25 +221,31 @@ def test_closing_with_unsaved_changes_asks(qtbot, window, tmp_path):
     window.editor.set_value("title", "changed")
     assert window.isWindowModified() and window.windowTitle().startswith("Untitled")
     asked = []
-    window.ask_save_changes = lambda: asked.append(1) or "cancel"
+    window.prompts.ask_save_changes = lambda _name: asked.append(1) or "cancel"
     assert not window.close()
     assert asked and window.isVisible()
-    window.ask_save_changes = lambda: "discard"
+    window.prompts.ask_save_changes = lambda _name: "discard"
     assert window.close()
     assert not window.editor.solver._thread.isRunning()
+
+
+def test_every_action_handler_is_a_method_of_an_object_the_window_owns(window):
+    from app.window.actions import ACTIONS
+    for spec in ACTIONS:
+        assert callable(window.handler(spec.handler)), spec.id
 
 
 def test_save_and_open_round_trip(qtbot, window, tmp_path):
     from thermo.project import load
     out = tmp_path / "train.json"
     window.editor.set_value("title", "Saved train")
-    assert window._write(out)
+    assert window.files.save_to(out)
     assert not window.isWindowModified() and window.windowTitle() == "train.json[*] — Stagewright"
     assert load(out)["title"] == "Saved train"
-    assert window.recent_files()[0] == str(out.resolve())
-    window.new_project()
+    assert window.files.recent_files()[0] == str(out.resolve())
+    window.files.new_project()
     assert window.editor.model.get("title") == "New compression train"
-    assert window.open_path(str(out))
+    assert window.files.open_path(str(out))
     assert window.editor.model.get("title") == "Saved train" and window.editor.undo_stack.count() == 0
 
 

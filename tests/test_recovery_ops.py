@@ -23,7 +23,7 @@ def test_a_change_is_autosaved_and_a_save_clears_it(qtbot, tmp_path):
     qtbot.waitUntil(lambda: recovery.read_recovery() is not None, timeout=5000)
     doc, source = recovery.read_recovery()
     assert doc["title"] == "unsaved work" and source is None
-    assert win._write(tmp_path / "saved.json")
+    assert win.files.save_to(tmp_path / "saved.json")
     assert recovery.read_recovery() is None
     win.close()
 
@@ -42,9 +42,9 @@ def test_start_up_offers_the_recovered_document(qtbot, tmp_path):
     doc = simple_real_gas_doc(stages=3)
     recovery.write_recovery(doc, source)
     win = make_window(qtbot, tmp_path, simple_real_gas_doc(), autosave_ms=20)
-    win.ask_restore = lambda name: name == "plant.json"
-    assert win.offer_recovery()
-    assert win.editor.model.stage_count == 3 and win.path == source
+    win.prompts.ask_restore = lambda name: name == "plant.json"
+    assert win.recovery.offer()
+    assert win.editor.model.stage_count == 3 and win.files.path == source
     assert win.isWindowModified()
     assert recovery.read_recovery() is not None  # kept until the work is saved or dropped
     assert win.close()  # the fixture answers "discard"
@@ -54,7 +54,7 @@ def test_start_up_offers_the_recovered_document(qtbot, tmp_path):
 def test_declining_removes_the_recovery_file(qtbot, tmp_path):
     recovery.write_recovery(simple_real_gas_doc(), None)
     win = make_window(qtbot, tmp_path, simple_real_gas_doc(), autosave_ms=20)
-    win.ask_restore = lambda name: False
-    assert not win.offer_recovery()
+    win.prompts.ask_restore = lambda name: False
+    assert not win.recovery.offer()
     assert recovery.read_recovery() is None
     win.close()

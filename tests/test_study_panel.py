@@ -56,7 +56,7 @@ def number(text: str) -> float:
 
 def run(qtbot, win, n: int):
     panel = win.panels["study"]
-    panel.max_stages.setValue(n)
+    panel.controls.max_stages.setValue(n)
     with qtbot.waitSignal(panel.controller.finished, timeout=STUDY_MS):
         win.action_map["train.study"].trigger()
     return panel
@@ -66,22 +66,22 @@ def test_a_study_fills_the_table_with_the_classical_optimum(qtbot, tmp_path):
     win = make_window(qtbot, tmp_path, perfect_gas_doc())
     panel = run(qtbot, win, 4)
     assert win.docks["study"].isVisible()
-    assert [panel.cell_text(r, "stages") for r in range(panel.table.rowCount())] == ["1", "2", "3", "4"]
+    assert [panel.table.cell_text(r, "stages") for r in range(panel.table.rowCount())] == ["1", "2", "3", "4"]
     for r, n in enumerate((1, 2, 3, 4)):
-        ratios = [float(x) for x in panel.cell_text(r, "ratios").split(" × ")]
+        ratios = [float(x) for x in panel.table.cell_text(r, "ratios").split(" × ")]
         assert ratios == pytest.approx([9 ** (1 / n)] * n, abs=6e-4)  # (p2/p1)^(1/N), 3 decimals shown
-        assert number(panel.cell_text(r, "power")) == pytest.approx(optimum_kW(n), abs=0.006)
-        assert panel.cell_text(r, "feasible") == "yes"
-    assert panel.header_text("power") == "Driver power\n[kW]"
+        assert number(panel.table.cell_text(r, "power")) == pytest.approx(optimum_kW(n), abs=0.006)
+        assert panel.table.cell_text(r, "feasible") == "yes"
+    assert panel.table.header_text("power") == "Driver power\n[kW]"
     assert "repeats the project's first stage" in panel.note.text() and "aftercooler" in panel.note.text()
-    assert panel.progress.value() == 1000 and not panel.busy
+    assert panel.controls.progress.value() == 1000 and not panel.busy
     assert win.action_map["train.study"].isEnabled() and not win.action_map["train.study_cancel"].isEnabled()
     # the chart shows the same numbers: power against stage count, in kW
     from matplotlib.lines import Line2D
-    (power,) = [ln for ln in panel.figure.findobj(Line2D) if ln.get_gid() == "staging-power"]
+    (power,) = [ln for ln in panel.chart.figure.findobj(Line2D) if ln.get_gid() == "staging-power"]
     assert list(power.get_xdata()) == [1, 2, 3, 4]
     assert power.get_ydata()[2] == pytest.approx(optimum_kW(3), rel=1e-6)
-    assert panel.toolbar is not None  # matplotlib's navigation toolbar
+    assert panel.chart.toolbar is not None  # matplotlib's navigation toolbar
     win.close()
 
 
@@ -105,16 +105,16 @@ def test_cancel_stops_the_study_and_the_window_stays_usable(qtbot, tmp_path, mon
 
     win = make_window(qtbot, tmp_path, perfect_gas_doc())
     panel = win.panels["study"]
-    panel.max_stages.setValue(6)
+    panel.controls.max_stages.setValue(6)
     win.action_map["train.study"].trigger()
-    qtbot.waitUntil(lambda: held.is_set() and panel.progress.value() > 0, timeout=STUDY_MS)
+    qtbot.waitUntil(lambda: held.is_set() and panel.controls.progress.value() > 0, timeout=STUDY_MS)
     assert panel.busy and win.action_map["train.study_cancel"].isEnabled()
-    assert not win.action_map["train.study"].isEnabled() and not panel.max_stages.isEnabled()
+    assert not win.action_map["train.study"].isEnabled() and not panel.controls.max_stages.isEnabled()
     with qtbot.waitSignal(panel.controller.cancelled, timeout=STUDY_MS):
         win.action_map["train.study_cancel"].trigger()
     assert not panel.busy
     assert [r["stages"] for r in panel.rows] == [1]  # what was finished is kept
-    assert panel.status.text().startswith("Cancelled")
+    assert panel.controls.status.text().startswith("Cancelled")
     assert win.action_map["train.study"].isEnabled() and not win.action_map["train.study_cancel"].isEnabled()
 
     # the window still edits, solves and studies
@@ -132,7 +132,7 @@ def test_apply_is_one_undo_step_and_undo_restores_the_document_exactly(qtbot, tm
     ed, bal = win.editor, win.panels["balance"]
     before, count = dumps(ed.model.doc), ed.undo_stack.count()
     panel = run(qtbot, win, 3)
-    panel.select_option(3)
+    panel.table.select_option(3)
     act = win.action_map["train.study_apply"]
     assert act.isEnabled() and act.text() == "Apply 3-stage option"
     n = ed.solved_jobs
@@ -160,18 +160,18 @@ def test_unit_switch_changes_the_table_units(qtbot, tmp_path):
     win = make_window(qtbot, tmp_path, perfect_gas_doc())
     ed = win.editor
     panel = run(qtbot, win, 2)
-    kw = number(panel.cell_text(1, "power"))
-    temps_c = [float(x) for x in panel.cell_text(0, "temperatures").split(" · ")]
+    kw = number(panel.table.cell_text(1, "power"))
+    temps_c = [float(x) for x in panel.table.cell_text(0, "temperatures").split(" · ")]
     before = dumps(ed.model.doc)
     win.action_map["view.us_units"].trigger()
-    assert panel.header_text("power") == "Driver power\n[hp]"
-    assert panel.header_text("temperatures") == "Discharge temperatures\n[°F]"
-    assert number(panel.cell_text(1, "power")) == pytest.approx(kw * 1000.0 / HP_W, abs=0.01)
-    temps_f = [float(x) for x in panel.cell_text(0, "temperatures").split(" · ")]
+    assert panel.table.header_text("power") == "Driver power\n[hp]"
+    assert panel.table.header_text("temperatures") == "Discharge temperatures\n[°F]"
+    assert number(panel.table.cell_text(1, "power")) == pytest.approx(kw * 1000.0 / HP_W, abs=0.01)
+    temps_f = [float(x) for x in panel.table.cell_text(0, "temperatures").split(" · ")]
     assert temps_f == pytest.approx([c * 9 / 5 + 32 for c in temps_c], abs=0.2)  # 1 decimal each
-    assert "hp" in panel.figure.axes[0].get_ylabel()
+    assert "hp" in panel.chart.figure.axes[0].get_ylabel()
     win.action_map["view.us_units"].trigger()
-    assert panel.header_text("power") == "Driver power\n[kW]"
+    assert panel.table.header_text("power") == "Driver power\n[kW]"
     assert dumps(ed.model.doc) == before and ed.undo_stack.count() == 0
     win.close()
 
@@ -183,7 +183,7 @@ def test_limits_go_to_messages_and_select_their_field(qtbot, tmp_path):
     panel = run(qtbot, win, 3)
     msgs, train = win.panels["messages"], win.panels["train"]
     assert [r["feasible"] for r in panel.rows] == [False, True, True]
-    assert panel.cell_text(0, "feasible") == "no"
+    assert panel.table.cell_text(0, "feasible") == "no"
     warnings = [m for m in msgs.messages if m.severity == "warning" and "1-stage option" in m.text]
     assert len(warnings) == 1 and warnings[0].field == "stages[0].max_discharge_temperature_K"
     t2 = 293.15 * (1 + (9 ** (0.4 / 1.4) - 1) / 0.8) - 273.15
@@ -191,7 +191,7 @@ def test_limits_go_to_messages_and_select_their_field(qtbot, tmp_path):
     assert shown == pytest.approx(t2, abs=0.006)
     assert "176.85 °C" in warnings[0].text  # the 450 K limit in display units
     assert any(m.severity == "caution" and "discharge temperature" in m.text for m in msgs.messages)
-    panel.select_option(1)
+    panel.table.select_option(1)
     assert not win.action_map["train.study_apply"].isEnabled()  # an option that misses its limits is no design
 
     train.select("cooler", 1)
@@ -206,7 +206,7 @@ def test_limits_go_to_messages_and_select_their_field(qtbot, tmp_path):
     wait_solved(qtbot, win, n)
     assert panel.is_stale and panel.banner.isVisibleTo(panel)
     assert not any("stage option" in m.text for m in msgs.messages)
-    panel.select_option(2)
+    panel.table.select_option(2)
     assert not win.action_map["train.study_apply"].isEnabled()
     win.close()
 
@@ -214,9 +214,9 @@ def test_limits_go_to_messages_and_select_their_field(qtbot, tmp_path):
 def test_a_site_variable_gives_one_case_per_value(qtbot, tmp_path):
     win = make_window(qtbot, tmp_path, perfect_gas_doc())
     panel = win.panels["study"]
-    panel.variable.setCurrentIndex(panel.variable.findData("ambient_temperature_K"))
-    assert panel.values.isVisibleTo(panel) and panel.values_unit.text() == "°C"
-    panel.values.setText("5, 15")  # below the coolers' 20 °C outlet: a cooler cannot heat the air
+    panel.controls.variable.setCurrentIndex(panel.controls.variable.findData("ambient_temperature_K"))
+    assert panel.controls.values.isVisibleTo(panel) and panel.controls.values_unit.text() == "°C"
+    panel.controls.values.setText("5, 15")  # below the coolers' 20 °C outlet: a cooler cannot heat the air
     run(qtbot, win, 2)
     assert [panel.case.itemText(i) for i in range(panel.case.count())] == \
         ["Ambient temperature 5.00 °C", "Ambient temperature 15.00 °C"]
@@ -225,11 +225,11 @@ def test_a_site_variable_gives_one_case_per_value(qtbot, tmp_path):
         assert [r["stages"] for r in panel.rows] == [1, 2]
         # one stage has no split to choose: ratio 9 from the ambient intake (fluids closed form)
         w = isentropic_work_compression(T1=t_amb, k=1.4, Z=1.0, P1=1e5, P2=9e5, eta=0.8) / M_AIR / 1000.0
-        assert number(panel.cell_text(0, "power")) == pytest.approx(w, abs=0.006)
-    panel.select_option(2)
+        assert number(panel.table.cell_text(0, "power")) == pytest.approx(w, abs=0.006)
+    panel.table.select_option(2)
     assert not win.action_map["train.study_apply"].isEnabled()  # other site conditions than the project's
     win.action_map["view.us_units"].trigger()
-    assert panel.values.text() == "41, 59" and panel.values_unit.text() == "°F"  # exact (NIST SP 811)
+    assert panel.controls.values.text() == "41, 59" and panel.controls.values_unit.text() == "°F"  # exact (NIST SP 811)
     win.close()
 
 
@@ -260,7 +260,7 @@ def test_the_panel_has_a_view_toggle_and_its_layout_is_remembered(qtbot, tmp_pat
 
     settings = QSettings(str(tmp_path / "settings.ini"), QSettings.IniFormat)
     again = MainWindow(perfect_gas_doc(), settings=settings, debounce_ms=10, restore_layout=True)
-    again.ask_save_changes = lambda: "discard"
+    again.prompts.ask_save_changes = lambda _name: "discard"
     qtbot.addWidget(again)
     again.show()
     qtbot.waitUntil(lambda: again.docks["study"].isFloating() and not again.docks["study"].isVisible(),
@@ -271,12 +271,12 @@ def test_the_panel_has_a_view_toggle_and_its_layout_is_remembered(qtbot, tmp_pat
 def test_bad_study_input_is_reported_with_its_field(qtbot, tmp_path):
     win = make_window(qtbot, tmp_path, perfect_gas_doc())
     panel, msgs = win.panels["study"], win.panels["messages"]
-    panel.variable.setCurrentIndex(panel.variable.findData("ambient_temperature_K"))
-    panel.values.setText("5, warm")
+    panel.controls.variable.setCurrentIndex(panel.controls.variable.findData("ambient_temperature_K"))
+    panel.controls.values.setText("5, warm")
     win.action_map["train.study"].trigger()
-    assert not panel.busy and panel.values.property("invalid") is True
-    assert panel.status.text() == "Values: 'warm' is not a number."
-    panel.values.setText("5, 80")  # above the project format's 60 °C (333.15 K) ambient
+    assert not panel.busy and panel.controls.values.property("invalid") is True
+    assert panel.controls.status.text() == "Values: 'warm' is not a number."
+    panel.controls.values.setText("5, 80")  # above the project format's 60 °C (333.15 K) ambient
     with qtbot.waitSignal(panel.controller.failed, timeout=STUDY_MS):
         win.action_map["train.study"].trigger()
     problems = [m for m in msgs.messages if m.severity == "problem"]

@@ -184,14 +184,14 @@ def test_edited_year_saves_and_loads_back_the_same(qtbot, tmp_path):
     assert ed.set_field("year.energy_price_per_kWh", "0.21")
     assert ed.set_kind("bins")
     out = tmp_path / "edited.json"
-    assert win._write(out)
+    assert win.files.save_to(out)
     loaded = load(out)
     assert loaded["year"] == win.editor.model.doc["year"]
     assert loaded["year"]["profile"]["bins"][7]["temperature_K"] == pytest.approx(298.15, abs=1e-9)
     assert loaded["year"]["operating_hours_per_year"] == 7000.0
-    win.new_project()
+    win.files.new_project()
     assert win.panels["year"].profile_editor.stack.currentIndex() == 0
-    assert win.open_path(str(out))
+    assert win.files.open_path(str(out))
     assert win.panels["year"].profile_editor.table.rowCount() == 12
     assert win.editor.model.get("year") == loaded["year"]
 

@@ -1,1 +1,13 @@
-"""The staging study front to back in the window: the request and its plain-data answer, apply an option, table cells, the worker, the panel and its tab."""
+"""The staging study front to back in the window.
+
+Qt-free: ``job`` (the request, running it, the plain-data answer) · ``apply`` (an option's stage
+list for Apply; is a study still current) · ``display`` (table columns and cells, limit messages,
+case names, site-variable values).
+
+Qt: ``worker`` (StudyController: the study thread, progress, cancel) · ``panel`` (StudyPanel, the
+dock: composes the three pieces below, runs the study, keeps its answer, publishes its messages)
+· ``controls`` (inputs, Run/Cancel, progress and status, Apply) · ``options_table`` (the options
+table: cells, the picked option, whether it can be applied) · ``chart_view`` (the staging chart
+canvas and toolbar) · ``tab`` (the charts area's Staging study tab: the same chart and table,
+large) · ``ops`` (StudyLink: the panel's runs in the status bar and the charts area's tab).
+"""

@@ -1,25 +1,29 @@
 """The staging-study tab of the charts area: power and discharge temperature against the
-number of stages (drawn by :func:`app.charts.draw_staging_chart`) and the options as a table."""
+number of stages, large, over the options' deciding figures. It reuses the study panel's pieces:
+the chart (:class:`~app.study.chart_view.StagingChartView`) and the table
+(:class:`~app.study.options_table.OptionsTable`, with summary columns of its own)."""
 from __future__ import annotations
 
 __all__ = ["StudyTab", "STUDY_COLUMNS"]
 
 from PySide6.QtCore import Qt
-from PySide6.QtWidgets import (QAbstractItemView, QHeaderView, QLabel, QSplitter, QTableWidget,
-                               QTableWidgetItem, QVBoxLayout, QWidget)
+from PySide6.QtWidgets import QLabel, QSplitter, QVBoxLayout, QWidget
 
 from app.presentation import units
 from app.document.field_specs import describe
+from app.study.chart_view import StagingChartView
+from app.study.display import Column, cells
+from app.study.options_table import OptionsTable
 
-#: (row key, header, quantity or None)
+#: the tab's columns: the figures that decide between the options (the panel shows them all)
 STUDY_COLUMNS = [
-    ("stages", "Stages", None),
-    ("feasible", "Within\nlimits", None),
-    ("driver_power_W", "Driver power", "power"),
-    ("specific_power_kW_per_m3_min", "Specific power", "specific_power"),
-    ("max_discharge_temperature_K", "Hottest\ndischarge", "temperature"),
-    ("saving_W", "Saving", "power"),
-    ("binding_limits", "Binding limits\n", None),
+    Column("stages", "Stages"),
+    Column("feasible", "Within\nlimits"),
+    Column("power", "Driver power", "power"),
+    Column("specific", "Specific power", "specific_power"),
+    Column("hottest", "Hottest\ndischarge", "temperature"),
+    Column("saving", "Saving", "power"),
+    Column("limits", "Binding limits"),
 ]
 
 
@@ -46,16 +50,11 @@ class _OneLine(QLabel):
 
 
 class StudyTab(QWidget):
-    """Empty until a study has run; ``show_rows(rows, note, system, limit_K)`` fills it."""
+    """Empty until a study has run; ``show_rows(rows, note, system, limit_K, doc)`` fills it."""
 
     def __init__(self, parent=None):
         super().__init__(parent)
-        from matplotlib.backends.backend_qtagg import FigureCanvasQTAgg, NavigationToolbar2QT
-        from matplotlib.figure import Figure
-        self.figure = Figure(figsize=(6, 3))
-        self.canvas = FigureCanvasQTAgg(self.figure)
-        self.canvas.setMinimumSize(420, 200)
-        self.toolbar = NavigationToolbar2QT(self.canvas, self)
+        self.chart = StagingChartView(titled=True, figsize=(6, 3), min_size=(420, 200))
         self.intro = _OneLine()
         self.intro.set_full_text("Train ▸ Run staging study compares 1 to N stages, each at its best "
                                  "pressure split within the stage limits.")
@@ -63,23 +62,11 @@ class StudyTab(QWidget):
         self.stale = QLabel("Out of date — the project changed since this study ran. Run it again.")
         self.stale.setObjectName("staleBanner")
         self.stale.hide()
-        self.table = QTableWidget(0, len(STUDY_COLUMNS))
-        self.table.setEditTriggers(QAbstractItemView.NoEditTriggers)
-        self.table.verticalHeader().setVisible(False)
+        self.table = OptionsTable(STUDY_COLUMNS, self._cells, left={"limits"}, pickable=False)
         self.table.verticalHeader().setDefaultSectionSize(20)
-        self.table.horizontalHeader().setSectionResizeMode(QHeaderView.ResizeToContents)
-        self.table.horizontalHeader().setStretchLastSection(True)
-        self.table.setWordWrap(False)
-        self.table.setTextElideMode(Qt.ElideRight)
         self.table.setMinimumHeight(90)
-        top = QWidget()
-        tl = QVBoxLayout(top)
-        tl.setContentsMargins(0, 0, 0, 0)
-        tl.setSpacing(0)
-        tl.addWidget(self.toolbar)
-        tl.addWidget(self.canvas, 1)
         split = QSplitter(Qt.Vertical)
-        split.addWidget(top)
+        split.addWidget(self.chart)
         split.addWidget(self.table)
         split.setStretchFactor(0, 1)
         split.setStretchFactor(1, 0)
@@ -93,41 +80,36 @@ class StudyTab(QWidget):
         self.rows: list[dict] = []
         self._last = None
 
+    @property
+    def figure(self):
+        return self.chart.figure
+
+    @property
+    def canvas(self):
+        return self.chart.canvas
+
     def show_rows(self, rows: list[dict], note: str, system: str, limit_K: float | None,
                   doc: dict | None = None) -> None:
-        from app.charts import draw_staging_chart
         self.rows, self._last = rows, (rows, note, limit_K, doc)
         self.intro.set_full_text(note)
         self.stale.hide()
-        draw_staging_chart(self.figure, rows, system=system, limit_K=limit_K)
-        self.canvas.draw_idle()
-        heads = []
-        for key, name, q in STUDY_COLUMNS:
-            sym = units.unit(q, system).symbol if q else ""
-            heads.append(f"{name}\n[{sym}]" if sym else (name if "\n" in name else name + "\n"))
-        self.table.setHorizontalHeaderLabels(heads)
-        self.table.setRowCount(len(rows))
-        for r, row in enumerate(rows):
-            for c, (key, _, q) in enumerate(STUDY_COLUMNS):
-                v = row.get(key)
-                if key == "feasible":
-                    text = "yes" if v else "no"
-                elif key == "binding_limits":
-                    text = "; ".join(self._limit_text(x, doc) for x in (v or []))
-                elif q is None:
-                    text = "—" if v is None else str(v)
-                else:
-                    text = units.format_value(v, q, system, with_unit=False)
-                item = QTableWidgetItem(text)
-                if key == "binding_limits" and v:
-                    item.setToolTip("\n".join(x.get("message", "") for x in v if isinstance(x, dict)))
-                item.setTextAlignment((Qt.AlignLeft if key == "binding_limits" else Qt.AlignRight) | Qt.AlignVCenter)
-                self.table.setItem(r, c, item)
-        want = self.table.horizontalHeader().height() + 20 * len(rows) + 2 * self.table.frameWidth() + 4
+        self.chart.show_rows(rows, system, limit_K)
+        self.table.show_rows(rows, system)
+        t = self.table
+        want = t.horizontalHeader().height() + t.verticalHeader().defaultSectionSize() * len(rows) \
+            + 2 * t.frameWidth() + 4
         total = sum(self.splitter.sizes()) or self.height()
         # the chart keeps at least two thirds; the table scrolls beyond that
         table_h = min(want, total // 3)
         self.splitter.setSizes([total - table_h, table_h])
+
+    def _cells(self, row: dict, system: str) -> dict[str, str]:
+        """The panel's cell texts, with the hottest discharge and the binding limits named in full."""
+        shown = cells(row, system)
+        shown["hottest"] = units.format_value(row.get("max_discharge_temperature_K"), "temperature", system)
+        doc = self._last[3] if self._last else None
+        shown["limits"] = "; ".join(self._limit_text(x, doc) for x in (row.get("binding_limits") or []))
+        return shown
 
     @staticmethod
     def _limit_text(limit, doc) -> str:

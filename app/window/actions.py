@@ -1,8 +1,10 @@
 """Every command of the window, declared once: id, text, shortcut, icon, tip, handler.
 
 The main window turns these into QActions and menus; panels reuse the same QActions on
-their own toolbars. ``handler`` is ``"target.method"``, where target is ``window`` or a
-panel id; it is resolved with ``getattr`` on objects the window owns (never ``eval``).
+their own toolbars. ``handler`` is ``"target.method"``, where target is ``window``, one of the
+window's controllers (``files``: :mod:`app.window.file_ops`, ``exports``: :mod:`app.window.export_ops`)
+or a panel id (``train``, ``study`` …); it is resolved with ``getattr`` on objects the window owns
+(never ``eval``).
 """
 from __future__ import annotations
 
@@ -24,13 +26,13 @@ class ActionSpec:
 
 
 ACTIONS = [
-    ActionSpec("file.new", "&New", "window.new_project", "New", "std:SP_FileIcon", "Start a new project"),
-    ActionSpec("file.open", "&Open…", "window.open_dialog", "Open", "std:SP_DialogOpenButton",
+    ActionSpec("file.new", "&New", "files.new_project", "New", "std:SP_FileIcon", "Start a new project"),
+    ActionSpec("file.open", "&Open…", "files.open_dialog", "Open", "std:SP_DialogOpenButton",
                "Open a project file"),
-    ActionSpec("file.save", "&Save", "window.save", "Save", "std:SP_DialogSaveButton", "Save the project"),
-    ActionSpec("file.save_as", "Save &As…", "window.save_as", "SaveAs", "", "Save under another name"),
-    ActionSpec("file.revert", "&Revert to Saved", "window.revert", "", "", "Discard changes since the last save"),
-    ActionSpec("file.export", "&Export Report…", "window.export_report_dialog", "Ctrl+E", "",
+    ActionSpec("file.save", "&Save", "files.save", "Save", "std:SP_DialogSaveButton", "Save the project"),
+    ActionSpec("file.save_as", "Save &As…", "files.save_as", "SaveAs", "", "Save under another name"),
+    ActionSpec("file.revert", "&Revert to Saved", "files.revert", "", "", "Discard changes since the last save"),
+    ActionSpec("file.export", "&Export Report…", "exports.export_report_dialog", "Ctrl+E", "",
                "Write the PDF report (and the CSV balance sheet) of the current results"),
     ActionSpec("file.quit", "&Quit", "window.close", "Quit"),
     ActionSpec("train.add_stage", "Add stage", "train.add_stage", "Ctrl+Shift+A", "stage_add",
@@ -48,7 +50,7 @@ ACTIONS = [
     ActionSpec("train.toggle_cooler", "Add cooler", "train.toggle_cooler", "Ctrl+Shift+C", "cooler",
                "Add or remove the cooler after the selected stage"),
     ActionSpec("train.solve", "Solve now", "window.solve_now", "F5", "", "Solve the train again now"),
-    ActionSpec("train.study", "Run staging study", "window.run_study", "F6", "run_study",
+    ActionSpec("train.study", "Run staging study", "study.run_study", "F6", "run_study",
                "Compare 1 to N stages, each at its best split within the stage limits", False, "Run study"),
     ActionSpec("train.study_cancel", "Cancel staging study", "study.cancel_study", "", "std:SP_BrowserStop",
                "Stop the running staging study (the options finished so far are kept)", short="Cancel"),

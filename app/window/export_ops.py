@@ -7,14 +7,14 @@ atomically, so a failed export never leaves a half-written report behind.
 """
 from __future__ import annotations
 
-__all__ = ["ExportOps", "ExportJob", "PDF_AND_CSV", "PDF_ONLY"]
+__all__ = ["ExportController", "ExportJob", "PDF_AND_CSV", "PDF_ONLY"]
 
 import copy
 import threading
 from pathlib import Path
 
 from PySide6.QtCore import QObject, Signal
-from PySide6.QtWidgets import QFileDialog
+from PySide6.QtWidgets import QStatusBar
 
 PDF_AND_CSV = "PDF report and CSV balance sheet (*.pdf)"
 PDF_ONLY = "PDF report only (*.pdf)"
@@ -55,46 +55,60 @@ class ExportJob(QObject):
             self.thread.join(timeout)
 
 
-class ExportOps:
-    """Mixed into :class:`~app.window.main_window.MainWindow` (needs ``editor``, ``prefs``, ``path``)."""
+class ExportController(QObject):
+    """File ▸ Export Report…: one export at a time, on its own thread.
 
-    export_job: ExportJob | None = None
+    Parameters
+    ----------
+    editor : Editor
+        The window's editor (document, current result, display units).
+    files : FileController
+        The project's file: the report's default name and its source line.
+    prompts : Prompts
+        Where to write, and errors.
+    status : QStatusBar
+        Progress and outcome.
+    """
 
-    def export_target(self) -> tuple[str, str]:
-        """Ask where to write; returns (pdf path or "", selected filter). Tests replace this."""
-        start = str(self.path.with_suffix(".pdf")) if self.path else "report.pdf"
-        return QFileDialog.getSaveFileName(self, "Export report", start, f"{PDF_AND_CSV};;{PDF_ONLY}")
+    def __init__(self, editor, files, prompts, status: QStatusBar, parent: QObject | None = None):
+        super().__init__(parent)
+        self.editor = editor
+        self.files = files
+        self.prompts = prompts
+        self.status = status
+        self.job: ExportJob | None = None
 
     def export_report_dialog(self) -> None:
         ed = self.editor
-        if self.export_job is not None and self.export_job.thread.is_alive():
-            self.statusBar().showMessage("An export is still being written…", 4000)
+        if self.job is not None and self.job.thread.is_alive():
+            self.status.showMessage("An export is still being written…", 4000)
             return
         if ed.result is None or ed.stale or ed.solver.busy:
-            self.show_error("Nothing to export yet",
-                            "The results are not up to date. Fix the problems listed in Messages "
-                            "(or wait for the solve to finish), then export again.")
+            self.prompts.show_error("Nothing to export yet",
+                                    "The results are not up to date. Fix the problems listed in Messages "
+                                    "(or wait for the solve to finish), then export again.")
             return
-        name, chosen = self.export_target()
+        path = self.files.path
+        name, chosen = self.prompts.export_target(str(path.with_suffix(".pdf")) if path else "report.pdf")
         if not name:
             return
         pdf = Path(name if name.lower().endswith(".pdf") else name + ".pdf")
         csv = pdf.with_suffix(".csv") if chosen != PDF_ONLY else None
-        source = self.path.name if self.path else ""
-        job = ExportJob(ed.model.snapshot(), copy.deepcopy(ed.result), pdf, csv, self.prefs.system, source, self)
+        source = path.name if path else ""
+        job = ExportJob(ed.model.snapshot(), copy.deepcopy(ed.result), pdf, csv, ed.prefs.system, source, self)
         job.done.connect(self._on_export_done)
-        self.export_job = job
-        self.statusBar().showMessage(f"Exporting {pdf.name}…")
+        self.job = job
+        self.status.showMessage(f"Exporting {pdf.name}…")
         job.start()
 
     def _on_export_done(self, message: str, error: str) -> None:
         if error:
-            self.statusBar().clearMessage()
-            self.show_error("Cannot export the report", error)
+            self.status.clearMessage()
+            self.prompts.show_error("Cannot export the report", error)
         else:
-            self.statusBar().showMessage(message, 6000)
+            self.status.showMessage(message, 6000)
 
-    def wait_for_export(self, timeout: float = 30.0) -> None:
+    def wait(self, timeout: float = 30.0) -> None:
         """Let a running export finish (called when the window closes)."""
-        if self.export_job is not None:
-            self.export_job.wait(timeout)
+        if self.job is not None:
+            self.job.wait(timeout)

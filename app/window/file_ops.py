@@ -1,13 +1,14 @@
-"""File menu behaviour of the main window: new, open, recent, save, save as, revert, and the
-question asked before unsaved changes would be lost. Reading and writing is
-:func:`thermo.project.load` / :func:`thermo.project.save`."""
+"""File menu of the window: new, open, recent, save, save as, revert, and the question asked
+before unsaved changes would be lost. Reading and writing is :func:`thermo.project.load` /
+:func:`thermo.project.save`."""
 from __future__ import annotations
 
-__all__ = ["FileOps", "MAX_RECENT"]
+__all__ = ["FileController", "MAX_RECENT"]
 
 from pathlib import Path
 
-from PySide6.QtWidgets import QFileDialog, QMessageBox
+from PySide6.QtCore import QObject, Signal
+from PySide6.QtWidgets import QMenu, QStatusBar
 
 from thermo import StagewrightError
 from thermo import project
@@ -15,71 +16,94 @@ from thermo import project
 from app.document.model import new_document
 
 MAX_RECENT = 8
-FILTER = "Stagewright projects (*.json);;All files (*)"
 
 
-class FileOps:
-    """Mixed into :class:`~app.window.main_window.MainWindow` (needs ``editor``, ``settings``, ``path``)."""
+class FileController(QObject):
+    """The file the window's one project comes from and goes to, and whether it has unsaved changes.
 
-    path: Path | None = None
-    dirty_without_undo = False  # e.g. a document restored from recovery
-    untitled_name = "Untitled"
+    Parameters
+    ----------
+    editor : Editor
+        The window's editor (its document model and undo stack).
+    settings : QSettings
+        Where the recent-files list lives.
+    prompts : Prompts
+        The window's questions and messages.
+    status : QStatusBar
+        Where a save is announced.
+    path : path-like, optional
+        File the document came from.
+
+    Signals
+    -------
+    state_changed()
+        The file name or the unsaved-changes state changed (the window title follows).
+    saved()
+        The document was written: the file is the truth again.
+    discarded()
+        The user chose to drop the unsaved changes.
+    """
+
+    state_changed = Signal()
+    saved = Signal()
+    discarded = Signal()
+
+    def __init__(self, editor, settings, prompts, status: QStatusBar, path=None, parent: QObject | None = None):
+        super().__init__(parent)
+        self.editor = editor
+        self.settings = settings
+        self.prompts = prompts
+        self.status = status
+        self.path: Path | None = Path(path) if path else None
+        self.dirty_without_undo = False  # e.g. a document restored from recovery
+        self.untitled_name = "Untitled"
+        self.recent_menu: QMenu | None = None
 
     # ---- state ---------------------------------------------------------------------------
     def is_modified(self) -> bool:
         return self.dirty_without_undo or not self.editor.undo_stack.isClean()
 
-    def update_title(self) -> None:
-        name = self.path.name if self.path else self.untitled_name
-        self.setWindowTitle(f"{name}[*] — Stagewright")
-        self.setWindowModified(self.is_modified())
-        self.action_map["file.revert"].setEnabled(self.path is not None and self.is_modified())
+    def document_name(self) -> str:
+        """The file's name, or what an unsaved new project is called."""
+        return self.path.name if self.path else self.untitled_name
 
-    def _load_into(self, doc: dict, path: Path | None, dirty: bool = False) -> None:
+    def set_untitled_name(self, name: str) -> None:
+        """Call a project that has no file yet ``name`` (e.g. the demo)."""
+        self.untitled_name = name
+        self.state_changed.emit()
+
+    def load(self, doc: dict, path: Path | None, dirty: bool = False) -> None:
+        """Show ``doc`` (from ``path``); ``dirty``: it has unsaved changes (restored work)."""
         self.dirty_without_undo = dirty  # first: clearing the stack must not drop a recovery
         self.editor.undo_stack.clear()
         self.path = Path(path) if path else None
         self.untitled_name = "Untitled"
         self.editor.model.replace(doc)
         self.editor.undo_stack.setClean()
-        self.update_title()
+        self.state_changed.emit()
         self.editor.solve_now(immediate=True)
-
-    # ---- questions (tests replace these) ---------------------------------------------------
-    def ask_save_changes(self) -> str:
-        """"save", "discard" or "cancel"."""
-        box = QMessageBox(QMessageBox.Warning, "Unsaved changes",
-                          f"Save the changes to {self.path.name if self.path else 'this new project'}?",
-                          QMessageBox.Save | QMessageBox.Discard | QMessageBox.Cancel, self)
-        box.setInformativeText("Your changes are lost if you don't save them.")
-        answer = box.exec()
-        return {QMessageBox.Save: "save", QMessageBox.Discard: "discard"}.get(answer, "cancel")
-
-    def show_error(self, title: str, text: str) -> None:
-        QMessageBox.warning(self, title, text)
 
     def maybe_save(self) -> bool:
         """True when it is fine to drop the current document."""
         if not self.is_modified():
             return True
-        answer = self.ask_save_changes()
+        answer = self.prompts.ask_save_changes(self.path.name if self.path else "this new project")
         if answer == "save":
             return self.save()
         if answer == "discard":
-            self.after_discard()
+            self.discarded.emit()
             return True
         return False
 
     # ---- commands ------------------------------------------------------------------------
     def new_project(self) -> None:
         if self.maybe_save():
-            self._load_into(new_document(), None)
+            self.load(new_document(), None)
 
     def open_dialog(self) -> None:
         if not self.maybe_save():
             return
-        start = str(self.path.parent) if self.path else ""
-        name, _ = QFileDialog.getOpenFileName(self, "Open project", start, FILTER)
+        name = self.prompts.open_project_name(str(self.path.parent) if self.path else "")
         if name:
             self.open_path(name, ask=False)
 
@@ -89,61 +113,52 @@ class FileOps:
         try:
             doc = project.load(name)
         except StagewrightError as exc:
-            self.show_error("Cannot open project", str(exc))
+            self.prompts.show_error("Cannot open project", str(exc))
             self._forget_recent(str(name))
             return False
-        self._load_into(doc, Path(name))
+        self.load(doc, Path(name))
         self._remember_recent(str(Path(name).resolve()))
         return True
 
     def save(self) -> bool:
         if self.path is None:
             return self.save_as()
-        return self._write(self.path)
+        return self.save_to(self.path)
 
     def save_as(self) -> bool:
-        start = str(self.path) if self.path else "untitled.json"
-        name, _ = QFileDialog.getSaveFileName(self, "Save project as", start, FILTER)
+        name = self.prompts.save_project_name(str(self.path) if self.path else "untitled.json")
         if not name:
             return False
         if not name.lower().endswith(".json"):
             name += ".json"
-        return self._write(Path(name))
+        return self.save_to(Path(name))
 
-    def _write(self, path: Path) -> bool:
+    def save_to(self, path: Path) -> bool:
+        """Write the project to ``path`` (asking first if it has input problems); True when written."""
         found = self.editor.model.problems()
-        if found and QMessageBox.question(
-                self, "Save a project with problems?",
+        if found and not self.prompts.confirm(
+                "Save a project with problems?",
                 f"The project has {len(found)} input problem(s) (see Messages). It will be saved as it "
-                "is, but it cannot be opened again until they are fixed. Save anyway?") != QMessageBox.Yes:
+                "is, but it cannot be opened again until they are fixed. Save anyway?"):
             return False
         try:
             project.save(self.editor.model.snapshot(), path)
         except (OSError, StagewrightError) as exc:
-            self.show_error("Cannot save project", f"{path}: {exc}")
+            self.prompts.show_error("Cannot save project", f"{path}: {exc}")
             return False
         self.path = Path(path)
         self.dirty_without_undo = False
         self.editor.undo_stack.setClean()
         self._remember_recent(str(self.path.resolve()))
-        self.update_title()
-        self.statusBar().showMessage(f"Saved {self.path.name}", 4000)
-        self.after_save()
+        self.state_changed.emit()
+        self.status.showMessage(f"Saved {self.path.name}", 4000)
+        self.saved.emit()
         return True
-
-    def after_save(self) -> None:
-        """The saved file is the truth again: no recovery file."""
-        self.clear_recovery_file()
-
-    def after_discard(self) -> None:
-        """The user chose to drop unsaved changes: the recovery file goes too."""
-        self.clear_recovery_file()
 
     def revert(self) -> None:
         if self.path is None or not self.is_modified():
             return
-        if QMessageBox.question(self, "Revert to saved",
-                                f"Discard all changes since {self.path.name} was last saved?") == QMessageBox.Yes:
+        if self.prompts.confirm("Revert to saved", f"Discard all changes since {self.path.name} was last saved?"):
             self.open_path(self.path, ask=False)
 
     # ---- recent files (plain strings in QSettings) -----------------------------------------
@@ -164,8 +179,19 @@ class FileOps:
         self.settings.setValue("files/recent", items)
         self.rebuild_recent_menu()
 
+    def set_recent_menu(self, menu: QMenu) -> None:
+        """Fill ``menu`` (File ▸ Open Recent) with the recent files, and keep it up to date."""
+        self.recent_menu = menu
+        self.rebuild_recent_menu()
+
+    def _clear_recent(self) -> None:
+        self.settings.setValue("files/recent", [])
+        self.rebuild_recent_menu()
+
     def rebuild_recent_menu(self) -> None:
         menu = self.recent_menu
+        if menu is None:
+            return
         menu.clear()
         files = self.recent_files()
         for i, name in enumerate(files, 1):
@@ -176,5 +202,4 @@ class FileOps:
             menu.addAction("(none)").setEnabled(False)
         else:
             menu.addSeparator()
-            menu.addAction("Clear list", lambda: (self.settings.setValue("files/recent", []),
-                                                  self.rebuild_recent_menu()))
+            menu.addAction("Clear list", self._clear_recent)

@@ -92,8 +92,7 @@ def run_gui(project: str | None = None, screenshot: str | None = None, size: str
     window = MainWindow(doc, path if project else None, settings=settings, restore_layout=not screenshot,
                         autosave_ms=None if screenshot else AUTOSAVE_MS)
     if path is not None and not project:
-        window.untitled_name = f"Demo ({path.name})"  # Save asks for a name: the sample stays as it is
-        window.update_title()
+        window.files.set_untitled_name(f"Demo ({path.name})")  # Save asks for a name: the sample stays as it is
     if screenshot:
         w, h = _parse_size(size or os.environ.get("STAGEWRIGHT_SCREENSHOT_SIZE"))
         window.resize(w, h)
@@ -108,6 +107,6 @@ def run_gui(project: str | None = None, screenshot: str | None = None, size: str
         return 0
     window.show()
     if error:
-        window.show_error("Cannot open project", error)
-    window.offer_recovery()
+        window.prompts.show_error("Cannot open project", error)
+    window.recovery.offer()
     return app.exec()

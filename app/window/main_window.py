@@ -4,8 +4,6 @@ from __future__ import annotations
 
 __all__ = ["MainWindow", "STATE_VERSION"]
 
-from pathlib import Path
-
 from PySide6.QtCore import QSettings, Qt, QTimer
 from PySide6.QtGui import QAction, QKeySequence
 from PySide6.QtWidgets import (QDockWidget, QFrame, QLabel, QMainWindow, QMessageBox, QScrollArea, QStyle,
@@ -19,10 +17,11 @@ from app.window.actions import ACTIONS, MENUS, TOOLBAR
 from app.document.display_prefs import DisplayPrefs
 from app.document.model import ProjectModel
 from app.window.editor import Editor
-from app.window.export_ops import ExportOps
-from app.window.file_ops import FileOps
-from app.window.recovery_ops import AUTOSAVE_MS, RecoveryOps
-from app.study.ops import StudyOps
+from app.window.export_ops import ExportController
+from app.window.file_ops import FileController
+from app.window.prompts import Prompts
+from app.window.recovery_ops import AUTOSAVE_MS, RecoveryController
+from app.study.ops import StudyLink
 from app.window.help_dialogs import CautionsDialog, about_text
 from app.widgets.icons import icon
 from app.panels.balance_panel import BalancePanel
@@ -37,8 +36,15 @@ from app.panels.train_panel import TrainPanel
 STATE_VERSION = 2  #: bump when panels are added or renamed, so old saved layouts are ignored
 
 
-class MainWindow(FileOps, ExportOps, RecoveryOps, StudyOps, QMainWindow):
+class MainWindow(QMainWindow):
     """One project per window.
+
+    The window lays out the panels, menus and status bar; what the commands do lives in the
+    objects it owns: :attr:`files` (:class:`~app.window.file_ops.FileController`), :attr:`exports`
+    (:class:`~app.window.export_ops.ExportController`), :attr:`recovery`
+    (:class:`~app.window.recovery_ops.RecoveryController`) and :attr:`study`
+    (:class:`~app.study.ops.StudyLink`), each given what it needs; every modal question goes
+    through :attr:`prompts` (:class:`~app.window.prompts.Prompts`, which tests replace).
 
     Parameters
     ----------
@@ -63,7 +69,10 @@ class MainWindow(FileOps, ExportOps, RecoveryOps, StudyOps, QMainWindow):
         self.prefs = DisplayPrefs(system if system in units.SYSTEMS else "SI", gauge)
         self.model = ProjectModel(doc)
         self.editor = Editor(self.model, self.prefs, self, debounce_ms=debounce_ms)
-        self.path = Path(path) if path else None
+        self.prompts = Prompts(self)
+        self.files = FileController(self.editor, self.settings, self.prompts, self.statusBar(), path, self)
+        self.files.state_changed.connect(self.update_title)
+        self.exports = ExportController(self.editor, self.files, self.prompts, self.statusBar(), self)
         self.setWindowIcon(icon("app"))
         self.setDockOptions(QMainWindow.AnimatedDocks | QMainWindow.AllowTabbedDocks
                             | QMainWindow.AllowNestedDocks)
@@ -89,7 +98,7 @@ class MainWindow(FileOps, ExportOps, RecoveryOps, StudyOps, QMainWindow):
         self.panels["train"].set_actions(self.action_map)
         self.panels["study"].set_actions(self.action_map)
         self.panels["study"].messages_changed.connect(self.panels["messages"].set_source_messages)
-        self.connect_study()
+        self.study = StudyLink(self.panels["study"], self.charts, self.editor, self.statusBar(), self)
         self.panels["messages"].count_changed.connect(self._on_message_count)
         self._build_menus()
         self._build_status()
@@ -107,11 +116,19 @@ class MainWindow(FileOps, ExportOps, RecoveryOps, StudyOps, QMainWindow):
         self._restore_layout = restore_layout
         self.update_title()
         self._on_prefs()
-        self.setup_autosave(autosave_ms)
+        self.recovery = RecoveryController(self.editor, self.files, self.prompts, self.statusBar(),
+                                           autosave_ms, self)
         self.editor.solve_now(immediate=True)
 
     def _on_undo_changed(self, *_args) -> None:
         self.update_title()
+
+    def update_title(self) -> None:
+        """File name and unsaved-changes mark in the title; Revert only for a modified saved file."""
+        files = self.files
+        self.setWindowTitle(f"{files.document_name()}[*] — Stagewright")
+        self.setWindowModified(files.is_modified())
+        self.action_map["file.revert"].setEnabled(files.path is not None and files.is_modified())
 
     # ---- panels --------------------------------------------------------------------------
     def add_panel(self, pid: str, widget: QWidget, area, split_from: str | None = None,
@@ -182,11 +199,10 @@ class MainWindow(FileOps, ExportOps, RecoveryOps, StudyOps, QMainWindow):
             act.setCheckable(spec.checkable)
             if spec.short:
                 act.setIconText(spec.short)
-            target, method = spec.handler.split(".", 1)
             if spec.checkable:
-                act.toggled.connect(lambda on, t=target, m=method: self._call(t, m, on))
+                act.toggled.connect(lambda on, h=spec.handler: self._call(h, on))
             else:
-                act.triggered.connect(lambda _=False, t=target, m=method: self._call(t, m))
+                act.triggered.connect(lambda _=False, h=spec.handler: self._call(h))
             self.addAction(act)
             self.action_map[spec.id] = act
         self.undo_action = self.editor.undo_stack.createUndoAction(self, "&Undo")
@@ -196,9 +212,15 @@ class MainWindow(FileOps, ExportOps, RecoveryOps, StudyOps, QMainWindow):
         self.redo_action.setShortcut(QKeySequence.Redo)
         self.redo_action.setIcon(self.style().standardIcon(QStyle.StandardPixmap.SP_ArrowForward))
 
-    def _call(self, target: str, method: str, *args) -> None:
-        owner = self if target == "window" else self.panels[target]
-        getattr(owner, method)(*args)
+    def handler(self, name: str):
+        """The method an action's ``handler`` names (``"files.save"``): on the window, one of its
+        controllers (``files``, ``exports``) or a panel."""
+        target, method = name.split(".", 1)
+        owners = {"window": self, "files": self.files, "exports": self.exports}
+        return getattr(owners[target] if target in owners else self.panels[target], method)
+
+    def _call(self, name: str, *args) -> None:
+        self.handler(name)(*args)  # looked up when triggered: panels are added after the actions
 
     def _special(self, key: str):
         return {"@undo": self.undo_action, "@redo": self.redo_action}.get(key)
@@ -211,8 +233,7 @@ class MainWindow(FileOps, ExportOps, RecoveryOps, StudyOps, QMainWindow):
                 if key == "-":
                     menu.addSeparator()
                 elif key == "@recent":
-                    self.recent_menu = menu.addMenu("Open &Recent")
-                    self.rebuild_recent_menu()
+                    self.files.set_recent_menu(menu.addMenu("Open &Recent"))
                 elif key == "@panels":
                     for dock in self.docks.values():
                         menu.addAction(dock.toggleViewAction())
@@ -343,13 +364,13 @@ class MainWindow(FileOps, ExportOps, RecoveryOps, StudyOps, QMainWindow):
 
     # ---- closing -------------------------------------------------------------------------
     def closeEvent(self, event) -> None:
-        if not self.maybe_save():
+        if not self.files.maybe_save():
             event.ignore()
             return
-        self.wait_for_export()
-        self.stop_study()
+        self.exports.wait()
+        self.panels["study"].shutdown()
         self.panels["year"].runner.shutdown()
-        self.clear_recovery_file()  # a clean exit: the work is saved or was let go
+        self.recovery.shutdown()  # a clean exit: the work is saved or was let go
         self.editor.shutdown()
         self.settings.setValue("window/geometry", self.saveGeometry())
         self.settings.setValue("window/state", self.saveState(STATE_VERSION))

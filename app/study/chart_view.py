@@ -1,0 +1,103 @@
+"""The staging chart on screen: driver power and discharge temperature against the number of
+stages, drawn by :func:`app.charts.draw_staging_chart` on a matplotlib canvas with its
+navigation toolbar (never pyplot). The study panel shows it small, beside its table, with a hint
+until a study has run; the charts area's Staging study tab shows it large.
+"""
+from __future__ import annotations
+
+__all__ = ["StagingChartView"]
+
+from PySide6.QtCore import QEvent, QSize, Qt, QTimer
+from PySide6.QtWidgets import QLabel, QStackedWidget, QVBoxLayout, QWidget
+
+
+class StagingChartView(QStackedWidget):
+    """One staging chart; ``show_rows(rows, system, limit_K)`` draws it.
+
+    Parameters
+    ----------
+    hint : str, optional
+        Shown instead of the chart while there is nothing to draw; with a hint, matplotlib is
+        imported only when the first chart is drawn. Without one, the (empty) canvas is made at once.
+    titled : bool
+        The chart's own title above the axes (False where the chart sits under a heading of its own).
+    figsize : (float, float)
+        Figure size, [in].
+    min_size : (int, int)
+        Smallest canvas, [px].
+    icon_px : int, optional
+        Size of the toolbar's icons (None: matplotlib's own).
+    """
+
+    def __init__(self, hint: str | None = None, *, titled: bool = False, figsize=(4.5, 3.0),
+                 min_size=(240, 160), icon_px: int | None = None, parent=None):
+        super().__init__(parent)
+        self.figure = self.canvas = self.toolbar = None
+        self._chart: QWidget | None = None
+        self._titled = titled
+        self._figsize, self._min_size, self._icon_px = figsize, min_size, icon_px
+        self._shown: tuple = ([], "SI", None)  # rows, system, limit_K last shown
+        self.hint = None
+        if hint:
+            self.hint = QLabel(hint)
+            self.hint.setAlignment(Qt.AlignCenter)
+            self.hint.setObjectName("footNote")
+            self.addWidget(self.hint)
+        else:
+            self._make_canvas()
+        self._redraw = QTimer(self)  # the legend's columns follow the canvas width
+        self._redraw.setSingleShot(True)
+        self._redraw.setInterval(80)
+        self._redraw.timeout.connect(self._on_resized)
+
+    def _make_canvas(self) -> None:
+        from matplotlib.backends.backend_qtagg import FigureCanvasQTAgg, NavigationToolbar2QT
+        from matplotlib.figure import Figure
+        holder = QWidget()
+        v = QVBoxLayout(holder)
+        v.setContentsMargins(0, 0, 0, 0)
+        v.setSpacing(0)
+        self.figure = Figure(figsize=self._figsize)
+        self.canvas = FigureCanvasQTAgg(self.figure)
+        self.canvas.setMinimumSize(*self._min_size)
+        self.canvas.installEventFilter(self)
+        self.toolbar = NavigationToolbar2QT(self.canvas, holder)
+        if self._icon_px:
+            self.toolbar.setIconSize(QSize(self._icon_px, self._icon_px))
+        v.addWidget(self.toolbar)
+        v.addWidget(self.canvas, 1)
+        self.addWidget(holder)
+        self._chart = holder
+
+    @property
+    def rows(self) -> list[dict]:
+        """The rows drawn (SI)."""
+        return self._shown[0]
+
+    def show_rows(self, rows: list[dict], system: str, limit_K: float | None = None) -> None:
+        """Draw ``rows`` in ``system``'s units, with the discharge-temperature limit ``limit_K`` [K];
+        no rows: the hint (if there is one)."""
+        self._shown = (list(rows), system, limit_K)
+        if not rows and self.hint is not None:
+            self.setCurrentWidget(self.hint)
+            return
+        if self.canvas is None:
+            self._make_canvas()
+        self._draw()
+        self.setCurrentWidget(self._chart)
+
+    def _draw(self) -> None:
+        from app.charts import draw_staging_chart
+        rows, system, limit_K = self._shown
+        kw = {} if self._titled else {"title": None}
+        draw_staging_chart(self.figure, rows, system, limit_K=limit_K, **kw)
+        self.canvas.draw_idle()
+
+    def _on_resized(self) -> None:
+        if self.rows:
+            self._draw()
+
+    def eventFilter(self, obj, event) -> bool:
+        if obj is self.canvas and event.type() == QEvent.Resize and self.rows:
+            self._redraw.start()
+        return super().eventFilter(obj, event)
