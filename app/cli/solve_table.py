@@ -70,13 +70,15 @@ def format_result(title: str, r: dict) -> str:
     cols = _columns(tables.POINTS, r, [(None, p) for _, _, p in points])
     lines.append(_line("point", [_header(f) for f in cols], cols))
     for key, i, p in points:
-        lines.append(_line(_point_name(key, i), [f.text(p, _OUT, missing="", grouping=False) for f in cols], cols))
+        cells = [f.text(p, _OUT, missing="", grouping=False) for f in cols]
+        lines.append(_line(_point_name(key, i), cells, cols))
     lines.append("")
     rows = [row for row in tables.component_rows(r) if row[1] != "train"]
     cols = _columns(tables.COMPONENTS, r, [(kind, c) for _, kind, _, c in rows])
     lines.append(_line("component", [_header(f) for f in cols], cols))
     for _, kind, i, c in rows:
-        lines.append(_line(_component_name(kind, i, c), [f.text(c, _OUT, kind=kind, missing="", grouping=False) for f in cols], cols))
+        cells = [f.text(c, _OUT, kind=kind, missing="", grouping=False) for f in cols]
+        lines.append(_line(_component_name(kind, i, c), cells, cols))
     lines.append("")
     lines += [_total_line(f, r) for f in _columns(tables.TOTALS, r)]
     for w in r["warnings"]:
