@@ -58,7 +58,7 @@ STAGING: tuple[Figure, ...] = (
     Figure("cooler_duty_W", "Cooler duty", "heat_flow", id="coolers", where={"text"},
            looks={"text": Look(label="coolers", width=9)}),
     Figure("condensate_kg_s", "Condensate", "water_flow", id="condensate", note="Water condensed in the coolers",
-           where={"window", "text"}, looks={"text": Look(width=11)}),
+           where={"window", "text"}, looks={"text": Look(label="condensate", width=11)}),
     Figure("exergy_destroyed_W", "Exergy destroyed", "power", id="xdest",
            note="Exergy destroyed in the train (T0 · S_gen)", where={"window", "text"},
            looks={"text": Look(label="X_dest", width=8)}),
