@@ -18,6 +18,7 @@ __all__ = ["OUTPUTS", "Look", "Figure", "read_path", "has_path", "shown", "condi
 import re
 from collections.abc import Iterable, Mapping
 from dataclasses import dataclass, field
+from types import MappingProxyType
 
 from app.presentation import units
 
@@ -134,6 +135,7 @@ class Figure:
 
     def __post_init__(self) -> None:
         object.__setattr__(self, "where", frozenset(self.where))
+        object.__setattr__(self, "looks", MappingProxyType(dict(self.looks)))
         if not self.id:
             object.__setattr__(self, "id", self.key if isinstance(self.key, str) else snake_case(self.label))
         problems = [f"unknown output {o!r}" for o in (self.where | set(self.looks)) - OUTPUTS]
@@ -145,6 +147,8 @@ class Figure:
             q = look.quantity or self.quantity
             if q is not None and q not in units.QUANTITIES:
                 problems.append(f"unknown quantity {q!r}")
+            elif look.unit is not None and q is None:
+                problems.append(f"unit {look.unit!r} given for a plain number")
             elif look.unit is not None:
                 units.unit_named(q, look.unit)  # KeyError names a unit the quantity does not have
         if problems:

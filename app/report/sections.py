@@ -252,7 +252,8 @@ def totals_table(p: Pager, result: dict, system: str) -> None:
                   note=" ".join(["Closure figures are the balance residuals relative to the shaft power "
                                  "(energy: shaft power − enthalpy gained − heat rejected; exergy: shaft power − "
                                  "exergy gained − destroyed − carried out with heat)."]
-                                + [f"Exergy carried out with heat: {n[0].lower()}{n[1:]}" for n in negative_notes(result)])))
+                                + [f"Exergy carried out with heat: {n[0].lower()}{n[1:]}"
+                                   for n in negative_notes(result)])))
 
 
 # ------------------------------------------------------------------------------ charts etc.
