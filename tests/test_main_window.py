@@ -387,7 +387,7 @@ def test_moist_intake_shows_humidity_condensate_and_dew_point(qtbot, tmp_path):
 def test_dry_intake_hides_the_humidity_columns(qtbot, window):
     bal = window.panels["balance"]
     from app.panels.balance_panel import POINT_COLUMNS
-    col = 1 + [c[0] for c in POINT_COLUMNS].index("w")
+    col = 1 + [c.id for c in POINT_COLUMNS].index("w")
     assert not bal.points.isColumnHidden(col)  # the demo's intake is humid
     ed = window.editor
     n = ed.solved_jobs

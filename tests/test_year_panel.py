@@ -26,7 +26,7 @@ def test_year_run_fills_one_row_per_bin_and_matches_the_core(qtbot, tmp_path):
     assert not panel.progress.isHidden() and panel.progress.value() == panel.progress.maximum()
     expected = run_year(doc).to_dict()
     assert panel.table.rowCount() == len(expected["bins"]) == 12
-    energy_col = [c[0] for c in YEAR_COLUMNS].index("energy_kWh")
+    energy_col = [c.id for c in YEAR_COLUMNS].index("energy_kWh")
     shown = float(panel.table.item(6, energy_col).text().replace(" ", ""))
     assert shown == pytest.approx(expected["bins"][6]["energy_kWh"], abs=0.6)
     assert panel._canvas is not None

@@ -1,59 +1,86 @@
-"""Readable plain-text table of a solved train for the command line (SI units)."""
+"""Readable plain-text table of a solved train for the command line (SI units).
+
+Its columns and totals are those of :mod:`app.presentation.balance_tables` that show in the
+``"text"`` output: a figure added there appears here too. Numbers are right-aligned in the
+width a figure's text :class:`~app.presentation.figures.Look` gives (else two characters wider
+than its header), without thousands grouping; totals print to 4 decimals unless told otherwise,
+with their labels' first letter in lower case.
+"""
 from __future__ import annotations
 
 __all__ = ["format_result"]
 
+from app.presentation import balance_tables as tables
+from app.presentation.figures import Figure, condition_holds, shown
 
-def _c(T: float) -> str:
-    return f"{T - 273.15:8.2f}"
+_OUT = "text"
+_NAME_WIDTH, _TOTAL_NAME_WIDTH, _TOTAL_WIDTH, _TOTAL_DECIMALS = 22, 24, 14, 4
+
+
+def _header(fig: Figure) -> str:
+    label, sym = fig.label_in(_OUT), fig.symbol_in(_OUT)
+    return f"{label} [{sym}]" if sym else label
+
+
+def _width(fig: Figure) -> int:
+    width = fig.look(_OUT).width
+    return width if width is not None else len(_header(fig)) + 2
+
+
+def _columns(table, result: dict, rows=()) -> list[Figure]:
+    return [f for f in shown(table, _OUT) if condition_holds(f, _OUT, result, rows)]
+
+
+def _line(name: str, cells: list[str], columns: list[Figure]) -> str:
+    return f"{name:<{_NAME_WIDTH}}" + "".join(f"{text:>{_width(f)}}" for f, text in zip(columns, cells))
+
+
+def _lower_first(label: str) -> str:
+    """``"Shaft power"`` → ``"shaft power"``; an acronym (``"ISO class"``) stays as it is."""
+    return label[:1].lower() + label[1:] if label[1:2].islower() else label
+
+
+def _point_name(key: str, i: int | None) -> str:
+    return {"intake": "intake", "filter": "after filter"}.get(key) or (
+        f"stage {i} discharge" if key.startswith("stage") else f"cooler {i} outlet")
+
+
+def _component_name(kind: str, i: int | None, component: dict) -> str:
+    if kind == "filter":
+        return "intake filter"
+    return f"stage {i} (r={component['pressure_ratio']:.3f})" if kind == "stage" else f"cooler {i}"
+
+
+def _total_line(fig: Figure, result: dict) -> str:
+    name = f"{_lower_first(fig.label_in(_OUT)):<{_TOTAL_NAME_WIDTH}}"
+    if fig.style == "scientific" or (fig.look(_OUT).quantity or fig.quantity) is None:
+        return f"{name}{fig.text(result, _OUT, missing='', grouping=False):>{_TOTAL_WIDTH}}"
+    decimals = fig.look(_OUT).decimals
+    fixed = _TOTAL_DECIMALS if decimals is None else decimals
+    value = fig.value(result)
+    u = fig.unit_in(_OUT)
+    text = "" if value is None else f"{u.to_display(value * fig.to_si):.{fixed}f}"
+    return f"{name}{text:>{_TOTAL_WIDTH}} {u.symbol}"
 
 
 def format_result(title: str, r: dict) -> str:
     """Format the ``to_dict()`` of a train result as an aligned text table."""
     lines = [title or "(untitled project)", f"property model: {r['model']} — {r['eos_reference']}", ""]
-    lines.append(f"{'point':<22}{'T [°C]':>9}{'p [kPa]':>11}{'h [kJ/kg]':>11}{'s [kJ/kgK]':>12}")
-    rows = [("intake", r["intake"]), ("after filter", r["inlet_filter"]["outlet"])]
-    for i, st in enumerate(r["stages"], 1):
-        rows.append((f"stage {i} discharge", st["outlet"]))
-        if st["cooler"]:
-            rows.append((f"cooler {i} outlet", st["cooler"]["outlet"]))
-    for name, p in rows:
-        lines.append(f"{name:<22}{_c(p['temperature_K']):>9}{p['pressure_Pa'] / 1e3:11.2f}"
-                     f"{p['enthalpy_J_kg'] / 1e3:11.3f}{p['entropy_J_kgK'] / 1e3:12.5f}")
+    points = tables.train_points(r)
+    cols = _columns(tables.POINTS, r, [(None, p) for _, _, p in points])
+    lines.append(_line("point", [_header(f) for f in cols], cols))
+    for key, i, p in points:
+        cells = [f.text(p, _OUT, missing="", grouping=False) for f in cols]
+        lines.append(_line(_point_name(key, i), cells, cols))
     lines.append("")
-    lines.append(f"{'component':<22}{'power [kW]':>11}{'duty [kW]':>11}{'ηs':>8}{'ηp':>8}"
-                 f"{'S_gen [W/K]':>13}{'X_dest [kW]':>13}")
-    f = r["inlet_filter"]
-    lines.append(f"{'intake filter':<22}{'':>11}{'':>11}{'':>8}{'':>8}{f['entropy_generation_W_K']:13.3f}"
-                 f"{f['exergy_destroyed_W'] / 1e3:13.3f}")
-    for i, st in enumerate(r["stages"], 1):
-        label = f"stage {i} (r={st['pressure_ratio']:.3f})"
-        lines.append(f"{label:<22}{st['shaft_power_W'] / 1e3:11.3f}"
-                     f"{(st['heat_loss_W'] + st['mechanical_loss_W']) / 1e3:11.3f}"
-                     f"{st['isentropic_efficiency']:8.4f}{st['polytropic_efficiency']:8.4f}"
-                     f"{st['entropy_generation_W_K']:13.3f}{st['exergy_destroyed_W'] / 1e3:13.3f}")
-        c = st["cooler"]
-        if c:
-            lines.append(f"{f'cooler {i}':<22}{'':>11}{c['duty_W'] / 1e3:11.3f}{'':>8}{'':>8}"
-                         f"{c['entropy_generation_W_K']:13.3f}{c['exergy_destroyed_W'] / 1e3:13.3f}")
+    rows = [row for row in tables.component_rows(r) if row[1] != "train"]
+    cols = _columns(tables.COMPONENTS, r, [(kind, c) for _, kind, _, c in rows])
+    lines.append(_line("component", [_header(f) for f in cols], cols))
+    for _, kind, i, c in rows:
+        cells = [f.text(c, _OUT, kind=kind, missing="", grouping=False) for f in cols]
+        lines.append(_line(_component_name(kind, i, c), cells, cols))
     lines.append("")
-    totals = [
-        ("mass flow", r["mass_flow_kg_s"], "kg/s"),
-        ("free air delivery", r["free_air_delivery_m3_s"] * 60.0, "m³/min"),
-        ("shaft power", r["shaft_power_W"] / 1e3, "kW"),
-        ("driver input power", r["driver_power_W"] / 1e3, "kW"),
-        ("specific power", r["specific_power_kW_per_m3_min"], "kW/(m³/min)"),
-        ("heat rejected", r["heat_rejected_W"] / 1e3, "kW"),
-        ("isothermal power", r["isothermal_power_W"] / 1e3, "kW"),
-        ("isothermal efficiency", r["isothermal_efficiency"], ""),
-        ("second-law efficiency", r["second_law_efficiency"], ""),
-        ("entropy generation", r["entropy_generation_W_K"], "W/K"),
-        ("exergy destroyed", r["exergy_destroyed_W"] / 1e3, "kW"),
-    ]
-    for name, value, unit in totals:
-        lines.append(f"{name:<24}{value:14.4f} {unit}")
-    lines.append(f"{'energy balance residual':<24}{r['energy_residual']:14.2e}")
-    lines.append(f"{'exergy balance residual':<24}{r['exergy_residual']:14.2e}")
+    lines += [_total_line(f, r) for f in _columns(tables.TOTALS, r)]
     for w in r["warnings"]:
         lines.append(f"warning: {w['message']} ({w['field']})")
     return "\n".join(lines)

@@ -1,44 +1,43 @@
-"""Plain-text table of a staging comparison for the command line (display units from app.presentation.units)."""
+"""Plain-text table of a staging comparison for the command line (display units from app.presentation.units).
+
+Its columns are those of :data:`app.presentation.staging_table.STAGING` that show in the ``"text"``
+output, each as wide as its text :class:`~app.presentation.figures.Look` says (else two characters
+wider than its header); text and lists are left-aligned and cut to that width.
+"""
 from __future__ import annotations
 
 __all__ = ["format_comparison", "format_sensitivity"]
 
+from app.presentation import staging_table
 from app.presentation.cautions import CAUTIONS
+from app.presentation.figures import Figure, shown
 from app.presentation.units import format_value, unit
 
-_COLUMNS = (  # header, width
-    ("stages", 7), ("pressure ratios", 34), ("max T2", 9), ("driver", 9), ("specific", 14),
-    ("coolers", 9), ("condensate", 11), ("X_dest", 8), ("η_II", 7), ("saving", 8), ("per year", 11),
-)
+_OUT = "text"
 
 
-def _units_line(system: str) -> list[str]:
-    return ["", "", f"[{unit('temperature', system).symbol}]", f"[{unit('power', system).symbol}]",
-            f"[{unit('specific_power', system).symbol}]", f"[{unit('heat_flow', system).symbol}]",
-            f"[{unit('water_flow', system).symbol}]", f"[{unit('power', system).symbol}]",
-            f"[{unit('fraction', system).symbol}]", f"[{unit('power', system).symbol}]", "[cost]"]
+def _width(fig: Figure) -> int:
+    width = fig.look(_OUT).width
+    return width if width is not None else len(fig.label_in(_OUT)) + 2
 
 
-def _line(cells: list[str]) -> str:
+def _line(columns: list[Figure], cells: list[str]) -> str:
     out = []
-    for (name, width), text in zip(_COLUMNS, cells):
-        out.append(f"{text:<{width}}" if name in ("stages", "pressure ratios") else f"{text:>{width}}")
+    for fig, text in zip(columns, cells):
+        width = _width(fig)
+        if fig.is_left_aligned():
+            out.append(f"{text if len(text) <= width else text[:width - 3] + '…':<{width}}")
+        else:
+            out.append(f"{text:>{width}}")
     return " ".join(out).rstrip()
 
 
-def _ratios(r: list | None) -> str:
-    if not r:
-        return "—"
-    text = " × ".join(f"{x:.3f}" for x in r)
-    return text if len(text) <= 34 else text[:31] + "…"
+def _units_line(columns: list[Figure], system: str) -> list[str]:
+    return [f"[{sym}]" if (sym := fig.symbol_in(_OUT, system)) else "" for fig in columns]
 
 
 def _stages(n: int) -> str:
     return f"{n} stage" if n == 1 else f"{n} stages"
-
-
-def _money(x: float | None) -> str:
-    return "—" if x is None else f"{x:,.0f}".replace(",", " ")
 
 
 def format_comparison(title: str, rows: list[dict], system: str = "SI") -> str:
@@ -48,22 +47,12 @@ def format_comparison(title: str, rows: list[dict], system: str = "SI") -> str:
     note = rows[0]["note"] if rows else ""
     if note:
         lines += [note, ""]
-    lines.append(_line([c[0] for c in _COLUMNS]))
-    lines.append(_line(_units_line(system)))
+    columns = shown(staging_table.STAGING, _OUT)
+    lines.append(_line(columns, [fig.label_in(_OUT) for fig in columns]))
+    lines.append(_line(columns, _units_line(columns, system)))
     for r in rows:
         mark = "" if r["feasible"] else "  ✗ limits not met"
-        lines.append(_line([
-            str(r["stages"]), _ratios(r["pressure_ratios"]),
-            format_value(r["max_discharge_temperature_K"], "temperature", system),
-            format_value(r["driver_power_W"], "power", system),
-            format_value(r["specific_power_kW_per_m3_min"], "specific_power", system),
-            format_value(r["cooler_duty_W"], "heat_flow", system),
-            format_value(r["condensate_kg_s"], "water_flow", system),
-            format_value(r["exergy_destroyed_W"], "power", system),
-            format_value(r["second_law_efficiency"], "fraction", system),
-            format_value(r["saving_W"], "power", system),
-            _money(r["saving_cost_per_year"]),
-        ]) + mark)
+        lines.append(_line(columns, [fig.text(r, _OUT, system) for fig in columns]) + mark)
     lines += ["", "Limits that decide the split:"]
     any_limit = False
     for r in rows:

@@ -1,32 +1,55 @@
-"""Plain-text table of a year at the site for ``stagewright year`` (SI units, °C for reading)."""
+"""Plain-text table of a year at the site for ``stagewright year`` (SI units, °C for reading).
+
+Its columns and totals are the figures of :mod:`app.presentation.year_tables` that show in the
+``"text"`` output, each column as wide as its text :class:`~app.presentation.figures.Look` says
+(else two characters wider than its header); text is left-aligned, numbers right-aligned,
+without thousands grouping.
+"""
 from __future__ import annotations
 
 __all__ = ["format_year"]
+
+from app.presentation import year_tables
+from app.presentation.figures import Figure, read_path, shown
+
+_OUT = "text"
+_TOTAL_NAME_WIDTH, _TOTAL_WIDTH = 25, 14
+
+
+def _header(fig: Figure) -> str:
+    label, sym = fig.label_in(_OUT), fig.symbol_in(_OUT)
+    return f"{label} [{sym}]" if sym else label
+
+
+def _cell(fig: Figure, text: str) -> str:
+    width = fig.look(_OUT).width
+    width = width if width is not None else len(_header(fig)) + 2
+    return f"{text:<{width}}" if fig.is_left_aligned() else f"{text:>{width}}"
+
+
+def _lower_first(label: str) -> str:
+    """``"Net cost"`` → ``"net cost"``; an acronym stays as it is."""
+    return label[:1].lower() + label[1:] if label[1:2].islower() else label
+
+
+def _total_line(fig: Figure, year: dict) -> str:
+    """``energy   985585 kWh``; an extreme of the year as ``worst …: August (137.3 °C)``."""
+    label = _lower_first(fig.label_in(_OUT))
+    if fig.bin_key:
+        value = fig.text(year, _OUT, with_unit=True, grouping=False)
+        return f"{label}: {read_path(year, fig.bin_key)} ({value})"
+    sym = fig.symbol_in(_OUT)
+    line = f"{label:<{_TOTAL_NAME_WIDTH}}{fig.text(year, _OUT, missing='', grouping=False):>{_TOTAL_WIDTH}}"
+    return line + (f" {sym}" if sym else "") + (f" ({fig.note})" if fig.note else "")
 
 
 def format_year(title: str, y: dict) -> str:
     """Format ``YearResult.to_dict()`` as an aligned month-by-month (bin-by-bin) table."""
     lines = [title or "(untitled project)", "a year at the site", ""]
-    lines.append(f"{'bin':<12}{'T [°C]':>8}{'RH':>6}{'hours':>8}{'power [kW]':>12}{'energy [MWh]':>14}"
-                 f"{'duty [kW]':>11}{'t_max [°C]':>12}{'condens. [m³]':>15}{'water [m³]':>12}{'recov. [MWh]':>14}")
+    columns = shown(year_tables.YEAR_BINS, _OUT)
+    lines.append("".join(_cell(f, _header(f)) for f in columns))
     for b in y["bins"]:
-        lines.append(f"{b['label']:<12}{b['temperature_K'] - 273.15:8.1f}{b['relative_humidity']:6.2f}"
-                     f"{b['hours']:8.0f}{b['driver_power_W'] / 1e3:12.2f}{b['energy_kWh'] / 1e3:14.3f}"
-                     f"{b['cooler_duty_W'] / 1e3:11.2f}{b['max_discharge_temperature_K'] - 273.15:12.1f}"
-                     f"{b['condensate_m3']:15.3f}{b['cooling_water_m3']:12.1f}{b['recoverable_heat_kWh'] / 1e3:14.3f}")
-    t = y["totals"]
-    lines += ["", f"operating hours          {t['hours']:14.0f} h",
-              f"energy                   {t['energy_kWh']:14.0f} kWh",
-              f"energy cost              {t['energy_cost']:14.2f}",
-              f"condensate               {t['condensate_m3']:14.3f} m³",
-              f"cooling water            {t['cooling_water_m3']:14.1f} m³ (once-through volume)",
-              f"glycol circulated        {t['glycol_circulated_m3']:14.1f} m³",
-              f"cooling-water cost       {t['water_cost']:14.2f}",
-              f"recoverable heat         {t['recoverable_heat_kWh']:14.0f} kWh",
-              f"value of recovered heat  {t['recovered_value']:14.2f}",
-              f"net cost                 {t['cost']:14.2f}",
-              f"worst discharge temperature: {y['worst_discharge_temperature']['bin']} "
-              f"({y['worst_discharge_temperature']['temperature_K'] - 273.15:.1f} °C)",
-              f"largest cooler duty: {y['worst_cooler_duty']['bin']} "
-              f"({y['worst_cooler_duty']['duty_W'] / 1e3:.2f} kW)"]
+        lines.append("".join(_cell(f, f.text(b, _OUT, missing="", grouping=False)) for f in columns))
+    lines.append("")
+    lines += [_total_line(f, y) for f in shown(year_tables.YEAR_TOTALS, _OUT)]
     return "\n".join(lines)

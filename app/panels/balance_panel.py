@@ -6,81 +6,27 @@ banner that says they are out of date.
 """
 from __future__ import annotations
 
-__all__ = ["BalancePanel", "POINT_COLUMNS", "COMPONENT_COLUMNS", "TOTALS", "MOIST_TOTALS", "TOTAL_TIPS",
-           "NEGATIVE_TIPS"]
+__all__ = ["BalancePanel", "POINT_COLUMNS", "COMPONENT_COLUMNS", "TOTALS", "TOTAL_TIPS", "NEGATIVE_TIPS"]
 
 from PySide6.QtCore import Qt
 from PySide6.QtGui import QBrush, QColor
 from PySide6.QtWidgets import (QAbstractItemView, QHeaderView, QLabel, QSplitter, QTableWidget,
                                QTableWidgetItem, QVBoxLayout, QWidget)
 
-from app.presentation import units
+from app.presentation import balance_tables as tables
+from app.presentation.figures import Figure, condition_holds, shown
 from app.presentation.result_notes import NEGATIVE_TIPS, TOTAL_TIPS
 from app.document.paths import stage_index
 
 WARNING_BG = "#fde7c4"  # a value a warning in Messages is about
-#: (key, header, quantity, getter of the SI value from a point dict)
-POINT_COLUMNS = [
-    ("T", "T", "temperature", lambda p: p["temperature_K"]),
-    ("p", "p", "pressure", lambda p: p["pressure_Pa"]),
-    ("h", "h", "specific_enthalpy", lambda p: p["enthalpy_J_kg"]),
-    ("s", "s", "specific_entropy", lambda p: p["entropy_J_kgK"]),
-    ("rho", "ρ", "density", lambda p: p["density_kg_m3"]),
-    ("V", "V", "velocity", lambda p: p["velocity_m_s"]),
-    ("w", "w", "humidity_ratio", lambda p: p.get("humidity_ratio")),
-    ("rh", "RH", "fraction", lambda p: p.get("relative_humidity")),
-    ("dew", "Dew pt", "temperature", lambda p: p.get("dew_point_K")),
-]
-#: point columns shown only for moist intake air
-MOIST_POINT_COLUMNS = ("w", "rh", "dew")
-#: (key, header, quantity)
-COMPONENT_COLUMNS = [
-    ("ratio", "Ratio", "ratio"),
-    ("power", "Shaft power", "power"),
-    ("heat", "Heat out", "heat_flow"),
-    ("eta_s", "ηs", "fraction"),
-    ("eta_p", "ηp", "fraction"),
-    ("sgen", "S_gen", "entropy_rate"),
-    ("xdest", "X_dest", "power"),
-    ("latent", "Latent", "heat_flow"),
-    ("condensate", "Condensate", "water_flow"),
-    ("ua", "UA", "conductance"),
-    ("lmtd", "LMTD", "temperature_difference"),
-    ("coolant", "Coolant flow", "mass_flow"),
-    ("coolant_out", "Coolant out", "temperature"),
-]
-MOIST_COMPONENT_COLUMNS = ("latent", "condensate")
-#: exchanger figures, shown when some cooler has a coolant side
-EXCHANGER_COLUMNS = ("ua", "lmtd", "coolant", "coolant_out")
-#: (result key, label, quantity; None = plain number in scientific notation, "text" = as is)
-TOTALS = [
-    ("mass_flow_kg_s", "Mass flow", "mass_flow"),
-    ("free_air_delivery_m3_s", "Free air delivery", "volume_flow"),
-    ("normal_volume_flow_m3_s", "Normal volume flow", "volume_flow"),
-    ("shaft_power_W", "Shaft power", "power"),
-    ("driver_power_W", "Driver input power", "power"),
-    ("specific_power_kW_per_m3_min", "Specific power", "specific_power"),
-    ("heat_rejected_W", "Heat rejected", "heat_flow"),
-    ("isothermal_power_W", "Isothermal power", "power"),
-    ("isothermal_efficiency", "Isothermal efficiency", "fraction"),
-    ("second_law_efficiency", "Second-law efficiency", "fraction"),
-    ("exergy_gained_W", "Exergy gained by air", "power"),
-    ("exergy_destroyed_W", "Exergy destroyed", "power"),
-    ("heat_exergy_W", "Exergy out with heat", "power"),
-    ("entropy_generation_W_K", "Entropy generation", "entropy_rate"),
-    ("condensate_kg_s", "Condensate", "water_flow"),
-    ("delivered_pressure_dew_point_K", "Pressure dew point", "temperature"),
-    ("delivered_atmospheric_dew_point_K", "Atm. dew point", "temperature"),
-    ("iso8573_humidity_class", "ISO 8573-1 class", "text"),
-    ("energy_residual", "Energy closure residual", None),
-    ("exergy_residual", "Exergy closure residual", None),
-]
-#: totals shown only for moist intake air
-MOIST_TOTALS = ("condensate_kg_s", "delivered_pressure_dew_point_K", "delivered_atmospheric_dew_point_K",
-                "iso8573_humidity_class")
-def is_moist(r: dict) -> bool:
-    """True when the result carries water (a humid intake)."""
-    return bool(r.get("intake_humidity_ratio") or r["intake"].get("humidity_ratio"))
+_OUT = "window"
+#: the window's columns and totals as the presentation tables stood at import (the panel reads
+#: the tables afresh when it is built)
+POINT_COLUMNS = tuple(shown(tables.POINTS, _OUT))
+COMPONENT_COLUMNS = tuple(shown(tables.COMPONENTS, _OUT))
+TOTALS = tuple(shown(tables.TOTALS, _OUT))
+_POINT_NAMES = {"intake": "Site intake", "filter": "After intake filter"}
+_COMPONENT_NAMES = {"filter": "Intake filter", "train": "Whole train"}
 
 
 class FitTable(QTableWidget):
@@ -117,13 +63,15 @@ def _table(columns: list[str]) -> QTableWidget:
 
 
 class BalancePanel(QWidget):
-    """Three tables: state points, components, totals."""
+    """Three tables: state points, components, totals (their figures: :mod:`app.presentation.balance_tables`)."""
 
     title = "Balance sheet"
 
     def __init__(self, editor, parent=None):
         super().__init__(parent)
         self.editor = editor
+        self._columns = {"points": shown(tables.POINTS, _OUT), "components": shown(tables.COMPONENTS, _OUT)}
+        self._total_rows = shown(tables.TOTALS, _OUT)
         lay = QVBoxLayout(self)
         lay.setContentsMargins(6, 4, 6, 4)
         lay.setSpacing(4)
@@ -134,8 +82,8 @@ class BalancePanel(QWidget):
         lay.addWidget(self.banner)
         split = QSplitter(Qt.Horizontal)
         left = QSplitter(Qt.Vertical)
-        self.points = _table(["Point"] + [c[1] for c in POINT_COLUMNS])
-        self.components = _table(["Component"] + [c[1] for c in COMPONENT_COLUMNS])
+        self.points = _table(["Point"] + [f.label_in(_OUT) for f in self._columns["points"]])
+        self.components = _table(["Component"] + [f.label_in(_OUT) for f in self._columns["components"]])
         self.totals = _table(["Total", "Value"])
         self.totals.setMinimumWidth(330)
         left.addWidget(self.points)
@@ -168,12 +116,15 @@ class BalancePanel(QWidget):
         elif table == "totals":
             col = 1
         else:
-            cols = POINT_COLUMNS if table == "points" else COMPONENT_COLUMNS
-            col = 1 + [c[0] for c in cols].index(column)
+            col = 1 + [f.id for f in self._columns[table]].index(column)
         return t.item(row, col)
 
     def row_keys(self, table: str) -> list[str]:
         return list(self._row_keys[table])
+
+    def column_keys(self, table: str) -> list[str]:
+        """Ids of the figure columns of ``"points"`` or ``"components"`` (after the row label)."""
+        return [f.id for f in self._columns[table]]
 
     @property
     def is_stale(self) -> bool:
@@ -204,58 +155,51 @@ class BalancePanel(QWidget):
         self._fill_points(r, system)
         self._fill_components(r, system)
         self._fill_totals(r, system)
-        self._show_moist(is_moist(r))
-        exchangers = any((st["cooler"] or {}).get("ua_W_K") for st in r["stages"])
-        for col, (key, *_rest) in enumerate(COMPONENT_COLUMNS, 1):
-            if key in EXCHANGER_COLUMNS:
-                self.components.setColumnHidden(col, not exchangers)
+        self._hide_what_does_not_apply(r)
         for t in (self.points, self.components, self.totals):
             t.fit_columns()
 
-    def _show_moist(self, moist: bool) -> None:
-        """Humidity columns and water totals only where there is water to speak of."""
-        for col, (key, *_rest) in enumerate(POINT_COLUMNS, 1):
-            self.points.setColumnHidden(col, key in MOIST_POINT_COLUMNS and not moist)
-        for col, (key, *_rest) in enumerate(COMPONENT_COLUMNS, 1):
-            self.components.setColumnHidden(col, key in MOIST_COMPONENT_COLUMNS and not moist)
-        for row, (key, *_rest) in enumerate(TOTALS):
-            self.totals.setRowHidden(row, key in MOIST_TOTALS and not moist)
+    def _hide_what_does_not_apply(self, r: dict) -> None:
+        """Humidity columns and water totals only where there is water to speak of, exchanger
+        figures only when some cooler has a coolant side (each figure's ``when``)."""
+        for name, rows in (("points", [(None, p) for _, _, p in tables.train_points(r)]),
+                           ("components", [(kind, c) for _, kind, _, c in tables.component_rows(r)])):
+            table = getattr(self, name)
+            for col, fig in enumerate(self._columns[name], 1):
+                table.setColumnHidden(col, not condition_holds(fig, _OUT, r, rows))
+        for row, fig in enumerate(self._total_rows):
+            self.totals.setRowHidden(row, not condition_holds(fig, _OUT, r))
 
     def _pressure_kw(self) -> dict:
         return {"gauge": self.editor.prefs.gauge, "barometric_Pa": self.editor.barometric_Pa()}
 
     def _headers(self, system: str) -> None:
-        def head(name: str, q: str, **kw) -> str:  # name over unit keeps the columns narrow
-            sym = units.unit(q, system, **kw).symbol
-            return f"{name}\n[{sym}]" if sym else f"{name}\n"
-        heads = ["Point\n"]
-        for key, name, q, _ in POINT_COLUMNS:
-            heads.append(head(name, q, **(self._pressure_kw() if q == "pressure" else {})))
-        self.points.setHorizontalHeaderLabels(heads)
-        self.components.setHorizontalHeaderLabels(
-            ["Component\n"] + [head(name, q) for _, name, q in COMPONENT_COLUMNS])
+        def head(fig: Figure) -> str:  # name over unit keeps the columns narrow
+            sym = fig.symbol_in(_OUT, system, **self._pressure_kw())
+            return f"{fig.label_in(_OUT)}\n[{sym}]" if sym else f"{fig.label_in(_OUT)}\n"
+        self.points.setHorizontalHeaderLabels(["Point\n"] + [head(f) for f in self._columns["points"]])
+        self.components.setHorizontalHeaderLabels(["Component\n"] + [head(f) for f in self._columns["components"]])
 
-    def _points_of(self, r: dict) -> list[tuple[str, str, dict]]:
-        rows = [("intake", "Site intake", r["intake"]), ("filter", "After intake filter", r["inlet_filter"]["outlet"])]
-        n = len(r["stages"])
-        for i, st in enumerate(r["stages"], 1):
-            rows.append((f"stage-{i}", f"Stage {i} discharge", st["outlet"]))
-            if st["cooler"]:
-                name = "Aftercooler outlet" if i == n else f"Intercooler {i} outlet"
-                rows.append((f"cooler-{i}", name, st["cooler"]["outlet"]))
-        return rows
+    @staticmethod
+    def _point_name(key: str, i: int | None, stages: int) -> str:
+        if key in _POINT_NAMES:
+            return _POINT_NAMES[key]
+        if key.startswith("stage"):
+            return f"Stage {i} discharge"
+        return "Aftercooler outlet" if i == stages else f"Intercooler {i} outlet"
 
     def _fill_points(self, r: dict, system: str) -> None:
-        rows = self._points_of(r)
+        rows = tables.train_points(r)
+        n = len(r["stages"])
         self.points.setRowCount(len(rows))
         self._row_keys["points"] = [k for k, _, _ in rows]
         hot = {f"stage-{i + 1}" for i in self._over_limit(r)}
-        for row, (key, label, p) in enumerate(rows):
-            self._set(self.points, row, 0, label, left=True)
-            for col, (ck, _, q, get) in enumerate(POINT_COLUMNS, 1):
-                kw = self._pressure_kw() if q == "pressure" else {}
-                item = self._set(self.points, row, col, units.format_value(get(p), q, system, **kw))
-                flagged = key in hot and ck == "T"
+        pressure = self._pressure_kw()
+        for row, (key, i, p) in enumerate(rows):
+            self._set(self.points, row, 0, self._point_name(key, i, n), left=True)
+            for col, fig in enumerate(self._columns["points"], 1):
+                item = self._set(self.points, row, col, fig.text(p, _OUT, system, **pressure))
+                flagged = key in hot and fig.id == "T"
                 item.setBackground(QColor(WARNING_BG) if flagged else QBrush())
                 item.setToolTip("Above this stage's discharge temperature limit (see Messages)" if flagged else "")
 
@@ -270,48 +214,29 @@ class BalancePanel(QWidget):
         return out
 
     def _fill_components(self, r: dict, system: str) -> None:
-        f = r["inlet_filter"]
-        rows = [("filter", "Intake filter", {"sgen": f["entropy_generation_W_K"], "xdest": f["exergy_destroyed_W"]})]
+        rows = tables.component_rows(r)
         n = len(r["stages"])
-        for i, st in enumerate(r["stages"], 1):
-            rows.append((f"stage-{i}", f"Stage {i}", {
-                "ratio": st["pressure_ratio"], "power": st["shaft_power_W"],
-                "heat": st["heat_loss_W"] + st["mechanical_loss_W"],
-                "eta_s": st["isentropic_efficiency"], "eta_p": st["polytropic_efficiency"],
-                "sgen": st["entropy_generation_W_K"], "xdest": st["exergy_destroyed_W"]}))
-            c = st["cooler"]
-            if c:
-                rows.append((f"cooler-{i}", "Aftercooler" if i == n else f"Intercooler {i}", {
-                    "heat": c["duty_W"], "sgen": c["entropy_generation_W_K"], "xdest": c["exergy_destroyed_W"],
-                    "latent": c.get("latent_duty_W"), "condensate": c.get("condensate_kg_s"),
-                    "ua": c.get("ua_W_K"), "lmtd": c.get("lmtd_K"), "coolant": c.get("coolant_flow_kg_s"),
-                    "coolant_out": c.get("coolant_outlet_temperature_K")}))
-        rows.append(("total", "Whole train", {"power": r["shaft_power_W"], "heat": r["heat_rejected_W"],
-                                              "sgen": r["entropy_generation_W_K"], "xdest": r["exergy_destroyed_W"],
-                                              "condensate": r.get("condensate_kg_s")}))
         self.components.setRowCount(len(rows))
-        self._row_keys["components"] = [k for k, _, _ in rows]
-        for row, (key, label, vals) in enumerate(rows):
-            bold = key == "total"
+        self._row_keys["components"] = [k for k, _, _, _ in rows]
+        for row, (key, kind, i, data) in enumerate(rows):
+            bold = kind == "train"
+            if kind in _COMPONENT_NAMES:
+                label = _COMPONENT_NAMES[kind]
+            else:
+                label = f"Stage {i}" if kind == "stage" else ("Aftercooler" if i == n else f"Intercooler {i}")
             self._set(self.components, row, 0, label, left=True, bold=bold)
-            for col, (ck, _, q) in enumerate(COMPONENT_COLUMNS, 1):
-                v = vals.get(ck)
-                self._set(self.components, row, col, "" if v is None else units.format_value(v, q, system), bold=bold)
+            for col, fig in enumerate(self._columns["components"], 1):
+                self._set(self.components, row, col, fig.text(data, _OUT, system, kind=kind, missing=""), bold=bold)
 
     def _fill_totals(self, r: dict, system: str) -> None:
-        self.totals.setRowCount(len(TOTALS))
-        self._row_keys["totals"] = [k for k, _, _ in TOTALS]
-        for row, (key, label, q) in enumerate(TOTALS):
-            v = r.get(key)
-            if q is None:
-                text = "—" if v is None else f"{v:.2e}"
-            elif q == "text":
-                text = "—" if v is None else str(v)
-            else:
-                text = units.format_value(v, q, system, with_unit=True)
-            self._set(self.totals, row, 0, label, left=True).setToolTip(TOTAL_TIPS.get(key, ""))
+        self.totals.setRowCount(len(self._total_rows))
+        self._row_keys["totals"] = [f.id for f in self._total_rows]
+        for row, fig in enumerate(self._total_rows):
+            v = fig.value(r)
+            self._set(self.totals, row, 0, fig.label_in(_OUT), left=True).setToolTip(fig.note)
+            text = fig.text(r, _OUT, system, with_unit=True)
             negative = isinstance(v, (int, float)) and v < 0.0
-            self._set(self.totals, row, 1, text).setToolTip(NEGATIVE_TIPS.get(key, "") if negative else "")
+            self._set(self.totals, row, 1, text).setToolTip(fig.negative_note if negative else "")
 
     @staticmethod
     def _set(table: QTableWidget, row: int, col: int, text: str, left: bool = False,

@@ -12,7 +12,8 @@ Conversion factors are exact by definition (NIST SP 811, 2008 edition, Appendix 
 """
 from __future__ import annotations
 
-__all__ = ["Unit", "SYSTEMS", "QUANTITIES", "unit", "to_display", "to_si", "format_value", "label"]
+__all__ = ["Unit", "SYSTEMS", "QUANTITIES", "OTHER_UNITS", "unit", "unit_named", "to_display", "to_si",
+           "format_value", "label"]
 
 from dataclasses import dataclass
 
@@ -74,6 +75,16 @@ QUANTITIES: dict[str, tuple[Unit, Unit]] = {
     "liquid_volume": (Unit("m³", 1.0, 0.0, 3), Unit("US gal", _GAL, 0.0, 1)),
     # operating hours (a year's profile keeps hours, [h], as its unit)
     "hours": (Unit("h", 1.0, 0.0, 0), Unit("h", 1.0, 0.0, 0)),
+    # an amount in the currency of the energy price the user gave: never converted
+    "money": (Unit("cost", 1.0, 0.0, 0), Unit("cost", 1.0, 0.0, 0)),
+}
+
+#: quantity -> further display units an output may name by symbol (:func:`unit_named`): the plain-text
+#: tables of the command line print pressures in kPa, energies in MWh and humidity ratios in kg/kg
+OTHER_UNITS: dict[str, tuple[Unit, ...]] = {
+    "pressure": (Unit("kPa", 1e3, 0.0, 2),),
+    "energy": (Unit("MWh", 3.6e9, 0.0, 3),),
+    "humidity_ratio": (Unit("kg/kg", 1.0, 0.0, 5),),
 }
 
 
@@ -96,6 +107,25 @@ def unit(quantity: str, system: str = "SI", *, gauge: bool = False, barometric_P
         tag = ("(g)" if gauge else "(a)") if system == "SI" else ("g" if gauge else "a")
         return Unit(u.symbol + tag, u.scale, barometric_Pa if gauge else 0.0, u.decimals)
     return u
+
+
+def unit_named(quantity: str, symbol: str) -> Unit:
+    """The display unit of a quantity whose symbol is ``symbol``, SI, US or one of :data:`OTHER_UNITS`.
+
+    Raises
+    ------
+    KeyError
+        When the quantity has no unit of that symbol.
+
+    Examples
+    --------
+    >>> unit_named("pressure", "kPa").to_display(101_325.0)
+    101.325
+    """
+    for u in QUANTITIES[quantity] + OTHER_UNITS.get(quantity, ()):
+        if u.symbol == symbol:
+            return u
+    raise KeyError(f"{quantity} has no display unit {symbol!r}")
 
 
 def to_display(si: float, quantity: str, system: str = "SI", **kw) -> float:

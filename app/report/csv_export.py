@@ -1,81 +1,75 @@
 """The balance sheet as CSV for spreadsheets: one row per state point and per component.
 
 Layout: a header row of column names, a units row, then data rows. The first column says
-what the row is (``state``, ``component`` or ``train``). Numbers are written in the chosen
-display units to 12 significant digits, so converting back with :func:`app.presentation.units.to_si`
-returns the solver's SI values to 1e-12 relative; a missing value is an empty cell.
-Written with the standard library's :mod:`csv` (RFC 4180 quoting, UTF-8).
+what the row is (``state``, ``component`` or ``train``). The columns are the figures of
+:mod:`app.presentation.balance_tables` that show in the ``"csv"`` output: state-point figures,
+then component figures, then any train totals (filled in the ``train`` row); a spreadsheet's
+columns stay put, so a column is there even when no row has a value. Numbers are written in the
+chosen display units to 12 significant digits, so converting back with
+:func:`app.presentation.units.to_si` returns the solver's SI values to 1e-12 relative; a missing
+value is an empty cell. Written with the standard library's :mod:`csv` (RFC 4180 quoting, UTF-8).
 """
 from __future__ import annotations
 
-__all__ = ["COLUMNS", "csv_rows", "write_csv"]
+__all__ = ["COLUMNS", "csv_columns", "csv_rows", "write_csv"]
 
 import csv
 import io
 
-from app.presentation import units
+from app.presentation import balance_tables as tables
+from app.presentation.figures import Figure, shown
 from app.report.atomic import atomic_path
 from app.report.sections import state_points
 
-#: (column name, quantity of app.presentation.units or None for text, result key for state points)
-COLUMNS = [
-    ("kind", None), ("name", None),
-    ("temperature", "temperature"), ("pressure", "pressure"), ("enthalpy", "specific_enthalpy"),
-    ("entropy", "specific_entropy"), ("density", "density"), ("humidity_ratio", "ratio"),
-    ("relative_humidity", "fraction"), ("dew_point", "temperature"),
-    ("pressure_ratio", "ratio"), ("shaft_power", "power"), ("heat_rejected", "heat_flow"),
-    ("condensate", "water_flow"), ("isentropic_efficiency", "ratio"), ("polytropic_efficiency", "ratio"),
-    ("entropy_generation", "entropy_rate"), ("exergy_destroyed", "power"),
-]
-
-_POINT_KEYS = {"temperature": "temperature_K", "pressure": "pressure_Pa", "enthalpy": "enthalpy_J_kg",
-               "entropy": "entropy_J_kgK", "density": "density_kg_m3", "humidity_ratio": "humidity_ratio",
-               "relative_humidity": "relative_humidity", "dew_point": "dew_point_K"}
+_OUT = "csv"
 
 
-def _cell(value, quantity: str | None, system: str) -> str:
+def _figures() -> list[tuple[str, Figure]]:
+    """(row part, figure) of every figure column: ``"point"``, ``"component"`` or ``"total"``."""
+    return ([("point", f) for f in shown(tables.POINTS, _OUT)]
+            + [("component", f) for f in shown(tables.COMPONENTS, _OUT)]
+            + [("total", f) for f in shown(tables.TOTALS, _OUT)])
+
+
+def csv_columns() -> list[tuple[str, str | None]]:
+    """(column name, display quantity or None for text) of every column, in order."""
+    return [("kind", None), ("name", None)] + [
+        (f.label_in(_OUT), None if f.style in ("text", "yes_no") else (f.look(_OUT).quantity or f.quantity))
+        for _, f in _figures()]
+
+
+#: (column name, quantity of app.presentation.units or None for text), as the tables stood at import
+COLUMNS = csv_columns()
+
+
+def _cell(fig: Figure, data: dict | None, kind: str | None, system: str) -> str:
+    value = None if data is None else fig.value(data, kind)
     if value is None:
         return ""
-    if quantity is None:
-        return str(value)
-    return format(units.to_display(float(value), quantity, system), ".12g")
+    if fig.style in ("text", "yes_no", "scientific") or (fig.look(_OUT).quantity or fig.quantity) is None:
+        return fig.format(value, _OUT, system, missing="")
+    return format(fig.unit_in(_OUT, system).to_display(float(value) * fig.to_si), ".12g")
+
+
+def _unit_text(fig: Figure, system: str) -> str:
+    return fig.symbol_in(_OUT, system) or "-"
 
 
 def csv_rows(result: dict, system: str = "SI") -> list[list[str]]:
     """Header row, units row and data rows of the CSV (strings, display units)."""
-    header = [name for name, _ in COLUMNS]
-    unit_row = ["", ""] + [units.unit(q, system).symbol or "-" for _, q in COLUMNS[2:]]
-    records: list[dict] = []
-    for name, pt in state_points(result):
-        rec = {"kind": "state", "name": name}
-        rec.update({col: pt.get(key) for col, key in _POINT_KEYS.items()})
-        records.append(rec)
-    f = result["inlet_filter"]
-    records.append({"kind": "component", "name": "Intake filter",
-                    "entropy_generation": f["entropy_generation_W_K"], "exergy_destroyed": f["exergy_destroyed_W"]})
-    condensate_total = None
-    for i, st in enumerate(result["stages"], 1):
-        records.append({"kind": "component", "name": f"Stage {i}", "pressure_ratio": st["pressure_ratio"],
-                        "shaft_power": st["shaft_power_W"],
-                        "heat_rejected": st["heat_loss_W"] + st["mechanical_loss_W"],
-                        "isentropic_efficiency": st["isentropic_efficiency"],
-                        "polytropic_efficiency": st["polytropic_efficiency"],
-                        "entropy_generation": st["entropy_generation_W_K"],
-                        "exergy_destroyed": st["exergy_destroyed_W"]})
-        c = st.get("cooler")
-        if c:
-            # condensate [kg/s] written as a water volume flow at 1 kg/L (L/s in SI)
-            cond = c.get("condensate_kg_s")
-            if cond is not None:
-                condensate_total = (condensate_total or 0.0) + cond
-            records.append({"kind": "component", "name": f"Cooler {i}", "heat_rejected": c["duty_W"],
-                            "condensate": cond, "entropy_generation": c["entropy_generation_W_K"],
-                            "exergy_destroyed": c["exergy_destroyed_W"]})
-    records.append({"kind": "train", "name": "Train", "shaft_power": result["shaft_power_W"],
-                    "heat_rejected": result["heat_rejected_W"], "condensate": condensate_total,
-                    "entropy_generation": result["entropy_generation_W_K"],
-                    "exergy_destroyed": result["exergy_destroyed_W"]})
-    body = [[_cell(rec.get(name), q, system) for name, q in COLUMNS] for rec in records]
+    figures = _figures()
+    header = ["kind", "name"] + [f.label_in(_OUT) for _, f in figures]
+    unit_row = ["", ""] + [_unit_text(f, system) for _, f in figures]
+    # (row kind, name, {row part: (data, kind for per-kind paths)})
+    records = [("state", name, {"point": (pt, None)}) for name, pt in state_points(result)]
+    for _, kind, i, data in tables.component_rows(result):
+        if kind == "train":
+            records.append(("train", "Train", {"component": (data, kind), "total": (result, None)}))
+        else:
+            name = {"filter": "Intake filter", "stage": f"Stage {i}", "cooler": f"Cooler {i}"}[kind]
+            records.append(("component", name, {"component": (data, kind)}))
+    body = [[row_kind, name] + [_cell(f, *parts.get(part, (None, None)), system) for part, f in figures]
+            for row_kind, name, parts in records]
     return [header, unit_row] + body
 
 

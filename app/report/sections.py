@@ -1,8 +1,11 @@
 """What the printed report says: each section as tables and text, in display units.
 
-Every number goes through :mod:`app.presentation.units` (the one table of display units). Section
-functions take the project document, its solved result (``TrainResult.to_dict()``) and a
-:class:`~app.report.layout.Pager`, and print themselves onto the pager.
+Every number goes through :mod:`app.presentation.units` (the one table of display units). The
+balance sheet, exchanger, totals and staging tables print the figures of
+:mod:`app.presentation.balance_tables` and :mod:`app.presentation.staging_table` that show in the
+``"pdf"`` output, in their order. Section functions take the project document, its solved result
+(``TrainResult.to_dict()``) and a :class:`~app.report.layout.Pager`, and print themselves onto
+the pager.
 """
 from __future__ import annotations
 
@@ -13,13 +16,15 @@ from dataclasses import dataclass
 
 from thermo.project.validation import normalise
 
-from app.presentation import units
+from app.presentation import balance_tables, staging_table, units
 from app.presentation.cautions import CAUTIONS, DEFERRAL
+from app.presentation.figures import Figure, condition_holds, shown
 from app.presentation.result_notes import negative_notes
 from app.charts import draw_power_split, draw_staging_chart, draw_ts_chart
 from app.report.layout import Column, Pager, Table
 
 _DASH = "—"
+_PDF = "pdf"
 
 
 @dataclass
@@ -180,21 +185,9 @@ def exchangers_table(p: Pager, result: dict, system: str) -> None:
              if st.get("cooler") and st["cooler"].get("coolant_kind")]
     if not items:
         return
-    cols = [Column("Cooler", align="left"), Column("Coolant", align="left"),
-            Column("Coolant flow", _sym("mass_flow", system)),
-            Column("Coolant in", _sym("temperature", system)), Column("Coolant out", _sym("temperature", system)),
-            Column("LMTD", _sym("temperature_difference", system)), Column("F", ""),
-            Column("ε", ""), Column("NTU", ""), Column("UA", _sym("conductance", system))]
-
-    def num(v, fmt="{:.3f}"):
-        return fmt.format(v) if v is not None else _DASH
-
-    rows = [[f"Cooler {i}", str(c["coolant_kind"]), Q(c.get("coolant_flow_kg_s"), "mass_flow", system),
-             Q(c.get("coolant_inlet_temperature_K"), "temperature", system),
-             Q(c.get("coolant_outlet_temperature_K"), "temperature", system),
-             Q(c.get("lmtd_K"), "temperature_difference", system), num(c.get("lmtd_correction_factor")),
-             num(c.get("effectiveness")), num(c.get("ntu")), Q(c.get("ua_W_K"), "conductance", system)]
-            for i, c in items]
+    figures = _pdf_columns(balance_tables.EXCHANGERS, result, [("cooler", c) for _, c in items])
+    cols = [Column("Cooler", align="left")] + [_column(f, system) for f in figures]
+    rows = [[f"Cooler {i}"] + [f.text(c, _PDF, system) for f in figures] for i, c in items]
     p.table(Table("Cooler exchangers", cols, rows,
                   note="LMTD: log-mean temperature difference; F its correction factor for the arrangement; "
                        "ε the exchanger effectiveness and NTU its number of transfer units; UA the "
@@ -205,80 +198,47 @@ def exchangers_table(p: Pager, result: dict, system: str) -> None:
 
 def state_points(result: dict) -> list[tuple[str, dict]]:
     """(name, point) of every state of the train in flow order."""
-    pts = [("Intake (ambient)", result["intake"]), ("After intake filter", result["inlet_filter"]["outlet"])]
-    for i, st in enumerate(result["stages"], 1):
-        pts.append((f"Stage {i} discharge", st["outlet"]))
-        if st.get("cooler"):
-            pts.append((f"Cooler {i} outlet", st["cooler"]["outlet"]))
-    return pts
+    names = {"intake": "Intake (ambient)", "filter": "After intake filter"}
+    return [(names.get(key) or (f"Stage {i} discharge" if key.startswith("stage") else f"Cooler {i} outlet"), pt)
+            for key, i, pt in balance_tables.train_points(result)]
 
 
-def _humid(result: dict) -> bool:
-    return any((pt.get("humidity_ratio") or 0.0) > 0.0 or pt.get("dew_point_K") is not None
-               for _, pt in state_points(result))
+def _pdf_columns(table, result: dict | None, rows) -> list[Figure]:
+    """The figures of ``table`` the PDF prints for these rows (``(kind, row)`` pairs)."""
+    rows = list(rows)
+    return [f for f in shown(table, _PDF) if condition_holds(f, _PDF, result, rows)]
+
+
+def _column(fig: Figure, system: str) -> Column:
+    """A table column for ``fig``: its label over its unit; a list of values may wrap."""
+    return Column(fig.label_in(_PDF), fig.symbol_in(_PDF, system), align="left" if fig.is_left_aligned() else "right",
+                  wrap=bool(fig.joiner))
 
 
 def state_points_table(p: Pager, result: dict, system: str) -> Table:
-    p0 = result["barometric_pressure_Pa"]
-    cols = [Column("State point", align="left"), Column("T", _sym("temperature", system)),
-            Column("p", _sym("pressure", system)), Column("p", _sym("pressure", system, gauge=True)),
-            Column("h", _sym("specific_enthalpy", system)), Column("s", _sym("specific_entropy", system)),
-            Column("ρ", _sym("density", system))]
-    humid = _humid(result)
-    if humid:
-        cols += [Column("Humidity ratio", "kg/kg"), Column("RH", "%"), Column("Dew point", _sym("temperature", system))]
-    rows = []
-    for name, pt in state_points(result):
-        row = [name, Q(pt["temperature_K"], "temperature", system), Q(pt["pressure_Pa"], "pressure", system),
-               Q(pt["pressure_Pa"], "pressure", system, gauge=True, barometric_Pa=p0),
-               Q(pt["enthalpy_J_kg"], "specific_enthalpy", system), Q(pt["entropy_J_kgK"], "specific_entropy", system),
-               Q(pt["density_kg_m3"], "density", system)]
-        if humid:
-            row += [f"{pt.get('humidity_ratio') or 0.0:.5f}", Q(pt.get("relative_humidity"), "fraction", system),
-                    Q(pt.get("dew_point_K"), "temperature", system)]
-        rows.append(row)
+    pressure = {"barometric_Pa": result["barometric_pressure_Pa"]}
+    points = state_points(result)
+    figures = _pdf_columns(balance_tables.POINTS, result, [(None, pt) for _, pt in points])
+    cols = [Column("State point", align="left")] + [_column(f, system) for f in figures]
+    rows = [[name] + [f.text(pt, _PDF, system, **pressure) for f in figures] for name, pt in points]
     return Table("State points", cols, rows,
                  note="Enthalpy h and entropy s are relative to the property model's own reference state: "
                       "differences between points are meaningful, absolute values are not comparable "
                       "between models.")
 
 
-def _condensate(cooler: dict | None):
-    return None if not cooler else cooler.get("condensate_kg_s")
+def _component_name(kind: str, i: int | None, component: dict) -> str:
+    if kind in ("filter", "train"):
+        return "Intake filter" if kind == "filter" else "Train"
+    return f"Stage {i}  (r = {component['pressure_ratio']:.4f})" if kind == "stage" else f"Cooler {i}"
 
 
 def components_table(p: Pager, result: dict, system: str) -> None:
-    wet = any(_condensate(st.get("cooler")) is not None for st in result["stages"])
-    cols = [Column("Component", align="left"), Column("Shaft power", _sym("power", system)),
-            Column("Heat rejected", _sym("heat_flow", system))]
-    if wet:
-        cols.append(Column("Condensate", _sym("water_flow", system)))
-    cols += [Column("ηs", "%"), Column("ηp", "%"), Column("S_gen", _sym("entropy_rate", system)),
-             Column("X_dest", _sym("power", system))]
-
-    def row(name, power, heat, cond, es, ep, sgen, xdest):
-        r = [name, Q(power, "power", system) if power is not None else "",
-             Q(heat, "heat_flow", system) if heat is not None else ""]
-        if wet:
-            # condensate mass flow shown as a water volume at 1 kg/L
-            r.append(Q(cond, "water_flow", system) if cond is not None else "")
-        return r + [Q(es, "fraction", system) if es is not None else "",
-                    Q(ep, "fraction", system) if ep is not None else "",
-                    Q(sgen, "entropy_rate", system), Q(xdest, "power", system)]
-
-    f = result["inlet_filter"]
-    rows = [row("Intake filter", None, None, None, None, None, f["entropy_generation_W_K"], f["exergy_destroyed_W"])]
-    for i, st in enumerate(result["stages"], 1):
-        rows.append(row(f"Stage {i}  (r = {st['pressure_ratio']:.4f})", st["shaft_power_W"],
-                        st["heat_loss_W"] + st["mechanical_loss_W"], None, st["isentropic_efficiency"],
-                        st["polytropic_efficiency"], st["entropy_generation_W_K"], st["exergy_destroyed_W"]))
-        c = st.get("cooler")
-        if c:
-            rows.append(row(f"Cooler {i}", None, c["duty_W"], _condensate(c), None, None,
-                            c["entropy_generation_W_K"], c["exergy_destroyed_W"]))
-    total_cond = sum(_condensate(st.get("cooler")) or 0.0 for st in result["stages"]) if wet else None
-    rows.append(row("Train", result["shaft_power_W"], result["heat_rejected_W"], total_cond, None, None,
-                    result["entropy_generation_W_K"], result["exergy_destroyed_W"]))
+    components = balance_tables.component_rows(result)
+    figures = _pdf_columns(balance_tables.COMPONENTS, result, [(kind, c) for _, kind, _, c in components])
+    cols = [Column("Component", align="left")] + [_column(f, system) for f in figures]
+    rows = [[_component_name(kind, i, c)] + [f.text(c, _PDF, system, kind=kind, missing="") for f in figures]
+            for _, kind, i, c in components]
     p.table(Table("Components", cols, rows,
                   note="A stage's heat rejected is its casing heat loss plus its mechanical losses. "
                        "S_gen is the entropy generated, X_dest = T0·S_gen the exergy destroyed "
@@ -286,30 +246,14 @@ def components_table(p: Pager, result: dict, system: str) -> None:
 
 
 def totals_table(p: Pager, result: dict, system: str) -> None:
-    s = system
-    rows = [
-        ["Mass flow", _with(result["mass_flow_kg_s"], "mass_flow", s)],
-        ["Free air delivery", _with(result["free_air_delivery_m3_s"], "volume_flow", s)],
-        ["Normal volume flow (0 °C, 101.325 kPa)", _with(result["normal_volume_flow_m3_s"], "volume_flow", s)],
-        ["Shaft power", _with(result["shaft_power_W"], "power", s)],
-        ["Driver input power", _with(result["driver_power_W"], "power", s)],
-        ["Specific power", _with(result["specific_power_kW_per_m3_min"], "specific_power", s)],
-        ["Heat rejected", _with(result["heat_rejected_W"], "heat_flow", s)],
-        ["Reversible isothermal power", _with(result["isothermal_power_W"], "power", s)],
-        ["Isothermal efficiency", f"{Q(result['isothermal_efficiency'], 'fraction', s)} %"],
-        ["Second-law efficiency", f"{Q(result['second_law_efficiency'], 'fraction', s)} %"],
-        ["Exergy gained by the air", _with(result["exergy_gained_W"], "power", s)],
-        ["Exergy destroyed", _with(result["exergy_destroyed_W"], "power", s)],
-        ["Exergy carried out with heat", _with(result["heat_exergy_W"], "power", s)],
-        ["Entropy generation", _with(result["entropy_generation_W_K"], "entropy_rate", s)],
-        ["Energy balance closure", f"{result['energy_residual']:.2e}"],
-        ["Exergy balance closure", f"{result['exergy_residual']:.2e}"],
-    ]
+    rows = [[f.label_in(_PDF), f.text(result, _PDF, system, with_unit=True)]
+            for f in _pdf_columns(balance_tables.TOTALS, result, [])]
     p.table(Table("Totals", [Column("", align="left"), Column("", align="right")], rows, header=False,
                   note=" ".join(["Closure figures are the balance residuals relative to the shaft power "
                                  "(energy: shaft power − enthalpy gained − heat rejected; exergy: shaft power − "
                                  "exergy gained − destroyed − carried out with heat)."]
-                                + [f"Exergy carried out with heat: {n[0].lower()}{n[1:]}" for n in negative_notes(result)])))
+                                + [f"Exergy carried out with heat: {n[0].lower()}{n[1:]}"
+                                   for n in negative_notes(result)])))
 
 
 # ------------------------------------------------------------------------------ charts etc.
@@ -344,32 +288,11 @@ def staging(p: Pager, study_rows: list[dict] | None, system: str, limit_K=None) 
     if not study_rows:
         return
     p.charts("Staging comparison", [(lambda f: draw_staging_chart(f, study_rows, system, limit_K=limit_K), 3.6)])
-    has = {k: any(r.get(k) is not None for r in study_rows)
-           for k in ("pressure_ratios", "specific_power_kW_per_m3_min", "saving_W")}
-    cols = [Column("Stages", align="left")]
-    if has["pressure_ratios"]:
-        cols.append(Column("Pressure ratios", align="left", wrap=True))
-    cols.append(Column("Driver power", _sym("power", system)))
-    if has["specific_power_kW_per_m3_min"]:
-        cols.append(Column("Specific power", _sym("specific_power", system)))
-    cols.append(Column("Max. discharge T", _sym("temperature", system)))
-    if has["saving_W"]:
-        cols.append(Column("Saving", _sym("power", system)))
-    cols.append(Column("Feasible", align="left"))
-    rows = []
-    for r in sorted(study_rows, key=lambda r: r["stages"]):
-        row = [str(r["stages"])]
-        if has["pressure_ratios"]:
-            row.append(" × ".join(f"{x:.3f}" for x in r.get("pressure_ratios") or []))
-        row.append(Q(r.get("driver_power_W"), "power", system))
-        if has["specific_power_kW_per_m3_min"]:
-            row.append(Q(r.get("specific_power_kW_per_m3_min"), "specific_power", system))
-        row.append(Q(r.get("max_discharge_temperature_K"), "temperature", system))
-        if has["saving_W"]:
-            row.append(Q(r.get("saving_W"), "power", system))
-        row.append("yes" if r.get("feasible") else "no")
-        rows.append(row)
-    remarks = [_remark(r) for r in sorted(study_rows, key=lambda r: r["stages"])]
+    ordered = sorted(study_rows, key=lambda r: r["stages"])
+    figures = _pdf_columns(staging_table.STAGING, None, [(None, r) for r in ordered])
+    cols = [_column(f, system) for f in figures]
+    rows = [[f.text(r, _PDF, system) for f in figures] for r in ordered]
+    remarks = [_remark(r) for r in ordered]
     notes = {r.get("note") for r in study_rows if r.get("note")}
     p.table(Table("Arrangements compared", cols, rows, note=" ".join(sorted(notes)), row_notes=remarks))
 

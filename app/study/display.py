@@ -1,48 +1,48 @@
 """What the staging-study panel shows: table columns and cells, limit messages, case names.
 
 Qt-free. Rows are those of :meth:`thermo.study.StagingComparison.rows` (SI floats, unit in
-each key); every number is shown through :mod:`app.presentation.units`, so the table follows the
-window's SI / US switch. Limit messages name the project's own field (every stage of an
-option is a copy of the project's first stage), so clicking one shows that field.
+each key); the columns are the figures of :data:`app.presentation.staging_table.STAGING` that
+show in the window, and every number is shown through :mod:`app.presentation.units`, so the
+table follows the window's SI / US switch. Limit messages name the project's own field (every
+stage of an option is a copy of the project's first stage), so clicking one shows that field.
 """
 from __future__ import annotations
 
-__all__ = ["Column", "COLUMNS", "header", "cells", "tooltip", "limit_summary", "limit_messages",
+__all__ = ["Column", "COLUMNS", "columns", "header", "cells", "tooltip", "limit_summary", "limit_messages",
            "case_label", "VARIABLES", "parse_values", "format_values"]
 
 import re
 from dataclasses import dataclass
 
-from app.presentation import units
+from app.presentation import staging_table, units
 from app.presentation.cautions import CAUTIONS
+from app.presentation.figures import Figure, shown
 from app.study.apply import project_field
 
 _CAUTION = dict(CAUTIONS)
+_OUT = "window"
 
 
 @dataclass(frozen=True)
 class Column:
+    """A column of the study table: the window's view of a figure of the staging table."""
+
     key: str
     name: str
     quantity: str | None = None  #: display quantity of the unit in the header; None: no unit
     tip: str = ""
+    figure: Figure | None = None
 
 
-COLUMNS = [  # the deciding numbers first: a narrow panel shows them without scrolling
-    Column("stages", "Stages", None, "Number of stages of the option"),
-    Column("power", "Driver power", "power", "Driver input power"),
-    Column("specific", "Specific power", "specific_power", "Driver input power per unit of free air delivery"),
-    Column("saving", "Saving", "power", "Driver power saved against the fewest-stage option that meets every limit"),
-    Column("saving_year", "Saving per year", None, "Energy cost saved per year, in the currency of the energy price"),
-    Column("feasible", "Meets limits", None, "Whether the option meets every limit of its stages"),
-    Column("ratios", "Pressure ratios", None, "Stage pressure ratios at the option's least-power split, first stage first"),
-    Column("temperatures", "Discharge temperatures", "temperature", "Discharge temperature of each stage"),
-    Column("heat", "Heat rejected", "heat_flow", "Coolers, casings and mechanical losses together"),
-    Column("condensate", "Condensate", "water_flow", "Water condensed in the coolers"),
-    Column("xdest", "Exergy destroyed", "power", "Exergy destroyed in the train (T0 · S_gen)"),
-    Column("eta2", "Second-law efficiency", "fraction", "Exergy gained by the air over driver input"),
-    Column("limits", "Binding limits", None, "Limits that decide the split (hover for details)"),
-]
+def columns() -> list[Column]:
+    """The study table's columns: the staging table's figures that the window shows, in order."""
+    return [Column(f.id, f.label_in(_OUT), None if f.style in ("text", "yes_no") else f.quantity, f.note, f)
+            for f in shown(staging_table.STAGING, _OUT)]
+
+
+#: the study table's columns as the staging table stood at import (the deciding numbers first:
+#: a narrow panel shows them without scrolling)
+COLUMNS = columns()
 
 #: sensitivity variable -> (label, display quantity)
 VARIABLES = {"ambient_temperature_K": ("Ambient temperature", "temperature"),
@@ -51,45 +51,17 @@ VARIABLES = {"ambient_temperature_K": ("Ambient temperature", "temperature"),
 
 def header(col: Column, system: str) -> str:
     """Column header: name over unit (``"Driver power\\n[kW]"``)."""
-    if col.key == "saving_year":
-        return f"{col.name}\n[cost]"
     if col.quantity is None:
         return f"{col.name}\n"
     sym = units.unit(col.quantity, system).symbol
     return f"{col.name}\n[{sym}]" if sym else f"{col.name}\n"
 
 
-def _list(values, quantity: str | None, system: str, decimals: int) -> str:
-    if not values:
-        return "—"
-    if quantity is None:
-        return " × ".join(f"{v:.{decimals}f}" for v in values)
-    u = units.unit(quantity, system)
-    return " · ".join(f"{u.to_display(v):.{decimals}f}" for v in values)
-
-
-def _money(x: float | None) -> str:
-    return "—" if x is None else f"{x:,.0f}".replace(",", " ")
-
-
 def cells(row: dict, system: str) -> dict[str, str]:
-    """Text of every column of one comparison row, in display units."""
-    f = units.format_value
-    return {
-        "stages": str(row["stages"]),
-        "ratios": _list(row.get("pressure_ratios"), None, system, 3),
-        "temperatures": _list(row.get("discharge_temperatures_K"), "temperature", system, 1),
-        "power": f(row.get("driver_power_W"), "power", system),
-        "specific": f(row.get("specific_power_kW_per_m3_min"), "specific_power", system),
-        "heat": f(row.get("heat_rejected_W"), "heat_flow", system),
-        "condensate": f(row.get("condensate_kg_s"), "water_flow", system),
-        "xdest": f(row.get("exergy_destroyed_W"), "power", system),
-        "eta2": f(row.get("second_law_efficiency"), "fraction", system),
-        "saving": f(row.get("saving_W"), "power", system),
-        "saving_year": _money(row.get("saving_cost_per_year")),
-        "feasible": "yes" if row.get("feasible") else "no",
-        "limits": limit_summary(row),
-    }
+    """Text of every column of one comparison row, in display units (binding limits summed up
+    by :func:`limit_summary`)."""
+    return {col.key: limit_summary(row) if col.key == "limits" else col.figure.text(row, _OUT, system)
+            for col in columns()}
 
 
 def tooltip(row: dict, key: str, system: str) -> str:

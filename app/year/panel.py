@@ -8,22 +8,14 @@ from PySide6.QtCore import Qt
 from PySide6.QtWidgets import (QHBoxLayout, QLabel, QProgressBar, QPushButton, QSplitter, QTableWidget,
                                QTableWidgetItem, QTabWidget, QVBoxLayout, QWidget)
 
-from app.presentation import units
+from app.presentation import units, year_tables
+from app.presentation.figures import shown
 from app.year.worker import YearRunner
 from app.year.editor import YearEditor
 
-#: (bin key, header, quantity, factor to SI; quantity None = plain text, "count" = whole number)
-YEAR_COLUMNS = [
-    ("label", "Bin", None, 1.0),
-    ("temperature_K", "T", "temperature", 1.0),
-    ("relative_humidity", "RH", "fraction", 1.0),
-    ("hours", "Hours", "count", 1.0),
-    ("driver_power_W", "Driver power", "power", 1.0),
-    ("energy_kWh", "Energy", "energy", 3.6e6),
-    ("condensate_m3", "Condensate", "liquid_volume", 1.0),
-    ("max_discharge_temperature_K", "Hottest discharge", "temperature", 1.0),
-    ("cooler_duty_W", "Cooler duty", "heat_flow", 1.0),
-]
+#: the year table's columns: the figures of app.presentation.year_tables.YEAR_BINS the window shows
+#: (as the table stood at import; the panel reads it afresh when built)
+YEAR_COLUMNS = tuple(shown(year_tables.YEAR_BINS, "window"))
 
 
 class YearPanel(QWidget):
@@ -61,7 +53,8 @@ class YearPanel(QWidget):
         rlay = QVBoxLayout(results)
         rlay.setContentsMargins(0, 4, 0, 0)
         self.split = QSplitter(Qt.Horizontal)
-        self.table = QTableWidget(0, len(YEAR_COLUMNS))
+        self._columns = shown(year_tables.YEAR_BINS, "window")
+        self.table = QTableWidget(0, len(self._columns))
         self.table.verticalHeader().setVisible(False)
         self.table.verticalHeader().setDefaultSectionSize(self.table.fontMetrics().height() + 8)
         self.table.setEditTriggers(QTableWidget.NoEditTriggers)
@@ -137,9 +130,9 @@ class YearPanel(QWidget):
     def refresh(self) -> None:
         system = self.editor.prefs.system
         heads = []
-        for _key, name, q, _f in YEAR_COLUMNS:
-            sym = units.unit(q, system).symbol if q not in (None, "count") else ""
-            heads.append(f"{name}\n[{sym}]" if sym else f"{name}\n")
+        for fig in self._columns:
+            sym = fig.symbol_in("window", system)
+            heads.append(f"{fig.label_in('window')}\n[{sym}]" if sym else f"{fig.label_in('window')}\n")
         self.table.setHorizontalHeaderLabels(heads)
         if self.result is None:
             self.table.setRowCount(0)
@@ -147,16 +140,9 @@ class YearPanel(QWidget):
         bins = self.result["bins"]
         self.table.setRowCount(len(bins))
         for row, b in enumerate(bins):
-            for col, (key, _name, q, factor) in enumerate(YEAR_COLUMNS):
-                v = b.get(key)
-                if q is None:
-                    text = str(v)
-                elif q == "count":
-                    text = f"{v:.0f}"
-                else:
-                    text = units.format_value(None if v is None else v * factor, q, system)
-                item = QTableWidgetItem(text)
-                item.setTextAlignment((Qt.AlignLeft if q is None else Qt.AlignRight) | Qt.AlignVCenter)
+            for col, fig in enumerate(self._columns):
+                item = QTableWidgetItem(fig.text(b, "window", system))
+                item.setTextAlignment((Qt.AlignLeft if fig.is_left_aligned() else Qt.AlignRight) | Qt.AlignVCenter)
                 self.table.setItem(row, col, item)
         self.table.resizeColumnsToContents()
         self._give_chart_the_rest()

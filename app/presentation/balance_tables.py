@@ -1,0 +1,166 @@
+"""Presentation tables of a solved train (``TrainResult.to_dict()``): one per result kind.
+
+* :data:`POINTS` — the columns of the state-point table (paths into a point dict).
+* :data:`COMPONENTS` — the columns of the component table, whose rows are the intake filter,
+  each stage, each cooler and the whole train (a path per row kind; :func:`component_rows`).
+* :data:`EXCHANGERS` — the PDF report's table of the coolers' exchangers (paths into a cooler).
+* :data:`TOTALS` — the train's totals (paths into the result).
+
+The balance sheet in the window (:mod:`app.panels.balance_panel`), ``stagewright solve``'s text
+table (:mod:`app.cli.solve_table`), the PDF report (:mod:`app.report.sections`) and the CSV
+(:mod:`app.report.csv_export`) all read these tables: a row added here shows in each output
+its ``where`` names (every output by default). Rows placed twice are the same figure at the
+place one output lists it (each output keeps the order it has always had). No Qt.
+"""
+from __future__ import annotations
+
+__all__ = ["POINTS", "COMPONENTS", "EXCHANGERS", "TOTALS", "train_points", "component_rows"]
+
+from app.presentation.figures import Figure, Look
+from app.presentation.result_notes import NEGATIVE_TIPS, TOTAL_TIPS
+
+_WINDOW, _PDF = {"window"}, {"pdf"}
+_WINDOW_PDF = {"window", "pdf"}
+_NOT_CSV = {"window", "text", "pdf"}
+_NOT_TEXT = {"window", "pdf", "csv"}
+
+
+def _every_component(key: str) -> dict[str, str]:
+    """The same path in every row kind of the component table."""
+    return {"filter": key, "stage": key, "cooler": key, "train": key}
+
+
+#: columns of the state-point table (paths into a point dict: intake, filter outlet, stage and cooler outlets)
+POINTS: tuple[Figure, ...] = (
+    Figure("temperature_K", "T", "temperature", id="T",
+           looks={"text": Look(width=9), "csv": Look(label="temperature")}),
+    Figure("pressure_Pa", "p", "pressure", id="p",
+           looks={"text": Look(unit="kPa", width=11), "csv": Look(label="pressure")}),
+    Figure("pressure_Pa", "p", "pressure", id="p_gauge", gauge=True, where=_PDF),
+    Figure("enthalpy_J_kg", "h", "specific_enthalpy", id="h",
+           looks={"text": Look(decimals=3, width=11), "csv": Look(label="enthalpy")}),
+    Figure("entropy_J_kgK", "s", "specific_entropy", id="s",
+           looks={"text": Look(symbol="kJ/kgK", decimals=5, width=12), "csv": Look(label="entropy")}),
+    Figure("density_kg_m3", "ρ", "density", id="rho", where=_NOT_TEXT, looks={"csv": Look(label="density")}),
+    Figure("velocity_m_s", "V", "velocity", id="V", where=_WINDOW),
+    Figure("humidity_ratio", "w", "humidity_ratio", id="w", when="moist", where=_NOT_TEXT,
+           looks={"pdf": Look(label="Humidity ratio", unit="kg/kg", missing="0.00000"),
+                  "csv": Look(label="humidity_ratio", quantity="ratio")}),
+    Figure("relative_humidity", "RH", "fraction", id="rh", when="moist", where=_NOT_TEXT,
+           looks={"csv": Look(label="relative_humidity")}),
+    Figure("dew_point_K", "Dew pt", "temperature", id="dew", when="moist", where=_NOT_TEXT,
+           looks={"pdf": Look(label="Dew point"), "csv": Look(label="dew_point")}),
+)
+
+#: columns of the component table; each column has a path per row kind ("filter", "stage", "cooler", "train")
+COMPONENTS: tuple[Figure, ...] = (
+    Figure({"stage": "pressure_ratio"}, "Ratio", "ratio", id="ratio", where={"window", "csv"},
+           looks={"csv": Look(label="pressure_ratio")}),
+    Figure({"stage": "shaft_power_W", "train": "shaft_power_W"}, "Shaft power", "power", id="power",
+           looks={"text": Look(label="power", decimals=3, width=11)}),
+    Figure({"stage": "heat_loss_W+mechanical_loss_W", "cooler": "duty_W", "train": "heat_rejected_W"},
+           "Heat out", "heat_flow", id="heat",
+           looks={"text": Look(label="duty", decimals=3, width=11), "pdf": Look(label="Heat rejected"),
+                  "csv": Look(label="heat_rejected")}),
+    # condensed in the coolers; the train's is their sum (the window shows the drained total below)
+    Figure({"cooler": "condensate_kg_s", "train": "stages[*].cooler.condensate_kg_s"}, "Condensate", "water_flow",
+           id="condensate", when="any", where={"pdf", "csv"}),
+    Figure({"stage": "isentropic_efficiency"}, "ηs", "fraction", id="eta_s",
+           looks={"text": Look(quantity="ratio", width=8),
+                  "csv": Look(label="isentropic_efficiency", quantity="ratio")}),
+    Figure({"stage": "polytropic_efficiency"}, "ηp", "fraction", id="eta_p",
+           looks={"text": Look(quantity="ratio", width=8),
+                  "csv": Look(label="polytropic_efficiency", quantity="ratio")}),
+    Figure(_every_component("entropy_generation_W_K"), "S_gen", "entropy_rate", id="sgen",
+           looks={"text": Look(decimals=3, width=13), "csv": Look(label="entropy_generation")}),
+    Figure(_every_component("exergy_destroyed_W"), "X_dest", "power", id="xdest",
+           looks={"text": Look(decimals=3, width=13), "csv": Look(label="exergy_destroyed")}),
+    Figure({"cooler": "latent_duty_W"}, "Latent", "heat_flow", id="latent", when="moist", where=_WINDOW),
+    Figure({"cooler": "condensate_kg_s", "train": "condensate_kg_s"}, "Condensate", "water_flow", id="condensate",
+           when="moist", where=_WINDOW),
+    Figure({"cooler": "ua_W_K"}, "UA", "conductance", id="ua", when="exchanger", where=_WINDOW),
+    Figure({"cooler": "lmtd_K"}, "LMTD", "temperature_difference", id="lmtd", when="exchanger", where=_WINDOW),
+    Figure({"cooler": "coolant_flow_kg_s"}, "Coolant flow", "mass_flow", id="coolant", when="exchanger",
+           where=_WINDOW),
+    Figure({"cooler": "coolant_outlet_temperature_K"}, "Coolant out", "temperature", id="coolant_out",
+           when="exchanger", where=_WINDOW),
+)
+
+#: the PDF report's table of cooler exchangers (paths into a cooler dict; coolers with a coolant side); the
+#: window shows some of these figures among the component columns
+EXCHANGERS: tuple[Figure, ...] = (
+    Figure("coolant_kind", "Coolant", style="text"),
+    Figure("coolant_flow_kg_s", "Coolant flow", "mass_flow"),
+    Figure("coolant_inlet_temperature_K", "Coolant in", "temperature"),
+    Figure("coolant_outlet_temperature_K", "Coolant out", "temperature"),
+    Figure("lmtd_K", "LMTD", "temperature_difference"),
+    Figure("lmtd_correction_factor", "F", decimals=3),
+    Figure("effectiveness", "ε", decimals=3),
+    Figure("ntu", "NTU", decimals=3),
+    Figure("ua_W_K", "UA", "conductance"),
+)
+
+_RESIDUAL = {"style": "scientific", "decimals": 2, "where": _NOT_CSV}
+
+#: the train's totals (paths into the result); the text table lower-cases a label's first letter
+TOTALS: tuple[Figure, ...] = (
+    Figure("mass_flow_kg_s", "Mass flow", "mass_flow", where=_NOT_CSV),
+    Figure("free_air_delivery_m3_s", "Free air delivery", "volume_flow", where=_NOT_CSV),
+    Figure("normal_volume_flow_m3_s", "Normal volume flow", "volume_flow", where=_WINDOW_PDF,
+           looks={"pdf": Look(label="Normal volume flow (0 °C, 101.325 kPa)")}),
+    Figure("shaft_power_W", "Shaft power", "power", where=_NOT_CSV),
+    Figure("driver_power_W", "Driver input power", "power", where=_NOT_CSV),
+    Figure("specific_power_kW_per_m3_min", "Specific power", "specific_power", where=_NOT_CSV),
+    Figure("heat_rejected_W", "Heat rejected", "heat_flow", where=_NOT_CSV),
+    Figure("isothermal_power_W", "Isothermal power", "power", where=_NOT_CSV,
+           looks={"pdf": Look(label="Reversible isothermal power")}),
+    Figure("isothermal_efficiency", "Isothermal efficiency", "fraction", where=_NOT_CSV,
+           looks={"text": Look(quantity="ratio")}),
+    Figure("second_law_efficiency", "Second-law efficiency", "fraction", where=_NOT_CSV,
+           looks={"text": Look(quantity="ratio")}),
+    # the text table lists the entropy generation before the exergy destroyed
+    Figure("entropy_generation_W_K", "Entropy generation", "entropy_rate", where={"text"}),
+    Figure("exergy_gained_W", "Exergy gained by air", "power", where=_WINDOW_PDF,
+           looks={"pdf": Look(label="Exergy gained by the air")}),
+    Figure("exergy_destroyed_W", "Exergy destroyed", "power", where=_NOT_CSV),
+    Figure("heat_exergy_W", "Exergy out with heat", "power", where=_WINDOW_PDF, note=TOTAL_TIPS["heat_exergy_W"],
+           negative_note=NEGATIVE_TIPS["heat_exergy_W"], looks={"pdf": Look(label="Exergy carried out with heat")}),
+    Figure("entropy_generation_W_K", "Entropy generation", "entropy_rate", where=_WINDOW_PDF),
+    Figure("condensate_kg_s", "Condensate", "water_flow", when="moist", where=_WINDOW),
+    Figure("delivered_pressure_dew_point_K", "Pressure dew point", "temperature", when="moist", where=_WINDOW),
+    Figure("delivered_atmospheric_dew_point_K", "Atm. dew point", "temperature", when="moist", where=_WINDOW),
+    Figure("iso8573_humidity_class", "ISO 8573-1 class", style="text", when="moist", where=_WINDOW),
+    Figure("energy_residual", "Energy closure residual", **_RESIDUAL,
+           looks={"text": Look(label="energy balance residual"), "pdf": Look(label="Energy balance closure")}),
+    Figure("exergy_residual", "Exergy closure residual", **_RESIDUAL,
+           looks={"text": Look(label="exergy balance residual"), "pdf": Look(label="Exergy balance closure")}),
+)
+
+
+def train_points(result: dict) -> list[tuple[str, int | None, dict]]:
+    """Every state point of the train in flow order as ``(row key, stage number or None, point)``.
+
+    Row keys: ``"intake"``, ``"filter"`` (after the intake filter), ``"stage-i"`` (stage i's
+    discharge) and ``"cooler-i"`` (its cooler's outlet), stages counted from 1.
+    """
+    rows = [("intake", None, result["intake"]), ("filter", None, result["inlet_filter"]["outlet"])]
+    for i, st in enumerate(result["stages"], 1):
+        rows.append((f"stage-{i}", i, st["outlet"]))
+        if st.get("cooler"):
+            rows.append((f"cooler-{i}", i, st["cooler"]["outlet"]))
+    return rows
+
+
+def component_rows(result: dict) -> list[tuple[str, str, int | None, dict]]:
+    """Rows of the component table as ``(row key, kind, stage number or None, the component's dict)``.
+
+    Kinds (and row keys): ``"filter"`` (``"filter"``), ``"stage"`` (``"stage-i"``), ``"cooler"``
+    (``"cooler-i"``), ``"train"`` (``"total"``: the result itself).
+    """
+    rows = [("filter", "filter", None, result["inlet_filter"])]
+    for i, st in enumerate(result["stages"], 1):
+        rows.append((f"stage-{i}", "stage", i, st))
+        if st.get("cooler"):
+            rows.append((f"cooler-{i}", "cooler", i, st["cooler"]))
+    rows.append(("total", "train", None, result))
+    return rows
