@@ -18,6 +18,7 @@ from app.presentation import units
 from app.document.paths import ABSENT
 from app.document.field_specs import quantity_for, spec_for
 from app.widgets.signals_blocked import signals_blocked
+from app.widgets.undo_keys import route_undo_keys
 
 ENTRY_DIGITS = 12  # significant digits kept from what was typed (far beyond any entry)
 
@@ -82,6 +83,7 @@ class QuantityField(QWidget):
         lay.addWidget(self.edit, 1)
         lay.addWidget(self.unit_label, 0)
         self.edit.editingFinished.connect(self.commit)
+        route_undo_keys(self.edit)
         self.setFocusProxy(self.edit)
 
     # ---- display -------------------------------------------------------------------------
