@@ -7,11 +7,11 @@ the document, where :func:`thermo.project.validation.problems` reports it with t
 """
 from __future__ import annotations
 
-__all__ = ["QuantityField", "parse_number", "format_entry"]
+__all__ = ["QuantityField", "parse_number", "format_entry", "format_shown", "SHOWN_DIGITS"]
 
 import math
 
-from PySide6.QtCore import Qt, Signal
+from PySide6.QtCore import QEvent, Qt, Signal
 from PySide6.QtWidgets import QHBoxLayout, QLabel, QLineEdit, QWidget
 
 from app.presentation import units
@@ -21,6 +21,7 @@ from app.widgets.signals_blocked import signals_blocked
 from app.widgets.undo_keys import route_undo_keys
 
 ENTRY_DIGITS = 12  # significant digits kept from what was typed (far beyond any entry)
+SHOWN_DIGITS = 4  # significant digits shown while a field is not being edited (common practice, no source)
 
 
 def parse_number(text: str) -> float | None:
@@ -44,6 +45,25 @@ def format_entry(shown: float, decimals: int) -> str:
     ('25', '8.490091', '-0.5')
     """
     text = f"{shown:.{decimals + 2}f}"
+    if "." in text:
+        text = text.rstrip("0").rstrip(".")
+    return "0" if text in ("-0", "") else text
+
+
+def format_shown(shown: float, digits: int = SHOWN_DIGITS) -> str:
+    """Rounded text for a field not being edited: ``digits`` significant digits (the integer
+    part is never rounded), trailing zeros removed. Full precision is shown on focus and in
+    the tooltip; the document keeps it whatever is shown.
+
+    >>> format_shown(10.015251), format_shown(8.500083), format_shown(123.2833), format_shown(5118.21)
+    ('10.02', '8.5', '123.3', '5118')
+    >>> format_shown(0.0123456), format_shown(-0.5), format_shown(0.0), format_shown(123456.7)
+    ('0.01235', '-0.5', '0', '123457')
+    """
+    if shown == 0.0:
+        return "0"
+    integer_digits = math.floor(math.log10(abs(shown))) + 1
+    text = f"{shown:.{max(0, digits - integer_digits)}f}"
     if "." in text:
         text = text.rstrip("0").rstrip(".")
     return "0" if text in ("-0", "") else text
@@ -83,7 +103,9 @@ class QuantityField(QWidget):
         lay.addWidget(self.edit, 1)
         lay.addWidget(self.unit_label, 0)
         self.edit.editingFinished.connect(self.commit)
+        self.edit.installEventFilter(self)  # full precision while focused, rounded otherwise
         route_undo_keys(self.edit)
+        self._full_text = self._rounded_text = ""
         self.setFocusProxy(self.edit)
 
     # ---- display -------------------------------------------------------------------------
@@ -112,18 +134,32 @@ class QuantityField(QWidget):
             norm = _normalised_default(self.editor, self.path)
             value = norm
         if value is ABSENT or value is None:
-            text = ""
+            full = rounded = ""
         elif isinstance(value, (int, float)) and not isinstance(value, bool):
-            text = format_entry(u.to_display(float(value)), u.decimals)
+            full = format_entry(u.to_display(float(value)), u.decimals)
+            rounded = format_shown(u.to_display(float(value)))
         else:
-            text = str(value)
+            full = rounded = str(value)
+        self._full_text, self._rounded_text = full, rounded
+        self._show(full if self.edit.hasFocus() else rounded)
+        self._fit(full)
+        self.update_mark()
+
+    def _show(self, text: str) -> None:
         with signals_blocked(self.edit):
             self.edit.setText(text)
             self.edit.setModified(False)
             self.edit.setCursorPosition(0)
         self._shown_text = text
-        self._fit(text)
-        self.update_mark()
+
+    def eventFilter(self, obj, event) -> bool:  # noqa: N802 (Qt's name)
+        """Swap the rounded text for the full one while the field has focus (unless typed in)."""
+        if obj is self.edit and not self.edit.isModified() and self.path not in self.editor.entry_errors:
+            if event.type() == QEvent.Type.FocusIn and self._shown_text == self._rounded_text:
+                self._show(self._full_text)
+            elif event.type() == QEvent.Type.FocusOut and self._shown_text == self._full_text:
+                self._show(self._rounded_text)
+        return False
 
     def _fit(self, text: str) -> None:
         """Widen the field so that a shown value is never cut off (leading digits matter)."""
@@ -138,7 +174,8 @@ class QuantityField(QWidget):
             self.edit.setProperty("invalid", invalid)
             self.edit.style().unpolish(self.edit)
             self.edit.style().polish(self.edit)
-        self.edit.setToolTip(message or "")
+        exact = f"{self._full_text} {self.unit_label.text()}".strip() if self._full_text else ""
+        self.edit.setToolTip(message or exact)
 
     # ---- editing -------------------------------------------------------------------------
     def commit(self) -> None:
@@ -147,8 +184,8 @@ class QuantityField(QWidget):
         if not self.edit.isModified() and self.path not in self.editor.entry_errors:
             return
         self.edit.setModified(False)
-        if text == self._shown_text and self.path not in self.editor.entry_errors:
-            return
+        if text == self._full_text and self.path not in self.editor.entry_errors:
+            return  # typed back what is stored (typing the rounded figure is a change: it says so)
         if text == "":
             if self.nullable:
                 self.editor.set_entry_error(self.path, None)
