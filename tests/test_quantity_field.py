@@ -48,3 +48,19 @@ def test_typing_a_rounded_value_stores_what_was_typed(qtbot, tmp_path):
     assert ed.model.get("discharge_pressure_Pa") == pytest.approx(1_102_000.0, rel=1e-12)
     qtbot.keyClick(field.edit, Qt.Key_Tab)
     win.close()
+
+
+def test_a_decimal_comma_is_read_where_the_locale_uses_one(qtbot, tmp_path):
+    from PySide6.QtCore import QLocale
+    old = QLocale()
+    QLocale.setDefault(QLocale(QLocale.Language.German, QLocale.Country.Germany))
+    try:
+        win = make_window(qtbot, tmp_path, _doc())
+        ed, field = win.editor, win.panels["site"].fields[1]
+        n = ed.solved_jobs
+        type_into(qtbot, field, "19,5")
+        wait_solved(qtbot, win, n)
+        assert ed.model.get("site.ambient_temperature_K") == pytest.approx(292.65, abs=1e-9)
+        win.close()
+    finally:
+        QLocale.setDefault(old)

@@ -11,7 +11,7 @@ __all__ = ["QuantityField", "parse_number", "format_entry", "format_shown", "SHO
 
 import math
 
-from PySide6.QtCore import QEvent, Qt, Signal
+from PySide6.QtCore import QEvent, QLocale, Qt, Signal
 from PySide6.QtWidgets import QHBoxLayout, QLabel, QLineEdit, QWidget
 
 from app.presentation import units
@@ -24,13 +24,21 @@ ENTRY_DIGITS = 12  # significant digits kept from what was typed (far beyond any
 SHOWN_DIGITS = 4  # significant digits shown while a field is not being edited (common practice, no source)
 
 
-def parse_number(text: str) -> float | None:
+def parse_number(text: str, decimal_point: str = ".") -> float | None:
     """Read a typed number; spaces as thousands separators are allowed. None if unreadable.
+
+    Where the system locale writes a decimal comma (``decimal_point=","``), a comma is read
+    as the decimal mark and points as thousands separators; a number with a point and no
+    comma is read as typed (a decimal point), since engineers type both.
 
     >>> parse_number(" 1 234.5 "), parse_number("8,5"), parse_number("abc"), parse_number("1e3")
     (1234.5, None, None, 1000.0)
+    >>> parse_number("8,5", ","), parse_number("1.234,5", ","), parse_number("8.5", ",")
+    (8.5, 1234.5, 8.5)
     """
     cleaned = text.strip().replace(" ", "").replace("\u202f", "").replace("\u00a0", "")
+    if decimal_point == "," and "," in cleaned:
+        cleaned = cleaned.replace(".", "").replace(",", ".")
     try:
         value = float(cleaned)
     except ValueError:
@@ -196,10 +204,10 @@ class QuantityField(QWidget):
             self.editor.set_entry_error(self.path, "a value is required here")
             self.update_mark()
             return
-        shown = parse_number(text)
+        shown = parse_number(text, QLocale().decimalPoint())
         if shown is None:
             self.editor.set_entry_error(
-                self.path, f"'{text}' is not a number (use digits, a point for decimals, e.g. 12.5)")
+                self.path, f"'{text}' is not a number (use digits and a decimal mark, e.g. 12.5)")
             self.update_mark()
             return
         si = float(f"{self._unit().to_si(shown):.{ENTRY_DIGITS}g}")
