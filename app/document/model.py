@@ -38,8 +38,22 @@ class Signal:
             fn(*args)
 
 
+#: stage discharge temperature limit of the new-project template, [K]: 200 °C, a usual
+#: ceiling for dry (oil-free) compression stages (common practice, no source)
+TEMPLATE_DISCHARGE_LIMIT_K = 473.15
+
+
 def new_document() -> dict:
-    """A small valid project to start from: one stage with an aftercooler (invented values)."""
+    """A small valid project to start from (invented values): two stages to 8 bar(a), each
+    with a water-cooled cooler stated by its approach to 25 °C cooling water (so the project
+    solves at any site ambient), and a 200 °C discharge limit on each stage (so a single hot
+    stage is reported, not passed in silence)."""
+    def stage(name: str) -> dict:
+        return {"name": name, "efficiency": {"kind": "isentropic", "value": 0.8},
+                "max_discharge_temperature_K": TEMPLATE_DISCHARGE_LIMIT_K,
+                "cooler": {"approach_K": 10.0, "coolant_inlet_temperature_K": 298.15,
+                           "coolant": {"kind": "water", "temperature_rise_K": 10.0},
+                           "pressure_drop_Pa": 10_000.0}}
     return {
         "format": FORMAT_NAME,
         "version": FORMAT_VERSION,
@@ -50,8 +64,7 @@ def new_document() -> dict:
         "flow": {"kind": "free_air_delivery", "value": 0.1},
         "discharge_pressure_Pa": 801_325.0,
         "driver": {"efficiency": 0.95},
-        "stages": [{"name": "Stage 1", "efficiency": {"kind": "isentropic", "value": 0.8},
-                    "cooler": {"outlet_temperature_K": 303.15, "pressure_drop_Pa": 10_000.0}}],
+        "stages": [stage("Stage 1"), stage("Stage 2")],
     }
 
 

@@ -36,7 +36,7 @@ class CoolerForm(FieldPanel):
         lay.addStretch(1)
         self.heading = section_title("Cooler")
         form.addRow(self.heading)
-        self.mode = ChoiceField(editor, "", OUTLET_CHOICES, self._choose_mode)
+        self.mode = ChoiceField(editor, "", OUTLET_CHOICES, self._choose_mode, current=self._mode)
         form.addRow("Outlet given as", self.mode)
         self.value = self.add_row(form, "Outlet temperature", QuantityField(editor, ""))
         self.value_label = form.labelForField(self.value)
@@ -49,10 +49,10 @@ class CoolerForm(FieldPanel):
             form, "Coolant inlet T", QuantityField(editor, "", nullable=True, placeholder="not given"),
             "Cooling water or air inlet temperature; needed for an approach, and used as the "
             "temperature at which the heat leaves.")
-        self.coolant = ChoiceField(editor, "", COOLANT_CHOICES, self._choose_coolant)
+        self.coolant = ChoiceField(editor, "", COOLANT_CHOICES, self._choose_coolant, current=self._coolant_kind)
         form.addRow("Coolant", self.coolant)
         self.arrangement = self.add_row(form, "Arrangement", ChoiceField(editor, "", ARRANGEMENTS))
-        self.basis = ChoiceField(editor, "", COOLANT_BASIS, self._choose_basis)
+        self.basis = ChoiceField(editor, "", COOLANT_BASIS, self._choose_basis, current=self._basis)
         form.addRow("Coolant given by", self.basis)
         self.coolant_value = self.add_row(form, "Temperature rise", QuantityField(editor, ""))
         self.coolant_value_label = form.labelForField(self.coolant_value)
@@ -76,6 +76,10 @@ class CoolerForm(FieldPanel):
         c = self._cooler().get("coolant")
         return c if isinstance(c, dict) else None
 
+    def _coolant_kind(self) -> str:
+        coolant = self._coolant()
+        return coolant["kind"] if coolant else "none"
+
     def _basis(self) -> str:
         c = self._coolant() or {}
         return "flow_kg_s" if c.get("flow_kg_s") is not None else "temperature_rise_K"
@@ -95,7 +99,7 @@ class CoolerForm(FieldPanel):
         last = self.index == self.editor.model.stage_count - 1
         self.heading.setText("Aftercooler" if last else f"Intercooler {self.index + 1}")
         self.mode.refresh(mode)
-        self.coolant.refresh(coolant["kind"] if coolant else "none")
+        self.coolant.refresh(self._coolant_kind())
         self.basis.refresh(self._basis())
         if self.value_label is not None:
             self.value_label.setText({"outlet": "Outlet temperature", "approach": "Approach",

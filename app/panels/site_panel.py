@@ -57,7 +57,7 @@ class SitePanel(FieldPanel):
         self.add_row(form, "Project title", TextField(editor, "title", "untitled project"))
         self.add_row(form, "Ambient temperature", QuantityField(editor, "site.ambient_temperature_K"),
                      "Air temperature at the intake; also the dead-state temperature for exergy.")
-        self.mode = ChoiceField(editor, "", PRESSURE_MODES, self._choose_mode)
+        self.mode = ChoiceField(editor, "", PRESSURE_MODES, self._choose_mode, current=self._pressure_mode)
         self.mode.setToolTip("Give the site pressure directly, or as an elevation above sea level "
                              "(pressure of the ISO 2533 standard atmosphere).")
         form.addRow("Site pressure from", self.mode)

@@ -1,4 +1,5 @@
-"""A drop-down bound to one document path; choosing pushes one undo step via a callback."""
+"""A drop-down bound to one document path, or to a value derived from several keys; choosing
+pushes one undo step via a callback."""
 from __future__ import annotations
 
 __all__ = ["ChoiceField"]
@@ -15,12 +16,17 @@ class ChoiceField(QComboBox):
 
     The callback (not a plain set) lets a panel turn a choice into a consistent edit of
     several keys, e.g. changing the efficiency basis carries the current value across.
+    A choice that no single key stores (how the site pressure is given, the cooler's outlet
+    basis, the coolant) passes ``current``, which reads the chosen value from the document;
+    without it the box would read an empty path and go blank after every choice.
     """
 
     def __init__(self, editor, path: str, options: list[tuple[str, str]],
-                 on_choose: Callable[[str], None] | None = None, parent=None):
+                 on_choose: Callable[[str], None] | None = None, parent=None,
+                 current: Callable[[], str] | None = None):
         super().__init__(parent)
         self.editor, self.path = editor, path
+        self._current = current
         self._values = [v for v, _ in options]
         for _, text in options:
             self.addItem(text)
@@ -36,6 +42,8 @@ class ChoiceField(QComboBox):
         return self._values[self.currentIndex()] if self.currentIndex() >= 0 else ""
 
     def refresh(self, value: str | None = None) -> None:
+        if value is None and self._current is not None:
+            value = self._current()
         if value is None:
             value = self.editor.model.get(self.path)
             if value not in self._values:

@@ -7,28 +7,38 @@ the document, where :func:`thermo.project.validation.problems` reports it with t
 """
 from __future__ import annotations
 
-__all__ = ["QuantityField", "parse_number", "format_entry"]
+__all__ = ["QuantityField", "parse_number", "format_entry", "format_shown", "SHOWN_DIGITS"]
 
 import math
 
-from PySide6.QtCore import Qt, Signal
+from PySide6.QtCore import QEvent, QLocale, Qt, Signal
 from PySide6.QtWidgets import QHBoxLayout, QLabel, QLineEdit, QWidget
 
 from app.presentation import units
 from app.document.paths import ABSENT
 from app.document.field_specs import quantity_for, spec_for
 from app.widgets.signals_blocked import signals_blocked
+from app.widgets.undo_keys import route_undo_keys
 
 ENTRY_DIGITS = 12  # significant digits kept from what was typed (far beyond any entry)
+SHOWN_DIGITS = 4  # significant digits shown while a field is not being edited (common practice, no source)
 
 
-def parse_number(text: str) -> float | None:
+def parse_number(text: str, decimal_point: str = ".") -> float | None:
     """Read a typed number; spaces as thousands separators are allowed. None if unreadable.
+
+    Where the system locale writes a decimal comma (``decimal_point=","``), a comma is read
+    as the decimal mark and points as thousands separators; a number with a point and no
+    comma is read as typed (a decimal point), since engineers type both.
 
     >>> parse_number(" 1 234.5 "), parse_number("8,5"), parse_number("abc"), parse_number("1e3")
     (1234.5, None, None, 1000.0)
+    >>> parse_number("8,5", ","), parse_number("1.234,5", ","), parse_number("8.5", ",")
+    (8.5, 1234.5, 8.5)
     """
     cleaned = text.strip().replace(" ", "").replace("\u202f", "").replace("\u00a0", "")
+    if decimal_point == "," and "," in cleaned:
+        cleaned = cleaned.replace(".", "").replace(",", ".")
     try:
         value = float(cleaned)
     except ValueError:
@@ -43,6 +53,25 @@ def format_entry(shown: float, decimals: int) -> str:
     ('25', '8.490091', '-0.5')
     """
     text = f"{shown:.{decimals + 2}f}"
+    if "." in text:
+        text = text.rstrip("0").rstrip(".")
+    return "0" if text in ("-0", "") else text
+
+
+def format_shown(shown: float, digits: int = SHOWN_DIGITS) -> str:
+    """Rounded text for a field not being edited: ``digits`` significant digits (the integer
+    part is never rounded), trailing zeros removed. Full precision is shown on focus and in
+    the tooltip; the document keeps it whatever is shown.
+
+    >>> format_shown(10.015251), format_shown(8.500083), format_shown(123.2833), format_shown(5118.21)
+    ('10.02', '8.5', '123.3', '5118')
+    >>> format_shown(0.0123456), format_shown(-0.5), format_shown(0.0), format_shown(123456.7)
+    ('0.01235', '-0.5', '0', '123457')
+    """
+    if shown == 0.0:
+        return "0"
+    integer_digits = math.floor(math.log10(abs(shown))) + 1
+    text = f"{shown:.{max(0, digits - integer_digits)}f}"
     if "." in text:
         text = text.rstrip("0").rstrip(".")
     return "0" if text in ("-0", "") else text
@@ -82,6 +111,9 @@ class QuantityField(QWidget):
         lay.addWidget(self.edit, 1)
         lay.addWidget(self.unit_label, 0)
         self.edit.editingFinished.connect(self.commit)
+        self.edit.installEventFilter(self)  # full precision while focused, rounded otherwise
+        route_undo_keys(self.edit)
+        self._full_text = self._rounded_text = ""
         self.setFocusProxy(self.edit)
 
     # ---- display -------------------------------------------------------------------------
@@ -110,18 +142,32 @@ class QuantityField(QWidget):
             norm = _normalised_default(self.editor, self.path)
             value = norm
         if value is ABSENT or value is None:
-            text = ""
+            full = rounded = ""
         elif isinstance(value, (int, float)) and not isinstance(value, bool):
-            text = format_entry(u.to_display(float(value)), u.decimals)
+            full = format_entry(u.to_display(float(value)), u.decimals)
+            rounded = format_shown(u.to_display(float(value)))
         else:
-            text = str(value)
+            full = rounded = str(value)
+        self._full_text, self._rounded_text = full, rounded
+        self._show(full if self.edit.hasFocus() else rounded)
+        self._fit(full)
+        self.update_mark()
+
+    def _show(self, text: str) -> None:
         with signals_blocked(self.edit):
             self.edit.setText(text)
             self.edit.setModified(False)
             self.edit.setCursorPosition(0)
         self._shown_text = text
-        self._fit(text)
-        self.update_mark()
+
+    def eventFilter(self, obj, event) -> bool:  # noqa: N802 (Qt's name)
+        """Swap the rounded text for the full one while the field has focus (unless typed in)."""
+        if obj is self.edit and not self.edit.isModified() and self.path not in self.editor.entry_errors:
+            if event.type() == QEvent.Type.FocusIn and self._shown_text == self._rounded_text:
+                self._show(self._full_text)
+            elif event.type() == QEvent.Type.FocusOut and self._shown_text == self._full_text:
+                self._show(self._rounded_text)
+        return False
 
     def _fit(self, text: str) -> None:
         """Widen the field so that a shown value is never cut off (leading digits matter)."""
@@ -136,7 +182,8 @@ class QuantityField(QWidget):
             self.edit.setProperty("invalid", invalid)
             self.edit.style().unpolish(self.edit)
             self.edit.style().polish(self.edit)
-        self.edit.setToolTip(message or "")
+        exact = f"{self._full_text} {self.unit_label.text()}".strip() if self._full_text else ""
+        self.edit.setToolTip(message or exact)
 
     # ---- editing -------------------------------------------------------------------------
     def commit(self) -> None:
@@ -145,8 +192,8 @@ class QuantityField(QWidget):
         if not self.edit.isModified() and self.path not in self.editor.entry_errors:
             return
         self.edit.setModified(False)
-        if text == self._shown_text and self.path not in self.editor.entry_errors:
-            return
+        if text == self._full_text and self.path not in self.editor.entry_errors:
+            return  # typed back what is stored (typing the rounded figure is a change: it says so)
         if text == "":
             if self.nullable:
                 self.editor.set_entry_error(self.path, None)
@@ -157,10 +204,10 @@ class QuantityField(QWidget):
             self.editor.set_entry_error(self.path, "a value is required here")
             self.update_mark()
             return
-        shown = parse_number(text)
+        shown = parse_number(text, QLocale().decimalPoint())
         if shown is None:
             self.editor.set_entry_error(
-                self.path, f"'{text}' is not a number (use digits, a point for decimals, e.g. 12.5)")
+                self.path, f"'{text}' is not a number (use digits and a decimal mark, e.g. 12.5)")
             self.update_mark()
             return
         si = float(f"{self._unit().to_si(shown):.{ENTRY_DIGITS}g}")

@@ -7,6 +7,7 @@ from PySide6.QtWidgets import QLineEdit
 
 from app.document.paths import ABSENT
 from app.widgets.signals_blocked import signals_blocked
+from app.widgets.undo_keys import route_undo_keys
 
 
 class TextField(QLineEdit):
@@ -18,6 +19,7 @@ class TextField(QLineEdit):
         self.setPlaceholderText(placeholder)
         self.setMaxLength(max_length)
         self.editingFinished.connect(self.commit)
+        route_undo_keys(self)
 
     def set_path(self, path: str) -> None:
         self.path = path
