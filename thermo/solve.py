@@ -6,12 +6,13 @@ __all__ = ["solve", "solve_normalised", "model_for", "release_thread_models"]
 import atexit
 import threading
 
-from thermo.project.validation import normalise, site_pressure
+from thermo.project.validation import normalise
 from thermo.errors import InputError, StagewrightError
 from thermo.flow import mass_flow_from
 from thermo.models import make_model
 from thermo.results import TrainResult
-from thermo.train import intake_model, solve_train
+from thermo.solve_context import SolveContext, release_thread_caches, solve_context
+from thermo.train import solve_train
 
 _local = threading.local()
 
@@ -20,12 +21,14 @@ _local = threading.local()
 def _release_models() -> None:
     """Drop cached CoolProp states before interpreter teardown (avoids nanobind leak reports)."""
     getattr(_local, "models", {}).clear()
+    release_thread_caches()
 
 
 def release_thread_models() -> None:
-    """Drop the calling thread's cached property models (call it in a worker thread before
-    the thread ends: states left in a finished thread are only collected at interpreter
-    teardown, too late for CoolProp)."""
+    """Drop the calling thread's cached property models, and the mixtures and intake states
+    kept for them (:mod:`thermo.solve_context`). Call it in a worker thread before the thread
+    ends: states left in a finished thread are only collected at interpreter teardown, too
+    late for CoolProp."""
     _release_models()
 
 
@@ -94,19 +97,25 @@ def solve_normalised(norm: dict, detail: bool = True, fast: bool = False) -> Tra
     enhancement factor is interpolated (:mod:`thermo.moist.enhancement_table`); reported figures
     agree with the exact path to better than 1e-4 relative (tests/test_fast_path.py), and
     the other models are unaffected.
+
+    The site is resolved here, once per solve (:func:`thermo.project.validation.resolve_site`),
+    and the solve's context built from it (:func:`thermo.solve_context.solve_context`: the
+    intake's stream model, humidity ratio and states); every train solve of the shaft-power
+    iteration reads them from that one context.
     """
-    model = model_for(norm["fluid"], fast)
+    ctx = solve_context(norm, model_for(norm["fluid"], fast))
     flow = norm["flow"]
-    T0, P0 = norm["site"]["ambient_temperature_K"], site_pressure(norm)
     if flow["kind"] != "shaft_power":
-        intake = intake_model(norm, model)[0]  # moist intake: FAD refers to the moist air
-        return solve_train(norm, model, mass_flow_from(flow["kind"], flow["value"], intake, T0, P0), detail)
-    return _solve_for_power(norm, model, flow["value"], detail)
+        # moist intake: FAD refers to the moist air, so the intake's stream model converts it
+        m = mass_flow_from(flow["kind"], flow["value"], ctx.intake.model, ctx.site.ambient_temperature_K,
+                           ctx.site.pressure_Pa)
+        return solve_train(ctx, m, detail)
+    return _solve_for_power(ctx, flow["value"], detail)
 
 
-def _solve_for_power(norm: dict, model, target_W: float, detail: bool = True) -> TrainResult:
+def _solve_for_power(ctx: SolveContext, target_W: float, detail: bool = True) -> TrainResult:
     """Find the mass flow whose shaft power equals ``target_W`` (secant, bracketed)."""
-    fixed = sum(s["heat_loss_W"] / s["mechanical_efficiency"] for s in norm["stages"])
+    fixed = sum(s["heat_loss_W"] / s["mechanical_efficiency"] for s in ctx.norm["stages"])
     if target_W <= fixed:
         raise InputError("flow.value", target_W,
                          f"shaft power must exceed {fixed:.6g} W, the casing heat losses alone; "
@@ -116,16 +125,16 @@ def _solve_for_power(norm: dict, model, target_W: float, detail: bool = True) ->
     # power per kilogram does not depend on the flow, so the first estimate is usually the
     # answer: it is solved with ``detail`` at once.
     m0 = 1.0
-    r0 = solve_train(norm, model, m0, False)
+    r0 = solve_train(ctx, m0, False)
     per_kg = (r0.shaft_power_W - fixed) / m0
     m1 = (target_W - fixed) / per_kg
     m_prev, f_prev = m0, r0.shaft_power_W - target_W
     trial_detail = detail and fixed == 0.0
     for _ in range(40):
-        r1 = solve_train(norm, model, m1, trial_detail)
+        r1 = solve_train(ctx, m1, trial_detail)
         f1 = r1.shaft_power_W - target_W
         if abs(f1) <= 1e-12 * target_W:
-            return r1 if trial_detail == detail else solve_train(norm, model, m1, detail)
+            return r1 if trial_detail == detail else solve_train(ctx, m1, detail)
         trial_detail = False
         if f1 == f_prev:
             break

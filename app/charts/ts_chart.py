@@ -57,7 +57,7 @@ def chart_model(result: dict):
     w0 = result.get("intake_humidity_ratio") or 0.0
     if w0 > 0.0:  # moist intake: isobars of the intake air's own water (entropy per kg dry air)
         from thermo.moist.stream import MoistAir
-        from thermo.train import mixture_for
+        from thermo.solve_context import mixture_for
         model = MoistAir(mixture_for(model), w0)
     return model
 
