@@ -207,8 +207,9 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
     path = _cooling_path(model, where, inlet, outlet, t_out, p_out, path_points, water)
     return CoolerResult(index=index, inlet=inlet, outlet=outlet, duty_W=duty, boundary_temperature_K=t_b,
                         heat_exergy_W=heat_exergy(duty, t_b, dead.T0), entropy_generation_W_K=s_gen,
-                        exergy_destroyed_W=dead.T0 * s_gen, path=path, arrangement=spec.get("arrangement", "counter_flow"),
-                        exchanger=exchanger, stagnation_inlet_temperature_K=t_stag, water=water, stream_model=model)
+                        exergy_destroyed_W=dead.T0 * s_gen, path=path,
+                        arrangement=spec.get("arrangement", "counter_flow"), exchanger=exchanger,
+                        stagnation_inlet_temperature_K=t_stag, water=water, stream_model=model)
 
 
 def _exchanger(model: PropertyModel, spec: dict, where: str, field: str, inlet: Point, inlet_velocity: float,
@@ -320,6 +321,12 @@ def _cooling_path(model: PropertyModel, where: str, inlet: Point, outlet: Point,
         Dry air: ``path_points`` equal steps in temperature and pressure. Moist air: the line
         of :func:`thermo.moist.condensation.cooling_line` (with its dew point), the outlet,
         and the separator outlet where water is drained.
+
+    Notes
+    -----
+    For drawing only: the line between the two end states is not part of any balance, and
+    the linear fall of pressure with temperature is an assumption (common practice, no
+    source).
     """
     if water is not None:
         path = (cooling_line(model, inlet, t_out, p_out, where, path_points) if path_points else [inlet]) + [outlet]

@@ -229,11 +229,39 @@ def polytropic_efficiency_between(model: PropertyModel, inlet: Point, outlet_ent
 
 def _first_estimate(model: PropertyModel, inlet: Point, T_target: float, p_out: float, lnT_target: float,
                     isentropic_efficiency: float) -> tuple[float, float, bool]:
-    r"""Start of the search of :func:`polytropic_efficiency_between`: (ηp, b ln r, moist scheme).
+    r"""Start of the search of :func:`polytropic_efficiency_between` [1]_.
 
-    With :math:`a - b` and :math:`2a - b` from the path slope at the mean state (ηp = 1 and
-    0.5), :math:`\eta_p = (a \ln r)/(\ln(T_2/T_1) + b \ln r)`; dry air keeps b = 0 (the
-    ideal-gas estimate). Outside (0.02, 1.5) the isentropic efficiency is the start.
+    .. math:: \eta_p = \frac{a \ln r}{\ln(T_2/T_1) + b \ln r}
+
+    with :math:`a - b` and :math:`2a - b` from the path slope at the mean state (ηp = 1 and
+    0.5); dry air keeps b = 0 (the ideal-gas estimate).
+
+    Parameters
+    ----------
+    model : PropertyModel
+        Property model of the gas.
+    inlet : Point
+        Start of compression.
+    T_target : float
+        Temperature at the end of the adiabatic compression, [K].
+    p_out : float
+        Discharge pressure, [Pa].
+    lnT_target : float
+        :math:`\ln(T_2/T_1)`, [-].
+    isentropic_efficiency : float
+        Isentropic efficiency of the same process, [-]: the start when the estimate falls
+        outside (0.02, 1.5).
+
+    Returns
+    -------
+    tuple of (float, float, bool)
+        Start value of ηp [-], the offset :math:`b \ln r` [-] (0 for dry air) and whether
+        the moist scheme (secant steps in :math:`1/\eta_p`) is used.
+
+    References
+    ----------
+    .. [1] S. L. Dixon, C. A. Hall, *Fluid Mechanics and Thermodynamics of
+       Turbomachinery*, 7th ed., Butterworth-Heinemann, 2014, §2.9 (small-stage efficiency).
     """
     t_mean = 0.5 * (inlet.T + T_target)
     p_mean = math.sqrt(inlet.P * p_out)
@@ -257,8 +285,33 @@ def _first_estimate(model: PropertyModel, inlet: Point, T_target: float, p_out: 
 
 
 def _trial(model: PropertyModel, inlet: Point, p_out: float, eta: float, two_phase_start: bool) -> tuple[list, float]:
-    """A trial path of the search and its end temperature [K]: the path's states after a two-phase
-    start (liquid at the inlet), else its RK4 nodes (states are made for the answer only)."""
+    """A trial path of the efficiency search and its end temperature.
+
+    Parameters
+    ----------
+    model : PropertyModel
+        Property model of the gas.
+    inlet : Point
+        Start of compression.
+    p_out : float
+        Discharge pressure, [Pa].
+    eta : float
+        Trial polytropic efficiency, [-].
+    two_phase_start : bool
+        True when liquid enters the stage (moist air after a separator below 1).
+
+    Returns
+    -------
+    tuple of (list, float)
+        The path's states after a two-phase start (:func:`polytropic_path`), else its RK4
+        nodes (T [K], p [Pa]) (:func:`_path_nodes`; states are made for the answer only),
+        and the end temperature, [K].
+
+    Raises
+    ------
+    PropertyRangeError
+        If the path leaves the property range.
+    """
     if two_phase_start:
         path = polytropic_path(model, inlet, p_out, eta)
         return path, path[-1].T

@@ -103,23 +103,55 @@ def solve_normalised(norm: dict, detail: bool = True, fast: bool = False) -> Tra
     intake's stream model, humidity ratio and states); every train solve of the shaft-power
     iteration reads them from that one context.
     """
-    ctx = solve_context(norm, model_for(norm["fluid"], fast))
     flow = norm["flow"]
+    fixed = _casing_power(norm, flow["value"]) if flow["kind"] == "shaft_power" else 0.0
+    ctx = solve_context(norm, model_for(norm["fluid"], fast))
     if flow["kind"] != "shaft_power":
         # moist intake: FAD refers to the moist air, so the intake's stream model converts it
         m = mass_flow_from(flow["kind"], flow["value"], ctx.intake.model, ctx.site.ambient_temperature_K,
                            ctx.site.pressure_Pa)
         return solve_train(ctx, m, detail)
-    return _solve_for_power(ctx, flow["value"], detail)
+    return _solve_for_power(ctx, flow["value"], fixed, detail)
 
 
-def _solve_for_power(ctx: SolveContext, target_W: float, detail: bool = True) -> TrainResult:
-    """Find the mass flow whose shaft power equals ``target_W`` (secant, bracketed)."""
-    fixed = sum(s["heat_loss_W"] / s["mechanical_efficiency"] for s in ctx.norm["stages"])
+def _casing_power(norm: dict, target_W: float) -> float:
+    r"""Shaft power the casing heat losses take alone, :math:`\sum_i \dot Q_i / \eta_{m,i}` [W].
+
+    Parameters
+    ----------
+    norm : dict
+        Normalised project document (its stages' ``heat_loss_W`` [W] and
+        ``mechanical_efficiency`` [-]).
+    target_W : float
+        Shaft power asked for, [W].
+
+    Returns
+    -------
+    float
+        The casing losses' shaft power, [W].
+
+    Raises
+    ------
+    InputError
+        Naming ``flow.value`` when the power asked for does not exceed it (no air would move).
+
+    Notes
+    -----
+    :math:`\dot W_\mathrm{shaft} = (\dot m\,\Delta h_0 + \dot Q)/\eta_m` per stage
+    (:func:`thermo.stage.solve_stage`), so the shaft power tends to this sum as the flow
+    tends to zero.
+    """
+    fixed = sum(s["heat_loss_W"] / s["mechanical_efficiency"] for s in norm["stages"])
     if target_W <= fixed:
         raise InputError("flow.value", target_W,
                          f"shaft power must exceed {fixed:.6g} W, the casing heat losses alone; "
                          "this power is too small to move any air")
+    return fixed
+
+
+def _solve_for_power(ctx: SolveContext, target_W: float, fixed: float, detail: bool = True) -> TrainResult:
+    """Find the mass flow whose shaft power equals ``target_W`` (secant, bracketed); ``fixed`` is
+    the shaft power of the casing heat losses, [W] (:func:`_casing_power`)."""
     # The trial solves skip the reporting-only work (their shaft power is the same either way);
     # the converged flow is then solved once with ``detail``. Without casing heat loss the
     # power per kilogram does not depend on the flow, so the first estimate is usually the

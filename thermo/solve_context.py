@@ -1,4 +1,4 @@
-"""One solve's context: the resolved site, the property model, the intake state and the caches [1]_.
+"""One solve's context: the resolved site, the property model, the intake state and the caches.
 
 A solve resolves its inputs once, at the boundary, and passes them down:
 :func:`thermo.project.validation.resolve_site` works out the site (barometric pressure,
@@ -219,7 +219,24 @@ def _water_reference(mixture: MoistMixture, T0: float, P0: float, W0: float) -> 
 
 
 def _new_intake_state(model: PropertyModel, site: ResolvedSite) -> IntakeState:
-    """The intake state of :func:`intake_state`, computed (no cache)."""
+    """The intake state of :func:`intake_state`, computed (no cache).
+
+    Parameters
+    ----------
+    model : PropertyModel
+        Dry-air property model.
+    site : ResolvedSite
+        Resolved site.
+
+    Returns
+    -------
+    IntakeState
+
+    Notes
+    -----
+    The equations and sources are those of :func:`intake_state` and
+    :func:`_water_reference`.
+    """
     T0, P0 = site.ambient_temperature_K, site.pressure_Pa
     stream, mixture, W0 = model, None, 0.0
     if site.moist:

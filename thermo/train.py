@@ -127,6 +127,18 @@ def _intake_filter(ctx: SolveContext, mass_flow: float) -> InletResult:
 
     .. math:: \dot S_\mathrm{gen} = \dot m (s_1 - s_0), \qquad \dot X_\mathrm{dest} = T_0 \dot S_\mathrm{gen}
 
+    Parameters
+    ----------
+    ctx : SolveContext
+        The solve's context (its intake state: ambient and filter outlet).
+    mass_flow : float
+        Mass flow of (dry) air, [kg/s].
+
+    Returns
+    -------
+    InletResult
+        Ambient and filter outlet states, entropy generation [W/K], exergy destroyed [W].
+
     References
     ----------
     .. [1] Y. A. Çengel, M. A. Boles, *Thermodynamics: An Engineering Approach*, 8th ed.,
@@ -151,8 +163,36 @@ class _Line:
 
 
 def _run_line(ctx: SolveContext, ratios: list, mass_flow: float, detail: bool) -> _Line:
-    """Solve every stage and its cooler in flow order (:func:`~thermo.stage.solve_stage`,
-    :func:`~thermo.cooler.solve_cooler`); after a separator the stream carries its new water."""
+    """Solve every stage and its cooler in flow order; after a separator the stream carries its new water.
+
+    Parameters
+    ----------
+    ctx : SolveContext
+        The solve's context (stages, intake state, mixture).
+    ratios : list of float
+        Stage pressure ratios, first stage first, [-].
+    mass_flow : float
+        Mass flow of (dry) air, [kg/s].
+    detail : bool
+        As :func:`solve_train`.
+
+    Returns
+    -------
+    _Line
+        Solved stages and coolers, the stream leaving the last of them, the condensate
+        drained and the warnings (a discharge above its limit, water knocked out or carried).
+
+    Raises
+    ------
+    StagewrightError
+        As :func:`thermo.stage.solve_stage`, :func:`thermo.cooler.solve_cooler` and
+        :func:`thermo.moist.stream.check_humid_range`.
+
+    Notes
+    -----
+    The balances are those of :func:`thermo.stage.solve_stage` and
+    :func:`thermo.cooler.solve_cooler`, with their sources.
+    """
     intake, mixture = ctx.intake, ctx.mixture
     specs = ctx.norm["stages"]
     line = _Line(intake.model, intake.after_filter)
@@ -187,8 +227,36 @@ def _run_line(ctx: SolveContext, ratios: list, mass_flow: float, detail: bool) -
 
 
 def _totals(ctx: SolveContext, inlet: InletResult, line: _Line, mass_flow: float, detail: bool) -> TrainResult:
-    """Totals of the train, its reversible isothermal power and the energy and exergy closures
-    (the equations of :func:`solve_train`)."""
+    """Totals of the train, its reversible isothermal power and the energy and exergy closures [1]_.
+
+    Parameters
+    ----------
+    ctx : SolveContext
+        The solve's context (dead state, ambient, mixture, driver efficiency).
+    inlet : InletResult
+        The intake filter's balance.
+    line : _Line
+        The solved stages and coolers (:func:`_run_line`).
+    mass_flow : float
+        Mass flow of (dry) air, [kg/s].
+    detail : bool
+        As :func:`solve_train` (the atmospheric dew point of the delivered air is
+        reporting-only).
+
+    Returns
+    -------
+    TrainResult
+        Without ``recovery`` (added by :func:`solve_train`).
+
+    Notes
+    -----
+    The equations are those of :func:`solve_train`.
+
+    References
+    ----------
+    .. [1] A. Bejan, G. Tsatsaronis, M. Moran, *Thermal Design and Optimization*, Wiley,
+       1996, §3.5 (exergy balance, exergetic efficiency).
+    """
     intake, mixture, model = ctx.intake, ctx.mixture, line.model
     stages, coolers, point, velocity, drains = line.stages, line.coolers, line.point, line.velocity, line.drains
     dead, ambient, T0 = intake.dead, intake.ambient, ctx.site.ambient_temperature_K

@@ -1,4 +1,4 @@
-"""The lines of a solved train's temperature–entropy chart, as plain SI data [1]_ [2]_.
+"""The lines of a solved train's temperature–entropy chart, as plain SI data.
 
 A chart only draws what these functions return: the process path of every stage and
 cooler in flow order (:func:`path_segments`) and the isobars through the stage-1 inlet and
