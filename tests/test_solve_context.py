@@ -70,3 +70,15 @@ def test_caches_are_per_thread():
 def test_a_humidity_above_saturation_names_the_field():
     with pytest.raises(InputError, match=r"site\.humidity_ratio"):
         solve_context(_norm(humidity_ratio=0.19), make_model({"model": "ideal_gas"}))
+
+
+@pytest.mark.parametrize("model", ["real_gas", "ideal_gas", "constant_cp"])
+@pytest.mark.parametrize("rh", [0.0, 0.7])
+def test_free_air_delivery_from_the_contexts_ambient_equals_a_fresh_property_call(model, rh):
+    # consistency: the solve converts FAD with the intake state it already has (no property call)
+    from thermo.flow import mass_flow_from
+    ctx = solve_context(_norm(relative_humidity=rh), make_model({"model": model}))
+    T0, P0 = ctx.site.ambient_temperature_K, ctx.site.pressure_Pa
+    for kind in ("free_air_delivery", "normal_volume", "mass"):
+        assert (mass_flow_from(kind, 0.5, ctx.intake.model, T0, P0, ambient=ctx.intake.ambient)
+                == mass_flow_from(kind, 0.5, ctx.intake.model, T0, P0))

@@ -109,7 +109,7 @@ def solve_normalised(norm: dict, detail: bool = True, fast: bool = False) -> Tra
     if flow["kind"] != "shaft_power":
         # moist intake: FAD refers to the moist air, so the intake's stream model converts it
         m = mass_flow_from(flow["kind"], flow["value"], ctx.intake.model, ctx.site.ambient_temperature_K,
-                           ctx.site.pressure_Pa)
+                           ctx.site.pressure_Pa, ambient=ctx.intake.ambient)
         return solve_train(ctx, m, detail)
     return _solve_for_power(ctx, flow["value"], fixed, detail)
 
