@@ -66,16 +66,13 @@ def barometric_pressure(site: Any) -> float:
         pressure at ``elevation_m`` (:func:`thermo.atmosphere.standard_pressure`); else the
         standard sea-level pressure, 101 325 Pa, [Pa].
 
-    Raises
-    ------
-    Nothing
-        An entry that is not a usable number, or an elevation outside the standard
-        atmosphere, is passed over: :func:`problems` reports it, naming the field, the value
-        and the valid range. This lets the window show gauge pressures while a document is
-        being edited; for a normalised document every entry is usable.
-
     Notes
     -----
+    Never raises: an entry that is not a usable number, or an elevation outside the
+    standard atmosphere, is passed over, and :func:`problems` reports it, naming the field,
+    the value and the valid range. This lets the window show gauge pressures while a
+    document is being edited; for a normalised document every entry is usable.
+
     The one place where the site pressure is worked out: the validation's own checks, the
     solver (through :func:`resolve_site`) and the window's gauge display all call it. A
     document gives at most one of the two entries (:func:`problems` refuses both); the
