@@ -333,6 +333,7 @@ def test_remembered_intake_states_follow_every_site_input():
     # of a fresh model each time — a memo keyed too loosely would hand one site's water to another
     from thermo.project.validation import normalise
     from thermo.models import make_model
+    from thermo.solve_context import solve_context
     from thermo.train import solve_train
 
     def doc(site_humidity):
@@ -346,8 +347,8 @@ def test_remembered_intake_states_follow_every_site_input():
     shared = make_model({"model": "real_gas"})
     for humidity in cases:
         norm = normalise(doc(humidity))
-        a = solve_train(norm, shared, 1.0, detail=False)
-        b = solve_train(norm, make_model({"model": "real_gas"}), 1.0, detail=False)
+        a = solve_train(solve_context(norm, shared), 1.0, detail=False)
+        b = solve_train(solve_context(norm, make_model({"model": "real_gas"})), 1.0, detail=False)
         assert a.shaft_power_W == b.shaft_power_W, humidity
         assert a.inlet.outlet == b.inlet.outlet and a.dead == b.dead, humidity
         assert (a.water is None) == (b.water is None)

@@ -8,7 +8,7 @@ the per-point humidity figures of the results.
 """
 from __future__ import annotations
 
-__all__ = ["MoistAir", "intake_humidity_ratio", "humidity_of", "is_moist", "check_humid_range"]
+__all__ = ["MoistAir", "intake_humidity_ratio", "humidity_of", "check_humid_range"]
 
 import math
 
@@ -250,12 +250,6 @@ class MoistAir:
 
 
 # ---- site humidity ---------------------------------------------------------------------------
-def is_moist(site: dict) -> bool:
-    """True when the site section asks for water in the intake air."""
-    return bool(site.get("relative_humidity")) or site.get("dew_point_K") is not None or bool(
-        site.get("humidity_ratio"))
-
-
 def intake_humidity_ratio(site: dict, mixture: MoistMixture, T0: float, P0: float) -> float:
     r"""Humidity ratio of the intake air from the site's humidity input, [kg/kg] [1]_.
 
@@ -267,8 +261,9 @@ def intake_humidity_ratio(site: dict, mixture: MoistMixture, T0: float, P0: floa
     Parameters
     ----------
     site : dict
-        Normalised ``site`` section: ``dew_point_K``, ``humidity_ratio`` or
-        ``relative_humidity`` (checked in that order; the document allows only one).
+        The humidity input: ``dew_point_K``, ``humidity_ratio`` or ``relative_humidity``
+        (checked in that order; the document allows only one), e.g.
+        :meth:`thermo.project.validation.ResolvedSite.humidity_input`.
     mixture : MoistMixture
         Moist-air formulation of the project's model.
     T0, P0 : float
