@@ -50,18 +50,12 @@ class StudyPanel(QWidget):
     messages_changed(source, messages)
         ``("study", [Message, ...])`` whenever the study's messages change (the window hands
         them to the messages area).
-    shown_changed()
-        The options shown changed (a new answer, another case, other units).
-    stale_changed(stale)
-        The project changed so that the study no longer describes it, or back.
     run_started(max_stages)
         A study started, comparing 1 to ``max_stages`` stages.
     """
 
     title = "Staging study"
     messages_changed = Signal(str, object)
-    shown_changed = Signal()  #: the rows shown (and so the chart) changed
-    stale_changed = Signal(bool)  #: the study stopped (True) or started again (False) to fit the project
     run_started = Signal(int)  #: a study started, comparing 1 to this many stages
 
     def __init__(self, editor, parent=None):
@@ -75,7 +69,6 @@ class StudyPanel(QWidget):
         self._pending: tuple | None = None  # (doc, key, variable, values) of the running job
         self.messages: list[Message] = []
         self._failure: tuple | None = None  # (message, study key) of a study that could not run
-        self._was_stale = False
         self._build()
         c = self.controller
         c.progress.connect(self._on_progress)
@@ -327,7 +320,6 @@ class StudyPanel(QWidget):
             self._set_status(f"{self.case.currentText()}: not solved: {case['error']}")
         self.chart.show_rows(self.rows, system, self._limit_K() if self.rows else None)
         self._update_state()
-        self.shown_changed.emit()
 
     def _limit_K(self) -> float | None:
         """The first stage's discharge-temperature limit in the document the study ran on [K]."""
@@ -385,9 +377,6 @@ class StudyPanel(QWidget):
             act.setToolTip(why)
             act.setStatusTip(why)
         self.controls.set_inputs_enabled(not busy)
-        if stale != self._was_stale:
-            self._was_stale = stale
-            self.stale_changed.emit(stale)
         self.banner.setVisible(stale)
         self.table.set_stale(stale)
         self._publish(self._messages())
