@@ -226,7 +226,7 @@ class StudyPanel(QWidget):
             return
         self._pending = (doc, study_key(doc), req.variable, req.values)
         self._failure = None
-        self.controls.set_progress(0.0)
+        self.controls.set_progress(None)  # busy until the study reports its first option
         self.controller.run(req)
         what = (f"{len(req.values)} value(s) of {VARIABLES[req.variable][0].lower()}, " if req.variable else "")
         self._set_status(f"Running: {what}1 to {req.max_stages} stages…")
@@ -266,20 +266,24 @@ class StudyPanel(QWidget):
 
     def _on_progress(self, job: int, fraction: float, message: str) -> None:
         self.controls.set_progress(fraction)
-        if self._pending and self._pending[2] and fraction < 1.0:
+        if fraction >= 1.0:  # every option optimised; the answer is not in yet
+            self._set_status("Every option optimised: putting the table together…")
+            return
+        if self._pending and self._pending[2]:
             values = self._pending[3]
             k = min(int(fraction * len(values)), len(values) - 1)
             message = f"{case_label(self._pending[2], values[k], self.editor.prefs.system)}: " \
                       f"{message.rsplit(': ', 1)[-1]}"
-        self._set_status(message[:1].upper() + message[1:] + "…" if fraction < 1.0 else message)
+        self._set_status(message[:1].upper() + message[1:] + "…")
 
     def _on_finished(self, job: int, answer: dict, seconds: float) -> None:
-        self.controls.set_progress(1.0)
+        self.controls.set_progress(1.0, finished=True)
         self._accept(answer)
         n = sum(len(c["rows"]) for c in answer["cases"])
         self._set_status(f"Compared {n} option(s) in {seconds:.1f} s." + self._best_text())
 
     def _on_cancelled(self, job: int, answer: dict, message: str) -> None:
+        self.controls.set_progress(self.controls.fraction)  # what was done (never a busy bar)
         self._accept(answer)
         self._set_status(f"Cancelled: {message[:1].upper() + message[1:]}." if answer["cases"]
                          else "Cancelled before the first option was finished.")
