@@ -312,27 +312,34 @@ def test_problem_and_failure_messages_select_their_fields(qtbot, tmp_path):
     win.close()
 
 
-def test_staging_study_runs_off_the_gui_thread_and_fills_its_tab(qtbot, tmp_path, doc_factory):
+def test_staging_study_runs_off_the_gui_thread_and_is_shown_once_in_its_panel(qtbot, tmp_path, doc_factory):
     # perfect gas, equal stages, intercooling back to the intake temperature, no drops: the
     # optimum split is the equal one and an N-stage train needs
     # N * m cp T1 (r^((k-1)/k) - 1) / eta_s with r = 9^(1/N)
     # (Çengel & Boles, Thermodynamics, 8th ed., §7-11, multistage compression with intercooling)
     win = make_window(qtbot, tmp_path, doc_factory())
+    charts, panel = win.panels["charts"], win.panels["study"]
+    qtbot.waitUntil(lambda: charts.ts is not None, timeout=10_000)
+    win.docks["balance"].raise_()  # the study panel behind another one …
+    qtbot.waitUntil(lambda: panel.visibleRegion().isEmpty(), timeout=5_000)
     win.action_map["train.study"].trigger()
-    tab = win.panels["charts"].study
-    qtbot.waitUntil(lambda: bool(tab.rows), timeout=60_000)
-    assert win.panels["charts"].tabs.currentWidget() is tab
-    by_n = {r["stages"]: r for r in tab.rows}
+    qtbot.waitUntil(lambda: bool(panel.rows) and not panel.busy, timeout=60_000)
+    qtbot.waitUntil(lambda: not panel.visibleRegion().isEmpty(), timeout=5_000)  # … comes to the front
+    # the study is shown once, in its panel: the charts area keeps its own charts only
+    assert [charts.tabs.tabText(i) for i in range(charts.tabs.count())] == ["T–s path", "Power split"]
+    by_n = {r["stages"]: r for r in panel.rows}
     assert sorted(by_n) == [1, 2, 3, 4]
     for n in (1, 2, 3):
         r = 9.0 ** (1.0 / n)
         expected_W = n * 1.0 * 1005.0 * 293.15 * (r ** (0.4 / 1.4) - 1.0) / 0.8
         assert by_n[n]["driver_power_W"] == pytest.approx(expected_W, rel=1e-4)
-        assert shown_number(tab.table.item(n - 1, 2).text()) == pytest.approx(expected_W / 1000.0, abs=0.01)
+        assert shown_number(panel.table.cell_text(n - 1, "power")) == pytest.approx(expected_W / 1000.0, abs=0.01)
     from matplotlib.lines import Line2D
-    assert any(a.get_gid() == "staging-power" for a in tab.figure.findobj(Line2D))
+    assert any(a.get_gid() == "staging-power" for a in panel.chart.figure.findobj(Line2D))
+    n = win.editor.solved_jobs
     win.editor.set_value("stages[0].efficiency.value", 0.75)
-    assert tab.stale.isVisibleTo(tab)
+    wait_solved(qtbot, win, n)
+    assert panel.banner.isVisibleTo(panel)  # the panel says its study is out of date
     win.close()
 
 

@@ -98,7 +98,7 @@ class MainWindow(QMainWindow):
         self.panels["train"].set_actions(self.action_map)
         self.panels["study"].set_actions(self.action_map)
         self.panels["study"].messages_changed.connect(self.panels["messages"].set_source_messages)
-        self.study = StudyLink(self.panels["study"], self.charts, self.editor, self.statusBar(), self)
+        self.study = StudyLink(self.panels["study"], self.statusBar(), self)
         self.panels["messages"].count_changed.connect(self._on_message_count)
         self._build_menus()
         self._build_status()
