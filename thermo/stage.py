@@ -6,7 +6,8 @@ __all__ = ["StageResult", "solve_stage"]
 import math
 from dataclasses import dataclass
 
-from thermo.errors import InputError, PropertyRangeError, SecondLawViolation, StagewrightError
+from thermo.errors import (InputError, PropertyRangeError, SecondLawViolation, StagewrightError, message_detail,
+                           quantity)
 from thermo.exergy import DeadState, heat_exergy
 from thermo.models.base import Point, PropertyModel
 from thermo.polytropic import polytropic_efficiency_between, polytropic_path
@@ -167,7 +168,9 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
                 "energy; lower the efficiency or the exit velocity") if v_out > 0.0 else ""
         raise SecondLawViolation(
             f"{where}: the given data need negative entropy generation ({s_gen:.4g} W/K): "
-            f"a second-law violation{hint}", where)
+            f"a second-law violation{hint}", where,
+            message_detail("Stage {n}: the given data need negative entropy generation ({s_gen}): a second-law "
+                           "violation" + hint, {"n": index + 1, "s_gen": quantity(s_gen, "entropy_rate")}))
     n = math.log(p_out / start.P) / math.log(end.rho / start.rho)
     return StageResult(
         index=index, inlet=inlet, inlet_velocity_m_s=inlet_velocity, outlet=outlet,
@@ -241,7 +244,12 @@ def _adiabatic_work(model: PropertyModel, spec: dict, where: str, start: Point, 
                 f"{where}.efficiency.value_K: a discharge temperature of {eff['value_K']:.2f} K "
                 f"would need an isentropic efficiency above 1 (minimum adiabatic discharge "
                 f"{iso.T:.2f} K with the given casing heat loss): a second-law violation — check "
-                f"the measured temperatures and pressures", f"{where}.efficiency.value_K")
+                f"the measured temperatures and pressures", f"{where}.efficiency.value_K",
+                message_detail("{label} {value} would need an isentropic efficiency above 1 (the coolest "
+                               "adiabatic discharge is {t_min} with the given casing heat loss): a second-law "
+                               "violation — check the measured temperatures and pressures",
+                               {"value": quantity(eff["value_K"], "temperature"),
+                                "t_min": quantity(iso.T, "temperature")}))
         eta_p, path = _adiabatic_path(model, start, start.h + dh, p_out, dh_s / dh, detail, where, eff["value_K"])
     return dh, eta_p, path
 
@@ -324,9 +332,17 @@ def _check_heat_loss(where: str, q_loss: float, t_b: float, path: list[Point], o
         raise SecondLawViolation(
             f"{where}.heat_loss_boundary_temperature_K: casing heat cannot leave at {t_b:.2f} K "
             f"when the gas is never hotter than {max(p.T for p in path):.2f} K "
-            "(a second-law violation)", f"{where}.heat_loss_boundary_temperature_K")
+            "(a second-law violation)", f"{where}.heat_loss_boundary_temperature_K",
+            message_detail("{label} {t_b}: casing heat cannot leave at this temperature when the gas is never "
+                           "hotter than {t_max} (a second-law violation)",
+                           {"t_b": quantity(t_b, "temperature"), "t_max": quantity(max(p.T for p in path),
+                                                                                   "temperature")}))
     if q_loss > 0.0 and outlet.T < t_b:
         raise SecondLawViolation(
             f"{where}.heat_loss_W: a casing heat loss of {q_loss:.6g} W would cool the gas to "
             f"{outlet.T:.2f} K, below the {t_b:.2f} K boundary it leaves at (a second-law "
-            "violation); lower the heat loss or raise the flow", f"{where}.heat_loss_W")
+            "violation); lower the heat loss or raise the flow", f"{where}.heat_loss_W",
+            message_detail("{label} {q} would cool the gas to {t_out}, below the {t_b} boundary it leaves at "
+                           "(a second-law violation): lower the heat loss or raise the flow",
+                           {"q": quantity(q_loss, "heat_flow"), "t_out": quantity(outlet.T, "temperature"),
+                            "t_b": quantity(t_b, "temperature")}))

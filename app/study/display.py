@@ -15,6 +15,7 @@ from dataclasses import dataclass
 
 from app.presentation import units
 from app.presentation.cautions import CAUTIONS
+from app.presentation.messages import limit_sentence
 from app.study.apply import project_field
 
 _CAUTION = dict(CAUTIONS)
@@ -104,7 +105,7 @@ def tooltip(row: dict, key: str, system: str) -> str:
         return (f"{row['saving_kWh_per_year']:,.0f} kWh per year at {row['operating_hours_per_year']:g} h per year "
                 f"and {row['energy_price_per_kWh']:g} per kWh").replace(",", " ")
     if key in ("limits", "feasible") and row.get("binding_limits"):
-        return "\n".join(b.get("message", "") for b in row["binding_limits"])
+        return "\n".join(_message(b, row["stages"], system, {}) for b in row["binding_limits"])
     if key == "temperatures" and row.get("max_discharge_temperature_K") is not None:
         return f"Highest: {f(row['max_discharge_temperature_K'], 'temperature', system, True)}"
     return ""
@@ -181,8 +182,10 @@ def _message(b: dict, n: int, system: str, pkw: dict) -> str:
                     f"delivers at most {p(need)}; add stages.")
         return (f"{opt} overshoots the discharge pressure of {p(lim)}: even at its smallest stage ratios it "
                 f"delivers at least {p(need)}; use fewer stages.")
-    text = b.get("message", "") or "limits not met"
-    return f"{opt}: {text[:1].upper() + text[1:]}."
+    if b.get("detail") or b.get("message"):
+        text = limit_sentence(b, None, system, **pkw)
+        return f"{opt}: {text[:1].upper() + text[1:]}"
+    return f"{opt}: limits not met."
 
 
 def limit_messages(rows: list[dict], project_stages: int, system: str = "SI", *, gauge: bool = False,

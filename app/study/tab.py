@@ -9,7 +9,8 @@ from PySide6.QtWidgets import (QAbstractItemView, QHeaderView, QLabel, QSplitter
                                QTableWidgetItem, QVBoxLayout, QWidget)
 
 from app.presentation import units
-from app.document.field_specs import describe
+from app.presentation.messages import limit_short
+from app.study.display import tooltip as display_tooltip
 
 #: (row key, header, quantity or None)
 STUDY_COLUMNS = [
@@ -113,14 +114,14 @@ class StudyTab(QWidget):
                 if key == "feasible":
                     text = "yes" if v else "no"
                 elif key == "binding_limits":
-                    text = "; ".join(self._limit_text(x, doc) for x in (v or []))
+                    text = "; ".join(self._limit_text(x, doc, system) for x in (v or []))
                 elif q is None:
                     text = "—" if v is None else str(v)
                 else:
                     text = units.format_value(v, q, system, with_unit=False)
                 item = QTableWidgetItem(text)
                 if key == "binding_limits" and v:
-                    item.setToolTip("\n".join(x.get("message", "") for x in v if isinstance(x, dict)))
+                    item.setToolTip(display_tooltip(row, "limits", system))
                 item.setTextAlignment((Qt.AlignLeft if key == "binding_limits" else Qt.AlignRight) | Qt.AlignVCenter)
                 self.table.setItem(r, c, item)
         want = self.table.horizontalHeader().height() + 20 * len(rows) + 2 * self.table.frameWidth() + 4
@@ -130,11 +131,10 @@ class StudyTab(QWidget):
         self.splitter.setSizes([total - table_h, table_h])
 
     @staticmethod
-    def _limit_text(limit, doc) -> str:
+    def _limit_text(limit, doc, system: str = "SI") -> str:
         if not isinstance(limit, dict):
             return str(limit)
-        name = describe(limit.get("field", ""), doc or {}) if limit.get("field") else "limit"
-        return f"{name}: {limit.get('status', '')}".rstrip(": ")
+        return limit_short(limit, doc, system)
 
     def redraw(self, system: str) -> None:
         if self._last is not None:
