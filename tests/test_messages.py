@@ -129,3 +129,19 @@ def test_values_as_typed_keep_their_decimals_and_others_get_four_figures():
     assert format_quantity(619.1859900091036, "temperature") == "346 °C"
     assert format_quantity(12.7 / 3600.0, "water_flow") == "12.7 kg/h"
     assert format_quantity(5e6, "absolute_pressure", "US") == "725.2 psia"
+
+
+def test_a_discharge_pressure_below_the_intake_names_the_rule_not_the_schema_range():
+    # it used to read "-7.44 psig is out of range (allowed: -7.44406 to 7237.19 psig)"
+    from thermo.project.validation import problems
+    from app.presentation.messages import problem_text
+    doc = _demo_one_stage()
+    doc["discharge_pressure_Pa"] = 5e4
+    [p] = problems(doc)
+    # ISO 2533 standard atmosphere at 120 m (the constants 2.25577e-5 /m and 5.25588 from memory)
+    # less the 1.5 kPa filter drop
+    p1 = p.detail["values"]["p1"]["value"]
+    assert p1 == pytest.approx(101_325.0 * (1 - 2.25577e-5 * 120.0) ** 5.25588 - 1500.0, rel=1e-4)
+    text = problem_text(p, doc, "US", gauge=True, barometric_Pa=99_900.0)
+    assert text == (f"Discharge pressure {(5e4 - 99_900.0) / 6894.757293168:.4g} psig must be above the stage 1 "
+                    f"inlet pressure {(p1 - 99_900.0) / 6894.757293168:.4g} psig.")

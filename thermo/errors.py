@@ -15,7 +15,7 @@ from __future__ import annotations
 __all__ = ["StagewrightError", "InputError", "SecondLawViolation", "PropertyRangeError",
            "Problem", "ProjectFileError", "SaveError", "quantity", "message_detail"]
 
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 from typing import Any
 
 
@@ -39,11 +39,13 @@ def message_detail(template: str, values: dict | None = None) -> dict:
 
 @dataclass(frozen=True)
 class Problem:
-    """One thing wrong with an input: where, what was found, what is allowed."""
+    """One thing wrong with an input: where, what was found, what is allowed (SI), and
+    optionally the same as a template with values for display units (:func:`message_detail`)."""
 
     field: str
     value: Any
     expected: str
+    detail: dict | None = field(default=None, compare=False, hash=False)
 
     def __str__(self) -> str:
         return f"{self.field}: {self.value!r} — {self.expected}"
@@ -71,13 +73,13 @@ class InputError(StagewrightError):
     """An input value is missing, of the wrong type or outside its valid range."""
 
     def __init__(self, field: str, value: Any, expected: str, detail: dict | None = None):
-        self.problem = Problem(field, value, expected)
+        self.problem = Problem(field, value, expected, detail)
         super().__init__(str(self.problem), field, detail)
 
     @classmethod
     def from_problems(cls, problems: list[Problem]) -> "InputError":
         first = problems[0]
-        err = cls(first.field, first.value, first.expected)
+        err = cls(first.field, first.value, first.expected, first.detail)
         err.problems = list(problems)
         if len(problems) > 1:
             err.args = (f"{first} (and {len(problems) - 1} more problem(s))",)

@@ -11,8 +11,8 @@ from PySide6.QtGui import QColor, QIcon, QPainter, QPixmap
 from PySide6.QtWidgets import QLabel, QListWidget, QListWidgetItem, QVBoxLayout, QWidget
 
 from app.presentation.cautions import CAUTIONS
-from app.presentation.messages import error_text, warning_text
-from app.document.field_specs import describe, problem_message
+from app.presentation.messages import error_text, problem_text, warning_text
+from app.document.field_specs import describe
 
 _CAUTION = dict(CAUTIONS)
 _SEVERITY_COLOUR = {"problem": "#c0392b", "warning": "#d98e04", "caution": "#7b5ea7", "ok": "#2e8b57",
@@ -75,7 +75,8 @@ class MessagesPanel(QWidget):
         doc = ed.model.doc
         system, gauge, p0 = ed.prefs.system, ed.prefs.gauge, ed.barometric_Pa()
         out = [Message("problem", f"{describe(path, doc)}: {text}", path) for path, text in ed.entry_errors.items()]
-        out += [Message("problem", problem_message(p, doc, system, p0, gauge), p.field) for p in ed.problems]
+        out += [Message("problem", problem_text(p, doc, system, gauge=gauge, barometric_Pa=p0), p.field)
+                for p in ed.problems]
         if ed.failure is not None and not (ed.problems or ed.entry_errors):
             message, field = ed.failure
             text = error_text(message, field, getattr(ed, "failure_detail", None), doc, system, gauge=gauge,

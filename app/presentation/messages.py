@@ -9,14 +9,14 @@ status line, the staging study and the reports all read it.
 """
 from __future__ import annotations
 
-__all__ = ["format_quantity", "render", "place", "warning_text", "error_text", "limit_short",
+__all__ = ["format_quantity", "render", "place", "problem_text", "warning_text", "error_text", "limit_short",
            "limit_sentence"]
 
 import math
 import re
 import string
 
-from app.document.field_specs import describe
+from app.document.field_specs import describe, problem_message
 from app.presentation import units
 
 _STAGE_PLACE = re.compile(r"^stages\[(\d+)\](?![.\[])\s*(.*)$")
@@ -109,6 +109,17 @@ def render(detail: dict, field: str = "", doc: dict | None = None, system: str =
 class _Missing(dict):
     def __missing__(self, key):  # an unknown placeholder stays visible rather than failing
         return "{" + key + "}"
+
+
+def problem_text(problem, doc: dict | None = None, system: str = "SI", *, gauge: bool = False,
+                 barometric_Pa: float = 101_325.0) -> str:
+    """An input problem (:class:`thermo.errors.Problem`) for people: its template where it has
+    one (a rule between fields), else the schema range in display units
+    (:func:`app.document.field_specs.problem_message`)."""
+    detail = getattr(problem, "detail", None)
+    if detail:
+        return render(detail, problem.field, doc, system, gauge=gauge, barometric_Pa=barometric_Pa)
+    return problem_message(problem, doc or {}, system, barometric_Pa, gauge)
 
 
 def warning_text(w: dict, doc: dict | None = None, system: str = "SI", *, gauge: bool = False,

@@ -21,6 +21,7 @@ from thermo.study import DEFAULT_ENERGY_PRICE, DEFAULT_OPERATING_HOURS, MAX_STAG
 from thermo.study.options import staging_note
 
 from app.presentation import units
+from app.presentation.messages import error_text
 from app.study.apply import apply_text, option_stages, study_key
 from app.study.display import (COLUMNS, VARIABLES, case_label, cells, format_values, header, limit_messages,
                              parse_values, tooltip)
@@ -432,6 +433,9 @@ class StudyPanel(QWidget):
         self._pending = None
         self.answer, self._doc, self._key = None, None, ""
         self.progress.setValue(0)
+        ed = self.editor
+        message = error_text(message, field, self.controller.failure_detail, ed.model.doc, ed.prefs.system,
+                             gauge=ed.prefs.gauge, barometric_Pa=ed.barometric_Pa())
         field = "" if field in _STUDY_INPUTS else field
         self._failure = (Message("problem", f"The staging study could not run: {message}", field),
                          key)

@@ -9,6 +9,7 @@ from PySide6.QtWidgets import (QHBoxLayout, QLabel, QProgressBar, QPushButton, Q
                                QTableWidgetItem, QTabWidget, QVBoxLayout, QWidget)
 
 from app.presentation import units
+from app.presentation.messages import error_text
 from app.year.worker import YearRunner
 from app.year.editor import YearEditor
 
@@ -114,8 +115,10 @@ class YearPanel(QWidget):
         self.tabs.setCurrentIndex(1)  # shown before drawing: the chart lays out at its real size
         self.refresh()
 
-    def _on_failed(self, _job: int, message: str, _field: str) -> None:
-        self._idle(message)
+    def _on_failed(self, _job: int, message: str, field: str) -> None:
+        ed = self.editor
+        self._idle(error_text(message, field, self.runner.failure_detail, ed.model.doc, ed.prefs.system,
+                              gauge=ed.prefs.gauge, barometric_Pa=ed.barometric_Pa()))
 
     def _idle(self, text: str) -> None:
         self.run_button.setEnabled(self.has_profile())
