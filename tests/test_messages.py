@@ -87,7 +87,8 @@ def test_an_unreachable_discharge_pressure_is_shown_in_psig():
     e = info.value
     text = error_text(str(e), e.field, e.detail, doc, "US", gauge=True, barometric_Pa=101_325.0)
     psig = (5e6 - 101_325.0) / 6894.757293168
-    assert text == f"Discharge pressure {psig:.4g} psig cannot be reached with stage pressure ratios up to 40: add stages."
+    assert text == (f"Discharge pressure {psig:.4g} psig cannot be reached with stage pressure ratios up to 40: "
+                    "add stages.")
 
 
 def test_a_property_range_error_names_the_place_in_words():
@@ -95,7 +96,8 @@ def test_a_property_range_error_names_the_place_in_words():
         check_range(1400.0, 5e5, "stages[1] discharge")
     e = info.value
     text = error_text(str(e), e.field, e.detail, {}, "US")
-    assert text == "Stage 2 discharge: temperature 2060.33 °F is outside the range of the property models, -99.67 °F … 1880.33 °F."
+    assert text == ("Stage 2 discharge: temperature 2060.33 °F is outside the range of the property models, "
+                    "-99.67 °F … 1880.33 °F.")
 
 
 def test_without_a_template_the_leading_key_path_becomes_the_field_name():

@@ -210,12 +210,7 @@ def _run_line(ctx: SolveContext, ratios: list, mass_flow: float, detail: bool) -
         line.stages.append(st)
         limit = spec.get("max_discharge_temperature_K")
         if limit is not None and st.outlet.T > limit:
-            line.warnings.append(Warning_(f"stages[{i}].max_discharge_temperature_K",
-                                          f"stage {i + 1} discharge {st.outlet.T:.1f} K exceeds its limit "
-                                          f"{limit:.1f} K",
-                                          message_detail("Stage {n} discharge temperature {t} is above its {limit} "
-                                                         "limit", {"n": i + 1, "t": quantity(st.outlet.T, "temperature"),
-                                                                   "limit": quantity(limit, "temperature")})))
+            line.warnings.append(_limit_warning(i, st.outlet.T, limit))
         line.point, line.velocity = st.outlet, st.exit_velocity_m_s
         if spec["cooler"] is None:
             line.coolers.append(None)
@@ -327,6 +322,15 @@ def _water_result(mixture, dry_model, mass_flow, W0, delivered, P0, drains, x_dr
         delivered_liquid_kg_m3=liquid_conc, iso8573_humidity_class=humidity_class(pdp, liquid_conc),
         condensate_exergy_W=x_drained,
         water_balance_residual=(mass_flow * W0 - delivered_water - drained) / (mass_flow * W0))
+
+
+def _limit_warning(i: int, t_out: float, limit: float) -> Warning_:
+    """A stage discharging above its temperature limit: the value and the limit (a hazard)."""
+    return Warning_(f"stages[{i}].max_discharge_temperature_K",
+                    f"stage {i + 1} discharge {t_out:.1f} K exceeds its limit {limit:.1f} K",
+                    message_detail("Stage {n} discharge temperature {t} is above its {limit} limit",
+                                   {"n": i + 1, "t": quantity(t_out, "temperature"),
+                                    "limit": quantity(limit, "temperature")}))
 
 
 def _water_notes(i: int, n: int, water, mass_flow: float) -> list:

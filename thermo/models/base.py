@@ -30,7 +30,8 @@ def check_range(temperature: float, pressure: float, where: str) -> None:
             f"{P_MIN:g} Pa … {P_MAX:g} Pa", where,
             message_detail("{where}: pressure {value} is outside the range of the property models, "
                            "{lo} … {hi}", {"where": where, "value": quantity(pressure, "absolute_pressure"),
-                                            "lo": quantity(P_MIN, "absolute_pressure"), "hi": quantity(P_MAX, "absolute_pressure")}))
+                                            "lo": quantity(P_MIN, "absolute_pressure"),
+                                            "hi": quantity(P_MAX, "absolute_pressure")}))
 
 
 @dataclass(frozen=True)
