@@ -96,7 +96,7 @@ def test_message_click_selects_the_offending_field(qtbot, window):
     assert drains == ["stages[0].cooler.separator_efficiency", "stages[1].cooler.separator_efficiency"]
     warnings = [m for m in warnings if not m.field.endswith("separator_efficiency")]
     assert [m.field for m in warnings] == ["stages[1].max_discharge_temperature_K"]
-    assert "above its limit of 126.85 °C" in warnings[0].text
+    assert "is above its 126.85 °C limit" in warnings[0].text and "K " not in warnings[0].text
     assert any(m.severity == "caution" for m in msgs.messages)  # the discharge-temperature caution
     train.select("cooler", 0)
     item = msgs.list.item(msgs.messages.index(warnings[0]))

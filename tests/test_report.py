@@ -18,6 +18,8 @@ import pytest
 
 from app.presentation import units
 from app.presentation.cautions import CAUTIONS, DEFERRAL
+from app.document.messages import limit_sentence, warning_text
+from app.document.field_specs import describe
 from app.cli.main import main
 from app.cli.progress import Progress
 from app.report import csv_rows, export_report
@@ -198,9 +200,11 @@ def test_warnings_and_staging_rows_are_printed(tmp_path):
     n = export_report(doc, result, pdf, system="SI", source_name="warned.json", study_rows=rows, date="2024-05-06")
     text, pages = _pdf_text(pdf)
     assert len(pages) == n
-    for w in result.warnings:
-        assert w.message in text and w.field in text
-    assert "Staging comparison" in text and "discharge above its limit" in text
+    for w in result.to_dict()["warnings"]:  # display units and the field's name (issue 14 item 7)
+        assert _flat(warning_text(w, doc, "SI")) in _flat(text)
+        assert _flat(describe(w["field"], doc)) in _flat(text)
+        assert w["message"] not in text and w["field"] not in text  # no kelvin, no key path
+    assert "Staging comparison" in text and "discharge above its limit" in text.lower()
     assert re.search(r"^1 9\.000 300\.00 326\.85 no$", text, re.M)  # 300 kW, 600 K = 326.85 °C, infeasible
     assert "3.000 × 3.000" in text and text.count("Each option repeats stage 1.") == 1
     assert "Date 2024-05-06" in text
@@ -306,4 +310,4 @@ def test_report_with_the_staging_study(tmp_path):
         m = re.search(rf"^{r['stages']} [\d. ×]+? ([\d ]+\.\d\d) ", text, re.M)
         assert m and abs(float(m.group(1).replace(" ", "")) - r["driver_power_W"] / 1e3) <= 0.005
     for b in rows[0]["binding_limits"]:
-        assert _flat(b["message"]) in _flat(text)
+        assert _flat(limit_sentence(b, None, "SI")) in _flat(text)

@@ -34,13 +34,36 @@ def test_path_points_are_the_solvers_states(real_gas):
     assert cooler[0][0] == st["outlet"]["temperature_K"] and cooler[-1][0] == st["cooler"]["outlet"]["temperature_K"]
 
 
-def test_static_discharge_follows_the_adiabatic_end_with_a_casing_loss():
+def test_a_stage_with_casing_heat_loss_is_drawn_from_intake_to_its_real_discharge():
+    # issue 14 item 5: the path was the uncooled compression (hotter than the discharge) and a
+    # constant-pressure step down to it. Now it joins the actual end states, and on a perfect
+    # gas the polytropic path between them is T = T1 (p/p1)^m, m = ln(T2/T1)/ln(p2/p1)
+    # (Çengel & Boles, *Thermodynamics*, 8th ed., 2015, §7-12, polytropic process pv^n = C).
     doc = make_doc(model="constant_cp", stages=1, p_out=4e5)
     doc["stages"][0]["heat_loss_W"] = 5000.0
     r = solve(doc).to_dict()
+    st = r["stages"][0]
     pts = path_segments(r)[0].points
-    assert len(pts) == len(r["stages"][0]["path"]) + 1
-    assert pts[-1] == (r["stages"][0]["outlet"]["temperature_K"], 4e5, r["stages"][0]["outlet"]["entropy_J_kgK"])
+    t_in, t_out = st["inlet"]["temperature_K"], st["outlet"]["temperature_K"]
+    assert max(t for t, _, _ in pts) <= max(t_in, t_out) + 1e-6
+    assert pts[-1] == (t_out, 4e5, st["outlet"]["entropy_J_kgK"])
+    assert len(pts) == len(st["path"]) > 2
+    m = math.log(t_out / t_in) / math.log(4e5 / st["inlet"]["pressure_Pa"])
+    for t, p, _ in pts:
+        assert t == pytest.approx(t_in * (p / st["inlet"]["pressure_Pa"]) ** m, rel=1e-6)
+
+
+def test_the_demo_with_one_stage_is_drawn_no_hotter_than_its_discharge():
+    # moist real gas, casing loss 1.5 kW: the path ends at the discharge, nowhere hotter
+    import json
+    from tests.conftest import SAMPLES
+    doc = json.loads((SAMPLES / "two_stage_plant_air.json").read_text(encoding="utf-8"))
+    del doc["stages"][1]
+    r = solve(doc).to_dict()
+    st = r["stages"][0]
+    pts = path_segments(r)[0].points
+    assert max(t for t, _, _ in pts) <= max(st["inlet"]["temperature_K"], st["outlet"]["temperature_K"]) + 1e-6
+    assert pts[-1][0] == st["outlet"]["temperature_K"] and pts[-1][1] == st["outlet"]["pressure_Pa"]
 
 
 def test_real_gas_isobars_match_coolprop_propssi(real_gas):

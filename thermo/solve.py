@@ -7,7 +7,7 @@ import atexit
 import threading
 
 from thermo.project.validation import normalise
-from thermo.errors import InputError, StagewrightError
+from thermo.errors import InputError, StagewrightError, message_detail, quantity
 from thermo.flow import mass_flow_from
 from thermo.models import make_model
 from thermo.results import TrainResult
@@ -145,7 +145,10 @@ def _casing_power(norm: dict, target_W: float) -> float:
     if target_W <= fixed:
         raise InputError("flow.value", target_W,
                          f"shaft power must exceed {fixed:.6g} W, the casing heat losses alone; "
-                         "this power is too small to move any air")
+                         "this power is too small to move any air",
+                         message_detail("Shaft power {value} is too small to move any air: it must exceed "
+                                        "{fixed}, the casing heat losses alone",
+                                        {"value": quantity(target_W, "power"), "fixed": quantity(fixed, "power")}))
     return fixed
 
 
@@ -172,4 +175,6 @@ def _solve_for_power(ctx: SolveContext, target_W: float, fixed: float, detail: b
             break
         m_next = m1 - f1 * (m1 - m_prev) / (f1 - f_prev)
         m_prev, f_prev, m1 = m1, f1, max(m_next, 0.5 * m1)
-    raise StagewrightError(f"flow.value: no mass flow gives a shaft power of {target_W:.6g} W", "flow.value")
+    raise StagewrightError(f"flow.value: no mass flow gives a shaft power of {target_W:.6g} W", "flow.value",
+                           message_detail("No mass flow gives a shaft power of {value}",
+                                          {"value": quantity(target_W, "power")}))

@@ -6,7 +6,8 @@ __all__ = ["StageResult", "solve_stage"]
 import math
 from dataclasses import dataclass
 
-from thermo.errors import InputError, PropertyRangeError, SecondLawViolation
+from thermo.errors import (InputError, PropertyRangeError, SecondLawViolation, StagewrightError, message_detail,
+                           quantity)
 from thermo.exergy import DeadState, heat_exergy
 from thermo.models.base import Point, PropertyModel
 from thermo.polytropic import polytropic_efficiency_between, polytropic_path
@@ -114,7 +115,8 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
     :math:`\eta_s = (h_{2s} - h_{01})/(h_{2i} - h_{01})`; the polytropic efficiency is that
     of the constant-efficiency path from 01 to 2i (see :mod:`thermo.polytropic`). The
     casing loss and the exit kinetic energy are then taken off to give the static
-    discharge state. Efficiencies are therefore total-to-static: the exit kinetic energy
+    discharge state. The returned ``path`` runs from the inlet to that actual discharge
+    (:func:`_actual_path`), so that a chart never shows the stage hotter than it is. Efficiencies are therefore total-to-static: the exit kinetic energy
     counts as a loss, and an efficiency of 1 with a non-zero exit velocity is refused as a
     second-law violation. The polytropic exponent is :math:`n = \ln(p_2/p_1)/\ln(\rho_{2i}/\rho_{01})`.
 
@@ -157,14 +159,18 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
     w_mech = w_shaft - w_gas
     t_b = spec["heat_loss_boundary_temperature_K"] or dead.T0
     _check_heat_loss(where, q_loss, t_b, path, outlet)
+    end = path[-1]  # end of the adiabatic internal compression (the efficiencies' reference)
+    if q_loss != 0.0 or v_out != 0.0:
+        path = _actual_path(model, start, outlet, p_out, detail)
     s_gen = mass_flow * (outlet.s - inlet.s) + q_loss / t_b + w_mech / dead.T0
     if s_gen < -1e-9 * max(1.0, w_shaft / dead.T0):
         hint = (" — the efficiency is total-to-static, so it must leave room for the exit kinetic "
                 "energy; lower the efficiency or the exit velocity") if v_out > 0.0 else ""
         raise SecondLawViolation(
             f"{where}: the given data need negative entropy generation ({s_gen:.4g} W/K): "
-            f"a second-law violation{hint}", where)
-    end = path[-1]
+            f"a second-law violation{hint}", where,
+            message_detail("Stage {n}: the given data need negative entropy generation ({s_gen}): a second-law "
+                           "violation" + hint, {"n": index + 1, "s_gen": quantity(s_gen, "entropy_rate")}))
     n = math.log(p_out / start.P) / math.log(end.rho / start.rho)
     return StageResult(
         index=index, inlet=inlet, inlet_velocity_m_s=inlet_velocity, outlet=outlet,
@@ -238,9 +244,61 @@ def _adiabatic_work(model: PropertyModel, spec: dict, where: str, start: Point, 
                 f"{where}.efficiency.value_K: a discharge temperature of {eff['value_K']:.2f} K "
                 f"would need an isentropic efficiency above 1 (minimum adiabatic discharge "
                 f"{iso.T:.2f} K with the given casing heat loss): a second-law violation — check "
-                f"the measured temperatures and pressures", f"{where}.efficiency.value_K")
+                f"the measured temperatures and pressures", f"{where}.efficiency.value_K",
+                message_detail("{label} {value} would need an isentropic efficiency above 1 (the coolest "
+                               "adiabatic discharge is {t_min} with the given casing heat loss): a second-law "
+                               "violation — check the measured temperatures and pressures",
+                               {"value": quantity(eff["value_K"], "temperature"),
+                                "t_min": quantity(iso.T, "temperature")}))
         eta_p, path = _adiabatic_path(model, start, start.h + dh, p_out, dh_s / dh, detail, where, eff["value_K"])
     return dh, eta_p, path
+
+
+def _actual_path(model: PropertyModel, start: Point, outlet: Point, p_out: float, detail: bool) -> list[Point]:
+    r"""The path of a stage that loses heat through its casing (or leaves with exit kinetic
+    energy): from the inlet to the actual discharge state, never through the hotter end of
+    the adiabatic reference compression [1]_.
+
+    The real process is non-adiabatic; it is drawn as the path of constant polytropic
+    efficiency between the actual end states (:math:`dh = v\,dp/\eta_p` with the
+    :math:`\eta_p` found from the end points by
+    :func:`thermo.polytropic.polytropic_efficiency_between`), the usual end-point
+    description of a compression whose heat transfer is not resolved along the way.
+
+    Parameters
+    ----------
+    model : PropertyModel
+        Property model of the gas.
+    start : Point
+        Inlet stagnation state.
+    outlet : Point
+        Static discharge state.
+    p_out : float
+        Discharge pressure, [Pa].
+    detail : bool
+        False keeps only the two end points (a trial solve draws nothing).
+
+    Returns
+    -------
+    list of Point
+        States from ``start`` to ``outlet``; the two end points alone where no
+        compression path of positive efficiency joins them (the discharge is not hotter than
+        the inlet).
+
+    References
+    ----------
+    .. [1] ASME PTC 10-1997, *Performance Test Code on Compressors and Exhausters*, §5
+       (polytropic process between the measured end states).
+    """
+    if not detail or outlet.T <= start.T:
+        return [start, outlet]
+    iso = model.at_sp(start.s, p_out, "stage path", T_guess=outlet.T)
+    guess = (iso.h - start.h) / (outlet.h - start.h)
+    try:
+        _, path = polytropic_efficiency_between(model, start, outlet.h, p_out, guess)
+    except StagewrightError:
+        return [start, outlet]
+    return path[:-1] + [outlet]
 
 
 def _check_heat_loss(where: str, q_loss: float, t_b: float, path: list[Point], outlet: Point) -> None:
@@ -274,9 +332,17 @@ def _check_heat_loss(where: str, q_loss: float, t_b: float, path: list[Point], o
         raise SecondLawViolation(
             f"{where}.heat_loss_boundary_temperature_K: casing heat cannot leave at {t_b:.2f} K "
             f"when the gas is never hotter than {max(p.T for p in path):.2f} K "
-            "(a second-law violation)", f"{where}.heat_loss_boundary_temperature_K")
+            "(a second-law violation)", f"{where}.heat_loss_boundary_temperature_K",
+            message_detail("{label} {t_b}: casing heat cannot leave at this temperature when the gas is never "
+                           "hotter than {t_max} (a second-law violation)",
+                           {"t_b": quantity(t_b, "temperature"), "t_max": quantity(max(p.T for p in path),
+                                                                                   "temperature")}))
     if q_loss > 0.0 and outlet.T < t_b:
         raise SecondLawViolation(
             f"{where}.heat_loss_W: a casing heat loss of {q_loss:.6g} W would cool the gas to "
             f"{outlet.T:.2f} K, below the {t_b:.2f} K boundary it leaves at (a second-law "
-            "violation); lower the heat loss or raise the flow", f"{where}.heat_loss_W")
+            "violation); lower the heat loss or raise the flow", f"{where}.heat_loss_W",
+            message_detail("{label} {q} would cool the gas to {t_out}, below the {t_b} boundary it leaves at "
+                           "(a second-law violation): lower the heat loss or raise the flow",
+                           {"q": quantity(q_loss, "heat_flow"), "t_out": quantity(outlet.T, "temperature"),
+                            "t_b": quantity(t_b, "temperature")}))

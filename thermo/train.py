@@ -7,6 +7,7 @@ import math
 from dataclasses import dataclass, field
 
 from thermo.cooler import solve_cooler
+from thermo.errors import message_detail, quantity
 from thermo.exergy import flow_exergy, water_exergy
 from thermo.flow import NORMAL_PRESSURE, NORMAL_TEMPERATURE
 from thermo.moist.stream import MoistAir, check_humid_range
@@ -110,7 +111,11 @@ def solve_train(ctx: SolveContext, mass_flow: float, detail: bool = True) -> Tra
         if abs(line.point.P - want) > 1e-3 * want:
             line.warnings.append(Warning_("discharge_pressure_Pa",
                                           f"the stage ratios give {line.point.P:.0f} Pa after the last cooler, "
-                                          f"not the {want:.0f} Pa asked for"))
+                                          f"not the {want:.0f} Pa asked for",
+                                          message_detail("The stage pressure ratios give {got} after the last "
+                                                         "cooler, not the {want} asked for",
+                                                         {"got": quantity(line.point.P, "pressure"),
+                                                          "want": quantity(want, "pressure")})))
     result = _totals(ctx, inlet, line, mass_flow, detail)
     if norm.get("heat_recovery"):  # moist air: each cooler's own stream model (latent heat included)
         result.recovery = heat_recovery(norm["heat_recovery"], ctx.model, specs, line.stages, line.coolers,
@@ -205,9 +210,7 @@ def _run_line(ctx: SolveContext, ratios: list, mass_flow: float, detail: bool) -
         line.stages.append(st)
         limit = spec.get("max_discharge_temperature_K")
         if limit is not None and st.outlet.T > limit:
-            line.warnings.append(Warning_(f"stages[{i}].max_discharge_temperature_K",
-                                          f"stage {i + 1} discharge {st.outlet.T:.1f} K exceeds its limit "
-                                          f"{limit:.1f} K"))
+            line.warnings.append(_limit_warning(i, st.outlet.T, limit))
         line.point, line.velocity = st.outlet, st.exit_velocity_m_s
         if spec["cooler"] is None:
             line.coolers.append(None)
@@ -321,20 +324,35 @@ def _water_result(mixture, dry_model, mass_flow, W0, delivered, P0, drains, x_dr
         water_balance_residual=(mass_flow * W0 - delivered_water - drained) / (mass_flow * W0))
 
 
+def _limit_warning(i: int, t_out: float, limit: float) -> Warning_:
+    """A stage discharging above its temperature limit: the value and the limit (a hazard)."""
+    return Warning_(f"stages[{i}].max_discharge_temperature_K",
+                    f"stage {i + 1} discharge {t_out:.1f} K exceeds its limit {limit:.1f} K",
+                    message_detail("Stage {n} discharge temperature {t} is above its {limit} limit",
+                                   {"n": i + 1, "t": quantity(t_out, "temperature"),
+                                    "limit": quantity(limit, "temperature")}))
+
+
 def _water_notes(i: int, n: int, water, mass_flow: float) -> list:
     """Messages about water a cooler knocks out or lets through (condensate is a hazard to manage)."""
     name = "aftercooler" if i == n - 1 else f"intercooler {i + 1}"
     notes = []
     if water.drained_kg_s > 0.0:
+        tail = (": it needs a working drain, and the condensate must be treated or disposed of as local "
+                "rules require")
         notes.append(Warning_(f"stages[{i}].cooler.separator_efficiency",
-                              f"{name} drains {water.drained_kg_s * 3600.0:.2f} kg/h of condensate: it needs a "
-                              "working drain, and the condensate must be treated or disposed of as local "
-                              "rules require"))
+                              f"{name} drains {water.drained_kg_s * 3600.0:.2f} kg/h of condensate" + tail,
+                              message_detail("{name} drains {flow} of condensate" + tail,
+                                             {"name": name[:1].upper() + name[1:],
+                                              "flow": quantity(water.drained_kg_s, "water_flow")})))
     carried = getattr(water, "carry_over_kg_s", 0.0) or 0.0
     if carried > 0.0:
         where = "the delivered air" if i == n - 1 else f"stage {i + 2}"
         notes.append(Warning_(f"stages[{i}].cooler.separator_efficiency",
                               f"{carried * 3600.0:.2f} kg/h of liquid water passes the {name}'s separator "
-                              f"into {where}"))
+                              f"into {where}",
+                              message_detail("{flow} of liquid water passes the {name}'s separator into {where}",
+                                             {"flow": quantity(carried, "water_flow"), "name": name,
+                                              "where": where})))
     return notes
 

@@ -84,9 +84,9 @@ def path_segments(result: dict) -> list[PathSegment]:
     Returns
     -------
     list of PathSegment
-        Per stage its compression line (the states along the path, then the static
-        discharge where casing heat loss or exit kinetic energy move it off the adiabatic
-        end), followed by its cooling line if it has a cooler (the states along the line,
+        Per stage its compression line (the states along the path, from the intake to the
+        actual discharge also for a stage with casing heat loss or exit kinetic energy, then
+        the static discharge where a lean solve's path ends elsewhere), followed by its cooling line if it has a cooler (the states along the line,
         or inlet and outlet when the solve kept none).
 
     Raises
@@ -119,7 +119,7 @@ def path_segments(result: dict) -> list[PathSegment]:
         if not pts:
             pts = [_state(st["inlet"])]
         if abs(end[0] - pts[-1][0]) > 1e-9 or abs(end[2] - pts[-1][2]) > 1e-12:
-            pts.append(end)  # casing heat loss and exit kinetic energy after the adiabatic end
+            pts.append(end)  # a path that does not end at the discharge (never from a full solve)
         segs.append(PathSegment("stage", i, tuple(pts)))
         c = st.get("cooler")
         if c:

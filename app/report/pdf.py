@@ -37,7 +37,7 @@ def build_pages(doc: dict, result: dict, info: sections.ReportInfo, study_rows=N
     footer = "  ·  ".join(x for x in (info.source_name, info.date) if x)
     p = Pager(paper, running_title=title, footer_left=footer)
     sections.title_block(p, doc, result, info)
-    sections.warnings(p, result)  # first, where a reviewer cannot miss them
+    sections.warnings(p, result, system, doc)  # first, where a reviewer cannot miss them
     sections.inputs(p, doc, result, system)
     states = sections.state_points_table(p, result, system)
     p.heading("Balance sheet", keep_with=p.table_height(states))

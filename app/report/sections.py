@@ -19,6 +19,8 @@ from thermo.project.validation import normalise
 from app.presentation import balance_tables, staging_table, units
 from app.presentation.cautions import CAUTIONS, DEFERRAL
 from app.presentation.figures import Figure, condition_holds, shown
+from app.document.messages import limit_sentence, warning_text
+from app.document.field_specs import describe
 from app.presentation.result_notes import negative_notes
 from app.charts import draw_power_split, draw_staging_chart, draw_ts_chart
 from app.report.layout import Column, Pager, Table
@@ -265,19 +267,20 @@ def charts(p: Pager, doc: dict, result: dict, system: str) -> None:
                         (lambda f: draw_power_split(f, result, system), 4.6 if tall else 3.9)])
 
 
-def warnings(p: Pager, result: dict) -> None:
+def warnings(p: Pager, result: dict, system: str = "SI", doc: dict | None = None) -> None:
     p.heading("Warnings", keep_with=0.5)
     items = result.get("warnings") or []
     if not items:
         p.paragraph("The solve raised no warnings.")
         return
     p.table(Table("", [Column("Message", align="left", wrap=True), Column("Input", align="left")],
-                  [[w["message"], w["field"]] for w in items]))
+                  [[warning_text(w, doc, system), describe(w["field"], doc or {}) if w.get("field") else ""]
+                   for w in items]))
 
 
-def _remark(row: dict) -> str:
-    """Why an arrangement is limited: its binding limits' messages, or a given reason."""
-    msgs = [b.get("message", "") for b in row.get("binding_limits") or [] if b.get("message")]
+def _remark(row: dict, system: str = "SI") -> str:
+    """Why an arrangement is limited: its binding limits in display units, or a given reason."""
+    msgs = [limit_sentence(b, None, system) for b in row.get("binding_limits") or [] if b.get("message")]
     if row.get("reason"):
         msgs.insert(0, str(row["reason"]))
     return "; ".join(msgs)
@@ -292,7 +295,7 @@ def staging(p: Pager, study_rows: list[dict] | None, system: str, limit_K=None) 
     figures = _pdf_columns(staging_table.STAGING, None, [(None, r) for r in ordered])
     cols = [_column(f, system) for f in figures]
     rows = [[f.text(r, _PDF, system) for f in figures] for r in ordered]
-    remarks = [_remark(r) for r in ordered]
+    remarks = [_remark(r, system) for r in ordered]
     notes = {r.get("note") for r in study_rows if r.get("note")}
     p.table(Table("Arrangements compared", cols, rows, note=" ".join(sorted(notes)), row_notes=remarks))
 

@@ -55,6 +55,7 @@ class Editor(QObject):
         self.result: dict | None = None  # last good result (may be stale)
         self.stale = True
         self.failure: tuple[str, str] | None = None  # (message, field) of the last failed solve
+        self.failure_detail: dict | None = None  # its template and values (thermo.errors.message_detail)
         self.solve_seconds: float | None = None
         self.solved_jobs = 0
         self.solver.finished.connect(self._on_solved)
@@ -154,6 +155,7 @@ class Editor(QObject):
 
     def _on_failed(self, job_id: int, message: str, field: str) -> None:
         self.stale, self.failure, self.solve_seconds = True, (message, field), None
+        self.failure_detail = getattr(self.solver, "failure_detail", None)
         self.result_changed.emit()
 
     # ---- stage helpers -------------------------------------------------------------------

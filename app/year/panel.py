@@ -14,6 +14,7 @@ from PySide6.QtWidgets import QHBoxLayout, QLabel, QProgressBar, QPushButton, QT
 from app.presentation import year_tables
 from app.presentation.figures import shown
 from app.year.chart_view import YearChartView
+from app.document.messages import error_text
 from app.year.editor import YearEditor
 from app.year.results_view import YearResultsView
 from app.year.worker import YearRunner
@@ -105,8 +106,10 @@ class YearPanel(QWidget):
         self.tabs.setCurrentIndex(RESULTS_TAB)  # the totals first; the chart is one tab on
         self.refresh()
 
-    def _on_failed(self, _job: int, message: str, _field: str) -> None:
-        self._idle(message)
+    def _on_failed(self, _job: int, message: str, field: str) -> None:
+        ed = self.editor
+        self._idle(error_text(message, field, self.runner.failure_detail, ed.model.doc, ed.prefs.system,
+                              gauge=ed.prefs.gauge, barometric_Pa=ed.barometric_Pa()))
 
     def _idle(self, text: str) -> None:
         self.run_button.setEnabled(self.has_profile())

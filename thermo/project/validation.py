@@ -17,7 +17,7 @@ from dataclasses import dataclass
 from typing import Any
 
 from thermo.atmosphere import SEA_LEVEL_PRESSURE, standard_pressure
-from thermo.errors import InputError, Problem
+from thermo.errors import InputError, Problem, message_detail, quantity
 from thermo.project.schema import PROJECT
 from thermo.project.schema_types import check
 from thermo.year_profile import year_problems
@@ -250,10 +250,16 @@ def _cross_checks(norm: dict) -> list[Problem]:
     p0, p1 = resolved.pressure_Pa, resolved.stage_inlet_pressure_Pa
     if norm["inlet_pressure_drop_Pa"] >= 0.5 * p0:
         out.append(Problem("inlet_pressure_drop_Pa", norm["inlet_pressure_drop_Pa"],
-                           f"expected less than half the barometric pressure ({0.5 * p0:.0f} Pa)"))
+                           f"expected less than half the barometric pressure ({0.5 * p0:.0f} Pa)",
+                           message_detail("{label} {value} must be less than half the barometric pressure ({half})",
+                                          {"value": quantity(norm["inlet_pressure_drop_Pa"], "pressure_difference"),
+                                           "half": quantity(0.5 * p0, "pressure_difference")})))
     if norm["discharge_pressure_Pa"] <= p1:
         out.append(Problem("discharge_pressure_Pa", norm["discharge_pressure_Pa"],
-                           f"expected an absolute pressure above the stage-1 inlet pressure {p1:.0f} Pa"))
+                           f"expected an absolute pressure above the stage-1 inlet pressure {p1:.0f} Pa",
+                           message_detail("{label} {value} must be above the stage 1 inlet pressure {p1}",
+                                          {"value": quantity(norm["discharge_pressure_Pa"], "pressure"),
+                                           "p1": quantity(p1, "pressure")})))
     for i, st in enumerate(norm["stages"]):
         lo, hi = st.get("min_pressure_ratio"), st.get("max_pressure_ratio")
         if lo is not None and hi is not None and lo > hi:

@@ -371,7 +371,8 @@ class _Problem:
             hint = (" — with this many stages no stage gets as hot as that cooler's outlet: use fewer stages "
                     "or a lower cooler outlet temperature" if self.n > 1 else " — lower the cooler outlet temperature")
         binding = [BindingLimit(err.field or "stages", value, None, None, "violated",
-                                f"no split of {self.n} stage(s) could be solved: {err}{hint}")]
+                                f"no split of {self.n} stage(s) could be solved: {err}{hint}",
+                                _failure_detail(err, self.n, hint))]
         return SplitResult(None, None, False, binding, self.iterations, self.trials.solves,
                            list(self.prepared.notes))
 
@@ -413,6 +414,15 @@ class _Problem:
                     out.append(BindingLimit(f"stages[{i}].max_pressure_ratio", b.hi[i], r, None, "active",
                                             f"stage {i + 1} held at its maximum pressure ratio {b.hi[i]:g}"))
         return out
+
+
+def _failure_detail(err, n: int, hint: str) -> dict | None:
+    """The template of a failed trial solve, prefixed for the study (None without one)."""
+    detail = getattr(err, "detail", None)
+    if not detail:
+        return None
+    return {"template": f"no split of {n} stage(s) could be solved: " + detail["template"] + hint,
+            "values": detail["values"]}
 
 
 def _active(lim: SoftLimit, t: float, doc: dict) -> BindingLimit:
