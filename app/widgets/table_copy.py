@@ -106,14 +106,20 @@ class TableCopier(QObject):
             return True
         return False
 
-    def _menu(self, pos) -> None:
+    def menu(self) -> QMenu:
+        """The context menu: *Copy table*, *Copy selected rows* and the extra entries."""
         menu = QMenu(self.view)
         menu.addAction("Copy table", lambda: self.copy(False))
         selected = menu.addAction("Copy selected rows", lambda: self.copy(True))
         selected.setEnabled(self.has_selection())
         for text, make in self._extra:
             menu.addAction(text, lambda make=make: QGuiApplication.clipboard().setText(make()))
+        return menu
+
+    def _menu(self, pos) -> None:
+        menu = self.menu()
         menu.exec(self.view.viewport().mapToGlobal(pos))
+        menu.deleteLater()
 
 
 def attach_table_copy(view: QAbstractItemView, rows: Callable[[bool], Rows] | None = None,
