@@ -32,16 +32,18 @@ _COMPONENT_NAMES = {"filter": "Intake filter", "train": "Whole train"}
 
 
 class FitTable(QTableWidget):
-    """Columns as wide as their contents; spare width shared out evenly (never clipped)."""
+    """Columns as wide as their contents; spare width shared out evenly among the shown
+    columns (never clipped)."""
 
     def fit_columns(self) -> None:
         header = self.horizontalHeader()
         self.resizeColumnsToContents()
-        widths = [header.sectionSize(i) for i in range(self.columnCount())]
-        spare = self.viewport().width() - sum(widths)
-        if spare > 0 and len(widths) > 1:
-            extra = spare // (len(widths) - 1)
-            for i in range(1, len(widths)):
+        shown = [i for i in range(self.columnCount()) if not self.isColumnHidden(i)]
+        widths = {i: header.sectionSize(i) for i in shown}
+        spare = self.viewport().width() - sum(widths.values())
+        if spare > 0 and len(shown) > 1:  # to the shown figure columns only (not the label)
+            extra = spare // (len(shown) - 1)
+            for i in shown[1:]:
                 header.resizeSection(i, widths[i] + extra)
 
     def resizeEvent(self, event) -> None:
