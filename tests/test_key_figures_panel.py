@@ -18,7 +18,7 @@ from PySide6.QtCore import QPoint, QRect, QSize, Qt  # noqa: E402
 from PySide6.QtWidgets import QApplication, QLabel, QTableView  # noqa: E402
 
 from app.presentation import balance_tables as tables  # noqa: E402
-from gui_support import SAMPLE, make_window, simple_real_gas_doc, type_into, wait_solved  # noqa: E402
+from gui_support import SAMPLE, make_window, simple_real_gas_doc, type_into  # noqa: E402
 
 pytestmark = pytest.mark.gui
 

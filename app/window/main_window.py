@@ -98,8 +98,8 @@ class MainWindow(QMainWindow):
         self.add_panel("study", StudyPanel(self.editor), Qt.BottomDockWidgetArea, tabify_with="balance")
         self.add_panel("year", YearPanel(self.editor), Qt.BottomDockWidgetArea, tabify_with="balance")
         self.docks["balance"].raise_()
-        # inputs and messages run the full height on the left; the balance sheet spans the
-        # charts and the train panel, where it has the width its columns need
+        # below the key figures, inputs and messages run the full height on the left; the
+        # balance sheet spans the charts and the train panel, where its columns have the width
         self.setCorner(Qt.BottomLeftCorner, Qt.LeftDockWidgetArea)
         self.setCorner(Qt.BottomRightCorner, Qt.BottomDockWidgetArea)
         self.panels["train"].set_actions(self.action_map)
@@ -107,7 +107,7 @@ class MainWindow(QMainWindow):
         self.panels["study"].messages_changed.connect(self.panels["messages"].set_source_messages)
         self.study = StudyLink(self.panels["study"], self.charts, self.editor, self.statusBar(), self)
         self.panels["messages"].count_changed.connect(self._on_message_count)
-        self._on_message_count(0)
+        self.panels["messages"].refresh()  # its count, now that the key figures listen too
         self.panels["figures"].detail_requested.connect(self.show_key_figure)
         self._build_menus()
         self._build_status()
