@@ -1,6 +1,7 @@
 """Tables copy to the clipboard as tab-separated text a spreadsheet reads (window issue, item 14):
-Ctrl+C and the context menu's *Copy table*, a header row with units, numbers as shown (without the
-spaces that group thousands), hidden rows and columns left out."""
+Ctrl+C and the context menu's *Copy table* (the whole table, whatever row is selected) and *Copy
+selected rows*, a header row with units, numbers as shown (without the spaces that group
+thousands), hidden rows and columns left out."""
 from __future__ import annotations
 
 import pytest
@@ -74,9 +75,11 @@ def test_balance_sheet_tables_copy_with_units_and_as_shown(qtbot, tmp_path):
     assert rows[3][1] == bal.value_text("points", "stage-1", "T")  # numbers as shown
     assert all(float(cell) == float(cell) for row in rows[1:] for cell in row[1:])  # every cell a number
 
-    bal.components.selectRow(bal.row_keys("components").index("cooler-2"))  # a selection copies its rows
-    _press_copy(qtbot, bal.components)
+    bal.components.selectRow(bal.row_keys("components").index("cooler-2"))
+    _press_copy(qtbot, bal.components)  # Ctrl+C: still the whole table
     rows = _grid(_clipboard())
+    assert rows[0][:3] == ["Component", "Ratio", "Shaft power [kW]"] and len(rows) == 1 + 6
+    rows = _grid(bal.copiers["components"].copy(only_selected=True))  # Copy selected rows
     assert rows[0][:3] == ["Component", "Ratio", "Shaft power [kW]"] and [r[0] for r in rows[1:]] == ["Aftercooler"]
 
     _press_copy(qtbot, bal.totals)  # no selection: the whole table, value and unit apart
@@ -134,4 +137,37 @@ def test_out_of_date_numbers_copy_under_the_out_of_date_note(qtbot, tmp_path):
     ed.undo_stack.undo()
     wait_solved(qtbot, win, n)
     assert bal.copiers["points"].text().startswith("Point\t")
+    win.close()
+
+
+def test_study_options_table_copies_its_options(qtbot):
+    from app.study.options_table import OptionsTable
+    rows = [{"stages": n, "pressure_ratios": [9 ** (1 / n)] * n, "driver_power_W": p, "feasible": True,
+             "binding_limits": [], "note": ""} for n, p in ((2, 260_000.0), (3, 250_000.0))]  # invented
+    table = OptionsTable()
+    qtbot.addWidget(table)
+    table.show_rows(rows, "SI")
+    table.show()
+    table.select_option(3)  # the picked option does not narrow Ctrl+C
+    _press_copy(qtbot, table)
+    grid = _grid(_clipboard())
+    assert len(grid) == 3 and grid[0] == [clipboard_cell(h) for h in table_rows(table)[0]]
+    power = table.column("power")  # no hidden columns here: the copy's columns are the table's
+    assert grid[0][power] == clipboard_cell(table.header_text("power"))
+    assert [r[power] for r in grid[1:]] == [clipboard_cell(table.cell_text(r, "power")) for r in (0, 1)]
+    assert [r[0] for r in grid[1:]] == [table.cell_text(r, "stages") for r in (0, 1)]
+
+
+def test_year_table_copies_its_bins(qtbot, tmp_path):
+    win = make_window(qtbot, tmp_path)
+    table = win.panels["year"].table
+    table.setRowCount(2)
+    for r in range(2):
+        for c in range(table.columnCount()):
+            table.setItem(r, c, QTableWidgetItem(f"{r} 000.5" if c else ("Jan", "Feb")[r]))
+    win.docks["year"].raise_()
+    _press_copy(qtbot, table)
+    grid = _grid(_clipboard())
+    assert [r[0] for r in grid[1:]] == ["Jan", "Feb"] and grid[2][1] == "1000.5"
+    assert len(grid[0]) == table.columnCount() - sum(table.isColumnHidden(c) for c in range(table.columnCount()))
     win.close()

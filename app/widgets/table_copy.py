@@ -1,7 +1,8 @@
 """Copy a table to the clipboard as tab-separated text that pastes into a spreadsheet.
 
-:func:`attach_table_copy` gives any table view Ctrl+C (the selected rows, or the whole table when
-none is selected) and a context menu with *Copy table* and *Copy selected rows*. The text has a
+:func:`attach_table_copy` gives any table view Ctrl+C (the whole table: in these tables a selected
+row is often a pick, such as the study's option, not what to copy) and a context menu with *Copy
+table* and *Copy selected rows*. The text has a
 header row (a header's unit on its second line joins the name: ``T [°C]``), then the rows and
 columns the view shows, each cell as shown — except that the spaces grouping a number's thousands
 are dropped, so a spreadsheet reads ``172 945`` as the number 172945.
@@ -100,8 +101,8 @@ class TableCopier(QObject):
     def eventFilter(self, obj, event) -> bool:
         kind = event.type()
         if kind in (QEvent.ShortcutOverride, QEvent.KeyPress) and event.matches(QKeySequence.Copy):
-            if kind == QEvent.KeyPress:  # the selected rows, like a spreadsheet; all when none is selected
-                self.copy(only_selected=self.has_selection())
+            if kind == QEvent.KeyPress:
+                self.copy()
             event.accept()
             return True
         return False

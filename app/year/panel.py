@@ -10,6 +10,7 @@ from PySide6.QtWidgets import (QHBoxLayout, QLabel, QProgressBar, QPushButton, Q
 
 from app.presentation import units, year_tables
 from app.presentation.figures import shown
+from app.widgets.table_copy import attach_table_copy
 from app.year.worker import YearRunner
 from app.year.editor import YearEditor
 
@@ -58,6 +59,7 @@ class YearPanel(QWidget):
         self.table.verticalHeader().setVisible(False)
         self.table.verticalHeader().setDefaultSectionSize(self.table.fontMetrics().height() + 8)
         self.table.setEditTriggers(QTableWidget.NoEditTriggers)
+        attach_table_copy(self.table)  # Ctrl+C and Copy table: tab-separated text for a spreadsheet
         self.split.addWidget(self.table)
         self.chart_box = QWidget()
         QVBoxLayout(self.chart_box).setContentsMargins(0, 0, 0, 0)
