@@ -16,6 +16,7 @@ from PySide6.QtWidgets import QAbstractItemView, QHeaderView, QTableWidget, QTab
 
 from app.study.display import COLUMNS, cells as option_cells, header, tooltip
 from app.widgets.signals_blocked import signals_blocked
+from app.widgets.table_copy import attach_table_copy
 
 _INFEASIBLE = QColor("#8a96a3")
 _LEFT = frozenset({"ratios", "temperatures", "limits", "feasible"})  # words and lists; numbers right
@@ -84,6 +85,7 @@ class OptionsTable(QTableWidget):
             item = QTableWidgetItem()
             item.setToolTip(col.tip)
             self.setHorizontalHeaderItem(i, item)
+        attach_table_copy(self)  # Ctrl+C and Copy table: tab-separated text for a spreadsheet
 
     # ---- reading -------------------------------------------------------------------------
     def column(self, key: str) -> int:

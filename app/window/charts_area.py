@@ -24,7 +24,7 @@ class ChartTab(QWidget):
         self._draw = draw
         self.figure = Figure(figsize=(6, 4))
         self.canvas = FigureCanvasQTAgg(self.figure)
-        self.canvas.setMinimumSize(420, 280)
+        self.canvas.setMinimumSize(420, 220)  # with the key figures above, a 768-pixel screen still fits
         self.toolbar = NavigationToolbar2QT(self.canvas, self)
         lay = QVBoxLayout(self)
         lay.setContentsMargins(0, 0, 0, 0)

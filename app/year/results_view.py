@@ -16,6 +16,7 @@ from PySide6.QtWidgets import QAbstractItemView, QSplitter, QTableWidget, QTable
 
 from app.presentation import year_tables
 from app.presentation.figures import Figure, read_path, shown
+from app.widgets.table_copy import attach_table_copy
 
 _OUT = "window"
 MONEY_TIP = "In the currency of the prices on the Profile tab (and of the fuel price of heat recovery)"
@@ -27,6 +28,7 @@ def _table(columns: int) -> QTableWidget:
     t.verticalHeader().setDefaultSectionSize(t.fontMetrics().height() + 8)
     t.setEditTriggers(QAbstractItemView.NoEditTriggers)
     t.setWordWrap(False)
+    attach_table_copy(t)  # Ctrl+C and Copy table: tab-separated text for a spreadsheet
     return t
 
 
