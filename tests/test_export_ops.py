@@ -80,10 +80,10 @@ def test_export_failure_is_a_message_not_a_crash(qtbot, tmp_path):
 
 
 def test_export_starts_in_documents_with_a_name_from_the_title_then_in_the_last_folder(qtbot, tmp_path, monkeypatch):
-    from app.window import file_ops
+    from PySide6.QtCore import QStandardPaths
     docs = tmp_path / "Documents"
     docs.mkdir()
-    monkeypatch.setattr(file_ops.QStandardPaths, "writableLocation", lambda kind: str(docs))
+    monkeypatch.setattr(QStandardPaths, "writableLocation", staticmethod(lambda kind: str(docs)))
     win = make_window(qtbot, tmp_path)
     win.editor.set_value("title", "Plant air: 2027")
     wait_solved(qtbot, win, win.editor.solved_jobs)

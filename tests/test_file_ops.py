@@ -10,7 +10,6 @@ pytest.importorskip("pytestqt")
 from gui_support import make_window, simple_real_gas_doc  # noqa: E402
 
 from app.document.file_names import file_stem_for  # noqa: E402
-from app.window import file_ops  # noqa: E402
 
 pytestmark = pytest.mark.gui
 
@@ -18,13 +17,14 @@ pytestmark = pytest.mark.gui
 @pytest.fixture
 def documents(tmp_path, monkeypatch):
     """The user's documents folder (QStandardPaths.DocumentsLocation), made a temporary one."""
+    from PySide6.QtCore import QStandardPaths
     folder = tmp_path / "Documents"
     folder.mkdir()
-    real = file_ops.QStandardPaths.writableLocation
+    real = QStandardPaths.writableLocation
 
     def location(kind):
-        return str(folder) if kind == file_ops.QStandardPaths.DocumentsLocation else real(kind)
-    monkeypatch.setattr(file_ops.QStandardPaths, "writableLocation", location)
+        return str(folder) if kind == QStandardPaths.DocumentsLocation else real(kind)
+    monkeypatch.setattr(QStandardPaths, "writableLocation", staticmethod(location))
     return folder
 
 
