@@ -75,3 +75,26 @@ def test_owner_records():
     assert not owner_alive(None) and not owner_alive({"pid": "12"}) and not owner_alive({"pid": True})
     if me["started"] is not None:  # Linux: a reused process id is another process
         assert not owner_alive({**me, "started": str(int(me["started"]) + 1)})
+
+
+@pytest.mark.skipif(not hasattr(os, "fork"), reason="the stand-in is built on POSIX flock")
+def test_the_windows_branch_locks_unlocks_and_removes_after_closing(tmp_path, monkeypatch):
+    """msvcrt.locking(fd, LK_NBLCK, 1) raises OSError when another handle holds the byte (Python
+    documentation, msvcrt module); a stand-in with those semantics, built on flock, drives the
+    Windows branch here."""
+    import fcntl
+    calls = []
+
+    class FakeMsvcrt:
+        LK_NBLCK, LK_UNLCK = 2, 0
+
+        @staticmethod
+        def locking(fd, mode, nbytes):
+            calls.append((mode, os.lseek(fd, 0, os.SEEK_CUR), nbytes))
+            fcntl.flock(fd, fcntl.LOCK_UN if mode == 0 else fcntl.LOCK_EX | fcntl.LOCK_NB)
+    monkeypatch.setattr(owner_lock, "fcntl", None)
+    monkeypatch.setattr(owner_lock, "msvcrt", FakeMsvcrt)
+    first, second = OwnerLock(tmp_path / "x.lock"), OwnerLock(tmp_path / "x.lock")
+    assert first.try_acquire() is True and second.try_acquire() is False
+    first.release(remove=True)
+    assert calls == [(2, 0, 1), (2, 0, 1), (0, 0, 1)] and not (tmp_path / "x.lock").exists()

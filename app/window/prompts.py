@@ -48,11 +48,14 @@ class Prompts:
 
     def confirm_overwrite(self, paths) -> bool:
         """Replace the existing files ``paths`` (ones the file dialog did not ask about)? True for yes."""
+        paths = list(paths)
+        several = len(paths) > 1
         names = "\n".join(str(p) for p in paths)
-        box = QMessageBox(QMessageBox.Warning, "Replace existing files?",
-                          f"{'These files already exist' if len(paths) > 1 else 'This file already exists'}:"
-                          f"\n{names}", QMessageBox.Cancel, self.parent)
-        box.setInformativeText("Replacing them overwrites their contents.")
+        box = QMessageBox(QMessageBox.Warning, "Replace existing files?" if several else "Replace existing file?",
+                          f"{'These files already exist' if several else 'This file already exists'}:\n{names}",
+                          QMessageBox.Cancel, self.parent)
+        box.setInformativeText("Replacing them overwrites what they hold." if several
+                               else "Replacing it overwrites what it holds.")
         replace = box.addButton("Replace", QMessageBox.DestructiveRole)
         box.setDefaultButton(QMessageBox.Cancel)
         box.exec()
