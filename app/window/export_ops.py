@@ -7,7 +7,7 @@ atomically, so a failed export never leaves a half-written report behind.
 """
 from __future__ import annotations
 
-__all__ = ["ExportController", "ExportJob", "PDF_AND_CSV", "PDF_ONLY"]
+__all__ = ["ExportController", "ExportJob", "PDF_AND_CSV", "PDF_ONLY", "EXPORT_FOLDER_KEY"]
 
 import copy
 import threading
@@ -16,8 +16,12 @@ from pathlib import Path
 from PySide6.QtCore import QObject, Signal
 from PySide6.QtWidgets import QStatusBar
 
+from app.document.file_names import with_suffix_added
+from app.window.file_ops import PROJECT_FOLDER_KEY, remember_folder, start_folder
+
 PDF_AND_CSV = "PDF report and CSV balance sheet (*.pdf)"
 PDF_ONLY = "PDF report only (*.pdf)"
+EXPORT_FOLDER_KEY = "export/last_folder"
 
 
 class ExportJob(QObject):
@@ -89,17 +93,33 @@ class ExportController(QObject):
                                     "(or wait for the solve to finish), then export again.")
             return
         path = self.files.path
-        name, chosen = self.prompts.export_target(str(path.with_suffix(".pdf")) if path else "report.pdf")
+        name, chosen = self.prompts.export_target(str(self._start_folder() / f"{self.files.suggested_stem()}.pdf"))
         if not name:
             return
-        pdf = Path(name if name.lower().endswith(".pdf") else name + ".pdf")
+        name, added = with_suffix_added(name, ".pdf")
+        pdf = Path(name)
         csv = pdf.with_suffix(".csv") if chosen != PDF_ONLY else None
+        # the dialog asked about the file named in it; the .pdf added here and the CSV beside it were not
+        unasked = [p for p, asked in ((pdf, not added), (csv, False)) if p is not None and not asked and p.exists()]
+        if unasked and not self.prompts.confirm_overwrite(unasked):
+            self.status.showMessage("Export cancelled: nothing was written", 4000)
+            return
+        remember_folder(self.files.settings, EXPORT_FOLDER_KEY, pdf)
         source = path.name if path else ""
         job = ExportJob(ed.model.snapshot(), copy.deepcopy(ed.result), pdf, csv, ed.prefs.system, source, self)
         job.done.connect(self._on_export_done)
         self.job = job
         self.status.showMessage(f"Exporting {pdf.name}…")
         job.start()
+
+    def _start_folder(self) -> Path:
+        """The last folder a report went to; else the project's folder; else the last project folder or documents."""
+        last = self.files.settings.value(EXPORT_FOLDER_KEY, "")
+        if isinstance(last, str) and last and Path(last).is_dir():
+            return Path(last)
+        if self.files.path is not None and self.files.path.parent.is_dir():
+            return self.files.path.absolute().parent
+        return start_folder(self.files.settings, PROJECT_FOLDER_KEY)
 
     def _on_export_done(self, message: str, error: str) -> None:
         if error:
