@@ -159,8 +159,10 @@ def check(schema: Any, value: Any, path: str, out: list) -> Any:
         for group in schema.one_of:
             present = [k for k in group if k in value and value[k] is not None]
             if len(present) != 1:
-                out.append(Problem(path, {k: value.get(k) for k in group},
-                                   "give exactly one of " + ", ".join(group)))
+                # at the top level the problem names a key (the document itself has no field)
+                where = path or (present[1] if len(present) > 1 else group[0])
+                out.append(Problem(where, {k: value.get(k) for k in group},
+                                   ("required: " if not present else "") + "give exactly one of " + ", ".join(group)))
         return _check_fields(schema.fields, value, path, out)
     if isinstance(schema, Variant):
         if not isinstance(value, dict):
