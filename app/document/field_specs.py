@@ -48,6 +48,7 @@ _SPECS = {
     "flow.kind": FieldSpec("flow basis"),
     "flow.value": FieldSpec("flow"),
     "discharge_pressure_Pa": FieldSpec("discharge pressure", "pressure", gauge_aware=True),
+    "discharge_gauge_pressure_Pa": FieldSpec("discharge pressure", "gauge_pressure"),  # stated gauge
     "driver.efficiency": FieldSpec("driver efficiency", "fraction"),
     "stages[*].name": FieldSpec("name"),
     "stages[*].pressure_ratio": FieldSpec("pressure ratio", "ratio"),

@@ -6,9 +6,11 @@ __all__ = ["DutyPanel", "FLOW_CHOICES"]
 from PySide6.QtWidgets import QComboBox
 
 from app.widgets.choice_field import ChoiceField
+from app.widgets.delivery_pressure_field import DeliveryPressureField
 from app.widgets.quantity_field import QuantityField
 from app.widgets.signals_blocked import signals_blocked
 from app.panels.base import FieldPanel
+from thermo.project.delivery import DELIVERY_KEYS
 
 FLOW_CHOICES = [
     ("free_air_delivery", "Free air delivery"),
@@ -36,17 +38,26 @@ class DutyPanel(FieldPanel):
                                  "0 °C and 1.01325 bar. Shaft power: finds the flow a running machine "
                                  "moves with the power it draws.")
         self.add_row(form, "Flow", QuantityField(editor, "flow.value"))
-        self.pressure = self.bind(QuantityField(editor, "discharge_pressure_Pa"))
+        self.pressure = self.bind(DeliveryPressureField(editor))
         self.gauge = QComboBox()
         self.gauge.addItems(["Gauge", "Absolute"])
-        self.gauge.setToolTip("Gauge pressure is relative to the site barometric pressure. "
-                              "The project always stores absolute pressure.")
+        self.gauge.setToolTip("Gauge pressure is relative to the site barometric pressure. The project "
+                              "keeps the discharge pressure as typed: gauge when typed as gauge (held when "
+                              "the site changes), absolute when typed as absolute.")
         self.gauge.activated.connect(lambda i: setattr(editor.prefs, "gauge", i == 0))
         form.addRow("Discharge pressure", self.pressure)
         form.addRow("Pressures shown", self.gauge)
         self.add_row(form, "Driver efficiency", QuantityField(editor, "driver.efficiency"),
                      "Motor (and drive) efficiency: driver input power = shaft power / efficiency.")
         self.refresh_all()
+
+    def depends_on(self, path: str) -> bool:
+        """The site (gauge display) and either statement of the delivery pressure."""
+        return super().depends_on(path) or path in DELIVERY_KEYS
+
+    def field_for(self, path: str):
+        """Either delivery key leads to the one delivery-pressure field."""
+        return self.pressure if path in DELIVERY_KEYS else super().field_for(path)
 
     def after_refresh(self) -> None:
         with signals_blocked(self.gauge):

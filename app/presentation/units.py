@@ -50,6 +50,8 @@ QUANTITIES: dict[str, tuple[Unit, Unit]] = {
     "temperature_difference": (Unit("K", 1.0, 0.0, 2), Unit("°F", _R_PER_K, 0.0, 1)),
     "pressure": (Unit("bar", 1e5, 0.0, 4), Unit("psi", _PSI, 0.0, 2)),
     "pressure_difference": (Unit("kPa", 1e3, 0.0, 2), Unit("psi", _PSI, 0.0, 3)),
+    # a pressure stated gauge (above the site's barometric pressure) in the document, [Pa]
+    "gauge_pressure": (Unit("bar(g)", 1e5, 0.0, 4), Unit("psig", _PSI, 0.0, 2)),
     "specific_enthalpy": (Unit("kJ/kg", 1e3, 0.0, 2), Unit("Btu/lb", _BTU / _LB, 0.0, 2)),
     "specific_entropy": (Unit("kJ/(kg·K)", 1e3, 0.0, 4), Unit("Btu/(lb·°R)", _BTU / _LB / _R_PER_K, 0.0, 4)),
     "specific_heat": (Unit("J/(kg·K)", 1.0, 0.0, 1), Unit("Btu/(lb·°R)", _BTU / _LB / _R_PER_K, 0.0, 4)),
