@@ -11,6 +11,7 @@ __all__ = ["ReportInfo", "title_block", "inputs", "state_points_table", "compone
 
 from dataclasses import dataclass
 
+from thermo.project.delivery import GAUGE_KEY, delivery_pressure, stated_delivery
 from thermo.project.validation import normalise
 
 from app.presentation import units
@@ -83,6 +84,17 @@ def _efficiency_text(eff: dict, system: str) -> str:
     return f"{eff['kind']} {Q(eff['value'], 'fraction', system)} %"
 
 
+def _delivery_text(norm: dict, p0: float, system: str) -> str:
+    """The delivery pressure as the project states it (gauge or absolute), then in the other basis."""
+    key, _value = stated_delivery(norm)
+    p_abs = delivery_pressure(norm, p0)
+    absolute = _with(p_abs, "pressure", system)
+    gauge = _with(p_abs, "pressure", system, gauge=True, barometric_Pa=p0)
+    if key == GAUGE_KEY:
+        return f"{gauge} stated as gauge  (= {absolute} at this site)"
+    return f"{absolute} stated as absolute  (= {gauge} at this site)"
+
+
 def inputs(p: Pager, doc: dict, result: dict, system: str) -> None:
     """The inputs as entered; values the solver filled in are marked ``(default)``."""
     norm = normalise(doc)
@@ -106,8 +118,7 @@ def inputs(p: Pager, doc: dict, result: dict, system: str) -> None:
     rows.append(["Property model", model])
     name, quantity = _FLOW_TEXT[norm["flow"]["kind"]]
     rows.append([name, _with(norm["flow"]["value"], quantity, system)])
-    rows.append(["Discharge pressure", f"{_with(norm['discharge_pressure_Pa'], 'pressure', system)}  = "
-                 f"{_with(norm['discharge_pressure_Pa'], 'pressure', system, gauge=True, barometric_Pa=p0)}"])
+    rows.append(["Discharge pressure", _delivery_text(norm, p0, system)])
     rows.append(["Intake filter pressure drop", _with(norm["inlet_pressure_drop_Pa"], "pressure_difference", system)
                  + ("" if _entered(doc, ("inlet_pressure_drop_Pa",)) else " (default)")])
     rows.append(["Driver efficiency", f"{Q(norm['driver']['efficiency'], 'fraction', system)} %"
