@@ -67,3 +67,27 @@ def test_a_new_project_states_its_delivery_pressure_gauge():
     from thermo.project.validation import problems
     doc = new_document()
     assert doc[GAUGE] == 700_000.0 and ABSOLUTE not in doc and problems(doc) == []
+
+
+def test_the_flow_row_is_named_for_what_it_holds_and_normal_volume_names_its_state(qtbot, tmp_path):
+    """Issue 14, item 10: a shaft power is labelled Shaft power (not Flow); normal volume reads
+    Nm³/min or scfm with the reference state it refers to (thermo.flow: DIN 1343, 0 °C, 101 325 Pa)."""
+    doc = simple_real_gas_doc()
+    doc["flow"] = {"kind": "shaft_power", "value": 200_000.0}
+    win = make_window(qtbot, tmp_path, doc)
+    duty, ed = win.panels["duty"], win.editor
+    assert duty.flow_label.text() == "Shaft power" and duty.flow.unit_label.text() == "kW"
+    ed.set_value("flow", {"kind": "normal_volume", "value": 1.0})
+    assert duty.flow_label.text() == "Normal volume flow" and duty.flow.unit_label.text() == "Nm³/min"
+    assert duty.flow.text() == "60"  # 1 m³/s
+    tip = duty.flow.unit_label.toolTip()
+    assert "DIN 1343" in tip and "0 °C" in tip and "1.01325 bar(a)" in tip and "14.696 psia" in tip
+    win.action_map["view.us_units"].trigger()
+    assert duty.flow.unit_label.text() == "scfm"
+    assert float(duty.flow.text()) == pytest.approx(60.0 / 0.3048 ** 3, rel=1e-6)  # 1 ft = 0.3048 m (exact)
+    bal = win.panels["balance"]
+    row = [k for k, *_ in __import__("app.panels.balance_panel", fromlist=["TOTALS"]).TOTALS].index(
+        "normal_volume_flow_m3_s")
+    wait_solved(qtbot, win, 0)
+    assert bal.totals.item(row, 1).text().endswith("scfm") and "DIN 1343" in bal.totals.item(row, 0).toolTip()
+    win.close()

@@ -56,7 +56,7 @@ EXCHANGER_COLUMNS = ("ua", "lmtd", "coolant", "coolant_out")
 TOTALS = [
     ("mass_flow_kg_s", "Mass flow", "mass_flow"),
     ("free_air_delivery_m3_s", "Free air delivery", "volume_flow"),
-    ("normal_volume_flow_m3_s", "Normal volume flow", "volume_flow"),
+    ("normal_volume_flow_m3_s", "Normal volume flow", "normal_volume_flow"),
     ("shaft_power_W", "Shaft power", "power"),
     ("driver_power_W", "Driver input power", "power"),
     ("specific_power_kW_per_m3_min", "Specific power", "specific_power"),

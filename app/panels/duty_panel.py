@@ -10,6 +10,7 @@ from app.widgets.delivery_pressure_field import DeliveryPressureField
 from app.widgets.quantity_field import QuantityField
 from app.widgets.signals_blocked import signals_blocked
 from app.panels.base import FieldPanel
+from app.presentation.units import NORMAL_VOLUME_NOTE
 from thermo.project.delivery import DELIVERY_KEYS
 
 FLOW_CHOICES = [
@@ -21,6 +22,17 @@ FLOW_CHOICES = [
 #: flow kind -> key of the result carrying the same duty, to carry the value across a change
 _RESULT_KEY = {"mass": "mass_flow_kg_s", "free_air_delivery": "free_air_delivery_m3_s",
                "normal_volume": "normal_volume_flow_m3_s", "shaft_power": "shaft_power_W"}
+
+
+#: flow kind -> what the value is, with its reference state (tooltip of the row)
+_FLOW_TIPS = {
+    "free_air_delivery": "Free air delivery: the delivered flow as a volume at the site's intake state "
+                         "(ambient temperature, barometric pressure and humidity), ISO 1217.",
+    "normal_volume": NORMAL_VOLUME_NOTE,
+    "mass": "Mass flow of the (dry) air through the train.",
+    "shaft_power": "Shaft power: the total power the stages take at their shafts; the flow they move "
+                   "is found from it.",
+}
 
 
 class DutyPanel(FieldPanel):
@@ -37,7 +49,8 @@ class DutyPanel(FieldPanel):
                                  "Free air delivery: volume flow at the intake state. Normal volume: at "
                                  "0 °C and 1.01325 bar. Shaft power: finds the flow a running machine "
                                  "moves with the power it draws.")
-        self.add_row(form, "Flow", QuantityField(editor, "flow.value"))
+        self.flow = self.add_row(form, "Flow", QuantityField(editor, "flow.value"))
+        self.flow_label = form.labelForField(self.flow)  # named after the flow basis (after_refresh)
         self.pressure = self.bind(DeliveryPressureField(editor))
         self.gauge = QComboBox()
         self.gauge.addItems(["Gauge", "Absolute"])
@@ -62,6 +75,11 @@ class DutyPanel(FieldPanel):
     def after_refresh(self) -> None:
         with signals_blocked(self.gauge):
             self.gauge.setCurrentIndex(0 if self.editor.prefs.gauge else 1)
+        kind = self.editor.model.get("flow.kind")
+        self.flow_label.setText(dict(FLOW_CHOICES).get(kind, "Flow"))
+        tip = _FLOW_TIPS.get(kind, "")
+        self.flow_label.setToolTip(tip)
+        self.flow.unit_label.setToolTip(tip)
 
     def _choose_kind(self, kind: str) -> None:
         flow = dict(self.editor.model.get("flow", {}) or {})

@@ -74,7 +74,7 @@ def title_block(p: Pager, doc: dict, result: dict, info: ReportInfo) -> None:
 
 _FLOW_TEXT = {"mass": ("Mass flow", "mass_flow"),
               "free_air_delivery": ("Free air delivery (at intake conditions)", "volume_flow"),
-              "normal_volume": ("Normal volume flow (0 °C, 101.325 kPa)", "volume_flow"),
+              "normal_volume": ("Normal volume flow (0 °C, 101.325 kPa)", "normal_volume_flow"),
               "shaft_power": ("Shaft power (flow found from it)", "power")}
 
 
@@ -301,7 +301,7 @@ def totals_table(p: Pager, result: dict, system: str) -> None:
     rows = [
         ["Mass flow", _with(result["mass_flow_kg_s"], "mass_flow", s)],
         ["Free air delivery", _with(result["free_air_delivery_m3_s"], "volume_flow", s)],
-        ["Normal volume flow (0 °C, 101.325 kPa)", _with(result["normal_volume_flow_m3_s"], "volume_flow", s)],
+        ["Normal volume flow (0 °C, 101.325 kPa)", _with(result["normal_volume_flow_m3_s"], "normal_volume_flow", s)],
         ["Shaft power", _with(result["shaft_power_W"], "power", s)],
         ["Driver input power", _with(result["driver_power_W"], "power", s)],
         ["Specific power", _with(result["specific_power_kW_per_m3_min"], "specific_power", s)],
