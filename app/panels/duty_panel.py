@@ -10,7 +10,7 @@ from app.widgets.delivery_pressure_field import DeliveryPressureField
 from app.widgets.quantity_field import QuantityField
 from app.widgets.signals_blocked import signals_blocked
 from app.panels.base import FieldPanel
-from app.presentation.units import NORMAL_VOLUME_NOTE
+from app.presentation.result_notes import TOTAL_TIPS
 from thermo.project.delivery import DELIVERY_KEYS
 
 FLOW_CHOICES = [
@@ -26,9 +26,8 @@ _RESULT_KEY = {"mass": "mass_flow_kg_s", "free_air_delivery": "free_air_delivery
 
 #: flow kind -> what the value is, with its reference state (tooltip of the row)
 _FLOW_TIPS = {
-    "free_air_delivery": "Free air delivery: the delivered flow as a volume at the site's intake state "
-                         "(ambient temperature, barometric pressure and humidity), ISO 1217.",
-    "normal_volume": NORMAL_VOLUME_NOTE,
+    "free_air_delivery": TOTAL_TIPS["free_air_delivery_m3_s"],
+    "normal_volume": TOTAL_TIPS["normal_volume_flow_m3_s"],
     "mass": "Mass flow of the (dry) air through the train.",
     "shaft_power": "Shaft power: the total power the stages take at their shafts; the flow they move "
                    "is found from it.",
