@@ -192,7 +192,8 @@ def test_gauge_entry_is_relative_to_site_pressure(qtbot, tmp_path):
     n = ed.solved_jobs
     type_into(qtbot, duty.pressure, "7")
     wait_solved(qtbot, win, n)
-    assert ed.model.get("discharge_pressure_Pa") == 800_000.0  # 7 bar(g) + 1 bar(a) site
+    assert ed.model.get("discharge_gauge_pressure_Pa") == 700_000.0  # stated as typed: gauge
+    assert ed.result["delivery"]["pressure_Pa"] == pytest.approx(800_000.0)  # 7 bar(g) + 1 bar(a) site
     win.action_map["view.gauge"].trigger()
     assert duty.pressure.text() == "8" and duty.pressure.unit_label.text() == "bar(a)"
     win.close()
@@ -291,9 +292,9 @@ def test_help_shows_the_cautions_and_the_deferral_to_local_codes(qtbot, window):
 def test_problem_and_failure_messages_select_their_fields(qtbot, tmp_path):
     win = make_window(qtbot, tmp_path, simple_real_gas_doc())
     ed, msgs, duty = win.editor, win.panels["messages"], win.panels["duty"]
-    type_into(qtbot, duty.pressure, "-0.9")  # 0.1 bar(a): below the stage-1 inlet pressure
+    type_into(qtbot, duty.pressure, "-0.9")  # a gauge statement must be above 0 bar(g)
     problem = next(m for m in msgs.messages if m.severity == "problem")
-    assert problem.field == "discharge_pressure_Pa" and "Discharge pressure" in problem.text
+    assert problem.field == "discharge_gauge_pressure_Pa" and "Discharge pressure" in problem.text
     win.panels["train"].stage_form.value.setFocus()
     msgs._clicked(msgs.list.item(msgs.messages.index(problem)))
     qtbot.waitUntil(lambda: duty.pressure.edit.hasFocus(), timeout=2000)

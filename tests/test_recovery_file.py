@@ -81,7 +81,7 @@ def test_unsaved_work_that_does_not_validate_is_still_kept(data_dir):
     slot = RecoverySlot()
     slot.write(doc)  # autosave never refuses work in progress
     got = slot.read().document  # and restores it as it was, problems included
-    assert got == {"format": "stagewright-project", "version": 1, **doc}
+    assert got == {"format": "stagewright-project", "version": 2, **doc}  # a version-1 document, upgraded
     assert [p.field for p in problems(got)] == ["stages[0].efficiency.value"]
 
 

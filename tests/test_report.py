@@ -311,3 +311,16 @@ def test_report_with_the_staging_study(tmp_path):
         assert m and abs(float(m.group(1).replace(" ", "")) - r["driver_power_W"] / 1e3) <= 0.005
     for b in rows[0]["binding_limits"]:
         assert _flat(limit_sentence(b, None, "SI")) in _flat(text)
+
+
+def test_the_inputs_say_which_basis_the_delivery_pressure_was_stated_in(tmp_path):
+    gauge = make_doc(model="ideal_gas", P0=95_000.0)
+    del gauge["discharge_pressure_Pa"]
+    gauge["discharge_gauge_pressure_Pa"] = 8e5
+    for doc, stated, other in ((gauge, "8.0000 bar(g) stated as gauge", "(= 8.9500 bar(a) at this site)"),
+                               (make_doc(model="ideal_gas", P0=95_000.0, p_out=9e5),
+                                "9.0000 bar(a) stated as absolute", "(= 8.0500 bar(g) at this site)")):
+        pdf = tmp_path / "r.pdf"
+        export_report(doc, solve(doc).to_dict(), pdf)
+        text = _flat(_pdf_text(pdf)[0])
+        assert f"Discharge pressure {stated} {other}" in text  # gauge = absolute − barometric

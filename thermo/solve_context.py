@@ -34,6 +34,7 @@ from thermo.exergy import DeadState
 from thermo.models.base import Point, PropertyModel
 from thermo.moist.mixture import MoistMixture, make_mixture
 from thermo.moist.stream import MoistAir, intake_humidity_ratio
+from thermo.project.delivery import delivery_pressure
 from thermo.project.validation import ResolvedSite, resolve_site
 
 MIXTURE_CACHE_SIZE = 16  #: dry-air models whose moist mixture each thread keeps
@@ -167,12 +168,17 @@ class SolveContext:
         Dry-air property model named by the project.
     intake : IntakeState
         Stream model, mixture, humidity ratio and states of the intake air.
+    delivery_pressure_Pa : float
+        Absolute pressure wanted after the last cooler, resolved from what the project
+        states (absolute, or gauge above this solve's site pressure;
+        :func:`thermo.project.delivery.delivery_pressure`), [Pa].
     """
 
     norm: dict
     site: ResolvedSite
     model: PropertyModel
     intake: IntakeState
+    delivery_pressure_Pa: float
 
     @property
     def mixture(self) -> MoistMixture | None:
@@ -313,7 +319,7 @@ def intake_state(model: PropertyModel, site: ResolvedSite) -> IntakeState:
 
 
 def solve_context(norm: dict, model: PropertyModel, site: ResolvedSite | None = None) -> SolveContext:
-    """The context of one solve: resolved site, property model and intake state.
+    """The context of one solve: resolved site, property model, intake state, delivery pressure.
 
     Parameters
     ----------
@@ -344,6 +350,8 @@ def solve_context(norm: dict, model: PropertyModel, site: ResolvedSite | None = 
     >>> ctx = solve_context(norm, ConstantCpAir())
     >>> round(ctx.site.pressure_Pa), round(ctx.intake.dead.P0)  # ISO 2533 table: 89 875 Pa
     (89875, 89875)
+    >>> ctx.delivery_pressure_Pa  # stated absolute
+    400000.0
     """
     site = resolve_site(norm) if site is None else site
-    return SolveContext(norm, site, model, intake_state(model, site))
+    return SolveContext(norm, site, model, intake_state(model, site), delivery_pressure(norm, site.pressure_Pa))

@@ -14,6 +14,7 @@ from thermo.moist.stream import MoistAir, check_humid_range
 from thermo.moist.iso8573 import REFERENCE_PRESSURE, REFERENCE_TEMPERATURE, humidity_class
 from thermo.models.base import Point, PropertyModel
 from thermo.heat_recovery import heat_recovery
+from thermo.project.delivery import stated_delivery
 from thermo.solve_context import SolveContext
 from thermo.results import InletResult, TrainResult, Warning_, WaterResult
 from thermo.split import stage_pressure_ratios
@@ -103,13 +104,12 @@ def solve_train(ctx: SolveContext, mass_flow: float, detail: bool = True) -> Tra
     inlet = _intake_filter(ctx, mass_flow)
     specs = norm["stages"]
     drops = [(s["cooler"] or {}).get("pressure_drop_Pa", 0.0) for s in specs]
-    ratios = stage_pressure_ratios(ctx.intake.after_filter.P, norm["discharge_pressure_Pa"],
-                                   [s["pressure_ratio"] for s in specs], drops)
+    want = ctx.delivery_pressure_Pa  # resolved at the boundary (stated absolute or gauge)
+    ratios = stage_pressure_ratios(ctx.intake.after_filter.P, want, [s["pressure_ratio"] for s in specs], drops)
     line = _run_line(ctx, ratios, mass_flow, detail)
     if all(s["pressure_ratio"] is not None for s in specs):
-        want = norm["discharge_pressure_Pa"]
         if abs(line.point.P - want) > 1e-3 * want:
-            line.warnings.append(Warning_("discharge_pressure_Pa",
+            line.warnings.append(Warning_(stated_delivery(norm)[0],
                                           f"the stage ratios give {line.point.P:.0f} Pa after the last cooler, "
                                           f"not the {want:.0f} Pa asked for",
                                           message_detail("The stage pressure ratios give {got} after the last "

@@ -111,7 +111,7 @@ _RESIDUAL = {"style": "scientific", "decimals": 2, "where": _NOT_CSV}
 TOTALS: tuple[Figure, ...] = (
     Figure("mass_flow_kg_s", "Mass flow", "mass_flow", where=_NOT_CSV),
     Figure("free_air_delivery_m3_s", "Free air delivery", "volume_flow", where=_NOT_CSV),
-    Figure("normal_volume_flow_m3_s", "Normal volume flow", "volume_flow", where=_WINDOW_PDF,
+    Figure("normal_volume_flow_m3_s", "Normal volume flow", "normal_volume_flow", where=_WINDOW_PDF,
            looks={"pdf": Look(label="Normal volume flow (0 °C, 101.325 kPa)")}),
     Figure("shaft_power_W", "Shaft power", "power", where=_NOT_CSV),
     Figure("driver_power_W", "Driver input power", "power", where=_NOT_CSV),

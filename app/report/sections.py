@@ -14,6 +14,7 @@ __all__ = ["ReportInfo", "title_block", "inputs", "state_points_table", "compone
 
 from dataclasses import dataclass
 
+from thermo.project.delivery import GAUGE_KEY, delivery_pressure, stated_delivery
 from thermo.project.validation import normalise
 
 from app.presentation import balance_tables, staging_table, units
@@ -80,7 +81,7 @@ def title_block(p: Pager, doc: dict, result: dict, info: ReportInfo) -> None:
 
 _FLOW_TEXT = {"mass": ("Mass flow", "mass_flow"),
               "free_air_delivery": ("Free air delivery (at intake conditions)", "volume_flow"),
-              "normal_volume": ("Normal volume flow (0 °C, 101.325 kPa)", "volume_flow"),
+              "normal_volume": ("Normal volume flow (0 °C, 101.325 kPa)", "normal_volume_flow"),
               "shaft_power": ("Shaft power (flow found from it)", "power")}
 
 
@@ -88,6 +89,17 @@ def _efficiency_text(eff: dict, system: str) -> str:
     if eff["kind"] == "discharge_temperature":
         return f"measured discharge {_with(eff['value_K'], 'temperature', system)}"
     return f"{eff['kind']} {Q(eff['value'], 'fraction', system)} %"
+
+
+def _delivery_text(norm: dict, p0: float, system: str) -> str:
+    """The delivery pressure as the project states it (gauge or absolute), then in the other basis."""
+    key, _value = stated_delivery(norm)
+    p_abs = delivery_pressure(norm, p0)
+    absolute = _with(p_abs, "pressure", system)
+    gauge = _with(p_abs, "pressure", system, gauge=True, barometric_Pa=p0)
+    if key == GAUGE_KEY:
+        return f"{gauge} stated as gauge  (= {absolute} at this site)"
+    return f"{absolute} stated as absolute  (= {gauge} at this site)"
 
 
 def inputs(p: Pager, doc: dict, result: dict, system: str) -> None:
@@ -113,8 +125,7 @@ def inputs(p: Pager, doc: dict, result: dict, system: str) -> None:
     rows.append(["Property model", model])
     name, quantity = _FLOW_TEXT[norm["flow"]["kind"]]
     rows.append([name, _with(norm["flow"]["value"], quantity, system)])
-    rows.append(["Discharge pressure", f"{_with(norm['discharge_pressure_Pa'], 'pressure', system)}  = "
-                 f"{_with(norm['discharge_pressure_Pa'], 'pressure', system, gauge=True, barometric_Pa=p0)}"])
+    rows.append(["Discharge pressure", _delivery_text(norm, p0, system)])
     rows.append(["Intake filter pressure drop", _with(norm["inlet_pressure_drop_Pa"], "pressure_difference", system)
                  + ("" if _entered(doc, ("inlet_pressure_drop_Pa",)) else " (default)")])
     rows.append(["Driver efficiency", f"{Q(norm['driver']['efficiency'], 'fraction', system)} %"

@@ -137,10 +137,7 @@ class QuantityField(QWidget):
             self.editor.set_entry_error(self.path, None)
         u = self._unit()
         self.unit_label.setText(u.symbol)
-        value = self.editor.model.get(self.path)
-        if value is ABSENT or value is None:
-            norm = _normalised_default(self.editor, self.path)
-            value = norm
+        value = self.shown_si()
         if value is ABSENT or value is None:
             full = rounded = ""
         elif isinstance(value, (int, float)) and not isinstance(value, bool):
@@ -168,6 +165,17 @@ class QuantityField(QWidget):
             elif event.type() == QEvent.Type.FocusOut and self._shown_text == self._full_text:
                 self._show(self._rounded_text)
         return False
+
+    def shown_si(self):
+        """The value shown, in SI in the basis of :meth:`_unit`: the document's, else the schema default."""
+        value = self.editor.model.get(self.path)
+        if value is ABSENT or value is None:
+            value = _normalised_default(self.editor, self.path)
+        return value
+
+    def write_si(self, si: float) -> bool:
+        """Put a typed value (SI, basis of :meth:`_unit`) into the document as one undo step."""
+        return self.editor.set_value(self.path, si)
 
     def _fit(self, text: str) -> None:
         """Widen the field so that a shown value is never cut off (leading digits matter)."""
@@ -212,7 +220,7 @@ class QuantityField(QWidget):
             return
         si = float(f"{self._unit().to_si(shown):.{ENTRY_DIGITS}g}")
         self.editor.set_entry_error(self.path, None)
-        changed = self.editor.set_value(self.path, si)
+        changed = self.write_si(si)
         if not changed:
             self.refresh()
         self.committed.emit(self.path)

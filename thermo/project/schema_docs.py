@@ -62,7 +62,12 @@ PROJECT_KEYS = {
                                "gives this value.",
     "inlet_pressure_drop_Pa": "Pressure drop of the intake filter and silencer before stage 1.",
     "discharge_pressure_Pa": "Absolute pressure wanted after the last cooler (or after the last "
-                             "stage when it has no cooler).",
+                             "stage when it has no cooler). Give this or `discharge_gauge_pressure_Pa`, "
+                             "exactly one.",
+    "discharge_gauge_pressure_Pa": "The same delivery pressure stated gauge: above the site's barometric "
+                                   "pressure (given, or from the elevation). The statement is kept when "
+                                   "the site changes; the absolute pressure follows the site (since "
+                                   "version 2).",
     "driver": "The motor (or other driver) and its efficiency.",
     "driver.efficiency": "Driver efficiency: shaft power ÷ driver input power.",
     "stages": "The stages in flow order, 1 to 12.",

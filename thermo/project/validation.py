@@ -18,6 +18,7 @@ from typing import Any
 
 from thermo.atmosphere import SEA_LEVEL_PRESSURE, standard_pressure
 from thermo.errors import InputError, Problem, message_detail, quantity
+from thermo.project.delivery import ABSOLUTE_KEY, delivery_pressure, stated_delivery
 from thermo.project.schema import PROJECT
 from thermo.project.schema_types import check
 from thermo.year_profile import year_problems
@@ -254,12 +255,7 @@ def _cross_checks(norm: dict) -> list[Problem]:
                            message_detail("{label} {value} must be less than half the barometric pressure ({half})",
                                           {"value": quantity(norm["inlet_pressure_drop_Pa"], "pressure_difference"),
                                            "half": quantity(0.5 * p0, "pressure_difference")})))
-    if norm["discharge_pressure_Pa"] <= p1:
-        out.append(Problem("discharge_pressure_Pa", norm["discharge_pressure_Pa"],
-                           f"expected an absolute pressure above the stage-1 inlet pressure {p1:.0f} Pa",
-                           message_detail("{label} {value} must be above the stage 1 inlet pressure {p1}",
-                                          {"value": quantity(norm["discharge_pressure_Pa"], "pressure"),
-                                           "p1": quantity(p1, "pressure")})))
+    out.extend(_delivery_checks(norm, p0, p1))
     for i, st in enumerate(norm["stages"]):
         lo, hi = st.get("min_pressure_ratio"), st.get("max_pressure_ratio")
         if lo is not None and hi is not None and lo > hi:
@@ -273,6 +269,22 @@ def _cross_checks(norm: dict) -> list[Problem]:
         out.extend(_coolant_checks(cooler, f"stages[{i}].cooler"))
     out.extend(year_problems(norm))
     return out
+
+
+def _delivery_checks(norm: dict, p0: float, p1: float) -> list[Problem]:
+    """The delivery pressure, as stated (absolute or gauge), above the stage-1 inlet and within range."""
+    key, value = stated_delivery(norm)
+    p_d = delivery_pressure(norm, p0)
+    if key == ABSOLUTE_KEY:
+        if p_d <= p1:
+            return [Problem(key, value, f"expected an absolute pressure above the stage-1 inlet pressure {p1:.0f} Pa")]
+        return []
+    # a gauge pressure above zero is always above the stage-1 inlet (the filter only lowers it)
+    top = PROJECT.fields[ABSOLUTE_KEY].hi
+    if p_d > top:
+        return [Problem(key, value, f"expected at most {top - p0:.0f} Pa gauge at this site: the absolute "
+                                    f"delivery pressure can be at most {top:g} Pa")]
+    return []
 
 
 def _coolant_checks(cooler: dict | None, where: str) -> list[Problem]:

@@ -9,6 +9,7 @@ from typing import Any, Callable
 
 import numpy as np
 
+from thermo.project.delivery import delivery_pressure
 from thermo.project.validation import resolve_site
 from thermo.results import TrainResult
 from thermo.solve import model_for, solve
@@ -180,7 +181,7 @@ class _Problem:
         self.n = len(stages)
         self.site = resolve_site(doc)
         self.p_in = self.site.stage_inlet_pressure_Pa
-        self.p_d = doc["discharge_pressure_Pa"]
+        self.p_d = delivery_pressure(doc, self.site.pressure_Pa)  # stated absolute or gauge
         self.drops = [(s["cooler"] or {}).get("pressure_drop_Pa", 0.0) for s in stages]
         self.bounds: RatioBounds = ratio_bounds(stages)
         free = [i for i in range(self.n) if not self.bounds.pinned(i)]

@@ -8,6 +8,7 @@ from typing import Callable
 
 
 from thermo.cooler import cooler_outlet_temperature
+from thermo.project.delivery import delivery_pressure
 from thermo.project.validation import ResolvedSite, resolve_site
 from thermo.errors import InputError
 from thermo.flow import mass_flow_from
@@ -167,7 +168,7 @@ def ideal_gas_split(doc: dict, model: PropertyModel, p_in: float, bounds: RatioB
     n = len(stages)
     k = [T_in[i] * e[i] / c[i] for i in range(n)]
     drops = [(s["cooler"] or {}).get("pressure_drop_Pa", 0.0) for s in stages]
-    p_d = doc["discharge_pressure_Pa"]
+    p_d = delivery_pressure(doc, site.pressure_Pa)  # stated absolute or gauge
     q = [1.0] * n  # Q_i / p_d: the drops' weight on each stage, updated below
 
     def ratios_at(u: float) -> list[float]:
