@@ -84,10 +84,11 @@ def test_the_flow_row_is_named_for_what_it_holds_and_normal_volume_names_its_sta
     assert "DIN 1343" in tip and "0 °C" in tip and "1.01325 bar(a)" in tip and "14.696 psia" in tip
     win.action_map["view.us_units"].trigger()
     assert duty.flow.unit_label.text() == "scfm"
-    assert float(duty.flow.text()) == pytest.approx(60.0 / 0.3048 ** 3, rel=1e-6)  # 1 ft = 0.3048 m (exact)
+    assert duty.flow.text() == "2119"  # shown to four significant digits; the tooltip has them all
+    assert float(duty.flow.edit.toolTip().split()[0]) == pytest.approx(60.0 / 0.3048 ** 3, rel=1e-6)  # 1 ft = 0.3048 m (exact)
     bal = win.panels["balance"]
-    row = [k for k, *_ in __import__("app.panels.balance_panel", fromlist=["TOTALS"]).TOTALS].index(
-        "normal_volume_flow_m3_s")
+    from app.panels.balance_panel import TOTALS
+    row = [f.key for f in TOTALS].index("normal_volume_flow_m3_s")
     wait_solved(qtbot, win, 0)
     assert bal.totals.item(row, 1).text().endswith("scfm") and "DIN 1343" in bal.totals.item(row, 0).toolTip()
     win.close()

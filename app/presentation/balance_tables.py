@@ -110,9 +110,10 @@ _RESIDUAL = {"style": "scientific", "decimals": 2, "where": _NOT_CSV}
 #: the train's totals (paths into the result); the text table lower-cases a label's first letter
 TOTALS: tuple[Figure, ...] = (
     Figure("mass_flow_kg_s", "Mass flow", "mass_flow", where=_NOT_CSV),
-    Figure("free_air_delivery_m3_s", "Free air delivery", "volume_flow", where=_NOT_CSV),
+    Figure("free_air_delivery_m3_s", "Free air delivery", "volume_flow", where=_NOT_CSV,
+           note=TOTAL_TIPS["free_air_delivery_m3_s"]),
     Figure("normal_volume_flow_m3_s", "Normal volume flow", "normal_volume_flow", where=_WINDOW_PDF,
-           looks={"pdf": Look(label="Normal volume flow (0 °C, 101.325 kPa)")}),
+           note=TOTAL_TIPS["normal_volume_flow_m3_s"], looks={"pdf": Look(label="Normal volume flow (0 °C, 101.325 kPa)")}),
     Figure("shaft_power_W", "Shaft power", "power", where=_NOT_CSV),
     Figure("driver_power_W", "Driver input power", "power", where=_NOT_CSV),
     Figure("specific_power_kW_per_m3_min", "Specific power", "specific_power", where=_NOT_CSV),

@@ -71,4 +71,5 @@ class DeliveryPressureField(QuantityField):
             self.edit.setProperty("invalid", invalid)
             self.edit.style().unpolish(self.edit)
             self.edit.style().polish(self.edit)
-        self.edit.setToolTip(message or "")
+        exact = f"{self._full_text} {self.unit_label.text()}".strip() if self._full_text else ""
+        self.edit.setToolTip(message or exact)

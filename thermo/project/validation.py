@@ -277,7 +277,9 @@ def _delivery_checks(norm: dict, p0: float, p1: float) -> list[Problem]:
     p_d = delivery_pressure(norm, p0)
     if key == ABSOLUTE_KEY:
         if p_d <= p1:
-            return [Problem(key, value, f"expected an absolute pressure above the stage-1 inlet pressure {p1:.0f} Pa")]
+            return [Problem(key, value, f"expected an absolute pressure above the stage-1 inlet pressure {p1:.0f} Pa",
+                            message_detail("{label} {value} must be above the stage 1 inlet pressure {p1}",
+                                           {"value": quantity(p_d, "pressure"), "p1": quantity(p1, "pressure")}))]
         return []
     # a gauge pressure above zero is always above the stage-1 inlet (the filter only lowers it)
     top = PROJECT.fields[ABSOLUTE_KEY].hi
