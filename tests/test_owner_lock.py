@@ -14,8 +14,8 @@ import sys
 import pytest
 
 from app.document import owner_lock
-from tests.conftest import ROOT
 from app.document.owner_lock import OwnerLock, owner_alive, process_identity
+from tests.conftest import ROOT
 
 
 def test_one_holder_at_a_time_even_in_one_process(tmp_path):
