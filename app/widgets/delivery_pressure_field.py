@@ -61,15 +61,9 @@ class DeliveryPressureField(QuantityField):
         pairs = [(key, si)] + [(other, ABSENT) for other in DELIVERY_KEYS if other != key]
         return self.editor.set_values(pairs, "Change discharge pressure")
 
-    def update_mark(self) -> None:
-        """Mark the field with a problem of either statement (or of unreadable text)."""
+    def problem_message(self) -> str | None:
+        """A problem of either statement (or of unreadable text)."""
         message = self.editor.problem_for(self.path)
         for key in DELIVERY_KEYS:
             message = message or self.editor.problem_for(key)
-        invalid = message is not None
-        if self.edit.property("invalid") != invalid:
-            self.edit.setProperty("invalid", invalid)
-            self.edit.style().unpolish(self.edit)
-            self.edit.style().polish(self.edit)
-        exact = f"{self._full_text} {self.unit_label.text()}".strip() if self._full_text else ""
-        self.edit.setToolTip(message or exact)
+        return message

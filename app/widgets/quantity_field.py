@@ -184,7 +184,7 @@ class QuantityField(QWidget):
 
     def update_mark(self) -> None:
         """Mark the field red with the reason as tooltip when the editor knows a problem with it."""
-        message = self.editor.problem_for(self.path)
+        message = self.problem_message()
         invalid = message is not None
         if self.edit.property("invalid") != invalid:
             self.edit.setProperty("invalid", invalid)
@@ -192,6 +192,10 @@ class QuantityField(QWidget):
             self.edit.style().polish(self.edit)
         exact = f"{self._full_text} {self.unit_label.text()}".strip() if self._full_text else ""
         self.edit.setToolTip(message or exact)
+
+    def problem_message(self) -> str | None:
+        """The editor's problem with this field's value, or None."""
+        return self.editor.problem_for(self.path)
 
     # ---- editing -------------------------------------------------------------------------
     def commit(self) -> None:
