@@ -124,3 +124,19 @@ def test_the_largest_document_the_schema_allows_fits_the_limits():
     data = dumps(_largest(PROJECT)).encode("utf-8")
     assert len(data) < MAX_FILE_BYTES / 2, f"{len(data)} bytes: raise MAX_FILE_BYTES"
     assert parse_bytes(data)["stages"][0]["name"].startswith("\U0001F600")  # and depth is within MAX_DEPTH
+
+
+def test_unterminated_string_of_escaped_quotes_is_refused_in_linear_time():
+    # issue 22 item 6: the depth scanner's regex retried the unterminated string from every
+    # quote, 35 s for 60 kB; now one pass
+    from tests.time_limit import finishes_within
+    from thermo.errors import ProjectFileError
+    from thermo.project.parse import parse_bytes
+
+    data = b'{"title": "' + b'\\"' * 100_000
+    with finishes_within(5.0, "refusing 200 kB of escaped quotes"):
+        with pytest.raises(ProjectFileError, match="line 1, column 11"):
+            parse_bytes(data)
+    deep = b'{"title": "' + b'\\"' * 1000 + b'", "x": ' + b"[" * 40 + b"]" * 40 + b"}"
+    with pytest.raises(ProjectFileError, match="nested more than"):
+        parse_bytes(deep)  # brackets after a string full of escaped quotes are still counted

@@ -31,7 +31,10 @@ MAX_FILE_BYTES = 16_000_000
 MAX_DEPTH = 32
 _MAX_INT_DIGITS = 100
 
-_TOKENS = re.compile(r'"(?:[^"\\]|\\.)*"|[\[\]{}]', re.DOTALL)
+#: a string (an unterminated one runs to the end of the text: matching it once keeps the scan
+#: linear, where a required closing quote made every later quote start a new failing match),
+#: or a bracket
+_TOKENS = re.compile(r'"(?:[^"\\]|\\.)*"?|[\[\]{}]', re.DOTALL)
 
 
 def position(text: str, index: int) -> tuple[int, int]:
