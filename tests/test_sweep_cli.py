@@ -84,5 +84,5 @@ def test_a_gauge_axis_on_an_absolute_project_replaces_its_statement(tmp_path, ca
     assert row["error"] == ""
     assert float(row["shaft_power_W"]) == pytest.approx(thermo.solve(doc).shaft_power_W, rel=1e-4)  # fast path
     assert main(["sweep", str(DEMO), "--axis", "discharge_gauge_pressure_Pa=7e5",
-                 "--axis", "discharge_pressure_Pa=8e5", "-o", str(out)]) == 2
+                 "--axis", "discharge_pressure_Pa=8e5", "-o", str(tmp_path / "both.csv")]) == 2
     assert "not both" in capsys.readouterr().err

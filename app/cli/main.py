@@ -6,11 +6,12 @@
     stagewright study PROJECT --max-stages N   staging options side by side (app/cli/study.py)
     stagewright sweep PROJECT --axis FIELD=START:STOP:N …
                                                a grid of input values, one CSV row per point
-    stagewright report FILE|FOLDER … [-o OUT] [--csv [OUT.csv]] [--units SI|US]
+    stagewright report FILE|FOLDER … [-o OUT] [--csv [OUT.csv]] [--units SI|US] [--force]
                                                PDF (and CSV) reports
 
 Nothing here imports Qt or the window (``app/entry.py`` opens the window when no
-sub-command is named). Every failure is one line on stderr; the exit status is 0 when
+sub-command is named). Outputs never replace an input, an existing file only with ``--force``
+(``app/cli/outputs.py``). Every failure is one line on stderr; the exit status is 0 when
 all files succeeded, 2 when any input was rejected.
 """
 from __future__ import annotations

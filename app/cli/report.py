@@ -12,6 +12,7 @@ import argparse
 import sys
 from pathlib import Path
 
+from app.cli.outputs import FORCE_HELP, output_problems
 from app.cli.paths import EXIT_FAILED, EXIT_INPUT, EXIT_OK, expand_paths
 
 
@@ -24,6 +25,7 @@ def add_arguments(p: argparse.ArgumentParser) -> None:
                    help="also write the balance sheet as CSV (file for one project; "
                         "without a value: beside each PDF)")
     p.add_argument("--units", choices=("SI", "US"), default="SI", help="display units (default SI)")
+    p.add_argument("--force", action="store_true", help=FORCE_HELP)
     p.add_argument("--stagings", type=int, choices=range(1, 9), metavar="N", default=None,
                    help="also compare 1 … N stages, each at its optimum split, and print the comparison")
 
@@ -65,9 +67,16 @@ def run(args) -> int:
         print(f"--csv {args.csv}: give --csv without a file name for several projects (one CSV beside each PDF)",
               file=sys.stderr)
         return EXIT_INPUT
+    plan = output_paths(paths, args.output, args.csv)
+    refused = output_problems(paths, [f for pair in plan for f in pair if f is not None],
+                              force=getattr(args, "force", False), create_folders=True)
+    if refused:  # before any work: nothing is written when one output may not be
+        for line in refused:
+            print(line, file=sys.stderr)
+        return EXIT_INPUT
     status = EXIT_OK
     with Progress(len(paths)) as bar:
-        for path, (pdf, csv_path) in zip(paths, output_paths(paths, args.output, args.csv)):
+        for path, (pdf, csv_path) in zip(paths, plan):
             bar.step(path.name)
             try:
                 doc = load(path)

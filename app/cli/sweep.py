@@ -13,7 +13,9 @@ each column name) and, for a point that cannot be solved, its message.
 Grid points are solved on the fast property path (agreement with a full solve better than 1e-4
 relative in every column; see ``thermo/sweep.py``); solve a chosen point with
 ``stagewright solve`` for its full balance. Exit status 0 when the grid was solved (points that
-fail are rows with their message), 2 when the project or an axis is rejected, 1 when interrupted.
+fail are rows with their message), 2 when the project, an axis or the output is refused, 1 when interrupted
+or the output cannot be written. ``-o`` never writes over the project, and replaces an existing
+file only with ``--force`` (app/cli/outputs.py).
 """
 from __future__ import annotations
 
@@ -21,8 +23,10 @@ __all__ = ["build_parser", "run", "parse_axis"]
 
 import argparse
 import csv
+import io
 import math
 import sys
+from pathlib import Path
 
 EXIT_OK, EXIT_INTERRUPTED, EXIT_INPUT = 0, 1, 2
 MAX_AXIS_VALUES = 10_000
@@ -37,6 +41,7 @@ def build_parser() -> argparse.ArgumentParser:
                    help="a field path and its values in SI units: N evenly spaced values from START to STOP, "
                         "or a list; repeat for a grid")
     p.add_argument("-o", "--output", metavar="OUT.csv", help="CSV file (default: standard output)")
+    p.add_argument("--force", action="store_true", help="replace OUT.csv if it exists (never the project file)")
     p.add_argument("--processes", type=int, metavar="N",
                    help="worker processes (default: every core for 2000 points or more, else 1)")
     return p
@@ -92,6 +97,12 @@ def run(args) -> int:
 
     from app.cli.progress import Progress
 
+    if args.output:
+        from app.cli.outputs import output_problems
+        refused = output_problems([Path(args.project)], [Path(args.output)], force=args.force)
+        if refused:  # before the sweep: its work would be lost
+            print(f"-o {refused[0]}", file=sys.stderr)
+            return EXIT_INPUT
     try:
         doc = load(args.project)
         axes: dict[str, list[float]] = {}
@@ -111,16 +122,19 @@ def run(args) -> int:
     except KeyboardInterrupt:
         print(f"{args.project}: sweep interrupted", file=sys.stderr)
         return EXIT_INTERRUPTED
-    out = open(args.output, "w", newline="", encoding="utf-8") if args.output else sys.stdout
-    try:
-        w = csv.writer(out)
-        w.writerow(list(axes) + list(SWEEP_OUTPUTS) + ["error"])
-        for i, point in enumerate(result.points):
-            values = ["" if result.values[k][i] is None else repr(result.values[k][i]) for k in SWEEP_OUTPUTS]
-            w.writerow([repr(v) for v in point] + values + [result.errors.get(i, "")])
-    finally:
-        if out is not sys.stdout:
-            out.close()
+    out = io.StringIO() if args.output else sys.stdout
+    w = csv.writer(out)
+    w.writerow(list(axes) + list(SWEEP_OUTPUTS) + ["error"])
+    for i, point in enumerate(result.points):
+        values = ["" if result.values[k][i] is None else repr(result.values[k][i]) for k in SWEEP_OUTPUTS]
+        w.writerow([repr(v) for v in point] + values + [result.errors.get(i, "")])
+    if args.output:
+        from app.cli.outputs import write_text_atomically
+        try:
+            write_text_atomically(Path(args.output), out.getvalue())
+        except OSError as exc:
+            print(f"-o {args.output}: cannot write ({exc.strerror or exc}); nothing was written", file=sys.stderr)
+            return EXIT_INTERRUPTED
     failed = len(result.errors)
     if failed:
         print(f"{args.project}: {failed} of {len(result.points)} points could not be solved (see the error column)",
