@@ -24,6 +24,7 @@ import sys
 
 from app.cli import check, report, solve, study, sweep, year
 from app.cli.paths import EXIT_FAILED, expand_paths
+from app.cli.terminal import escaped_output
 
 #: sub-command -> module with ``run(args)`` and either ``build_parser()`` or ``add_arguments(p)``
 #: (imported here, not by name at run time, so the import contracts see them; each module
@@ -61,7 +62,8 @@ def main(argv: list[str] | None = None) -> int:
     module = SUBCOMMANDS[argv[0]]
     args = _parser(argv[0], module).parse_args(argv[1:])
     try:
-        return module.run(args)
+        with escaped_output():  # text from files never acts on the terminal (app/cli/terminal.py)
+            return module.run(args)
     except KeyboardInterrupt:
         return EXIT_FAILED
     except BrokenPipeError:  # output piped into e.g. `head`, which stopped reading

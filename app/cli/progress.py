@@ -12,6 +12,8 @@ import shutil
 import sys
 import time
 
+from app.cli.terminal import EscapingStream, escape_controls
+
 
 class Progress:
     """``with Progress(n) as bar: bar.step(name)`` prints ``[k/n] name  elapsed`` in place.
@@ -28,6 +30,8 @@ class Progress:
         self.count = 0
         self.t0 = time.monotonic()
         self._shown = False
+        # the progress line's own control sequences go to the real terminal; names are escaped
+        self._raw = self.stream.raw if isinstance(self.stream, EscapingStream) else self.stream
 
     def __enter__(self) -> "Progress":
         return self
@@ -37,8 +41,8 @@ class Progress:
 
     def _clear(self) -> None:
         if self._shown:
-            self.stream.write("\r\033[K")
-            self.stream.flush()
+            self._raw.write("\r\033[K")
+            self._raw.flush()
             self._shown = False
 
     def step(self, name: str) -> None:
@@ -47,9 +51,9 @@ class Progress:
         if not self.enabled:
             return
         width = shutil.get_terminal_size((80, 20)).columns
-        text = f"[{self.count}/{self.total}] {name}  {time.monotonic() - self.t0:5.1f} s"
-        self.stream.write("\r\033[K" + text[: max(width - 1, 10)])
-        self.stream.flush()
+        text = escape_controls(f"[{self.count}/{self.total}] {name}  {time.monotonic() - self.t0:5.1f} s")
+        self._raw.write("\r\033[K" + text[: max(width - 1, 10)])
+        self._raw.flush()
         self._shown = True
 
     def message(self, text: str) -> None:
