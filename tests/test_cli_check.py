@@ -5,6 +5,10 @@ import json
 import subprocess
 import sys
 
+import pytest
+
+import thermo.errors
+
 from app.cli.main import main
 from tests.conftest import ROOT, SAMPLES, make_doc
 from thermo.project.schema import FORMAT_VERSION, PROJECT
@@ -81,3 +85,29 @@ def test_garbage_never_gives_a_traceback(tmp_path):
     assert "Traceback" not in proc.stdout + proc.stderr and proc.stderr == ""
     lines = proc.stdout.splitlines()
     assert [line.split(": ", 1)[0] for line in lines] == [str(p) for p in paths]
+
+
+@pytest.mark.parametrize("change", [
+    lambda d: d["flow"].update(kind="x" * 3_000_000),        # a wrong value of megabytes
+    lambda d: d.update({"y" * 1_000_000: 1}),                 # an unknown key of a megabyte
+    lambda d: d.update(format="z" * 1_000_000),               # not our format, at length
+    lambda d: d["stages"][0].update(efficiency=list(range(200_000))),  # a long list where an object goes
+], ids=["value", "key", "format", "list"])
+def test_messages_cut_an_echoed_value_to_a_readable_length(tmp_path, capsys, change):
+    # issue 22 item 8: the whole value was echoed (a 3 MB line, a dialog half a million pixels tall)
+    from app.document.field_specs import problem_message
+    from thermo.project import load_with_problems
+
+    doc = json.loads((SAMPLES / "two_stage_plant_air.json").read_text(encoding="utf-8"))
+    change(doc)
+    path = tmp_path / "p.json"
+    path.write_text(json.dumps(doc), encoding="utf-8")
+    assert main(["check", str(path)]) == 2
+    lines = capsys.readouterr().out.splitlines()
+    assert lines and all(len(line) < 600 for line in lines), max(map(len, lines))
+    try:
+        _, found = load_with_problems(path)
+    except thermo.errors.ProjectFileError as exc:
+        assert len(str(exc)) < 400
+    else:
+        assert found and all(len(problem_message(p, doc)) < 600 for p in found)

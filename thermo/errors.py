@@ -13,10 +13,35 @@ name of the field the error is about, which only the front end knows.
 from __future__ import annotations
 
 __all__ = ["StagewrightError", "InputError", "SecondLawViolation", "PropertyRangeError",
-           "Problem", "ProjectFileError", "SaveError", "quantity", "message_detail"]
+           "Problem", "ProjectFileError", "SaveError", "quantity", "message_detail", "shown_value",
+           "SHOWN_VALUE_CHARS"]
 
 from dataclasses import dataclass, field
 from typing import Any
+
+
+#: longest echo of a bad value in a message, [characters]; a file may hold megabytes in one value
+SHOWN_VALUE_CHARS = 80
+
+
+def shown_value(value: Any, limit: int = SHOWN_VALUE_CHARS) -> str:
+    """``repr(value)`` cut to ``limit`` characters, saying how long it was, for echoing in messages.
+
+    Examples
+    --------
+    >>> shown_value("mass")
+    "'mass'"
+    >>> shown_value("x" * 1000, limit=12)
+    "'xxxxxxxxxx… (1000 characters)"
+    """
+    if isinstance(value, str):  # no repr of megabytes only to cut it short
+        text, length = repr(value[: 2 * limit]), len(value)
+    else:
+        text = repr(value)
+        length = len(text)
+    if len(text) <= limit and length <= 2 * limit:
+        return text
+    return f"{text[:limit - 1]}… ({length} characters)"
 
 
 def quantity(value: float, kind: str | None) -> dict:
@@ -48,7 +73,7 @@ class Problem:
     detail: dict | None = field(default=None, compare=False, hash=False)
 
     def __str__(self) -> str:
-        return f"{self.field}: {self.value!r} — {self.expected}"
+        return f"{self.field}: {shown_value(self.value)} — {self.expected}"
 
 
 class StagewrightError(ValueError):

@@ -12,7 +12,7 @@ __all__ = ["FieldSpec", "spec_for", "quantity_for", "describe", "edit_text", "sc
 import re
 from dataclasses import dataclass
 
-from thermo.errors import Problem
+from thermo.errors import InputError, Problem, shown_value
 from thermo.project.schema import PROJECT
 from thermo.project.schema_types import Items, Num, Obj, Variant
 from thermo.year_profile import MONTH_NAMES
@@ -140,6 +140,10 @@ def describe(path: str, doc: dict) -> str:
         return "Project"
     if path == "stages":
         return "Stage list"
+    try:
+        parse_path(path)
+    except InputError:  # an unknown key that is no plain name ("a.b", cut at length): shown as the file has it
+        return path
     spec = spec_for(path)
     where = _where(path, doc)
     if spec is None:
@@ -229,6 +233,11 @@ def range_text(path: str, doc: dict, system: str = "SI", barometric_Pa: float = 
 def problem_message(problem: Problem, doc: dict, system: str = "SI",
                     barometric_Pa: float = 101_325.0, gauge: bool = False) -> str:
     """One line for the messages area, in display units where the field is a quantity."""
+    found = "" if problem.value is None else f" (found {shown_value(problem.value)})"
+    try:
+        parse_path(problem.field)
+    except InputError:  # an unknown key that is no plain name: no schema node, no quantity
+        return f"{problem.field}: {problem.expected}{found}"
     name = describe(problem.field, doc)
     node = schema_node(problem.field, doc)
     quantity = quantity_for(problem.field, doc)
@@ -245,4 +254,4 @@ def problem_message(problem: Problem, doc: dict, system: str = "SI",
         return f"{name}: {shown} is out of range (allowed: {rng})."
     if value is None and expected == "required key is missing":
         return f"{name}: a value is required."
-    return f"{name}: {expected}" + ("" if value is None else f" (found {value!r})")
+    return f"{name}: {expected}{found}"

@@ -12,7 +12,7 @@ from typing import Any
 
 from thermo.project import schema
 from thermo.project.validation import problems
-from thermo.errors import InputError, ProjectFileError, StagewrightError
+from thermo.errors import InputError, ProjectFileError, StagewrightError, shown_value
 from thermo.project.migrate import migrate
 from thermo.project.parse import parse_bytes, read_limited
 
@@ -25,10 +25,10 @@ def recognise(data: Any) -> dict:
                                "(expected a JSON object with site, flow and stages)", field="(document)")
     if "format" in data:
         if data["format"] != schema.FORMAT_NAME:
-            raise ProjectFileError(f"format: {data['format']!r} — not a Stagewright project file "
+            raise ProjectFileError(f"format: {shown_value(data['format'])} — not a Stagewright project file "
                                    f"(expected {schema.FORMAT_NAME!r})", field="format")
     elif not set(data) & set(schema.PROJECT.fields):
-        keys = ", ".join(sorted(data)[:5]) or "none"
+        keys = ", ".join(k if k.isidentifier() and len(k) <= 40 else shown_value(k, 40) for k in sorted(data)[:5]) or "none"
         raise ProjectFileError(f"(document): no 'format' key and none of the project keys (found: {keys}) "
                                "— not a Stagewright project", field="(document)")
     return data

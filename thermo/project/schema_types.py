@@ -116,14 +116,27 @@ def _check_num(s: Num, v: Any, path: str, out: list) -> Any:
     return int(v) if s.integer else float(v)
 
 
+#: longest key name echoed in a field path, [characters]
+_SHOWN_KEY_CHARS = 60
+
+
+def _shown_key(key: str) -> str:
+    """An unknown key as a field path shows it: as it is when a plain name, else quoted ("" or
+    "a.b" stay visible as keys), cut to a readable length (a file may hold a megabyte key)."""
+    if key.isidentifier() and len(key) <= _SHOWN_KEY_CHARS:
+        return key
+    if len(key) > _SHOWN_KEY_CHARS:
+        return json.dumps(key[:_SHOWN_KEY_CHARS - 1])[:-1] + f'…" ({len(key)} characters)'
+    return json.dumps(key)
+
+
 def _check_fields(fields: dict, v: dict, path: str, out: list, skip=()) -> dict:
     result = {}
     prefix = f"{path}." if path else ""
     for key in v:
         if key not in fields and key not in skip:
             known = ", ".join(sorted(list(fields) + list(skip)))
-            shown = key if key.isidentifier() else json.dumps(key)  # "" or "a.b" stay visible as keys
-            out.append(Problem(f"{prefix}{shown}", v[key], f"unknown key; known keys here: {known}"))
+            out.append(Problem(f"{prefix}{_shown_key(key)}", v[key], f"unknown key; known keys here: {known}"))
     for key, sub in fields.items():
         if key in v:
             result[key] = check(sub, v[key], f"{prefix}{key}", out)
