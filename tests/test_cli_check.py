@@ -111,3 +111,18 @@ def test_messages_cut_an_echoed_value_to_a_readable_length(tmp_path, capsys, cha
         assert len(str(exc)) < 400
     else:
         assert found and all(len(problem_message(p, doc)) < 600 for p in found)
+
+
+def test_a_list_of_far_too_many_items_is_one_message(tmp_path, capsys):
+    # issue 22 item 7: 2 million empty stages took 13–22 s and 1.3 GB, and check printed a line
+    # per stage; the list is now refused at its documented limit before anything copies it
+    from tests.time_limit import finishes_within
+
+    text = (SAMPLES / "two_stage_plant_air.json").read_text(encoding="utf-8")
+    text = text.replace('"stages": [', '"stages": [' + "{}," * 300_000, 1)
+    path = tmp_path / "many.json"
+    path.write_text(text, encoding="utf-8")
+    with finishes_within(30.0, "checking 300 000 stages"):
+        assert main(["check", str(path)]) == 2
+    lines = capsys.readouterr().out.splitlines()
+    assert len(lines) == 1 and "stages: 300002 items — expected at most 12" in lines[0], lines[:3]

@@ -140,3 +140,14 @@ def test_unterminated_string_of_escaped_quotes_is_refused_in_linear_time():
     deep = b'{"title": "' + b'\\"' * 1000 + b'", "x": ' + b"[" * 40 + b"]" * 40 + b"}"
     with pytest.raises(ProjectFileError, match="nested more than"):
         parse_bytes(deep)  # brackets after a string full of escaped quotes are still counted
+
+
+@pytest.mark.parametrize("depth", [MAX_DEPTH, MAX_DEPTH + 1])
+def test_depth_limit_counts_brackets_outside_strings_only(depth):
+    inside = '"' + "[" * 100 + '\\"{"'  # brackets in a string (with an escaped quote) do not nest
+    text = '{"title": ' + inside + ', "x": ' + "[" * (depth - 1) + "]" * (depth - 1) + "}"
+    if depth <= MAX_DEPTH:
+        assert parse_bytes(text.encode())["title"] == "[" * 100 + '"{'
+    else:
+        with pytest.raises(ProjectFileError, match=f"line 1, column {len(text) - 2 * (depth - 1) - 1 + MAX_DEPTH}"):
+            parse_bytes(text.encode())

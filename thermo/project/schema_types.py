@@ -194,7 +194,12 @@ def check(schema: Any, value: Any, path: str, out: list) -> Any:
         if not isinstance(value, list):
             out.append(Problem(path, value, "expected a list"))
             return []
-        if not schema.min_length <= len(value) <= schema.max_length:
+        if len(value) > schema.max_length:  # one message, not one per item of a list of millions
+            out.append(Problem(path, f"{len(value)} item(s)",
+                               f"expected {schema.min_length} to {schema.max_length} items; "
+                               "the items were not checked"))
+            return list(value)
+        if len(value) < schema.min_length:
             out.append(Problem(path, f"{len(value)} item(s)",
                                f"expected {schema.min_length} to {schema.max_length} items"))
         return [check(schema.item, item, f"{path}[{i}]", out) for i, item in enumerate(value)]
