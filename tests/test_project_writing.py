@@ -206,21 +206,75 @@ def test_injected_failure_leaves_the_original_byte_identical(project, monkeypatc
     assert load(path)["title"] == "never written"
 
 
-def test_rename_failing_after_the_backup_keeps_the_original_in_both_places(project, monkeypatch):
-    path, changed = project
-    original = path.read_bytes()
-    real, calls = os.replace, []
+def _project_rename_fails(monkeypatch, path):
+    """The rename that puts the new project file in place fails (whatever the order of steps)."""
+    real = os.replace
 
-    def second_fails(src, dst):
-        calls.append(dst)
-        if len(calls) == 2:  # the first rename puts the backup in place, the second the project
+    def project_rename_fails(src, dst):
+        if os.path.realpath(dst) == os.path.realpath(path):
             raise OSError(errno.EIO, "I/O error")
         real(src, dst)
-    monkeypatch.setattr(os, "replace", second_fails)
+    monkeypatch.setattr(os, "replace", project_rename_fails)
+
+
+def test_rename_failing_after_the_backup_link_keeps_the_original_and_makes_no_backup(project, monkeypatch):
+    path, changed = project
+    original = path.read_bytes()
+    _project_rename_fails(monkeypatch, path)
     with pytest.raises(SaveError, match="I/O error"):
         save(changed, path)
-    assert path.read_bytes() == original == backup_path(path).read_bytes()
+    assert path.read_bytes() == original and not backup_path(path).exists()
     assert _leftovers(path.parent) == []
+
+
+def test_a_failed_final_rename_keeps_the_older_backup(project, monkeypatch):
+    # issue 22 item 4: the backup was replaced before the rename that failed, losing the older one
+    path, changed = project
+    save(changed, path)  # plant.json = "changed", its backup = the first save
+    older_backup, current = backup_path(path).read_bytes(), path.read_bytes()
+    changed["title"] = "never written"
+    _project_rename_fails(monkeypatch, path)
+    with pytest.raises(SaveError, match="the previous file is unchanged"):
+        save(changed, path)
+    assert path.read_bytes() == current
+    assert backup_path(path).read_bytes() == older_backup
+    assert _leftovers(path.parent) == []
+
+
+def test_a_read_only_project_file_is_not_replaced(project):
+    # issue 22 item 4: Save replaced a read-only file silently (rename needs only the folder writable)
+    path, changed = project
+    before = path.read_bytes()
+    os.chmod(path, 0o444)
+    try:
+        with pytest.raises(SaveError, match="read-only"):
+            save(changed, path)
+        assert path.read_bytes() == before and not backup_path(path).exists()
+    finally:
+        os.chmod(path, 0o644)
+    save(changed, path)  # writable again: saved
+    assert load(path)["title"] == "changed"
+
+
+def test_temporary_files_of_killed_saves_are_removed_by_the_next_save(project):
+    # issue 22 item 4: kill -9 during saves left 48 files (142 MB) after 160 kills, never cleaned
+    path, changed = project
+    dead = subprocess.run([sys.executable, "-c", "import os; print(os.getpid())"],
+                          capture_output=True, text=True, check=True)
+    dead_pid = int(dead.stdout)
+    folder = path.parent
+    orphans = [f".plant.json.{dead_pid}-0123abcd.tmp", f".plant.json.bak.{dead_pid}-4567cdef.tmp"]
+    running = f".plant.json.{os.getppid()}-89abcdef.tmp"  # a save in progress by a live process
+    legacy_old, legacy_new = ".plant.json.0badc0de.tmp", ".plant.json.1badc0de.tmp"
+    other = f".other.json.{dead_pid}-0123abcd.tmp"
+    for name in orphans + [running, legacy_old, legacy_new, other]:
+        (folder / name).write_bytes(b"x" * 1000)
+    os.utime(folder / legacy_old, (1e9, 1e9))  # written in 2001
+    save(changed, path)
+    left = _leftovers(folder)
+    assert not set(orphans) & set(left) and legacy_old not in left
+    assert {running, legacy_new, other} <= set(left)
+    assert load(path)["title"] == "changed"
 
 
 def test_backup_falls_back_to_a_copy_without_hard_links(project, monkeypatch):

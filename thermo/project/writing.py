@@ -5,23 +5,29 @@
 that files read well and diff well under version control.
 
 :func:`atomic_write` writes a temporary file in the destination's folder, flushes and
-fsyncs it, links the previous file to a backup, renames the temporary file over the
-destination, and fsyncs the folder (POSIX). The rename is atomic, so at every instant
-the destination holds either the complete old file or the complete new one: a full
-disk, a permission error or a killed process leaves the old file byte for byte. A
-killed process can leave a hidden ``.<name>.*.tmp`` file behind; it is never read.
+fsyncs it, links the previous file to a temporary backup name, renames the temporary file
+over the destination, then renames the backup into place, and fsyncs the folder (POSIX).
+The rename is atomic, so at every instant the destination holds either the complete old
+file or the complete new one: a full disk, a permission error or a killed process leaves
+the old file, and the older backup, byte for byte. A file marked read-only is not replaced.
+A killed process can leave a hidden ``.<name>.<pid>-<random>.tmp`` file behind; it is never
+read, and the next save of that file removes it once its process has ended
+(:func:`remove_orphans`).
 """
 from __future__ import annotations
 
-__all__ = ["dumps", "save", "atomic_write", "backup_path"]
+__all__ = ["dumps", "save", "atomic_write", "backup_path", "remove_orphans"]
 
+import contextlib
 import errno
 import json
 import math
 import os
+import re
 import secrets
 import shutil
 import stat
+import time
 from pathlib import Path
 from typing import Any
 
@@ -111,21 +117,88 @@ def _fsync_dir(folder: Path) -> None:
         os.close(fd)
 
 
-def _link_backup(path: Path, bak: Path) -> None:
-    """Make ``bak`` the previous content of ``path`` (hard link, else a copy), atomically."""
-    tmp = str(bak.with_name(f".{bak.name}.{secrets.token_hex(4)}.tmp"))
+def _link_backup(path: Path, bak: Path) -> str:
+    """The previous content of ``path`` under a temporary name beside ``bak`` (hard link, else a
+    copy); :func:`atomic_write` renames it to ``bak`` only once the new file is in place, so a
+    failed save keeps the older backup."""
+    tmp = _temp_name(bak)
     try:
         try:
             os.link(path, tmp)  # the old inode lives on under the backup name: no copy, no window
         except OSError:
             shutil.copy2(path, tmp)  # a file system without hard links
-        os.replace(tmp, bak)
     except BaseException:
+        _unlink_quietly(tmp)
+        raise
+    return tmp
+
+
+def _unlink_quietly(name: str | None) -> None:
+    if name is not None:
         try:
-            os.unlink(tmp)
+            os.unlink(name)
         except OSError:
             pass
-        raise
+
+
+def _temp_name(path: Path) -> str:
+    """``.<name>.<pid>-<random>.tmp`` beside ``path``: hidden, never read, and naming the process
+    that wrote it, so that one left by a killed process can be removed (:func:`remove_orphans`)."""
+    return str(path.with_name(f".{path.name}.{os.getpid()}-{secrets.token_hex(4)}.tmp"))
+
+
+_ORPHAN = re.compile(r"^\.(?P<name>.+)\.(?:(?P<pid>\d+)-)?[0-9a-f]{8}\.tmp$")
+#: a temporary file of the older naming (no process id) is removed when older than this, [s]
+_LEGACY_ORPHAN_AGE_S = 3600.0
+
+
+def _process_alive(pid: int) -> bool:
+    if pid == os.getpid():
+        return True
+    try:
+        os.kill(pid, 0)
+    except ProcessLookupError:
+        return False
+    except (PermissionError, OSError, OverflowError):
+        return True  # exists (another user's), or cannot tell: keep the file
+    return True
+
+
+def remove_orphans(path) -> list[str]:
+    """Remove temporary files of saves of ``path`` (and of its backup) that a killed process left.
+
+    A file ``.<name>.<pid>-<random>.tmp`` is removed when process ``pid`` has ended; one of the
+    older naming without a process id when it is more than an hour old. A save in progress by a
+    running process is never touched. Never raises.
+
+    Returns
+    -------
+    list of str
+        The names removed.
+    """
+    path = Path(path)
+    names = {path.name, backup_path(path).name}
+    removed = []
+    try:
+        entries = list(os.scandir(path.parent))
+    except OSError:
+        return removed
+    now = time.time()
+    for entry in entries:
+        m = _ORPHAN.match(entry.name)
+        if not m or m.group("name") not in names:
+            continue
+        try:
+            if m.group("pid") is not None:
+                stale = not _process_alive(int(m.group("pid")))
+            else:
+                stale = now - entry.stat(follow_symlinks=False).st_mtime > _LEGACY_ORPHAN_AGE_S
+            if stale and entry.is_file(follow_symlinks=False):
+                os.unlink(entry.path)
+                removed.append(entry.name)
+        except OSError:
+            continue
+    return removed
 
 
 def _create_temp(path: Path) -> tuple[int, str]:
@@ -133,7 +206,7 @@ def _create_temp(path: Path) -> tuple[int, str]:
     file gets ordinary permissions, unlike mkstemp's 0600)."""
     flags = os.O_WRONLY | os.O_CREAT | os.O_EXCL | getattr(os, "O_BINARY", 0)
     for _ in range(100):
-        tmp = str(path.with_name(f".{path.name}.{secrets.token_hex(4)}.tmp"))
+        tmp = _temp_name(path)
         try:
             return os.open(tmp, flags, 0o666), tmp
         except FileExistsError:
@@ -169,7 +242,7 @@ def atomic_write(path, data: bytes, backup: bool = True) -> None:
     """
     path = Path(os.path.realpath(path))
     folder = path.parent
-    tmp = None
+    tmp = bak_tmp = None
     try:
         try:
             old = os.stat(path)
@@ -177,6 +250,10 @@ def atomic_write(path, data: bytes, backup: bool = True) -> None:
             old = None
         if old is not None and not stat.S_ISREG(old.st_mode):
             raise SaveError(f"{path}: cannot save over something that is not a regular file")
+        if old is not None and not _writable(path, old):
+            raise SaveError(f"{path}: the file is read-only; nothing was written (save under another "
+                            "name, or make the file writable first)")
+        remove_orphans(path)
         fd, tmp = _create_temp(path)
         with os.fdopen(fd, "wb") as fh:
             fh.write(data)
@@ -185,18 +262,29 @@ def atomic_write(path, data: bytes, backup: bool = True) -> None:
         if old is not None:
             os.chmod(tmp, stat.S_IMODE(old.st_mode))  # keep the permissions of the file replaced
         if backup and old is not None:
-            _link_backup(path, backup_path(path))
+            bak_tmp = _link_backup(path, backup_path(path))
         os.replace(tmp, path)
         tmp = None
+        if bak_tmp is not None:
+            # the new file is in place: only now does the previous one become the backup (if
+            # this rename fails, the save has succeeded and the older backup stays)
+            with contextlib.suppress(OSError):
+                os.replace(bak_tmp, backup_path(path))
+                bak_tmp = None
     except OSError as exc:
         raise SaveError(f"{path}: cannot save ({_reason(exc)}); the previous file is unchanged") from exc
     finally:
-        if tmp is not None:
-            try:
-                os.unlink(tmp)
-            except OSError:
-                pass
+        _unlink_quietly(tmp)
+        _unlink_quietly(bak_tmp)
     _fsync_dir(folder)
+
+
+def _writable(path: Path, info: os.stat_result) -> bool:
+    """False for a file marked read-only (no write permission bit: a superuser may write it,
+    but the user marked it so), or one this user may not write."""
+    if not info.st_mode & (stat.S_IWUSR | stat.S_IWGRP | stat.S_IWOTH):
+        return False
+    return os.access(path, os.W_OK)
 
 
 def save(doc: dict, path) -> None:
