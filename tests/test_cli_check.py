@@ -34,7 +34,7 @@ def test_a_bad_file_prints_one_line_per_problem(tmp_path, capsys):
     assert lines == [
         f"{path}: site.humidity: 0.5 — unknown key; known keys here: ambient_temperature_K, "
         "barometric_pressure_Pa, dew_point_K, elevation_m, humidity_ratio, relative_humidity",
-        f"{path}: stages[0].efficiency.value: 1.4 — expected a number in (0, 1]",
+        f"{path}: stages[0].efficiency.value: 1.4 — expected a number in [0.001, 1]",
     ]
 
 

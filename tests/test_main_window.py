@@ -74,7 +74,7 @@ def test_invalid_entry_is_explained_and_marks_results_stale(qtbot, window):
     assert ed.model.get("stages[0].efficiency.value") == 1.5
     assert ed.stale and bal.is_stale
     problems = msgs.texts("problem")
-    assert problems == ["Stage 1 efficiency: 150.00 % is out of range (allowed: above 0 %, up to 100 %)."]
+    assert problems == ["Stage 1 efficiency: 150.00 % is out of range (allowed: 0.1 to 100 %)."]
     assert field.edit.property("invalid") is True
     assert "Not solved" in window.status_solve.text()
 

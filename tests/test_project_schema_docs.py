@@ -5,6 +5,8 @@ the document is a description of them.
 """
 from __future__ import annotations
 
+import re
+
 import pytest
 
 import thermo
@@ -78,3 +80,43 @@ def test_every_result_key_with_a_unit_suffix_is_recognised():
         last = path.rsplit(".", 1)[-1]
         if last.endswith(("_K", "_Pa", "_W", "_m", "_s", "_kg", "_kgK", "_m3", "_min")):
             assert schema_docs.unit_of(path), path
+
+
+_RANGE_ROW = re.compile(r"^\| `(?P<key>[^`]+)`(?: \(kind `(?P<kind>\w+)`\))? \|[^|]*\|[^|]*\| "
+                        r"(?P<lo_b>[\[(])(?P<lo>[^,]+), (?P<hi>[^\])]+)(?P<hi_b>[\])]) \|", re.M)
+
+
+@pytest.mark.parametrize("key, kind, where", [
+    ("stages[].efficiency.value", "isentropic", lambda d: d["stages"][0]["efficiency"]),
+    ("stages[].efficiency.value", "polytropic", lambda d: d["stages"][0]["efficiency"]),
+    ("stages[].mechanical_efficiency", None, lambda d: d["stages"][0]),
+    ("driver.efficiency", None, lambda d: d.setdefault("driver", {})),
+    ("flow.value", "mass", lambda d: d["flow"]),
+    ("flow.value", "free_air_delivery", lambda d: d["flow"]),
+    ("flow.value", "shaft_power", lambda d: d["flow"]),
+    ("fluid.k", None, lambda d: d.setdefault("fluid", {})),
+])
+def test_the_documented_range_is_what_the_loader_accepts(key, kind, where):
+    # issue 22 item 13: the table said (0, 1], (0, 1000], (1, 1.7] while the loader refused
+    # efficiencies below 0.001, flows below 1e-6 and k below 1.001
+    import math
+
+    from tests.conftest import make_doc
+    from thermo.project.validation import problems
+
+    text = (ROOT / "docs" / "project-format.md").read_text(encoding="utf-8")
+    rows = [m for m in _RANGE_ROW.finditer(text) if m["key"] == key and m["kind"] == kind]
+    assert len(rows) == 1, f"no range row for {key} ({kind})"
+    row = rows[0]
+    lo, hi = float(row["lo"]), float(row["hi"])
+    field = key.replace("[]", "[0]")
+    for value, accepted in [(lo if row["lo_b"] == "[" else math.nextafter(lo, math.inf), True),
+                            (math.nextafter(lo, -math.inf) if row["lo_b"] == "[" else lo, False),
+                            (hi if row["hi_b"] == "]" else math.nextafter(hi, -math.inf), True)]:
+        doc = make_doc(model="constant_cp", stages=1)
+        node = where(doc)
+        if kind is not None:
+            node["kind"] = kind
+        node[key.rsplit(".", 1)[1]] = value
+        named = [p for p in problems(doc) if p.field == field]
+        assert (not named) == accepted, f"{field} = {value!r}: documented {row[0]!r}, loader says {named}"

@@ -9,10 +9,10 @@ from thermo.errors import InputError, SecondLawViolation
 
 @pytest.mark.parametrize("mutate, field, text", [
     (lambda d: d["stages"][1].update(pressure_ratio=0.9), r"stages\[1\]\.pressure_ratio", r"\(1, 40\]"),
-    (lambda d: d["stages"][0]["efficiency"].update(value=1.2), r"stages\[0\]\.efficiency\.value", r"\(0, 1\]"),
-    (lambda d: d["stages"][0]["efficiency"].update(value=0.0), r"stages\[0\]\.efficiency\.value", r"\(0, 1\]"),
+    (lambda d: d["stages"][0]["efficiency"].update(value=1.2), r"stages\[0\]\.efficiency\.value", r"\[0\.001, 1\]"),
+    (lambda d: d["stages"][0]["efficiency"].update(value=0.0), r"stages\[0\]\.efficiency\.value", r"\[0\.001, 1\]"),
     (lambda d: d["site"].update(ambient_temperature_K=400.0), r"site\.ambient_temperature_K", r"333\.15"),
-    (lambda d: d["flow"].update(value=-1.0), r"flow\.value", r"\(0, 1000\]"),
+    (lambda d: d["flow"].update(value=-1.0), r"flow\.value", r"\[1e-06, 1000\]"),
     (lambda d: d["stages"][0]["efficiency"].update(kind="adiabatic"), r"stages\[0\]\.efficiency\.kind", "isentropic"),
     (lambda d: d["fluid"].update(model="magic"), r"fluid\.model", "real_gas"),
     (lambda d: d.update(colour="red"), r"colour", "unknown key"),

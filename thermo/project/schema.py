@@ -18,10 +18,14 @@ FLOW_KINDS = ("mass", "free_air_delivery", "normal_volume", "shaft_power")
 MODEL_NAMES = ("real_gas", "ideal_gas", "constant_cp")
 
 _TEMPERATURE = dict(lo=200.0, hi=1300.0, unit="K")
+#: an efficiency [-]: the smallest the stage and path solvers can compute is 0.001
+_EFFICIENCY_RANGE = dict(lo=1e-3, hi=1.0)
+#: a flow value, per flow kind, from the smallest the solver can compute
+_FLOW_MIN = {"mass": 1e-6, "free_air_delivery": 1e-6, "normal_volume": 1e-6, "shaft_power": 1.0}
 
 EFFICIENCY = Variant(required=True, variants={
-    "isentropic": {"value": Num(0.0, 1.0, lo_open=True, required=True)},
-    "polytropic": {"value": Num(0.0, 1.0, lo_open=True, required=True)},
+    "isentropic": {"value": Num(**_EFFICIENCY_RANGE, required=True)},
+    "polytropic": {"value": Num(**_EFFICIENCY_RANGE, required=True)},
     "discharge_temperature": {"value_K": Num(required=True, **_TEMPERATURE)},
 })
 
@@ -53,7 +57,7 @@ STAGE = Obj(fields={
     "name": Text(default=""),
     "pressure_ratio": Num(1.0, 40.0, lo_open=True, nullable=True, default=None),
     "efficiency": EFFICIENCY,
-    "mechanical_efficiency": Num(0.0, 1.0, lo_open=True, default=1.0),
+    "mechanical_efficiency": Num(**_EFFICIENCY_RANGE, default=1.0),
     "heat_loss_W": Num(0.0, 1.0e8, unit="W", default=0.0),
     "heat_loss_boundary_temperature_K": Num(nullable=True, default=None, **_TEMPERATURE),
     "exit_velocity_m_s": Num(0.0, 340.0, unit="m/s", default=0.0),
@@ -114,19 +118,19 @@ PROJECT = Obj(one_of=(("discharge_pressure_Pa", "discharge_gauge_pressure_Pa"),)
     "fluid": Obj(default={"model": "real_gas"}, fields={
         "model": Choice(MODEL_NAMES, default="real_gas"),
         "cp_J_kgK": Num(500.0, 5000.0, unit="J/(kg K)", default=1005.0),
-        "k": Num(1.0, 1.7, lo_open=True, default=1.4),
+        "k": Num(1.001, 1.7, default=1.4),  # a gas with k closer to 1 cannot be computed
     }),
     "flow": Variant(required=True, variants={
-        "mass": {"value": Num(0.0, 1000.0, unit="kg/s", lo_open=True, required=True)},
-        "free_air_delivery": {"value": Num(0.0, 1000.0, unit="m³/s", lo_open=True, required=True)},
-        "normal_volume": {"value": Num(0.0, 1000.0, unit="m³/s", lo_open=True, required=True)},
-        "shaft_power": {"value": Num(0.0, 1.0e9, unit="W", lo_open=True, required=True)},
+        "mass": {"value": Num(_FLOW_MIN["mass"], 1000.0, unit="kg/s", required=True)},
+        "free_air_delivery": {"value": Num(_FLOW_MIN["free_air_delivery"], 1000.0, unit="m³/s", required=True)},
+        "normal_volume": {"value": Num(_FLOW_MIN["normal_volume"], 1000.0, unit="m³/s", required=True)},
+        "shaft_power": {"value": Num(_FLOW_MIN["shaft_power"], 1.0e9, unit="W", required=True)},
     }),
     "inlet_pressure_drop_Pa": Num(0.0, 50_000.0, unit="Pa", default=0.0),
     "discharge_pressure_Pa": Num(50_000.0, 5.0e7, unit="Pa"),
     "discharge_gauge_pressure_Pa": Num(0.0, 5.0e7, unit="Pa", lo_open=True),
     "driver": Obj(default={"efficiency": 1.0}, fields={
-        "efficiency": Num(0.0, 1.0, lo_open=True, default=1.0),
+        "efficiency": Num(**_EFFICIENCY_RANGE, default=1.0),
     }),
     "stages": Items(STAGE, min_length=1, max_length=12, required=True),
     "heat_recovery": HEAT_RECOVERY,

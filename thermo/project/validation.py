@@ -208,41 +208,8 @@ def resolve_site(norm: dict) -> ResolvedSite:
                         site.get("relative_humidity", 0.0), norm["inlet_pressure_drop_Pa"])
 
 
-#: smallest efficiency the stage and path solvers can compute, [-] (the schema's range is (0, 1])
-MIN_EFFICIENCY = 1e-3
-#: smallest flow value the solver can compute, per flow kind, in the kind's unit
-#: smallest ratio of specific heats of the constant-cp model that can be computed, [-]
-MIN_K = 1.001
-MIN_FLOW = {"mass": 1e-6, "free_air_delivery": 1e-6, "normal_volume": 1e-6, "shaft_power": 1.0}
-
-
-def _floor_checks(norm: dict) -> list[Problem]:
-    """Values inside the schema's open ranges but too close to 0 to compute (5e-324 …)."""
-    out = []
-    flow = norm["flow"]
-    floor = MIN_FLOW.get(flow["kind"], 0.0)
-    if flow["value"] < floor:
-        unit = PROJECT.fields["flow"].variants[flow["kind"]]["value"].unit
-        out.append(Problem("flow.value", flow["value"],
-                           f"expected at least {floor:g} {unit}; a smaller flow cannot be computed"))
-    effs = [("driver.efficiency", norm["driver"]["efficiency"])]
-    for i, st in enumerate(norm["stages"]):
-        effs.append((f"stages[{i}].mechanical_efficiency", st["mechanical_efficiency"]))
-        if "value" in st["efficiency"]:
-            effs.append((f"stages[{i}].efficiency.value", st["efficiency"]["value"]))
-    fluid = norm["fluid"]
-    if fluid["model"] == "constant_cp" and fluid["k"] < MIN_K:
-        out.append(Problem("fluid.k", fluid["k"], f"expected at least {MIN_K:g}; "
-                                                  "a gas with k this close to 1 cannot be computed"))
-    for field, value in effs:
-        if value < MIN_EFFICIENCY:
-            out.append(Problem(field, value, f"expected at least {MIN_EFFICIENCY:g}; "
-                                             "a smaller efficiency cannot be computed"))
-    return out
-
-
 def _cross_checks(norm: dict) -> list[Problem]:
-    out = _floor_checks(norm)
+    out = []
     site = norm["site"]
     if site.get("barometric_pressure_Pa") is not None and site.get("elevation_m") is not None:
         out.append(Problem("site.elevation_m", site["elevation_m"],
