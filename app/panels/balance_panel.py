@@ -14,6 +14,7 @@ from PySide6.QtGui import QBrush, QColor
 from PySide6.QtWidgets import (QAbstractItemView, QHeaderView, QLabel, QSplitter, QTableWidget,
                                QTableWidgetItem, QVBoxLayout, QWidget)
 
+from app.widgets.plain_text import plain_label
 from app.presentation import balance_tables as tables
 from app.presentation.figures import Figure, condition_holds, shown
 from app.presentation.result_notes import NEGATIVE_TIPS, TOTAL_TIPS
@@ -79,7 +80,7 @@ class BalancePanel(QWidget):
         lay = QVBoxLayout(self)
         lay.setContentsMargins(6, 4, 6, 4)
         lay.setSpacing(4)
-        self.banner = QLabel()
+        self.banner = plain_label(QLabel())
         self.banner.setObjectName("staleBanner")
         self.banner.setWordWrap(True)
         self.banner.hide()

@@ -9,6 +9,7 @@ __all__ = ["KeyFiguresPanel", "FigureTile", "WARNINGS_KEY"]
 from PySide6.QtCore import QEvent, Qt, Signal
 from PySide6.QtWidgets import QFrame, QLabel, QSizePolicy, QVBoxLayout, QWidget
 
+from app.widgets.plain_text import plain_label, plain_tip
 from app.presentation import balance_tables as tables
 from app.widgets.tile_flow import TileFlowLayout
 
@@ -40,9 +41,9 @@ class FigureTile(QFrame):
         lay = QVBoxLayout(self)
         lay.setContentsMargins(6, 2, 6, 3)
         lay.setSpacing(0)
-        self.name = QLabel()
+        self.name = plain_label(QLabel())
         self.name.setObjectName("keyFigureName")
-        self.value = QLabel(_MISSING)
+        self.value = plain_label(QLabel(_MISSING))
         self.value.setObjectName("keyFigureValue")
         self.value.setTextInteractionFlags(Qt.NoTextInteraction)
         lay.addWidget(self.name)
@@ -52,7 +53,7 @@ class FigureTile(QFrame):
         """Set the texts, the tooltip and the look (``tone``: ``""``, ``"warning"`` or ``"problem"``)."""
         self.name.setText(name)
         self.value.setText(value)
-        self.setToolTip(tip)
+        self.setToolTip(plain_tip(tip))
         self.setAccessibleName(f"{name}: {value}")
         if self.property("tone") != tone or self.property("stale") != stale:
             self.setProperty("tone", tone)

@@ -10,6 +10,7 @@ from PySide6.QtCore import QSize, Qt, Signal
 from PySide6.QtGui import QColor, QIcon, QPainter, QPixmap
 from PySide6.QtWidgets import QLabel, QListWidget, QListWidgetItem, QVBoxLayout, QWidget
 
+from app.widgets.plain_text import plain_tip
 from app.presentation.cautions import CAUTIONS
 from app.document.messages import error_text, problem_text, warning_text
 from app.document.field_specs import describe
@@ -118,7 +119,7 @@ class MessagesPanel(QWidget):
             item = QListWidgetItem(self._icons[m.severity], m.text)
             item.setData(Qt.UserRole, m.field)
             tip = m.text + (f"\n\nClick to show: {describe(m.field, self.editor.model.doc)}" if m.field else "")
-            item.setToolTip(tip)
+            item.setToolTip(plain_tip(tip))
             self.list.addItem(item)
         self.count_changed.emit(sum(m.severity in ("problem", "warning") for m in self.messages))
 

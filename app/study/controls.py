@@ -14,6 +14,7 @@ from PySide6.QtWidgets import (QComboBox, QDoubleSpinBox, QFormLayout, QFrame, Q
 
 from thermo.study import DEFAULT_ENERGY_PRICE, DEFAULT_OPERATING_HOURS, MAX_STAGES
 
+from app.widgets.plain_text import plain_label
 from app.presentation import units
 from app.study.display import VARIABLES, format_values, parse_values
 from app.study.job import StudyRequest
@@ -67,7 +68,7 @@ class StudyControls(QScrollArea):
         self.progress.setMaximumHeight(16)
         self.fraction = 0.0  # the share of the study done, as last shown
         col.addWidget(self.progress)
-        self.status = QLabel("Not run yet.")
+        self.status = plain_label(QLabel("Not run yet."))
         self.status.setWordWrap(True)
         self.status.setObjectName("footNote")
         self.status.setSizePolicy(QSizePolicy.Ignored, QSizePolicy.Preferred)

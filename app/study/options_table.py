@@ -14,6 +14,7 @@ from PySide6.QtCore import Qt
 from PySide6.QtGui import QColor
 from PySide6.QtWidgets import QAbstractItemView, QHeaderView, QTableWidget, QTableWidgetItem
 
+from app.widgets.plain_text import plain_tip
 from app.study.display import COLUMNS, cells as option_cells, header, tooltip
 from app.widgets.signals_blocked import signals_blocked
 from app.widgets.table_copy import attach_table_copy
@@ -142,7 +143,7 @@ class OptionsTable(QTableWidget):
                 item = QTableWidgetItem()
                 self.setItem(r, c, item)
             item.setText(texts[col.key])
-            item.setToolTip(tooltip(row, col.key, system))
+            item.setToolTip(plain_tip(tooltip(row, col.key, system)))
             item.setTextAlignment((Qt.AlignLeft if col.key in _LEFT else Qt.AlignRight) | Qt.AlignVCenter)
             font = item.font()
             font.setBold(bold)

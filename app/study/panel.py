@@ -18,6 +18,7 @@ from PySide6.QtWidgets import (QComboBox, QDockWidget, QHBoxLayout, QLabel, QSiz
 
 from thermo.study.options import staging_note
 
+from app.widgets.plain_text import plain_label, plain_tip
 from app.presentation import units
 from app.document.messages import error_text
 from app.study.apply import apply_text, option_stages, study_key
@@ -106,7 +107,7 @@ class StudyPanel(QWidget):
         lay.addWidget(self.controls, 0)
         self.table = OptionsTable()
         self.table.itemSelectionChanged.connect(self._update_state)
-        self.note = QLabel()  # how the options are built: always beside the numbers it explains
+        self.note = plain_label(QLabel())  # how the options are built: always beside the numbers it explains
         self.note.setObjectName("footNote")
         self.note.setWordWrap(True)
         self.note.setSizePolicy(QSizePolicy.Ignored, QSizePolicy.Preferred)
@@ -382,7 +383,7 @@ class StudyPanel(QWidget):
         if "train.study_apply" in self.action_map:
             act = self.action_map["train.study_apply"]
             act.setText(text)
-            act.setToolTip(why)
+            act.setToolTip(plain_tip(why))
             act.setStatusTip(why)
         self.controls.set_inputs_enabled(not busy)
         self.banner.setVisible(stale)

@@ -14,6 +14,7 @@ import math
 from PySide6.QtCore import QEvent, QLocale, Qt, Signal
 from PySide6.QtWidgets import QHBoxLayout, QLabel, QLineEdit, QWidget
 
+from app.widgets.plain_text import plain_tip
 from app.presentation import units
 from app.document.paths import ABSENT
 from app.document.field_specs import quantity_for, spec_for
@@ -191,7 +192,7 @@ class QuantityField(QWidget):
             self.edit.style().unpolish(self.edit)
             self.edit.style().polish(self.edit)
         exact = f"{self._full_text} {self.unit_label.text()}".strip() if self._full_text else ""
-        self.edit.setToolTip(message or exact)
+        self.edit.setToolTip(plain_tip(message or exact))
 
     def problem_message(self) -> str | None:
         """The editor's problem with this field's value, or None."""

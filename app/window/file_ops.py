@@ -13,6 +13,7 @@ from PySide6.QtWidgets import QMenu, QStatusBar
 from thermo import StagewrightError
 from thermo import project
 
+from app.widgets.plain_text import plain_tip
 from app.document.file_names import file_stem_for, with_suffix_added
 from app.document.model import new_document
 
@@ -235,7 +236,7 @@ class FileController(QObject):
         files = self.recent_files()
         for i, name in enumerate(files, 1):
             act = menu.addAction(f"&{i} {Path(name).name}")
-            act.setToolTip(name)
+            act.setToolTip(plain_tip(name))
             act.triggered.connect(lambda _=False, n=name: self.open_path(n))
         if not files:
             menu.addAction("(none)").setEnabled(False)

@@ -1,5 +1,8 @@
 """Every question and message box the window puts in front of the user, in one place.
 
+Every box shows its text as plain text (:func:`app.widgets.plain_text.plain_label`): names and
+messages from a project file are never rendered as markup.
+
 The window's controllers (:mod:`app.window.file_ops`, :mod:`app.window.export_ops`,
 :mod:`app.window.recovery_ops`) ask through the window's one :class:`Prompts`; tests replace its
 methods, so no modal dialog ever opens in a test.
@@ -10,6 +13,7 @@ __all__ = ["Prompts", "PROJECT_FILTER"]
 
 from PySide6.QtWidgets import QFileDialog, QMessageBox, QWidget
 
+from app.widgets.plain_text import plain_label
 from app.window.export_ops import PDF_AND_CSV, PDF_ONLY
 
 PROJECT_FILTER = "Stagewright projects (*.json);;All files (*)"
@@ -25,6 +29,7 @@ class Prompts:
         """Before unsaved changes to ``name`` would be lost: "save", "discard" or "cancel"."""
         box = QMessageBox(QMessageBox.Warning, "Unsaved changes", f"Save the changes to {name}?",
                           QMessageBox.Save | QMessageBox.Discard | QMessageBox.Cancel, self.parent)
+        plain_label(box)
         box.setInformativeText("Your changes are lost if you don't save them.")
         answer = box.exec()
         return {QMessageBox.Save: "save", QMessageBox.Discard: "discard"}.get(answer, "cancel")
@@ -35,6 +40,7 @@ class Prompts:
         box = QMessageBox(QMessageBox.Question, "Restore unsaved work?",
                           f"A Stagewright session ended without saving its changes to {project_name} "
                           f"(last kept at {saved_at}).", QMessageBox.NoButton, self.parent)
+        plain_label(box)
         box.setInformativeText("Restore them in this window? Keep for Later leaves them in the recovery "
                                "folder; Discard deletes them.")
         restore = box.addButton("Restore", QMessageBox.AcceptRole)
@@ -54,6 +60,7 @@ class Prompts:
         box = QMessageBox(QMessageBox.Warning, "Replace existing files?" if several else "Replace existing file?",
                           f"{'These files already exist' if several else 'This file already exists'}:\n{names}",
                           QMessageBox.Cancel, self.parent)
+        plain_label(box)
         box.setInformativeText("Replacing them overwrites what they hold." if several
                                else "Replacing it overwrites what it holds.")
         replace = box.addButton("Replace", QMessageBox.DestructiveRole)
@@ -63,7 +70,9 @@ class Prompts:
 
     def confirm(self, title: str, text: str) -> bool:
         """A yes/no question; True for yes."""
-        return QMessageBox.question(self.parent, title, text) == QMessageBox.Yes
+        box = plain_label(QMessageBox(QMessageBox.Question, title, text, QMessageBox.Yes | QMessageBox.No, self.parent))
+        box.setDefaultButton(QMessageBox.Yes)
+        return box.exec() == QMessageBox.Yes
 
     def open_project_name(self, start: str) -> str:
         """The project file to open ("" when the user cancels)."""
@@ -79,5 +88,9 @@ class Prompts:
         """Where to write the report: (pdf path or "", the chosen filter, PDF_AND_CSV or PDF_ONLY)."""
         return QFileDialog.getSaveFileName(self.parent, "Export report", start, f"{PDF_AND_CSV};;{PDF_ONLY}")
 
+    def error_box(self, title: str, text: str) -> QMessageBox:
+        """The message box of :meth:`show_error`, not yet shown: ``text`` as plain text."""
+        return plain_label(QMessageBox(QMessageBox.Warning, title, text, QMessageBox.Ok, self.parent))
+
     def show_error(self, title: str, text: str) -> None:
-        QMessageBox.warning(self.parent, title, text)
+        self.error_box(title, text).exec()

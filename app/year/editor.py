@@ -15,6 +15,7 @@ from PySide6.QtWidgets import (QComboBox, QFormLayout, QHBoxLayout, QLabel, QLin
 
 from thermo.year_profile import MONTH_NAMES
 
+from app.widgets.plain_text import plain_label
 from app.presentation import units
 from app.document.paths import ABSENT, get_in, is_related
 from app.widgets.quantity_field import format_entry, parse_number
@@ -140,7 +141,7 @@ class YearEditor(QWidget):
         scroll.setMinimumWidth(form_box.sizeHint().width() + 16)
         body.addWidget(scroll, 0)
         lay.addLayout(body, 1)
-        self.message = QLabel()
+        self.message = plain_label(QLabel())
         self.message.setObjectName("editRefusal")
         self.message.setWordWrap(True)
         self.message.hide()

@@ -11,6 +11,7 @@ __all__ = ["YearPanel", "YEAR_COLUMNS"]
 
 from PySide6.QtWidgets import QHBoxLayout, QLabel, QProgressBar, QPushButton, QTabWidget, QVBoxLayout, QWidget
 
+from app.widgets.plain_text import plain_label
 from app.presentation import year_tables
 from app.presentation.figures import shown
 from app.year.chart_view import YearChartView
@@ -45,7 +46,7 @@ class YearPanel(QWidget):
         self.progress = QProgressBar()
         self.progress.setTextVisible(True)
         self.progress.setVisible(False)  # an empty bar before the first run reads as a broken widget
-        self.status = QLabel()
+        self.status = plain_label(QLabel())
         self.status.setWordWrap(True)
         for w in (self.run_button, self.cancel_button, self.progress):
             row.addWidget(w)
