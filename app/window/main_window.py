@@ -16,6 +16,7 @@ import thermo
 from thermo.coolprop_adapter import eos_reference
 
 from app.presentation import units
+from app.window.safe_settings import byte_array, open_safely, text_value
 from app.window.actions import ACTIONS, MENUS, TOOLBAR
 from app.document.display_prefs import DisplayPrefs
 from app.document.model import ProjectModel
@@ -68,8 +69,8 @@ class MainWindow(QMainWindow):
                  debounce_ms: int = 150, restore_layout: bool = True, autosave_ms: int | None = AUTOSAVE_MS):
         super().__init__()
         self.setAcceptDrops(True)
-        self.settings = settings if settings is not None else QSettings()
-        system = self.settings.value("display/system", "SI")
+        self.settings = open_safely(settings)  # plain values only (app/window/safe_settings.py)
+        system = text_value(self.settings, "display/system", "SI")
         gauge = self.settings.value("display/gauge", True, type=bool)
         self.prefs = DisplayPrefs(system if system in units.SYSTEMS else "SI", gauge)
         self.model = ProjectModel(doc)
@@ -403,11 +404,11 @@ class MainWindow(QMainWindow):
             QTimer.singleShot(10, self.charts.ensure_canvases)
 
     def _restore_saved_layout(self) -> None:
-        geometry = self.settings.value("window/geometry")
-        state = self.settings.value("window/state")
-        if geometry is not None and hasattr(geometry, "size"):
+        geometry = byte_array(self.settings, "window/geometry")
+        state = byte_array(self.settings, "window/state")
+        if geometry is not None:
             self.restoreGeometry(geometry)
-        if state is not None and hasattr(state, "size"):
+        if state is not None:
             self.restoreState(state, STATE_VERSION)
 
     # ---- help ----------------------------------------------------------------------------
