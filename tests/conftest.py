@@ -38,3 +38,21 @@ def make_doc(model="constant_cp", stages=2, eta=0.8, kind="isentropic", p_out=9e
 def doc_factory():
     return make_doc
 
+
+
+@pytest.fixture(scope="session")
+def sample_reports(tmp_path_factory):
+    """PDF and CSV report of every sample project in SI units, written once per test session by
+    ``stagewright report`` (a report takes seconds: the test files that read them share them).
+
+    Returns ``{sample path: (pdf path, csv path)}``.
+    """
+    from app.cli.main import main
+
+    out = {}
+    for path in sorted(SAMPLES.glob("*.json")):
+        folder = tmp_path_factory.mktemp(path.stem)
+        pdf, csv_path = folder / "r.pdf", folder / "r.csv"
+        assert main(["report", str(path), "-o", str(pdf), "--csv", str(csv_path)]) == 0
+        out[path] = (pdf, csv_path)
+    return out

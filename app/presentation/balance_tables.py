@@ -23,6 +23,9 @@ _WINDOW, _PDF = {"window"}, {"pdf"}
 _WINDOW_PDF = {"window", "pdf"}
 _NOT_CSV = {"window", "text", "pdf"}
 _NOT_TEXT = {"window", "pdf", "csv"}
+_NOT_WINDOW = {"text", "pdf", "csv"}
+_L_H = 1e-3 / 3600.0  # m³/s per L/h
+_TEXT_2 = {"text": Look(decimals=2)}
 
 
 def _every_component(key: str) -> dict[str, str]:
@@ -84,6 +87,12 @@ COMPONENTS: tuple[Figure, ...] = (
            where=_WINDOW),
     Figure({"cooler": "coolant_outlet_temperature_K"}, "Coolant out", "temperature", id="coolant_out",
            when="exchanger", where=_WINDOW),
+    # issue 17: cooling water per cooler and for the train; the text table also lists each cooler's condensate
+    Figure({"cooler": "cooling_water_m3_s", "train": "cooling_water_m3_s"}, "Cooling water", "water_volume_flow",
+           id="cooling_water", when="any", note="Water (or water–glycol) flow through the cooler, at its inlet",
+           looks={"text": Look(label="water", width=14)}),
+    Figure({"cooler": "condensate_kg_s", "train": "condensate_kg_s"}, "Condensate", "water_flow", id="condensate",
+           when="moist", where={"text"}, looks={"text": Look(label="condensate", width=18)}),
 )
 
 #: the PDF report's table of cooler exchangers (paths into a cooler dict; coolers with a coolant side); the
@@ -98,6 +107,8 @@ EXCHANGERS: tuple[Figure, ...] = (
     Figure("effectiveness", "ε", decimals=3),
     Figure("ntu", "NTU", decimals=3),
     Figure("ua_W_K", "UA", "conductance"),
+    # issue 17: the volume of cooling water (blank for fan air)
+    Figure("cooling_water_m3_s", "Cooling water", "water_volume_flow", when="any"),
 )
 
 _RESIDUAL = {"style": "scientific", "decimals": 2, "where": _NOT_CSV}
@@ -134,6 +145,22 @@ TOTALS: tuple[Figure, ...] = (
            looks={"text": Look(label="energy balance residual"), "pdf": Look(label="Energy balance closure")}),
     Figure("exergy_residual", "Exergy closure residual", **_RESIDUAL,
            looks={"text": Look(label="exergy balance residual"), "pdf": Look(label="Exergy balance closure")}),
+    # issue 17: water, cooling water and heat recovery in every output (the window lists the first four above;
+    # the CSV has the train's cooling water in the component columns' train row)
+    Figure("condensate_kg_s", "Condensate", "water_flow", when="moist", where=_NOT_WINDOW,
+           looks={**_TEXT_2, "csv": Look(label="condensate_drained")}),
+    Figure("condensate_L_h", "Condensate volume", "condensate_volume_flow", to_si=_L_H, when="moist", looks=_TEXT_2,
+           note="Condensate drained by all separators as a volume flow"),
+    Figure("delivered_pressure_dew_point_K", "Pressure dew point", "temperature", when="moist", where=_NOT_WINDOW,
+           looks=_TEXT_2, note="Dew point of the delivered air at the delivery pressure"),
+    Figure("delivered_atmospheric_dew_point_K", "Atmospheric dew point", "temperature", when="moist",
+           where=_NOT_WINDOW, looks=_TEXT_2, note="Dew point of the delivered air expanded to the site pressure"),
+    Figure("iso8573_humidity_class", "ISO 8573-1 humidity class", style="text", when="moist", where=_NOT_WINDOW,
+           looks={"csv": Look(label="iso8573_humidity_class")}),
+    Figure("cooling_water_m3_s", "Cooling water", "water_volume_flow", when="any", looks=_TEXT_2, where=_NOT_CSV,
+           note="Water (or water–glycol) flow through all coolers with a liquid coolant, at their inlets"),
+    Figure("recoverable_heat_W", "Recoverable heat", "heat_flow", when="any",
+           note="Heat the project's heat recovery can deliver at its delivery temperature"),
 )
 
 

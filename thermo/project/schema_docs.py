@@ -208,6 +208,9 @@ RESULT_KEYS = {
     "stages[].cooler.coolant_kind": "`water`, `glycol` or `air`; null without a coolant side.",
     "stages[].cooler.coolant_flow_kg_s": "Coolant mass flow (given, or found from the temperature rise).",
     "stages[].cooler.coolant_volume_flow_m3_s": "Coolant volume flow at its inlet.",
+    "stages[].cooler.cooling_water_m3_s": "Cooling-water flow of this cooler: its coolant volume flow at the inlet "
+                                          "when the coolant is water or a water–glycol mixture; null for fan air "
+                                          "or without a coolant side.",
     "stages[].cooler.coolant_inlet_temperature_K": "Coolant inlet temperature.",
     "stages[].cooler.coolant_outlet_temperature_K": "Coolant outlet temperature.",
     "stages[].cooler.lmtd_K": "Counter-flow log-mean temperature difference of the four terminal temperatures.",
@@ -229,6 +232,8 @@ RESULT_KEYS = {
     "stages[].cooler.zones[].lmtd_K": "Log-mean temperature difference of the zone.",
     "stages[].cooler.zones[].lmtd_correction_factor": "LMTD correction factor of the zone.",
     "stages[].cooler.zones[].ua_W_K": "Conductance UA of the zone.",
+    "cooling_water_m3_s": "Cooling-water flow of the train: the sum of the coolers' `cooling_water_m3_s` (null when "
+                          "no cooler has a water or glycol side).",
     "recoverable_heat_W": "Heat that can be recovered (null without a `heat_recovery` section).",
     "heat_recovery": "Heat recovery figures, or null without a `heat_recovery` section.",
     "heat_recovery.delivery_temperature_K": "Temperature of the stream delivered.",
