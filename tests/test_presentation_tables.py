@@ -25,7 +25,7 @@ from thermo.project import load
 
 SAMPLE_FILES = sorted(SAMPLES.glob("*.json"))
 TABLES = {"POINTS": balance_tables.POINTS, "COMPONENTS": balance_tables.COMPONENTS,
-          "EXCHANGERS": balance_tables.EXCHANGERS, "TOTALS": balance_tables.TOTALS,
+          "EXCHANGERS": balance_tables.EXCHANGERS, "ZONES": balance_tables.ZONES, "TOTALS": balance_tables.TOTALS,
           "STAGING": staging_table.STAGING, "YEAR_BINS": year_tables.YEAR_BINS,
           "YEAR_TOTALS": year_tables.YEAR_TOTALS}
 
@@ -52,7 +52,7 @@ def _check_paths(figures, containers, seen: set) -> list[str]:
 
 
 def test_every_train_table_path_is_in_the_results_of_the_sample_projects(sample_results):
-    missing, seen = [], {name: set() for name in ("POINTS", "COMPONENTS", "EXCHANGERS", "TOTALS")}
+    missing, seen = [], {name: set() for name in ("POINTS", "COMPONENTS", "EXCHANGERS", "ZONES", "TOTALS")}
     kinds_met = set()
     for r in sample_results.values():
         rows = balance_tables.component_rows(r)
@@ -62,6 +62,8 @@ def test_every_train_table_path_is_in_the_results_of_the_sample_projects(sample_
                                 seen["POINTS"])
         missing += _check_paths(balance_tables.COMPONENTS, [(kind, c) for _, kind, _, c in rows], seen["COMPONENTS"])
         missing += _check_paths(balance_tables.EXCHANGERS, coolers, seen["EXCHANGERS"])
+        missing += _check_paths(balance_tables.ZONES, [(None, z) for _, c in coolers for z in c["zones"]],
+                                seen["ZONES"])
         missing += _check_paths(balance_tables.TOTALS, [(None, r)], seen["TOTALS"])
     assert missing == []
     for name in seen:  # every figure has a value in some sample: the samples exercise each row

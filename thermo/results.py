@@ -121,6 +121,7 @@ def exchanger_dict(cooler: CoolerResult) -> dict:
                        "coolant_outlet_temperature_K": z.coolant_outlet_temperature_K,
                        "capacity_ratio": z.capacity_ratio, "effectiveness": z.effectiveness, "ntu": z.ntu,
                        "lmtd_K": z.lmtd_K, "lmtd_correction_factor": z.correction_factor,
+                       "log_mean_enthalpy_difference_J_kg": z.log_mean_enthalpy_difference_J_kg,
                        "ua_W_K": z.ua_W_K} for z in ex.zones]}
 
 

@@ -4,6 +4,7 @@
 * :data:`COMPONENTS` — the columns of the component table, whose rows are the intake filter,
   each stage, each cooler and the whole train (a path per row kind; :func:`component_rows`).
 * :data:`EXCHANGERS` — the PDF report's table of the coolers' exchangers (paths into a cooler).
+* :data:`ZONES` — the PDF report's table of the dry and wet zones of condensing coolers.
 * :data:`TOTALS` — the train's totals (paths into the result).
 
 The balance sheet in the window (:mod:`app.panels.balance_panel`), ``stagewright solve``'s text
@@ -14,7 +15,7 @@ place one output lists it (each output keeps the order it has always had). No Qt
 """
 from __future__ import annotations
 
-__all__ = ["POINTS", "COMPONENTS", "EXCHANGERS", "TOTALS", "train_points", "component_rows"]
+__all__ = ["POINTS", "COMPONENTS", "EXCHANGERS", "ZONES", "TOTALS", "train_points", "component_rows"]
 
 from app.presentation.figures import Figure, Look
 from app.presentation.result_notes import NEGATIVE_TIPS, TOTAL_TIPS
@@ -109,6 +110,24 @@ EXCHANGERS: tuple[Figure, ...] = (
     Figure("ua_W_K", "UA", "conductance"),
     # issue 17: the volume of cooling water (blank for fan air)
     Figure("cooling_water_m3_s", "Cooling water", "water_volume_flow", when="any"),
+)
+
+#: the PDF report's table of the zones of condensing coolers (paths into an entry of a cooler's ``zones``): a dry
+#: zone has its LMTD correction factor F, a wet zone is driven by its log-mean enthalpy difference instead
+ZONES: tuple[Figure, ...] = (
+    Figure("kind", "Zone", style="text"),
+    Figure("duty_W", "Duty", "heat_flow"),
+    Figure("hot_inlet_temperature_K", "Air in", "temperature"),
+    Figure("hot_outlet_temperature_K", "Air out", "temperature"),
+    Figure("coolant_inlet_temperature_K", "Coolant in", "temperature"),
+    Figure("coolant_outlet_temperature_K", "Coolant out", "temperature"),
+    Figure("lmtd_K", "LMTD", "temperature_difference"),
+    Figure("lmtd_correction_factor", "F", decimals=3, looks={"pdf": Look(missing="")}),
+    Figure("log_mean_enthalpy_difference_J_kg", "Δh_lm", "specific_enthalpy", id="lmed",
+           looks={"pdf": Look(missing="")}),
+    Figure("effectiveness", "ε", decimals=3),
+    Figure("ntu", "NTU", decimals=3),
+    Figure("ua_W_K", "UA", "conductance"),
 )
 
 _RESIDUAL = {"style": "scientific", "decimals": 2, "where": _NOT_CSV}

@@ -10,7 +10,7 @@ the pager.
 from __future__ import annotations
 
 __all__ = ["ReportInfo", "title_block", "inputs", "state_points_table", "components_table", "totals_table",
-           "exchangers_table", "charts", "warnings", "staging", "cautions", "state_points", "Q"]
+           "exchangers_table", "zones_table", "charts", "warnings", "staging", "cautions", "state_points", "Q"]
 
 from dataclasses import dataclass
 
@@ -188,10 +188,32 @@ def exchangers_table(p: Pager, result: dict, system: str) -> None:
     figures = _pdf_columns(balance_tables.EXCHANGERS, result, [("cooler", c) for _, c in items])
     cols = [Column("Cooler", align="left")] + [_column(f, system) for f in figures]
     rows = [[f"Cooler {i}"] + [f.text(c, _PDF, system) for f in figures] for i, c in items]
+    condensing = [(i, c) for i, c in items if len(c.get("zones") or []) > 1]
     p.table(Table("Cooler exchangers", cols, rows,
                   note="LMTD: log-mean temperature difference; F its correction factor for the arrangement; "
                        "ε the exchanger effectiveness and NTU its number of transfer units; UA the "
-                       "overall conductance the duty needs."))
+                       "overall conductance the duty needs."
+                       + (" A condensing cooler's ε and NTU are on the mean heat-capacity rates of its "
+                          "terminal changes (latent heat included); its F is 1 for counter-flow and is given "
+                          "zone by zone otherwise." if condensing else "")))
+    zones_table(p, condensing, system)
+
+
+def zones_table(p: Pager, coolers: list[tuple[int, dict]], system: str) -> None:
+    """The dry and wet zones of the condensing coolers ``(stage number, cooler)`` (nothing when none)."""
+    zones = [(i, z) for i, c in coolers for z in c["zones"]]
+    if not zones:
+        return
+    figures = _pdf_columns(balance_tables.ZONES, None, [(None, z) for _, z in zones])
+    cols = [Column("Cooler", align="left")] + [_column(f, system) for f in figures]
+    rows = [[f"Cooler {i}"] + [f.text(z, _PDF, system) for f in figures] for i, z in zones]
+    p.table(Table("Condensing coolers, zone by zone", cols, rows,
+                  note="Each condensing cooler is a dry zone down to the dew point and a wet zone below it. "
+                       "A wet zone moves heat and water together, driven by the difference between the "
+                       "air's enthalpy and that of saturated air at the coolant temperature: Δh_lm is its "
+                       "log-mean value per kg of dry air (Braun, Klein & Mitchell, ASHRAE Transactions 95(2), "
+                       "1989), and its ε and NTU are on that enthalpy basis. The LMTD correction factor F "
+                       "applies to dry zones only."))
 
 
 # ----------------------------------------------------------------------------- balance sheet
