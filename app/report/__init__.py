@@ -5,9 +5,12 @@ so the two always produce the same report.
 """
 from __future__ import annotations
 
-__all__ = ["export_report", "write_csv", "write_pdf", "csv_rows", "program_version"]
+__all__ = ["export_report", "write_csv", "write_pdf", "csv_rows", "program_version", "account_name"]
 
 import datetime as _dt
+import getpass
+
+from thermo.coolprop_adapter import coolprop_version
 
 from app.report.csv_export import csv_rows, write_csv
 from app.report.pdf import program_version, write_pdf
@@ -15,7 +18,8 @@ from app.report.sections import ReportInfo
 
 
 def export_report(doc: dict, result, pdf_path, csv_path=None, system: str = "SI", source_name: str = "",
-                  study_rows=None, *, date: str | None = None, paper: str | None = None) -> int:
+                  study_rows=None, *, date: str | None = None, paper: str | None = None,
+                  prepared_by: str | None = None) -> int:
     """Write the PDF report (and optionally the CSV) of a solved project.
 
     Parameters
@@ -38,6 +42,8 @@ def export_report(doc: dict, result, pdf_path, csv_path=None, system: str = "SI"
         ISO date printed on the report (default: today).
     paper : str, optional
         ``"A4"`` or ``"Letter"`` (default: A4 for SI, Letter for US units).
+    prepared_by : str, optional
+        Who made the report, printed on its first page (default: the user account's name).
 
     Returns
     -------
@@ -50,8 +56,18 @@ def export_report(doc: dict, result, pdf_path, csv_path=None, system: str = "SI"
         from thermo.errors import InputError
         raise InputError("units", system, "SI or US")
     info = ReportInfo(source_name=source_name, date=date or _dt.date.today().isoformat(),
-                      version=program_version(), system=system)
+                      version=program_version(), system=system,
+                      prepared_by=account_name() if prepared_by is None else prepared_by,
+                      coolprop=coolprop_version())
     n = write_pdf(doc, result, pdf_path, info, study_rows=study_rows, paper=paper)
     if csv_path is not None:
         write_csv(result, csv_path, system)
     return n
+
+
+def account_name() -> str:
+    """The name of the user account running the program (``""`` when the system does not say)."""
+    try:
+        return getpass.getuser()
+    except (KeyError, OSError, ImportError):  # no such entry in the password database, no USER variable
+        return ""

@@ -7,7 +7,7 @@ searchable TrueType text.
 """
 from __future__ import annotations
 
-__all__ = ["write_pdf", "build_pages", "program_version"]
+__all__ = ["write_pdf", "build_pages", "lay_out", "program_version"]
 
 import datetime as _dt
 from importlib import metadata
@@ -18,6 +18,7 @@ from matplotlib.backends.backend_pdf import PdfPages
 from app.report import sections
 from app.report.atomic import atomic_path
 from app.report.layout import Pager
+from app.report.summary import summary_page
 
 
 def program_version() -> str:
@@ -31,13 +32,17 @@ def program_version() -> str:
 
 def build_pages(doc: dict, result: dict, info: sections.ReportInfo, study_rows=None, paper: str | None = None):
     """Lay the report out; returns the page figures (nothing written yet)."""
+    return lay_out(doc, result, info, study_rows, paper).finish()
+
+
+def lay_out(doc: dict, result: dict, info: sections.ReportInfo, study_rows=None, paper: str | None = None) -> Pager:
+    """Print every section onto a :class:`Pager` (its pages not finished: no footers yet)."""
     system = info.system
     paper = paper or ("Letter" if system == "US" else "A4")
     title = doc.get("title") or "Untitled project"
     footer = "  ·  ".join(x for x in (info.source_name, info.date) if x)
     p = Pager(paper, running_title=title, footer_left=footer)
-    sections.title_block(p, doc, result, info)
-    sections.warnings(p, result)  # first, where a reviewer cannot miss them
+    summary_page(p, doc, result, info)  # the answer and the warnings first, where a reader cannot miss them
     sections.inputs(p, doc, result, system)
     states = sections.state_points_table(p, result, system)
     p.heading("Balance sheet", keep_with=p.table_height(states))
@@ -50,7 +55,7 @@ def build_pages(doc: dict, result: dict, info: sections.ReportInfo, study_rows=N
     limits = [v for v in limits if v is not None]
     sections.staging(p, study_rows, system, limit_K=min(limits) if limits else None)
     sections.cautions(p)
-    return p.finish()
+    return p
 
 
 def write_pdf(doc: dict, result: dict, path, info: sections.ReportInfo, study_rows=None, paper: str | None = None) -> int:

@@ -9,7 +9,7 @@ the pager.
 """
 from __future__ import annotations
 
-__all__ = ["ReportInfo", "title_block", "inputs", "state_points_table", "components_table", "totals_table",
+__all__ = ["ReportInfo", "inputs", "state_points_table", "components_table", "totals_table",
            "exchangers_table", "zones_table", "charts", "warnings", "staging", "cautions", "state_points", "Q"]
 
 from dataclasses import dataclass
@@ -35,6 +35,8 @@ class ReportInfo:
     date: str
     version: str
     system: str = "SI"
+    prepared_by: str = ""  #: who made the report
+    coolprop: str = ""  #: CoolProp version the properties came from
 
 
 def Q(si, quantity: str, system: str, **kw) -> str:
@@ -58,20 +60,6 @@ def _entered(raw: dict, keys: tuple) -> bool:
             return False
         node = node[k]
     return True
-
-
-# ----------------------------------------------------------------------------------- title
-
-def title_block(p: Pager, doc: dict, result: dict, info: ReportInfo) -> None:
-    p.title(doc.get("title") or "Untitled project", doc.get("note", ""))
-    model = result["model"]
-    rows = [["Project file", info.source_name or _DASH],
-            ["Date", info.date],
-            ["Program", f"Stagewright {info.version}"],
-            ["Display units", "SI" if info.system == "SI" else "US customary"],
-            ["Property model", model.replace("_", " ")],
-            ["Equation of state", result.get("eos_reference") or _DASH]]
-    p.table(Table("", [Column("", align="left"), Column("", align="left", wrap=True)], rows, header=False))
 
 
 # ---------------------------------------------------------------------------------- inputs
@@ -108,6 +96,8 @@ def inputs(p: Pager, doc: dict, result: dict, system: str) -> None:
     model = fluid["model"].replace("_", " ") + ("" if _entered(doc, ("fluid", "model")) else " (default)")
     if fluid["model"] == "constant_cp":
         model += f"; cp {_with(fluid['cp_J_kgK'], 'specific_heat', system)}, k {fluid['k']:.4g}"
+    if result.get("eos_reference"):
+        model += f": {result['eos_reference']}"
     rows.append(["Property model", model])
     name, quantity = _FLOW_TEXT[norm["flow"]["kind"]]
     rows.append([name, _with(norm["flow"]["value"], quantity, system)])
@@ -281,10 +271,11 @@ def totals_table(p: Pager, result: dict, system: str) -> None:
 # ------------------------------------------------------------------------------ charts etc.
 
 def charts(p: Pager, doc: dict, result: dict, system: str) -> None:
+    """The T–s chart and the power split, each where it fits (a page's remainder or a new page)."""
     limits = [st["max_discharge_temperature_K"] for st in normalise(doc)["stages"]]
     tall = len(result["stages"]) > 4
-    p.charts("Charts", [(lambda f: draw_ts_chart(f, result, system, limits_K=limits), 4.7),
-                        (lambda f: draw_power_split(f, result, system), 4.6 if tall else 3.9)])
+    p.charts("Compression and cooling", [(lambda f: draw_ts_chart(f, result, system, limits_K=limits), 4.7)])
+    p.charts("Where the power goes", [(lambda f: draw_power_split(f, result, system), 4.6 if tall else 3.9)])
 
 
 def warnings(p: Pager, result: dict) -> None:
