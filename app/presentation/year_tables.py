@@ -41,6 +41,11 @@ YEAR_BINS: tuple[Figure, ...] = (
            looks={"text": Look(label="water", decimals=1, width=12)}),
     Figure("recoverable_heat_kWh", "Recoverable heat", "energy", to_si=_KWH, where=_TEXT,
            looks={"text": Look(label="recov.", unit="MWh", width=14)}),
+    # issue 17: the PDF report's year table (a column whose every value is zero is left out there)
+    replace(_DUTY, where=frozenset({"pdf"})),
+    replace(_CONDENSATE, where=frozenset({"pdf"})),
+    Figure("cooling_water_m3", "Cooling water", "liquid_volume", decimals=0, when="any", where={"pdf"}),
+    Figure("recoverable_heat_kWh", "Recoverable heat", "energy", to_si=_KWH, when="any", where={"pdf"}),
 )
 
 #: the year's totals and extremes (paths into the year dict), read by the text table (the window's

@@ -19,7 +19,7 @@ from app.report.sections import ReportInfo
 
 def export_report(doc: dict, result, pdf_path, csv_path=None, system: str = "SI", source_name: str = "",
                   study_rows=None, *, date: str | None = None, paper: str | None = None,
-                  prepared_by: str | None = None) -> int:
+                  prepared_by: str | None = None, year=None) -> int:
     """Write the PDF report (and optionally the CSV) of a solved project.
 
     Parameters
@@ -44,6 +44,9 @@ def export_report(doc: dict, result, pdf_path, csv_path=None, system: str = "SI"
         ``"A4"`` or ``"Letter"`` (default: A4 for SI, Letter for US units).
     prepared_by : str, optional
         Who made the report, printed on its first page (default: the user account's name).
+    year : dict or YearResult, optional
+        The project's year at the site; computed here (:func:`thermo.year.run_year`, about a
+        second) when the project has a ``year`` section and none is given.
 
     Returns
     -------
@@ -59,7 +62,9 @@ def export_report(doc: dict, result, pdf_path, csv_path=None, system: str = "SI"
                       version=program_version(), system=system,
                       prepared_by=account_name() if prepared_by is None else prepared_by,
                       coolprop=coolprop_version())
-    n = write_pdf(doc, result, pdf_path, info, study_rows=study_rows, paper=paper)
+    year, year_problem = _year_of(doc, year)
+    n = write_pdf(doc, result, pdf_path, info, study_rows=study_rows, paper=paper, year=year,
+                  year_problem=year_problem)
     if csv_path is not None:
         write_csv(result, csv_path, system)
     return n
@@ -71,3 +76,17 @@ def account_name() -> str:
         return getpass.getuser()
     except (KeyError, OSError, ImportError):  # no such entry in the password database, no USER variable
         return ""
+
+
+def _year_of(doc: dict, year) -> tuple[dict | None, str]:
+    """The year at the site to print (its dict), or why it could not be computed."""
+    if year is None and doc.get("year"):
+        from thermo import StagewrightError
+        from thermo.year import run_year
+        try:
+            year = run_year(doc)
+        except StagewrightError as exc:
+            return None, str(exc)
+    if hasattr(year, "to_dict"):
+        year = year.to_dict()
+    return year, ""

@@ -26,9 +26,10 @@ class ExportJob(QObject):
     done = Signal(str, str)
 
     def __init__(self, doc: dict, result: dict, pdf: Path, csv: Path | None, system: str, source: str,
-                 parent=None) -> None:
+                 parent=None, study_rows: list[dict] | None = None) -> None:
         super().__init__(parent)
         self.args = (doc, result, pdf, csv, system, source)
+        self.study_rows = study_rows  #: a staging study run in the window for this project, to print
         self.thread = threading.Thread(target=self._run, name="stagewright-export", daemon=True)
 
     def start(self) -> None:
@@ -40,7 +41,8 @@ class ExportJob(QObject):
         from app.report import export_report
         doc, result, pdf, csv, system, source = self.args
         try:
-            pages = export_report(doc, result, pdf, csv, system=system, source_name=source)
+            pages = export_report(doc, result, pdf, csv, system=system, source_name=source,
+                                  study_rows=self.study_rows)
         except (OSError, StagewrightError) as exc:
             self.done.emit("", f"{pdf}: {getattr(exc, 'strerror', None) or exc}")
             return
@@ -95,11 +97,23 @@ class ExportController(QObject):
         pdf = Path(name if name.lower().endswith(".pdf") else name + ".pdf")
         csv = pdf.with_suffix(".csv") if chosen != PDF_ONLY else None
         source = path.name if path else ""
-        job = ExportJob(ed.model.snapshot(), copy.deepcopy(ed.result), pdf, csv, ed.prefs.system, source, self)
+        job = ExportJob(ed.model.snapshot(), copy.deepcopy(ed.result), pdf, csv, ed.prefs.system, source, self,
+                        study_rows=self._study_rows())
         job.done.connect(self._on_export_done)
         self.job = job
         self.status.showMessage(f"Exporting {pdf.name}…")
         job.start()
+
+    def _study_rows(self) -> list[dict] | None:
+        """Rows of the staging study the window shows, when it was run on the project as it now stands.
+
+        Read from the window's study link (``parent().study``, a controller the window owns);
+        None when there is no study, it is out of date, or it has no rows.
+        """
+        panel = getattr(getattr(self.parent(), "study", None), "panel", None)
+        if panel is None or panel.is_stale or not panel.rows:
+            return None
+        return copy.deepcopy(panel.rows)
 
     def _on_export_done(self, message: str, error: str) -> None:
         if error:
