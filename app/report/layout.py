@@ -204,6 +204,11 @@ class Pager:
         self._text(self.left, self.y, text, size, bold=True, colour=style.SHAFT if level == 1 else style.INK)
         self.y -= 0.08 if level == 1 else 0.05
 
+    def paragraph_height(self, text: str, size: float = _BODY, indent: float = 0.0, bold_lead: str = "") -> float:
+        """Height :meth:`paragraph` takes for ``text``, [in]."""
+        lead = f"{bold_lead} " if bold_lead else ""
+        return len(wrap(lead + text, self.content_width - indent, size)) * size * 1.35 / 72.0 + 0.06
+
     def paragraph(self, text: str, size: float = _BODY, colour: str = style.INK, indent: float = 0.0,
                   italic: bool = False, bold_lead: str = "", keep_together: bool = False) -> None:
         """Wrapped text; a ``bold_lead`` is printed bold at its start (e.g. a caution title).
@@ -354,19 +359,26 @@ class Pager:
         self.y -= 0.1
 
     # ------------------------------------------------------------------------------ charts
-    def charts(self, heading: str, draws: list[tuple], gap_after: float = 0.15) -> None:
+    def charts(self, heading: str, draws: list[tuple], gap_after: float = 0.15, shrink: float = 0.85) -> None:
         """A heading and the given charts stacked under it, on this page when they fit.
 
         ``draws`` holds ``(draw_function, height_in)`` pairs; each function is called with a
         sub-figure of the page (see :mod:`app.charts`) when the page is complete, so that one
         constrained layout, confined to the rectangle from the first chart's top to the last
         one's bottom, lays out every chart block of the page (the text between blocks keeps
-        its place: the layout leaves those bands empty).
+        its place: the layout leaves those bands empty). Charts that fit the rest of the page
+        only when a little lower (down to ``shrink`` of their height) are drawn that much
+        lower rather than moved to a new page.
         """
         heading_h = _HEADINGS[1] * 1.6 / 72.0 + 0.13
         total = sum(h for _, h in draws)
-        if self.y < self.height - _MARGIN_TOP - 1e-9 and heading_h + total > self.space_left():
-            self.new_page()
+        if self.y < self.height - _MARGIN_TOP - 1e-9:
+            room = self.space_left() - heading_h - 0.05
+            if total * shrink > room:
+                self.new_page()
+            elif total > room:
+                draws = [(draw, h * room / total) for draw, h in draws]
+                total = room
         self.heading(heading, keep_with=0.0)
         top = self.y - 0.05
         bottom = max(self.bottom, top - total)

@@ -311,7 +311,9 @@ def staging(p: Pager, study_rows: list[dict] | None, system: str, limit_K=None) 
 
 
 def cautions(p: Pager) -> None:
-    p.heading("Cautions", keep_with=0.8)
+    """The safety cautions and the deferral to local codes, kept together on one page."""
+    height = sum(p.paragraph_height(text, bold_lead=f"{title}.") for title, text in CAUTIONS)
+    p.heading("Cautions", keep_with=height + 0.05 + p.paragraph_height(DEFERRAL))
     for title, text in CAUTIONS:
         p.paragraph(text, bold_lead=f"{title}.", keep_together=True)
     p.gap(0.05)
