@@ -72,6 +72,26 @@ def test_every_train_table_path_is_in_the_results_of_the_sample_projects(sample_
     assert named_kinds <= kinds_met == {"filter", "stage", "cooler", "train"}
 
 
+def test_every_summary_and_recovery_path_is_in_the_results_of_the_sample_projects(sample_results):
+    from app.presentation import recovery_table, summary_table
+
+    missing, seen = [], {"summary": set(), "train": set(), "recovery": set(), "by_stage": set()}
+    for r in sample_results.values():
+        missing += _check_paths(summary_table.SUMMARY, [(None, r)], seen["summary"])
+        rows = [(kind, c) for _, kind, _, c in balance_tables.component_rows(r) if kind in ("stage", "cooler")]
+        missing += _check_paths(summary_table.SUMMARY_TRAIN, rows, seen["train"])
+        if r["heat_recovery"]:
+            missing += _check_paths(recovery_table.RECOVERY, [(None, r["heat_recovery"])], seen["recovery"])
+            missing += _check_paths(recovery_table.RECOVERY_BY_STAGE,
+                                    [(None, row) for _, row in recovery_table.recovery_rows(r["heat_recovery"])],
+                                    seen["by_stage"])
+    assert missing == []
+    assert seen["summary"] == {f.id for f in summary_table.SUMMARY}
+    assert seen["train"] == {f.id for f in summary_table.SUMMARY_TRAIN}
+    assert seen["recovery"] == {f.id for f in recovery_table.RECOVERY}
+    assert seen["by_stage"] == {f.id for f in recovery_table.RECOVERY_BY_STAGE}
+
+
 def test_every_staging_column_path_is_in_a_study_of_a_sample_project():
     from thermo.study import compare_stagings
     rows = compare_stagings(load(SAMPLES / "single_stage_workshop.json"), 2).rows()

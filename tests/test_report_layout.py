@@ -76,11 +76,19 @@ def test_first_page_has_the_answer(path, sample_reports, capsys):
         assert " ".join(w["message"].split()[:6]) in flat
 
 
-def test_prepared_by_is_printed(tmp_path):
-    pdf = tmp_path / "r.pdf"
+def test_prepared_by_is_printed(tmp_path, monkeypatch):
+    import app.report
+
+    infos = []
+    monkeypatch.setattr(app.report, "write_pdf", lambda doc, result, path, info, **kw: infos.append(info) or 1)
     path = SAMPLES / "single_stage_workshop.json"
-    assert main(["report", str(path), "-o", str(pdf), "--prepared-by", "A. Designer, Example Engineering"]) == 0
-    assert "Prepared by A. Designer, Example Engineering" in _first_page(pdf)
+    assert main(["report", str(path), "-o", str(tmp_path / "r.pdf"), "--prepared-by", "A. Designer, Example Ltd"]) == 0
+    assert main(["report", str(path), "-o", str(tmp_path / "r.pdf")]) == 0
+    assert [i.prepared_by for i in infos] == ["A. Designer, Example Ltd", app.report.account_name()]
+    doc = load(path)
+    p = lay_out(doc, solve(doc).to_dict(), infos[0])
+    first = "\n".join(t.get_text() for t in p.pages[0].texts)
+    assert "Prepared by" in first and "A. Designer, Example Ltd" in first
 
 
 def _page_fill(page) -> float:

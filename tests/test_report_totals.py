@@ -9,7 +9,6 @@ app.presentation.units.
 from __future__ import annotations
 
 import csv
-import io
 import json
 import re
 

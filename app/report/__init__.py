@@ -1,7 +1,10 @@
 """Reports a designer can hand over: a PDF and a CSV of a solved project (no Qt, no display).
 
 ``export_report`` is what both ``stagewright report`` and the window's File → Export call,
-so the two always produce the same report.
+so the two always produce the same report. Modules: ``layout`` (the Pager: text, tables, chart
+blocks) · ``summary`` (the first page) · ``sections`` (inputs, balance sheet, exchangers and zones,
+totals, charts, staging, cautions) · ``recovery_section`` · ``year_section`` · ``pdf`` (the order of
+the sections, writing) · ``csv_export`` · ``atomic``.
 """
 from __future__ import annotations
 
