@@ -183,7 +183,7 @@ def case_files():
 
 
 def case_startup():
-    if not (ROOT / "app" / "gui_main.py").exists():
+    if not (ROOT / "app" / "entry.py").exists():
         print(f"{'window start-up to solved demo':<44}  (window not available)")
         return
     env = dict(os.environ, QT_QPA_PLATFORM="offscreen")
@@ -200,7 +200,7 @@ def case_startup():
 
 def case_startup_phases():
     """Start-up milestones of the window (bench/startup.py): shown, solved demo, charts drawn."""
-    if not (ROOT / "app" / "main_window.py").exists():
+    if not (ROOT / "app" / "window" / "main_window.py").exists():
         print(f"{'window start-up milestones':<44}  (window not available)")
         return
     import startup

@@ -1,10 +1,13 @@
-"""Balance sheet: a negative exergy out with heat (heat rejected below ambient) is explained."""
+"""Balance sheet: a negative exergy out with heat (heat rejected below ambient) is explained; spare
+width goes to the shown columns."""
+import json
+
 import pytest
 
 pytest.importorskip("PySide6")
 
 from app.panels.balance_panel import NEGATIVE_TIPS, TOTAL_TIPS  # noqa: E402
-from gui_support import make_window, simple_real_gas_doc, wait_solved  # noqa: E402
+from gui_support import SAMPLE, make_window, simple_real_gas_doc, wait_solved  # noqa: E402
 
 pytestmark = pytest.mark.gui
 
@@ -51,4 +54,19 @@ def test_heat_rejected_below_ambient_shows_negative_with_its_explanation(qtbot, 
     assert _kw(bal.value_text("totals", KEY, "")) > 0.0
     assert bal.tool_tip("totals", KEY, "") == ""
     assert bal.tool_tip("totals", KEY, "label") == TOTAL_TIPS[KEY]
+    win.close()
+
+
+def test_spare_width_goes_to_the_shown_columns(qtbot, tmp_path):
+    # the demo's coolers have no exchanger sized: those component columns are hidden and must not
+    # take a share of the spare width (the shown columns then stopped short of the table's edge)
+    win = make_window(qtbot, tmp_path, json.loads(SAMPLE.read_text(encoding="utf-8")))
+    win.resize(1920, 1080)
+    table = win.panels["balance"].components
+    qtbot.waitUntil(lambda: table.viewport().width() > 900)
+    table.fit_columns()
+    header = table.horizontalHeader()
+    assert any(table.isColumnHidden(c) for c in range(table.columnCount()))
+    shown = sum(header.sectionSize(c) for c in range(table.columnCount()) if not table.isColumnHidden(c))
+    assert table.viewport().width() - table.columnCount() <= shown <= table.viewport().width()  # rounding only
     win.close()

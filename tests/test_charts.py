@@ -76,8 +76,8 @@ def test_stage_line_follows_the_polytropic_path(sample):
     st = result["stages"][0]
     s0 = result["intake"]["entropy_J_kgK"]
     xs, ys = line.get_xdata(), line.get_ydata()
-    # every intermediate state of the compression is drawn, then the static discharge
-    assert len(xs) == len(st["path"]) + 1
+    # every state of the compression is drawn, ending at the static discharge
+    assert len(xs) == len(st["path"])
     for q, xv, yv in zip(st["path"], xs, ys):
         assert xv == pytest.approx((q["entropy_J_kgK"] - s0) / 1e3, abs=1e-12)
         assert yv == pytest.approx(q["temperature_K"] - 273.15, abs=1e-9)

@@ -7,7 +7,7 @@ import sys
 
 from app.cli.main import main
 from tests.conftest import ROOT, SAMPLES, make_doc
-from thermo.project.schema import PROJECT
+from thermo.project.schema import FORMAT_VERSION, PROJECT
 
 
 def _write(path, doc):
@@ -42,7 +42,7 @@ def test_broken_json_prints_line_and_column(tmp_path, capsys):
 
 
 def test_folders_and_several_files(tmp_path, capsys):
-    good = _write(tmp_path / "a.json", make_doc())
+    good = _write(tmp_path / "a.json", dict(make_doc(), version=FORMAT_VERSION))  # current: a plain "ok"
     _write(tmp_path / "b.json", dict(make_doc(), colour="red"))
     empty = tmp_path / "empty"
     empty.mkdir()

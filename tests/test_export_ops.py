@@ -13,7 +13,7 @@ import pytest
 
 pytest.importorskip("pytestqt")
 
-from gui_support import make_window, type_into  # noqa: E402
+from gui_support import make_window, type_into, wait_solved  # noqa: E402
 
 from app.window.export_ops import PDF_AND_CSV, PDF_ONLY  # noqa: E402
 
@@ -93,7 +93,6 @@ def test_export_prints_the_staging_study_run_in_the_window(qtbot, tmp_path):
     for row in panel.rows:  # each option's driver power at the printed precision (kW, 2 decimals)
         m = re.search(rf"^{row['stages']} [\d. ×]+? ([\d ]+\.\d\d) ", text, re.M)
         assert m and abs(float(m.group(1).replace(" ", "")) - row["driver_power_W"] / 1e3) <= 0.005
-    from gui_support import wait_solved
     after = win.editor.solved_jobs
     win.editor.set_value("stages[0].efficiency.value", 0.7)  # the study no longer describes the project
     wait_solved(qtbot, win, after)
@@ -101,4 +100,46 @@ def test_export_prints_the_staging_study_run_in_the_window(qtbot, tmp_path):
     _export(qtbot, win, tmp_path / "stale.pdf", PDF_ONLY)
     text = "\n".join(p.extract_text() for p in pypdf.PdfReader(str(tmp_path / "stale.pdf")).pages)
     assert "Staging comparison" not in text
+    win.close()
+
+
+def test_export_starts_in_documents_with_a_name_from_the_title_then_in_the_last_folder(qtbot, tmp_path, monkeypatch):
+    from PySide6.QtCore import QStandardPaths
+    docs = tmp_path / "Documents"
+    docs.mkdir()
+    monkeypatch.setattr(QStandardPaths, "writableLocation", staticmethod(lambda kind: str(docs)))
+    win = make_window(qtbot, tmp_path)
+    win.editor.set_value("title", "Plant air: 2027")
+    wait_solved(qtbot, win, win.editor.solved_jobs)
+    starts = []
+    win.prompts.export_target = lambda start: starts.append(start) or ("", PDF_ONLY)
+    win.action_map["file.export"].trigger()
+    assert starts == [str(docs / "Plant air 2027.pdf")]  # not ./report.pdf in the checkout
+    reports = tmp_path / "reports"
+    reports.mkdir()
+    _export(qtbot, win, reports / "first.pdf", PDF_ONLY)
+    win.prompts.export_target = lambda start: starts.append(start) or ("", PDF_ONLY)
+    win.action_map["file.export"].trigger()
+    assert starts[-1] == str(reports / "Plant air 2027.pdf")
+    win.close()
+
+
+def test_export_asks_before_replacing_a_csv_the_dialog_did_not_ask_about(qtbot, tmp_path):
+    win = make_window(qtbot, tmp_path)
+    errors, asked = [], []
+    win.prompts.show_error = lambda title, text: errors.append(text)
+    old_csv = tmp_path / "out.csv"
+    old_csv.write_text("an older balance sheet", encoding="utf-8")
+    win.prompts.confirm_overwrite = lambda paths: asked.append(list(paths)) or False
+    win.prompts.export_target = lambda _start: (str(tmp_path / "out.pdf"), PDF_AND_CSV)
+    win.action_map["file.export"].trigger()
+    assert asked == [[old_csv]] and win.exports.job is None  # the dialog asked about out.pdf only
+    assert old_csv.read_text(encoding="utf-8") == "an older balance sheet" and not (tmp_path / "out.pdf").exists()
+    assert "nothing was written" in win.statusBar().currentMessage()
+    win.prompts.confirm_overwrite = lambda paths: asked.append(list(paths)) or True
+    _export(qtbot, win, tmp_path / "out.pdf", PDF_AND_CSV)
+    assert errors == [] and old_csv.read_text(encoding="utf-8").startswith("kind,name,")
+    asked.clear()
+    _export(qtbot, win, tmp_path / "out", PDF_ONLY)  # ".pdf" added here: the dialog asked about "out"
+    assert asked == [[tmp_path / "out.pdf"]]
     win.close()

@@ -96,7 +96,7 @@ def test_message_click_selects_the_offending_field(qtbot, window):
     assert drains == ["stages[0].cooler.separator_efficiency", "stages[1].cooler.separator_efficiency"]
     warnings = [m for m in warnings if not m.field.endswith("separator_efficiency")]
     assert [m.field for m in warnings] == ["stages[1].max_discharge_temperature_K"]
-    assert "above its limit of 126.85 °C" in warnings[0].text
+    assert "is above its 126.85 °C limit" in warnings[0].text and "K " not in warnings[0].text
     assert any(m.severity == "caution" for m in msgs.messages)  # the discharge-temperature caution
     train.select("cooler", 0)
     item = msgs.list.item(msgs.messages.index(warnings[0]))
@@ -192,7 +192,8 @@ def test_gauge_entry_is_relative_to_site_pressure(qtbot, tmp_path):
     n = ed.solved_jobs
     type_into(qtbot, duty.pressure, "7")
     wait_solved(qtbot, win, n)
-    assert ed.model.get("discharge_pressure_Pa") == 800_000.0  # 7 bar(g) + 1 bar(a) site
+    assert ed.model.get("discharge_gauge_pressure_Pa") == 700_000.0  # stated as typed: gauge
+    assert ed.result["delivery"]["pressure_Pa"] == pytest.approx(800_000.0)  # 7 bar(g) + 1 bar(a) site
     win.action_map["view.gauge"].trigger()
     assert duty.pressure.text() == "8" and duty.pressure.unit_label.text() == "bar(a)"
     win.close()
@@ -291,9 +292,9 @@ def test_help_shows_the_cautions_and_the_deferral_to_local_codes(qtbot, window):
 def test_problem_and_failure_messages_select_their_fields(qtbot, tmp_path):
     win = make_window(qtbot, tmp_path, simple_real_gas_doc())
     ed, msgs, duty = win.editor, win.panels["messages"], win.panels["duty"]
-    type_into(qtbot, duty.pressure, "-0.9")  # 0.1 bar(a): below the stage-1 inlet pressure
+    type_into(qtbot, duty.pressure, "-0.9")  # a gauge statement must be above 0 bar(g)
     problem = next(m for m in msgs.messages if m.severity == "problem")
-    assert problem.field == "discharge_pressure_Pa" and "Discharge pressure" in problem.text
+    assert problem.field == "discharge_gauge_pressure_Pa" and "Discharge pressure" in problem.text
     win.panels["train"].stage_form.value.setFocus()
     msgs._clicked(msgs.list.item(msgs.messages.index(problem)))
     qtbot.waitUntil(lambda: duty.pressure.edit.hasFocus(), timeout=2000)
@@ -312,27 +313,34 @@ def test_problem_and_failure_messages_select_their_fields(qtbot, tmp_path):
     win.close()
 
 
-def test_staging_study_runs_off_the_gui_thread_and_fills_its_tab(qtbot, tmp_path, doc_factory):
+def test_staging_study_runs_off_the_gui_thread_and_is_shown_once_in_its_panel(qtbot, tmp_path, doc_factory):
     # perfect gas, equal stages, intercooling back to the intake temperature, no drops: the
     # optimum split is the equal one and an N-stage train needs
     # N * m cp T1 (r^((k-1)/k) - 1) / eta_s with r = 9^(1/N)
     # (Çengel & Boles, Thermodynamics, 8th ed., §7-11, multistage compression with intercooling)
     win = make_window(qtbot, tmp_path, doc_factory())
+    charts, panel = win.panels["charts"], win.panels["study"]
+    qtbot.waitUntil(lambda: charts.ts is not None, timeout=10_000)
+    win.docks["balance"].raise_()  # the study panel behind another one …
+    qtbot.waitUntil(lambda: panel.visibleRegion().isEmpty(), timeout=5_000)
     win.action_map["train.study"].trigger()
-    tab = win.panels["charts"].study
-    qtbot.waitUntil(lambda: bool(tab.rows), timeout=60_000)
-    assert win.panels["charts"].tabs.currentWidget() is tab
-    by_n = {r["stages"]: r for r in tab.rows}
+    qtbot.waitUntil(lambda: bool(panel.rows) and not panel.busy, timeout=60_000)
+    qtbot.waitUntil(lambda: not panel.visibleRegion().isEmpty(), timeout=5_000)  # … comes to the front
+    # the study is shown once, in its panel: the charts area keeps its own charts only
+    assert [charts.tabs.tabText(i) for i in range(charts.tabs.count())] == ["T–s path", "Power split"]
+    by_n = {r["stages"]: r for r in panel.rows}
     assert sorted(by_n) == [1, 2, 3, 4]
     for n in (1, 2, 3):
         r = 9.0 ** (1.0 / n)
         expected_W = n * 1.0 * 1005.0 * 293.15 * (r ** (0.4 / 1.4) - 1.0) / 0.8
         assert by_n[n]["driver_power_W"] == pytest.approx(expected_W, rel=1e-4)
-        assert shown_number(tab.table.item(n - 1, 2).text()) == pytest.approx(expected_W / 1000.0, abs=0.01)
+        assert shown_number(panel.table.cell_text(n - 1, "power")) == pytest.approx(expected_W / 1000.0, abs=0.01)
     from matplotlib.lines import Line2D
-    assert any(a.get_gid() == "staging-power" for a in tab.figure.findobj(Line2D))
+    assert any(a.get_gid() == "staging-power" for a in panel.chart.figure.findobj(Line2D))
+    n = win.editor.solved_jobs
     win.editor.set_value("stages[0].efficiency.value", 0.75)
-    assert tab.stale.isVisibleTo(tab)
+    wait_solved(qtbot, win, n)
+    assert panel.banner.isVisibleTo(panel)  # the panel says its study is out of date
     win.close()
 
 

@@ -104,7 +104,7 @@ def test_dew_point_on_a_cooling_line_saturates_the_stream(model_name):
     from thermo.moist.dew_point import dew_point
     from thermo.moist.stream import MoistAir
     from thermo.models import make_model
-    from thermo.train import mixture_for
+    from thermo.solve_context import mixture_for
     model = MoistAir(mixture_for(make_model({"model": model_name})), 0.012)
     t_in, t_out, p_in, p_out = 420.0, 303.0, 4.0e5, 3.8e5
 

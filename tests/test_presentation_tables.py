@@ -72,12 +72,17 @@ def test_every_train_table_path_is_in_the_results_of_the_sample_projects(sample_
     assert named_kinds <= kinds_met == {"filter", "stage", "cooler", "train"}
 
 
+def _pdf_key_figures():
+    from app.presentation.figures import shown
+    return shown(balance_tables.KEY_FIGURES, "pdf")
+
+
 def test_every_summary_and_recovery_path_is_in_the_results_of_the_sample_projects(sample_results):
     from app.presentation import recovery_table, summary_table
 
     missing, seen = [], {"summary": set(), "train": set(), "recovery": set(), "by_stage": set()}
     for r in sample_results.values():
-        missing += _check_paths(summary_table.SUMMARY, [(None, r)], seen["summary"])
+        missing += _check_paths(_pdf_key_figures(), [(None, r)], seen["summary"])
         rows = [(kind, c) for _, kind, _, c in balance_tables.component_rows(r) if kind in ("stage", "cooler")]
         missing += _check_paths(summary_table.SUMMARY_TRAIN, rows, seen["train"])
         if r["heat_recovery"]:
@@ -86,7 +91,7 @@ def test_every_summary_and_recovery_path_is_in_the_results_of_the_sample_project
                                     [(None, row) for _, row in recovery_table.recovery_rows(r["heat_recovery"])],
                                     seen["by_stage"])
     assert missing == []
-    assert seen["summary"] == {f.id for f in summary_table.SUMMARY}
+    assert seen["summary"] == {f.id for f in _pdf_key_figures()}
     assert seen["train"] == {f.id for f in summary_table.SUMMARY_TRAIN}
     assert seen["recovery"] == {f.id for f in recovery_table.RECOVERY}
     assert seen["by_stage"] == {f.id for f in recovery_table.RECOVERY_BY_STAGE}

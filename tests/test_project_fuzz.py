@@ -181,7 +181,7 @@ def test_many_valid_documents_solve_or_are_refused_cleanly():
 def test_round_trip_of_generated_documents(doc):
     text = dumps(doc)
     first = loads(text)
-    assert first == {"format": "stagewright-project", "version": 1, **doc}
+    assert first == {"format": "stagewright-project", **doc, "version": 2}  # a version-1 document is upgraded
     assert loads(dumps(first)) == first and dumps(first) == dumps(loads(dumps(first)))
 
 

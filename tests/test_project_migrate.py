@@ -127,4 +127,20 @@ def test_unknown_versions_are_refused_and_the_file_is_untouched(tmp_path, value,
 def test_a_whole_float_version_is_read():
     doc = json.loads((FIXTURES / "project_v1.json").read_text(encoding="utf-8"))
     doc["version"] = 1.0
-    assert migrate_doc(doc)[0]["version"] == 1
+    upgraded, declared = migrate_doc(doc)
+    assert declared == 1 and upgraded["version"] == schema.FORMAT_VERSION
+
+
+# --- the steps ---------------------------------------------------------------------------------
+
+def test_step_1_to_2():
+    """Version 2 adds the gauge statement of the delivery pressure; a version-1 file keeps its
+    absolute ``discharge_pressure_Pa`` with its meaning and solves exactly as before."""
+    import thermo
+
+    raw = json.loads((FIXTURES / "project_v1.json").read_text(encoding="utf-8"))
+    doc, declared = migrate_doc(raw)
+    assert declared == 1 and doc["version"] == 2
+    assert {k: v for k, v in doc.items() if k != "version"} == {k: v for k, v in raw.items() if k != "version"}
+    assert "discharge_gauge_pressure_Pa" not in doc
+    assert thermo.solve(doc).delivery.P == pytest.approx(raw["discharge_pressure_Pa"], rel=1e-9)

@@ -28,7 +28,7 @@ def test_load_returns_the_document_with_format_and_version(tmp_path):
     p = tmp_path / "a.json"
     p.write_text(json.dumps(doc), encoding="utf-8")
     got = load(p)
-    assert got == {"format": "stagewright-project", "version": 1, **doc}
+    assert got == {"format": "stagewright-project", "version": 2, **doc}
 
 
 @pytest.mark.parametrize("text, line, column", [

@@ -141,3 +141,54 @@ def test_moist_real_gas_state_outside_rp1485_range_names_stage_and_range():
     doc["site"]["relative_humidity"] = 0.5
     with pytest.raises(InputError, match=r"stages\[0\]: .*up to 623\.15 K and 1e\+07 Pa .*RP-1485"):
         thermo.solve(doc)
+
+
+# ---- resolved inputs: the site worked out once at the boundary ---------------------------------
+
+def test_site_pressure_resolves_from_pressure_elevation_or_sea_level():
+    from thermo.atmosphere import standard_pressure
+    from thermo.project.validation import resolve_site
+    doc = make_doc()
+    assert resolve_site(normalise(doc)).pressure_Pa == 1e5  # as given, exactly
+    doc["site"].pop("barometric_pressure_Pa")
+    assert resolve_site(normalise(doc)).pressure_Pa == 101_325.0  # ISO 2533 sea-level pressure
+    doc["site"]["elevation_m"] = 1000.0
+    # ISO 2533:1975 table: 89 875 Pa at 1000 m (printed to 1 Pa)
+    assert resolve_site(normalise(doc)).pressure_Pa == pytest.approx(89_875.0, abs=1.0)
+    assert resolve_site(normalise(doc)).pressure_Pa == standard_pressure(1000.0)
+
+
+@pytest.mark.parametrize("site, humidity", [
+    ({}, None),
+    ({"relative_humidity": 0.0}, None),
+    ({"humidity_ratio": 0.0}, None),
+    ({"relative_humidity": 0.4}, ("relative_humidity", 0.4)),
+    ({"dew_point_K": 280.0}, ("dew_point_K", 280.0)),
+    ({"humidity_ratio": 0.008}, ("humidity_ratio", 0.008)),
+])
+def test_resolved_site_names_the_one_humidity_input(site, humidity):
+    from thermo.project.validation import resolve_site
+    doc = make_doc(inlet_pressure_drop_Pa=1500.0)
+    doc["site"].update(site)
+    resolved = resolve_site(normalise(doc))
+    assert resolved.humidity == humidity and resolved.moist == (humidity is not None)
+    assert resolved.stage_inlet_pressure_Pa == 1e5 - 1500.0
+    assert resolved == resolve_site(normalise(doc)) and hash(resolved) == hash(resolve_site(normalise(doc)))
+
+
+@pytest.mark.parametrize("site, expected", [
+    ({"barometric_pressure_Pa": 95_000}, 95_000.0),
+    ({"barometric_pressure_Pa": 95_000.0, "elevation_m": 1000.0}, 95_000.0),  # the measured one first
+    ({"barometric_pressure_Pa": -5.0, "elevation_m": 0.0}, 101_325.0),
+    ({"barometric_pressure_Pa": "1 bar", "elevation_m": 0.0}, 101_325.0),
+    ({"barometric_pressure_Pa": True}, 101_325.0),
+    ({"barometric_pressure_Pa": float("inf")}, 101_325.0),
+    ({"elevation_m": 20_000.0}, 101_325.0),  # outside the standard atmosphere: the field shows it
+    ({"elevation_m": 10 ** 400}, 101_325.0),
+    ({}, 101_325.0),
+    (None, 101_325.0),
+])
+def test_barometric_pressure_of_a_document_being_edited(site, expected):
+    # the window shows gauge pressures relative to this while the user types: never raises
+    from thermo.project.validation import barometric_pressure
+    assert barometric_pressure(site) == expected

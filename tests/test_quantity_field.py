@@ -45,7 +45,8 @@ def test_typing_a_rounded_value_stores_what_was_typed(qtbot, tmp_path):
     n = ed.solved_jobs
     type_into(qtbot, field, "10.02")
     wait_solved(qtbot, win, n)
-    assert ed.model.get("discharge_pressure_Pa") == pytest.approx(1_102_000.0, rel=1e-12)
+    # typed in gauge: stored as the gauge statement, as typed (issue 14 item 3)
+    assert ed.model.get("discharge_gauge_pressure_Pa") == pytest.approx(1_002_000.0, rel=1e-12)
     qtbot.keyClick(field.edit, Qt.Key_Tab)
     win.close()
 

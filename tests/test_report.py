@@ -18,6 +18,8 @@ import pytest
 
 from app.presentation import units
 from app.presentation.cautions import CAUTIONS, DEFERRAL
+from app.document.messages import limit_sentence, warning_text
+from app.document.field_specs import describe
 from app.cli.main import main
 from app.cli.progress import Progress
 from app.report import csv_rows, export_report
@@ -192,9 +194,11 @@ def test_warnings_and_staging_rows_are_printed(tmp_path):
     n = export_report(doc, result, pdf, system="SI", source_name="warned.json", study_rows=rows, date="2024-05-06")
     text, pages = _pdf_text(pdf)
     assert len(pages) == n
-    for w in result.warnings:
-        assert w.message in text and w.field in text
-    assert "Staging comparison" in text and "discharge above its limit" in text
+    for w in result.to_dict()["warnings"]:  # display units and the field's name (issue 14 item 7)
+        assert _flat(warning_text(w, doc, "SI")) in _flat(text)
+        assert _flat(describe(w["field"], doc)) in _flat(text)
+        assert w["message"] not in text and w["field"] not in text  # no kelvin, no key path
+    assert "Staging comparison" in text and "discharge above its limit" in text.lower()
     assert re.search(r"^1 9\.000 300\.00 326\.85 no$", text, re.M)  # 300 kW, 600 K = 326.85 °C, infeasible
     assert "3.000 × 3.000" in text and text.count("Each option repeats stage 1.") == 1
     assert "Date 2024-05-06" in text
@@ -302,4 +306,17 @@ def test_report_with_the_staging_study(tmp_path):
         m = re.search(rf"^{r['stages']} [\d. ×]+? ([\d ]+\.\d\d) ", text, re.M)
         assert m and abs(float(m.group(1).replace(" ", "")) - r["driver_power_W"] / 1e3) <= 0.005
     for b in rows[0]["binding_limits"]:
-        assert _flat(b["message"]) in _flat(text)
+        assert _flat(limit_sentence(b, None, "SI")) in _flat(text)
+
+
+def test_the_inputs_say_which_basis_the_delivery_pressure_was_stated_in(tmp_path):
+    gauge = make_doc(model="ideal_gas", P0=95_000.0)
+    del gauge["discharge_pressure_Pa"]
+    gauge["discharge_gauge_pressure_Pa"] = 8e5
+    for doc, stated, other in ((gauge, "8.0000 bar(g) stated as gauge", "(= 8.9500 bar(a) at this site)"),
+                               (make_doc(model="ideal_gas", P0=95_000.0, p_out=9e5),
+                                "9.0000 bar(a) stated as absolute", "(= 8.0500 bar(g) at this site)")):
+        pdf = tmp_path / "r.pdf"
+        export_report(doc, solve(doc).to_dict(), pdf)
+        text = _flat(_pdf_text(pdf)[0])
+        assert f"Discharge pressure {stated} {other}" in text  # gauge = absolute − barometric

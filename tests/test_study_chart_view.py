@@ -1,5 +1,5 @@
 """The staging chart widget on its own: a hint until there is something to draw (matplotlib
-loaded only then), the drawn lines carry the rows' figures, and the large form has its title.
+loaded only then) and the drawn lines carry the rows' figures.
 Rows are invented; 1 hp = 745.69987158 W exactly (NIST SP 811, 2008, App. B)."""
 from __future__ import annotations
 
@@ -35,12 +35,3 @@ def test_hint_first_then_the_chart(qtbot):
     assert not view.figure.axes[0].get_title(loc="left")  # untitled: the panel is its heading
     view.show_rows([], "SI")
     assert view.currentWidget() is view.hint
-
-
-def test_without_a_hint_the_canvas_is_there_at_once_and_titled(qtbot):
-    view = StagingChartView(titled=True, figsize=(6, 3), min_size=(420, 200))
-    qtbot.addWidget(view)
-    assert view.canvas is not None and view.canvas.minimumWidth() == 420
-    view.show_rows(ROWS, "SI")
-    assert power_line(view).get_ydata()[2] == pytest.approx(250.0, rel=1e-12)
-    assert view.figure.axes[0].get_title(loc="left") == "Staging study"

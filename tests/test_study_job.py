@@ -51,3 +51,28 @@ def test_a_cancelled_study_keeps_what_it_finished():
     assert "repeats the project's first stage" in rows[0]["note"]
     assert rows[1]["saving_W"] == pytest.approx(rows[0]["driver_power_W"] - rows[1]["driver_power_W"])
     assert partial_answer(req, [], "study cancelled")["cases"] == []
+
+
+def test_trial_progress_counts_the_trial_solves_between_the_studys_reports():
+    # the study asks whether to stop once as it starts an option and once before every trial
+    # solve (thermo.study.trials.TrialSolver); the count of the latter grows within an option,
+    # starts again with the next, and ends at the option's own count of solves
+    import re
+    import threading
+
+    from app.study.job import TrialProgress
+    seen = []
+    progress = TrialProgress(lambda f, m: seen.append((f, m)), threading.Event(), interval=0.0)
+    ans = run_request(StudyRequest(doc(), 3, 6000.0, 0.2), progress.report, progress.cancel)
+    assert ans["complete"]
+    fractions = [f for f, _ in seen]
+    assert fractions == sorted(fractions) and fractions[-1] == 1.0
+    counts = [(m.split(" (")[0], int(re.search(r"\((\d+) trial solves?\)$", m).group(1)))
+              for _, m in seen if "trial solve" in m]
+    assert {name for name, _ in counts} >= {"optimising the 2-stage option", "optimising the 3-stage option"}
+    for name in {name for name, _ in counts}:
+        mine = [n for who, n in counts if who == name]
+        assert mine == list(range(1, len(mine) + 1))  # 1, 2, 3 … within each option
+    for row in ans["cases"][0]["rows"]:  # the last count of an option is its number of solves
+        mine = [n for who, n in counts if who == f"optimising the {row['stages']}-stage option"]
+        assert (mine[-1] if mine else 0) == row["solves"]

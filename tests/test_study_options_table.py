@@ -1,5 +1,5 @@
 """The study's options table on its own (no window, no study run): which option is bold and
-picked, what stays picked when the units change, the tab's plain summary form, and when Apply
+picked, what stays picked when the units change, and when Apply
 is allowed. Rows are written out here (invented figures); unit factors are exact by definition
 (NIST SP 811, 2008, App. B: 1 hp = 745.69987158 W)."""
 from __future__ import annotations
@@ -8,7 +8,6 @@ import pytest
 
 pytest.importorskip("pytestqt")
 
-from app.study.display import Column  # noqa: E402
 from app.study.options_table import OptionsTable, apply_state, best_row, comparison_note  # noqa: E402
 
 pytestmark = pytest.mark.gui
@@ -67,15 +66,3 @@ def test_the_best_option_is_bold_and_picked_and_stays_picked_in_other_units(qtbo
     assert table.header_text("power") == "Driver power\n[hp]"
     with pytest.raises(KeyError):
         table.select_option(7)
-
-
-def test_a_summary_table_picks_nothing_and_keeps_two_line_names(qtbot):
-    columns = [Column("stages", "Stages"), Column("feasible", "Within\nlimits"),
-               Column("power", "Driver power", "power")]
-    table = OptionsTable(columns, lambda r, system: {"stages": str(r["stages"]), "feasible": "yes",
-                                                      "power": f"{r['driver_power_W']:.0f}"}, pickable=False)
-    qtbot.addWidget(table)
-    table.show_rows(ROWS, "SI")
-    assert table.selected_row() is None and not table.item(2, 2).font().bold()
-    assert [table.header_text(c.key) for c in columns] == ["Stages\n", "Within\nlimits", "Driver power\n[kW]"]
-    assert table.cell_text(1, "power") == "260000"

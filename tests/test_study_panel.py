@@ -127,6 +127,63 @@ def test_cancel_stops_the_study_and_the_window_stays_usable(qtbot, tmp_path, mon
     win.close()
 
 
+def _held_study(monkeypatch, before: threading.Event, after: threading.Event):
+    """compare_stagings held until ``before`` is set, and again after it optimised every option
+    (its last report, 1.0) until ``after`` is set; returns the events it sets when it gets there."""
+    import thermo.study
+    real = thermo.study.compare_stagings
+    started, optimised = threading.Event(), threading.Event()
+
+    def held(doc, max_stages=4, *, progress=None, cancel=None, **kw):
+        started.set()
+        before.wait(20)
+        comparison = real(doc, max_stages, progress=progress, cancel=cancel, **kw)
+        optimised.set()
+        after.wait(20)  # the answer is not in yet
+        return comparison
+    monkeypatch.setattr(thermo.study, "compare_stagings", held)
+    return started, optimised
+
+
+def test_the_bar_reaches_100_percent_only_when_the_answer_is_in(qtbot, tmp_path, monkeypatch):
+    go, answer = threading.Event(), threading.Event()
+    go.set()
+    _, optimised = _held_study(monkeypatch, go, answer)
+    win = make_window(qtbot, tmp_path, perfect_gas_doc())
+    panel = win.panels["study"]
+    bar = panel.controls.progress
+    panel.controls.max_stages.setValue(3)
+    win.action_map["train.study"].trigger()
+    qtbot.waitUntil(optimised.is_set, timeout=STUDY_MS)  # every option optimised, the answer held back
+    qtbot.wait(200)  # the last report reaches the panel
+    assert panel.busy and 0 < bar.value() < bar.maximum() == 1000
+    assert bar.text() == "99%" and "putting the table together" in panel.controls.status.text()
+    with qtbot.waitSignal(panel.controller.finished, timeout=STUDY_MS):
+        answer.set()
+    assert not panel.busy and bar.value() == bar.maximum() == 1000 and bar.text() == "100%"
+    win.close()
+
+
+def test_the_bar_claims_no_share_before_the_study_reports(qtbot, tmp_path, monkeypatch):
+    # before its first report the study has measured nothing: a busy bar, not "0 %" (nor the last
+    # study's "100 %")
+    go, answer = threading.Event(), threading.Event()
+    answer.set()
+    started, _ = _held_study(monkeypatch, go, answer)
+    win = make_window(qtbot, tmp_path, perfect_gas_doc())
+    panel = win.panels["study"]
+    bar = panel.controls.progress
+    panel.controls.max_stages.setValue(2)
+    win.action_map["train.study"].trigger()
+    qtbot.waitUntil(started.is_set, timeout=STUDY_MS)
+    qtbot.wait(50)
+    assert panel.busy and bar.minimum() == bar.maximum() == 0  # Qt's busy indicator
+    with qtbot.waitSignal(panel.controller.finished, timeout=STUDY_MS):
+        go.set()
+    assert bar.value() == bar.maximum() == 1000
+    win.close()
+
+
 def test_apply_is_one_undo_step_and_undo_restores_the_document_exactly(qtbot, tmp_path):
     win = make_window(qtbot, tmp_path, perfect_gas_doc())
     ed, bal = win.editor, win.panels["balance"]
@@ -145,8 +202,6 @@ def test_apply_is_one_undo_step_and_undo_restores_the_document_exactly(qtbot, tm
     # the project now solves to the option's numbers: 3 × the closed-form stage work
     assert number(bal.value_text("totals", "driver_power_W", "")) == pytest.approx(optimum_kW(3), abs=0.006)
     assert not panel.is_stale  # same first stage and aftercooler: the study still describes the project
-    tab = win.panels["charts"].study  # the charts area's Staging study tab follows the panel
-    assert tab.rows == panel.rows and not tab.stale.isVisibleTo(tab)
 
     n = ed.solved_jobs
     ed.undo_stack.undo()

@@ -72,3 +72,17 @@ def test_sweep_never_imports_qt(tmp_path):
             f"main(['sweep', {str(DEMO)!r}, '--axis', 'discharge_pressure_Pa=7e5,8e5', '-o', {str(tmp_path / 'o.csv')!r}]); "
             "assert not any(m.startswith('PySide6') for m in sys.modules), 'Qt imported'")
     subprocess.run([sys.executable, "-c", code], check=True)
+
+
+def test_a_gauge_axis_on_an_absolute_project_replaces_its_statement(tmp_path, capsys):
+    out = tmp_path / "grid.csv"
+    assert main(["sweep", str(DEMO), "--axis", "discharge_gauge_pressure_Pa=7e5", "-o", str(out)]) == 0
+    (row,) = _rows(out)
+    doc = json.loads(DEMO.read_text())
+    del doc["discharge_pressure_Pa"]
+    doc["discharge_gauge_pressure_Pa"] = 7e5
+    assert row["error"] == ""
+    assert float(row["shaft_power_W"]) == pytest.approx(thermo.solve(doc).shaft_power_W, rel=1e-4)  # fast path
+    assert main(["sweep", str(DEMO), "--axis", "discharge_gauge_pressure_Pa=7e5",
+                 "--axis", "discharge_pressure_Pa=8e5", "-o", str(out)]) == 2
+    assert "not both" in capsys.readouterr().err

@@ -61,10 +61,11 @@ def _title_texts(ax):
 
 
 @pytest.mark.parametrize("system", ["SI", "US"])
-@pytest.mark.parametrize("size_px", [(320, 200), (480, 300), (1200, 700)])
+@pytest.mark.parametrize("size_px", [(320, 200), (480, 300), (1200, 700), (900, 225), (1170, 280)])
 def test_titles_and_labels_lie_inside_the_figure(year, system, size_px):
     # 320 px is the panel's narrowest chart area; every title, axis label and tick label must be
-    # drawn inside the figure, and neighbouring month labels must not run into each other
+    # drawn inside the figure, neighbouring month labels must not run into each other, and the
+    # titles of panels side by side (a wide, short figure) must not run into each other either
     w, h = size_px
     fig = Figure(figsize=(w / 100, h / 100), dpi=100)
     FigureCanvasAgg(fig)
@@ -75,19 +76,40 @@ def test_titles_and_labels_lie_inside_the_figure(year, system, size_px):
     titles = [t for ax in fig.axes for t in _title_texts(ax)]
     assert len(titles) == 3
     texts = titles + [ax.yaxis.label for ax in fig.axes]
-    ticks = [t for t in fig.axes[-1].get_xticklabels() if t.get_visible() and t.get_text()]
-    assert len(ticks) == 12
-    for t in texts + ticks:
-        e = t.get_window_extent(renderer)
-        assert box.x0 <= e.x0 and e.x1 <= box.x1 and box.y0 <= e.y0 and e.y1 <= box.y1, t.get_text()
-    rotation = ticks[0].get_rotation()
-    if rotation == 0.0:
-        spans = sorted((t.get_window_extent(renderer) for t in ticks), key=lambda e: e.x0)
-        assert all(a.x1 <= b.x0 for a, b in zip(spans, spans[1:]))
-    else:  # turned labels: parallel lines one tick apart must be at least a text height apart
-        step = fig.axes[-1].transData.transform((1, 0))[0] - fig.axes[-1].transData.transform((0, 0))[0]
-        height = ticks[0].get_fontsize() * fig.dpi / 72.0
-        assert step * math.sin(math.radians(rotation)) >= height
+    labelled = [ax for ax in fig.axes if any(t.get_visible() and t.get_text() for t in ax.get_xticklabels())]
+    assert len(labelled) == (3 if w >= 2.2 * h else 1)  # side by side: month labels under each panel
+    for ax in labelled:
+        ticks = [t for t in ax.get_xticklabels() if t.get_visible() and t.get_text()]
+        assert len(ticks) == 12
+        for t in texts + ticks:
+            e = t.get_window_extent(renderer)
+            assert box.x0 <= e.x0 and e.x1 <= box.x1 and box.y0 <= e.y0 and e.y1 <= box.y1, t.get_text()
+        rotation = ticks[0].get_rotation()
+        if rotation == 0.0:
+            spans = sorted((t.get_window_extent(renderer) for t in ticks), key=lambda e: e.x0)
+            assert all(a.x1 <= b.x0 for a, b in zip(spans, spans[1:]))
+        else:  # turned labels: parallel lines one tick apart must be at least a text height apart
+            step = ax.transData.transform((1, 0))[0] - ax.transData.transform((0, 0))[0]
+            height = ticks[0].get_fontsize() * fig.dpi / 72.0
+            assert step * math.sin(math.radians(rotation)) >= height
+    boxes = [t.get_window_extent(renderer) for t in titles]
+    assert not any(a.overlaps(b) for i, a in enumerate(boxes) for b in boxes[i + 1:])
+
+
+def test_a_wide_short_figure_puts_the_panels_side_by_side_with_one_title_size(year):
+    # the window docks the chart under its charts: about 900 × 225 px at 1280 × 800
+    fig = Figure(figsize=(9.0, 2.25), dpi=100)
+    FigureCanvasAgg(fig)
+    draw_year_chart(fig, year)
+    fig.canvas.draw()
+    boxes = [ax.get_window_extent() for ax in fig.axes]
+    assert all(a.x1 < b.x0 for a, b in zip(boxes, boxes[1:]))  # left to right, in one row
+    assert min(b.height for b in boxes) >= 100
+    sizes = {t.get_fontsize() for ax in fig.axes for t in _title_texts(ax)}
+    assert len(sizes) == 1
+    row = draw_year_chart(_fig(), year, side_by_side=True)  # the caller may choose (a 7 × 6 in figure)
+    row.canvas.draw()
+    assert len({round(ax.get_window_extent().y0) for ax in row.axes}) == 1
 
 
 def test_fitting_keeps_the_words_and_gives_them_back_when_wide(year):
@@ -103,3 +125,25 @@ def test_fitting_keeps_the_words_and_gives_them_back_when_wide(year):
     fig.canvas.draw()
     assert [ax.get_title(loc="left") for ax in fig.axes] == full
     assert fig.axes[-1].get_xticklabels()[0].get_rotation() == 0.0
+
+
+@pytest.mark.parametrize("system", ["SI", "US"])
+@pytest.mark.parametrize("size_px", [(360, 170), (540, 180), (360, 208), (900, 225), (520, 420), (1170, 280)])
+def test_the_worst_bin_is_named_clear_of_the_month_labels(year, system, size_px):
+    # layout check (common practice, no source): in a short panel the name of the worst month sat
+    # on the month labels; at every size it is on the chart and no text overlaps a month label
+    from matplotlib.text import Text
+    w, h = size_px
+    fig = Figure(figsize=(w / 100, h / 100), dpi=100)
+    FigureCanvasAgg(fig)
+    draw_year_chart(fig, year, system)
+    fig.canvas.draw()
+    renderer = fig.canvas.get_renderer()
+    ticks = [t for ax in fig.axes for t in ax.get_xticklabels() if t.get_visible() and t.get_text()]
+    texts = [t for t in fig.findobj(Text) if t.get_visible() and t.get_text() and t not in ticks]
+    worst = year["worst_discharge_temperature"]["bin"]
+    assert any(f"worst: {worst}" in " ".join(t.get_text().split()) for t in texts)
+    tick_boxes = [t.get_window_extent(renderer) for t in ticks]
+    for t in texts:
+        box = t.get_window_extent(renderer)
+        assert not any(box.overlaps(b) for b in tick_boxes), (t.get_text(), size_px)

@@ -177,7 +177,6 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
     where = f"stages[{index}].cooler"
     field = outlet_field(spec, where)
     coolant = spec.get("coolant")
-    t_ci = coolant_inlet_temperature(spec, dead.T0)
     t_out = cooler_outlet_temperature(spec, dead.T0)
     t_b = spec.get("coolant_inlet_temperature_K") or dead.T0
     p_out = inlet.P - spec["pressure_drop_Pa"]
@@ -186,30 +185,8 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
                          f"expected less than half the cooler inlet pressure ({0.5 * inlet.P:.0f} Pa)")
     exchanger, t_stag = None, inlet.T
     if coolant is not None:
-        h_in0 = inlet.h + 0.5 * inlet_velocity ** 2 * getattr(model, "mass_per_dry_kg", 1.0)
-        if inlet_velocity > 0.0:
-            t_stag = model.at_hp(h_in0, inlet.P, f"{where} inlet (stagnation)", T_guess=inlet.T).T
-
-        hot_at = _hot_side(model, where, t_stag, h_in0, p_out, mass_flow)
-
-        fluid = make_coolant(coolant, (dead.T0, dead.P0, ambient_relative_humidity))
-        flow, rise = coolant.get("flow_kg_s"), coolant.get("temperature_rise_K")
-        if t_ci >= t_stag:
-            raise InputError(f"{where}.coolant_inlet_temperature_K", t_ci,
-                             f"expected below the cooler air inlet {t_stag:.2f} K: the coolant cannot "
-                             "cool air colder than itself")
-        if t_out is None:
-            t_out, exchanger = rate_exchanger(spec["arrangement"], spec["ua_W_K"], t_stag, hot_at, fluid,
-                                              t_ci, flow, rise, where)
-        else:
-            if t_out <= t_ci:
-                raise InputError(field, t_out if field.endswith("_temperature_K") else spec["approach_K"],
-                                 f"expected an air outlet above the coolant inlet {t_ci:.2f} K (an approach "
-                                 "above 0 K): a finite exchanger cannot cool the air to its coolant "
-                                 "temperature")
-            if t_out < inlet.T:
-                exchanger = size_exchanger(spec["arrangement"], hot_at(t_out), fluid, t_ci, flow, rise, where)
-        t_b = exchanger.coolant.mean_temperature_K if exchanger is not None else t_ci
+        t_out, exchanger, t_stag, t_b = _exchanger(model, spec, where, field, inlet, inlet_velocity, p_out,
+                                                   mass_flow, dead, t_out, ambient_relative_humidity)
     if t_out > (t_stag if exchanger is not None else inlet.T):
         raise InputError(field, t_out if field.endswith("_temperature_K") else spec["approach_K"],
                          f"cooler outlet {t_out:.2f} K is above its inlet {inlet.T:.2f} K; "
@@ -226,23 +203,140 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
     ke = 0.5 * inlet_velocity ** 2 * model.mass_per_dry_kg if moist else 0.5 * inlet_velocity ** 2
     duty = mass_flow * (inlet.h + ke - outlet.h)
     s_gen = mass_flow * (outlet.s - inlet.s) + duty / t_b
-    if moist:
-        water = condensation(model, inlet, outlet, duty, mass_flow, spec["separator_efficiency"])
+    water = condensation(model, inlet, outlet, duty, mass_flow, spec["separator_efficiency"]) if moist else None
+    path = _cooling_path(model, where, inlet, outlet, t_out, p_out, path_points, water)
+    return CoolerResult(index=index, inlet=inlet, outlet=outlet, duty_W=duty, boundary_temperature_K=t_b,
+                        heat_exergy_W=heat_exergy(duty, t_b, dead.T0), entropy_generation_W_K=s_gen,
+                        exergy_destroyed_W=dead.T0 * s_gen, path=path,
+                        arrangement=spec.get("arrangement", "counter_flow"), exchanger=exchanger,
+                        stagnation_inlet_temperature_K=t_stag, water=water, stream_model=model)
+
+
+def _exchanger(model: PropertyModel, spec: dict, where: str, field: str, inlet: Point, inlet_velocity: float,
+               p_out: float, mass_flow: float, dead: DeadState, t_out: float | None,
+               ambient_relative_humidity: float) -> tuple[float, Exchanger | None, float, float]:
+    r"""The coolant side of a cooler: sized for the outlet asked for, or rated from its UA [1]_.
+
+    The air enters at its stagnation state, :math:`h_{01} = h_1 + \tfrac12 V_1^2`; the heat
+    crosses at the coolant's thermodynamic mean temperature :math:`\bar T_c = \Delta h_c/\Delta s_c`
+    (:mod:`thermo.exchanger`).
+
+    Parameters
+    ----------
+    model : PropertyModel
+        Stream model of the air.
+    spec : dict
+        Normalised ``cooler`` entry (with a ``coolant``).
+    where, field : str
+        Field paths of the cooler and of the key that sets its outlet, for messages.
+    inlet : Point
+        Air inlet state.
+    inlet_velocity : float
+        Air inlet velocity, [m/s].
+    p_out : float
+        Air outlet pressure, [Pa].
+    mass_flow : float
+        Air mass flow, [kg/s].
+    dead : DeadState
+        Site dead state (ambient of an air coolant).
+    t_out : float or None
+        Air outlet temperature asked for, [K]; None when rated from ``ua_W_K``.
+    ambient_relative_humidity : float
+        Site relative humidity, [-] (of an air coolant).
+
+    Returns
+    -------
+    tuple
+        Air outlet temperature [K], the exchanger (None when the air is not cooled),
+        stagnation inlet temperature [K] and the heat's boundary temperature [K].
+
+    Raises
+    ------
+    InputError
+        If the coolant is not colder than the air, or the outlet asked for is not above the
+        coolant inlet; see also :func:`thermo.exchanger.size_exchanger` and
+        :func:`thermo.exchanger.rate_exchanger`.
+
+    References
+    ----------
+    .. [1] Y. A. Çengel, M. A. Boles, *Thermodynamics: An Engineering Approach*, 8th ed.,
+       McGraw-Hill, 2015, §5-4 (steady-flow energy balance), §7-13 (entropy balance with
+       boundary heat transfer).
+    """
+    coolant = spec["coolant"]
+    t_ci = coolant_inlet_temperature(spec, dead.T0)
+    t_stag = inlet.T
+    exchanger = None
+    h_in0 = inlet.h + 0.5 * inlet_velocity ** 2 * getattr(model, "mass_per_dry_kg", 1.0)
+    if inlet_velocity > 0.0:
+        t_stag = model.at_hp(h_in0, inlet.P, f"{where} inlet (stagnation)", T_guess=inlet.T).T
+
+    hot_at = _hot_side(model, where, t_stag, h_in0, p_out, mass_flow)
+
+    fluid = make_coolant(coolant, (dead.T0, dead.P0, ambient_relative_humidity))
+    flow, rise = coolant.get("flow_kg_s"), coolant.get("temperature_rise_K")
+    if t_ci >= t_stag:
+        raise InputError(f"{where}.coolant_inlet_temperature_K", t_ci,
+                         f"expected below the cooler air inlet {t_stag:.2f} K: the coolant cannot "
+                         "cool air colder than itself")
+    if t_out is None:
+        t_out, exchanger = rate_exchanger(spec["arrangement"], spec["ua_W_K"], t_stag, hot_at, fluid,
+                                          t_ci, flow, rise, where)
+    else:
+        if t_out <= t_ci:
+            raise InputError(field, t_out if field.endswith("_temperature_K") else spec["approach_K"],
+                             f"expected an air outlet above the coolant inlet {t_ci:.2f} K (an approach "
+                             "above 0 K): a finite exchanger cannot cool the air to its coolant "
+                             "temperature")
+        if t_out < inlet.T:
+            exchanger = size_exchanger(spec["arrangement"], hot_at(t_out), fluid, t_ci, flow, rise, where)
+    t_b = exchanger.coolant.mean_temperature_K if exchanger is not None else t_ci
+    return t_out, exchanger, t_stag, t_b
+
+
+def _cooling_path(model: PropertyModel, where: str, inlet: Point, outlet: Point, t_out: float, p_out: float,
+                  path_points: int, water: Condensation | None) -> list[Point]:
+    """States along the cooling line for charts: the pressure falls linearly with temperature.
+
+    Parameters
+    ----------
+    model : PropertyModel
+        Stream model of the air.
+    where : str
+        Field path of the cooler, for messages.
+    inlet, outlet : Point
+        Air inlet and outlet states.
+    t_out : float
+        Air outlet temperature, [K].
+    p_out : float
+        Air outlet pressure, [Pa].
+    path_points : int
+        Segments of the line; 0 gives inlet and outlet only.
+    water : Condensation or None
+        Condensation and separator of moist air (None for dry air).
+
+    Returns
+    -------
+    list of Point
+        Dry air: ``path_points`` equal steps in temperature and pressure. Moist air: the line
+        of :func:`thermo.moist.condensation.cooling_line` (with its dew point), the outlet,
+        and the separator outlet where water is drained.
+
+    Notes
+    -----
+    For drawing only: the line between the two end states is not part of any balance, and
+    the linear fall of pressure with temperature is an assumption (common practice, no
+    source).
+    """
+    if water is not None:
         path = (cooling_line(model, inlet, t_out, p_out, where, path_points) if path_points else [inlet]) + [outlet]
         if water.drained_kg_s > 0.0:
             path.append(water.after)
-        return CoolerResult(index=index, inlet=inlet, outlet=outlet, duty_W=duty, boundary_temperature_K=t_b,
-                            heat_exergy_W=heat_exergy(duty, t_b, dead.T0), entropy_generation_W_K=s_gen,
-                            exergy_destroyed_W=dead.T0 * s_gen, path=path,
-                            arrangement=spec.get("arrangement", "counter_flow"), exchanger=exchanger,
-                            stagnation_inlet_temperature_K=t_stag, water=water, stream_model=model)
+        return path
     path = [inlet]
     for k in range(1, path_points):
         f = k / path_points
         path.append(model.at_tp(inlet.T + f * (t_out - inlet.T), inlet.P + f * (p_out - inlet.P),
                                 f"{where} cooling line"))
     path.append(outlet)
-    return CoolerResult(index=index, inlet=inlet, outlet=outlet, duty_W=duty, boundary_temperature_K=t_b,
-                        heat_exergy_W=heat_exergy(duty, t_b, dead.T0), entropy_generation_W_K=s_gen,
-                        exergy_destroyed_W=dead.T0 * s_gen, path=path, arrangement=spec.get("arrangement", "counter_flow"),
-                        exchanger=exchanger, stagnation_inlet_temperature_K=t_stag, stream_model=model)
+    return path

@@ -3,18 +3,18 @@ from __future__ import annotations
 
 __all__ = ["NORMAL_TEMPERATURE", "NORMAL_PRESSURE", "mass_flow_from", "VOLUME_KINDS"]
 
-from thermo.models.base import PropertyModel
+from thermo.models.base import Point, PropertyModel
 
 NORMAL_TEMPERATURE = 273.15  #: DIN 1343 normal temperature, [K]
 NORMAL_PRESSURE = 101_325.0  #: DIN 1343 normal pressure, [Pa]
 
 
-def _fad_density(model: PropertyModel, T0: float, P0: float) -> float:
-    p = model.at_tp(T0, P0, "site intake")
+def _fad_density(model: PropertyModel, T0: float, P0: float, ambient: Point | None = None) -> float:
+    p = model.at_tp(T0, P0, "site intake") if ambient is None else ambient
     return p.rho if p.w == 0.0 else p.rho / (1.0 + p.w)  # dry air per m³ of moist intake air
 
 
-def _normal_density(model: PropertyModel, T0: float, P0: float) -> float:
+def _normal_density(model: PropertyModel, T0: float, P0: float, ambient: Point | None = None) -> float:
     dry = getattr(model, "dry", model)  # DIN 1343 normal volume is of the dry gas
     return dry.at_tp(NORMAL_TEMPERATURE, NORMAL_PRESSURE, "normal state").rho
 
@@ -26,7 +26,8 @@ VOLUME_KINDS = {
 }
 
 
-def mass_flow_from(kind: str, value: float, model: PropertyModel, T0: float, P0: float) -> float:
+def mass_flow_from(kind: str, value: float, model: PropertyModel, T0: float, P0: float,
+                   ambient: Point | None = None) -> float:
     r"""Mass flow [kg/s] of a flow given as mass, free air delivery or normal volume [1]_ [2]_.
 
     .. math:: \dot m = \rho_\mathrm{ref} \dot V_\mathrm{ref}
@@ -41,6 +42,10 @@ def mass_flow_from(kind: str, value: float, model: PropertyModel, T0: float, P0:
         Property model of the gas.
     T0, P0 : float
         Site ambient temperature [K] and barometric pressure [Pa].
+    ambient : Point, optional
+        The intake air at T0, P0 from ``model`` when the caller has it already (the solve
+        context's :attr:`~thermo.solve_context.IntakeState.ambient`): free air delivery then
+        needs no property call of its own.
 
     Returns
     -------
@@ -69,4 +74,4 @@ def mass_flow_from(kind: str, value: float, model: PropertyModel, T0: float, P0:
     """
     if kind == "mass":
         return value
-    return value * VOLUME_KINDS[kind](model, T0, P0)
+    return value * VOLUME_KINDS[kind](model, T0, P0, ambient)

@@ -171,24 +171,7 @@ def polytropic_efficiency_between(model: PropertyModel, inlet: Point, outlet_ent
     if lnT_target <= 0.0:
         raise StagewrightError(f"discharge temperature {target.T:.6g} K is not above the inlet "
                                f"{inlet.T:.6g} K; no compression path reaches it")
-    t_mean = 0.5 * (inlet.T + target.T)
-    p_mean = math.sqrt(inlet.P * p_out)
-    ln_r = math.log(p_out / inlet.P)
-    slope_1 = model.polytropic_slope(t_mean, p_mean, 1.0) / t_mean  # a − b at the mean state
-    # Moist streams start from ln T_end ≈ a ln r / ηp − b ln r with a and b of the mean state and
-    # take secant steps in 1/ηp (three paths instead of four or five). Dry air keeps the plain
-    # ideal-gas start and secant in ηp, so that its figures stay bit-for-bit those of the
-    # regression baseline (tests/test_train.py); both meet the same tolerance.
-    refined = getattr(model, "mixture", None) is not None
-    offset = 0.0
-    if refined:
-        a_mean = model.polytropic_slope(t_mean, p_mean, 0.5) / t_mean - slope_1  # (2a − b) − (a − b)
-        offset = (a_mean - slope_1) * ln_r  # b ln r
-        if not (lnT_target + offset > 0.0 and math.isfinite(offset)):
-            offset = 0.0
-    eta = (slope_1 + offset / ln_r) * ln_r / (lnT_target + offset)
-    if not 0.02 < eta < 1.5:
-        eta = isentropic_efficiency
+    eta, offset, refined = _first_estimate(model, inlet, target.T, p_out, lnT_target, isentropic_efficiency)
     tol = 1e-10 * (target.T - inlet.T)
     prev = None  # (eta, residual in ln T, RK4 nodes) of the previous step, for the secant update
     best = None  # (|miss| [K], eta, path): a path with a kink (liquid evaporating) may stall
@@ -202,12 +185,7 @@ def polytropic_efficiency_between(model: PropertyModel, inlet: Point, outlet_ent
         return [inlet] + [model.at_tp(T, P, "polytropic path") for T, P in path]
     for _ in range(30):
         try:
-            if two_phase_start:
-                path = polytropic_path(model, inlet, p_out, eta)
-                T_end = path[-1].T
-            else:
-                path = _path_nodes(model, inlet, p_out, eta)
-                T_end = path[-1][0]
+            path, T_end = _trial(model, inlet, p_out, eta, two_phase_start)
         except PropertyRangeError:
             # a trial efficiency too low for a discharge near the top of the property range: its
             # path leaves the range before the discharge pressure; the answer is more efficient:
@@ -247,6 +225,98 @@ def polytropic_efficiency_between(model: PropertyModel, inlet: Point, outlet_ent
     raise StagewrightError(
         f"no polytropic efficiency reproduces the discharge enthalpy {outlet_enthalpy:.6g} J/kg "
         f"at {p_out:.6g} Pa")
+
+
+def _first_estimate(model: PropertyModel, inlet: Point, T_target: float, p_out: float, lnT_target: float,
+                    isentropic_efficiency: float) -> tuple[float, float, bool]:
+    r"""Start of the search of :func:`polytropic_efficiency_between` [1]_.
+
+    .. math:: \eta_p = \frac{a \ln r}{\ln(T_2/T_1) + b \ln r}
+
+    with :math:`a - b` and :math:`2a - b` from the path slope at the mean state (ηp = 1 and
+    0.5); dry air keeps b = 0 (the ideal-gas estimate).
+
+    Parameters
+    ----------
+    model : PropertyModel
+        Property model of the gas.
+    inlet : Point
+        Start of compression.
+    T_target : float
+        Temperature at the end of the adiabatic compression, [K].
+    p_out : float
+        Discharge pressure, [Pa].
+    lnT_target : float
+        :math:`\ln(T_2/T_1)`, [-].
+    isentropic_efficiency : float
+        Isentropic efficiency of the same process, [-]: the start when the estimate falls
+        outside (0.02, 1.5).
+
+    Returns
+    -------
+    tuple of (float, float, bool)
+        Start value of ηp [-], the offset :math:`b \ln r` [-] (0 for dry air) and whether
+        the moist scheme (secant steps in :math:`1/\eta_p`) is used.
+
+    References
+    ----------
+    .. [1] S. L. Dixon, C. A. Hall, *Fluid Mechanics and Thermodynamics of
+       Turbomachinery*, 7th ed., Butterworth-Heinemann, 2014, §2.9 (small-stage efficiency).
+    """
+    t_mean = 0.5 * (inlet.T + T_target)
+    p_mean = math.sqrt(inlet.P * p_out)
+    ln_r = math.log(p_out / inlet.P)
+    slope_1 = model.polytropic_slope(t_mean, p_mean, 1.0) / t_mean  # a − b at the mean state
+    # Moist streams start from ln T_end ≈ a ln r / ηp − b ln r with a and b of the mean state and
+    # take secant steps in 1/ηp (three paths instead of four or five). Dry air keeps the plain
+    # ideal-gas start and secant in ηp, so that its figures stay bit-for-bit those of the
+    # regression baseline (tests/test_train.py); both meet the same tolerance.
+    refined = getattr(model, "mixture", None) is not None
+    offset = 0.0
+    if refined:
+        a_mean = model.polytropic_slope(t_mean, p_mean, 0.5) / t_mean - slope_1  # (2a − b) − (a − b)
+        offset = (a_mean - slope_1) * ln_r  # b ln r
+        if not (lnT_target + offset > 0.0 and math.isfinite(offset)):
+            offset = 0.0
+    eta = (slope_1 + offset / ln_r) * ln_r / (lnT_target + offset)
+    if not 0.02 < eta < 1.5:
+        eta = isentropic_efficiency
+    return eta, offset, refined
+
+
+def _trial(model: PropertyModel, inlet: Point, p_out: float, eta: float, two_phase_start: bool) -> tuple[list, float]:
+    """A trial path of the efficiency search and its end temperature.
+
+    Parameters
+    ----------
+    model : PropertyModel
+        Property model of the gas.
+    inlet : Point
+        Start of compression.
+    p_out : float
+        Discharge pressure, [Pa].
+    eta : float
+        Trial polytropic efficiency, [-].
+    two_phase_start : bool
+        True when liquid enters the stage (moist air after a separator below 1).
+
+    Returns
+    -------
+    tuple of (list, float)
+        The path's states after a two-phase start (:func:`polytropic_path`), else its RK4
+        nodes (T [K], p [Pa]) (:func:`_path_nodes`; states are made for the answer only),
+        and the end temperature, [K].
+
+    Raises
+    ------
+    PropertyRangeError
+        If the path leaves the property range.
+    """
+    if two_phase_start:
+        path = polytropic_path(model, inlet, p_out, eta)
+        return path, path[-1].T
+    path = _path_nodes(model, inlet, p_out, eta)
+    return path, path[-1][0]
 
 
 def _between(nodes_a, nodes_b, fraction: float) -> list[tuple[float, float]]:

@@ -8,6 +8,7 @@ import math
 from dataclasses import dataclass, field
 
 from thermo.cooler import CoolerResult
+from thermo.errors import message_detail
 from thermo.exergy import DeadState
 from thermo.moist.stream import humidity_of
 from thermo.models.base import Point
@@ -16,10 +17,22 @@ from thermo.stage import StageResult
 
 @dataclass(frozen=True)
 class Warning_:
-    """Something the user should look at; ``field`` is the input path to select."""
+    """Something the user should look at; ``field`` is the input path to select.
+
+    ``message`` is SI (command line, JSON); ``detail`` the same sentence as a template with
+    named values (:func:`thermo.errors.message_detail`) for display units.
+    """
 
     field: str
     message: str
+    detail: dict | None = field(default=None, compare=False, hash=False)
+
+    def to_dict(self) -> dict:
+        """Plain data: field, SI message, template and values (a list, each with its name)."""
+        d = self.detail or message_detail(self.message)
+        return {"field": self.field, "message": self.message, "template": d["template"],
+                "values": [{"name": k, "value": v["value"], "quantity": v["quantity"]}
+                           for k, v in d["values"].items()]}
 
 
 @dataclass
@@ -225,7 +238,7 @@ class TrainResult:
             "cooling_water_m3_s": cooling_water_m3_s(self.coolers),
             "recoverable_heat_W": None if self.recovery is None else self.recovery.recoverable_heat_W,
             "heat_recovery": _recovery_dict(self.recovery),
-            "warnings": [{"field": w.field, "message": w.message} for w in self.warnings],
+            "warnings": [w.to_dict() for w in self.warnings],
         }
         d.update(self._water_dict())
         return _finite(d)

@@ -6,12 +6,13 @@ __all__ = ["solve", "solve_normalised", "model_for", "release_thread_models"]
 import atexit
 import threading
 
-from thermo.project.validation import normalise, site_pressure
-from thermo.errors import InputError, StagewrightError
+from thermo.project.validation import normalise
+from thermo.errors import InputError, StagewrightError, message_detail, quantity
 from thermo.flow import mass_flow_from
 from thermo.models import make_model
 from thermo.results import TrainResult
-from thermo.train import intake_model, solve_train
+from thermo.solve_context import SolveContext, release_thread_caches, solve_context
+from thermo.train import solve_train
 
 _local = threading.local()
 
@@ -20,12 +21,14 @@ _local = threading.local()
 def _release_models() -> None:
     """Drop cached CoolProp states before interpreter teardown (avoids nanobind leak reports)."""
     getattr(_local, "models", {}).clear()
+    release_thread_caches()
 
 
 def release_thread_models() -> None:
-    """Drop the calling thread's cached property models (call it in a worker thread before
-    the thread ends: states left in a finished thread are only collected at interpreter
-    teardown, too late for CoolProp)."""
+    """Drop the calling thread's cached property models, and the mixtures and intake states
+    kept for them (:mod:`thermo.solve_context`). Call it in a worker thread before the thread
+    ends: states left in a finished thread are only collected at interpreter teardown, too
+    late for CoolProp."""
     _release_models()
 
 
@@ -94,41 +97,84 @@ def solve_normalised(norm: dict, detail: bool = True, fast: bool = False) -> Tra
     enhancement factor is interpolated (:mod:`thermo.moist.enhancement_table`); reported figures
     agree with the exact path to better than 1e-4 relative (tests/test_fast_path.py), and
     the other models are unaffected.
+
+    The site is resolved here, once per solve (:func:`thermo.project.validation.resolve_site`),
+    and the solve's context built from it (:func:`thermo.solve_context.solve_context`: the
+    intake's stream model, humidity ratio and states); every train solve of the shaft-power
+    iteration reads them from that one context.
     """
-    model = model_for(norm["fluid"], fast)
     flow = norm["flow"]
-    T0, P0 = norm["site"]["ambient_temperature_K"], site_pressure(norm)
+    fixed = _casing_power(norm, flow["value"]) if flow["kind"] == "shaft_power" else 0.0
+    ctx = solve_context(norm, model_for(norm["fluid"], fast))
     if flow["kind"] != "shaft_power":
-        intake = intake_model(norm, model)[0]  # moist intake: FAD refers to the moist air
-        return solve_train(norm, model, mass_flow_from(flow["kind"], flow["value"], intake, T0, P0), detail)
-    return _solve_for_power(norm, model, flow["value"], detail)
+        # moist intake: FAD refers to the moist air, so the intake's stream model converts it
+        m = mass_flow_from(flow["kind"], flow["value"], ctx.intake.model, ctx.site.ambient_temperature_K,
+                           ctx.site.pressure_Pa, ambient=ctx.intake.ambient)
+        return solve_train(ctx, m, detail)
+    return _solve_for_power(ctx, flow["value"], fixed, detail)
 
 
-def _solve_for_power(norm: dict, model, target_W: float, detail: bool = True) -> TrainResult:
-    """Find the mass flow whose shaft power equals ``target_W`` (secant, bracketed)."""
+def _casing_power(norm: dict, target_W: float) -> float:
+    r"""Shaft power the casing heat losses take alone, :math:`\sum_i \dot Q_i / \eta_{m,i}` [W].
+
+    Parameters
+    ----------
+    norm : dict
+        Normalised project document (its stages' ``heat_loss_W`` [W] and
+        ``mechanical_efficiency`` [-]).
+    target_W : float
+        Shaft power asked for, [W].
+
+    Returns
+    -------
+    float
+        The casing losses' shaft power, [W].
+
+    Raises
+    ------
+    InputError
+        Naming ``flow.value`` when the power asked for does not exceed it (no air would move).
+
+    Notes
+    -----
+    :math:`\dot W_\mathrm{shaft} = (\dot m\,\Delta h_0 + \dot Q)/\eta_m` per stage
+    (:func:`thermo.stage.solve_stage`), so the shaft power tends to this sum as the flow
+    tends to zero.
+    """
     fixed = sum(s["heat_loss_W"] / s["mechanical_efficiency"] for s in norm["stages"])
     if target_W <= fixed:
         raise InputError("flow.value", target_W,
                          f"shaft power must exceed {fixed:.6g} W, the casing heat losses alone; "
-                         "this power is too small to move any air")
+                         "this power is too small to move any air",
+                         message_detail("Shaft power {value} is too small to move any air: it must exceed "
+                                        "{fixed}, the casing heat losses alone",
+                                        {"value": quantity(target_W, "power"), "fixed": quantity(fixed, "power")}))
+    return fixed
+
+
+def _solve_for_power(ctx: SolveContext, target_W: float, fixed: float, detail: bool = True) -> TrainResult:
+    """Find the mass flow whose shaft power equals ``target_W`` (secant, bracketed); ``fixed`` is
+    the shaft power of the casing heat losses, [W] (:func:`_casing_power`)."""
     # The trial solves skip the reporting-only work (their shaft power is the same either way);
     # the converged flow is then solved once with ``detail``. Without casing heat loss the
     # power per kilogram does not depend on the flow, so the first estimate is usually the
     # answer: it is solved with ``detail`` at once.
     m0 = 1.0
-    r0 = solve_train(norm, model, m0, False)
+    r0 = solve_train(ctx, m0, False)
     per_kg = (r0.shaft_power_W - fixed) / m0
     m1 = (target_W - fixed) / per_kg
     m_prev, f_prev = m0, r0.shaft_power_W - target_W
     trial_detail = detail and fixed == 0.0
     for _ in range(40):
-        r1 = solve_train(norm, model, m1, trial_detail)
+        r1 = solve_train(ctx, m1, trial_detail)
         f1 = r1.shaft_power_W - target_W
         if abs(f1) <= 1e-12 * target_W:
-            return r1 if trial_detail == detail else solve_train(norm, model, m1, detail)
+            return r1 if trial_detail == detail else solve_train(ctx, m1, detail)
         trial_detail = False
         if f1 == f_prev:
             break
         m_next = m1 - f1 * (m1 - m_prev) / (f1 - f_prev)
         m_prev, f_prev, m1 = m1, f1, max(m_next, 0.5 * m1)
-    raise StagewrightError(f"flow.value: no mass flow gives a shaft power of {target_W:.6g} W", "flow.value")
+    raise StagewrightError(f"flow.value: no mass flow gives a shaft power of {target_W:.6g} W", "flow.value",
+                           message_detail("No mass flow gives a shaft power of {value}",
+                                          {"value": quantity(target_W, "power")}))

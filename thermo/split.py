@@ -3,7 +3,7 @@ from __future__ import annotations
 
 __all__ = ["stage_pressure_ratios", "delivered_pressure"]
 
-from thermo.errors import InputError
+from thermo.errors import InputError, message_detail, quantity
 from thermo.roots import bracketed_root
 
 
@@ -82,7 +82,9 @@ def stage_pressure_ratios(p_in: float, p_delivery: float, given: list, cooler_dr
                          "lower them or give every ratio")
     if miss(40.0) < 0.0:
         raise InputError("discharge_pressure_Pa", p_delivery,
-                         "cannot be reached with stage pressure ratios up to 40; add stages")
+                         "cannot be reached with stage pressure ratios up to 40; add stages",
+                         message_detail("{label} {value} cannot be reached with stage pressure ratios up to 40: "
+                                        "add stages", {"value": quantity(p_delivery, "pressure")}))
     r = _newton_ratio(p_in, p_delivery, given, cooler_drops)
     if r is None:
         r = bracketed_root(miss, 1.0, 40.0, xtol=1e-15)

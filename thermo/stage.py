@@ -6,7 +6,8 @@ __all__ = ["StageResult", "solve_stage"]
 import math
 from dataclasses import dataclass
 
-from thermo.errors import InputError, PropertyRangeError, SecondLawViolation
+from thermo.errors import (InputError, PropertyRangeError, SecondLawViolation, StagewrightError, message_detail,
+                           quantity)
 from thermo.exergy import DeadState, heat_exergy
 from thermo.models.base import Point, PropertyModel
 from thermo.polytropic import polytropic_efficiency_between, polytropic_path
@@ -114,7 +115,8 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
     :math:`\eta_s = (h_{2s} - h_{01})/(h_{2i} - h_{01})`; the polytropic efficiency is that
     of the constant-efficiency path from 01 to 2i (see :mod:`thermo.polytropic`). The
     casing loss and the exit kinetic energy are then taken off to give the static
-    discharge state. Efficiencies are therefore total-to-static: the exit kinetic energy
+    discharge state. The returned ``path`` runs from the inlet to that actual discharge
+    (:func:`_actual_path`), so that a chart never shows the stage hotter than it is. Efficiencies are therefore total-to-static: the exit kinetic energy
     counts as a loss, and an efficiency of 1 with a non-zero exit velocity is refused as a
     second-law violation. The polytropic exponent is :math:`n = \ln(p_2/p_1)/\ln(\rho_{2i}/\rho_{01})`.
 
@@ -141,24 +143,7 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
         raise InputError(f"{where}.pressure_ratio", r,
                          "expected a pressure ratio above 1 + 1e-9; this stage raises the pressure "
                          "too little to compute")
-    kind = eff["kind"]
-    if kind == "isentropic":
-        dh = dh_s / eff["value"]
-        eta_p, path = _adiabatic_path(model, start, start.h + dh, p_out, eff["value"], detail, where,
-                                      start.T + (iso.T - start.T) / eff["value"])
-    elif kind == "polytropic":
-        path = polytropic_path(model, start, p_out, eff["value"])
-        eta_p, dh = eff["value"], path[-1].h - start.h
-    else:  # measured discharge temperature
-        measured = model.at_tp(eff["value_K"], p_out, f"{where}.efficiency.value_K")
-        dh = measured.h + 0.5 * v_out ** 2 * k + q - start.h
-        if dh <= dh_s:
-            raise SecondLawViolation(
-                f"{where}.efficiency.value_K: a discharge temperature of {eff['value_K']:.2f} K "
-                f"would need an isentropic efficiency above 1 (minimum adiabatic discharge "
-                f"{iso.T:.2f} K with the given casing heat loss): a second-law violation — check "
-                f"the measured temperatures and pressures", f"{where}.efficiency.value_K")
-        eta_p, path = _adiabatic_path(model, start, start.h + dh, p_out, dh_s / dh, detail, where, eff["value_K"])
+    dh, eta_p, path = _adiabatic_work(model, spec, where, start, iso, p_out, q, k, detail)
     if not math.isfinite(dh):  # e.g. an isentropic efficiency of 1e-320
         raise PropertyRangeError(f"{where}.efficiency.value: {eff.get('value')!r} — the compression work "
                                  "it implies is unbounded; the discharge state leaves the property range",
@@ -173,24 +158,19 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
     w_shaft = w_gas / spec["mechanical_efficiency"]
     w_mech = w_shaft - w_gas
     t_b = spec["heat_loss_boundary_temperature_K"] or dead.T0
-    if q_loss > 0.0 and t_b > max(p.T for p in path):
-        raise SecondLawViolation(
-            f"{where}.heat_loss_boundary_temperature_K: casing heat cannot leave at {t_b:.2f} K "
-            f"when the gas is never hotter than {max(p.T for p in path):.2f} K "
-            "(a second-law violation)", f"{where}.heat_loss_boundary_temperature_K")
-    if q_loss > 0.0 and outlet.T < t_b:
-        raise SecondLawViolation(
-            f"{where}.heat_loss_W: a casing heat loss of {q_loss:.6g} W would cool the gas to "
-            f"{outlet.T:.2f} K, below the {t_b:.2f} K boundary it leaves at (a second-law "
-            "violation); lower the heat loss or raise the flow", f"{where}.heat_loss_W")
+    _check_heat_loss(where, q_loss, t_b, path, outlet)
+    end = path[-1]  # end of the adiabatic internal compression (the efficiencies' reference)
+    if q_loss != 0.0 or v_out != 0.0:
+        path = _actual_path(model, start, outlet, p_out, detail)
     s_gen = mass_flow * (outlet.s - inlet.s) + q_loss / t_b + w_mech / dead.T0
     if s_gen < -1e-9 * max(1.0, w_shaft / dead.T0):
         hint = (" — the efficiency is total-to-static, so it must leave room for the exit kinetic "
                 "energy; lower the efficiency or the exit velocity") if v_out > 0.0 else ""
         raise SecondLawViolation(
             f"{where}: the given data need negative entropy generation ({s_gen:.4g} W/K): "
-            f"a second-law violation{hint}", where)
-    end = path[-1]
+            f"a second-law violation{hint}", where,
+            message_detail("Stage {n}: the given data need negative entropy generation ({s_gen}): a second-law "
+                           "violation" + hint, {"n": index + 1, "s_gen": quantity(s_gen, "entropy_rate")}))
     n = math.log(p_out / start.P) / math.log(end.rho / start.rho)
     return StageResult(
         index=index, inlet=inlet, inlet_velocity_m_s=inlet_velocity, outlet=outlet,
@@ -199,3 +179,170 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
         gas_power_W=w_gas, shaft_power_W=w_shaft, mechanical_loss_W=w_mech, heat_loss_W=q_loss,
         heat_loss_boundary_temperature_K=t_b, heat_loss_exergy_W=heat_exergy(q_loss, t_b, dead.T0),
         entropy_generation_W_K=s_gen, exergy_destroyed_W=dead.T0 * s_gen, path=path)
+
+
+def _adiabatic_work(model: PropertyModel, spec: dict, where: str, start: Point, iso: Point, p_out: float,
+                    q: float, k: float, detail: bool) -> tuple[float, float, list[Point]]:
+    r"""Specific work of the adiabatic internal compression, its polytropic efficiency and path [1]_.
+
+    .. math:: \Delta h = \frac{h_{2s} - h_{01}}{\eta_s} \quad\text{or}\quad
+       \Delta h = h(T_2, p_2) + \tfrac12 V_2^2 + q - h_{01}
+
+    (isentropic efficiency, or measured discharge temperature with casing loss q per kg),
+    or the end of the constant-efficiency path for a polytropic efficiency.
+
+    Parameters
+    ----------
+    model : PropertyModel
+        Property model of the gas.
+    spec : dict
+        Normalised stage entry (its ``efficiency`` and ``exit_velocity_m_s`` [m/s]).
+    where : str
+        Field path of the stage, for messages.
+    start : Point
+        Inlet stagnation state.
+    iso : Point
+        Isentropic discharge state.
+    p_out : float
+        Discharge pressure, [Pa].
+    q : float
+        Casing heat loss per kilogram, [J/kg].
+    k : float
+        Mass per kilogram of dry air carrying the kinetic energy, [-] (1 for dry air).
+    detail : bool
+        As :func:`solve_stage`.
+
+    Returns
+    -------
+    tuple
+        Δh [J/kg], polytropic efficiency [-] (NaN without ``detail`` unless given) and the path.
+
+    Raises
+    ------
+    SecondLawViolation
+        If a measured discharge temperature needs an isentropic efficiency above 1.
+
+    References
+    ----------
+    .. [1] ASME PTC 10-1997, *Performance Test Code on Compressors and Exhausters*, §5.
+    """
+    eff = spec["efficiency"]
+    kind = eff["kind"]
+    dh_s = iso.h - start.h
+    if kind == "isentropic":
+        dh = dh_s / eff["value"]
+        eta_p, path = _adiabatic_path(model, start, start.h + dh, p_out, eff["value"], detail, where,
+                                      start.T + (iso.T - start.T) / eff["value"])
+    elif kind == "polytropic":
+        path = polytropic_path(model, start, p_out, eff["value"])
+        eta_p, dh = eff["value"], path[-1].h - start.h
+    else:  # measured discharge temperature
+        measured = model.at_tp(eff["value_K"], p_out, f"{where}.efficiency.value_K")
+        dh = measured.h + 0.5 * spec["exit_velocity_m_s"] ** 2 * k + q - start.h
+        if dh <= dh_s:
+            raise SecondLawViolation(
+                f"{where}.efficiency.value_K: a discharge temperature of {eff['value_K']:.2f} K "
+                f"would need an isentropic efficiency above 1 (minimum adiabatic discharge "
+                f"{iso.T:.2f} K with the given casing heat loss): a second-law violation — check "
+                f"the measured temperatures and pressures", f"{where}.efficiency.value_K",
+                message_detail("{label} {value} would need an isentropic efficiency above 1 (the coolest "
+                               "adiabatic discharge is {t_min} with the given casing heat loss): a second-law "
+                               "violation — check the measured temperatures and pressures",
+                               {"value": quantity(eff["value_K"], "temperature"),
+                                "t_min": quantity(iso.T, "temperature")}))
+        eta_p, path = _adiabatic_path(model, start, start.h + dh, p_out, dh_s / dh, detail, where, eff["value_K"])
+    return dh, eta_p, path
+
+
+def _actual_path(model: PropertyModel, start: Point, outlet: Point, p_out: float, detail: bool) -> list[Point]:
+    r"""The path of a stage that loses heat through its casing (or leaves with exit kinetic
+    energy): from the inlet to the actual discharge state, never through the hotter end of
+    the adiabatic reference compression [1]_.
+
+    The real process is non-adiabatic; it is drawn as the path of constant polytropic
+    efficiency between the actual end states (:math:`dh = v\,dp/\eta_p` with the
+    :math:`\eta_p` found from the end points by
+    :func:`thermo.polytropic.polytropic_efficiency_between`), the usual end-point
+    description of a compression whose heat transfer is not resolved along the way.
+
+    Parameters
+    ----------
+    model : PropertyModel
+        Property model of the gas.
+    start : Point
+        Inlet stagnation state.
+    outlet : Point
+        Static discharge state.
+    p_out : float
+        Discharge pressure, [Pa].
+    detail : bool
+        False keeps only the two end points (a trial solve draws nothing).
+
+    Returns
+    -------
+    list of Point
+        States from ``start`` to ``outlet``; the two end points alone where no
+        compression path of positive efficiency joins them (the discharge is not hotter than
+        the inlet).
+
+    References
+    ----------
+    .. [1] ASME PTC 10-1997, *Performance Test Code on Compressors and Exhausters*, §5
+       (polytropic process between the measured end states).
+    """
+    if not detail or outlet.T <= start.T:
+        return [start, outlet]
+    iso = model.at_sp(start.s, p_out, "stage path", T_guess=outlet.T)
+    guess = (iso.h - start.h) / (outlet.h - start.h)
+    try:
+        _, path = polytropic_efficiency_between(model, start, outlet.h, p_out, guess)
+    except StagewrightError:
+        return [start, outlet]
+    return path[:-1] + [outlet]
+
+
+def _check_heat_loss(where: str, q_loss: float, t_b: float, path: list[Point], outlet: Point) -> None:
+    """Refuse a casing heat loss that would leave the gas below the boundary it leaves at [1]_:
+    heat flows from the hotter body only (Clausius statement of the second law).
+
+    Parameters
+    ----------
+    where : str
+        Field path of the stage, for messages.
+    q_loss : float
+        Casing heat loss, [W].
+    t_b : float
+        Boundary temperature at which it leaves, [K].
+    path : list of Point
+        Compression path.
+    outlet : Point
+        Static discharge state.
+
+    Raises
+    ------
+    SecondLawViolation
+        If the gas is never hotter than the boundary, or the loss cools it below.
+
+    References
+    ----------
+    .. [1] Y. A. Çengel, M. A. Boles, *Thermodynamics: An Engineering Approach*, 8th ed.,
+       McGraw-Hill, 2015, ch. 6 (the Clausius statement of the second law).
+    """
+    if q_loss > 0.0 and t_b > max(p.T for p in path):
+        raise SecondLawViolation(
+            f"{where}.heat_loss_boundary_temperature_K: casing heat cannot leave at {t_b:.2f} K "
+            f"when the gas is never hotter than {max(p.T for p in path):.2f} K "
+            "(a second-law violation)", f"{where}.heat_loss_boundary_temperature_K",
+            message_detail("{label} {t_b}: casing heat cannot leave at this temperature when the gas is never "
+                           "hotter than {t_max} (a second-law violation)",
+                           {"t_b": quantity(t_b, "temperature"), "t_max": quantity(max(p.T for p in path),
+                                                                                   "temperature")}))
+    if q_loss > 0.0 and outlet.T < t_b:
+        raise SecondLawViolation(
+            f"{where}.heat_loss_W: a casing heat loss of {q_loss:.6g} W would cool the gas to "
+            f"{outlet.T:.2f} K, below the {t_b:.2f} K boundary it leaves at (a second-law "
+            "violation); lower the heat loss or raise the flow", f"{where}.heat_loss_W",
+            message_detail("{label} {q} would cool the gas to {t_out}, below the {t_b} boundary it leaves at "
+                           "(a second-law violation): lower the heat loss or raise the flow",
+                           {"q": quantity(q_loss, "heat_flow"), "t_out": quantity(outlet.T, "temperature"),
+                            "t_b": quantity(t_b, "temperature")}))

@@ -18,6 +18,7 @@ from dataclasses import dataclass, field
 
 from thermo.project.paths import set_path
 from thermo.errors import InputError, StagewrightError
+from thermo.project.delivery import DELIVERY_KEYS, state_delivery
 from thermo.project.validation import normalise
 from thermo.solve import solve_normalised
 
@@ -62,6 +63,15 @@ def _summary(result) -> tuple:
     return tuple(out)
 
 
+def _set_axis_value(doc: dict, path: str, value: float) -> None:
+    """Set one axis value; an axis on one delivery-pressure key replaces a statement in the other
+    (absolute or gauge, :mod:`thermo.project.delivery`), so that the point states exactly one."""
+    if path in DELIVERY_KEYS:
+        state_delivery(doc, path, value)
+    else:
+        set_path(doc, path, value)
+
+
 def axis_problems(doc: dict, axes: dict) -> dict:
     """Validate each axis value once (not each grid point): (path, value) -> message.
 
@@ -72,7 +82,7 @@ def axis_problems(doc: dict, axes: dict) -> dict:
         for v in axes[p]:
             trial = copy.deepcopy(doc)
             try:
-                set_path(trial, p, float(v))
+                _set_axis_value(trial, p, float(v))
             except (TypeError, KeyError, IndexError) as exc:
                 bad[(p, float(v))] = str(InputError(f"axes.{p}", p, f"expected a field path of the project file ({exc})"))
                 continue
@@ -92,7 +102,7 @@ def _solve_chunk(base_norm: dict, paths: list, chunk: list, bad: dict) -> list:
             results.append(("error", problem))
             continue
         for p, v in zip(paths, values):
-            set_path(work, p, v)
+            _set_axis_value(work, p, v)
         try:
             results.append(("ok", _summary(solve_normalised(work, detail=False, fast=True))))
         except StagewrightError as exc:
@@ -133,6 +143,11 @@ def sweep(doc: dict, axes: dict, *, processes: int | None = None, progress=None,
 
     Notes
     -----
+    An axis on one delivery-pressure key (``discharge_pressure_Pa``, absolute, or
+    ``discharge_gauge_pressure_Pa``, gauge) of a project that states the other replaces that
+    statement at every point; both keys on axes are refused. The delivery pressure is resolved
+    per point, so a gauge statement follows a site axis (elevation, barometric pressure).
+
     The document is validated once, and each axis value once; grid points are then
     solved from the normalised document without re-validation and without the
     reporting-only work (``detail=False``: totals and states are the same), on the fast
@@ -148,6 +163,10 @@ def sweep(doc: dict, axes: dict, *, processes: int | None = None, progress=None,
         When cancelled.
     """
     paths = list(axes)
+    if all(k in paths for k in DELIVERY_KEYS):
+        raise InputError(f"axes.{DELIVERY_KEYS[1]}", DELIVERY_KEYS[1],
+                         f"sweep the delivery pressure as {DELIVERY_KEYS[0]} (absolute) or as "
+                         f"{DELIVERY_KEYS[1]} (gauge), not both")
     for p in paths:
         if len(axes[p]) == 0:
             raise InputError(f"axes.{p}", [], "expected at least one value")

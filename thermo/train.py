@@ -1,92 +1,28 @@
 """A whole train at a known mass flow: intake filter, stages, coolers, totals [1]_."""
 from __future__ import annotations
 
-__all__ = ["solve_train", "intake_model", "mixture_for"]
+__all__ = ["solve_train"]
 
 import math
+from dataclasses import dataclass, field
 
 from thermo.cooler import solve_cooler
-from thermo.project.validation import site_pressure
-from thermo.exergy import DeadState, flow_exergy, water_exergy
+from thermo.errors import message_detail, quantity
+from thermo.exergy import flow_exergy, water_exergy
 from thermo.flow import NORMAL_PRESSURE, NORMAL_TEMPERATURE
-from thermo.moist.stream import MoistAir, check_humid_range, intake_humidity_ratio, is_moist
+from thermo.moist.stream import MoistAir, check_humid_range
 from thermo.moist.iso8573 import REFERENCE_PRESSURE, REFERENCE_TEMPERATURE, humidity_class
-from thermo.models.base import PropertyModel
-from thermo.moist.mixture import MoistMixture, make_mixture
+from thermo.models.base import Point, PropertyModel
 from thermo.heat_recovery import heat_recovery
+from thermo.project.delivery import stated_delivery
+from thermo.solve_context import SolveContext
 from thermo.results import InletResult, TrainResult, Warning_, WaterResult
 from thermo.split import stage_pressure_ratios
 from thermo.stage import solve_stage
 from thermo import coolprop_adapter
 
 
-def mixture_for(model: PropertyModel) -> MoistMixture:
-    """The moist-air formulation of a dry-air model (built once per model object)."""
-    mix = getattr(model, "_moist_mixture", None)
-    if mix is None:
-        mix = model._moist_mixture = make_mixture(model)
-    return mix
-
-
-def intake_model(norm: dict, model: PropertyModel):
-    """(stream model at the intake, mixture or None, intake humidity ratio W0 [kg/kg]).
-
-    A dry intake (no humidity given, or zero) returns the dry-air model itself, so the
-    dry calculation is exactly the one without moist air.
-    """
-    site = norm["site"]
-    if not is_moist(site):
-        return model, None, 0.0
-    key = (site["ambient_temperature_K"], site_pressure(norm), site.get("relative_humidity"),
-           site.get("dew_point_K"), site.get("humidity_ratio"))
-    memo = getattr(model, "_intake_memo", None)  # the last site: a sweep's fast axis often keeps it
-    if memo is not None and memo[0] == key:
-        return memo[1]
-    mixture = mixture_for(model)
-    W0 = intake_humidity_ratio(site, mixture, site["ambient_temperature_K"], site_pressure(norm))
-    out = (model, None, 0.0) if W0 <= 0.0 else (MoistAir(mixture, W0), mixture, W0)
-    model._intake_memo = (key, out)
-    return out
-
-
-def _intake_states(norm: dict, dry_model: PropertyModel, mass_flow: float):
-    """(stream model, mixture, W0, ambient state, dead state, filter outlet, filter balance, site RH).
-
-    The same site and intake filter give the same states: the last answer is kept on the model
-    (sweeps and studies solve many trains at one site)."""
-    T0 = norm["site"]["ambient_temperature_K"]
-    P0 = site_pressure(norm)
-    model, mixture, W0 = intake_model(norm, dry_model)
-    # the stream model itself (not its id, which a later object could reuse) identifies the water
-    key = (model, T0, P0, norm["inlet_pressure_drop_Pa"], norm["site"]["relative_humidity"])
-    memo = getattr(dry_model, "_intake_states_memo", None)
-    if memo is not None and memo[0] == key:
-        ambient, dead, after_filter, rh0 = memo[1]
-    else:
-        ambient = model.at_tp(T0, P0, "site intake")
-        if mixture is None:
-            dead = DeadState(T0, P0, ambient.h, ambient.s)
-        else:
-            dead = DeadState(T0, P0, ambient.h, ambient.s, W0, *_water_reference(mixture, T0, P0, W0))
-        p1 = P0 - norm["inlet_pressure_drop_Pa"]
-        after_filter = model.at_hp(ambient.h, p1, "intake filter outlet", T_guess=T0)
-        rh0 = norm["site"]["relative_humidity"] if mixture is None else mixture.relative_humidity(T0, P0, W0)
-        dry_model._intake_states_memo = (key, (ambient, dead, after_filter, rh0))
-    filt_sgen = mass_flow * (after_filter.s - ambient.s)
-    return model, mixture, W0, ambient, dead, after_filter, InletResult(ambient, after_filter, filt_sgen,
-                                                                      T0 * filt_sgen), rh0
-
-
-def _water_reference(mixture: MoistMixture, T0: float, P0: float, W0: float):
-    """Partial specific enthalpy and entropy of water in the ambient air, [J/kg], [J/(kg K)]."""
-    x0 = W0 / (mixture.epsilon + W0)
-    d = 1e-3
-    mu = mixture.mu_water(T0, P0, x0)
-    s_w = -(mixture.mu_water(T0 + d, P0, x0) - mixture.mu_water(T0 - d, P0, x0)) / (2.0 * d)
-    return mu + T0 * s_w, s_w
-
-
-def solve_train(norm: dict, model: PropertyModel, mass_flow: float, detail: bool = True) -> TrainResult:
+def solve_train(ctx: SolveContext, mass_flow: float, detail: bool = True) -> TrainResult:
     r"""Solve a normalised project at a given mass flow [1]_.
 
     Totals follow from the component balances; two closure figures check them:
@@ -100,10 +36,9 @@ def solve_train(norm: dict, model: PropertyModel, mass_flow: float, detail: bool
 
     Parameters
     ----------
-    norm : dict
-        Normalised project document (:func:`thermo.project.validation.normalise`).
-    model : PropertyModel
-        Property model named by the project.
+    ctx : SolveContext
+        The solve's context (:func:`thermo.solve_context.solve_context`): normalised project,
+        resolved site, property model and intake state.
     mass_flow : float
         Mass flow of air, [kg/s].
     detail : bool
@@ -114,8 +49,19 @@ def solve_train(norm: dict, model: PropertyModel, mass_flow: float, detail: bool
     -------
     TrainResult
 
+    Raises
+    ------
+    StagewrightError
+        For a stage or cooler that cannot be solved (its message names the field, value
+        and valid range), a state outside the property model's range, or a second-law
+        violation.
+
     Notes
     -----
+    Steps: the intake filter (:func:`_intake_filter`), the stage ratios
+    (:func:`thermo.split.stage_pressure_ratios`), the stages and coolers in flow order
+    (:func:`_run_line`), the totals and closures (:func:`_totals`), heat recovery.
+
     Moist intake air (see :mod:`thermo.moist.stream`): ``mass_flow`` is the dry-air flow; each
     stage and cooler uses the stream model of its total water; the condensate drained by
     the separators leaves the train at its cooler's outlet temperature and pressure and
@@ -134,61 +80,192 @@ def solve_train(norm: dict, model: PropertyModel, mass_flow: float, detail: bool
     exergy gained by the air divided by the shaft power; isothermal efficiency is the
     isothermal power divided by the shaft power.
 
+    Examples
+    --------
+    >>> from thermo.models import ConstantCpAir
+    >>> from thermo.project.validation import normalise
+    >>> from thermo.solve_context import solve_context
+    >>> norm = normalise({"site": {"ambient_temperature_K": 293.15, "barometric_pressure_Pa": 1e5},
+    ...                   "flow": {"kind": "mass", "value": 1.0}, "discharge_pressure_Pa": 4e5,
+    ...                   "fluid": {"model": "constant_cp"},
+    ...                   "stages": [{"efficiency": {"kind": "isentropic", "value": 1.0}}]})
+    >>> r = solve_train(solve_context(norm, ConstantCpAir()), 2.0)
+    >>> round(r.shaft_power_W)  # 2 kg/s · 1005 J/(kg K) · 293.15 K · (4 ** (0.4 / 1.4) − 1)
+    286363
+    >>> abs(r.energy_residual) < 1e-12
+    True
+
     References
     ----------
     .. [1] A. Bejan, G. Tsatsaronis, M. Moran, *Thermal Design and Optimization*, Wiley,
        1996, §3.5 (exergy balance, exergetic efficiency).
     """
-    T0 = norm["site"]["ambient_temperature_K"]
-    P0 = site_pressure(norm)
-    dry_model = model
-    model, mixture, W0, ambient, dead, after_filter, inlet, rh0 = _intake_states(norm, dry_model, mass_flow)
-    filt_sgen = inlet.entropy_generation_W_K
-    p1 = after_filter.P
-
+    norm = ctx.norm
+    inlet = _intake_filter(ctx, mass_flow)
     specs = norm["stages"]
     drops = [(s["cooler"] or {}).get("pressure_drop_Pa", 0.0) for s in specs]
-    ratios = stage_pressure_ratios(p1, norm["discharge_pressure_Pa"], [s["pressure_ratio"] for s in specs], drops)
+    want = ctx.delivery_pressure_Pa  # resolved at the boundary (stated absolute or gauge)
+    ratios = stage_pressure_ratios(ctx.intake.after_filter.P, want, [s["pressure_ratio"] for s in specs], drops)
+    line = _run_line(ctx, ratios, mass_flow, detail)
+    if all(s["pressure_ratio"] is not None for s in specs):
+        if abs(line.point.P - want) > 1e-3 * want:
+            line.warnings.append(Warning_(stated_delivery(norm)[0],
+                                          f"the stage ratios give {line.point.P:.0f} Pa after the last cooler, "
+                                          f"not the {want:.0f} Pa asked for",
+                                          message_detail("The stage pressure ratios give {got} after the last "
+                                                         "cooler, not the {want} asked for",
+                                                         {"got": quantity(line.point.P, "pressure"),
+                                                          "want": quantity(want, "pressure")})))
+    result = _totals(ctx, inlet, line, mass_flow, detail)
+    if norm.get("heat_recovery"):  # moist air: each cooler's own stream model (latent heat included)
+        result.recovery = heat_recovery(norm["heat_recovery"], ctx.model, specs, line.stages, line.coolers,
+                                        mass_flow, result.driver_power_W,
+                                        hours=(norm.get("year") or {}).get("operating_hours_per_year"))
+    for name in ("shaft_power_W", "energy_residual", "exergy_residual", "second_law_efficiency"):
+        if not math.isfinite(getattr(result, name)):
+            raise ArithmeticError(f"non-finite {name} in train solve")  # a bug, never user input
+    return result
 
-    warnings: list[Warning_] = []
-    stages, coolers = [], []
-    point, velocity = after_filter, 0.0
-    drains = []  # (kg/s, h, s, T, p) of condensate leaving each separator
+
+def _intake_filter(ctx: SolveContext, mass_flow: float) -> InletResult:
+    r"""Balance of the intake filter, a throttle from ambient to the stage-1 inlet [1]_.
+
+    .. math:: \dot S_\mathrm{gen} = \dot m (s_1 - s_0), \qquad \dot X_\mathrm{dest} = T_0 \dot S_\mathrm{gen}
+
+    Parameters
+    ----------
+    ctx : SolveContext
+        The solve's context (its intake state: ambient and filter outlet).
+    mass_flow : float
+        Mass flow of (dry) air, [kg/s].
+
+    Returns
+    -------
+    InletResult
+        Ambient and filter outlet states, entropy generation [W/K], exergy destroyed [W].
+
+    References
+    ----------
+    .. [1] Y. A. Çengel, M. A. Boles, *Thermodynamics: An Engineering Approach*, 8th ed.,
+       McGraw-Hill, 2015, §7-13 (entropy balance), §8-6 (exergy destroyed).
+    """
+    intake = ctx.intake
+    filt_sgen = mass_flow * (intake.after_filter.s - intake.ambient.s)
+    return InletResult(intake.ambient, intake.after_filter, filt_sgen, ctx.site.ambient_temperature_K * filt_sgen)
+
+
+@dataclass
+class _Line:
+    """The stages and coolers solved so far, in flow order, and the stream leaving them."""
+
+    model: PropertyModel  #: stream model of the air leaving (moist air: its water after the separators)
+    point: Point  #: static state leaving
+    velocity: float = 0.0  #: velocity leaving, [m/s]
+    stages: list = field(default_factory=list)
+    coolers: list = field(default_factory=list)  #: one entry per stage, None where it has no cooler
+    drains: list = field(default_factory=list)  #: (kg/s, h, s, T, p) of condensate leaving each separator
+    warnings: list = field(default_factory=list)
+
+
+def _run_line(ctx: SolveContext, ratios: list, mass_flow: float, detail: bool) -> _Line:
+    """Solve every stage and its cooler in flow order; after a separator the stream carries its new water.
+
+    Parameters
+    ----------
+    ctx : SolveContext
+        The solve's context (stages, intake state, mixture).
+    ratios : list of float
+        Stage pressure ratios, first stage first, [-].
+    mass_flow : float
+        Mass flow of (dry) air, [kg/s].
+    detail : bool
+        As :func:`solve_train`.
+
+    Returns
+    -------
+    _Line
+        Solved stages and coolers, the stream leaving the last of them, the condensate
+        drained and the warnings (a discharge above its limit, water knocked out or carried).
+
+    Raises
+    ------
+    StagewrightError
+        As :func:`thermo.stage.solve_stage`, :func:`thermo.cooler.solve_cooler` and
+        :func:`thermo.moist.stream.check_humid_range`.
+
+    Notes
+    -----
+    The balances are those of :func:`thermo.stage.solve_stage` and
+    :func:`thermo.cooler.solve_cooler`, with their sources.
+    """
+    intake, mixture = ctx.intake, ctx.mixture
+    specs = ctx.norm["stages"]
+    line = _Line(intake.model, intake.after_filter)
     for i, spec in enumerate(specs):
-        st = solve_stage(model, spec, i, point, velocity, point.P * ratios[i], mass_flow, dead, detail)
+        st = solve_stage(line.model, spec, i, line.point, line.velocity, line.point.P * ratios[i], mass_flow,
+                         intake.dead, detail)
         if mixture is not None:
             check_humid_range(mixture, [st.outlet, max(st.path, key=lambda p: p.T)], f"stages[{i}]",
                               f"stage {i + 1} discharge")
-        stages.append(st)
+        line.stages.append(st)
         limit = spec.get("max_discharge_temperature_K")
         if limit is not None and st.outlet.T > limit:
-            warnings.append(Warning_(f"stages[{i}].max_discharge_temperature_K",
-                                     f"stage {i + 1} discharge {st.outlet.T:.1f} K exceeds its limit {limit:.1f} K"))
-        point, velocity = st.outlet, st.exit_velocity_m_s
-        if spec["cooler"] is not None:
-            c = solve_cooler(model, spec["cooler"], i, point, velocity, mass_flow, dead, 8 if detail else 0,
-                             ambient_relative_humidity=rh0)
-            coolers.append(c)
-            point, velocity = c.leaving, 0.0
-            if c.water is not None:
-                w = c.water
-                if w.drained_kg_s > 0.0:
-                    drains.append((w.drained_kg_s, w.liquid_enthalpy_J_kg, w.liquid_entropy_J_kgK, point.T, point.P))
-                warnings.extend(_water_notes(i, len(specs), w, mass_flow))
-                model = MoistAir(mixture, w.water_after)
-        else:
-            coolers.append(None)
+            line.warnings.append(_limit_warning(i, st.outlet.T, limit))
+        line.point, line.velocity = st.outlet, st.exit_velocity_m_s
+        if spec["cooler"] is None:
+            line.coolers.append(None)
+            continue
+        c = solve_cooler(line.model, spec["cooler"], i, line.point, line.velocity, mass_flow, intake.dead,
+                         8 if detail else 0, ambient_relative_humidity=intake.relative_humidity)
+        line.coolers.append(c)
+        line.point, line.velocity = c.leaving, 0.0
+        if c.water is not None:
+            w = c.water
+            if w.drained_kg_s > 0.0:
+                line.drains.append((w.drained_kg_s, w.liquid_enthalpy_J_kg, w.liquid_entropy_J_kgK,
+                                    line.point.T, line.point.P))
+            line.warnings.extend(_water_notes(i, len(specs), w, mass_flow))
+            line.model = MoistAir(mixture, w.water_after)
+    return line
 
-    if all(s["pressure_ratio"] is not None for s in specs):
-        want = norm["discharge_pressure_Pa"]
-        if abs(point.P - want) > 1e-3 * want:
-            warnings.append(Warning_("discharge_pressure_Pa",
-                                     f"the stage ratios give {point.P:.0f} Pa after the last cooler, "
-                                     f"not the {want:.0f} Pa asked for"))
 
+def _totals(ctx: SolveContext, inlet: InletResult, line: _Line, mass_flow: float, detail: bool) -> TrainResult:
+    """Totals of the train, its reversible isothermal power and the energy and exergy closures [1]_.
+
+    Parameters
+    ----------
+    ctx : SolveContext
+        The solve's context (dead state, ambient, mixture, driver efficiency).
+    inlet : InletResult
+        The intake filter's balance.
+    line : _Line
+        The solved stages and coolers (:func:`_run_line`).
+    mass_flow : float
+        Mass flow of (dry) air, [kg/s].
+    detail : bool
+        As :func:`solve_train` (the atmospheric dew point of the delivered air is
+        reporting-only).
+
+    Returns
+    -------
+    TrainResult
+        Without ``recovery`` (added by :func:`solve_train`).
+
+    Notes
+    -----
+    The equations are those of :func:`solve_train`.
+
+    References
+    ----------
+    .. [1] A. Bejan, G. Tsatsaronis, M. Moran, *Thermal Design and Optimization*, Wiley,
+       1996, §3.5 (exergy balance, exergetic efficiency).
+    """
+    intake, mixture, model = ctx.intake, ctx.mixture, line.model
+    stages, coolers, point, velocity, drains = line.stages, line.coolers, line.point, line.velocity, line.drains
+    dead, ambient, T0 = intake.dead, intake.ambient, ctx.site.ambient_temperature_K
     shaft = sum(s.shaft_power_W for s in stages)
     q_rej = (sum(c.duty_W for c in coolers if c) + sum(s.heat_loss_W + s.mechanical_loss_W for s in stages))
-    s_gen = filt_sgen + sum(s.entropy_generation_W_K for s in stages) + sum(
+    s_gen = inlet.entropy_generation_W_K + sum(s.entropy_generation_W_K for s in stages) + sum(
         c.entropy_generation_W_K for c in coolers if c)
     x_dest = inlet.exergy_destroyed_W + sum(s.exergy_destroyed_W for s in stages) + sum(
         c.exergy_destroyed_W for c in coolers if c)
@@ -211,11 +288,12 @@ def solve_train(norm: dict, model: PropertyModel, mass_flow: float, detail: bool
         energy_res = (shaft - mass_flow * (point.h + ke - ambient.h) - h_drained - q_rej) / shaft
         exergy_res = (shaft - x_gain - x_drained - x_dest - x_heat) / shaft
         fad = mass_flow * (1.0 + ambient.w) / ambient.rho
-        water = _water_result(mixture, dry_model, mass_flow, W0, point, P0, drains, x_drained, detail)
-    driver_eff = norm["driver"]["efficiency"]
-    normal = mass_flow / dry_model.at_tp(NORMAL_TEMPERATURE, NORMAL_PRESSURE, "normal state").rho
+        water = _water_result(mixture, ctx.model, mass_flow, intake.humidity_ratio, point, ctx.site.pressure_Pa,
+                              drains, x_drained, detail)
+    driver_eff = ctx.norm["driver"]["efficiency"]
+    normal = mass_flow / ctx.model.at_tp(NORMAL_TEMPERATURE, NORMAL_PRESSURE, "normal state").rho
     driver = shaft / driver_eff
-    result = TrainResult(
+    return TrainResult(
         model=model.name, eos_reference=coolprop_adapter.eos_reference(model.name), dead=dead,
         mass_flow_kg_s=mass_flow, free_air_delivery_m3_s=fad, normal_volume_flow_m3_s=normal,
         inlet=inlet, stages=stages, coolers=coolers, delivery=point, delivery_velocity_m_s=velocity,
@@ -224,14 +302,7 @@ def solve_train(norm: dict, model: PropertyModel, mass_flow: float, detail: bool
         heat_rejected_W=q_rej, entropy_generation_W_K=s_gen, exergy_destroyed_W=x_dest,
         heat_exergy_W=x_heat, exergy_gained_W=x_gain, isothermal_power_W=iso,
         isothermal_efficiency=iso / shaft, second_law_efficiency=x_gain / shaft,
-        energy_residual=energy_res, exergy_residual=exergy_res, warnings=warnings, water=water)
-    if norm.get("heat_recovery"):  # moist air: each cooler's own stream model (latent heat included)
-        result.recovery = heat_recovery(norm["heat_recovery"], dry_model, specs, stages, coolers, mass_flow, driver,
-                                        hours=(norm.get("year") or {}).get("operating_hours_per_year"))
-    for name in ("shaft_power_W", "energy_residual", "exergy_residual", "second_law_efficiency"):
-        if not math.isfinite(getattr(result, name)):
-            raise ArithmeticError(f"non-finite {name} in train solve")  # a bug, never user input
-    return result
+        energy_residual=energy_res, exergy_residual=exergy_res, warnings=line.warnings, water=water)
 
 
 def _water_result(mixture, dry_model, mass_flow, W0, delivered, P0, drains, x_drained,
@@ -253,20 +324,35 @@ def _water_result(mixture, dry_model, mass_flow, W0, delivered, P0, drains, x_dr
         water_balance_residual=(mass_flow * W0 - delivered_water - drained) / (mass_flow * W0))
 
 
+def _limit_warning(i: int, t_out: float, limit: float) -> Warning_:
+    """A stage discharging above its temperature limit: the value and the limit (a hazard)."""
+    return Warning_(f"stages[{i}].max_discharge_temperature_K",
+                    f"stage {i + 1} discharge {t_out:.1f} K exceeds its limit {limit:.1f} K",
+                    message_detail("Stage {n} discharge temperature {t} is above its {limit} limit",
+                                   {"n": i + 1, "t": quantity(t_out, "temperature"),
+                                    "limit": quantity(limit, "temperature")}))
+
+
 def _water_notes(i: int, n: int, water, mass_flow: float) -> list:
     """Messages about water a cooler knocks out or lets through (condensate is a hazard to manage)."""
     name = "aftercooler" if i == n - 1 else f"intercooler {i + 1}"
     notes = []
     if water.drained_kg_s > 0.0:
+        tail = (": it needs a working drain, and the condensate must be treated or disposed of as local "
+                "rules require")
         notes.append(Warning_(f"stages[{i}].cooler.separator_efficiency",
-                              f"{name} drains {water.drained_kg_s * 3600.0:.2f} kg/h of condensate: it needs a "
-                              "working drain, and the condensate must be treated or disposed of as local "
-                              "rules require"))
+                              f"{name} drains {water.drained_kg_s * 3600.0:.2f} kg/h of condensate" + tail,
+                              message_detail("{name} drains {flow} of condensate" + tail,
+                                             {"name": name[:1].upper() + name[1:],
+                                              "flow": quantity(water.drained_kg_s, "water_flow")})))
     carried = getattr(water, "carry_over_kg_s", 0.0) or 0.0
     if carried > 0.0:
         where = "the delivered air" if i == n - 1 else f"stage {i + 2}"
         notes.append(Warning_(f"stages[{i}].cooler.separator_efficiency",
                               f"{carried * 3600.0:.2f} kg/h of liquid water passes the {name}'s separator "
-                              f"into {where}"))
+                              f"into {where}",
+                              message_detail("{flow} of liquid water passes the {name}'s separator into {where}",
+                                             {"flow": quantity(carried, "water_flow"), "name": name,
+                                              "where": where})))
     return notes
 

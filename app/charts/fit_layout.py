@@ -7,8 +7,10 @@ time the figure is drawn (so again after every resize of a window canvas)
 :class:`FittingLayoutEngine` lays the figure out, then
 
 * sets every title back to its full text and font size and, where it does not fit across the
-  figure, tries a smaller font (down to :data:`style.SIZE_LABEL`), then two and three lines
-  (down to :data:`style.SIZE_NOTE`) — the words never change, only where the lines break;
+  figure (or, for axes with others to their right in the same row, in the room left of the
+  next axes' labels), tries a smaller font (down to :data:`style.SIZE_LABEL`), then two and three lines
+  (down to :data:`style.SIZE_NOTE`) — the words never change, only where the lines break; the
+  titles of panels side by side then share the smallest size any of them took;
 * turns horizontal x tick labels to 45° where neighbours would overlap (and back again
   where the figure has become wide enough);
 
@@ -60,12 +62,25 @@ def _titles(ax):
             if t is not None and t.get_text()]
 
 
-def _inside(text, renderer, fig) -> bool:
+def _room_right(ax, renderer, fig) -> float:
+    """Right edge [px] a title of ``ax`` may reach: the figure's edge, or short of the labels of
+    the nearest axes to its right in the same row (panels side by side)."""
+    bound = fig.bbox.x1 - _EDGE_PX
+    me = ax.get_window_extent(renderer)
+    for other in fig.axes:
+        box = other.get_window_extent(renderer)
+        if other is ax or box.x0 < me.x1 - 1.0 or box.y0 >= me.y1 or box.y1 <= me.y0:
+            continue  # itself, a twin, or not beside it
+        bound = min(bound, other.get_tightbbox(renderer).x0 - 2 * _EDGE_PX)
+    return bound
+
+
+def _inside(text, renderer, fig, right: float) -> bool:
     box = text.get_window_extent(renderer)
-    return box.x0 >= fig.bbox.x0 + _EDGE_PX and box.x1 <= fig.bbox.x1 - _EDGE_PX
+    return box.x0 >= fig.bbox.x0 + _EDGE_PX and box.x1 <= right
 
 
-def _fit_title(text, renderer, fig) -> None:
+def _fit_title(text, renderer, fig, right: float) -> None:
     full = getattr(text, "_stagewright_full", None)
     if full is None:
         full = text._stagewright_full = (text.get_text(), text.get_fontsize())
@@ -76,7 +91,7 @@ def _fit_title(text, renderer, fig) -> None:
     for lines, s in tries:
         text.set_text(wrap_lines(words, lines))
         text.set_fontsize(s)
-        if _inside(text, renderer, fig):
+        if _inside(text, renderer, fig, right):
             return
     # nothing fits: the last (smallest) try stands
 
@@ -105,6 +120,19 @@ def _fit_ticks(ax, renderer) -> bool:
     return (45.0 if crowded else 0.0) != was
 
 
+def _same_size_in_rows(fig, renderer) -> None:
+    """Titles of panels side by side take the smallest size any of them needed (a smaller font
+    still fits where a larger one did)."""
+    boxes = {ax: ax.get_window_extent(renderer) for ax in fig.axes}
+    for ax in fig.axes:
+        row = [o for o in fig.axes if boxes[o].y0 < boxes[ax].y1 and boxes[o].y1 > boxes[ax].y0]
+        titles = [t for o in row for t in _titles(o)]
+        if len(titles) > 1:
+            size = min(t.get_fontsize() for t in titles)
+            for t in titles:
+                t.set_fontsize(size)
+
+
 class FittingLayoutEngine(ConstrainedLayoutEngine):
     """Constrained layout, then titles and x tick labels fitted to the width, then again."""
 
@@ -117,8 +145,10 @@ class FittingLayoutEngine(ConstrainedLayoutEngine):
                 _fit_ticks(ax, renderer)
             super().execute(fig)  # axes placed for the tick labels' height before titles are measured
         for ax in fig.axes:
+            right = _room_right(ax, renderer, fig)
             for text in _titles(ax):
-                _fit_title(text, renderer, fig)
+                _fit_title(text, renderer, fig, right)
+        _same_size_in_rows(fig, renderer)
         return super().execute(fig)
 
 

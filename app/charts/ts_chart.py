@@ -6,60 +6,23 @@ PDF. Every process segment is one ``Line2D`` with a gid (``"stage-1"``, ``"coole
 ``"ambient"`` and ``"limit-k"``.
 
 Entropy is drawn relative to the intake state, :math:`s - s_\\mathrm{intake}`, because the
-absolute value depends on each property model's reference state. Isobars are computed
-from the property model the result names (``result["model"]``) through
-:mod:`thermo.models`, never from CoolProp directly.
+absolute value depends on each property model's reference state. The chart only draws:
+the process path and the isobars come from the core as plain SI data
+(:mod:`thermo.ts_lines`), computed from the property model the result names.
 """
 from __future__ import annotations
 
-__all__ = ["draw_ts_chart", "chart_model", "stage_limits", "isobar_pressures"]
+__all__ = ["draw_ts_chart", "stage_limits", "isobar_pressures"]
 
 
 import math
 
 from matplotlib.figure import Figure
 
-from thermo.errors import StagewrightError
-from thermo.models.base import T_MAX, T_MIN
-from thermo.solve import model_for
+from thermo.ts_lines import ISOBAR_POINTS, isobar_pressures, isobars, path_segments
 
 from app.presentation import units
 from app.charts import style
-
-_ISOBAR_POINTS = 48
-
-
-def chart_model(result: dict):
-    """The property model that produced ``result``, for drawing isobars (``None`` if unknown).
-
-    For moist intake air (``intake_humidity_ratio`` > 0) it is the moist stream model of the
-    intake's water content, whose entropy per kilogram of dry air is the one the result's
-    states carry (below the dew point at a pressure, the isobar includes the condensed water).
-
-    For the constant-cp model the result does not name cp and k, so they are recovered
-    exactly from the result's own states: :math:`c_p = \\Delta h / \\Delta T` between the
-    intake and the first stage discharge, :math:`R = p / (\\rho T)` and
-    :math:`k = c_p / (c_p - R)` (perfect gas).
-    """
-    name = result.get("model")
-    fluid = {"model": name}
-    if name == "constant_cp":
-        a, b = result["intake"], result["stages"][0]["outlet"]
-        dT = b["temperature_K"] - a["temperature_K"]
-        if abs(dT) > 1e-6:
-            cp = (b["enthalpy_J_kg"] - a["enthalpy_J_kg"]) / dT
-            R = a["pressure_Pa"] / (a["density_kg_m3"] * a["temperature_K"])
-            fluid.update(cp_J_kgK=round(cp, 9), k=round(cp / (cp - R), 12))
-    try:
-        model = model_for(fluid)
-    except KeyError:  # a model this front end does not know: draw the path without isobars
-        return None
-    w0 = result.get("intake_humidity_ratio") or 0.0
-    if w0 > 0.0:  # moist intake: isobars of the intake air's own water (entropy per kg dry air)
-        from thermo.moist.stream import MoistAir
-        from thermo.train import mixture_for
-        model = MoistAir(mixture_for(model), w0)
-    return model
 
 
 def stage_limits(result: dict, limits_K=None) -> list:
@@ -76,38 +39,6 @@ def stage_limits(result: dict, limits_K=None) -> list:
         return [float(limits_K)] * n
     lims = list(limits_K)[:n]
     return lims + [None] * (n - len(lims))
-
-
-def isobar_pressures(result: dict) -> list[float]:
-    """Pressures at which the chart draws isobars: stage-1 inlet and every stage discharge, [Pa]."""
-    out = [result["stages"][0]["inlet"]["pressure_Pa"]]
-    for st in result["stages"]:
-        p = st["outlet"]["pressure_Pa"]
-        if all(abs(p - q) > 1e-3 * q for q in out):
-            out.append(p)
-    return out
-
-
-def _segments(result: dict):
-    """(gid, kind, [(T, p, s), ...]) for every compression and cooling line, in flow order."""
-    segs = []
-    for i, st in enumerate(result["stages"], 1):
-        pts = [(q["temperature_K"], q["pressure_Pa"], q["entropy_J_kgK"]) for q in st["path"]]
-        out = st["outlet"]
-        end = (out["temperature_K"], out["pressure_Pa"], out["entropy_J_kgK"])
-        if not pts:
-            inl = st["inlet"]
-            pts = [(inl["temperature_K"], inl["pressure_Pa"], inl["entropy_J_kgK"])]
-        if abs(end[0] - pts[-1][0]) > 1e-9 or abs(end[2] - pts[-1][2]) > 1e-12:
-            pts.append(end)  # casing heat loss and exit kinetic energy after the adiabatic end
-        segs.append((f"stage-{i}", "stage", pts))
-        c = st.get("cooler")
-        if c:
-            cpts = [(q["temperature_K"], q["pressure_Pa"], q["entropy_J_kgK"]) for q in c.get("path") or []]
-            if not cpts:
-                cpts = [(p["temperature_K"], p["pressure_Pa"], p["entropy_J_kgK"]) for p in (c["inlet"], c["outlet"])]
-            segs.append((f"cooler-{i}", "cooler", cpts))
-    return segs
 
 
 def draw_ts_chart(fig: Figure, result: dict, system: str = "SI", limits_K=None) -> Figure:
@@ -143,7 +74,7 @@ def draw_ts_chart(fig: Figure, result: dict, system: str = "SI", limits_K=None) 
     def y(T):
         return t_unit.to_display(T)
 
-    segs = _segments(result)
+    segs = [(seg.name, seg.kind, seg.points) for seg in path_segments(result)]
     all_T = [q[0] for _, _, pts in segs for q in pts] + [result["intake"]["temperature_K"]]
     all_s = [q[2] for _, _, pts in segs for q in pts] + [s_ref]
     lims = stage_limits(result, limits_K)
@@ -157,28 +88,22 @@ def draw_ts_chart(fig: Figure, result: dict, system: str = "SI", limits_K=None) 
     s_span = max(s_hi - s_lo, 1.0)
     s_lo_plot, s_hi_plot = s_lo - 0.06 * s_span, s_hi + 0.16 * s_span
 
-    # isobars from the property model, each labelled at its last point inside the plot box
-    model = chart_model(result)
-    if model is not None:
-        t_a, t_b = max(T_MIN, t_lo_plot), min(T_MAX, t_hi_plot)
-        for k, p in enumerate(isobar_pressures(result), 1):
-            Ts = [t_a + (t_b - t_a) * j / (_ISOBAR_POINTS - 1) for j in range(_ISOBAR_POINTS)]
-            try:
-                ss = [model.at_tp(T, p, "isobar").s for T in Ts]
-            except StagewrightError:
-                continue
-            ax.plot([x(s) for s in ss], [y(T) for T in Ts], color=style.ISOBAR, lw=0.8, ls=(0, (4, 3)),
-                    zorder=1, gid=f"isobar-{k}")
-            inside = [(x(s), y(T)) for s, T in zip(ss, Ts) if s_lo_plot <= s <= s_hi_plot]
-            if len(inside) >= 2:
-                (x1, y1), (x2, y2) = inside[-2], inside[-1]
-                # text along the isobar: the angle is given in data space and turned into a
-                # screen angle by the transform at draw time (follows resizing)
-                ax.text(x2, y2, f"{p_unit.to_display(p):.{_pressure_decimals(p_unit, p)}f} {p_unit.symbol}",
-                        rotation=math.degrees(math.atan2(y2 - y1, x2 - x1)), rotation_mode="anchor",
-                        transform_rotates_text=True, ha="right", va="bottom", fontsize=style.SIZE_NOTE,
-                        color=style.MUTED, fontfamily=style.FONT, zorder=3, gid=f"isobar-label-{k}",
-                        bbox=dict(boxstyle="square,pad=0.1", fc=style.PAPER, ec="none", alpha=0.8))
+    # isobars from the core (the result's own property model), each labelled at its last point
+    # inside the plot box
+    for iso in isobars(result, t_lo_plot, t_hi_plot, ISOBAR_POINTS):
+        k, p, Ts, ss = iso.number, iso.pressure_Pa, iso.temperature_K, iso.entropy_J_kgK
+        ax.plot([x(s) for s in ss], [y(T) for T in Ts], color=style.ISOBAR, lw=0.8, ls=(0, (4, 3)),
+                zorder=1, gid=f"isobar-{k}")
+        inside = [(x(s), y(T)) for s, T in zip(ss, Ts) if s_lo_plot <= s <= s_hi_plot]
+        if len(inside) >= 2:
+            (x1, y1), (x2, y2) = inside[-2], inside[-1]
+            # text along the isobar: the angle is given in data space and turned into a
+            # screen angle by the transform at draw time (follows resizing)
+            ax.text(x2, y2, f"{p_unit.to_display(p):.{_pressure_decimals(p_unit, p)}f} {p_unit.symbol}",
+                    rotation=math.degrees(math.atan2(y2 - y1, x2 - x1)), rotation_mode="anchor",
+                    transform_rotates_text=True, ha="right", va="bottom", fontsize=style.SIZE_NOTE,
+                    color=style.MUTED, fontfamily=style.FONT, zorder=3, gid=f"isobar-label-{k}",
+                    bbox=dict(boxstyle="square,pad=0.1", fc=style.PAPER, ec="none", alpha=0.8))
 
     # ambient temperature
     T0 = result["ambient_temperature_K"]

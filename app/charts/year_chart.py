@@ -1,15 +1,18 @@
 """Year-at-site chart: energy, condensate and worst discharge temperature bin by bin.
 
 Built on a plain matplotlib ``Figure`` (no Qt, no pyplot) from ``YearResult.to_dict()``
-(:func:`thermo.year.run_year`): three panels sharing the bin axis — energy per bin
-(bars, gid ``"year-energy-<i>"``), condensate drained per bin (bars, ``"year-condensate-<i>"``)
-and the highest stage discharge temperature of the bin (line ``"year-discharge"``), with the
-worst bin marked (``"year-worst"``). Titles and month labels are fitted to the figure's width
-at every draw (:mod:`app.charts.fit_layout`).
+(:func:`thermo.year.run_year`): three panels — energy per bin (bars, gid ``"year-energy-<i>"``),
+condensate drained per bin (bars, ``"year-condensate-<i>"``) and the highest stage discharge
+temperature of the bin (line ``"year-discharge"``), with the worst bin circled
+(``"year-worst"``) and named in that panel's title, never beside the point, where it would run
+into the month labels of a short panel. A wide, short figure (a panel docked under the
+window's charts) puts the three panels side by side, each with its own month labels; a taller
+one stacks them over one shared month axis. Titles and month labels are fitted to the space at
+every draw (:mod:`app.charts.fit_layout`).
 """
 from __future__ import annotations
 
-__all__ = ["draw_year_chart"]
+__all__ = ["draw_year_chart", "side_by_side_for", "SIDE_BY_SIDE_ASPECT"]
 
 from matplotlib.figure import Figure
 
@@ -18,9 +21,24 @@ from app.charts import fit_layout, style
 
 _MONTHS = ("January", "February", "March", "April", "May", "June", "July", "August", "September", "October",
            "November", "December")
+#: a figure at least this many times as wide as it is tall shows the panels side by side
+#: (three stacked panels in a short figure leave each a sliver; common practice, no source)
+SIDE_BY_SIDE_ASPECT = 2.2
 
 
-def draw_year_chart(fig: Figure, year: dict, system: str = "SI", limit_K: float | None = None) -> Figure:
+def side_by_side_for(width: float, height: float) -> bool:
+    """Whether a figure ``width`` × ``height`` (any one unit) shows the three panels side by side.
+
+    Examples
+    --------
+    >>> side_by_side_for(900, 230), side_by_side_for(700, 600)
+    (True, False)
+    """
+    return width >= SIDE_BY_SIDE_ASPECT * height
+
+
+def draw_year_chart(fig: Figure, year: dict, system: str = "SI", limit_K: float | None = None,
+                    side_by_side: bool | None = None) -> Figure:
     """Draw a year at the site into ``fig`` (cleared first).
 
     Parameters
@@ -29,11 +47,15 @@ def draw_year_chart(fig: Figure, year: dict, system: str = "SI", limit_K: float 
         Figure to draw into (any back end).
     year : dict
         ``YearResult.to_dict()``: ``bins`` with ``label``, ``energy_kWh`` [kWh],
-        ``condensate_m3`` [m³] and ``max_discharge_temperature_K`` [K].
+        ``condensate_m3`` [m³] and ``max_discharge_temperature_K`` [K]; ``totals`` with
+        ``energy_kWh`` and ``condensate_m3``.
     system : str
         Display units, ``"SI"`` or ``"US"``.
     limit_K : float, optional
         Discharge-temperature limit to draw, [K].
+    side_by_side : bool, optional
+        The three panels in a row (True) or stacked (False); by default from the figure's shape
+        (:func:`side_by_side_for`).
 
     Returns
     -------
@@ -42,16 +64,32 @@ def draw_year_chart(fig: Figure, year: dict, system: str = "SI", limit_K: float 
     """
     style.prepare(fig)
     fit_layout.install(fig)  # titles and month labels fit a narrow panel (wrapped or smaller, same words)
+    if side_by_side is None:
+        side_by_side = side_by_side_for(fig.bbox.width, fig.bbox.height)  # a SubFigure has no size of its own
     bins = year.get("bins") or []
-    ax_e, ax_w, ax_t = fig.subplots(3, 1, sharex=True)
+    if side_by_side:
+        ax_e, ax_w, ax_t = fig.subplots(1, 3)
+    else:
+        ax_e, ax_w, ax_t = fig.subplots(3, 1, sharex=True)
     if not bins:
         for ax in (ax_e, ax_w, ax_t):
             ax.set_axis_off()
         ax_w.text(0.5, 0.5, "No year run yet", transform=ax_w.transAxes, ha="center", va="center",
                   fontsize=style.SIZE_LABEL, color=style.MUTED, fontfamily=style.FONT)
         return fig
+    _draw_bins(ax_e, ax_w, ax_t, year, system, limit_K)
     x = list(range(len(bins)))
-    labels = [b["label"] for b in bins]
+    short = [b["label"][:3] if b["label"] in _MONTHS else b["label"] for b in bins]  # Jan … Dec
+    long_ticks = max(len(t) for t in short) > 4 or len(bins) > 12
+    for ax in (ax_e, ax_w, ax_t) if side_by_side else (ax_t,):
+        ax.set_xticks(x, short, rotation=45 if long_ticks else 0, ha="right" if long_ticks else "center")
+        ax.set_xlim(-0.6, len(bins) - 0.4)
+    return fig
+
+
+def _draw_bins(ax_e, ax_w, ax_t, year: dict, system: str, limit_K: float | None) -> None:
+    """Bars of energy and condensate, the discharge-temperature line, the worst bin and the titles."""
+    bins = year["bins"]
     en = units.unit("energy", system)
     vol = units.unit("liquid_volume", system)
     tu = units.unit("temperature", system)
@@ -61,26 +99,25 @@ def draw_year_chart(fig: Figure, year: dict, system: str = "SI", limit_K: float 
         ax_w.bar(i, vol.to_display(b["condensate_m3"]), width=0.7, color=style.LATENT, edgecolor=style.SENSIBLE,
                  linewidth=0.6, gid=f"year-condensate-{i}", zorder=3)
     temps = [tu.to_display(b["max_discharge_temperature_K"]) for b in bins]
-    ax_t.plot(x, temps, color=style.TEMPERATURE, marker="o", markersize=3.5, linewidth=1.4, gid="year-discharge",
-              zorder=3)
+    ax_t.plot(range(len(bins)), temps, color=style.TEMPERATURE, marker="o", markersize=3.5, linewidth=1.4,
+              gid="year-discharge", zorder=3)
     worst = max(range(len(bins)), key=lambda i: bins[i]["max_discharge_temperature_K"])
     ax_t.plot([worst], [temps[worst]], linestyle="none", marker="o", markersize=8, markerfacecolor="none",
               markeredgecolor=style.LIMIT, markeredgewidth=1.4, gid="year-worst", zorder=4)
-    ax_t.annotate(f"worst: {labels[worst]}", (worst, temps[worst]), xytext=(0, -14), textcoords="offset points",
-                  ha="center", va="top", fontsize=style.SIZE_NOTE, color=style.LIMIT, fontfamily=style.FONT)
     if limit_K is not None:
         ax_t.axhline(tu.to_display(limit_K), color=style.LIMIT, linewidth=1.0, linestyle="--", gid="year-limit")
-    total = units.format_value(year["totals"]["energy_kWh"] * 3.6e6, "energy", system, with_unit=True) \
-        if year.get("totals") else ""
-    style.style_axes(ax_e, title=f"Energy per bin (year: {total})" if total else "Energy per bin",
+    totals = year.get("totals") or {}
+    energy = units.format_value(totals["energy_kWh"] * 3.6e6, "energy", system, with_unit=True) \
+        if totals.get("energy_kWh") is not None else ""
+    water = units.format_value(totals["condensate_m3"], "liquid_volume", system, with_unit=True) \
+        if totals.get("condensate_m3") is not None else ""
+    hottest = units.format_value(bins[worst]["max_discharge_temperature_K"], "temperature", system, with_unit=True)
+    style.style_axes(ax_e, title=f"Energy per bin (year: {energy})" if energy else "Energy per bin",
                      ylabel=en.symbol, grid_axis="y")
-    style.style_axes(ax_w, title="Condensate drained", ylabel=vol.symbol, grid_axis="y")
-    style.style_axes(ax_t, title="Highest discharge temperature", ylabel=tu.symbol, grid_axis="y")
+    style.style_axes(ax_w, title=f"Condensate drained (year: {water})" if water else "Condensate drained",
+                     ylabel=vol.symbol, grid_axis="y")
+    style.style_axes(ax_t, title=f"Highest discharge temperature (worst: {bins[worst]['label']}, {hottest})",
+                     ylabel=tu.symbol, grid_axis="y")
     lo, hi = min(temps), max(temps + ([tu.to_display(limit_K)] if limit_K is not None else []))
     pad = max(0.15 * (hi - lo), 2.0)
-    ax_t.set_ylim(lo - 1.6 * pad, hi + pad)
-    short = [lab[:3] if lab in _MONTHS else lab for lab in labels]  # month names: Jan … Dec (no overlap)
-    long_ticks = max(len(t) for t in short) > 4 or len(bins) > 12
-    ax_t.set_xticks(x, short, rotation=45 if long_ticks else 0, ha="right" if long_ticks else "center")
-    ax_t.set_xlim(-0.6, len(bins) - 0.4)
-    return fig
+    ax_t.set_ylim(lo - pad, hi + pad)

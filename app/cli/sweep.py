@@ -4,7 +4,8 @@
                       [-o OUT.csv] [--processes N]
 
 Each ``--axis`` names a field of the project file by its path (``site.ambient_temperature_K``,
-``discharge_pressure_Pa``, ``stages[0].efficiency.value`` …) and its values in SI units, as the
+``discharge_pressure_Pa`` or ``discharge_gauge_pressure_Pa`` — an axis on one of these replaces a
+project's statement in the other —, ``stages[0].efficiency.value`` …) and its values in SI units, as the
 project file carries them; the grid is the product of the axes, the last one fastest. One CSV row
 per grid point: the axis values, the totals of ``thermo.sweep.SWEEP_OUTPUTS`` (SI, the unit in
 each column name) and, for a point that cannot be solved, its message.

@@ -1,1 +1,1 @@
-"""The project as the window edits it, without Qt: the document model and its change signals, field paths, field specs, display preferences and the crash-recovery file."""
+"""The project as the window edits it, without Qt: the document model and its change signals, field paths, field specs, display preferences, the crash-recovery files (``recovery_file``) and the lock that says which running process owns one (``owner_lock``), and file names made from a project's title (``file_names``)."""

@@ -7,7 +7,7 @@ display unit only when shown. Qt-free.
 from __future__ import annotations
 
 __all__ = ["FieldSpec", "spec_for", "quantity_for", "describe", "edit_text", "schema_node",
-           "problem_message", "range_text", "FLOW_QUANTITY"]
+           "problem_message", "range_text", "FLOW_QUANTITY", "FLOW_LABEL"]
 
 import re
 from dataclasses import dataclass
@@ -32,7 +32,10 @@ class FieldSpec:
 
 #: flow kind -> display quantity of ``flow.value``
 FLOW_QUANTITY = {"mass": "mass_flow", "free_air_delivery": "volume_flow",
-                 "normal_volume": "volume_flow", "shaft_power": "power"}
+                 "normal_volume": "normal_volume_flow", "shaft_power": "power"}
+#: flow kind -> label of ``flow.value`` (a shaft power is not a flow)
+FLOW_LABEL = {"mass": "mass flow", "free_air_delivery": "free air delivery",
+              "normal_volume": "normal volume flow", "shaft_power": "shaft power"}
 
 _SPECS = {
     "title": FieldSpec("project title"),
@@ -48,6 +51,7 @@ _SPECS = {
     "flow.kind": FieldSpec("flow basis"),
     "flow.value": FieldSpec("flow"),
     "discharge_pressure_Pa": FieldSpec("discharge pressure", "pressure", gauge_aware=True),
+    "discharge_gauge_pressure_Pa": FieldSpec("discharge pressure", "gauge_pressure"),  # stated gauge
     "driver.efficiency": FieldSpec("driver efficiency", "fraction"),
     "stages[*].name": FieldSpec("name"),
     "stages[*].pressure_ratio": FieldSpec("pressure ratio", "ratio"),
@@ -144,6 +148,8 @@ def describe(path: str, doc: dict) -> str:
         label = last.replace("_", " ")
         if len(tokens) == 2 and isinstance(tokens[1], int):
             label = ""
+    elif path == "flow.value":
+        label = FLOW_LABEL.get(get_in(doc, "flow.kind"), spec.label)
     else:
         label = spec.label
     if path.startswith("year.profile.") and where:

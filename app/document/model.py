@@ -62,7 +62,7 @@ def new_document() -> dict:
                  "relative_humidity": 0.0},
         "fluid": {"model": "real_gas"},
         "flow": {"kind": "free_air_delivery", "value": 0.1},
-        "discharge_pressure_Pa": 801_325.0,
+        "discharge_gauge_pressure_Pa": 700_000.0,  # 7 bar(g): held when the site changes
         "driver": {"efficiency": 0.95},
         "stages": [stage("Stage 1"), stage("Stage 2")],
     }

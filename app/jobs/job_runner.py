@@ -96,7 +96,8 @@ class _Worker(QObject):
                 self.news.emit(job_id, "cancelled", (exc.partial, exc.message))
                 return
             except StagewrightError as exc:
-                self.news.emit(job_id, "failed", (str(exc), getattr(exc, "field", "") or ""))
+                self.news.emit(job_id, "failed", (str(exc), getattr(exc, "field", "") or "",
+                                                  getattr(exc, "detail", None)))
                 return
         except Exception as exc:  # a bug in the core must not take the window down
             traceback.print_exc(file=sys.stderr)
@@ -154,6 +155,7 @@ class JobRunner(QObject):
         super().__init__(parent)
         self._job = 0
         self._busy = False
+        self.failure_detail: dict | None = None  #: template and values of the last failure (or None)
         self._events = [threading.Event()]  # the newest job's cancel event (a list: see below)
         self._thread = _WorkerThread()
         self._thread.setObjectName(thread_name)
@@ -228,4 +230,7 @@ class JobRunner(QObject):
             return  # stale: a newer job was started, or this one was forgotten
         if signal in _ANSWERS:
             self._busy = False
+        if signal == "failed":  # the error's template and values, read by failed's slots
+            self.failure_detail = args[2] if len(args) > 2 else None
+            args = args[:2]
         getattr(self, signal).emit(job_id, *args)

@@ -2,7 +2,8 @@
 
 Shows the last result in the display unit system; when the document has changed in a way
 that cannot be solved (or the solve failed) the numbers stay visible but greyed, under a
-banner that says they are out of date.
+banner that says they are out of date. Each table copies to the clipboard as tab-separated text
+(Ctrl+C, or its context menu, which also copies the whole sheet).
 """
 from __future__ import annotations
 
@@ -17,6 +18,7 @@ from app.presentation import balance_tables as tables
 from app.presentation.figures import Figure, condition_holds, shown
 from app.presentation.result_notes import NEGATIVE_TIPS, TOTAL_TIPS
 from app.document.paths import stage_index
+from app.widgets.table_copy import attach_table_copy, table_rows
 
 WARNING_BG = "#fde7c4"  # a value a warning in Messages is about
 _OUT = "window"
@@ -30,16 +32,18 @@ _COMPONENT_NAMES = {"filter": "Intake filter", "train": "Whole train"}
 
 
 class FitTable(QTableWidget):
-    """Columns as wide as their contents; spare width shared out evenly (never clipped)."""
+    """Columns as wide as their contents; spare width shared out evenly among the shown
+    columns (never clipped)."""
 
     def fit_columns(self) -> None:
         header = self.horizontalHeader()
         self.resizeColumnsToContents()
-        widths = [header.sectionSize(i) for i in range(self.columnCount())]
-        spare = self.viewport().width() - sum(widths)
-        if spare > 0 and len(widths) > 1:
-            extra = spare // (len(widths) - 1)
-            for i in range(1, len(widths)):
+        shown = [i for i in range(self.columnCount()) if not self.isColumnHidden(i)]
+        widths = {i: header.sectionSize(i) for i in shown}
+        spare = self.viewport().width() - sum(widths.values())
+        if spare > 0 and len(shown) > 1:  # to the shown figure columns only (not the label)
+            extra = spare // (len(shown) - 1)
+            for i in shown[1:]:
                 header.resizeSection(i, widths[i] + extra)
 
     def resizeEvent(self, event) -> None:
@@ -95,6 +99,11 @@ class BalancePanel(QWidget):
         self.splitter = split
         lay.addWidget(split, 1)
         self._row_keys: dict[str, list[str]] = {"points": [], "components": [], "totals": []}
+        sheet = [("Copy balance sheet", self.sheet_text)]
+        self.copiers = {name: attach_table_copy(getattr(self, name), rows, sheet) for name, rows in (
+            ("points", lambda sel: self._copy_rows(self.points, sel)),
+            ("components", lambda sel: self._copy_rows(self.components, sel)),
+            ("totals", self._copy_totals))}
         editor.result_changed.connect(self.refresh)
         editor.prefs.changed.connect(self.refresh)
         self.refresh()
@@ -125,6 +134,43 @@ class BalancePanel(QWidget):
     def column_keys(self, table: str) -> list[str]:
         """Ids of the figure columns of ``"points"`` or ``"components"`` (after the row label)."""
         return [f.id for f in self._columns[table]]
+
+    def show_row(self, table: str, row_key: str) -> bool:
+        """Select the row ``row_key`` of ``table`` and scroll it into view; False if it has none shown."""
+        keys = self._row_keys.get(table, [])
+        t = getattr(self, table)
+        if row_key not in keys or t.isRowHidden(keys.index(row_key)):
+            return False
+        row = keys.index(row_key)
+        t.setFocus()
+        t.selectRow(row)
+        t.scrollTo(t.model().index(row, 0))
+        return True
+
+    # ---- copying ---------------------------------------------------------------------------
+    def sheet_text(self) -> str:
+        """The three tables as tab-separated text, a blank line between them."""
+        return "\n".join(self.copiers[name].text() for name in ("points", "components", "totals"))
+
+    def _stale_note(self) -> list[list[str]]:
+        return [[self.banner.text()]] if self.is_stale and self.banner.text() else []
+
+    def _copy_rows(self, table: QTableWidget, only_selected: bool) -> list[list[str]]:
+        return self._stale_note() + table_rows(table, only_selected)
+
+    def _copy_totals(self, only_selected: bool) -> list[list[str]]:
+        """Totals with the value and its unit in separate columns (a spreadsheet reads the number)."""
+        r = self.editor.result
+        chosen = {i.row() for i in self.totals.selectionModel().selectedIndexes()}
+        rows = [["Total", "Value", "Unit"]]
+        if r is None:
+            return self._stale_note() + rows
+        system = self.editor.prefs.system
+        for row, fig in enumerate(self._total_rows):
+            if self.totals.isRowHidden(row) or (only_selected and row not in chosen):
+                continue
+            rows.append([fig.label_in(_OUT), fig.text(r, _OUT, system), fig.symbol_in(_OUT, system)])
+        return self._stale_note() + rows
 
     @property
     def is_stale(self) -> bool:

@@ -4,17 +4,15 @@ from __future__ import annotations
 
 __all__ = ["MessagesPanel", "Message"]
 
-import re
 from dataclasses import dataclass
 
 from PySide6.QtCore import QSize, Qt, Signal
 from PySide6.QtGui import QColor, QIcon, QPainter, QPixmap
 from PySide6.QtWidgets import QLabel, QListWidget, QListWidgetItem, QVBoxLayout, QWidget
 
-from app.presentation import units
 from app.presentation.cautions import CAUTIONS
-from app.document.paths import get_in, stage_index
-from app.document.field_specs import describe, problem_message
+from app.document.messages import error_text, problem_text, warning_text
+from app.document.field_specs import describe
 
 _CAUTION = dict(CAUTIONS)
 _SEVERITY_COLOUR = {"problem": "#c0392b", "warning": "#d98e04", "caution": "#7b5ea7", "ok": "#2e8b57",
@@ -77,10 +75,13 @@ class MessagesPanel(QWidget):
         doc = ed.model.doc
         system, gauge, p0 = ed.prefs.system, ed.prefs.gauge, ed.barometric_Pa()
         out = [Message("problem", f"{describe(path, doc)}: {text}", path) for path, text in ed.entry_errors.items()]
-        out += [Message("problem", problem_message(p, doc, system, p0, gauge), p.field) for p in ed.problems]
+        out += [Message("problem", problem_text(p, doc, system, gauge=gauge, barometric_Pa=p0), p.field)
+                for p in ed.problems]
         if ed.failure is not None and not (ed.problems or ed.entry_errors):
             message, field = ed.failure
-            out.append(Message("problem", f"The train could not be solved: {message}", field))
+            text = error_text(message, field, getattr(ed, "failure_detail", None), doc, system, gauge=gauge,
+                              barometric_Pa=p0)
+            out.append(Message("problem", f"The train could not be solved: {text}", field))
         if ed.result is not None and not ed.stale:
             cautions = []
             for w in ed.result.get("warnings", []):
@@ -106,19 +107,9 @@ class MessagesPanel(QWidget):
         self.refresh()
 
     def _warning_text(self, w: dict) -> str:
-        """Result warnings in display units where the message is one we know how to restate."""
-        field, text = w.get("field", ""), w.get("message", "")
-        i = stage_index(field)
-        r = self.editor.result
-        if i is not None and field.endswith("max_discharge_temperature_K") and i < len(r["stages"]):
-            system = self.editor.prefs.system
-            t_out = r["stages"][i]["outlet"]["temperature_K"]
-            limit = get_in(self.editor.model.doc, field, None)
-            if isinstance(limit, (int, float)):
-                return (f"Stage {i + 1} discharge temperature "
-                        f"{units.format_value(t_out, 'temperature', system, True)} is above its limit of "
-                        f"{units.format_value(limit, 'temperature', system, True)}.")
-        return re.sub(r"^\s*", "", text[:1].upper() + text[1:])
+        """A result warning in display units, with the field's name (app.document.messages)."""
+        ed = self.editor
+        return warning_text(w, ed.model.doc, ed.prefs.system, gauge=ed.prefs.gauge, barometric_Pa=ed.barometric_Pa())
 
     def refresh(self) -> None:
         self.messages = self.collect()
@@ -126,7 +117,7 @@ class MessagesPanel(QWidget):
         for m in self.messages:
             item = QListWidgetItem(self._icons[m.severity], m.text)
             item.setData(Qt.UserRole, m.field)
-            tip = m.text + (f"\n\nField: {m.field} (click to show it)" if m.field else "")
+            tip = m.text + (f"\n\nClick to show: {describe(m.field, self.editor.model.doc)}" if m.field else "")
             item.setToolTip(tip)
             self.list.addItem(item)
         self.count_changed.emit(sum(m.severity in ("problem", "warning") for m in self.messages))

@@ -5,7 +5,7 @@ __all__ = ["SitePanel", "elevation_for_pressure"]
 
 from PySide6.QtWidgets import QHBoxLayout, QWidget
 
-from thermo.atmosphere import standard_pressure
+from thermo.atmosphere import standard_elevation, standard_pressure
 from thermo.project.schema import PROJECT
 
 from app.document.paths import ABSENT
@@ -23,8 +23,9 @@ PRESSURE_MODES = [("pressure", "Barometric pressure"), ("elevation", "Elevation"
 
 
 def elevation_for_pressure(p_Pa: float) -> float:
-    """Elevation [m] whose ISO 2533 standard pressure is ``p_Pa``, by bisection on
-    :func:`thermo.atmosphere.standard_pressure`, limited to the schema's elevation range.
+    """Elevation [m] whose ISO 2533 standard pressure is ``p_Pa``
+    (:func:`thermo.atmosphere.standard_elevation`), limited to the schema's elevation range
+    and rounded to the millimetre.
 
     >>> round(elevation_for_pressure(standard_pressure(1234.0)), 3)
     1234.0
@@ -35,13 +36,7 @@ def elevation_for_pressure(p_Pa: float) -> float:
         return lo
     if p_Pa <= standard_pressure(hi):
         return hi
-    for _ in range(80):
-        mid = 0.5 * (lo + hi)
-        if standard_pressure(mid) > p_Pa:
-            lo = mid
-        else:
-            hi = mid
-    return round(0.5 * (lo + hi), 3)
+    return round(standard_elevation(p_Pa), 3)
 
 
 class SitePanel(FieldPanel):

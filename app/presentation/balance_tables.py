@@ -6,6 +6,8 @@
 * :data:`EXCHANGERS` — the PDF report's table of the coolers' exchangers (paths into a cooler).
 * :data:`ZONES` — the PDF report's table of the dry and wet zones of condensing coolers.
 * :data:`TOTALS` — the train's totals (paths into the result).
+* :data:`KEY_FIGURES` — the few figures an engineer looks for first (the window's key-figures
+  strip); :func:`key_figures` lays them out for one result, a cooler figure once per cooler.
 
 The balance sheet in the window (:mod:`app.panels.balance_panel`), ``stagewright solve``'s text
 table (:mod:`app.cli.solve_table`), the PDF report (:mod:`app.report.sections`) and the CSV
@@ -15,9 +17,12 @@ place one output lists it (each output keeps the order it has always had). No Qt
 """
 from __future__ import annotations
 
-__all__ = ["POINTS", "COMPONENTS", "EXCHANGERS", "ZONES", "TOTALS", "train_points", "component_rows"]
+__all__ = ["POINTS", "COMPONENTS", "EXCHANGERS", "ZONES", "TOTALS", "KEY_FIGURES", "KeyFigure", "LIQUID_COOLANTS",
+           "train_points", "component_rows", "cooler_name", "cooling_water_kg_s", "key_figures"]
 
-from app.presentation.figures import Figure, Look
+from dataclasses import dataclass
+
+from app.presentation.figures import Figure, Look, condition_holds, shown
 from app.presentation.result_notes import NEGATIVE_TIPS, TOTAL_TIPS
 
 _WINDOW, _PDF = {"window"}, {"pdf"}
@@ -135,9 +140,10 @@ _RESIDUAL = {"style": "scientific", "decimals": 2, "where": _NOT_CSV}
 #: the train's totals (paths into the result); the text table lower-cases a label's first letter
 TOTALS: tuple[Figure, ...] = (
     Figure("mass_flow_kg_s", "Mass flow", "mass_flow", where=_NOT_CSV),
-    Figure("free_air_delivery_m3_s", "Free air delivery", "volume_flow", where=_NOT_CSV),
-    Figure("normal_volume_flow_m3_s", "Normal volume flow", "volume_flow", where=_WINDOW_PDF,
-           looks={"pdf": Look(label="Normal volume flow (0 °C, 101.325 kPa)")}),
+    Figure("free_air_delivery_m3_s", "Free air delivery", "volume_flow", where=_NOT_CSV,
+           note=TOTAL_TIPS["free_air_delivery_m3_s"]),
+    Figure("normal_volume_flow_m3_s", "Normal volume flow", "normal_volume_flow", where=_WINDOW_PDF,
+           note=TOTAL_TIPS["normal_volume_flow_m3_s"], looks={"pdf": Look(label="Normal volume flow (0 °C, 101.325 kPa)")}),
     Figure("shaft_power_W", "Shaft power", "power", where=_NOT_CSV),
     Figure("driver_power_W", "Driver input power", "power", where=_NOT_CSV),
     Figure("specific_power_kW_per_m3_min", "Specific power", "specific_power", where=_NOT_CSV),
@@ -160,10 +166,6 @@ TOTALS: tuple[Figure, ...] = (
     Figure("delivered_pressure_dew_point_K", "Pressure dew point", "temperature", when="moist", where=_WINDOW),
     Figure("delivered_atmospheric_dew_point_K", "Atm. dew point", "temperature", when="moist", where=_WINDOW),
     Figure("iso8573_humidity_class", "ISO 8573-1 class", style="text", when="moist", where=_WINDOW),
-    Figure("energy_residual", "Energy closure residual", **_RESIDUAL,
-           looks={"text": Look(label="energy balance residual"), "pdf": Look(label="Energy balance closure")}),
-    Figure("exergy_residual", "Exergy closure residual", **_RESIDUAL,
-           looks={"text": Look(label="exergy balance residual"), "pdf": Look(label="Exergy balance closure")}),
     # issue 17: water, cooling water and heat recovery in every output (the window lists the first four above;
     # the CSV has the train's cooling water in the component columns' train row)
     Figure("condensate_kg_s", "Condensate", "water_flow", when="moist", where=_NOT_WINDOW,
@@ -180,6 +182,11 @@ TOTALS: tuple[Figure, ...] = (
            note="Water (or water–glycol) flow through all coolers with a liquid coolant, at their inlets"),
     Figure("recoverable_heat_W", "Recoverable heat", "heat_flow", when="any",
            note="Heat the project's heat recovery can deliver at its delivery temperature"),
+    # the closure residuals last: a check on the balance, not a figure of the design
+    Figure("energy_residual", "Energy closure residual", **_RESIDUAL,
+           looks={"text": Look(label="energy balance residual"), "pdf": Look(label="Energy balance closure")}),
+    Figure("exergy_residual", "Exergy closure residual", **_RESIDUAL,
+           looks={"text": Look(label="exergy balance residual"), "pdf": Look(label="Exergy balance closure")}),
 )
 
 
@@ -210,3 +217,109 @@ def component_rows(result: dict) -> list[tuple[str, str, int | None, dict]]:
             rows.append((f"cooler-{i}", "cooler", i, st["cooler"]))
     rows.append(("total", "train", None, result))
     return rows
+
+
+#: coolant kinds counted as cooling water (a water–glycol mix is still the plant's cooling-water circuit)
+LIQUID_COOLANTS = ("water", "glycol")
+
+#: the answer first: what an engineer looks for before the detail of the balance sheet (the
+#: window's key-figures strip and the report's first page, each its own ``where``). A figure
+#: whose key names the ``"cooler"`` row kind is shown once per cooler (:func:`key_figures`); the
+#: others read the result, plus ``cooling_water_kg_s`` (:func:`cooling_water_kg_s`).
+KEY_FIGURES: tuple[Figure, ...] = (
+    Figure("shaft_power_W", "Shaft power", "power", where=_WINDOW,
+           note="Power at the compressor shafts: the stages' power plus mechanical losses."),
+    Figure("driver_power_W", "Driver input power", "power", where=_WINDOW,
+           note="Electrical (or fuel) power into the driver: shaft power over the driver efficiency."),
+    Figure("specific_power_kW_per_m3_min", "Specific power", "specific_power", where=_WINDOW,
+           note="Driver input power per unit of free air delivery."),
+    Figure({"cooler": "duty_W"}, "duty", "heat_flow", id="cooler_duty", where=_WINDOW,
+           note="Heat the cooler takes out of the air (sensible and latent)."),
+    Figure("cooling_water_kg_s", "Cooling water", "water_flow", decimals=0, where=_WINDOW,
+           note="Water or water–glycol through the coolers that have a liquid coolant side."),
+    Figure("condensate_kg_s", "Condensate", "water_flow", when="moist", where=_WINDOW,
+           note="Water drained from the coolers' separators: it needs working drains and lawful disposal."),
+    Figure("delivered_pressure_dew_point_K", "Pressure dew point", "temperature", when="moist", where=_WINDOW,
+           note="Dew point of the delivered air at its own pressure (frost point below 0 °C)."),
+    # the report's first page: the answer as a client reads it (its own order and a few more figures)
+    Figure("driver_power_W", "Driver input power", "power", where=_PDF),
+    Figure("shaft_power_W", "Shaft power", "power", where=_PDF),
+    Figure("specific_power_kW_per_m3_min", "Specific power", "specific_power", where=_PDF,
+           note="driver input power per unit of free air delivery"),
+    Figure("free_air_delivery_m3_s", "Free air delivery", "volume_flow", where=_PDF),
+    Figure("mass_flow_kg_s", "Mass flow", "mass_flow", where=_PDF, note="of dry air"),
+    Figure("heat_rejected_W", "Heat rejected", "heat_flow", where=_PDF,
+           note="by the coolers, the stage casings and the mechanical losses"),
+    Figure("cooling_water_m3_s", "Cooling water", "water_volume_flow", when="any", where=_PDF,
+           note="through all coolers with a water or glycol side, at their inlets"),
+    Figure("condensate_kg_s", "Condensate drained", "water_flow", when="moist", where=_PDF),
+    Figure("condensate_L_h", "Condensate volume", "condensate_volume_flow", to_si=_L_H, when="moist", where=_PDF),
+    Figure("delivered_pressure_dew_point_K", "Pressure dew point", "temperature", when="moist", where=_PDF,
+           note="of the delivered air, at the delivery pressure"),
+    Figure("delivered_atmospheric_dew_point_K", "Atmospheric dew point", "temperature", when="moist", where=_PDF,
+           note="of the delivered air expanded to the site pressure"),
+    Figure("iso8573_humidity_class", "ISO 8573-1 humidity class", style="text", when="moist", where=_PDF),
+    Figure("recoverable_heat_W", "Recoverable heat", "heat_flow", when="any", where=_PDF,
+           note="at the heat recovery's delivery temperature"),
+)
+
+
+@dataclass(frozen=True)
+class KeyFigure:
+    """One key figure of one result: ``key`` (``"shaft_power_W"``, ``"cooler_duty-2"`` …), its
+    label, the :class:`Figure`, the dict to read it from and that row's kind, whether it applies
+    (False: e.g. the dew point of dry intake air, shown as missing) and where the balance sheet
+    details it: ``("totals", figure id)`` or ``("components", row key)`` (None: nowhere)."""
+
+    key: str
+    label: str
+    figure: Figure
+    container: dict
+    kind: str | None = None
+    applies: bool = True
+    detail: tuple[str, str] | None = None
+
+    def text(self, system: str = "SI", missing: str = "—") -> str:
+        """The value with its unit as the window shows it (``missing`` when absent or not applying)."""
+        if not self.applies:
+            return missing
+        return self.figure.text(self.container, "window", system, kind=self.kind, missing=missing, with_unit=True)
+
+
+def cooler_name(stage: int, stages: int) -> str:
+    """``"Intercooler 1"`` … or ``"Aftercooler"`` (the cooler after the last stage)."""
+    return "Aftercooler" if stage == stages else f"Intercooler {stage}"
+
+
+def cooling_water_kg_s(result: dict) -> float | None:
+    """Liquid coolant flow summed over the coolers with a water or water–glycol side (None: none has one)."""
+    flows = [c["coolant_flow_kg_s"] for c in (st.get("cooler") for st in result["stages"])
+             if c and c.get("coolant_kind") in LIQUID_COOLANTS and c.get("coolant_flow_kg_s") is not None]
+    return sum(flows) if flows else None
+
+
+def key_figures(result: dict) -> list[KeyFigure]:
+    """:data:`KEY_FIGURES` laid out for ``result`` (``TrainResult.to_dict()``), in table order.
+
+    A cooler figure becomes one entry per cooler (key ``"<id>-<stage>"``, label ``"Intercooler 1
+    duty"``); a figure whose condition does not hold (:attr:`Figure.when`) is kept with
+    ``applies=False``, so the strip keeps its shape.
+    """
+    source = dict(result, cooling_water_kg_s=cooling_water_kg_s(result))
+    coolers = [(row, i, c) for row, kind, i, c in component_rows(result) if kind == "cooler"]
+    liquid = [row for row, _i, c in coolers if c.get("coolant_kind") in LIQUID_COOLANTS]
+    totals = {f.id for f in TOTALS}
+    n = len(result["stages"])
+    out: list[KeyFigure] = []
+    for fig in shown(KEY_FIGURES, "window"):
+        if not isinstance(fig.key, str):  # a cooler figure: one per cooler
+            out += [KeyFigure(f"{fig.id}-{i}", f"{cooler_name(i, n)} {fig.label}", fig, cooler, "cooler",
+                              detail=("components", row)) for row, i, cooler in coolers]
+            continue
+        if fig.id in totals:
+            detail = ("totals", fig.id)
+        else:  # cooling water: the first cooler with a liquid coolant side (its coolant columns)
+            detail = ("components", (liquid + [row for row, _i, _c in coolers] + ["total"])[0])
+        out.append(KeyFigure(fig.id, fig.label, fig, source, applies=condition_holds(fig, "window", result),
+                             detail=detail))
+    return out

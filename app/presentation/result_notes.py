@@ -6,8 +6,13 @@ from __future__ import annotations
 
 __all__ = ["TOTAL_TIPS", "NEGATIVE_TIPS", "negative_notes"]
 
+from app.presentation.units import NORMAL_VOLUME_NOTE
+
 #: tooltips of the totals' labels: what the figure is
 TOTAL_TIPS = {
+    "normal_volume_flow_m3_s": NORMAL_VOLUME_NOTE,
+    "free_air_delivery_m3_s": "Free air delivery: the delivered flow as a volume at the site's intake state "
+                              "(ambient temperature, barometric pressure and humidity), ISO 1217.",
     "heat_exergy_W": "Exergy carried away by the heat the train rejects: Q\u00b7(1 \u2212 T0/Tb) for heat Q leaving "
                      "at boundary temperature Tb, with T0 the site ambient. Heat rejected at ambient carries none.",
 }

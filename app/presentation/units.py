@@ -13,9 +13,11 @@ Conversion factors are exact by definition (NIST SP 811, 2008 edition, Appendix 
 from __future__ import annotations
 
 __all__ = ["Unit", "SYSTEMS", "QUANTITIES", "OTHER_UNITS", "unit", "unit_named", "to_display", "to_si",
-           "format_value", "label"]
+           "format_value", "label", "NORMAL_VOLUME_NOTE"]
 
 from dataclasses import dataclass
+
+from thermo.flow import NORMAL_PRESSURE, NORMAL_TEMPERATURE
 
 _LB = 0.45359237
 _FT = 0.3048
@@ -51,6 +53,8 @@ QUANTITIES: dict[str, tuple[Unit, Unit]] = {
     "temperature_difference": (Unit("K", 1.0, 0.0, 2), Unit("°F", _R_PER_K, 0.0, 1)),
     "pressure": (Unit("bar", 1e5, 0.0, 4), Unit("psi", _PSI, 0.0, 2)),
     "pressure_difference": (Unit("kPa", 1e3, 0.0, 2), Unit("psi", _PSI, 0.0, 3)),
+    # a pressure stated gauge (above the site's barometric pressure) in the document, [Pa]
+    "gauge_pressure": (Unit("bar(g)", 1e5, 0.0, 4), Unit("psig", _PSI, 0.0, 2)),
     "specific_enthalpy": (Unit("kJ/kg", 1e3, 0.0, 2), Unit("Btu/lb", _BTU / _LB, 0.0, 2)),
     "specific_entropy": (Unit("kJ/(kg·K)", 1e3, 0.0, 4), Unit("Btu/(lb·°R)", _BTU / _LB / _R_PER_K, 0.0, 4)),
     "specific_heat": (Unit("J/(kg·K)", 1.0, 0.0, 1), Unit("Btu/(lb·°R)", _BTU / _LB / _R_PER_K, 0.0, 4)),
@@ -59,6 +63,8 @@ QUANTITIES: dict[str, tuple[Unit, Unit]] = {
     "entropy_rate": (Unit("W/K", 1.0, 0.0, 2), Unit("Btu/(h·°R)", _BTU / 3600.0 / _R_PER_K, 0.0, 2)),
     "mass_flow": (Unit("kg/s", 1.0, 0.0, 4), Unit("lb/min", _LB / 60.0, 0.0, 2)),
     "volume_flow": (Unit("m³/min", 1.0 / 60.0, 0.0, 3), Unit("cfm", _FT ** 3 / 60.0, 0.0, 1)),
+    # volume of dry air at the normal state (NORMAL_VOLUME_NOTE): the same reference in both systems
+    "normal_volume_flow": (Unit("Nm³/min", 1.0 / 60.0, 0.0, 3), Unit("scfm", _FT ** 3 / 60.0, 0.0, 1)),
     "specific_power": (Unit("kW/(m³/min)", 1.0, 0.0, 3),
                        Unit("kW/(100 cfm)", 1.0 / (100.0 * _FT ** 3 * 60.0 / 60.0), 0.0, 2)),
     "density": (Unit("kg/m³", 1.0, 0.0, 4), Unit("lb/ft³", _LB / _FT ** 3, 0.0, 5)),
@@ -90,6 +96,15 @@ OTHER_UNITS: dict[str, tuple[Unit, ...]] = {
     "energy": (Unit("MWh", 3.6e9, 0.0, 3),),
     "humidity_ratio": (Unit("kg/kg", 1.0, 0.0, 5),),
 }
+
+
+#: the reference state of Nm³/min and scfm (thermo.flow: DIN 1343 normal state, dry air)
+NORMAL_VOLUME_NOTE = (
+    f"Normal volume: the volume of the dry air at the DIN 1343 normal state, "
+    f"{NORMAL_TEMPERATURE - 273.15:g} °C and {NORMAL_PRESSURE / 1e5:g} bar(a) "
+    f"({(NORMAL_TEMPERATURE * 1.8 - 459.67):.0f} °F, {NORMAL_PRESSURE / _PSI:.3f} psia). Nm³/min and scfm "
+    "both refer to that state here; scfm is NOT at the 60 °F or 68 °F standard conditions some US "
+    "catalogues use, so compare such figures only after converting.")
 
 
 def unit(quantity: str, system: str = "SI", *, gauge: bool = False, barometric_Pa: float = 101_325.0) -> Unit:

@@ -2,25 +2,33 @@
 
 * :data:`YEAR_BINS` — the columns of the bin-by-bin table (paths into a bin dict).
 * :data:`YEAR_TOTALS` — the year's totals and extremes (paths into the year dict).
+* :data:`ONLY_WITH` and :func:`totals_for` — the totals a year has something to show for (no
+  cooling-water line for an air-cooled train, no recovered heat without heat recovery, no money
+  without prices).
 
 The year panel in the window (:mod:`app.year.panel`) and ``stagewright year``'s text table
 (:mod:`app.cli.year_table`) read them; each shows the figures its ``where`` names, in table order
 (a figure placed twice is shown at the place one output lists it). A year keeps energies in kWh:
 those figures carry ``to_si=3.6e6``. Money is in the currency of the prices the user gave and is
-shown as a plain number. No Qt.
+shown as a plain number (the window groups its thousands). No Qt.
 """
 from __future__ import annotations
 
-__all__ = ["YEAR_BINS", "YEAR_TOTALS"]
+__all__ = ["YEAR_BINS", "YEAR_TOTALS", "ONLY_WITH", "totals_for"]
 
+from collections.abc import Mapping
 from dataclasses import replace
+from types import MappingProxyType
 
-from app.presentation.figures import Figure, Look
+from app.presentation.figures import Figure, Look, read_path, shown
 
 _KWH = 3.6e6  # J per kWh
 _WINDOW, _TEXT = {"window"}, {"text"}
+#: money in the window: thousands grouped, whole units, no unit text (the currency is the user's)
+_MONEY = {out: Look(quantity="money", decimals=0, symbol="") for out in ("window", "pdf")}
 
 _DUTY = Figure("cooler_duty_W", "Cooler duty", "heat_flow", looks={"text": Look(label="duty", width=11)})
+_HOURS = Figure("totals.hours", "Operating hours", "hours")
 _CONDENSATE = Figure("condensate_m3", "Condensate", "liquid_volume", looks={"text": Look(label="condens.", width=15)})
 
 #: columns of the year's table, one row per bin (paths into a bin dict)
@@ -48,21 +56,53 @@ YEAR_BINS: tuple[Figure, ...] = (
     Figure("recoverable_heat_kWh", "Recoverable heat", "energy", to_si=_KWH, when="any", where={"pdf"}),
 )
 
-#: the year's totals and extremes (paths into the year dict), read by the text table (the window's
-#: year panel sums the year up in a sentence of its own); it lower-cases a label's first letter and
-#: prints a note in brackets after the value
+#: the year's totals and extremes (paths into the year dict). The text table lower-cases a label's
+#: first letter and prints a note in brackets after the value; the window's year panel lists the
+#: totals :func:`totals_for` keeps, with an extreme's bin after its value, and the hours last (what
+#: the year costs comes first in a short panel)
 YEAR_TOTALS: tuple[Figure, ...] = (
-    Figure("totals.hours", "Operating hours", "hours"),
+    replace(_HOURS, where=frozenset(_TEXT | {"pdf"})),
     Figure("totals.energy_kWh", "Energy", "energy", to_si=_KWH),
-    Figure("totals.energy_cost", "Energy cost", decimals=2),
+    Figure("totals.energy_cost", "Energy cost", decimals=2, looks=_MONEY),
     Figure("totals.condensate_m3", "Condensate", "liquid_volume"),
     Figure("totals.cooling_water_m3", "Cooling water", "liquid_volume", decimals=1, note="once-through volume"),
     Figure("totals.glycol_circulated_m3", "Glycol circulated", "liquid_volume", decimals=1),
-    Figure("totals.water_cost", "Cooling-water cost", decimals=2),
+    Figure("totals.water_cost", "Cooling-water cost", decimals=2, looks=_MONEY),
     Figure("totals.recoverable_heat_kWh", "Recoverable heat", "energy", to_si=_KWH),
-    Figure("totals.recovered_value", "Value of recovered heat", decimals=2),
-    Figure("totals.cost", "Net cost", decimals=2),
+    Figure("totals.recovered_value", "Value of recovered heat", decimals=2, looks=_MONEY),
+    Figure("totals.cost", "Net cost", decimals=2, looks=_MONEY),
     Figure("worst_discharge_temperature.temperature_K", "Worst discharge temperature", "temperature", decimals=1,
            bin_key="worst_discharge_temperature.bin"),
     Figure("worst_cooler_duty.duty_W", "Largest cooler duty", "heat_flow", bin_key="worst_cooler_duty.bin"),
+    replace(_HOURS, where=frozenset(_WINDOW)),
+    Figure("totals.mean_driver_power_W", "Mean driver power", "power", where=_WINDOW,
+           note="energy over the operating hours"),
 )
+
+#: totals a year may have nothing to show for: figure id → path into the year dict that is None or
+#: zero when the project lacks what the total counts (water coolers, a glycol circuit, heat
+#: recovery, prices); :func:`totals_for` leaves such a total out
+ONLY_WITH: Mapping[str, str] = MappingProxyType({
+    "totals.energy_cost": "totals.energy_cost",
+    "totals.cooling_water_m3": "totals.cooling_water_m3",
+    "totals.glycol_circulated_m3": "totals.glycol_circulated_m3",
+    "totals.water_cost": "totals.water_cost",
+    "totals.recoverable_heat_kWh": "bins[*].recoverable_heat_W",  # None in every bin without heat recovery
+    "totals.recovered_value": "totals.recovered_value",
+    "totals.cost": "totals.cost",
+})
+
+
+def totals_for(year: dict, output: str) -> list[Figure]:
+    """The figures of :data:`YEAR_TOTALS` that ``output`` shows for ``year``, in table order,
+    less those :data:`ONLY_WITH` finds nothing for.
+
+    Examples
+    --------
+    >>> year = {"totals": {"energy_kWh": 10.0, "cooling_water_m3": 0.0, "energy_cost": 1.5},
+    ...         "bins": [{"recoverable_heat_W": None}]}
+    >>> ids = [f.id for f in totals_for(year, "window")]
+    >>> "totals.cooling_water_m3" in ids, "totals.recoverable_heat_kWh" in ids, "totals.energy_cost" in ids
+    (False, False, True)
+    """
+    return [f for f in shown(YEAR_TOTALS, output) if f.id not in ONLY_WITH or read_path(year, ONLY_WITH[f.id])]

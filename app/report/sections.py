@@ -14,11 +14,14 @@ __all__ = ["ReportInfo", "inputs", "state_points_table", "components_table", "to
 
 from dataclasses import dataclass
 
+from thermo.project.delivery import GAUGE_KEY, delivery_pressure, stated_delivery
 from thermo.project.validation import normalise
 
 from app.presentation import balance_tables, staging_table, units
 from app.presentation.cautions import CAUTIONS, DEFERRAL
 from app.presentation.figures import Figure, condition_holds, shown
+from app.document.messages import limit_sentence, warning_text
+from app.document.field_specs import describe
 from app.presentation.result_notes import negative_notes
 from app.charts import draw_power_split, draw_staging_chart, draw_ts_chart
 from app.report.layout import Column, Pager, Table
@@ -66,7 +69,7 @@ def _entered(raw: dict, keys: tuple) -> bool:
 
 _FLOW_TEXT = {"mass": ("Mass flow", "mass_flow"),
               "free_air_delivery": ("Free air delivery (at intake conditions)", "volume_flow"),
-              "normal_volume": ("Normal volume flow (0 °C, 101.325 kPa)", "volume_flow"),
+              "normal_volume": ("Normal volume flow (0 °C, 101.325 kPa)", "normal_volume_flow"),
               "shaft_power": ("Shaft power (flow found from it)", "power")}
 
 
@@ -74,6 +77,17 @@ def _efficiency_text(eff: dict, system: str) -> str:
     if eff["kind"] == "discharge_temperature":
         return f"measured discharge {_with(eff['value_K'], 'temperature', system)}"
     return f"{eff['kind']} {Q(eff['value'], 'fraction', system)} %"
+
+
+def _delivery_text(norm: dict, p0: float, system: str) -> str:
+    """The delivery pressure as the project states it (gauge or absolute), then in the other basis."""
+    key, _value = stated_delivery(norm)
+    p_abs = delivery_pressure(norm, p0)
+    absolute = _with(p_abs, "pressure", system)
+    gauge = _with(p_abs, "pressure", system, gauge=True, barometric_Pa=p0)
+    if key == GAUGE_KEY:
+        return f"{gauge} stated as gauge  (= {absolute} at this site)"
+    return f"{absolute} stated as absolute  (= {gauge} at this site)"
 
 
 def inputs(p: Pager, doc: dict, result: dict, system: str) -> None:
@@ -101,8 +115,7 @@ def inputs(p: Pager, doc: dict, result: dict, system: str) -> None:
     rows.append(["Property model", model])
     name, quantity = _FLOW_TEXT[norm["flow"]["kind"]]
     rows.append([name, _with(norm["flow"]["value"], quantity, system)])
-    rows.append(["Discharge pressure", f"{_with(norm['discharge_pressure_Pa'], 'pressure', system)}  = "
-                 f"{_with(norm['discharge_pressure_Pa'], 'pressure', system, gauge=True, barometric_Pa=p0)}"])
+    rows.append(["Discharge pressure", _delivery_text(norm, p0, system)])
     rows.append(["Intake filter pressure drop", _with(norm["inlet_pressure_drop_Pa"], "pressure_difference", system)
                  + ("" if _entered(doc, ("inlet_pressure_drop_Pa",)) else " (default)")])
     rows.append(["Driver efficiency", f"{Q(norm['driver']['efficiency'], 'fraction', system)} %"
@@ -278,19 +291,20 @@ def charts(p: Pager, doc: dict, result: dict, system: str) -> None:
     p.charts("Where the power goes", [(lambda f: draw_power_split(f, result, system), 4.6 if tall else 3.9)])
 
 
-def warnings(p: Pager, result: dict) -> None:
+def warnings(p: Pager, result: dict, system: str = "SI", doc: dict | None = None) -> None:
     p.heading("Warnings", keep_with=0.5)
     items = result.get("warnings") or []
     if not items:
         p.paragraph("The solve raised no warnings.")
         return
     p.table(Table("", [Column("Message", align="left", wrap=True), Column("Input", align="left")],
-                  [[w["message"], w["field"]] for w in items]))
+                  [[warning_text(w, doc, system), describe(w["field"], doc or {}) if w.get("field") else ""]
+                   for w in items]))
 
 
-def _remark(row: dict) -> str:
-    """Why an arrangement is limited: its binding limits' messages, or a given reason."""
-    msgs = [b.get("message", "") for b in row.get("binding_limits") or [] if b.get("message")]
+def _remark(row: dict, system: str = "SI") -> str:
+    """Why an arrangement is limited: its binding limits in display units, or a given reason."""
+    msgs = [limit_sentence(b, None, system) for b in row.get("binding_limits") or [] if b.get("message")]
     if row.get("reason"):
         msgs.insert(0, str(row["reason"]))
     return "; ".join(msgs)
@@ -305,7 +319,7 @@ def staging(p: Pager, study_rows: list[dict] | None, system: str, limit_K=None) 
     figures = _pdf_columns(staging_table.STAGING, None, [(None, r) for r in ordered])
     cols = [_column(f, system) for f in figures]
     rows = [[f.text(r, _PDF, system) for f in figures] for r in ordered]
-    remarks = [_remark(r) for r in ordered]
+    remarks = [_remark(r, system) for r in ordered]
     notes = {r.get("note") for r in study_rows if r.get("note")}
     p.table(Table("Arrangements compared", cols, rows, note=" ".join(sorted(notes)), row_notes=remarks))
 

@@ -1,7 +1,7 @@
 """The report's first page: what a client reads first.
 
 The project and who prepared the report with which versions of Stagewright and CoolProp; the
-site and the duty in one line each; the answer (:data:`app.presentation.summary_table.SUMMARY`:
+site and the duty in one line each; the answer (:data:`app.presentation.balance_tables.KEY_FIGURES` shown in the PDF:
 power, specific power, heat, cooling water, condensate, dew point); each stage and cooler in one
 row (:data:`~app.presentation.summary_table.SUMMARY_TRAIN`); and the warnings. The full inputs
 and balance sheet start on the next page. No Qt.
@@ -12,8 +12,8 @@ __all__ = ["summary_page", "site_text", "duty_text"]
 
 from thermo.project.validation import normalise
 
-from app.presentation import summary_table, units
-from app.presentation.figures import condition_holds
+from app.presentation import balance_tables, summary_table, units
+from app.presentation.figures import condition_holds, shown
 from app.report.layout import Column, Pager, Table
 from app.report.sections import ReportInfo, warnings
 
@@ -111,10 +111,10 @@ def summary_page(p: Pager, doc: dict, result: dict, info: ReportInfo) -> None:
     p.table(_two_pairs(_prepared(info, result)))
     p.table(_key_values([["Site", site_text(doc, result, system)], ["Duty", duty_text(doc, result, system)]],
                         "Site and duty"))
-    figures = [f for f in summary_table.SUMMARY if condition_holds(f, _PDF, result)]
+    figures = [f for f in shown(balance_tables.KEY_FIGURES, _PDF) if condition_holds(f, _PDF, result)]
     table = _two_pairs([[f.label_in(_PDF), f.text(result, _PDF, system, with_unit=True)] for f in figures], "Result")
     table.note = " ".join(f"{f.label_in(_PDF)}: {f.note}." for f in figures if f.note)
     p.table(table)
     p.table(_train_table(result, system))
-    warnings(p, result)
+    warnings(p, result, system, doc)
     p.new_page()

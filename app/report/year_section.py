@@ -52,8 +52,8 @@ def year_at_site(p: Pager, year: dict | None, system: str, limit_K: float | None
                   rows, note="Energy is the driver's input over the bin's operating hours; condensate and "
                              "cooling water are volumes over those hours; the hottest discharge is that of the "
                              "hottest stage."))
-    totals = [[f.label_in(_PDF), _total_text(f, year, system)] for f in shown(year_tables.YEAR_TOTALS, _PDF)
+    totals = [[f.label_in(_PDF), _total_text(f, year, system)] for f in year_tables.totals_for(year, _PDF)
               if f.value(year) is not None]
-    notes = " ".join(f"{f.label_in(_PDF)}: {f.note}." for f in shown(year_tables.YEAR_TOTALS, _PDF) if f.note)
+    notes = " ".join(f"{f.label_in(_PDF)}: {f.note}." for f in year_tables.totals_for(year, _PDF) if f.note)
     p.table(Table("The year", [Column("", align="left"), Column("", align="left", wrap=True)], totals,
                   header=False, note=("Money is in the currency of the prices given in the project. " + notes).strip()))

@@ -8,6 +8,6 @@ Qt: ``worker`` (StudyController: the study thread, progress, cancel) · ``panel`
 dock: composes the three pieces below, runs the study, keeps its answer, publishes its messages)
 · ``controls`` (inputs, Run/Cancel, progress and status, Apply) · ``options_table`` (the options
 table: cells, the picked option, whether it can be applied) · ``chart_view`` (the staging chart
-canvas and toolbar) · ``tab`` (the charts area's Staging study tab: the same chart and table,
-large) · ``ops`` (StudyLink: the panel's runs in the status bar and the charts area's tab).
+canvas and toolbar) · ``ops`` (StudyLink: the panel's runs in the status bar). The study is shown
+in its panel only (Train ▸ Run staging study raises it).
 """

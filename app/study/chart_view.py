@@ -1,7 +1,8 @@
 """The staging chart on screen: driver power and discharge temperature against the number of
 stages, drawn by :func:`app.charts.draw_staging_chart` on a matplotlib canvas with its
-navigation toolbar (never pyplot). The study panel shows it small, beside its table, with a hint
-until a study has run; the charts area's Staging study tab shows it large.
+navigation toolbar (never pyplot). The study panel shows it beside its table (or on a tab of its
+own when the panel is narrow), with a hint until a study has run; matplotlib is imported only
+when the first chart is drawn.
 """
 from __future__ import annotations
 
@@ -14,37 +15,28 @@ from PySide6.QtWidgets import QLabel, QStackedWidget, QVBoxLayout, QWidget
 class StagingChartView(QStackedWidget):
     """One staging chart; ``show_rows(rows, system, limit_K)`` draws it.
 
+    The chart has no title of its own: the panel is its heading.
+
     Parameters
     ----------
-    hint : str, optional
-        Shown instead of the chart while there is nothing to draw; with a hint, matplotlib is
-        imported only when the first chart is drawn. Without one, the (empty) canvas is made at once.
-    titled : bool
-        The chart's own title above the axes (False where the chart sits under a heading of its own).
-    figsize : (float, float)
-        Figure size, [in].
-    min_size : (int, int)
-        Smallest canvas, [px].
+    hint : str
+        Shown instead of the chart while there is nothing to draw.
     icon_px : int, optional
         Size of the toolbar's icons (None: matplotlib's own).
     """
 
-    def __init__(self, hint: str | None = None, *, titled: bool = False, figsize=(4.5, 3.0),
-                 min_size=(240, 160), icon_px: int | None = None, parent=None):
+    _FIGSIZE, _MIN_SIZE = (4.5, 3.0), (240, 160)  # [in], [px]
+
+    def __init__(self, hint: str, *, icon_px: int | None = None, parent=None):
         super().__init__(parent)
         self.figure = self.canvas = self.toolbar = None
         self._chart: QWidget | None = None
-        self._titled = titled
-        self._figsize, self._min_size, self._icon_px = figsize, min_size, icon_px
+        self._icon_px = icon_px
         self._shown: tuple = ([], "SI", None)  # rows, system, limit_K last shown
-        self.hint = None
-        if hint:
-            self.hint = QLabel(hint)
-            self.hint.setAlignment(Qt.AlignCenter)
-            self.hint.setObjectName("footNote")
-            self.addWidget(self.hint)
-        else:
-            self._make_canvas()
+        self.hint = QLabel(hint)
+        self.hint.setAlignment(Qt.AlignCenter)
+        self.hint.setObjectName("footNote")
+        self.addWidget(self.hint)
         self._redraw = QTimer(self)  # the legend's columns follow the canvas width
         self._redraw.setSingleShot(True)
         self._redraw.setInterval(80)
@@ -57,9 +49,9 @@ class StagingChartView(QStackedWidget):
         v = QVBoxLayout(holder)
         v.setContentsMargins(0, 0, 0, 0)
         v.setSpacing(0)
-        self.figure = Figure(figsize=self._figsize)
+        self.figure = Figure(figsize=self._FIGSIZE)
         self.canvas = FigureCanvasQTAgg(self.figure)
-        self.canvas.setMinimumSize(*self._min_size)
+        self.canvas.setMinimumSize(*self._MIN_SIZE)
         self.canvas.installEventFilter(self)
         self.toolbar = NavigationToolbar2QT(self.canvas, holder)
         if self._icon_px:
@@ -76,9 +68,9 @@ class StagingChartView(QStackedWidget):
 
     def show_rows(self, rows: list[dict], system: str, limit_K: float | None = None) -> None:
         """Draw ``rows`` in ``system``'s units, with the discharge-temperature limit ``limit_K`` [K];
-        no rows: the hint (if there is one)."""
+        no rows: the hint."""
         self._shown = (list(rows), system, limit_K)
-        if not rows and self.hint is not None:
+        if not rows:
             self.setCurrentWidget(self.hint)
             return
         if self.canvas is None:
@@ -89,8 +81,7 @@ class StagingChartView(QStackedWidget):
     def _draw(self) -> None:
         from app.charts import draw_staging_chart
         rows, system, limit_K = self._shown
-        kw = {} if self._titled else {"title": None}
-        draw_staging_chart(self.figure, rows, system, limit_K=limit_K, **kw)
+        draw_staging_chart(self.figure, rows, system, limit_K=limit_K, title=None)
         self.canvas.draw_idle()
 
     def _on_resized(self) -> None:

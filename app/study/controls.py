@@ -6,7 +6,7 @@ A narrow column that scrolls rather than cutting fields off. It reads the inputs
 """
 from __future__ import annotations
 
-__all__ = ["StudyControls", "study_stage_count"]
+__all__ = ["StudyControls", "study_stage_count", "RUNNING_MAX"]
 
 from PySide6.QtCore import QSize, Qt
 from PySide6.QtWidgets import (QComboBox, QDoubleSpinBox, QFormLayout, QFrame, QHBoxLayout, QLabel, QLineEdit,
@@ -17,6 +17,10 @@ from thermo.study import DEFAULT_ENERGY_PRICE, DEFAULT_OPERATING_HOURS, MAX_STAG
 from app.presentation import units
 from app.study.display import VARIABLES, format_values, parse_values
 from app.study.job import StudyRequest
+
+
+#: the most a running study's bar shows: 100 % only once the answer is in
+RUNNING_MAX = 0.99
 
 
 def study_stage_count(n_stages: int) -> int:
@@ -61,6 +65,7 @@ class StudyControls(QScrollArea):
         self.progress.setTextVisible(True)
         self.progress.setFormat("%p%")
         self.progress.setMaximumHeight(16)
+        self.fraction = 0.0  # the share of the study done, as last shown
         col.addWidget(self.progress)
         self.status = QLabel("Not run yet.")
         self.status.setWordWrap(True)
@@ -171,8 +176,19 @@ class StudyControls(QScrollArea):
     def set_status(self, text: str) -> None:
         self.status.setText(text)
 
-    def set_progress(self, fraction: float) -> None:
-        self.progress.setValue(int(round(1000 * fraction)))
+    def set_progress(self, fraction: float | None, *, finished: bool = False) -> None:
+        """Show how much of the study is done.
+
+        ``None``: a study started and has measured nothing yet (a busy bar). A running study's
+        ``fraction`` (the share of its options optimised) stops at :data:`RUNNING_MAX`: its
+        answer is still to be gathered and shown; ``finished`` (the answer is in) shows it in full.
+        """
+        if fraction is None:
+            self.progress.setRange(0, 0)
+            return
+        self.fraction = fraction if finished else min(fraction, RUNNING_MAX)
+        self.progress.setRange(0, 1000)
+        self.progress.setValue(int(round(1000 * self.fraction)))
 
     def set_inputs_enabled(self, on: bool) -> None:
         """Inputs are locked while a study runs."""

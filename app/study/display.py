@@ -17,6 +17,7 @@ from dataclasses import dataclass
 from app.presentation import staging_table, units
 from app.presentation.cautions import CAUTIONS
 from app.presentation.figures import Figure, shown
+from app.document.messages import limit_sentence, limit_short
 from app.study.apply import project_field
 
 _CAUTION = dict(CAUTIONS)
@@ -60,7 +61,7 @@ def header(col: Column, system: str) -> str:
 def cells(row: dict, system: str) -> dict[str, str]:
     """Text of every column of one comparison row, in display units (binding limits summed up
     by :func:`limit_summary`)."""
-    return {col.key: limit_summary(row) if col.key == "limits" else col.figure.text(row, _OUT, system)
+    return {col.key: limit_summary(row, system) if col.key == "limits" else col.figure.text(row, _OUT, system)
             for col in columns()}
 
 
@@ -76,7 +77,7 @@ def tooltip(row: dict, key: str, system: str) -> str:
         return (f"{row['saving_kWh_per_year']:,.0f} kWh per year at {row['operating_hours_per_year']:g} h per year "
                 f"and {row['energy_price_per_kWh']:g} per kWh").replace(",", " ")
     if key in ("limits", "feasible") and row.get("binding_limits"):
-        return "\n".join(b.get("message", "") for b in row["binding_limits"])
+        return "\n".join(_message(b, row["stages"], system, {}) for b in row["binding_limits"])
     if key == "temperatures" and row.get("max_discharge_temperature_K") is not None:
         return f"Highest: {f(row['max_discharge_temperature_K'], 'temperature', system, True)}"
     return ""
@@ -97,11 +98,17 @@ _SHORT = {"temperature": "discharge-temperature limit", "min_ratio": "lowest pre
           "pressure": "discharge pressure", "other": "solve"}
 
 
-def limit_summary(row: dict) -> str:
-    """Short text of a row's binding limits: ``"discharge-temperature limit active"``."""
+def limit_summary(row: dict, system: str = "SI") -> str:
+    """Short text of a row's binding limits: ``"discharge-temperature limit active"``; a limit
+    not met names the value and the limit in display units (``"Stage 1 discharge 346 °C >
+    200 °C limit"``)."""
     out = []
     for b in row.get("binding_limits") or []:
-        text = f"{_SHORT[_kind(b.get('field', ''))]} {'not met' if b.get('status') == 'violated' else 'active'}"
+        violated = b.get("status") == "violated"
+        if violated and _kind(b.get("field", "")) == "temperature" and isinstance(b.get("value"), (int, float)):
+            text = limit_short(b, None, system)
+        else:
+            text = f"{_SHORT[_kind(b.get('field', ''))]} {'not met' if violated else 'active'}"
         if text not in out:
             out.append(text)
     return "; ".join(out) if out else "—"
@@ -153,8 +160,10 @@ def _message(b: dict, n: int, system: str, pkw: dict) -> str:
                     f"delivers at most {p(need)}; add stages.")
         return (f"{opt} overshoots the discharge pressure of {p(lim)}: even at its smallest stage ratios it "
                 f"delivers at least {p(need)}; use fewer stages.")
-    text = b.get("message", "") or "limits not met"
-    return f"{opt}: {text[:1].upper() + text[1:]}."
+    if b.get("detail") or b.get("message"):
+        text = limit_sentence(b, None, system, **pkw)
+        return f"{opt}: {text[:1].upper() + text[1:]}"
+    return f"{opt}: limits not met."
 
 
 def limit_messages(rows: list[dict], project_stages: int, system: str = "SI", *, gauge: bool = False,

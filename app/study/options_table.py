@@ -1,8 +1,7 @@
 """The study's options as a table: one row per number of stages, every figure in display units.
 
 :class:`OptionsTable` is the study panel's comparison, where an option is picked for Apply (the
-least-power option within the limits in bold, options that miss their limits greyed); the charts
-area's Staging study tab (:mod:`app.study.tab`) shows its summary columns in the same widget.
+least-power option within the limits in bold, options that miss their limits greyed).
 :func:`apply_state` says whether the picked option can be applied, and why not;
 :func:`comparison_note` is the line above the panel's table. Cell texts, headers and tooltips come
 from :mod:`app.study.display`.
@@ -11,14 +10,13 @@ from __future__ import annotations
 
 __all__ = ["OptionsTable", "apply_state", "best_row", "comparison_note"]
 
-from typing import Callable
-
 from PySide6.QtCore import Qt
 from PySide6.QtGui import QColor
 from PySide6.QtWidgets import QAbstractItemView, QHeaderView, QTableWidget, QTableWidgetItem
 
-from app.study.display import COLUMNS, Column, cells as option_cells, header, tooltip
+from app.study.display import COLUMNS, cells as option_cells, header, tooltip
 from app.widgets.signals_blocked import signals_blocked
+from app.widgets.table_copy import attach_table_copy
 
 _INFEASIBLE = QColor("#8a96a3")
 _LEFT = frozenset({"ratios", "temperatures", "limits", "feasible"})  # words and lists; numbers right
@@ -62,37 +60,22 @@ def apply_state(row: dict | None, answer: dict | None, busy: bool, stale: bool) 
 
 
 class OptionsTable(QTableWidget):
-    """Study options, one row each (SI rows of :meth:`thermo.study.StagingComparison.rows`).
+    """Study options, one row each (SI rows of :meth:`thermo.study.StagingComparison.rows`), in
+    the columns of :data:`app.study.display.COLUMNS` (headers name over unit).
 
-    Parameters
-    ----------
-    columns : list of Column
-        What to show (keys of ``cells``' answer); headers are name over unit.
-    cells : callable
-        ``cells(row, system) -> {column key: text}``.
-    left : set of str
-        Keys of the columns aligned left (words and lists); the others, numbers, align right.
-    pickable : bool
-        The panel's table: whole rows selected, one at a time (the option to apply), the best
-        option in bold, options that miss their limits greyed, alternating row colours. Without
-        it, a plain summary.
+    Whole rows are picked, one at a time (the option to apply); the best option is in bold, options
+    that miss their limits are greyed, rows alternate in colour.
     """
 
-    def __init__(self, columns: list[Column] = COLUMNS,
-                 cells: Callable[[dict, str], dict[str, str]] = option_cells, *, left: frozenset = _LEFT,
-                 pickable: bool = True, parent=None):
-        super().__init__(0, len(columns), parent)
-        self.columns = list(columns)
-        self._cells = cells
-        self._left = frozenset(left)
-        self.pickable = pickable
+    def __init__(self, parent=None):
+        super().__init__(0, len(COLUMNS), parent)
+        self.columns = list(COLUMNS)
         self.rows: list[dict] = []
         self.setEditTriggers(QAbstractItemView.NoEditTriggers)
-        if pickable:
-            self.setObjectName("studyTable")
-            self.setSelectionBehavior(QAbstractItemView.SelectRows)
-            self.setSelectionMode(QAbstractItemView.SingleSelection)
-            self.setAlternatingRowColors(True)
+        self.setObjectName("studyTable")
+        self.setSelectionBehavior(QAbstractItemView.SelectRows)
+        self.setSelectionMode(QAbstractItemView.SingleSelection)
+        self.setAlternatingRowColors(True)
         self.verticalHeader().setVisible(False)
         self.verticalHeader().setDefaultSectionSize(22)
         self.horizontalHeader().setSectionResizeMode(QHeaderView.ResizeToContents)
@@ -102,6 +85,7 @@ class OptionsTable(QTableWidget):
             item = QTableWidgetItem()
             item.setToolTip(col.tip)
             self.setHorizontalHeaderItem(i, item)
+        attach_table_copy(self)  # Ctrl+C and Copy table: tab-separated text for a spreadsheet
 
     # ---- reading -------------------------------------------------------------------------
     def column(self, key: str) -> int:
@@ -130,28 +114,28 @@ class OptionsTable(QTableWidget):
 
     # ---- showing -------------------------------------------------------------------------
     def show_rows(self, rows: list[dict], system: str) -> None:
-        """Show ``rows`` in ``system``'s units; a pickable table keeps the picked number of stages
-        (else picks the best option). Filling it does not announce a selection change."""
+        """Show ``rows`` in ``system``'s units, keeping the picked number of stages (else picking
+        the best option). Filling it does not announce a selection change."""
         self.rows = list(rows)
         for i, col in enumerate(self.columns):
             # a name already on two lines needs no empty unit line under it
             two_lines = col.quantity is None and "\n" in col.name
             self.horizontalHeaderItem(i).setText(col.name if two_lines else header(col, system))
-        picked = self.selected_row() if self.pickable else None
+        picked = self.selected_row()
         keep = picked["stages"] if picked else None
-        best = best_row(self.rows) if self.pickable else None
+        best = best_row(self.rows)
         with signals_blocked(self):
             self.setRowCount(len(self.rows))
             for r, row in enumerate(self.rows):
                 self._fill(r, row, system, bold=r == best)
-        if self.pickable and self.rows:
+        if self.rows:
             want = keep if keep is not None else (self.rows[best]["stages"] if best is not None else None)
             target = next((i for i, row in enumerate(self.rows) if row["stages"] == want), None)
             if target is not None:
                 self.selectRow(target)
 
     def _fill(self, r: int, row: dict, system: str, bold: bool) -> None:
-        texts = self._cells(row, system)
+        texts = option_cells(row, system)
         for c, col in enumerate(self.columns):
             item = self.item(r, c)
             if item is None:
@@ -159,9 +143,7 @@ class OptionsTable(QTableWidget):
                 self.setItem(r, c, item)
             item.setText(texts[col.key])
             item.setToolTip(tooltip(row, col.key, system))
-            item.setTextAlignment((Qt.AlignLeft if col.key in self._left else Qt.AlignRight) | Qt.AlignVCenter)
-            if not self.pickable:
-                continue
+            item.setTextAlignment((Qt.AlignLeft if col.key in _LEFT else Qt.AlignRight) | Qt.AlignVCenter)
             font = item.font()
             font.setBold(bold)
             item.setFont(font)

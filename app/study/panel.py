@@ -19,6 +19,7 @@ from PySide6.QtWidgets import (QComboBox, QDockWidget, QHBoxLayout, QLabel, QSiz
 from thermo.study.options import staging_note
 
 from app.presentation import units
+from app.document.messages import error_text
 from app.study.apply import apply_text, option_stages, study_key
 from app.study.chart_view import StagingChartView
 from app.study.controls import StudyControls
@@ -50,18 +51,12 @@ class StudyPanel(QWidget):
     messages_changed(source, messages)
         ``("study", [Message, ...])`` whenever the study's messages change (the window hands
         them to the messages area).
-    shown_changed()
-        The options shown changed (a new answer, another case, other units).
-    stale_changed(stale)
-        The project changed so that the study no longer describes it, or back.
     run_started(max_stages)
         A study started, comparing 1 to ``max_stages`` stages.
     """
 
     title = "Staging study"
     messages_changed = Signal(str, object)
-    shown_changed = Signal()  #: the rows shown (and so the chart) changed
-    stale_changed = Signal(bool)  #: the study stopped (True) or started again (False) to fit the project
     run_started = Signal(int)  #: a study started, comparing 1 to this many stages
 
     def __init__(self, editor, parent=None):
@@ -75,7 +70,6 @@ class StudyPanel(QWidget):
         self._pending: tuple | None = None  # (doc, key, variable, values) of the running job
         self.messages: list[Message] = []
         self._failure: tuple | None = None  # (message, study key) of a study that could not run
-        self._was_stale = False
         self._build()
         c = self.controller
         c.progress.connect(self._on_progress)
@@ -233,7 +227,7 @@ class StudyPanel(QWidget):
             return
         self._pending = (doc, study_key(doc), req.variable, req.values)
         self._failure = None
-        self.controls.set_progress(0.0)
+        self.controls.set_progress(None)  # busy until the study reports its first option
         self.controller.run(req)
         what = (f"{len(req.values)} value(s) of {VARIABLES[req.variable][0].lower()}, " if req.variable else "")
         self._set_status(f"Running: {what}1 to {req.max_stages} stages…")
@@ -273,20 +267,24 @@ class StudyPanel(QWidget):
 
     def _on_progress(self, job: int, fraction: float, message: str) -> None:
         self.controls.set_progress(fraction)
-        if self._pending and self._pending[2] and fraction < 1.0:
+        if fraction >= 1.0:  # every option optimised; the answer is not in yet
+            self._set_status("Every option optimised: putting the table together…")
+            return
+        if self._pending and self._pending[2]:
             values = self._pending[3]
             k = min(int(fraction * len(values)), len(values) - 1)
             message = f"{case_label(self._pending[2], values[k], self.editor.prefs.system)}: " \
                       f"{message.rsplit(': ', 1)[-1]}"
-        self._set_status(message[:1].upper() + message[1:] + "…" if fraction < 1.0 else message)
+        self._set_status(message[:1].upper() + message[1:] + "…")
 
     def _on_finished(self, job: int, answer: dict, seconds: float) -> None:
-        self.controls.set_progress(1.0)
+        self.controls.set_progress(1.0, finished=True)
         self._accept(answer)
         n = sum(len(c["rows"]) for c in answer["cases"])
         self._set_status(f"Compared {n} option(s) in {seconds:.1f} s." + self._best_text())
 
     def _on_cancelled(self, job: int, answer: dict, message: str) -> None:
+        self.controls.set_progress(self.controls.fraction)  # what was done (never a busy bar)
         self._accept(answer)
         self._set_status(f"Cancelled: {message[:1].upper() + message[1:]}." if answer["cases"]
                          else "Cancelled before the first option was finished.")
@@ -296,6 +294,9 @@ class StudyPanel(QWidget):
         self._pending = None
         self.answer, self._doc, self._key = None, None, ""
         self.controls.set_progress(0.0)
+        ed = self.editor
+        message = error_text(message, field, self.controller.failure_detail, ed.model.doc, ed.prefs.system,
+                             gauge=ed.prefs.gauge, barometric_Pa=ed.barometric_Pa())
         field = "" if field in _STUDY_INPUTS else field
         self._failure = (Message("problem", f"The staging study could not run: {message}", field),
                          key)
@@ -327,7 +328,6 @@ class StudyPanel(QWidget):
             self._set_status(f"{self.case.currentText()}: not solved: {case['error']}")
         self.chart.show_rows(self.rows, system, self._limit_K() if self.rows else None)
         self._update_state()
-        self.shown_changed.emit()
 
     def _limit_K(self) -> float | None:
         """The first stage's discharge-temperature limit in the document the study ran on [K]."""
@@ -385,9 +385,6 @@ class StudyPanel(QWidget):
             act.setToolTip(why)
             act.setStatusTip(why)
         self.controls.set_inputs_enabled(not busy)
-        if stale != self._was_stale:
-            self._was_stale = stale
-            self.stale_changed.emit(stale)
         self.banner.setVisible(stale)
         self.table.set_stale(stale)
         self._publish(self._messages())

@@ -5,6 +5,10 @@ only the newest job's progress and answer are passed on. Each job has its own
 ``threading.Event``: Cancel sets it and the study stops before its next trial solve
 (``thermo.study`` checks it), answering ``cancelled`` with what it had finished. Errors
 become a ``failed`` signal with the reason and the field path.
+
+Progress is the study's own (the share of its options finished), with the trial solves of the
+option being optimised counted in between (:class:`app.study.job.TrialProgress`). A fraction
+of 1 means every option is optimised, not that the answer is in: the answer is ``finished``.
 """
 from __future__ import annotations
 
@@ -16,13 +20,14 @@ from typing import Callable
 from PySide6.QtCore import Signal
 
 from app.jobs.job_runner import JobCancelled, JobRunner
-from app.study.job import StudyRequest, partial_answer, run_request
+from app.study.job import StudyRequest, TrialProgress, partial_answer, run_request
 
 
 def _study(request: StudyRequest, report: Callable[[float, str], None], cancel: threading.Event) -> dict:
     from thermo.study import StudyCancelled
+    progress = TrialProgress(report, cancel)
     try:
-        return run_request(request, report, cancel)
+        return run_request(request, progress.report, progress.cancel)
     except StudyCancelled as exc:
         raise JobCancelled(partial_answer(request, exc.partial, str(exc)), str(exc)) from None
 

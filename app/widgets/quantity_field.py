@@ -137,10 +137,7 @@ class QuantityField(QWidget):
             self.editor.set_entry_error(self.path, None)
         u = self._unit()
         self.unit_label.setText(u.symbol)
-        value = self.editor.model.get(self.path)
-        if value is ABSENT or value is None:
-            norm = _normalised_default(self.editor, self.path)
-            value = norm
+        value = self.shown_si()
         if value is ABSENT or value is None:
             full = rounded = ""
         elif isinstance(value, (int, float)) and not isinstance(value, bool):
@@ -169,6 +166,17 @@ class QuantityField(QWidget):
                 self._show(self._rounded_text)
         return False
 
+    def shown_si(self):
+        """The value shown, in SI in the basis of :meth:`_unit`: the document's, else the schema default."""
+        value = self.editor.model.get(self.path)
+        if value is ABSENT or value is None:
+            value = _normalised_default(self.editor, self.path)
+        return value
+
+    def write_si(self, si: float) -> bool:
+        """Put a typed value (SI, basis of :meth:`_unit`) into the document as one undo step."""
+        return self.editor.set_value(self.path, si)
+
     def _fit(self, text: str) -> None:
         """Widen the field so that a shown value is never cut off (leading digits matter)."""
         needed = self.edit.fontMetrics().horizontalAdvance(text + "00") + 12
@@ -176,7 +184,7 @@ class QuantityField(QWidget):
 
     def update_mark(self) -> None:
         """Mark the field red with the reason as tooltip when the editor knows a problem with it."""
-        message = self.editor.problem_for(self.path)
+        message = self.problem_message()
         invalid = message is not None
         if self.edit.property("invalid") != invalid:
             self.edit.setProperty("invalid", invalid)
@@ -184,6 +192,10 @@ class QuantityField(QWidget):
             self.edit.style().polish(self.edit)
         exact = f"{self._full_text} {self.unit_label.text()}".strip() if self._full_text else ""
         self.edit.setToolTip(message or exact)
+
+    def problem_message(self) -> str | None:
+        """The editor's problem with this field's value, or None."""
+        return self.editor.problem_for(self.path)
 
     # ---- editing -------------------------------------------------------------------------
     def commit(self) -> None:
@@ -212,7 +224,7 @@ class QuantityField(QWidget):
             return
         si = float(f"{self._unit().to_si(shown):.{ENTRY_DIGITS}g}")
         self.editor.set_entry_error(self.path, None)
-        changed = self.editor.set_value(self.path, si)
+        changed = self.write_si(si)
         if not changed:
             self.refresh()
         self.committed.emit(self.path)

@@ -24,7 +24,7 @@ class ChartTab(QWidget):
         self._draw = draw
         self.figure = Figure(figsize=(6, 4))
         self.canvas = FigureCanvasQTAgg(self.figure)
-        self.canvas.setMinimumSize(420, 280)
+        self.canvas.setMinimumSize(420, 220)  # with the key figures above, a 768-pixel screen still fits
         self.toolbar = NavigationToolbar2QT(self.canvas, self)
         lay = QVBoxLayout(self)
         lay.setContentsMargins(0, 0, 0, 0)
@@ -57,7 +57,7 @@ class ChartsPanel(QWidget):
         self.tabs = QTabWidget()
         self.tabs.setDocumentMode(True)
         lay.addWidget(self.tabs, 1)
-        self.ts = self.power = self.study = None
+        self.ts = self.power = None
         self._placeholder = QLabel("Preparing charts…")
         self._placeholder.setAlignment(Qt.AlignCenter)
         self.tabs.addTab(self._placeholder, "Charts")
@@ -80,14 +80,6 @@ class ChartsPanel(QWidget):
         self.refresh()
         return True
 
-    def study_tab(self):
-        """The Staging study tab, made on first use (None without app/charts)."""
-        if self.study is None and self.ensure_canvases():
-            from app.study.tab import StudyTab
-            self.study = StudyTab()
-            self.tabs.addTab(self.study, "Staging study")  # app.study.ops marks it out of date
-        return self.study
-
     def _limits(self) -> list:
         stages = self.editor.model.get("stages", []) or []
         return [get_in(st, "max_discharge_temperature_K", None) for st in stages]
@@ -96,8 +88,6 @@ class ChartsPanel(QWidget):
         ed = self.editor
         stale = ed.stale and not ed.solver.busy and ed.result is not None
         self.stale_note.setVisible(stale)
-        if self.study is not None and self._system_changed():
-            self.study.redraw(ed.prefs.system)
         if ed.result is None or self.ts is None:
             return
         if ed.stale and ed.solver.busy:
@@ -105,11 +95,6 @@ class ChartsPanel(QWidget):
         for tab in (self.ts, self.power):
             tab.pending = (ed.result, ed.prefs.system)
         self._draw_current()
-
-    def _system_changed(self) -> bool:
-        changed = getattr(self, "_drawn_system", None) != self.editor.prefs.system
-        self._drawn_system = self.editor.prefs.system
-        return changed
 
     def _draw_current(self) -> None:
         tab = self.tabs.currentWidget()

@@ -14,7 +14,7 @@ from typing import Any
 from PySide6.QtCore import QObject, Signal
 from PySide6.QtGui import QUndoStack
 
-from thermo.atmosphere import standard_pressure
+from thermo.project.validation import barometric_pressure
 from thermo.errors import Problem
 
 from app.window.commands import InsertStage, MoveStage, RemoveStage, SetValues
@@ -55,6 +55,7 @@ class Editor(QObject):
         self.result: dict | None = None  # last good result (may be stale)
         self.stale = True
         self.failure: tuple[str, str] | None = None  # (message, field) of the last failed solve
+        self.failure_detail: dict | None = None  # its template and values (thermo.errors.message_detail)
         self.solve_seconds: float | None = None
         self.solved_jobs = 0
         self.solver.finished.connect(self._on_solved)
@@ -64,18 +65,10 @@ class Editor(QObject):
 
     # ---- reading helpers for views -----------------------------------------------------
     def barometric_Pa(self) -> float:
-        """Site barometric pressure [Pa] for gauge display (standard atmosphere from elevation)."""
-        site = self.model.get("site", {}) or {}
-        p = site.get("barometric_pressure_Pa")
-        if isinstance(p, (int, float)) and not isinstance(p, bool) and p > 0:
-            return float(p)
-        z = site.get("elevation_m")
-        if isinstance(z, (int, float)) and not isinstance(z, bool):
-            try:
-                return standard_pressure(float(z))
-            except Exception:  # out of the standard atmosphere: the field shows the problem
-                pass
-        return 101_325.0
+        """Site barometric pressure [Pa] for gauge display: the core's resolution of the site
+        being edited (:func:`thermo.project.validation.barometric_pressure`: as given, else the
+        ISO 2533 standard atmosphere at the elevation, else sea level)."""
+        return barometric_pressure(self.model.get("site", {}))
 
     def problem_for(self, path: str) -> str | None:
         """Message marking the field at ``path`` (unreadable entry first, then range problem)."""
@@ -162,6 +155,7 @@ class Editor(QObject):
 
     def _on_failed(self, job_id: int, message: str, field: str) -> None:
         self.stale, self.failure, self.solve_seconds = True, (message, field), None
+        self.failure_detail = getattr(self.solver, "failure_detail", None)
         self.result_changed.emit()
 
     # ---- stage helpers -------------------------------------------------------------------

@@ -7,17 +7,22 @@ atomically, so a failed export never leaves a half-written report behind.
 """
 from __future__ import annotations
 
-__all__ = ["ExportController", "ExportJob", "PDF_AND_CSV", "PDF_ONLY"]
+__all__ = ["ExportController", "ExportJob", "PDF_AND_CSV", "PDF_ONLY", "EXPORT_FOLDER_KEY"]
 
 import copy
 import threading
 from pathlib import Path
+from typing import Callable
 
 from PySide6.QtCore import QObject, Signal
 from PySide6.QtWidgets import QStatusBar
 
+from app.document.file_names import with_suffix_added
+from app.window.file_ops import PROJECT_FOLDER_KEY, remember_folder, start_folder
+
 PDF_AND_CSV = "PDF report and CSV balance sheet (*.pdf)"
 PDF_ONLY = "PDF report only (*.pdf)"
+EXPORT_FOLDER_KEY = "export/last_folder"
 
 
 class ExportJob(QObject):
@@ -70,14 +75,19 @@ class ExportController(QObject):
         Where to write, and errors.
     status : QStatusBar
         Progress and outcome.
+    study_rows : callable, optional
+        Returns the rows of the staging study the window shows when it was run on the project as
+        it now stands (else None); the report then carries the study.
     """
 
-    def __init__(self, editor, files, prompts, status: QStatusBar, parent: QObject | None = None):
+    def __init__(self, editor, files, prompts, status: QStatusBar, parent: QObject | None = None,
+                 study_rows: Callable[[], list[dict] | None] | None = None):
         super().__init__(parent)
         self.editor = editor
         self.files = files
         self.prompts = prompts
         self.status = status
+        self._study_rows = study_rows or (lambda: None)
         self.job: ExportJob | None = None
 
     def export_report_dialog(self) -> None:
@@ -91,11 +101,18 @@ class ExportController(QObject):
                                     "(or wait for the solve to finish), then export again.")
             return
         path = self.files.path
-        name, chosen = self.prompts.export_target(str(path.with_suffix(".pdf")) if path else "report.pdf")
+        name, chosen = self.prompts.export_target(str(self._start_folder() / f"{self.files.suggested_stem()}.pdf"))
         if not name:
             return
-        pdf = Path(name if name.lower().endswith(".pdf") else name + ".pdf")
+        name, added = with_suffix_added(name, ".pdf")
+        pdf = Path(name)
         csv = pdf.with_suffix(".csv") if chosen != PDF_ONLY else None
+        # the dialog asked about the file named in it; the .pdf added here and the CSV beside it were not
+        unasked = [p for p, asked in ((pdf, not added), (csv, False)) if p is not None and not asked and p.exists()]
+        if unasked and not self.prompts.confirm_overwrite(unasked):
+            self.status.showMessage("Export cancelled: nothing was written", 4000)
+            return
+        remember_folder(self.files.settings, EXPORT_FOLDER_KEY, pdf)
         source = path.name if path else ""
         job = ExportJob(ed.model.snapshot(), copy.deepcopy(ed.result), pdf, csv, ed.prefs.system, source, self,
                         study_rows=self._study_rows())
@@ -104,16 +121,14 @@ class ExportController(QObject):
         self.status.showMessage(f"Exporting {pdf.name}…")
         job.start()
 
-    def _study_rows(self) -> list[dict] | None:
-        """Rows of the staging study the window shows, when it was run on the project as it now stands.
-
-        Read from the window's study link (``parent().study``, a controller the window owns);
-        None when there is no study, it is out of date, or it has no rows.
-        """
-        panel = getattr(getattr(self.parent(), "study", None), "panel", None)
-        if panel is None or panel.is_stale or not panel.rows:
-            return None
-        return copy.deepcopy(panel.rows)
+    def _start_folder(self) -> Path:
+        """The last folder a report went to; else the project's folder; else the last project folder or documents."""
+        last = self.files.settings.value(EXPORT_FOLDER_KEY, "")
+        if isinstance(last, str) and last and Path(last).is_dir():
+            return Path(last)
+        if self.files.path is not None and self.files.path.parent.is_dir():
+            return self.files.path.absolute().parent
+        return start_folder(self.files.settings, PROJECT_FOLDER_KEY)
 
     def _on_export_done(self, message: str, error: str) -> None:
         if error:

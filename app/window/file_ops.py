@@ -3,19 +3,37 @@ before unsaved changes would be lost. Reading and writing is :func:`thermo.proje
 :func:`thermo.project.save`."""
 from __future__ import annotations
 
-__all__ = ["FileController", "MAX_RECENT"]
+__all__ = ["FileController", "MAX_RECENT", "PROJECT_FOLDER_KEY", "start_folder", "remember_folder"]
 
 from pathlib import Path
 
-from PySide6.QtCore import QObject, Signal
+from PySide6.QtCore import QObject, QStandardPaths, Signal
 from PySide6.QtWidgets import QMenu, QStatusBar
 
 from thermo import StagewrightError
 from thermo import project
 
+from app.document.file_names import file_stem_for, with_suffix_added
 from app.document.model import new_document
 
 MAX_RECENT = 8
+PROJECT_FOLDER_KEY = "files/last_folder"
+
+
+def start_folder(settings, key: str) -> Path:
+    """Where a file dialog starts: the last folder used for ``key`` (kept in QSettings) if it still
+    exists, else the user's documents folder, else the home folder — never the process's current
+    directory."""
+    last = settings.value(key, "")
+    if isinstance(last, str) and last and Path(last).is_dir():
+        return Path(last)
+    docs = QStandardPaths.writableLocation(QStandardPaths.DocumentsLocation)
+    return Path(docs) if docs and Path(docs).is_dir() else Path.home()
+
+
+def remember_folder(settings, key: str, file_path) -> None:
+    """Keep the folder of ``file_path`` as the next dialog's start for ``key``."""
+    settings.setValue(key, str(Path(file_path).absolute().parent))
 
 
 class FileController(QObject):
@@ -42,11 +60,14 @@ class FileController(QObject):
         The document was written: the file is the truth again.
     discarded()
         The user chose to drop the unsaved changes.
+    opened(Path)
+        A project file was opened by the user (not a revert): its recovered work may be offered.
     """
 
     state_changed = Signal()
     saved = Signal()
     discarded = Signal()
+    opened = Signal(object)
 
     def __init__(self, editor, settings, prompts, status: QStatusBar, path=None, parent: QObject | None = None):
         super().__init__(parent)
@@ -62,6 +83,11 @@ class FileController(QObject):
     # ---- state ---------------------------------------------------------------------------
     def is_modified(self) -> bool:
         return self.dirty_without_undo or not self.editor.undo_stack.isClean()
+
+    def suggested_stem(self) -> str:
+        """A file name (no extension) for this project: from its title, else its file's, else "Untitled"."""
+        return file_stem_for(self.editor.model.get("title", ""),
+                             fallback=self.path.stem if self.path else "Untitled")
 
     def document_name(self) -> str:
         """The file's name, or what an unsaved new project is called."""
@@ -103,11 +129,14 @@ class FileController(QObject):
     def open_dialog(self) -> None:
         if not self.maybe_save():
             return
-        name = self.prompts.open_project_name(str(self.path.parent) if self.path else "")
+        start = self.path.parent if self.path else start_folder(self.settings, PROJECT_FOLDER_KEY)
+        name = self.prompts.open_project_name(str(start))
         if name:
             self.open_path(name, ask=False)
 
-    def open_path(self, name, ask: bool = True) -> bool:
+    def open_path(self, name, ask: bool = True, announce: bool = True) -> bool:
+        """Open the project file ``name`` (``ask``: before dropping unsaved changes; ``announce``:
+        emit :attr:`opened`, so an ended session's work on it is offered — not for a revert)."""
         if ask and not self.maybe_save():
             return False
         try:
@@ -118,6 +147,9 @@ class FileController(QObject):
             return False
         self.load(doc, Path(name))
         self._remember_recent(str(Path(name).resolve()))
+        remember_folder(self.settings, PROJECT_FOLDER_KEY, name)
+        if announce:
+            self.opened.emit(Path(name))
         return True
 
     def save(self) -> bool:
@@ -126,11 +158,17 @@ class FileController(QObject):
         return self.save_to(self.path)
 
     def save_as(self) -> bool:
-        name = self.prompts.save_project_name(str(self.path) if self.path else "untitled.json")
+        if self.path is not None:
+            start = self.path
+        else:
+            start = start_folder(self.settings, PROJECT_FOLDER_KEY) / f"{self.suggested_stem()}.json"
+        name = self.prompts.save_project_name(str(start))
         if not name:
             return False
-        if not name.lower().endswith(".json"):
-            name += ".json"
+        name, added = with_suffix_added(name, ".json")
+        # the dialog asked about the name as typed; a suffix added here needs its own question
+        if added and Path(name).exists() and not self.prompts.confirm_overwrite([Path(name)]):
+            return False
         return self.save_to(Path(name))
 
     def save_to(self, path: Path) -> bool:
@@ -150,6 +188,7 @@ class FileController(QObject):
         self.dirty_without_undo = False
         self.editor.undo_stack.setClean()
         self._remember_recent(str(self.path.resolve()))
+        remember_folder(self.settings, PROJECT_FOLDER_KEY, self.path)
         self.state_changed.emit()
         self.status.showMessage(f"Saved {self.path.name}", 4000)
         self.saved.emit()
@@ -159,7 +198,7 @@ class FileController(QObject):
         if self.path is None or not self.is_modified():
             return
         if self.prompts.confirm("Revert to saved", f"Discard all changes since {self.path.name} was last saved?"):
-            self.open_path(self.path, ask=False)
+            self.open_path(self.path, ask=False, announce=False)
 
     # ---- recent files (plain strings in QSettings) -----------------------------------------
     def recent_files(self) -> list[str]:

@@ -1,8 +1,11 @@
-"""The workbench window: charts in the middle, input panels, balance sheet and messages in
-docks, one undo stack, a live solve, and the File/Edit/Train/View/Help menus."""
+"""The workbench window: the key figures across the top, charts in the middle, input panels,
+balance sheet and messages in docks, one undo stack, a live solve, the File/Edit/Train/View/Help
+menus, and a project file dropped on the window opened as File ▸ Open would."""
 from __future__ import annotations
 
-__all__ = ["MainWindow", "STATE_VERSION"]
+__all__ = ["MainWindow", "STATE_VERSION", "dropped_project"]
+
+from pathlib import Path
 
 from PySide6.QtCore import QSettings, Qt, QTimer
 from PySide6.QtGui import QAction, QKeySequence
@@ -27,13 +30,14 @@ from app.widgets.icons import icon
 from app.panels.balance_panel import BalancePanel
 from app.window.charts_area import ChartsPanel
 from app.panels.duty_panel import DutyPanel
+from app.panels.key_figures_panel import WARNINGS_KEY, KeyFiguresPanel
 from app.panels.messages_panel import MessagesPanel
 from app.panels.site_panel import SitePanel
 from app.study.panel import StudyPanel
 from app.year.panel import YearPanel
 from app.panels.train_panel import TrainPanel
 
-STATE_VERSION = 2  #: bump when panels are added or renamed, so old saved layouts are ignored
+STATE_VERSION = 3  #: bump when panels are added or renamed, so old saved layouts are ignored
 
 
 class MainWindow(QMainWindow):
@@ -63,6 +67,7 @@ class MainWindow(QMainWindow):
     def __init__(self, doc: dict | None = None, path=None, settings: QSettings | None = None,
                  debounce_ms: int = 150, restore_layout: bool = True, autosave_ms: int | None = AUTOSAVE_MS):
         super().__init__()
+        self.setAcceptDrops(True)
         self.settings = settings if settings is not None else QSettings()
         system = self.settings.value("display/system", "SI")
         gauge = self.settings.value("display/gauge", True, type=bool)
@@ -72,7 +77,8 @@ class MainWindow(QMainWindow):
         self.prompts = Prompts(self)
         self.files = FileController(self.editor, self.settings, self.prompts, self.statusBar(), path, self)
         self.files.state_changed.connect(self.update_title)
-        self.exports = ExportController(self.editor, self.files, self.prompts, self.statusBar(), self)
+        self.exports = ExportController(self.editor, self.files, self.prompts, self.statusBar(), self,
+                                        study_rows=lambda: self.study.current_rows())
         self.setWindowIcon(icon("app"))
         self.setDockOptions(QMainWindow.AnimatedDocks | QMainWindow.AllowTabbedDocks
                             | QMainWindow.AllowNestedDocks)
@@ -83,6 +89,8 @@ class MainWindow(QMainWindow):
         self.setCentralWidget(self.charts)
         self.panels["charts"] = self.charts
         self._build_actions()
+        # the answer first: key figures across the whole width, above inputs and charts
+        self.add_panel("figures", KeyFiguresPanel(self.editor), Qt.TopDockWidgetArea, title_bar=False)
         self.add_panel("site", SitePanel(self.editor), Qt.LeftDockWidgetArea, scroll=True)
         self.add_panel("duty", DutyPanel(self.editor), Qt.LeftDockWidgetArea, scroll=True)
         self.add_panel("train", TrainPanel(self.editor), Qt.RightDockWidgetArea)
@@ -91,15 +99,17 @@ class MainWindow(QMainWindow):
         self.add_panel("study", StudyPanel(self.editor), Qt.BottomDockWidgetArea, tabify_with="balance")
         self.add_panel("year", YearPanel(self.editor), Qt.BottomDockWidgetArea, tabify_with="balance")
         self.docks["balance"].raise_()
-        # inputs and messages run the full height on the left; the balance sheet spans the
-        # charts and the train panel, where it has the width its columns need
+        # below the key figures, inputs and messages run the full height on the left; the
+        # balance sheet spans the charts and the train panel, where its columns have the width
         self.setCorner(Qt.BottomLeftCorner, Qt.LeftDockWidgetArea)
         self.setCorner(Qt.BottomRightCorner, Qt.BottomDockWidgetArea)
         self.panels["train"].set_actions(self.action_map)
         self.panels["study"].set_actions(self.action_map)
         self.panels["study"].messages_changed.connect(self.panels["messages"].set_source_messages)
-        self.study = StudyLink(self.panels["study"], self.charts, self.editor, self.statusBar(), self)
+        self.study = StudyLink(self.panels["study"], self.statusBar(), self)
         self.panels["messages"].count_changed.connect(self._on_message_count)
+        self.panels["messages"].refresh()  # its count, now that the key figures listen too
+        self.panels["figures"].detail_requested.connect(self.show_key_figure)
         self._build_menus()
         self._build_status()
 
@@ -133,11 +143,12 @@ class MainWindow(QMainWindow):
     # ---- panels --------------------------------------------------------------------------
     def add_panel(self, pid: str, widget: QWidget, area, split_from: str | None = None,
                   orientation=Qt.Vertical, tabify_with: str | None = None,
-                  scroll: bool = False) -> QDockWidget:
+                  scroll: bool = False, title_bar: bool = True) -> QDockWidget:
         """Put ``widget`` in a dock (object name ``panel-<id>`` for saveState) with a View toggle.
 
         With ``scroll`` the panel sits in a scroll area: a narrow dock scrolls instead of
-        cutting fields off or forcing the window wider.
+        cutting fields off or forcing the window wider. Without ``title_bar`` the dock has none
+        (a strip that stays where it is; View shows or hides it).
         """
         dock = QDockWidget(widget.title.replace("&", "&&"), self)
         dock.setObjectName(f"panel-{pid}")
@@ -151,6 +162,9 @@ class MainWindow(QMainWindow):
             dock.setWidget(widget)
         dock.setFeatures(QDockWidget.DockWidgetMovable | QDockWidget.DockWidgetFloatable
                          | QDockWidget.DockWidgetClosable)
+        if not title_bar:
+            dock.setTitleBarWidget(QWidget(dock))
+            dock.setFeatures(QDockWidget.DockWidgetClosable)
         if split_from:
             self.addDockWidget(area, dock)
             self.splitDockWidget(self.docks[split_from], dock, orientation)
@@ -284,6 +298,42 @@ class MainWindow(QMainWindow):
     def _on_message_count(self, n: int) -> None:
         self.docks["messages"].setWindowTitle(f"Messages ({n})" if n else "Messages")
         self.docks["messages"].toggleViewAction().setText("Messages")
+        messages = self.panels["messages"]
+        self.panels["figures"].set_messages(messages.texts("problem"), messages.texts("warning"))
+
+    def show_key_figure(self, key: str) -> None:
+        """The detail of a key figure: its balance-sheet row, or the messages for the warnings."""
+        pid = "messages" if key == WARNINGS_KEY else "balance"
+        self.docks[pid].show()
+        self.docks[pid].raise_()
+        if pid == "messages":
+            self.panels["messages"].list.setFocus()
+            return
+        detail = self.panels["figures"].detail(key)
+        if detail is None or not self.panels["balance"].show_row(*detail):
+            self.statusBar().showMessage("The balance sheet has no row for this figure", 4000)
+
+    # ---- a project file dropped on the window -------------------------------------------
+    def dragEnterEvent(self, event) -> None:
+        if dropped_project(event.mimeData()) is not None:
+            event.acceptProposedAction()
+        else:
+            super().dragEnterEvent(event)
+
+    def dragMoveEvent(self, event) -> None:
+        if dropped_project(event.mimeData()) is not None:
+            event.acceptProposedAction()
+        else:
+            super().dragMoveEvent(event)
+
+    def dropEvent(self, event) -> None:
+        name = dropped_project(event.mimeData())
+        if name is None:
+            super().dropEvent(event)
+            return
+        event.acceptProposedAction()
+        # after the drop returns: the unsaved-changes question must not block the drag source
+        QTimer.singleShot(0, lambda: self.files.open_path(name))
 
     # ---- view ----------------------------------------------------------------------------
     def _on_prefs(self) -> None:
@@ -320,8 +370,14 @@ class MainWindow(QMainWindow):
             left, right = max(220, left - short // 2), max(240, right - short // 2)
         self.resizeDocks([self.docks["site"], self.docks["train"]], [left, right], Qt.Horizontal)
         self.resizeDocks([self.docks["balance"]], [max(260, min(420, int(h * 0.42)))], Qt.Vertical)
+        # the input forms as tall as their fields (no scroll bar when the height allows), the
+        # messages below them take what is left
+        column = sum(self.docks[p].height() for p in ("site", "duty", "messages")) or int(h * 0.8)
+        title = self.docks["site"].height() - self.docks["site"].widget().height() if column else 26
+        site, duty = (self.panels[p].sizeHint().height() + title + 4 for p in ("site", "duty"))
+        messages = max(int(column * 0.22), column - site - duty)
         self.resizeDocks([self.docks["site"], self.docks["duty"], self.docks["messages"]],
-                         [int(h * 0.40), int(h * 0.25), int(h * 0.35)], Qt.Vertical)
+                         [site, duty, messages], Qt.Vertical)
 
     def reset_layout(self) -> None:
         if self._default_state is not None:
@@ -378,3 +434,14 @@ class MainWindow(QMainWindow):
         self.settings.setValue("display/gauge", self.prefs.gauge)
         self.settings.sync()
         event.accept()
+
+
+def dropped_project(mime) -> str | None:
+    """The project file a drag carries: exactly one local file named ``*.json`` (else None)."""
+    if mime is None or not mime.hasUrls():
+        return None
+    urls = mime.urls()
+    if len(urls) != 1 or not urls[0].isLocalFile():
+        return None
+    name = urls[0].toLocalFile()
+    return name if Path(name).suffix.lower() == ".json" and Path(name).is_file() else None

@@ -29,15 +29,37 @@ class Prompts:
         answer = box.exec()
         return {QMessageBox.Save: "save", QMessageBox.Discard: "discard"}.get(answer, "cancel")
 
-    def ask_restore(self, source_name: str) -> bool:
-        """At start: restore the unsaved work a previous session left on ``source_name``?"""
+    def ask_restore(self, project_name: str, saved_at: str) -> str:
+        """Unsaved work on ``project_name`` from a session that ended without saving (last written at
+        ``saved_at``, local time): "restore", "keep" (for later) or "discard"."""
         box = QMessageBox(QMessageBox.Question, "Restore unsaved work?",
-                          f"The last session ended with unsaved changes to {source_name}.",
-                          QMessageBox.Yes | QMessageBox.No, self.parent)
-        box.setInformativeText("Restore them? (No discards them.)")
-        box.button(QMessageBox.Yes).setText("Restore")
-        box.button(QMessageBox.No).setText("Discard")
-        return box.exec() == QMessageBox.Yes
+                          f"A Stagewright session ended without saving its changes to {project_name} "
+                          f"(last kept at {saved_at}).", QMessageBox.NoButton, self.parent)
+        box.setInformativeText("Restore them in this window? Keep for Later leaves them in the recovery "
+                               "folder; Discard deletes them.")
+        restore = box.addButton("Restore", QMessageBox.AcceptRole)
+        keep = box.addButton("Keep for Later", QMessageBox.RejectRole)
+        discard = box.addButton("Discard", QMessageBox.DestructiveRole)
+        box.setDefaultButton(restore)
+        box.setEscapeButton(keep)
+        box.exec()
+        clicked = box.clickedButton()
+        return "restore" if clicked is restore else "discard" if clicked is discard else "keep"
+
+    def confirm_overwrite(self, paths) -> bool:
+        """Replace the existing files ``paths`` (ones the file dialog did not ask about)? True for yes."""
+        paths = list(paths)
+        several = len(paths) > 1
+        names = "\n".join(str(p) for p in paths)
+        box = QMessageBox(QMessageBox.Warning, "Replace existing files?" if several else "Replace existing file?",
+                          f"{'These files already exist' if several else 'This file already exists'}:\n{names}",
+                          QMessageBox.Cancel, self.parent)
+        box.setInformativeText("Replacing them overwrites what they hold." if several
+                               else "Replacing it overwrites what it holds.")
+        replace = box.addButton("Replace", QMessageBox.DestructiveRole)
+        box.setDefaultButton(QMessageBox.Cancel)
+        box.exec()
+        return box.clickedButton() is replace
 
     def confirm(self, title: str, text: str) -> bool:
         """A yes/no question; True for yes."""

@@ -6,7 +6,7 @@ __all__ = ["Point", "PropertyModel", "T_MIN", "T_MAX", "P_MIN", "P_MAX", "check_
 from dataclasses import dataclass
 from typing import Protocol
 
-from thermo.errors import PropertyRangeError
+from thermo.errors import PropertyRangeError, message_detail, quantity
 
 #: Validity window shared by every model [K] and [Pa]: compressed-air work, well inside
 #: the Lemmon et al. (2000) equation of state (59.75 K … 2000 K, up to 2000 MPa).
@@ -19,11 +19,19 @@ def check_range(temperature: float, pressure: float, where: str) -> None:
     if not (T_MIN <= temperature <= T_MAX):
         raise PropertyRangeError(
             f"{where}: temperature {temperature:.6g} K is outside the property range "
-            f"{T_MIN:g} K … {T_MAX:g} K", where)
+            f"{T_MIN:g} K … {T_MAX:g} K", where,
+            message_detail("{where}: temperature {value} is outside the range of the property models, "
+                           "{lo} … {hi}", {"where": where, "value": quantity(temperature, "temperature"),
+                                            "lo": quantity(T_MIN, "temperature"),
+                                            "hi": quantity(T_MAX, "temperature")}))
     if not (P_MIN <= pressure <= P_MAX):
         raise PropertyRangeError(
             f"{where}: pressure {pressure:.6g} Pa is outside the property range "
-            f"{P_MIN:g} Pa … {P_MAX:g} Pa", where)
+            f"{P_MIN:g} Pa … {P_MAX:g} Pa", where,
+            message_detail("{where}: pressure {value} is outside the range of the property models, "
+                           "{lo} … {hi}", {"where": where, "value": quantity(pressure, "absolute_pressure"),
+                                            "lo": quantity(P_MIN, "absolute_pressure"),
+                                            "hi": quantity(P_MAX, "absolute_pressure")}))
 
 
 @dataclass(frozen=True)

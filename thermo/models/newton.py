@@ -5,7 +5,7 @@ __all__ = ["invert_temperature", "invert_to_state"]
 
 from typing import Callable
 
-from thermo.errors import PropertyRangeError
+from thermo.errors import PropertyRangeError, message_detail, quantity
 from thermo.models.base import T_MAX, T_MIN
 
 
@@ -115,4 +115,7 @@ def _check_inside(T: float, where: str, what: str) -> None:
     if T <= T_MIN + 1e-6 or T >= T_MAX - 1e-6:
         raise PropertyRangeError(
             f"{where}: the {what} asked for lies outside the property range "
-            f"{T_MIN:g} K … {T_MAX:g} K", where)
+            f"{T_MIN:g} K … {T_MAX:g} K", where,
+            message_detail("{where}: the {what} asked for lies outside the range of the property models, "
+                           "{lo} … {hi}", {"where": where, "what": what, "lo": quantity(T_MIN, "temperature"),
+                                            "hi": quantity(T_MAX, "temperature")}))

@@ -58,7 +58,7 @@ def dew_point(mixture, water: float, pressure: float | Callable[[float], float],
     Examples
     --------
     >>> from thermo.models.ideal_gas import IdealGasAir
-    >>> from thermo.train import mixture_for
+    >>> from thermo.solve_context import mixture_for
     >>> mix = mixture_for(IdealGasAir())
     >>> round(dew_point(mix, 0.01, 5e5), 2)
     314.45

@@ -8,11 +8,11 @@ the per-point humidity figures of the results.
 """
 from __future__ import annotations
 
-__all__ = ["MoistAir", "intake_humidity_ratio", "humidity_of", "is_moist", "check_humid_range"]
+__all__ = ["MoistAir", "intake_humidity_ratio", "humidity_of", "check_humid_range"]
 
 import math
 
-from thermo.errors import InputError
+from thermo.errors import InputError, message_detail, quantity
 from thermo.models.base import Point, check_range
 from thermo.models.newton import invert_to_state
 from thermo.moist.mixture import MoistMixture
@@ -250,12 +250,6 @@ class MoistAir:
 
 
 # ---- site humidity ---------------------------------------------------------------------------
-def is_moist(site: dict) -> bool:
-    """True when the site section asks for water in the intake air."""
-    return bool(site.get("relative_humidity")) or site.get("dew_point_K") is not None or bool(
-        site.get("humidity_ratio"))
-
-
 def intake_humidity_ratio(site: dict, mixture: MoistMixture, T0: float, P0: float) -> float:
     r"""Humidity ratio of the intake air from the site's humidity input, [kg/kg] [1]_.
 
@@ -267,8 +261,9 @@ def intake_humidity_ratio(site: dict, mixture: MoistMixture, T0: float, P0: floa
     Parameters
     ----------
     site : dict
-        Normalised ``site`` section: ``dew_point_K``, ``humidity_ratio`` or
-        ``relative_humidity`` (checked in that order; the document allows only one).
+        The humidity input: ``dew_point_K``, ``humidity_ratio`` or ``relative_humidity``
+        (checked in that order; the document allows only one), e.g.
+        :meth:`thermo.project.validation.ResolvedSite.humidity_input`.
     mixture : MoistMixture
         Moist-air formulation of the project's model.
     T0, P0 : float
@@ -346,7 +341,15 @@ def check_humid_range(mixture: MoistMixture, points, field: str, what: str) -> N
             hot = p.T > t_max
             remedy = ("add a stage, lower this stage's pressure ratio, or use fluid.model 'ideal_gas'" if hot
                       else "use fluid.model 'ideal_gas' for moist air above this pressure")
+            plain = ("add a stage, lower this stage's pressure ratio, or choose the ideal-gas property model"
+                     if hot else "choose the ideal-gas property model for moist air at this pressure")
+            detail = message_detail(
+                "{what} {quantity} {value} is above the range of the real-gas humid-air property model "
+                "(ASHRAE RP-1485: up to {t_max} and {p_max}): " + plain,
+                {"what": what[:1].upper() + what[1:], "quantity": "temperature" if hot else "pressure",
+                 "value": quantity(p.T, "temperature") if hot else quantity(p.P, "absolute_pressure"),
+                 "t_max": quantity(t_max, "temperature"), "p_max": quantity(p_max, "absolute_pressure")})
             raise InputError(field, round(p.T if hot else p.P, 6),
                              f"{what} at {p.T:.2f} K and {p.P:.6g} Pa: moist air with the real_gas model "
                              f"needs states up to {t_max:.2f} K and {p_max:.6g} Pa (range of the ASHRAE "
-                             f"RP-1485 humid-air formulation); {remedy}")
+                             f"RP-1485 humid-air formulation); {remedy}", detail)

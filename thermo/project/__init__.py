@@ -4,9 +4,10 @@
     save(doc, "plant.json")       # validate, write atomically, keep plant.json.bak
 
 The document: :mod:`.schema_types` (a tiny declarative schema language), :mod:`.schema`
-(every key, unit, range and default), :mod:`.validation` (problems and normalise),
-:mod:`.paths` (field paths like ``stages[1].efficiency.value``), :mod:`.schema_docs` (the
-meaning of every key; generates ``docs/project-format.md``).
+(every key, unit, range and default), :mod:`.validation` (problems, normalise, and the
+site resolved once for the solver), :mod:`.paths` (field paths like
+``stages[1].efficiency.value``), :mod:`.schema_docs` (the meaning of every key; generates
+``docs/project-format.md``).
 
     doc = load("plant.json")      # parse safely, upgrade old versions, validate
     save(doc, "plant.json")       # validate, write atomically, keep plant.json.bak

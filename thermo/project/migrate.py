@@ -6,7 +6,9 @@ version *n* is passed through the registered steps *n → n+1 → …* until it 
 then validated against :mod:`thermo.project.schema`. A file of a newer version than this release
 knows is refused, and nothing is written.
 
-Only version 1 exists today, so :data:`STEPS` is empty. Whoever changes the meaning of a
+Versions: 1, the first; 2 lets the delivery pressure be stated gauge
+(``discharge_gauge_pressure_Pa``, relative to the site's barometric pressure) as an alternative
+to ``discharge_pressure_Pa`` (absolute, unchanged), exactly one of the two. Whoever changes the meaning of a
 key, renames or removes one, or adds a required key bumps ``FORMAT_VERSION`` and registers
 one step here (see DEVELOPERS.md, "Changing the project format"); the test suite fails
 until the step and a fixture file ``tests/fixtures/project_v<n>.json`` of the old
@@ -111,3 +113,15 @@ def migrate(doc: dict) -> tuple[dict, int]:
         out["version"] = v + 1
     out["version"] = schema.FORMAT_VERSION
     return out, start
+
+
+@step(1)
+def _v1_to_v2(doc: dict) -> dict:
+    """Version 1 → 2: nothing to change.
+
+    Version 2 adds ``discharge_gauge_pressure_Pa`` as an alternative to
+    ``discharge_pressure_Pa``, which keeps its meaning (absolute pressure, [Pa]); a version-1
+    file always states the absolute key, so it reads exactly as before. The version is bumped
+    because a version-2 file stating the gauge key cannot be read by a version-1 release.
+    """
+    return doc

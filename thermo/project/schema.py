@@ -1,4 +1,4 @@
-"""The project document, version 1: every key, its unit, range and default.
+"""The project document, version 2: every key, its unit, range and default.
 
 This table is the single source of truth for what a project may contain. The solver,
 the project-file loader, the window's entry fields and ``docs/project-format.md`` all
@@ -13,7 +13,7 @@ __all__ = ["FORMAT_NAME", "FORMAT_VERSION", "PROJECT", "STAGE", "COOLER", "EFFIC
 from thermo.project.schema_types import Choice, Items, Num, Obj, Text, Variant
 
 FORMAT_NAME = "stagewright-project"
-FORMAT_VERSION = 1
+FORMAT_VERSION = 2  #: 2: the delivery pressure may be stated gauge (discharge_gauge_pressure_Pa)
 FLOW_KINDS = ("mass", "free_air_delivery", "normal_volume", "shaft_power")
 MODEL_NAMES = ("real_gas", "ideal_gas", "constant_cp")
 
@@ -96,7 +96,8 @@ YEAR = Obj(nullable=True, default=None, fields={
     "water_price_per_m3": Num(0.0, 1000.0, unit="money/m³", default=0.0),
 })
 
-PROJECT = Obj(fields={
+#: the delivery pressure: stated absolute or gauge (thermo.project.delivery), exactly one
+PROJECT = Obj(one_of=(("discharge_pressure_Pa", "discharge_gauge_pressure_Pa"),), fields={
     "format": Choice((FORMAT_NAME,), default=FORMAT_NAME),
     "version": Num(1, FORMAT_VERSION, integer=True, default=FORMAT_VERSION),
     "title": Text(default="", max_length=200),
@@ -122,7 +123,8 @@ PROJECT = Obj(fields={
         "shaft_power": {"value": Num(0.0, 1.0e9, unit="W", lo_open=True, required=True)},
     }),
     "inlet_pressure_drop_Pa": Num(0.0, 50_000.0, unit="Pa", default=0.0),
-    "discharge_pressure_Pa": Num(50_000.0, 5.0e7, unit="Pa", required=True),
+    "discharge_pressure_Pa": Num(50_000.0, 5.0e7, unit="Pa"),
+    "discharge_gauge_pressure_Pa": Num(0.0, 5.0e7, unit="Pa", lo_open=True),
     "driver": Obj(default={"efficiency": 1.0}, fields={
         "efficiency": Num(0.0, 1.0, lo_open=True, default=1.0),
     }),

@@ -62,7 +62,12 @@ PROJECT_KEYS = {
                                "gives this value.",
     "inlet_pressure_drop_Pa": "Pressure drop of the intake filter and silencer before stage 1.",
     "discharge_pressure_Pa": "Absolute pressure wanted after the last cooler (or after the last "
-                             "stage when it has no cooler).",
+                             "stage when it has no cooler). Give this or `discharge_gauge_pressure_Pa`, "
+                             "exactly one.",
+    "discharge_gauge_pressure_Pa": "The same delivery pressure stated gauge: above the site's barometric "
+                                   "pressure (given, or from the elevation). The statement is kept when "
+                                   "the site changes; the absolute pressure follows the site (since "
+                                   "version 2).",
     "driver": "The motor (or other driver) and its efficiency.",
     "driver.efficiency": "Driver efficiency: shaft power ÷ driver input power.",
     "stages": "The stages in flow order, 1 to 12.",
@@ -256,6 +261,11 @@ RESULT_KEYS = {
     "warnings": "Things to look at, e.g. a discharge temperature above its limit.",
     "warnings[].field": "Path of the input concerned (`stages[1].max_discharge_temperature_K`).",
     "warnings[].message": "What is wrong, in words.",
+    "warnings[].template": "The same sentence with `{name}` placeholders, for showing it in other units.",
+    "warnings[].values": "The placeholders' values.",
+    "warnings[].values[].name": "Placeholder name.",
+    "warnings[].values[].value": "Its value, SI (or a plain number or word).",
+    "warnings[].values[].quantity": "What it measures (`temperature`, `pressure`, `absolute_pressure`, `water_flow` …), or null.",
     "point.temperature_K": "Static temperature.",
     "point.pressure_Pa": "Static absolute pressure.",
     "point.enthalpy_J_kg": "Specific enthalpy (the model's own reference state: compare differences).",

@@ -156,12 +156,15 @@ def check(schema: Any, value: Any, path: str, out: list) -> Any:
         if not isinstance(value, dict):
             out.append(Problem(path, value, "expected an object"))
             return {}
-        for group in schema.one_of:
+        result = _check_fields(schema.fields, value, path, out)
+        for group in schema.one_of:  # after the keys' own problems (a missing required key first)
             present = [k for k in group if k in value and value[k] is not None]
             if len(present) != 1:
-                out.append(Problem(path, {k: value.get(k) for k in group},
-                                   "give exactly one of " + ", ".join(group)))
-        return _check_fields(schema.fields, value, path, out)
+                # at the top level the problem names a key (the document itself has no field)
+                where = path or (present[1] if len(present) > 1 else group[0])
+                out.append(Problem(where, {k: value.get(k) for k in group},
+                                   ("required: " if not present else "") + "give exactly one of " + ", ".join(group)))
+        return result
     if isinstance(schema, Variant):
         if not isinstance(value, dict):
             out.append(Problem(path, value, "expected an object"))

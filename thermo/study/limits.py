@@ -55,7 +55,10 @@ class BindingLimit:
     status : str
         ``"active"`` (met, holding the optimum back) or ``"violated"`` (no split meets it).
     message : str
-        One line for people.
+        One line for people (SI).
+    detail : dict or None
+        Where the limit is a solve that failed: that error's template and values
+        (:func:`thermo.errors.message_detail`), for display units.
     """
 
     field: str
@@ -64,11 +67,13 @@ class BindingLimit:
     closest_feasible: float | None
     status: str
     message: str
+    detail: dict | None = None
 
     def to_dict(self) -> dict:
         """Plain-data form for JSON."""
         return {"field": self.field, "limit": self.limit, "value": self.value,
-                "closest_feasible": self.closest_feasible, "status": self.status, "message": self.message}
+                "closest_feasible": self.closest_feasible, "status": self.status, "message": self.message,
+                "detail": self.detail}
 
 
 class LimitNotMet(InputError):

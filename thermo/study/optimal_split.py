@@ -9,7 +9,8 @@ from typing import Any, Callable
 
 import numpy as np
 
-from thermo.project.validation import site_pressure
+from thermo.project.delivery import delivery_pressure
+from thermo.project.validation import resolve_site
 from thermo.results import TrainResult
 from thermo.solve import model_for, solve
 from thermo.study.limits import (BindingLimit, LimitNotMet, RatioBounds, implied_ratio, pressure_reach_problems,
@@ -178,14 +179,15 @@ class _Problem:
         doc = self.doc = prepared.doc
         stages = doc["stages"]
         self.n = len(stages)
-        self.p_in = site_pressure(doc) - doc["inlet_pressure_drop_Pa"]
-        self.p_d = doc["discharge_pressure_Pa"]
+        self.site = resolve_site(doc)
+        self.p_in = self.site.stage_inlet_pressure_Pa
+        self.p_d = delivery_pressure(doc, self.site.pressure_Pa)  # stated absolute or gauge
         self.drops = [(s["cooler"] or {}).get("pressure_drop_Pa", 0.0) for s in stages]
         self.bounds: RatioBounds = ratio_bounds(stages)
         free = [i for i in range(self.n) if not self.bounds.pinned(i)]
         self.implied = free[-1] if free else None
         self.var = free[:-1]
-        self.limits: list[SoftLimit] = soft_limits(stages, doc["site"]["ambient_temperature_K"])
+        self.limits: list[SoftLimit] = soft_limits(stages, self.site.ambient_temperature_K)
         self.trials = TrialSolver(doc, self.limits, should_stop)
         self.iterations = 0
         self.w_ref = 1.0
@@ -281,7 +283,7 @@ class _Problem:
     def start(self) -> Trial | None:
         model = model_for(self.doc["fluid"])
         candidates = [equal_split(self.p_in, self.p_d, self.drops, self.bounds),
-                      ideal_gas_split(self.doc, model, self.p_in, self.bounds)]
+                      ideal_gas_split(self.doc, model, self.p_in, self.bounds, site=self.site)]
         trials = []
         for r in candidates:
             if r is None:
@@ -370,7 +372,8 @@ class _Problem:
             hint = (" — with this many stages no stage gets as hot as that cooler's outlet: use fewer stages "
                     "or a lower cooler outlet temperature" if self.n > 1 else " — lower the cooler outlet temperature")
         binding = [BindingLimit(err.field or "stages", value, None, None, "violated",
-                                f"no split of {self.n} stage(s) could be solved: {err}{hint}")]
+                                f"no split of {self.n} stage(s) could be solved: {err}{hint}",
+                                _failure_detail(err, self.n, hint))]
         return SplitResult(None, None, False, binding, self.iterations, self.trials.solves,
                            list(self.prepared.notes))
 
@@ -412,6 +415,15 @@ class _Problem:
                     out.append(BindingLimit(f"stages[{i}].max_pressure_ratio", b.hi[i], r, None, "active",
                                             f"stage {i + 1} held at its maximum pressure ratio {b.hi[i]:g}"))
         return out
+
+
+def _failure_detail(err, n: int, hint: str) -> dict | None:
+    """The template of a failed trial solve, prefixed for the study (None without one)."""
+    detail = getattr(err, "detail", None)
+    if not detail:
+        return None
+    return {"template": f"no split of {n} stage(s) could be solved: " + detail["template"] + hint,
+            "values": detail["values"]}
 
 
 def _active(lim: SoftLimit, t: float, doc: dict) -> BindingLimit:

@@ -8,7 +8,8 @@ from typing import Callable
 
 
 from thermo.cooler import cooler_outlet_temperature
-from thermo.project.validation import site_pressure
+from thermo.project.delivery import delivery_pressure
+from thermo.project.validation import ResolvedSite, resolve_site
 from thermo.errors import InputError
 from thermo.flow import mass_flow_from
 from thermo.models.base import PropertyModel
@@ -79,7 +80,7 @@ def _drop_weights(p_in: float, ratios: list[float], drops: list[float], p_delive
 
 
 def ideal_gas_split(doc: dict, model: PropertyModel, p_in: float, bounds: RatioBounds,
-                    temperature_caps: bool = True) -> list[float] | None:
+                    temperature_caps: bool = True, site: ResolvedSite | None = None) -> list[float] | None:
     r"""Least-work split of ideal-gas stages with the project's coolers, as a start [1]_.
 
     With stage inlet temperature :math:`T_i` fixed by the cooler before it, stage work
@@ -114,6 +115,9 @@ def ideal_gas_split(doc: dict, model: PropertyModel, p_in: float, bounds: RatioB
         Stage-ratio bounds.
     temperature_caps : bool
         Also keep each stage below its discharge-temperature limit where that is possible.
+    site : ResolvedSite, optional
+        The document's resolved site (ambient temperature [K], barometric pressure [Pa]);
+        by default :func:`thermo.project.validation.resolve_site` of ``doc``.
 
     Returns
     -------
@@ -127,8 +131,9 @@ def ideal_gas_split(doc: dict, model: PropertyModel, p_in: float, bounds: RatioB
     .. [1] Y. A. Çengel, M. A. Boles, *Thermodynamics: An Engineering Approach*, 8th ed.,
        McGraw-Hill, 2015, §7-11 (multistage compression with intercooling).
     """
+    site = resolve_site(doc) if site is None else site
     stages = doc["stages"]
-    T0 = doc["site"]["ambient_temperature_K"]
+    T0 = site.ambient_temperature_K
     T_in = [T0]
     for st in stages[:-1]:
         t_out = cooler_outlet_temperature(st["cooler"], T0) if st["cooler"] is not None else None
@@ -138,7 +143,7 @@ def ideal_gas_split(doc: dict, model: PropertyModel, p_in: float, bounds: RatioB
     cp = model.at_tp(T0 + 0.5, p_in).h - model.at_tp(T0 - 0.5, p_in).h
     a = model.gas_constant / cp
     flow = doc["flow"]
-    m = mass_flow_from(flow["kind"], flow["value"], model, T0, site_pressure(doc))
+    m = mass_flow_from(flow["kind"], flow["value"], model, T0, site.pressure_Pa)
     e, c, lo, hi = [], [], list(bounds.lo), list(bounds.hi)
     for i, st in enumerate(stages):
         eff, eta_m = st["efficiency"], st["mechanical_efficiency"]
@@ -163,7 +168,7 @@ def ideal_gas_split(doc: dict, model: PropertyModel, p_in: float, bounds: RatioB
     n = len(stages)
     k = [T_in[i] * e[i] / c[i] for i in range(n)]
     drops = [(s["cooler"] or {}).get("pressure_drop_Pa", 0.0) for s in stages]
-    p_d = doc["discharge_pressure_Pa"]
+    p_d = delivery_pressure(doc, site.pressure_Pa)  # stated absolute or gauge
     q = [1.0] * n  # Q_i / p_d: the drops' weight on each stage, updated below
 
     def ratios_at(u: float) -> list[float]:
@@ -182,5 +187,5 @@ def ideal_gas_split(doc: dict, model: PropertyModel, p_in: float, bounds: RatioB
         q = q_new
         u_lo = math.log(min(k[i] / q[i] for i in range(n)))
     if found is None and temperature_caps:
-        return ideal_gas_split(doc, model, p_in, bounds, temperature_caps=False)
+        return ideal_gas_split(doc, model, p_in, bounds, temperature_caps=False, site=site)
     return found
