@@ -18,6 +18,7 @@ from matplotlib.figure import Figure
 
 from app.charts import draw_power_split
 from app.cli.main import main
+from app.document.messages import warning_text
 from app.report.pdf import lay_out
 from app.report.sections import ReportInfo
 from conftest import SAMPLES
@@ -72,8 +73,8 @@ def test_first_page_has_the_answer(path, sample_reports, capsys):
             assert m, f"cooler {i} duty"
     # the warnings, or that there are none, are on the first page
     assert "Warnings" in page
-    for w in r["warnings"]:
-        assert " ".join(w["message"].split()[:6]) in flat
+    for w in r["warnings"]:  # in display units and words, as the window's Messages shows them
+        assert " ".join(warning_text(w, doc, "SI").split()[:6]) in flat
 
 
 def test_prepared_by_is_printed(tmp_path, monkeypatch):

@@ -86,8 +86,8 @@ def _delivery_text(norm: dict, p0: float, system: str) -> str:
     absolute = _with(p_abs, "pressure", system)
     gauge = _with(p_abs, "pressure", system, gauge=True, barometric_Pa=p0)
     if key == GAUGE_KEY:
-        return f"{gauge} stated as gauge  (= {absolute} at this site)"
-    return f"{absolute} stated as absolute  (= {gauge} at this site)"
+        return f"{gauge} stated as gauge (= {absolute} at this site)"
+    return f"{absolute} stated as absolute (= {gauge} at this site)"
 
 
 def inputs(p: Pager, doc: dict, result: dict, system: str) -> None:

@@ -10,6 +10,7 @@ from __future__ import annotations
 
 __all__ = ["summary_page", "site_text", "duty_text"]
 
+from thermo.project.delivery import delivery_pressure
 from thermo.project.validation import normalise
 
 from app.presentation import balance_tables, summary_table, units
@@ -55,8 +56,8 @@ def duty_text(doc: dict, result: dict, system: str) -> str:
         flow = f"the flow that a shaft power of {value} moves ({found} free air delivery)"
     else:
         flow = f"{value} {words}"
-    p_out = _with(norm["discharge_pressure_Pa"], "pressure", system, gauge=True,
-                  barometric_Pa=result["barometric_pressure_Pa"])
+    p0 = result["barometric_pressure_Pa"]
+    p_out = _with(delivery_pressure(norm, p0), "pressure", system, gauge=True, barometric_Pa=p0)
     n = len(norm["stages"])
     return f"{flow}, delivered at {p_out}, in {n} stage{'s' if n != 1 else ''}"
 
