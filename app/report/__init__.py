@@ -1,13 +1,19 @@
 """Reports a designer can hand over: a PDF and a CSV of a solved project (no Qt, no display).
 
 ``export_report`` is what both ``stagewright report`` and the window's File → Export call,
-so the two always produce the same report.
+so the two always produce the same report. Modules: ``layout`` (the Pager: text, tables, chart
+blocks) · ``summary`` (the first page) · ``sections`` (inputs, balance sheet, exchangers and zones,
+totals, charts, staging, cautions) · ``recovery_section`` · ``year_section`` · ``pdf`` (the order of
+the sections, writing) · ``csv_export`` · ``atomic``.
 """
 from __future__ import annotations
 
-__all__ = ["export_report", "write_csv", "write_pdf", "csv_rows", "program_version"]
+__all__ = ["export_report", "write_csv", "write_pdf", "csv_rows", "program_version", "account_name"]
 
 import datetime as _dt
+import getpass
+
+from thermo.coolprop_adapter import coolprop_version
 
 from app.report.csv_export import csv_rows, write_csv
 from app.report.pdf import program_version, write_pdf
@@ -15,7 +21,8 @@ from app.report.sections import ReportInfo
 
 
 def export_report(doc: dict, result, pdf_path, csv_path=None, system: str = "SI", source_name: str = "",
-                  study_rows=None, *, date: str | None = None, paper: str | None = None) -> int:
+                  study_rows=None, *, date: str | None = None, paper: str | None = None,
+                  prepared_by: str | None = None, year=None) -> int:
     """Write the PDF report (and optionally the CSV) of a solved project.
 
     Parameters
@@ -38,6 +45,11 @@ def export_report(doc: dict, result, pdf_path, csv_path=None, system: str = "SI"
         ISO date printed on the report (default: today).
     paper : str, optional
         ``"A4"`` or ``"Letter"`` (default: A4 for SI, Letter for US units).
+    prepared_by : str, optional
+        Who made the report, printed on its first page (default: the user account's name).
+    year : dict or YearResult, optional
+        The project's year at the site; computed here (:func:`thermo.year.run_year`, about a
+        second) when the project has a ``year`` section and none is given.
 
     Returns
     -------
@@ -50,8 +62,34 @@ def export_report(doc: dict, result, pdf_path, csv_path=None, system: str = "SI"
         from thermo.errors import InputError
         raise InputError("units", system, "SI or US")
     info = ReportInfo(source_name=source_name, date=date or _dt.date.today().isoformat(),
-                      version=program_version(), system=system)
-    n = write_pdf(doc, result, pdf_path, info, study_rows=study_rows, paper=paper)
+                      version=program_version(), system=system,
+                      prepared_by=account_name() if prepared_by is None else prepared_by,
+                      coolprop=coolprop_version())
+    year, year_problem = _year_of(doc, year)
+    n = write_pdf(doc, result, pdf_path, info, study_rows=study_rows, paper=paper, year=year,
+                  year_problem=year_problem)
     if csv_path is not None:
         write_csv(result, csv_path, system)
     return n
+
+
+def account_name() -> str:
+    """The name of the user account running the program (``""`` when the system does not say)."""
+    try:
+        return getpass.getuser()
+    except (KeyError, OSError, ImportError):  # no such entry in the password database, no USER variable
+        return ""
+
+
+def _year_of(doc: dict, year) -> tuple[dict | None, str]:
+    """The year at the site to print (its dict), or why it could not be computed."""
+    if year is None and doc.get("year"):
+        from thermo import StagewrightError
+        from thermo.year import run_year
+        try:
+            year = run_year(doc)
+        except StagewrightError as exc:
+            return None, str(exc)
+    if hasattr(year, "to_dict"):
+        year = year.to_dict()
+    return year, ""

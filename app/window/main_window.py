@@ -78,7 +78,8 @@ class MainWindow(QMainWindow):
         self.prompts = Prompts(self)
         self.files = FileController(self.editor, self.settings, self.prompts, self.statusBar(), path, self)
         self.files.state_changed.connect(self.update_title)
-        self.exports = ExportController(self.editor, self.files, self.prompts, self.statusBar(), self)
+        self.exports = ExportController(self.editor, self.files, self.prompts, self.statusBar(), self,
+                                        study_rows=lambda: self.study.current_rows())
         self.setWindowIcon(icon("app"))
         self.setDockOptions(QMainWindow.AnimatedDocks | QMainWindow.AllowTabbedDocks
                             | QMainWindow.AllowNestedDocks)

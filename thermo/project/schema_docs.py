@@ -213,13 +213,18 @@ RESULT_KEYS = {
     "stages[].cooler.coolant_kind": "`water`, `glycol` or `air`; null without a coolant side.",
     "stages[].cooler.coolant_flow_kg_s": "Coolant mass flow (given, or found from the temperature rise).",
     "stages[].cooler.coolant_volume_flow_m3_s": "Coolant volume flow at its inlet.",
+    "stages[].cooler.cooling_water_m3_s": "Cooling-water flow of this cooler: its coolant volume flow at the inlet "
+                                          "when the coolant is water or a water–glycol mixture; null for fan air "
+                                          "or without a coolant side.",
     "stages[].cooler.coolant_inlet_temperature_K": "Coolant inlet temperature.",
     "stages[].cooler.coolant_outlet_temperature_K": "Coolant outlet temperature.",
     "stages[].cooler.lmtd_K": "Counter-flow log-mean temperature difference of the four terminal temperatures.",
-    "stages[].cooler.lmtd_correction_factor": "LMTD correction factor F of the arrangement.",
+    "stages[].cooler.lmtd_correction_factor": "LMTD correction factor F of the arrangement (≤ 1). A condensing "
+                                              "cooler: 1 for counter-flow, else null (see its dry zone).",
     "stages[].cooler.mean_temperature_difference_K": "Mean temperature difference, duty ÷ UA.",
-    "stages[].cooler.effectiveness": "Exchanger effectiveness ε.",
-    "stages[].cooler.ntu": "Number of transfer units, UA ÷ C_min.",
+    "stages[].cooler.effectiveness": "Exchanger effectiveness ε (a condensing cooler: on the mean capacity rates "
+                                     "of the terminal changes, latent heat included).",
+    "stages[].cooler.ntu": "Number of transfer units, UA ÷ C_min (C_min as for ε).",
     "stages[].cooler.ua_W_K": "Overall conductance UA (needed, or given when rating).",
     "stages[].cooler.zones": "One dry zone, or a dry and a condensing zone.",
     "stages[].cooler.zones[].kind": "`dry` (sensible only) or `wet` (condensing).",
@@ -229,11 +234,18 @@ RESULT_KEYS = {
     "stages[].cooler.zones[].coolant_inlet_temperature_K": "Coolant temperature entering the zone.",
     "stages[].cooler.zones[].coolant_outlet_temperature_K": "Coolant temperature leaving the zone.",
     "stages[].cooler.zones[].capacity_ratio": "C_min ÷ C_max of the zone.",
-    "stages[].cooler.zones[].effectiveness": "Effectiveness of the zone.",
-    "stages[].cooler.zones[].ntu": "Number of transfer units of the zone.",
+    "stages[].cooler.zones[].effectiveness": "Effectiveness of the zone (a wet zone: on the enthalpy basis).",
+    "stages[].cooler.zones[].ntu": "Number of transfer units of the zone (a wet zone: on the enthalpy basis).",
     "stages[].cooler.zones[].lmtd_K": "Log-mean temperature difference of the zone.",
-    "stages[].cooler.zones[].lmtd_correction_factor": "LMTD correction factor of the zone.",
+    "stages[].cooler.zones[].lmtd_correction_factor": "LMTD correction factor F of a dry zone (≤ 1); null for a "
+                                                      "wet zone, which is driven by an enthalpy difference.",
+    "stages[].cooler.zones[].log_mean_enthalpy_difference_J_kg": "Wet zone: log-mean difference between the air's "
+                                                                 "enthalpy and saturated air's at the coolant "
+                                                                 "temperature, per kg dry air (Braun, Klein & "
+                                                                 "Mitchell 1989); null for a dry zone.",
     "stages[].cooler.zones[].ua_W_K": "Conductance UA of the zone.",
+    "cooling_water_m3_s": "Cooling-water flow of the train: the sum of the coolers' `cooling_water_m3_s` (null when "
+                          "no cooler has a water or glycol side).",
     "recoverable_heat_W": "Heat that can be recovered (null without a `heat_recovery` section).",
     "heat_recovery": "Heat recovery figures, or null without a `heat_recovery` section.",
     "heat_recovery.delivery_temperature_K": "Temperature of the stream delivered.",
