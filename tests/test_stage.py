@@ -135,3 +135,43 @@ def test_casing_loss_that_cools_below_the_property_range_is_named(model):
                        "heat_loss_boundary_temperature_K": 200.0}]}
     with pytest.raises(PropertyRangeError, match=r"stages\[0\] discharge.*outside the property range"):
         thermo.solve(doc, detail=False)
+
+
+# --- issue 22 item 11: a refusal names the input, its value and what would work; a figure that is
+# only reported never aborts a solve whose balance stands ------------------------------------------
+
+@pytest.mark.parametrize("model, kind, eta", [("real_gas", "isentropic", 0.01), ("constant_cp", "isentropic", 0.01),
+                                              ("real_gas", "polytropic", 0.1)])
+def test_an_efficiency_putting_the_discharge_out_of_range_is_named_with_what_would_work(model, kind, eta):
+    import re
+
+    import thermo
+    from thermo.errors import PropertyRangeError
+    from tests.conftest import make_doc
+
+    with pytest.raises(PropertyRangeError) as info:
+        thermo.solve(make_doc(model=model, stages=1, kind=kind, eta=eta))
+    exc = info.value
+    assert exc.field == "stages[0].efficiency.value" and str(exc).startswith(f"stages[0].efficiency.value: {eta}")
+    least = float(re.search(r"efficiency of (?:about )?([\d.]+) or more", str(exc)).group(1))
+    # what the message says would work does: a little above it solves (the estimate of a
+    # polytropic efficiency is the perfect-gas one, so allow it 15 %)
+    thermo.solve(make_doc(model=model, stages=1, kind=kind, eta=min(1.0, least * (1.15 if kind == "polytropic" else 1.01))))
+
+
+@pytest.mark.parametrize("model", ["real_gas", "ideal_gas", "constant_cp"])
+def test_a_measured_discharge_at_the_top_of_the_range_solves_with_the_polytropic_figure_unavailable(model):
+    import math
+
+    import thermo
+    from tests.conftest import make_doc
+
+    doc = make_doc(model=model, stages=1, kind="discharge_temperature", eta=1300.0)  # the documented maximum
+    result = thermo.solve(doc)
+    d = result.to_dict()
+    assert abs(d["energy_residual"]) <= 1e-6 and result.stages[0].outlet.T == pytest.approx(1300.0, abs=1e-6)
+    eta_p = d["stages"][0]["polytropic_efficiency"]
+    if eta_p is None:  # not found: said so, naming the input
+        assert any(w["field"] == "stages[0].efficiency.value_K" and "unavailable" in w["message"] for w in d["warnings"])
+    else:
+        assert math.isfinite(eta_p)

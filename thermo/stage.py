@@ -9,7 +9,7 @@ from dataclasses import dataclass
 from thermo.errors import (InputError, PropertyRangeError, SecondLawViolation, StagewrightError, message_detail,
                            quantity)
 from thermo.exergy import DeadState, heat_exergy
-from thermo.models.base import Point, PropertyModel
+from thermo.models.base import T_MAX, Point, PropertyModel
 from thermo.polytropic import polytropic_efficiency_between, polytropic_path
 
 
@@ -39,12 +39,61 @@ class StageResult:
 
 
 def _adiabatic_path(model: PropertyModel, start: Point, h_end: float, p_out: float, eta_s: float,
-                    detail: bool, where: str, t_guess: float) -> tuple[float, list[Point]]:
+                    detail: bool, where: str, t_guess: float, known_end: Point | None = None
+                    ) -> tuple[float, list[Point]]:
     """Polytropic efficiency and path of the adiabatic compression ending at ``h_end``;
-    without ``detail`` only the end point (NaN efficiency), which is all the power needs."""
+    without ``detail`` only the end point (NaN efficiency), which is all the power needs.
+    ``known_end`` is the end state when it is already known (a measured discharge with no casing
+    heat loss or exit kinetic energy): used where the search fails, rather than solved again."""
     if detail:
-        return polytropic_efficiency_between(model, start, h_end, p_out, eta_s)
+        try:
+            return polytropic_efficiency_between(model, start, h_end, p_out, eta_s)
+        except StagewrightError:
+            # the polytropic efficiency is a reported figure only: when no path can be searched
+            # (one near the top of the property range), the balance stands and the figure is
+            # reported unavailable (NaN; the train adds a note) — unless the discharge itself is
+            # out of range, which the at_hp below raises and _adiabatic_work names by its input
+            if known_end is not None:
+                return math.nan, [start, known_end]
     return math.nan, [start, model.at_hp(h_end, p_out, f"{where} discharge", T_guess=t_guess)]
+
+
+def _efficiency_out_of_range(model: PropertyModel, spec: dict, where: str, start: Point, iso: Point,
+                             p_out: float, exc: PropertyRangeError) -> PropertyRangeError:
+    """A discharge beyond the property range, named by the efficiency input that puts it there,
+    with its value and the least efficiency that keeps the discharge in range."""
+    eff = spec["efficiency"]
+    kind, value = eff["kind"], eff.get("value")
+    if kind == "discharge_temperature":
+        field = f"{where}.efficiency.value_K"
+        return PropertyRangeError(
+            f"{field}: {eff['value_K']!r} — with the casing heat loss and exit kinetic energy, the adiabatic "
+            f"compression would end above the property range (at most {T_MAX:g} K); a lower discharge "
+            "temperature, heat loss or exit velocity keeps it in range", field,
+            message_detail("{label} {value}: with the casing heat loss and exit kinetic energy, the adiabatic "
+                           "compression would end above the property range (at most {t_max}); a lower discharge "
+                           "temperature, heat loss or exit velocity keeps it in range",
+                           {"value": quantity(eff["value_K"], "temperature"),
+                            "t_max": quantity(T_MAX, "temperature")}))
+    if iso.T >= T_MAX:
+        field = f"{where}.pressure_ratio"
+        return PropertyRangeError(
+            f"{field}: {p_out / start.P:.6g} — even an isentropic compression would end above the property "
+            f"range (at most {T_MAX:g} K); a lower pressure ratio (more stages) keeps it in range", field)
+    field = f"{where}.efficiency.value"
+    if kind == "isentropic":  # Δh = Δh_s/η_s up to h(T_max, p2)
+        least = (iso.h - start.h) / (model.at_tp(T_MAX, p_out, field).h - start.h)
+    else:  # ln(T2/T1) = ln(T2s/T1)/η_p for a perfect gas: an estimate for the others
+        least = math.log(iso.T / start.T) / math.log(T_MAX / start.T)
+    about = "" if kind == "isentropic" else "about "
+    err = PropertyRangeError(
+        f"{field}: {value!r} — the discharge would be above the property range (at most {T_MAX:g} K at "
+        f"{p_out:.6g} Pa); an efficiency of {about}{least:.3g} or more keeps it in range", field,
+        message_detail("{label} {value}: the discharge would be above the property range (at most {t_max} "
+                       "at {p}); " + f"{about}" + "{least} or more keeps it in range",
+                       {"value": value, "t_max": quantity(T_MAX, "temperature"), "p": quantity(p_out, "pressure"),
+                        "least": round(least, 4)}))
+    return err
 
 
 def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inlet_velocity: float,
@@ -153,7 +202,13 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
         outlet = path[-1]
     else:
         cp_mean = dh_s / (iso.T - start.T) if iso.T > start.T else 1000.0  # secant cp, a guess only
-        outlet = model.at_hp(h_out, p_out, f"{where} discharge", T_guess=path[-1].T + (h_out - path[-1].h) / cp_mean)
+        try:
+            outlet = model.at_hp(h_out, p_out, f"{where} discharge",
+                                 T_guess=path[-1].T + (h_out - path[-1].h) / cp_mean)
+        except PropertyRangeError:
+            if abs(h_out - path[-1].h) > 1e-9 * abs(dh):  # at the edge of the range (a measured
+                raise                                       # 1300 K): the known end state is the outlet
+            outlet = path[-1]
     w_gas = mass_flow * dh
     w_shaft = w_gas / spec["mechanical_efficiency"]
     w_mech = w_shaft - w_gas
@@ -226,6 +281,15 @@ def _adiabatic_work(model: PropertyModel, spec: dict, where: str, start: Point, 
     ----------
     .. [1] ASME PTC 10-1997, *Performance Test Code on Compressors and Exhausters*, §5.
     """
+    try:
+        return _adiabatic_work_of(model, spec, where, start, iso, p_out, q, k, detail)
+    except PropertyRangeError as exc:
+        raise _efficiency_out_of_range(model, spec, where, start, iso, p_out, exc) from None
+
+
+def _adiabatic_work_of(model: PropertyModel, spec: dict, where: str, start: Point, iso: Point, p_out: float,
+                       q: float, k: float, detail: bool) -> tuple[float, float, list[Point]]:
+    """:func:`_adiabatic_work` by the kind of the efficiency input."""
     eff = spec["efficiency"]
     kind = eff["kind"]
     dh_s = iso.h - start.h
@@ -250,7 +314,9 @@ def _adiabatic_work(model: PropertyModel, spec: dict, where: str, start: Point, 
                                "violation — check the measured temperatures and pressures",
                                {"value": quantity(eff["value_K"], "temperature"),
                                 "t_min": quantity(iso.T, "temperature")}))
-        eta_p, path = _adiabatic_path(model, start, start.h + dh, p_out, dh_s / dh, detail, where, eff["value_K"])
+        adiabatic = q == 0.0 and spec["exit_velocity_m_s"] == 0.0  # the measured state ends the compression
+        eta_p, path = _adiabatic_path(model, start, start.h + dh, p_out, dh_s / dh, detail, where, eff["value_K"],
+                                      measured if adiabatic else None)
     return dh, eta_p, path
 
 

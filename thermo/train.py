@@ -208,6 +208,8 @@ def _run_line(ctx: SolveContext, ratios: list, mass_flow: float, detail: bool) -
             check_humid_range(mixture, [st.outlet, max(st.path, key=lambda p: p.T)], f"stages[{i}]",
                               f"stage {i + 1} discharge")
         line.stages.append(st)
+        if detail and math.isnan(st.polytropic_efficiency):
+            line.warnings.append(_polytropic_unavailable(i, spec))
         limit = spec.get("max_discharge_temperature_K")
         if limit is not None and st.outlet.T > limit:
             line.warnings.append(_limit_warning(i, st.outlet.T, limit))
@@ -322,6 +324,16 @@ def _water_result(mixture, dry_model, mass_flow, W0, delivered, P0, drains, x_dr
         delivered_liquid_kg_m3=liquid_conc, iso8573_humidity_class=humidity_class(pdp, liquid_conc),
         condensate_exergy_W=x_drained,
         water_balance_residual=(mass_flow * W0 - delivered_water - drained) / (mass_flow * W0))
+
+
+def _polytropic_unavailable(i: int, spec: dict) -> Warning_:
+    """A reported-only figure that could not be found (no constant-efficiency path to the discharge
+    stays within the property range): shown as unavailable; powers, states and totals stand."""
+    key = "value_K" if spec["efficiency"]["kind"] == "discharge_temperature" else "value"
+    text = ("the polytropic efficiency could not be found (no constant-efficiency path to the discharge "
+            "stays within the property range) and is shown as unavailable; the balance is not affected")
+    return Warning_(f"stages[{i}].efficiency.{key}", f"stage {i + 1}: {text}",
+                    message_detail("Stage {n}: " + text, {"n": i + 1}))
 
 
 def _limit_warning(i: int, t_out: float, limit: float) -> Warning_:
