@@ -68,7 +68,7 @@ def test_a_discharge_beyond_the_humid_air_range_fails_in_plain_words(qtbot, tmp_
     assert "add a stage" in text and "ideal-gas property model" in text
     _plain(text)
     failed = next(m for m in msgs.messages if m.severity == "problem")
-    assert failed.field == "stages[0]"  # the path stays, for jumping to the stage
+    assert failed.field == "stages[0].pressure_ratio"  # the input to change first, for jumping to it
     win.close()
 
 

@@ -108,9 +108,27 @@ def _check(data: bytes) -> str:
         result = thermo.solve(doc).to_dict()
     except StagewrightError as exc:
         assert str(exc), "an empty error message"
+        # issue 22 item 11: every refusal names the input (a field path of the document), its value
+        assert _names_an_input(exc.field), f"a refusal naming no input: field {exc.field!r}: {exc}"
+        assert str(exc).startswith(f"{exc.field}: "), f"message does not start with its field: {exc}"
         return "refused by solve"
     json.dumps(result, allow_nan=False)  # what solve returns is always valid JSON
     return "solved"
+
+
+def _names_an_input(field: str) -> bool:
+    """True when ``field`` is a path to a key of the project document (``stages[1].efficiency.value``)."""
+    from thermo.project.paths import parse_path
+    from thermo.project.schema import PROJECT
+
+    if not field:
+        return False
+    try:
+        tokens = parse_path(field)
+    except StagewrightError:
+        return False
+    # a key of the document, not only a stage ("stages[1]" names no input)
+    return isinstance(tokens[0], str) and tokens[0] in PROJECT.fields and isinstance(tokens[-1], str)
 
 
 def _run(cases: int, seed: int) -> dict:
@@ -174,6 +192,39 @@ def test_many_valid_documents_solve_or_are_refused_cleanly():
     # a generator whose documents are mostly refused tests the refusal, not the solve
     assert outcomes.count("solved") > len(outcomes) / 2, \
         f"{outcomes.count('solved')} of {len(outcomes)} generated documents solved"
+
+
+def _solve_valid(doc) -> str:
+    """One generated valid-range document: solved within a bound, or refused naming its input;
+    never a crash, never a NaN in the results (issue 22, "Done when")."""
+    from tests.time_limit import finishes_within
+
+    with finishes_within(60.0, "one solve"):
+        outcome = _check(dumps(doc).encode())
+    assert outcome in {"solved", "refused by solve"}
+    return outcome
+
+
+@settings(max_examples=50, deadline=None, derandomize=True, database=None,
+          suppress_health_check=[HealthCheck.filter_too_much, HealthCheck.too_slow])
+@given(doc=documents())
+def test_seeded_valid_documents_solve_or_are_refused_naming_their_input(doc):
+    _solve_valid(doc)
+
+
+@pytest.mark.slow
+@pytest.mark.parametrize("seed", [11, 12])
+def test_many_seeded_valid_documents_solve_or_are_refused_naming_their_input(seed):
+    from hypothesis import seed as hypothesis_seed
+
+    @hypothesis_seed(seed)
+    @settings(max_examples=600, deadline=None, database=None,
+              suppress_health_check=[HealthCheck.filter_too_much, HealthCheck.too_slow])
+    @given(doc=documents())
+    def one_document(doc):
+        _solve_valid(doc)
+
+    one_document()
 
 
 @settings(max_examples=150, deadline=None, suppress_health_check=[HealthCheck.filter_too_much, HealthCheck.too_slow])

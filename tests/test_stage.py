@@ -133,7 +133,8 @@ def test_casing_loss_that_cools_below_the_property_range_is_named(model):
            "flow": {"kind": "mass", "value": 1.0}, "discharge_pressure_Pa": 6e5,
            "stages": [{"efficiency": {"kind": "isentropic", "value": 0.9}, "heat_loss_W": 4.0e5,
                        "heat_loss_boundary_temperature_K": 200.0}]}
-    with pytest.raises(PropertyRangeError, match=r"stages\[0\] discharge.*outside the property range"):
+    # named by the input that takes the energy away (issue 22 item 11)
+    with pytest.raises(PropertyRangeError, match=r"stages\[0\]\.heat_loss_W: 400000.0 — .*outside the property range"):
         thermo.solve(doc, detail=False)
 
 

@@ -9,7 +9,7 @@ from dataclasses import dataclass
 from thermo.errors import (InputError, PropertyRangeError, SecondLawViolation, StagewrightError, message_detail,
                            quantity)
 from thermo.exergy import DeadState, heat_exergy
-from thermo.models.base import T_MAX, Point, PropertyModel
+from thermo.models.base import T_MAX, T_MIN, Point, PropertyModel
 from thermo.polytropic import polytropic_efficiency_between, polytropic_path
 
 
@@ -56,6 +56,30 @@ def _adiabatic_path(model: PropertyModel, start: Point, h_end: float, p_out: flo
             if known_end is not None:
                 return math.nan, [start, known_end]
     return math.nan, [start, model.at_hp(h_end, p_out, f"{where} discharge", T_guess=t_guess)]
+
+
+def _ratio_out_of_range(spec: dict, where: str, start: Point, r: float, exc: PropertyRangeError) -> StagewrightError:
+    """Even the isentropic discharge of a stage is beyond the property range: named by the stage's
+    pressure ratio (given, or from the split), with what would bring it back."""
+    field = f"{where}.pressure_ratio"
+    text = (f"even an isentropic compression from {start.T:.2f} K at a pressure ratio of {r:.4g} would end "
+            f"outside the property range ({T_MIN:g} K … {T_MAX:g} K); a lower pressure ratio (another stage) or a cooler before "
+            "this stage keeps it in range")
+    return PropertyRangeError(f"{field}: {spec.get('pressure_ratio')!r} — {text}", field,
+                              message_detail("{label} {value}: " + text.replace("{", "{{").replace("}", "}}"),
+                                             {"value": r}))
+
+
+def _outlet_out_of_range(where: str, q_loss: float, v_out: float, exc: PropertyRangeError) -> StagewrightError:
+    """The discharge after the casing heat loss and the exit kinetic energy is beyond the property
+    range (cooled below it): named by the input that takes the energy away."""
+    field, value, what = (f"{where}.heat_loss_W", q_loss, "casing heat loss") if q_loss > 0.0 else \
+        (f"{where}.exit_velocity_m_s", v_out, "exit velocity")
+    text = (f"the {what} takes the discharge outside the property range ({T_MIN:g} K … {T_MAX:g} K); "
+            f"a smaller {what} keeps it in range")
+    return PropertyRangeError(f"{field}: {value!r} — {text}", field,
+                              message_detail("{label} {value}: " + text.replace("{", "{{").replace("}", "}}"),
+                                             {"value": value}))
 
 
 def _efficiency_out_of_range(model: PropertyModel, spec: dict, where: str, start: Point, iso: Point,
@@ -186,7 +210,10 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
         inlet.h + 0.5 * inlet_velocity ** 2 * k, inlet.P, where, T_guess=inlet.T)
     r = p_out / start.P
     t_guess = start.T * r ** 0.285
-    iso = model.at_sp(start.s, p_out, f"{where} isentropic discharge", T_guess=t_guess)
+    try:
+        iso = model.at_sp(start.s, p_out, f"{where} isentropic discharge", T_guess=t_guess)
+    except PropertyRangeError as exc:
+        raise _ratio_out_of_range(spec, where, start, r, exc) from None
     dh_s = iso.h - start.h
     if not (r > 1.0 + 1e-9 and dh_s > 0.0):  # a ratio of 1 + 1e-16 passes "> 1" but gives 0/0 below
         raise InputError(f"{where}.pressure_ratio", r,
@@ -205,10 +232,10 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
         try:
             outlet = model.at_hp(h_out, p_out, f"{where} discharge",
                                  T_guess=path[-1].T + (h_out - path[-1].h) / cp_mean)
-        except PropertyRangeError:
+        except PropertyRangeError as exc:
             if abs(h_out - path[-1].h) > 1e-9 * abs(dh):  # at the edge of the range (a measured
-                raise                                       # 1300 K): the known end state is the outlet
-            outlet = path[-1]
+                raise _outlet_out_of_range(where, q_loss, v_out, exc) from None  # 1300 K): the known
+            outlet = path[-1]                                                    # end is the outlet
     w_gas = mass_flow * dh
     w_shaft = w_gas / spec["mechanical_efficiency"]
     w_mech = w_shaft - w_gas
@@ -221,9 +248,13 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
     if s_gen < -1e-9 * max(1.0, w_shaft / dead.T0):
         hint = (" — the efficiency is total-to-static, so it must leave room for the exit kinetic "
                 "energy; lower the efficiency or the exit velocity") if v_out > 0.0 else ""
+        key = "exit_velocity_m_s" if v_out > 0.0 else \
+            "efficiency.value_K" if eff["kind"] == "discharge_temperature" else "efficiency.value"
+        field = f"{where}.{key}"
+        value = v_out if v_out > 0.0 else eff.get("value_K", eff.get("value"))
         raise SecondLawViolation(
-            f"{where}: the given data need negative entropy generation ({s_gen:.4g} W/K): "
-            f"a second-law violation{hint}", where,
+            f"{field}: {value!r} — the given data need negative entropy generation ({s_gen:.4g} W/K): "
+            f"a second-law violation{hint}", field,
             message_detail("Stage {n}: the given data need negative entropy generation ({s_gen}): a second-law "
                            "violation" + hint, {"n": index + 1, "s_gen": quantity(s_gen, "entropy_rate")}))
     n = math.log(p_out / start.P) / math.log(end.rho / start.rho)

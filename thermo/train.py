@@ -7,7 +7,7 @@ import math
 from dataclasses import dataclass, field
 
 from thermo.cooler import solve_cooler
-from thermo.errors import message_detail, quantity
+from thermo.errors import InputError, message_detail, quantity
 from thermo.exergy import flow_exergy, water_exergy
 from thermo.flow import NORMAL_PRESSURE, NORMAL_TEMPERATURE
 from thermo.moist.stream import MoistAir, check_humid_range
@@ -205,8 +205,12 @@ def _run_line(ctx: SolveContext, ratios: list, mass_flow: float, detail: bool) -
         st = solve_stage(line.model, spec, i, line.point, line.velocity, line.point.P * ratios[i], mass_flow,
                          intake.dead, detail)
         if mixture is not None:
-            check_humid_range(mixture, [st.outlet, max(st.path, key=lambda p: p.T)], f"stages[{i}]",
-                              f"stage {i + 1} discharge")
+            try:
+                check_humid_range(mixture, [st.outlet, max(st.path, key=lambda p: p.T)], f"stages[{i}]",
+                                  f"stage {i + 1} discharge")
+            except InputError as exc:  # named by the input the remedy changes first: the stage's ratio
+                raise InputError(f"stages[{i}].pressure_ratio", round(st.pressure_ratio, 6), exc.problem.expected,
+                                 exc.detail) from None
         line.stages.append(st)
         if detail and math.isnan(st.polytropic_efficiency):
             line.warnings.append(_polytropic_unavailable(i, spec))
