@@ -11,7 +11,13 @@ __all__ = ["INK", "MUTED", "GRID", "PAPER", "COMPRESSION", "COOLING", "ISOBAR", 
            "MECHANICAL", "POWER", "TEMPERATURE", "INFEASIBLE", "FONT", "SIZE_TITLE", "SIZE_LABEL",
            "SIZE_TICK", "SIZE_NOTE", "style_axes", "prepare"]
 
+import matplotlib
 from matplotlib.figure import Figure
+
+# Stagewright draws no mathematical text: "$" in a title, note or stage name is a dollar sign,
+# never mathtext ("$\\foo$" raised, "$5 and $6" was set in italics; issue 22 item 10). Text
+# objects read this when they are made, in the window's charts and in every report page.
+matplotlib.rcParams["text.parse_math"] = False
 
 # --- colours (Stagewright's own scheme) -------------------------------------------------------
 INK = "#27323f"          # text, axes frames

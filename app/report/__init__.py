@@ -15,6 +15,7 @@ import getpass
 
 from thermo.coolprop_adapter import coolprop_version
 
+from app.presentation.printable import printable
 from app.report.csv_export import csv_rows, write_csv
 from app.report.pdf import program_version, write_pdf
 from app.report.sections import ReportInfo
@@ -58,6 +59,9 @@ def export_report(doc: dict, result, pdf_path, csv_path=None, system: str = "SI"
     """
     if hasattr(result, "to_dict"):
         result = result.to_dict()
+    # text from the project that no font draws and UTF-8 cannot encode (an unpaired surrogate)
+    # is printed as U+FFFD (issue 22 item 10)
+    doc, result, source_name = printable(doc), printable(result), printable(source_name)
     if system not in ("SI", "US"):
         from thermo.errors import InputError
         raise InputError("units", system, "SI or US")

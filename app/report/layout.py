@@ -59,14 +59,34 @@ def wrap(text: str, width_in: float, size: float, bold: bool = False) -> list[st
             if line:
                 lines.append(line)
             line = word
-            while text_width(line, size, bold) > width_in and len(line) > 1:
-                cut = len(line) - 1
-                while cut > 1 and text_width(line[:cut], size, bold) > width_in:
-                    cut -= 1
+            while len(line) > 1:
+                cut = _fitting_prefix(line, width_in, size, bold)
+                if cut >= len(line):
+                    break
                 lines.append(line[:cut])
                 line = line[cut:]
         lines.append(line)
     return lines
+
+
+def _fitting_prefix(text: str, width_in: float, size: float, bold: bool) -> int:
+    """Length of the longest prefix of ``text`` that fits ``width_in`` (at least 1), measuring only
+    prefixes up to about twice a line: a doubling search, then bisection. Linear in the text
+    (a 20 000-character word took minutes when every shorter prefix was measured in turn)."""
+    fits, probe = 1, 2
+    while probe < len(text) and text_width(text[:probe], size, bold) <= width_in:
+        fits, probe = probe, probe * 2
+    if probe >= len(text):
+        if text_width(text, size, bold) <= width_in:
+            return len(text)
+        probe = len(text)
+    while probe - fits > 1:  # text[:fits] fits, text[:probe] does not
+        mid = (fits + probe) // 2
+        if text_width(text[:mid], size, bold) <= width_in:
+            fits = mid
+        else:
+            probe = mid
+    return fits
 
 
 def _fair_shares(natural: list[float], available: float) -> list[float]:
