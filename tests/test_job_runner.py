@@ -188,3 +188,40 @@ def test_shutdown_frees_the_thread_states_in_the_worker_thread(qtbot, monkeypatc
     r.shutdown()
     assert not r._thread.isRunning()
     assert len(freed) == 1 and freed[0] != threading.get_ident()
+
+
+def test_a_job_outliving_the_shutdown_wait_does_not_abort_the_process(tmp_path):
+    # issue 22 item 5: "QThread: Destroyed while thread is still running", then an abort on close
+    import subprocess
+    import sys
+    import textwrap
+
+    from tests.conftest import ROOT
+
+    script = tmp_path / "outlive.py"
+    script.write_text(textwrap.dedent("""
+        import sys, threading, time
+        sys.path.insert(0, sys.argv[1])
+        from PySide6.QtCore import QCoreApplication
+        from app.jobs.job_runner import JobRunner
+        app = QCoreApplication([])
+        started = threading.Event()
+        def work(payload, report, cancel):
+            started.set()
+            time.sleep(float(sys.argv[2]))  # a long step that does not look at its cancel event
+            return 1
+        runner = JobRunner(work, what="test", thread_name="outliving")
+        runner.start(None)
+        started.wait(5)
+        runner.shutdown(timeout_ms=100)
+        runner.deleteLater()
+        del runner
+        app.processEvents()
+        import gc; gc.collect()
+        print("closed", flush=True)
+    """), encoding="utf-8")
+    for sleep_s in ("1.0", "30"):  # ends during the exit grace; outlasts it
+        proc = subprocess.run([sys.executable, str(script), str(ROOT), sleep_s], capture_output=True, text=True,
+                              timeout=60, env={"QT_QPA_PLATFORM": "offscreen", "PATH": "/usr/bin:/bin"})
+        assert proc.returncode == 0 and proc.stdout.strip() == "closed", (sleep_s, proc.returncode, proc.stderr)
+        assert "Destroyed while thread" not in proc.stderr

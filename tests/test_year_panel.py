@@ -180,3 +180,21 @@ def test_exchanger_figures_appear_in_the_balance_sheet(qtbot, tmp_path):
     expected = thermo.solve(doc).to_dict()["stages"][0]["cooler"]
     ua = float(bal.value_text("components", "cooler-1", "ua").replace(" ", ""))
     assert ua == pytest.approx(expected["ua_W_K"] / 1e3, abs=6e-4)
+
+
+def test_an_edit_during_a_run_marks_the_year_out_of_date(qtbot, tmp_path):
+    # issue 22 item 5: the old year was shown as "Year solved." although the project had changed
+    doc = json.loads(YEAR_SAMPLE.read_text(encoding="utf-8"))
+    win = make_window(qtbot, tmp_path, doc)
+    win.docks["year"].raise_()
+    panel = win.panels["year"]
+    with qtbot.waitSignal(panel.runner.finished, timeout=RUN_MS):
+        panel.run()
+        # the answer is delivered to the GUI thread only once the wait runs: this edit comes first
+        win.editor.set_value("site.ambient_temperature_K", doc["site"]["ambient_temperature_K"] + 5.0)
+    assert panel.is_stale and panel.status.text().startswith("Out of date")
+    win.editor.undo_stack.undo()  # back to the input the year was run on
+    assert not panel.is_stale
+    with qtbot.waitSignal(panel.runner.finished, timeout=RUN_MS):
+        panel.run()
+    assert not panel.is_stale and panel.status.text() == "Year solved."

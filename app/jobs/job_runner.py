@@ -20,6 +20,8 @@ from __future__ import annotations
 
 __all__ = ["JobCancelled", "JobRunner", "Work", "stop_thread"]
 
+import atexit
+import os
 import sys
 import threading
 import time
@@ -69,7 +71,39 @@ def stop_thread(thread: QThread, timeout_ms: int = 10_000) -> None:
         return
     if running:
         thread.quit()
-        thread.wait(timeout_ms)
+        if not thread.wait(timeout_ms):
+            _keep_until_finished(thread)
+
+
+#: worker threads whose job outlived the shutdown wait (a long step that does not look at its
+#: cancel event): kept referenced until they end, because Qt aborts the process when a running
+#: QThread is destroyed ("QThread: Destroyed while thread is still running")
+_OUTLIVING: set = set()
+
+
+def _keep_until_finished(thread: QThread) -> None:
+    # threads that have ended since are let go here, in the GUI thread (never from the ending
+    # thread itself, where dropping the last reference would destroy it while it still runs)
+    for ended in [t for t in _OUTLIVING if t.isFinished()]:
+        _OUTLIVING.discard(ended)
+    if not _OUTLIVING:
+        atexit.unregister(_end_outliving)
+        atexit.register(_end_outliving)
+    _OUTLIVING.add(thread)
+
+
+def _end_outliving(grace_ms: int = 3000) -> None:
+    """At interpreter exit: give outliving jobs a moment, then end the process at once if one still
+    runs — its work is let go either way (the window saved or kept it before closing), and
+    destroying its thread would abort with a crash report instead of exiting."""
+    for thread in list(_OUTLIVING):
+        try:
+            if thread.isRunning() and not thread.wait(grace_ms):
+                sys.stdout.flush()
+                sys.stderr.flush()
+                os._exit(0)
+        except RuntimeError:  # already deleted
+            pass
 
 
 class _Worker(QObject):

@@ -24,6 +24,7 @@ from app.year.worker import YearRunner
 #: (as the table stood at import; the panel reads it afresh when built)
 YEAR_COLUMNS = tuple(shown(year_tables.YEAR_BINS, "window"))
 PROFILE_TAB, RESULTS_TAB, CHART_TAB = range(3)
+_STALE = "Out of date — the project changed since this year was run: run it again."
 
 
 class YearPanel(QWidget):
@@ -37,6 +38,8 @@ class YearPanel(QWidget):
         self.editor = editor
         self.runner = YearRunner(self)
         self.result: dict | None = None
+        self._running_doc: dict | None = None  #: the document the running (or last) run was started on
+        self._result_doc: dict | None = None   #: the document ``result`` belongs to
         lay = QVBoxLayout(self)
         lay.setContentsMargins(6, 4, 6, 4)
         row = QHBoxLayout()
@@ -90,7 +93,8 @@ class YearPanel(QWidget):
     def run(self) -> None:
         if not self.has_profile():
             return
-        self.runner.run(self.editor.model.snapshot())
+        self._running_doc = self.editor.model.snapshot()
+        self.runner.run(self._running_doc)
         self.run_button.setEnabled(False)
         self.cancel_button.setEnabled(True)
         self.progress.setValue(0)
@@ -102,8 +106,9 @@ class YearPanel(QWidget):
         self.progress.setValue(done)
 
     def _on_finished(self, _job: int, result: dict, _seconds: float) -> None:
-        self.result = result
-        self._idle("Year solved.")
+        self.result, self._result_doc = result, self._running_doc
+        # edits made while the year ran are not in it: say so, rather than "solved" (issue 22 item 5)
+        self._idle(_STALE if self.is_stale else "Year solved.")
         self.tabs.setCurrentIndex(RESULTS_TAB)  # the totals first; the chart is one tab on
         self.refresh()
 
@@ -123,10 +128,15 @@ class YearPanel(QWidget):
         if not self.has_profile():
             self.status.setText("This project has no year profile: start one from the site "
                                 "in the Profile tab.")
-        elif self.result is not None:
-            self.status.setText("The project changed since this year was run: run it again.")
+        elif self.result is not None and self.is_stale:
+            self.status.setText(_STALE)
         elif not self.runner.busy:
             self.status.setText("Run the year to see each month's energy, condensate and temperatures.")
+
+    @property
+    def is_stale(self) -> bool:
+        """True when the year shown was run on another version of the project than the current one."""
+        return self.result is not None and self._result_doc != self.editor.model.doc
 
     # ---- showing -------------------------------------------------------------------------
     def refresh(self) -> None:
