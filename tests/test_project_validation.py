@@ -70,7 +70,9 @@ def test_hot_casing_boundary_is_second_law_violation():
 
 def test_state_outside_property_range_is_clear():
     doc = make_doc(stages=1, p_out=3.9e6, eta=0.3, model="real_gas")
-    with pytest.raises(thermo.PropertyRangeError, match="outside the property range"):
+    # named by the input, with what would work (issue 22 item 11)
+    with pytest.raises(thermo.PropertyRangeError,
+                       match=r"^stages\[0\]\.efficiency\.value: 0\.3 — the discharge would be above the property range"):
         thermo.solve(doc)
 
 
