@@ -145,7 +145,7 @@ def test_moist_intake_below_freezing_and_frost_point_input_refused():
 def test_moist_real_gas_state_outside_rp1485_range_names_stage_and_range():
     doc = make_doc(model="real_gas", stages=1, eta=0.75, p_out=12e5, T0=298.15)
     doc["site"]["relative_humidity"] = 0.5
-    with pytest.raises(InputError, match=r"stages\[0\]: .*up to 623\.15 K and 1e\+07 Pa .*RP-1485"):
+    with pytest.raises(InputError, match=r"stages\[0\]\.pressure_ratio: 12\.0 — .*up to 623\.15 K and 1e\+07 Pa .*RP-1485"):
         thermo.solve(doc)
 
 
