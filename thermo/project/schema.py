@@ -8,7 +8,7 @@ from __future__ import annotations
 
 __all__ = ["FORMAT_NAME", "FORMAT_VERSION", "PROJECT", "STAGE", "COOLER", "EFFICIENCY",
            "FLOW_KINDS", "MODEL_NAMES", "COOLANT", "COOLANT_KINDS", "ARRANGEMENT_NAMES",
-           "HEAT_RECOVERY", "YEAR"]
+           "HEAT_RECOVERY", "YEAR", "FIELD_CHECK"]
 
 from thermo.project.schema_types import Choice, Items, Num, Obj, Text, Variant
 
@@ -96,6 +96,32 @@ YEAR = Obj(nullable=True, default=None, fields={
     "water_price_per_m3": Num(0.0, 1000.0, unit="money/m³", default=0.0),
 })
 
+#: a field check's measurement uncertainties and guaranteed figures (thermo.uncertainty); optional.
+#: Each uncertainty names a measured input by its field path and is in that input's SI unit.
+_NAMED_INPUT = {"input": Text(required=True, max_length=200)}
+_GUARANTEED = {"figure": Text(required=True, max_length=200),
+               "value": Num(0.0, 1.0e12, lo_open=True, required=True),
+               "limit": Choice(("both", "at_least", "at_most"), default="both")}
+FIELD_CHECK = Obj(nullable=True, default=None, fields={
+    "uncertainties": Items(Variant(variants={
+        "standard": {**_NAMED_INPUT, "standard_uncertainty": Num(0.0, 1.0e9, 
+                                                                 lo_open=True, required=True)},
+        "limits": {**_NAMED_INPUT, "half_width": Num(0.0, 1.0e9, lo_open=True,
+                                                     required=True)},
+        "accuracy_class": {**_NAMED_INPUT, "class_percent": Num(0.0, 100.0, lo_open=True, required=True),
+                           "full_scale": Num(0.0, 1.0e10, lo_open=True, nullable=True,
+                                             default=None)},
+    }), max_length=200),
+    "guarantees": Items(Variant(variants={
+        "relative": {**_GUARANTEED, "tolerance": Num(0.0, 1.0, lo_open=True, required=True)},
+        "absolute": {**_GUARANTEED, "tolerance": Num(0.0, 1.0e12, lo_open=True,
+                                                     required=True)},
+        "iso1217_annex_c": dict(_GUARANTEED),
+    }), max_length=50),
+    "monte_carlo_draws": Num(100, 1_000_000, integer=True, default=10_000),
+    "seed": Num(0, 2**32 - 1, integer=True, default=1),
+})
+
 #: the delivery pressure: stated absolute or gauge (thermo.project.delivery), exactly one
 PROJECT = Obj(one_of=(("discharge_pressure_Pa", "discharge_gauge_pressure_Pa"),), fields={
     "format": Choice((FORMAT_NAME,), default=FORMAT_NAME),
@@ -131,4 +157,5 @@ PROJECT = Obj(one_of=(("discharge_pressure_Pa", "discharge_gauge_pressure_Pa"),)
     "stages": Items(STAGE, min_length=1, max_length=12, required=True),
     "heat_recovery": HEAT_RECOVERY,
     "year": YEAR,
+    "field_check": FIELD_CHECK,
 })

@@ -147,6 +147,55 @@ PROJECT_KEYS = {
     "year.load": "Scales the project's flow value (mass, volume or shaft power).",
     "year.energy_price_per_kWh": "Price of the driver's electricity (money per kWh).",
     "year.water_price_per_m3": "Price of cooling water, once-through kind `water` coolers (money per m³).",
+    "field_check": "Uncertainty of a field check's measured inputs and the guaranteed figures its results "
+                   "are judged against (see *Field-check uncertainty* below), or null.",
+    "field_check.uncertainties": "The measured inputs that carry an uncertainty, one entry each.",
+    "field_check.uncertainties[]": "One measured input and its uncertainty.",
+    "field_check.uncertainties[].kind": "`standard`: a standard uncertainty (Gaussian); `limits`: ±half-width, "
+                                        "u = a/√3 (rectangular, JCGM 100:2008 §4.3.7); `accuracy_class`: an "
+                                        "instrument's class in per cent of full scale (or of the reading), read "
+                                        "as limits.",
+    "field_check.uncertainties[]{standard}.input": "Field path of the measured input, e.g. "
+                                                   "`stages[1].efficiency.value_K` (see the list below).",
+    "field_check.uncertainties[]{standard}.standard_uncertainty": "Standard uncertainty, in the SI unit of the "
+                                                                  "input (its key names the unit).",
+    "field_check.uncertainties[]{limits}.input": "Field path of the measured input.",
+    "field_check.uncertainties[]{limits}.half_width": "Half-width a of the limits x ± a, in the SI unit of "
+                                                      "the input.",
+    "field_check.uncertainties[]{accuracy_class}.input": "Field path of the measured input.",
+    "field_check.uncertainties[]{accuracy_class}.class_percent": "Accuracy class: limit of error in per cent "
+                                                                 "of `full_scale`.",
+    "field_check.uncertainties[]{accuracy_class}.full_scale": "Full scale (span) of the instrument, in the SI "
+                                                              "unit of the input; null: the class is per cent "
+                                                              "of the reading.",
+    "field_check.guarantees": "Guaranteed figures, each with its tolerance.",
+    "field_check.guarantees[]": "One guaranteed figure.",
+    "field_check.guarantees[].kind": "`relative`: tolerance as a fraction of the guaranteed value; "
+                                     "`absolute`: in the figure's unit; `iso1217_annex_c`: ISO 1217 Annex C "
+                                     "tolerance on flow or specific power (values from memory).",
+    "field_check.guarantees[]{relative}.figure": "Result figure, by its path in the results: "
+                                                "`free_air_delivery_m3_s`, `specific_power_kW_per_m3_min`, "
+                                                "`stages[1].isentropic_efficiency`, `stages[0].cooler.duty_W` ….",
+    "field_check.guarantees[]{relative}.value": "Guaranteed value, in the figure's SI unit.",
+    "field_check.guarantees[]{relative}.limit": "`both`: value ± tolerance; `at_least`: not below value − "
+                                               "tolerance; `at_most`: not above value + tolerance.",
+    "field_check.guarantees[]{absolute}.figure": "Result figure, by its path in the results: "
+                                                "`free_air_delivery_m3_s`, `specific_power_kW_per_m3_min`, "
+                                                "`stages[1].isentropic_efficiency`, `stages[0].cooler.duty_W` ….",
+    "field_check.guarantees[]{absolute}.value": "Guaranteed value, in the figure's SI unit.",
+    "field_check.guarantees[]{absolute}.limit": "`both`: value ± tolerance; `at_least`: not below value − "
+                                               "tolerance; `at_most`: not above value + tolerance.",
+    "field_check.guarantees[]{iso1217_annex_c}.figure": "Result figure, by its path in the results: "
+                                                "`free_air_delivery_m3_s`, `specific_power_kW_per_m3_min`, "
+                                                "`stages[1].isentropic_efficiency`, `stages[0].cooler.duty_W` ….",
+    "field_check.guarantees[]{iso1217_annex_c}.value": "Guaranteed value, in the figure's SI unit.",
+    "field_check.guarantees[]{iso1217_annex_c}.limit": "`both`: value ± tolerance; `at_least`: not below value − "
+                                               "tolerance; `at_most`: not above value + tolerance.",
+    "field_check.guarantees[]{relative}.tolerance": "Tolerance as a fraction of the guaranteed value "
+                                                    "(0.05 = ±5 %).",
+    "field_check.guarantees[]{absolute}.tolerance": "Tolerance in the figure's SI unit.",
+    "field_check.monte_carlo_draws": "Draws of the Monte Carlo check (JCGM 101:2008).",
+    "field_check.seed": "Seed of the Monte Carlo draws (the same seed repeats a run).",
 }
 
 #: results path → meaning; ``point.*`` is the state-point object used by every state

@@ -22,6 +22,7 @@ from thermo.project.delivery import ABSOLUTE_KEY, delivery_pressure, stated_deli
 from thermo.project.schema import PROJECT
 from thermo.project.schema_types import check
 from thermo.year_profile import year_problems
+from thermo.uncertainty.inputs import field_check_problems
 
 #: the site's ways of giving the intake humidity (the document allows at most one)
 HUMIDITY_KEYS = ("relative_humidity", "dew_point_K", "humidity_ratio")
@@ -268,6 +269,7 @@ def _cross_checks(norm: dict) -> list[Problem]:
                                "required when the cooler outlet is given as an approach"))
         out.extend(_coolant_checks(cooler, f"stages[{i}].cooler"))
     out.extend(year_problems(norm))
+    out.extend(field_check_problems(norm))
     return out
 
 
