@@ -8,6 +8,9 @@
                                                a grid of input values, one CSV row per point
     stagewright report FILE|FOLDER … [-o OUT] [--csv [OUT.csv]] [--units SI|US]
                                                PDF (and CSV) reports
+    stagewright uncertainty PROJECT … [--json] [--draws N]
+                                               a field check's results with their uncertainty,
+                                               contributors and verdicts on guarantees
 
 Nothing here imports Qt or the window (``app/entry.py`` opens the window when no
 sub-command is named). Every failure is one line on stderr; the exit status is 0 when
@@ -21,13 +24,14 @@ import argparse
 import os
 import sys
 
-from app.cli import check, report, solve, study, sweep, year
+from app.cli import check, report, solve, study, sweep, uncertainty, year
 from app.cli.paths import EXIT_FAILED, expand_paths
 
 #: sub-command -> module with ``run(args)`` and either ``build_parser()`` or ``add_arguments(p)``
 #: (imported here, not by name at run time, so the import contracts see them; each module
 #: imports the core only when it runs)
-SUBCOMMANDS = {"solve": solve, "check": check, "report": report, "study": study, "year": year, "sweep": sweep}
+SUBCOMMANDS = {"solve": solve, "check": check, "report": report, "study": study, "year": year, "sweep": sweep,
+               "uncertainty": uncertainty}
 
 #: sub-commands that take the ``solve`` options (``--json``)
 _SOLVE_OPTIONS = ("year",)

@@ -21,7 +21,7 @@ from thermo.uncertainty.inputs import MeasuredInput, measured_inputs
 from thermo.uncertainty.linear import COVERAGE_FACTOR, LinearPropagation, propagate_linear
 from thermo.uncertainty.measurement_model import MeasurementModel
 from thermo.uncertainty.monte_carlo import MonteCarloCancelled, MonteCarloResult, propagate_monte_carlo
-from thermo.uncertainty.verdict import DECISION_RULE, Verdict, judge
+from thermo.uncertainty.verdict import DECISION_RULE, ISO1217_SOURCE, Verdict, judge
 
 
 def has_field_check(doc: dict) -> bool:
@@ -101,7 +101,8 @@ class FieldCheckUncertainty:
                       "with step ±u(x_i); Monte Carlo check (JCGM 101:2008)",
             "inputs": [{"input": i.path, "label": i.label, "quantity": i.quantity, "value": i.value,
                         "standard_uncertainty": i.standard_uncertainty, "distribution": i.distribution,
-                        "rule": i.rule} for i in self.inputs],
+                        "stated_as": i.stated_as, "half_width": i.half_width, "class_percent": i.class_percent,
+                        "full_scale": i.full_scale, "rule": i.rule} for i in self.inputs],
             "figures": figs,
             "sentences": self.sentences(),
             "monte_carlo": None if mc is None else {
@@ -109,6 +110,7 @@ class FieldCheckUncertainty:
                 "seed": mc.seed, "coverage_probability": mc.coverage_probability},
             "monte_carlo_note": self.monte_carlo_note,
             "decision_rule": DECISION_RULE,
+            "iso1217_source": ISO1217_SOURCE,
             "verdicts": [v.to_dict() for v in self.verdicts],
             "monte_carlo_verdicts": [v.to_dict() for v in self.monte_carlo_verdicts],
         }

@@ -51,7 +51,7 @@ def result_figures(norm: dict) -> list[ResultFigure]:
                                 "fraction"))
     for i, st in enumerate(norm["stages"]):
         if st.get("cooler"):
-            out.append(ResultFigure(f"stages[{i}].cooler.duty_W", f"cooler after stage {i + 1}: duty",
+            out.append(ResultFigure(f"stages[{i}].cooler.duty_W", f"duty of the cooler after stage {i + 1}",
                                     "heat_flow"))
     return out
 

@@ -41,9 +41,9 @@ MEASURABLE = (
     (r"stages\[(\d+)\]\.pressure_ratio", "stage {n} pressure ratio", "ratio"),
     (r"stages\[(\d+)\]\.mechanical_efficiency", "stage {n} mechanical efficiency", "fraction"),
     (r"stages\[(\d+)\]\.heat_loss_W", "stage {n} casing heat loss", "heat_flow"),
-    (r"stages\[(\d+)\]\.cooler\.outlet_temperature_K", "cooler after stage {n}: outlet temperature", "temperature"),
-    (r"stages\[(\d+)\]\.cooler\.pressure_drop_Pa", "cooler after stage {n}: pressure drop", "pressure_difference"),
-    (r"stages\[(\d+)\]\.cooler\.coolant_inlet_temperature_K", "cooler after stage {n}: coolant inlet temperature",
+    (r"stages\[(\d+)\]\.cooler\.outlet_temperature_K", "outlet temperature of the cooler after stage {n}", "temperature"),
+    (r"stages\[(\d+)\]\.cooler\.pressure_drop_Pa", "pressure drop of the cooler after stage {n}", "pressure_difference"),
+    (r"stages\[(\d+)\]\.cooler\.coolant_inlet_temperature_K", "coolant inlet temperature of the cooler after stage {n}",
      "temperature"),
 )
 _FLOW = {"shaft_power": ("shaft power", "power"), "mass": ("mass flow", "mass_flow"),
@@ -71,6 +71,9 @@ class MeasuredInput:
     rule: str
     lo: float = -math.inf
     hi: float = math.inf
+    stated_as: str = "standard"  #: the entry's kind: standard, limits or accuracy_class
+    class_percent: float | None = None
+    full_scale: float | None = None
 
 
 def describe_input(norm: dict, path: str) -> tuple[str, str] | None:
@@ -142,7 +145,8 @@ def measured_inputs(norm: dict) -> list[MeasuredInput]:
         label, kind = describe_input(norm, path)
         u, dist, a, rule = _standard(entry, value)
         lo, hi = _range(norm, path)
-        out.append(MeasuredInput(path, label, kind, value, u, dist, a, rule, lo, hi))
+        out.append(MeasuredInput(path, label, kind, value, u, dist, a, rule, lo, hi, entry["kind"],
+                                 entry.get("class_percent"), entry.get("full_scale")))
     return out
 
 

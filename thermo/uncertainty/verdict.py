@@ -69,6 +69,8 @@ def tolerance_of(guarantee: dict) -> tuple[float, str]:
 
     Examples
     --------
+    >>> tolerance_of({"kind": "iso1217_annex_c", "figure": "free_air_delivery_m3_s", "value": 0.4})
+    (0.016, 'ISO 1217:2009 Annex C, ±4 % (values from memory)')
     >>> tolerance_of({"kind": "relative", "figure": "mass_flow_kg_s", "value": 2.0, "tolerance": 0.05})
     (0.1, 'stated by the user: ±5 % of the guaranteed value')
     """
@@ -80,7 +82,7 @@ def tolerance_of(guarantee: dict) -> tuple[float, str]:
     flow = guarantee.get("flow_m3_s", g)
     band = next(b for b in ISO1217_ANNEX_C if flow <= b[0])
     t = band[1] if guarantee["figure"] == "free_air_delivery_m3_s" else band[2]
-    return t * g, f"±{t * 100:g} %: {ISO1217_SOURCE}"
+    return t * g, f"ISO 1217:2009 Annex C, ±{t * 100:g} % (values from memory)"
 
 
 def judge(figure: str, guarantee: dict, value: float, expanded_uncertainty: float) -> Verdict:
