@@ -245,6 +245,27 @@ CASES = [case_samples, case_four_stage, case_shaft_power, case_study, case_sweep
          case_files, case_report, case_startup, case_startup_phases]
 
 
+def case_field_check_monte_carlo():
+    """Field-check uncertainty (thermo/uncertainty): first order, and 10 000 Monte Carlo draws
+    through the lean solve on the fast property path (the issue 21 target is <= 2 s)."""
+    try:
+        from thermo.uncertainty.field_check import field_check_uncertainty
+    except ImportError:
+        print(f"{'field check Monte Carlo':<44}  (thermo.uncertainty not available)")
+        return
+    doc = json.loads((ROOT / "sample_projects" / "field_check_two_stage.json").read_text())
+    report("field check first order (11 inputs)",
+           measure(lambda: field_check_uncertainty(doc, monte_carlo=False), 5))
+    report("field check 10 000 draws, real gas", measure(lambda: field_check_uncertainty(doc, draws=10_000), 1, 0))
+    report("  the same, 2 processes",
+           measure(lambda: field_check_uncertainty(doc, draws=10_000, processes=2), 1, 0))
+    gas = dict(doc, fluid={"model": "constant_cp"})
+    report("  the same, perfect gas (constant cp)", measure(lambda: field_check_uncertainty(gas, draws=10_000), 1, 0))
+
+
+CASES.append(case_field_check_monte_carlo)
+
+
 def main(argv: list[str]) -> None:
     print(f"Stagewright bench — {time.strftime('%Y-%m-%d')} — Python {platform.python_version()}, "
           f"{platform.machine()}, {os.cpu_count()} cores, CoolProp {thermo.coolprop_adapter.coolprop_version()}")

@@ -15,7 +15,7 @@ import copy
 import numpy as np
 
 from thermo.errors import InputError
-from thermo.project.paths import set_path
+from thermo.project.paths import parse_path
 from thermo.solve import solve_normalised
 from thermo.uncertainty.figures import ResultFigure, figure_values
 from thermo.uncertainty.inputs import MeasuredInput
@@ -41,6 +41,15 @@ class MeasurementModel:
         self.nominal = np.array([i.value for i in inputs], dtype=float)
         self.lo = np.array([i.lo for i in inputs], dtype=float)
         self.hi = np.array([i.hi for i in inputs], dtype=float)
+        self._slots = [self._slot(i.path) for i in inputs]
+
+    def _slot(self, path: str) -> tuple:
+        """(container, key) of ``path`` in the working copy: found once, set at every call."""
+        parts = parse_path(path)
+        node = self._doc
+        for part in parts[:-1]:
+            node = node[part]
+        return node, parts[-1]
 
     def in_range(self, x: np.ndarray) -> bool:
         """True when every input value of ``x`` lies in its valid range."""
@@ -62,7 +71,7 @@ class MeasurementModel:
             j = int(np.argmax((x < self.lo) | (x > self.hi)))
             raise InputError(self.inputs[j].path, float(x[j]),
                              f"expected a value in [{self.lo[j]:g}, {self.hi[j]:g}]")
-        for inp, v in zip(self.inputs, x):
-            set_path(self._doc, inp.path, float(v))
+        for (node, key), v in zip(self._slots, x):
+            node[key] = float(v)
         result = solve_normalised(self._doc, detail=False, fast=True)
         return np.array(figure_values(result, self.figures), dtype=float)
