@@ -35,6 +35,7 @@ from app.panels.messages_panel import MessagesPanel
 from app.panels.site_panel import SitePanel
 from app.study.panel import StudyPanel
 from app.year.panel import YearPanel
+from app.field_check.panel import FieldCheckPanel
 from app.panels.train_panel import TrainPanel
 
 STATE_VERSION = 3  #: bump when panels are added or renamed, so old saved layouts are ignored
@@ -97,6 +98,7 @@ class MainWindow(QMainWindow):
         self.add_panel("balance", BalancePanel(self.editor), Qt.BottomDockWidgetArea)
         self.add_panel("study", StudyPanel(self.editor), Qt.BottomDockWidgetArea, tabify_with="balance")
         self.add_panel("year", YearPanel(self.editor), Qt.BottomDockWidgetArea, tabify_with="balance")
+        self.add_panel("field_check", FieldCheckPanel(self.editor), Qt.BottomDockWidgetArea, tabify_with="balance")
         self.docks["balance"].raise_()
         # below the key figures, inputs and messages run the full height on the left; the
         # balance sheet spans the charts and the train panel, where its columns have the width
@@ -425,6 +427,7 @@ class MainWindow(QMainWindow):
         self.exports.wait()
         self.panels["study"].shutdown()
         self.panels["year"].runner.shutdown()
+        self.panels["field_check"].shutdown()
         self.recovery.shutdown()  # a clean exit: the work is saved or was let go
         self.editor.shutdown()
         self.settings.setValue("window/geometry", self.saveGeometry())
