@@ -112,28 +112,43 @@ def test_accuracy_class_of_the_reading():
     assert inp.half_width == pytest.approx(0.01 * T2)
 
 
-@pytest.mark.parametrize("entry, field", [
-    ({"input": "stages[3].efficiency.value_K", "kind": "standard", "standard_uncertainty": 1.0},
-     "field_check.uncertainties[1].input"),
-    ({"input": "fluid.cp_J_kgK", "kind": "standard", "standard_uncertainty": 1.0}, "field_check.uncertainties[1].input"),
-    ({"input": "stages[0].efficiency.value_K", "kind": "standard", "standard_uncertainty": 1.0},
-     "field_check.uncertainties[1].input"),
-    ({"input": "stages[0].pressure_ratio", "kind": "standard", "standard_uncertainty": 0.1},
-     "field_check.uncertainties[1].input"),  # the project gives no ratio (null)
+@pytest.mark.parametrize("entry, blocks_solve", [
+    ({"input": "fluid.cp_J_kgK", "kind": "standard", "standard_uncertainty": 1.0}, True),  # not measurable
+    ({"input": "stages[0].efficiency.value_K", "kind": "standard", "standard_uncertainty": 1.0}, True),  # twice
+    ({"input": "stages[3].efficiency.value_K", "kind": "standard", "standard_uncertainty": 1.0}, False),  # no stage 4
+    ({"input": "stages[0].pressure_ratio", "kind": "standard", "standard_uncertainty": 0.1}, False),  # ratio null
 ])
-def test_bad_uncertainty_entries_name_their_field(entry, field):
+def test_bad_uncertainty_entries_name_their_field(entry, blocks_solve):
+    # entries that refer to a stage or value the project does not give (a stage removed since)
+    # must not block the solve: they are refused only when the uncertainty is evaluated
     doc = one_stage()
     doc["field_check"]["uncertainties"].append(entry)
-    found = problems(doc)
-    assert [p.field for p in found] == [field]
-    with pytest.raises(InputError):
-        normalise(doc)
+    field = "field_check.uncertainties[1].input"
+    assert [p.field for p in problems(doc)] == ([field] if blocks_solve else [])
+    with pytest.raises(InputError) as err:
+        field_check_uncertainty(doc, monte_carlo=False)
+    assert err.value.field == field
 
 
 def test_guarantee_on_a_figure_the_check_does_not_report():
-    doc = one_stage(guarantees=[{"kind": "relative", "figure": "stages[4].isentropic_efficiency", "value": 0.8,
+    bad = one_stage(guarantees=[{"kind": "relative", "figure": "stages[0].polytropic_efficiency", "value": 0.8,
                                  "tolerance": 0.02}])
-    assert [p.field for p in problems(doc)] == ["field_check.guarantees[0].figure"]
+    assert [p.field for p in problems(bad)] == ["field_check.guarantees[0].figure"]
+    gone = one_stage(guarantees=[{"kind": "relative", "figure": "stages[4].isentropic_efficiency", "value": 0.8,
+                                  "tolerance": 0.02}])
+    assert problems(gone) == []
+    with pytest.raises(InputError):
+        field_check_uncertainty(gone, monte_carlo=False)
+
+
+def test_removing_a_stage_leaves_a_project_that_still_solves():
+    from thermo import solve
+    doc = json.loads((SAMPLES / "field_check_two_stage.json").read_text())
+    doc["stages"] = doc["stages"][:1]
+    doc["stages"][0]["pressure_ratio"] = None
+    doc["discharge_pressure_Pa"] = 300_000.0
+    assert [p.field for p in problems(doc)] == []
+    assert len(solve(doc).stages) == 1
 
 
 def test_verdict_flips_exactly_at_the_tolerance_boundary():

@@ -135,7 +135,7 @@ def measured_inputs(norm: dict) -> list[MeasuredInput]:
     InputError
         If an entry names an input that cannot carry one (see :func:`field_check_problems`).
     """
-    found = field_check_problems(norm)
+    found = field_check_problems(norm, strict=True)
     if found:
         raise InputError.from_problems(found)
     out = []
@@ -150,10 +150,21 @@ def measured_inputs(norm: dict) -> list[MeasuredInput]:
     return out
 
 
-def field_check_problems(norm: dict) -> list[Problem]:
-    """Problems of a normalised document's ``field_check`` section (empty when absent or fine):
-    an input that is not measurable or not given, one named twice, an accuracy class of a zero
-    reading, a guarantee on a figure the check does not report."""
+#: names of the figures a guarantee may name (their paths in the results)
+_FIGURE_NAME = re.compile(r"mass_flow_kg_s|free_air_delivery_m3_s|shaft_power_W|specific_power_kW_per_m3_min"
+                          r"|stages\[\d+\]\.isentropic_efficiency|stages\[\d+\]\.cooler\.duty_W")
+
+
+def field_check_problems(norm: dict, strict: bool = False) -> list[Problem]:
+    """Problems of a normalised document's ``field_check`` section (empty when absent or fine).
+
+    Always: an input path that names no measurable input, an input named twice, a guarantee on
+    a figure name no field check reports, ISO 1217 tolerances on another figure. With
+    ``strict`` (when the uncertainty is evaluated) also: an input the project does not give
+    (a stage removed since, a pressure ratio left to the split), an accuracy class of a zero
+    reading, a guarantee on a figure this project does not have. Validation uses the lenient
+    form, so an edit of the train never blocks the solve because of the field check.
+    """
     section = norm.get("field_check")
     if not section:
         return []
@@ -166,29 +177,36 @@ def field_check_problems(norm: dict) -> list[Problem]:
             out.append(Problem(where, path, "expected the field path of a measured input, e.g. "
                                             "stages[0].efficiency.value_K, site.ambient_temperature_K, flow.value"))
             continue
-        try:
-            value = get_path(norm, path)
-        except (KeyError, IndexError, TypeError):
-            value = None
-        if not isinstance(value, (int, float)) or isinstance(value, bool):
-            out.append(Problem(where, path, "expected an input the project gives a number for"))
-        elif path in seen:
+        if path in seen:
             out.append(Problem(where, path, "this input already has an uncertainty"))
-        elif entry.get("kind") == "accuracy_class" and entry.get("full_scale") is None and value == 0:
-            out.append(Problem(f"field_check.uncertainties[{i}].full_scale", None,
-                               "required: an accuracy class of a zero reading needs the full scale"))
         seen.add(path)
+        if strict:
+            out.extend(_given_problems(norm, entry, i))
     names = {f.name for f in result_figures(norm)}
     for i, g in enumerate(section.get("guarantees", [])):
-        fig = g.get("figure")
+        fig, where = g.get("figure"), f"field_check.guarantees[{i}].figure"
         if not isinstance(fig, str):
             continue
-        if fig not in names:
-            out.append(Problem(f"field_check.guarantees[{i}].figure", fig,
-                               "expected one of " + ", ".join(sorted(names))))
+        if not _FIGURE_NAME.fullmatch(fig) or (strict and fig not in names):
+            out.append(Problem(where, fig, "expected one of " + ", ".join(sorted(names))))
         elif g.get("kind") == "iso1217_annex_c" and fig not in ("free_air_delivery_m3_s",
                                                                  "specific_power_kW_per_m3_min"):
-            out.append(Problem(f"field_check.guarantees[{i}].figure", fig,
-                               "ISO 1217 Annex C tolerances apply to free_air_delivery_m3_s and "
-                               "specific_power_kW_per_m3_min only"))
+            out.append(Problem(where, fig, "ISO 1217 Annex C tolerances apply to free_air_delivery_m3_s and "
+                                           "specific_power_kW_per_m3_min only"))
     return out
+
+
+def _given_problems(norm: dict, entry: dict, i: int) -> list[Problem]:
+    """An uncertainty entry's input must be a number the project gives (not zero for a class of the reading)."""
+    path = entry["input"]
+    try:
+        value = get_path(norm, path)
+    except (KeyError, IndexError, TypeError):
+        value = None
+    if not isinstance(value, (int, float)) or isinstance(value, bool):
+        return [Problem(f"field_check.uncertainties[{i}].input", path,
+                        "expected an input the project gives a number for")]
+    if entry.get("kind") == "accuracy_class" and entry.get("full_scale") is None and value == 0:
+        return [Problem(f"field_check.uncertainties[{i}].full_scale", None,
+                        "required: an accuracy class of a zero reading needs the full scale")]
+    return []
