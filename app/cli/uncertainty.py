@@ -6,7 +6,7 @@ and a verdict per guaranteed figure. Reads the project's ``field_check`` section
 """
 from __future__ import annotations
 
-__all__ = ["run", "add_arguments", "format_uncertainty"]
+__all__ = ["add_arguments", "format_uncertainty", "run"]
 
 import json
 import sys
@@ -45,28 +45,33 @@ def format_uncertainty(title: str, d: dict, system: str = "SI") -> str:
     return "\n".join(parts)
 
 
+def _ticker(bar, name: str):
+    """``progress(fraction, message)`` that moves ``bar`` (a Progress of 100 steps) by whole per cent."""
+    shown = [-1]
+
+    def tick(fraction: float, message: str) -> None:
+        if int(100 * fraction) != shown[0]:
+            shown[0] = int(100 * fraction)
+            bar.count = shown[0] - 1
+            bar.step(f"{name}: {message}")
+    return tick
+
+
 def run(args) -> int:
     """Report the field-check uncertainty of every project named."""
+    from app.cli.progress import Progress
     from thermo import StagewrightError
     from thermo.project import load
     from thermo.uncertainty.field_check import field_check_uncertainty
-    from app.cli.progress import Progress
 
     status, outputs = EXIT_OK, []
     for path in expand_paths(args.files):
         try:
             doc = load(path)
             with Progress(100) as bar:
-                shown = [-1]
-
-                def tick(fraction: float, message: str) -> None:
-                    if int(100 * fraction) != shown[0]:
-                        shown[0] = int(100 * fraction)
-                        bar.count = shown[0] - 1
-                        bar.step(f"{path.name}: {message}")
                 result = field_check_uncertainty(doc, monte_carlo=not args.no_monte_carlo, draws=args.draws,
                                                  seed=args.seed, processes=max(1, args.processes),
-                                                 progress=tick).to_dict()
+                                                 progress=_ticker(bar, path.name)).to_dict()
         except StagewrightError as exc:
             print(f"{path}: {exc}", file=sys.stderr)
             status = EXIT_INPUT

@@ -7,12 +7,10 @@ with the Celsius offset.
 """
 from __future__ import annotations
 
-__all__ = ["FIGURE_COLUMNS", "INPUT_COLUMNS", "VERDICT_COLUMNS", "figure_rows", "input_rows", "verdict_rows",
-           "notes", "difference_quantity", "unit_symbol", "VERDICT_WORDS"]
+__all__ = ["FIGURE_COLUMNS", "INPUT_COLUMNS", "VERDICT_COLUMNS", "VERDICT_WORDS", "difference_quantity",
+           "figure_rows", "input_rows", "notes", "verdict_rows"]
 
-import math
-
-from app.presentation.units import format_value, unit
+from app.presentation.units import format_value
 
 FIGURE_COLUMNS = ("Result", "Value", "U (k = 2)", "U relative", "Monte Carlo interval", "Largest contributor")
 INPUT_COLUMNS = ("Measured input", "Value", "u", "How u was found")
@@ -25,11 +23,6 @@ def difference_quantity(quantity: str) -> str:
     """The display quantity of a difference of ``quantity`` (K for temperatures, no offset)."""
     return {"temperature": "temperature_difference", "gauge_pressure": "pressure_difference",
             "pressure": "pressure_difference"}.get(quantity, quantity)
-
-
-def unit_symbol(quantity: str, system: str) -> str:
-    """Display unit symbol of a quantity (pressures absolute)."""
-    return unit(quantity, system).symbol
 
 
 def _value(si, quantity: str, system: str) -> str:
@@ -123,7 +116,3 @@ def notes(d: dict) -> list[str]:
 def _capital(text: str) -> str:
     return text[:1].upper() + text[1:]
 
-
-def relative(U, y) -> float:
-    """U/|y| (NaN where y is zero or missing)."""
-    return math.nan if not y else U / abs(y)
