@@ -94,7 +94,8 @@ def judge(figure: str, guarantee: dict, value: float, expanded_uncertainty: floa
         The figure's name (its path in the results).
     guarantee : dict
         A normalised ``field_check.guarantees`` entry; for ``iso1217_annex_c`` on specific
-        power, ``flow_m3_s`` (the guaranteed flow) picks the band.
+        power, ``flow_m3_s`` picks the band (the field check passes its free air delivery;
+        a flow guarantee's band follows the guaranteed flow).
     value, expanded_uncertainty : float
         The result and its expanded uncertainty (k = 2), in the figure's SI unit.
 
