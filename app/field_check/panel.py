@@ -41,6 +41,7 @@ def _fill(table: QTableWidget, rows: list[list[str]], left: tuple = (0,)) -> Non
     for r, row in enumerate(rows):
         for c, text in enumerate(row):
             item = QTableWidgetItem(text)
+            item.setToolTip(text)  # long cells (the tolerance's source) are cut at the panel's width
             item.setTextAlignment((Qt.AlignLeft if c in left else Qt.AlignRight) | Qt.AlignVCenter)
             table.setItem(r, c, item)
     table.resizeColumnsToContents()
