@@ -52,3 +52,34 @@ def test_a_project_without_field_check_says_how_to_add_one(qtbot, tmp_path):
     assert not panel.run_button.isEnabled()
     assert "field_check" in panel.status.text()
     win.close()
+
+
+def test_stating_an_uncertainty_in_the_window_is_one_undo_step(qtbot, tmp_path):
+    from gui_support import simple_real_gas_doc
+    doc = simple_real_gas_doc()
+    doc["stages"][0]["efficiency"] = {"kind": "discharge_temperature", "value_K": 420.0}
+    win = make_window(qtbot, tmp_path, doc)
+    panel = win.panels["field_check"]
+    ed = panel.inputs_editor
+    assert "stages[0].efficiency.value_K" in ed.paths and not panel.run_button.isEnabled()
+    ed.input_box.setCurrentIndex(ed.paths.index("stages[0].efficiency.value_K"))
+    ed.kind_box.setCurrentText("limits ± a (rectangular)")
+    assert ed.unit_label.text() == "K"
+    ed.amount.setText("1.5")
+    assert ed.apply()
+    assert win.model.get("field_check") == {"uncertainties": [
+        {"input": "stages[0].efficiency.value_K", "kind": "limits", "half_width": 1.5}]}
+    assert panel.run_button.isEnabled()
+    ed.kind_box.setCurrentText("accuracy class, % of full scale")
+    ed.amount.setText("0.5")
+    ed.scale.setText("600")
+    assert ed.apply()  # replaces the input's entry
+    assert win.model.get("field_check")["uncertainties"] == [
+        {"input": "stages[0].efficiency.value_K", "kind": "accuracy_class", "class_percent": 0.5, "full_scale": 600.0}]
+    ed.amount.setText("a lot")
+    assert not ed.apply() and "numbers" in ed.message.text()
+    assert ed.remove()
+    assert win.model.get("field_check", None) is None
+    win.editor.undo_stack.undo()
+    assert win.model.get("field_check")["uncertainties"][0]["class_percent"] == 0.5
+    win.close()

@@ -16,6 +16,7 @@ from PySide6.QtWidgets import (QAbstractItemView, QHBoxLayout, QLabel, QPlainTex
                                QTableWidget, QTableWidgetItem, QTabWidget, QVBoxLayout, QWidget)
 
 from app.document.messages import error_text
+from app.field_check.inputs_editor import InputsEditor
 from app.field_check.worker import FieldCheckRunner
 from app.presentation import uncertainty_table as ut
 from app.widgets.table_copy import attach_table_copy
@@ -88,7 +89,8 @@ class FieldCheckPanel(QWidget):
         self.inputs_table = _table(ut.INPUT_COLUMNS)
         self.tabs.addTab(self.figures_table, "Results ± U")
         self.tabs.addTab(self.verdicts_table, "Guarantees")
-        self.tabs.addTab(self.inputs_table, "Measured inputs")
+        self.inputs_editor = InputsEditor(editor, self.inputs_table)
+        self.tabs.addTab(self.inputs_editor, "Measured inputs")
         self.tabs.addTab(self.notes, "Contributors and method")
         lay.addWidget(self.tabs, 1)
         self.run_button.clicked.connect(self.run)
@@ -141,6 +143,8 @@ class FieldCheckPanel(QWidget):
         self.status.setText(text)
 
     def _on_project_changed(self) -> None:
+        if hasattr(self, "inputs_editor"):
+            self.inputs_editor.refresh()
         if not self.runner.busy:
             self.run_button.setEnabled(self.has_field_check())
         if not self.has_field_check():

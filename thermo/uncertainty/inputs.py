@@ -15,7 +15,7 @@ A project's ``field_check.uncertainties`` names measured inputs by their field p
 """
 from __future__ import annotations
 
-__all__ = ["MeasuredInput", "MEASURABLE", "describe_input", "measured_inputs", "field_check_problems"]
+__all__ = ["MeasuredInput", "MEASURABLE", "describe_input", "measured_inputs", "measurable_paths", "field_check_problems"]
 
 import math
 import re
@@ -93,6 +93,37 @@ def describe_input(norm: dict, path: str) -> tuple[str, str] | None:
             return _FLOW[norm["flow"]["kind"]]
         return label.format(n=int(m.group(1)) + 1) if m.groups() else label, kind
     return None
+
+
+def measurable_paths(norm: dict) -> list[str]:
+    """Field paths of the inputs of ``norm`` that can carry an uncertainty and have a number.
+
+    Examples
+    --------
+    >>> norm = {"site": {"ambient_temperature_K": 293.15, "barometric_pressure_Pa": None},
+    ...         "flow": {"kind": "mass", "value": 1.0}, "discharge_pressure_Pa": 4e5,
+    ...         "stages": [{"efficiency": {"kind": "discharge_temperature", "value_K": 440.0},
+    ...                     "pressure_ratio": None, "cooler": None}]}
+    >>> measurable_paths(norm)
+    ['site.ambient_temperature_K', 'discharge_pressure_Pa', 'flow.value', 'stages[0].efficiency.value_K']
+    """
+    candidates = [f"site.{k}" for k in ("ambient_temperature_K", "barometric_pressure_Pa", "relative_humidity",
+                                       "dew_point_K", "humidity_ratio")]
+    candidates += ["inlet_pressure_drop_Pa", "discharge_pressure_Pa", "discharge_gauge_pressure_Pa", "flow.value",
+                   "driver.efficiency"]
+    for i, _ in enumerate(norm.get("stages", [])):
+        candidates += [f"stages[{i}].{k}" for k in ("efficiency.value_K", "pressure_ratio", "mechanical_efficiency",
+                                                     "heat_loss_W", "cooler.outlet_temperature_K",
+                                                     "cooler.pressure_drop_Pa", "cooler.coolant_inlet_temperature_K")]
+    out = []
+    for path in candidates:
+        try:
+            value = get_path(norm, path)
+        except (KeyError, IndexError, TypeError):
+            continue
+        if isinstance(value, (int, float)) and not isinstance(value, bool):
+            out.append(path)
+    return out
 
 
 def _standard(entry: dict, value: float) -> tuple[float, str, float | None, str]:
