@@ -10,6 +10,7 @@ from thermo.cooler import solve_cooler
 from thermo.errors import message_detail, quantity
 from thermo.exergy import flow_exergy, water_exergy
 from thermo.flow import NORMAL_PRESSURE, NORMAL_TEMPERATURE
+from thermo.moist.freezing import frozen_condensate_warning, intake_rime_warning
 from thermo.moist.stream import MoistAir, check_humid_range
 from thermo.moist.iso8573 import REFERENCE_PRESSURE, REFERENCE_TEMPERATURE, humidity_class
 from thermo.models.base import Point, PropertyModel
@@ -201,6 +202,9 @@ def _run_line(ctx: SolveContext, ratios: list, mass_flow: float, detail: bool) -
     intake, mixture = ctx.intake, ctx.mixture
     specs = ctx.norm["stages"]
     line = _Line(intake.model, intake.after_filter)
+    rime = intake_rime_warning(intake.frost_deposit, mass_flow, ctx.site.ambient_temperature_K)
+    if rime is not None:
+        line.warnings.append(rime)
     for i, spec in enumerate(specs):
         st = solve_stage(line.model, spec, i, line.point, line.velocity, line.point.P * ratios[i], mass_flow,
                          intake.dead, detail)
@@ -225,6 +229,10 @@ def _run_line(ctx: SolveContext, ratios: list, mass_flow: float, detail: bool) -
                 line.drains.append((w.drained_kg_s, w.liquid_enthalpy_J_kg, w.liquid_entropy_J_kgK,
                                     line.point.T, line.point.P))
             line.warnings.extend(_water_notes(i, len(specs), w, mass_flow))
+            frozen = frozen_condensate_warning(i, len(specs), c, (spec["cooler"].get("coolant") or {}).get("kind"),
+                                               ctx.site.ambient_temperature_K)
+            if frozen is not None:
+                line.warnings.append(frozen)
             line.model = MoistAir(mixture, w.water_after)
     return line
 

@@ -13,7 +13,7 @@ import math
 from functools import lru_cache
 
 from thermo import coolprop_adapter as cpa
-from thermo.moist.saturation import T_CRITICAL, saturation_pressure, saturation_pressure_log_slope
+from thermo.moist.saturation import T_CRITICAL, liquid_vapour_pressure, vapour_pressure, vapour_pressure_log_slope
 
 P_REF = 101_325.0  #: reference pressure of the ideal-gas entropy of water vapour, [Pa]
 R_MOLAR = 8.314462618  #: molar gas constant, CODATA 2018, [J/(mol K)]
@@ -154,7 +154,8 @@ class MoistMixture:
 
     .. math:: x_{ws} = f(T, p)\,p_{ws}(T)/p
 
-    with :math:`p_{ws}` of IAPWS-IF97 and the enhancement factor :math:`f` of RP-1485
+    with :math:`p_{ws}` of IAPWS-IF97 (over ice, IAPWS 2011, below the triple point
+    273.16 K, where the condensed water is then ice) and the enhancement factor :math:`f` of RP-1485
     (CoolProp's implementation) for ``real_gas``, :math:`f = 1` for the ideal mixtures.
 
     Condensed water has the Gibbs energy of the vapour it is in equilibrium with,
@@ -319,7 +320,7 @@ class MoistMixture:
         """Mole fraction of water vapour at saturation, x_ws = f p_ws / p [-]; inf where water cannot condense."""
         if T >= T_CRITICAL:
             return math.inf
-        x = self.enhancement(T, P) * saturation_pressure(T) / P
+        x = self.enhancement(T, P) * vapour_pressure(T) / P
         return x if x < 1.0 else math.inf
 
     def saturation_ratio(self, T: float, P: float) -> float:
@@ -331,12 +332,12 @@ class MoistMixture:
         """Cheap test without the enhancement factor: True when w is certainly below saturation."""
         if T >= T_CRITICAL:
             return True
-        return w / (self.epsilon + w) * P < 0.999 * saturation_pressure(T)
+        return w / (self.epsilon + w) * P < 0.999 * vapour_pressure(T)
 
     # ---- condensed water ----------------------------------------------------------------------
     def _ln_fp(self, T: float, P: float) -> float:
         """ln(f p_ws) at saturation, [ln Pa]."""
-        return math.log(self.enhancement(T, P) * saturation_pressure(T))
+        return math.log(self.enhancement(T, P) * vapour_pressure(T))
 
     def _mu_virial(self, T: float, P: float, x_w: float) -> float:
         """Interaction part of the chemical potential of water, [J/kg] (0 for the ideal mixtures)."""
@@ -377,7 +378,7 @@ class MoistMixture:
         d = _DT_LIQUID
         hw, sw, _ = self.vapour(T)
         ln_fp = self._ln_fp(T, P)
-        dln = saturation_pressure_log_slope(T)
+        dln = vapour_pressure_log_slope(T)
         if self.uses_enhancement:
             dln += (math.log(self.enhancement(T + d, P)) - math.log(self.enhancement(T - d, P))) / (2.0 * d)
         if self.virial is None:
@@ -402,12 +403,22 @@ class MoistMixture:
 
     # ---- psychrometric quantities ---------------------------------------------------------
     def relative_humidity(self, T: float, P: float, w: float):
-        """Relative humidity x_w p / (f p_ws(T)) [-] (mole-fraction basis); None at or above the critical temperature.
+        """Relative humidity x_w p / (f p_w,liq(T)) [-] (mole-fraction basis), relative to liquid
+        water also below 0 °C (supercooled; the WMO convention of meteorological data, see
+        :mod:`thermo.moist.saturation`); None at or above the critical temperature.
 
         Defined also where p_ws(T) exceeds p (hot compressed air, where water cannot condense)."""
         if T >= T_CRITICAL:
             return None
-        return (w / (self.epsilon + w)) * P / (self.enhancement(T, P) * saturation_pressure(T))
+        return (w / (self.epsilon + w)) * P / (self.enhancement(T, P) * liquid_vapour_pressure(T))
+
+    def saturation_degree(self, T: float, P: float, w: float):
+        """x_w / x_ws [-]: relative humidity over the stable phase (ice below 0.01 °C), the
+        convention of ASHRAE RP-1485 and CoolProp's ``HAPropsSI`` input ``R``; None at or above
+        the critical temperature."""
+        if T >= T_CRITICAL:
+            return None
+        return (w / (self.epsilon + w)) * P / (self.enhancement(T, P) * vapour_pressure(T))
 
     def dew_point(self, P: float, w: float):
         """Temperature at which vapour content w saturates at pressure P, [K] (frost point below

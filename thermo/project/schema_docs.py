@@ -40,9 +40,13 @@ PROJECT_KEYS = {
                                    "or `elevation_m`, not both; with neither, 101 325 Pa.",
     "site.elevation_m": "Site elevation; the barometric pressure then follows the ISO 2533 "
                         "standard atmosphere.",
-    "site.relative_humidity": "Relative humidity of the ambient air, as a fraction (0.6 = 60 %).",
+    "site.relative_humidity": "Relative humidity of the ambient air, as a fraction (0.6 = 60 %). As "
+                              "meteorological data give it: relative to liquid water, also below 0 °C "
+                              "(WMO-No. 8; supercooled water after Murphy & Koop 2005). Below 0 °C air "
+                              "above saturation over ice deposits the excess as rime on the intake (a caution).",
     "site.dew_point_K": "Dew point of the ambient air at the site pressure, instead of relative_humidity "
-                        "(at most one humidity key; not above ambient, not below 273.15 K: frost is out of scope).",
+                        "(at most one humidity key; not above ambient). Below 0.01 °C it is the frost point, over ice "
+                        "(IAPWS 2011); convert a meteorological dew point over supercooled water to relative_humidity.",
     "site.humidity_ratio": "Water vapour per dry air of the ambient air, kg/kg, instead of relative_humidity "
                            "(at most one humidity key; at most saturation).",
     "fluid": "How the properties of air are computed.",
@@ -261,8 +265,9 @@ RESULT_KEYS = {
     "point.density_kg_m3": "Density.",
     "point.velocity_m_s": "Velocity of the stream at this point.",
     "point.humidity_ratio": "Water vapour per unit mass of dry air, kg/kg.",
-    "point.relative_humidity": "Relative humidity, as a fraction.",
-    "point.dew_point_K": "Dew point at the point's pressure (null for dry air).",
+    "point.relative_humidity": "Relative humidity, as a fraction (relative to liquid water, also below 0 °C).",
+    "point.dew_point_K": "Dew point at the point's pressure; below 0.01 °C the frost point over ice "
+                         "(IAPWS 2011 sublimation pressure); null for dry air.",
     "point.liquid_ratio": "Liquid water carried per unit mass of dry air, kg/kg (moist air only).",
     "stages[].path[].humidity_ratio": "Water vapour per dry air at this point of the path (moist air only).",
     "stages[].path[].liquid_ratio": "Liquid water per dry air at this point of the path (moist air only).",
@@ -285,7 +290,8 @@ RESULT_KEYS = {
     "condensate_exergy_W": "Exergy leaving with the drained condensate.",
     "delivered_water_kg_s": "Water (vapour and liquid) leaving with the delivered air.",
     "delivered_liquid_kg_s": "Liquid water leaving with the delivered air.",
-    "delivered_pressure_dew_point_K": "Pressure dew point of the delivered air (null for a dry intake).",
+    "delivered_pressure_dew_point_K": "Pressure dew point of the delivered air; below 0.01 °C its frost "
+                                      "point over ice (IAPWS 2011); null for a dry intake.",
     "delivered_atmospheric_dew_point_K": "Dew point of the delivered air expanded to the site pressure.",
     "iso8573_humidity_class": "ISO 8573-1 water class the delivered air meets (table from memory).",
     "water_balance_residual": "Water in minus water out, relative to water in (0 for a dry intake).",
