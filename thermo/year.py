@@ -16,17 +16,28 @@ circuit it is circulation, not consumption); glycol circuits are reported separa
 Load scales the project's flow value (mass, volume or shaft power). Air-cooled coolers
 take their coolant inlet from the bin's ambient temperature; water and glycol coolers
 keep theirs unless the bin gives ``coolant_inlet_temperature_K``.
+
+Coolers are sized afresh in every bin (``year.coolers.mode = "size_every_bin"``, each bin
+gets a perfect exchanger) or sized once at a design condition and rated at that fixed UA in
+every bin (``"design_once"``, :mod:`thermo.year_design`). Each bin's project shares every
+unchanged part with the year's normalised project (:mod:`thermo.year_bins`), so a year's time
+grows linearly with its bins. Bins are solved on the fast property path of trial solves
+(:func:`thermo.solve.solve_normalised` with ``detail=False, fast=True``; its figures agree with
+exact solves to better than 1e-4 relative, tests/test_year_design.py checks the totals);
+``run_year(..., exact=True)`` solves them exactly.
 """
 from __future__ import annotations
 
 __all__ = ["YearResult", "BinResult", "YearCancelled", "run_year", "CONDENSATE_DENSITY_KG_M3"]
 
-import copy
 from dataclasses import asdict, dataclass, field
+from functools import partial
 
 from thermo.project.validation import normalise
 from thermo.errors import InputError, StagewrightError
-from thermo.solve import solve
+from thermo.solve import solve_normalised
+from thermo.year_bins import norm_for_bin, year_base
+from thermo.year_design import YearDesign, design_coolers, limit_flags
 from thermo.year_profile import Bin, operating_bins
 
 CONDENSATE_DENSITY_KG_M3 = 1000.0
@@ -58,6 +69,17 @@ class BinResult:
     recovered_value: float
     max_discharge_temperature_K: float
     warnings: list = field(default_factory=list)
+    #: per stage (None where it has no cooler): air outlet, coolant outlet, duty and condensate drained
+    cooler_outlet_temperatures_K: list = field(default_factory=list)
+    coolant_outlet_temperatures_K: list = field(default_factory=list)
+    cooler_duties_W: list = field(default_factory=list)
+    cooler_condensate_kg_s: list = field(default_factory=list)
+    #: the air reaching the dryer (the delivered air): temperature and pressure dew point (frost
+    #: point below 0.01 °C; None for a dry intake)
+    dryer_inlet_temperature_K: float = 0.0
+    pressure_dew_point_K: float | None = None
+    #: stated limits this bin misses (:func:`thermo.year_design.limit_flags`); empty when it meets them
+    limit_flags: list = field(default_factory=list)
 
 
 @dataclass
@@ -68,10 +90,14 @@ class YearResult:
     totals: dict
     worst_discharge_bin: str
     worst_duty_bin: str
+    cooler_mode: str = "size_every_bin"
+    design: YearDesign | None = None  #: the coolers' design (``design_once``)
 
     def to_dict(self) -> dict:
-        """Plain data (JSON-ready): ``bins``, ``totals``, worst bins."""
+        """Plain data (JSON-ready): ``bins``, ``totals``, worst bins, the coolers' design."""
         return {"bins": [asdict(b) for b in self.bins], "totals": dict(self.totals),
+                "cooler_mode": self.cooler_mode,
+                "cooler_design": None if self.design is None else self.design.to_dict(),
                 "worst_discharge_temperature": {"bin": self.worst_discharge_bin,
                                                 "temperature_K": max(b.max_discharge_temperature_K
                                                                      for b in self.bins)},
@@ -79,37 +105,32 @@ class YearResult:
                                       "duty_W": max(b.cooler_duty_W for b in self.bins)}}
 
 
-def _doc_for(doc: dict, b: Bin) -> dict:
-    d = copy.deepcopy(doc)
-    d.pop("year", None)
-    d["site"]["ambient_temperature_K"] = b.temperature_K
-    d["site"]["relative_humidity"] = b.relative_humidity
-    d["flow"]["value"] = d["flow"]["value"] * b.load
-    for st in d["stages"]:
-        cooler = st.get("cooler")
-        if not cooler:
-            continue
-        kind = (cooler.get("coolant") or {}).get("kind")
-        if kind == "air":
-            cooler.pop("coolant_inlet_temperature_K", None)
-        elif b.coolant_inlet_temperature_K is not None and (
-                kind is not None or cooler.get("coolant_inlet_temperature_K") is not None):
-            cooler["coolant_inlet_temperature_K"] = b.coolant_inlet_temperature_K
-    return d
+def _cooler_figures(res) -> tuple:
+    """Per stage: air outlet, coolant outlet, duty and condensate drained (None without a cooler)."""
+    outs, coolant, duties, cond = [], [], [], []
+    for c in res.coolers:
+        ex = None if c is None else c.exchanger
+        outs.append(None if c is None else c.outlet.T)
+        coolant.append(None if ex is None else ex.coolant.outlet_temperature_K)
+        duties.append(None if c is None else c.duty_W)
+        cond.append(None if c is None else (c.water.drained_kg_s if c.water is not None else 0.0))
+    return outs, coolant, duties, cond
 
 
-def _solve_bin(doc: dict, b: Bin, year: dict, rec: dict | None) -> BinResult:
-    res = solve(_doc_for(doc, b))
-    d = res.to_dict()
+def _bin_result(res, b: Bin, year: dict, rec: dict | None, flags: list) -> BinResult:
+    """A bin's figures from its solve (no ``to_dict``: only what the year reports)."""
     seconds = 3600.0 * b.hours
-    coolers = [st["cooler"] for st in d["stages"] if st["cooler"] is not None]
-    condensate_kg_s = d.get("condensate_kg_s") or 0.0
-    water = sum(c["coolant_volume_flow_m3_s"] for c in coolers if c.get("coolant_kind") == "water")
-    glycol = sum(c["coolant_volume_flow_m3_s"] for c in coolers if c.get("coolant_kind") == "glycol")
+    coolers = [c for c in res.coolers if c is not None]
+    water = sum(c.exchanger.coolant.volume_flow_m3_s for c in coolers
+                if c.exchanger is not None and c.exchanger.coolant.kind == "water")
+    glycol = sum(c.exchanger.coolant.volume_flow_m3_s for c in coolers
+                 if c.exchanger is not None and c.exchanger.coolant.kind == "glycol")
+    condensate_kg_s = res.water.condensate_kg_s if res.water is not None else 0.0
     energy = res.driver_power_W * b.hours / 1000.0
-    q_rec = d.get("recoverable_heat_W")
+    q_rec = None if res.recovery is None else res.recovery.recoverable_heat_W
     rec_kwh = (q_rec or 0.0) * b.hours / 1000.0
     value = rec_kwh / rec["boiler_efficiency"] * rec["fuel_price_per_kWh"] if rec else 0.0
+    outs, coolant, duties, cond = _cooler_figures(res)
     return BinResult(
         label=b.label, temperature_K=b.temperature_K, relative_humidity=b.relative_humidity, hours=b.hours,
         load=b.load, driver_power_W=res.driver_power_W, energy_kWh=energy,
@@ -117,17 +138,32 @@ def _solve_bin(doc: dict, b: Bin, year: dict, rec: dict | None) -> BinResult:
         condensate_m3=condensate_kg_s * seconds / CONDENSATE_DENSITY_KG_M3,
         cooling_water_m3=water * seconds, glycol_circulated_m3=glycol * seconds,
         water_cost=water * seconds * year["water_price_per_m3"],
-        cooler_duty_W=sum(c["duty_W"] for c in coolers), recoverable_heat_W=q_rec,
+        cooler_duty_W=sum(c.duty_W for c in coolers), recoverable_heat_W=q_rec,
         recoverable_heat_kWh=rec_kwh, recovered_value=value,
-        max_discharge_temperature_K=max(st["outlet"]["temperature_K"] for st in d["stages"]),
-        warnings=[w["message"] for w in d["warnings"]])
+        max_discharge_temperature_K=max(st.outlet.T for st in res.stages),
+        warnings=[w.message for w in res.warnings], cooler_outlet_temperatures_K=outs,
+        coolant_outlet_temperatures_K=coolant, cooler_duties_W=duties, cooler_condensate_kg_s=cond,
+        dryer_inlet_temperature_K=res.delivery.T,
+        pressure_dew_point_K=None if res.water is None else res.water.delivered_pressure_dew_point_K,
+        limit_flags=flags)
+
+
+def _in_bin(b: Bin, fn, *args):
+    """``fn(*args)``, its StagewrightError re-raised naming bin ``b``."""
+    try:
+        return fn(*args)
+    except StagewrightError as exc:
+        if isinstance(exc, InputError):
+            raise InputError(exc.problem.field, exc.problem.value, f"{exc.problem.expected} (year, {b.label})") from None
+        raise type(exc)(f"year, {b.label} ({b.temperature_K:.2f} K, RH {b.relative_humidity:.2f}): {exc}",
+                        exc.field) from None
 
 
 _SUMMED = ("hours", "energy_kWh", "energy_cost", "condensate_m3", "cooling_water_m3", "glycol_circulated_m3",
            "water_cost", "recoverable_heat_kWh", "recovered_value")
 
 
-def run_year(doc: dict, progress=None, cancelled=None) -> YearResult:
+def run_year(doc: dict, progress=None, cancelled=None, exact: bool = False) -> YearResult:
     """Solve a project for every bin of its ``year`` section and total the year.
 
     Parameters
@@ -138,13 +174,17 @@ def run_year(doc: dict, progress=None, cancelled=None) -> YearResult:
         ``progress(done, total)`` after each bin.
     cancelled : callable, optional
         ``cancelled()`` → True stops the run between bins (:class:`YearCancelled`).
+    exact : bool
+        Solve the bins (and the coolers' design) on the exact property path instead of the
+        fast one (figures agree to better than 1e-4 relative).
 
     Returns
     -------
     YearResult
         Per-bin figures, totals (``energy_kWh``, ``energy_cost``, ``condensate_m3``,
-        ``cooling_water_m3``, ``recoverable_heat_kWh`` …) and the worst bins for discharge
-        temperature and cooler duty.
+        ``cooling_water_m3``, ``recoverable_heat_kWh``, ``bins_missing_limits`` …), the worst
+        bins for discharge temperature and cooler duty, and the coolers' design
+        (``year.coolers.mode = "design_once"``).
 
     Raises
     ------
@@ -169,24 +209,50 @@ def run_year(doc: dict, progress=None, cancelled=None) -> YearResult:
         raise InputError("year", None, "add a 'year' section (ambient profile, hours, load) to run a year")
     rec = norm.get("heat_recovery")
     bins = operating_bins(year)
+    base = year_base(norm)
+    solve_fn = partial(solve_normalised, detail=False, fast=False) if exact else partial(
+        solve_normalised, detail=False, fast=True)
+    settings = year["coolers"]
+    design = None
+    if settings["mode"] == "design_once":
+        design = _in_design(base, bins, settings, solve_fn)
+    rating = None if design is None else design.rating()
+    max_dryer = settings.get("max_dryer_inlet_temperature_K")
     out: list[BinResult] = []
     for i, b in enumerate(bins):
         if cancelled is not None and cancelled():
             err = YearCancelled(f"year run cancelled after {i} of {len(bins)} bins")
             err.partial = out
             raise err
-        try:
-            out.append(_solve_bin(doc, b, year, rec))
-        except StagewrightError as exc:
-            raise type(exc)(f"year, {b.label} ({b.temperature_K:.2f} K, RH {b.relative_humidity:.2f}): {exc}",
-                            exc.field) if not isinstance(exc, InputError) else InputError(
-                exc.problem.field, exc.problem.value, f"{exc.problem.expected} (year, {b.label})") from None
+        res = _in_bin(b, solve_fn, norm_for_bin(base, b, rating))
+        out.append(_bin_result(res, b, year, rec, limit_flags(b, res, design, max_dryer)))
         if progress is not None:
             progress(i + 1, len(bins))
+    return _year_result(out, settings["mode"], design)
+
+
+def _in_design(base: dict, bins: list, settings: dict, solve_fn) -> YearDesign:
+    """:func:`thermo.year_design.design_coolers`, its errors naming the design condition."""
+    try:
+        return design_coolers(base, bins, settings, solve_fn)
+    except StagewrightError as exc:
+        where = "the site as stated" if settings["design_condition"] == "site" else "the hottest bin"
+        if isinstance(exc, InputError):
+            raise InputError(exc.problem.field, exc.problem.value,
+                             f"{exc.problem.expected} (year, design condition: {where})") from None
+        raise type(exc)(f"year, design condition ({where}): {exc}", exc.field) from None
+
+
+def _year_result(out: list, mode: str, design) -> YearResult:
+    """Totals of the bins, the worst bins and the bins that miss a stated limit."""
     totals = {k: sum(getattr(b, k) for b in out) for k in _SUMMED}
     totals["cost"] = totals["energy_cost"] + totals["water_cost"] - totals["recovered_value"]
     hours = totals["hours"]
     totals["mean_driver_power_W"] = totals["energy_kWh"] * 1000.0 / hours if hours > 0 else 0.0
+    missed = [b for b in out if b.limit_flags]
+    totals["bins_missing_limits"] = len(missed)
+    totals["hours_missing_limits"] = sum(b.hours for b in missed)
     worst_t = max(out, key=lambda b: b.max_discharge_temperature_K)
     worst_q = max(out, key=lambda b: b.cooler_duty_W)
-    return YearResult(bins=out, totals=totals, worst_discharge_bin=worst_t.label, worst_duty_bin=worst_q.label)
+    return YearResult(bins=out, totals=totals, worst_discharge_bin=worst_t.label, worst_duty_bin=worst_q.label,
+                      cooler_mode=mode, design=design)

@@ -8,7 +8,7 @@ from __future__ import annotations
 
 __all__ = ["FORMAT_NAME", "FORMAT_VERSION", "PROJECT", "STAGE", "COOLER", "EFFICIENCY",
            "FLOW_KINDS", "MODEL_NAMES", "COOLANT", "COOLANT_KINDS", "ARRANGEMENT_NAMES",
-           "HEAT_RECOVERY", "YEAR"]
+           "HEAT_RECOVERY", "YEAR", "YEAR_COOLERS"]
 
 from thermo.project.schema_types import Choice, Items, Num, Obj, Text, Variant
 
@@ -80,6 +80,15 @@ _AMBIENT_ENTRY = {
     "coolant_inlet_temperature_K": Num(263.15, 373.15, unit="K", nullable=True, default=None),
 }
 
+#: how a year treats the coolers: sized afresh in every bin, or sized once and rated at fixed UA
+#: (thermo.year_design; the default margin 0.10 is common practice, no source)
+YEAR_COOLERS = Obj(default={"mode": "size_every_bin"}, fields={
+    "mode": Choice(("size_every_bin", "design_once"), default="size_every_bin"),
+    "design_condition": Choice(("site", "hottest_bin"), default="site"),
+    "ua_margin": Num(0.0, 1.0, default=0.10),
+    "max_dryer_inlet_temperature_K": Num(223.15, 373.15, unit="K", nullable=True, default=None),
+})
+
 #: a year at the site: ambient profile, operating hours, load and prices (optional)
 YEAR = Obj(nullable=True, default=None, fields={
     "profile": Variant(required=True, variants={
@@ -94,6 +103,7 @@ YEAR = Obj(nullable=True, default=None, fields={
     "load": Num(0.0, 1.0, lo_open=True, default=1.0),
     "energy_price_per_kWh": Num(0.0, 100.0, unit="money/kWh", default=0.0),
     "water_price_per_m3": Num(0.0, 1000.0, unit="money/m³", default=0.0),
+    "coolers": YEAR_COOLERS,
 })
 
 #: the delivery pressure: stated absolute or gauge (thermo.project.delivery), exactly one

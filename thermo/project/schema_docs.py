@@ -151,6 +151,17 @@ PROJECT_KEYS = {
     "year.load": "Scales the project's flow value (mass, volume or shaft power).",
     "year.energy_price_per_kWh": "Price of the driver's electricity (money per kWh).",
     "year.water_price_per_m3": "Price of cooling water, once-through kind `water` coolers (money per m³).",
+    "year.coolers": "How the year treats the coolers that have a coolant side (thermo/year_design.py).",
+    "year.coolers.mode": "`size_every_bin`: each bin sizes every cooler afresh for its entry (a perfect "
+                         "exchanger every bin). `design_once`: each cooler is sized once at the design "
+                         "condition and every bin is rated at that fixed UA and design coolant flow; the air "
+                         "outlet, duty, coolant outlet and condensate then move with the bin.",
+    "year.coolers.design_condition": "Where `design_once` sizes the coolers: `site` (the project as "
+                                     "stated) or `hottest_bin` (the bin with the highest ambient).",
+    "year.coolers.ua_margin": "Fouling margin on UA: every bin is rated with (1 + margin) × the design UA. "
+                              "Default 0.10 is common practice, no source; 0 rates at the design UA.",
+    "year.coolers.max_dryer_inlet_temperature_K": "Highest temperature of the air reaching the dryer "
+                                                  "(the delivered air); warmer bins are flagged. Null: no limit.",
 }
 
 #: results path → meaning; ``point.*`` is the state-point object used by every state
