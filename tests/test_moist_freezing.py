@@ -145,3 +145,12 @@ def test_year_with_a_frozen_month_runs():
     doc["year"] = {"profile": {"kind": "monthly", "months": months}}
     y = run_year(doc)
     assert len(y.bins) == 12 and math.isfinite(y.totals["energy_kWh"])
+
+
+def test_air_cooled_train_with_rime_at_the_intake_solves():
+    # the ambient air that cools an air-cooled cooler is then saturated over ice: its relative
+    # humidity passed to HAPropsSI must not round above 1 (found solving an hourly year)
+    doc = _cold_doc(T0=265.89186, rh=0.94)
+    doc["site"]["elevation_m"] = 240.0
+    r = solve(doc).to_dict()
+    assert any("rime" in w["message"] for w in r["warnings"])

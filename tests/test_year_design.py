@@ -150,6 +150,6 @@ def test_fast_path_totals_agree_with_exact_solves_on_random_profiles():
                    "coolant_inlet_temperature_K": rng.uniform(280.15, 300.15)} for _ in range(12)]
         for coolers in ({"mode": "size_every_bin"}, {"mode": "design_once", "design_condition": "hottest_bin"}):
             doc = _doc("real_gas", 0.5, coolers=coolers, months=months)
-            fast, exact = run_year(doc), run_year(doc, exact=True)
+            fast, exact = run_year(doc, exact=False), run_year(doc, exact=True)
             for key in ("energy_kWh", "condensate_m3", "cooling_water_m3"):
                 assert fast.totals[key] == pytest.approx(exact.totals[key], rel=1e-4)

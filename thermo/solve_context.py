@@ -265,7 +265,8 @@ def _new_intake_state(model: PropertyModel, site: ResolvedSite) -> IntakeState:
         dead = DeadState(T0, P0, ambient.h, ambient.s, W0, *_water_reference(mixture, T0, P0, W0))
     p1 = P0 - site.inlet_pressure_drop_Pa
     after_filter = stream.at_hp(ambient.h, p1, "intake filter outlet", T_guess=T0)
-    rh0 = site.relative_humidity if mixture is None else mixture.saturation_degree(T0, P0, W0)
+    # saturated over ice after rime: 1 within rounding, and never above (CoolProp refuses R > 1)
+    rh0 = site.relative_humidity if mixture is None else min(1.0, mixture.saturation_degree(T0, P0, W0))
     return IntakeState(stream, mixture, W0, rh0, ambient, dead, after_filter, frost)
 
 

@@ -28,19 +28,24 @@ exact solves to better than 1e-4 relative, tests/test_year_design.py checks the 
 """
 from __future__ import annotations
 
-__all__ = ["YearResult", "BinResult", "YearCancelled", "run_year", "CONDENSATE_DENSITY_KG_M3"]
+__all__ = ["YearResult", "BinResult", "YearCancelled", "run_year", "CONDENSATE_DENSITY_KG_M3", "FAST_PATH_BINS",
+           "POOL_BINS", "CHUNK_BINS"]
 
+import os
 from dataclasses import asdict, dataclass, field
 from functools import partial
 
 from thermo.project.validation import normalise
 from thermo.errors import InputError, StagewrightError
-from thermo.solve import solve_normalised
+from thermo.solve import release_thread_models, solve_normalised
 from thermo.year_bins import norm_for_bin, year_base
 from thermo.year_design import YearDesign, design_coolers, limit_flags
 from thermo.year_profile import Bin, operating_bins
 
 CONDENSATE_DENSITY_KG_M3 = 1000.0
+FAST_PATH_BINS = 24  #: up to this many bins a year solves exactly by default (measured: bench/run.py)
+POOL_BINS = 2000  #: from this many bins a year uses every core by default
+CHUNK_BINS = 60  #: bins per worker task: progress and cancel between chunks
 
 
 class YearCancelled(StagewrightError):
@@ -163,7 +168,8 @@ _SUMMED = ("hours", "energy_kWh", "energy_cost", "condensate_m3", "cooling_water
            "water_cost", "recoverable_heat_kWh", "recovered_value")
 
 
-def run_year(doc: dict, progress=None, cancelled=None, exact: bool = False) -> YearResult:
+def run_year(doc: dict, progress=None, cancelled=None, exact: bool | None = None,
+             processes: int | None = None) -> YearResult:
     """Solve a project for every bin of its ``year`` section and total the year.
 
     Parameters
@@ -171,12 +177,15 @@ def run_year(doc: dict, progress=None, cancelled=None, exact: bool = False) -> Y
     doc : dict
         Project document with a ``year`` section (see ``docs/project-format.md``).
     progress : callable, optional
-        ``progress(done, total)`` after each bin.
+        ``progress(done, total)`` after each bin (after each chunk of bins with a pool).
     cancelled : callable, optional
-        ``cancelled()`` → True stops the run between bins (:class:`YearCancelled`).
-    exact : bool
-        Solve the bins (and the coolers' design) on the exact property path instead of the
-        fast one (figures agree to better than 1e-4 relative).
+        ``cancelled()`` → True stops the run between bins or chunks (:class:`YearCancelled`).
+    exact : bool, optional
+        True: solve the bins (and the coolers' design) on the exact property path; False: on
+        the fast one (figures agree to better than 1e-4 relative). Default: exact for up to
+        FAST_PATH_BINS bins (the fast path's table costs more to fill than it saves), fast above.
+    processes : int, optional
+        Worker processes; default: all cores for POOL_BINS bins or more, else 1 (in-process).
 
     Returns
     -------
@@ -207,28 +216,97 @@ def run_year(doc: dict, progress=None, cancelled=None, exact: bool = False) -> Y
     year = norm.get("year")
     if not year:
         raise InputError("year", None, "add a 'year' section (ambient profile, hours, load) to run a year")
-    rec = norm.get("heat_recovery")
     bins = operating_bins(year)
     base = year_base(norm)
-    solve_fn = partial(solve_normalised, detail=False, fast=False) if exact else partial(
-        solve_normalised, detail=False, fast=True)
+    exact = len(bins) <= FAST_PATH_BINS if exact is None else exact
     settings = year["coolers"]
     design = None
     if settings["mode"] == "design_once":
-        design = _in_design(base, bins, settings, solve_fn)
-    rating = None if design is None else design.rating()
-    max_dryer = settings.get("max_dryer_inlet_temperature_K")
+        design = _in_design(base, bins, settings, _solver(exact))
+    job = _Job(base, year, norm.get("heat_recovery"), design, exact)
+    n_proc = processes or ((os.cpu_count() or 1) if len(bins) >= POOL_BINS else 1)
+    out = (_run_in_process(job, bins, progress, cancelled) if n_proc <= 1 else
+           _run_in_pool(job, bins, n_proc, progress, cancelled))
+    return _year_result(out, settings["mode"], design)
+
+
+def _solver(exact: bool):
+    """The bins' solve: lean (no reporting-only work), on the exact or the fast property path."""
+    return partial(solve_normalised, detail=False, fast=not exact)
+
+
+@dataclass(frozen=True)
+class _Job:
+    """What every bin's solve needs (picklable: worker processes get it once per chunk)."""
+
+    base: dict
+    year: dict
+    rec: dict | None
+    design: YearDesign | None
+    exact: bool
+
+
+def _solve_bin(job: _Job, b: Bin) -> BinResult:
+    """One bin: its project, solve, figures and limit flags (errors name the bin)."""
+    design = job.design
+    res = _in_bin(b, _solver(job.exact), norm_for_bin(job.base, b, None if design is None else design.rating()))
+    flags = limit_flags(b, res, design, job.year["coolers"].get("max_dryer_inlet_temperature_K"))
+    return _bin_result(res, b, job.year, job.rec, flags)
+
+
+def _cancelled_error(out: list, total: int) -> YearCancelled:
+    err = YearCancelled(f"year run cancelled after {len(out)} of {total} bins")
+    err.partial = out
+    return err
+
+
+def _run_in_process(job: _Job, bins: list, progress, cancelled) -> list:
     out: list[BinResult] = []
     for i, b in enumerate(bins):
         if cancelled is not None and cancelled():
-            err = YearCancelled(f"year run cancelled after {i} of {len(bins)} bins")
-            err.partial = out
-            raise err
-        res = _in_bin(b, solve_fn, norm_for_bin(base, b, rating))
-        out.append(_bin_result(res, b, year, rec, limit_flags(b, res, design, max_dryer)))
+            raise _cancelled_error(out, len(bins))
+        out.append(_solve_bin(job, b))
         if progress is not None:
             progress(i + 1, len(bins))
-    return _year_result(out, settings["mode"], design)
+    return out
+
+
+def _solve_chunk(job: _Job, chunk: list) -> list:
+    """A worker's chunk of bins; a bin that fails ends the chunk as ``("error", its position)``
+    (the caller solves it again in its own process to raise the error with its type)."""
+    out = []
+    for k, b in enumerate(chunk):
+        try:
+            out.append(_solve_bin(job, b))
+        except StagewrightError:
+            out.append(("error", k))
+            break
+    release_thread_models()
+    return out
+
+
+def _run_in_pool(job: _Job, bins: list, n_proc: int, progress, cancelled) -> list:
+    """The bins in chunks of CHUNK_BINS on ``n_proc`` worker processes, in order."""
+    from concurrent.futures import ProcessPoolExecutor  # local: most years are short
+    from thermo.sweep import _pool_context
+    chunks = [bins[i:i + CHUNK_BINS] for i in range(0, len(bins), CHUNK_BINS)]
+    out: list = []
+    with ProcessPoolExecutor(max_workers=n_proc, mp_context=_pool_context()) as pool:
+        futures = [pool.submit(_solve_chunk, job, ch) for ch in chunks]
+        for ch, fut in zip(chunks, futures):
+            if cancelled is not None and cancelled():
+                for f in futures:
+                    f.cancel()
+                raise _cancelled_error(out, len(bins))
+            part = fut.result()
+            if part and isinstance(part[-1], tuple):
+                for f in futures:
+                    f.cancel()
+                _solve_bin(job, ch[part[-1][1]])  # raises the bin's own error
+            out.extend(part)
+            if progress is not None:
+                progress(len(out), len(bins))
+    return out
 
 
 def _in_design(base: dict, bins: list, settings: dict, solve_fn) -> YearDesign:
