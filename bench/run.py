@@ -170,6 +170,41 @@ def case_year():
     profile = doc["year"]["profile"]
     report(f"year at site ({len(profile.get('months') or profile.get('bins') or [])} bins)",
            measure(lambda: run_year(doc), 5))
+    doc["year"]["coolers"] = {"mode": "design_once", "design_condition": "hottest_bin"}
+    report("year at site, design once, rate every bin", measure(lambda: run_year(doc), 5))
+
+
+def hourly_profile(hours: int = 8760) -> list:
+    """An invented hourly year (a continental site: −12 °C winter nights to 31 °C summer days).
+
+    Seasonal and daily cosines plus a fixed pseudo-random weather term (seed 15); humidity
+    falls as the air warms. Deterministic, so that runs compare."""
+    import math
+    import random
+    rng = random.Random(15)
+    out, weather = [], 0.0
+    for h in range(hours):
+        day = h / 24.0
+        weather = 0.97 * weather + rng.gauss(0.0, 0.6)
+        t = 282.0 - 12.0 * math.cos(2 * math.pi * (day - 15) / 365.0) - 4.0 * math.cos(2 * math.pi * (h % 24 - 3) / 24)
+        t += weather
+        rh = min(0.98, max(0.25, 0.72 - 0.025 * (t - 282.0) + 0.05 * rng.uniform(-1.0, 1.0)))
+        out.append({"temperature_K": round(t, 2), "relative_humidity": round(rh, 3), "hours": 1.0})
+    return out
+
+
+def case_year_hourly():
+    """A year of 8760 hourly bins (three-stage sample, fixed coolers rated every hour): CPU and wall."""
+    from thermo.year import run_year
+    doc = json.loads((ROOT / "sample_projects" / "three_stage_site_year.json").read_text())
+    doc["year"] = {"profile": {"kind": "bins", "bins": hourly_profile()},
+                   "coolers": {"mode": "design_once", "design_condition": "hottest_bin"}}
+    for processes in (1, 2):
+        cpu0, t0 = time.process_time(), time.perf_counter()
+        run_year(doc, processes=processes)
+        wall, cpu = time.perf_counter() - t0, time.process_time() - cpu0
+        report(f"year 8760 h, design once, {processes} process(es)", (wall, wall, wall),
+               extra=f"CPU of this process {cpu:.1f} s; load {os.getloadavg()[0]:.1f}")
 
 
 def case_files():
@@ -241,7 +276,7 @@ def _peak_mb() -> float:
     return resource.getrusage(resource.RUSAGE_SELF).ru_maxrss / 1024.0
 
 
-CASES = [case_samples, case_four_stage, case_shaft_power, case_study, case_sweep, case_year,
+CASES = [case_samples, case_four_stage, case_shaft_power, case_study, case_sweep, case_year, case_year_hourly,
          case_files, case_report, case_startup, case_startup_phases]
 
 

@@ -153,3 +153,30 @@ def test_fast_path_totals_agree_with_exact_solves_on_random_profiles():
             fast, exact = run_year(doc, exact=False), run_year(doc, exact=True)
             for key in ("energy_kWh", "condensate_m3", "cooling_water_m3"):
                 assert fast.totals[key] == pytest.approx(exact.totals[key], rel=1e-4)
+
+
+def test_pool_of_two_processes_gives_the_same_year_and_reports_progress():
+    bins = [{"temperature_K": 270.0 + 0.2 * i, "relative_humidity": 0.0, "hours": 1.0} for i in range(130)]
+    doc = _doc(coolers={"mode": "design_once", "design_condition": "hottest_bin"})
+    doc["year"]["profile"] = {"kind": "bins", "bins": bins}
+    seen = []
+    pooled = run_year(doc, processes=2, progress=lambda done, total: seen.append((done, total)))
+    alone = run_year(doc, processes=1)
+    assert pooled.totals == alone.totals
+    assert [b.cooler_outlet_temperatures_K for b in pooled.bins] == [b.cooler_outlet_temperatures_K for b in alone.bins]
+    assert seen[-1] == (130, 130) and len(seen) == 3  # one report per chunk of 60 bins
+
+
+def test_pool_cancel_keeps_the_bins_finished():
+    from thermo.year import YearCancelled
+    bins = [{"temperature_K": 270.0 + 0.2 * i, "relative_humidity": 0.0, "hours": 1.0} for i in range(130)]
+    doc = _doc(coolers={"mode": "size_every_bin"})
+    doc["year"]["profile"] = {"kind": "bins", "bins": bins}
+    calls = []
+
+    def cancelled():
+        calls.append(1)
+        return len(calls) > 1
+    with pytest.raises(YearCancelled) as info:
+        run_year(doc, processes=2, cancelled=cancelled)
+    assert len(info.value.partial) == 60

@@ -79,10 +79,18 @@ class _AmbientAir:
     def __init__(self, pressure: float, humidity_ratio: float):
         self.label = "ambient air"
         self.P, self.W = pressure, humidity_ratio
+        self._memo: dict = {}
         self.t_min, self.t_max = 223.15, 573.15
 
     def _prop(self, name: str, T: float) -> float:
-        return cpa.humid_air_property(name, "T", T, "P", self.P, "W", self.W)
+        # a rating sizes the exchanger several times at the same coolant inlet: keep the answers
+        key = (name, T)
+        value = self._memo.get(key)
+        if value is None:
+            if len(self._memo) > 256:
+                self._memo.clear()
+            value = self._memo[key] = cpa.humid_air_property(name, "T", T, "P", self.P, "W", self.W)
+        return value
 
     def h(self, T: float) -> float:
         return self._prop("Hha", T)
