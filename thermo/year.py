@@ -85,6 +85,9 @@ class BinResult:
     pressure_dew_point_K: float | None = None
     #: stated limits this bin misses (:func:`thermo.year_design.limit_flags`); empty when it meets them
     limit_flags: list = field(default_factory=list)
+    meets_limits: bool = True
+    #: a cooler's condensate would freeze, or nearly (thermo.moist.freezing): freeze protection needed
+    freezing_condensate: bool = False
 
 
 @dataclass
@@ -102,6 +105,7 @@ class YearResult:
         """Plain data (JSON-ready): ``bins``, ``totals``, worst bins, the coolers' design."""
         return {"bins": [asdict(b) for b in self.bins], "totals": dict(self.totals),
                 "cooler_mode": self.cooler_mode,
+                "freezing_bins": [b.label for b in self.bins if b.freezing_condensate],
                 "cooler_design": None if self.design is None else self.design.to_dict(),
                 "worst_discharge_temperature": {"bin": self.worst_discharge_bin,
                                                 "temperature_K": max(b.max_discharge_temperature_K
@@ -150,7 +154,8 @@ def _bin_result(res, b: Bin, year: dict, rec: dict | None, flags: list) -> BinRe
         coolant_outlet_temperatures_K=coolant, cooler_duties_W=duties, cooler_condensate_kg_s=cond,
         dryer_inlet_temperature_K=res.delivery.T,
         pressure_dew_point_K=None if res.water is None else res.water.delivered_pressure_dew_point_K,
-        limit_flags=flags)
+        limit_flags=flags, meets_limits=not flags,
+        freezing_condensate=any(w.field.endswith(".cooler") and "freez" in w.message for w in res.warnings))
 
 
 def _in_bin(b: Bin, fn, *args):
@@ -227,7 +232,7 @@ def run_year(doc: dict, progress=None, cancelled=None, exact: bool | None = None
     n_proc = processes or ((os.cpu_count() or 1) if len(bins) >= POOL_BINS else 1)
     out = (_run_in_process(job, bins, progress, cancelled) if n_proc <= 1 else
            _run_in_pool(job, bins, n_proc, progress, cancelled))
-    return _year_result(out, settings["mode"], design)
+    return _year_result(out, settings["mode"], design, settings.get("max_dryer_inlet_temperature_K"))
 
 
 def _solver(exact: bool):
@@ -321,7 +326,7 @@ def _in_design(base: dict, bins: list, settings: dict, solve_fn) -> YearDesign:
         raise type(exc)(f"year, design condition ({where}): {exc}", exc.field) from None
 
 
-def _year_result(out: list, mode: str, design) -> YearResult:
+def _year_result(out: list, mode: str, design, max_dryer: float | None = None) -> YearResult:
     """Totals of the bins, the worst bins and the bins that miss a stated limit."""
     totals = {k: sum(getattr(b, k) for b in out) for k in _SUMMED}
     totals["cost"] = totals["energy_cost"] + totals["water_cost"] - totals["recovered_value"]
@@ -330,6 +335,7 @@ def _year_result(out: list, mode: str, design) -> YearResult:
     missed = [b for b in out if b.limit_flags]
     totals["bins_missing_limits"] = len(missed)
     totals["hours_missing_limits"] = sum(b.hours for b in missed)
+    totals["limits_stated"] = design is not None or max_dryer is not None
     worst_t = max(out, key=lambda b: b.max_discharge_temperature_K)
     worst_q = max(out, key=lambda b: b.cooler_duty_W)
     return YearResult(bins=out, totals=totals, worst_discharge_bin=worst_t.label, worst_duty_bin=worst_q.label,
