@@ -154,3 +154,14 @@ def test_air_cooled_train_with_rime_at_the_intake_solves():
     doc["site"]["elevation_m"] = 240.0
     r = solve(doc).to_dict()
     assert any("rime" in w["message"] for w in r["warnings"])
+
+
+def test_sweep_and_study_run_a_humid_intake_below_zero():
+    # issue 15: single solves, years, studies and sweeps all take a humid intake down to 223.15 K
+    from thermo.study.compare import compare_stagings
+    from thermo.sweep import sweep
+    r = sweep(_cold_doc(), {"site.ambient_temperature_K": [223.15, 248.15, 268.15, 283.15]}, processes=1)
+    assert r.to_dict()["errors"] == {}
+    doc = _cold_doc(T0=258.15, rh=0.8)
+    doc["stages"] = doc["stages"][:1]
+    assert [o.stages for o in compare_stagings(doc, 2).options] == [1, 2]
