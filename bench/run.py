@@ -199,6 +199,11 @@ def case_year_hourly():
     doc = json.loads((ROOT / "sample_projects" / "three_stage_site_year.json").read_text())
     doc["year"] = {"profile": {"kind": "bins", "bins": hourly_profile()},
                    "coolers": {"mode": "design_once", "design_condition": "hottest_bin"}}
+    from thermo.year_profile import bin_profile
+    binned = dict(doc, year={**doc["year"], "profile": {"kind": "bins", "bins": bin_profile(hourly_profile())}})
+    n_binned = len(binned["year"]["profile"]["bins"])
+    report(f"year 8760 h binned (1 K × 5 %: {n_binned} bins), design once",
+           measure(lambda: run_year(binned, processes=1), 3))
     for processes in (1, 2):
         cpu0, t0 = time.process_time(), time.perf_counter()
         run_year(doc, processes=processes)
