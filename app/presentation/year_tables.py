@@ -53,19 +53,19 @@ YEAR_BINS: tuple[Figure, ...] = (
     # branch decides whether its PDF and CSV show them)
     Figure("dryer_inlet_temperature_K", "To dryer", "temperature", where=_WINDOW_TEXT,
            note="Temperature of the delivered air, which reaches the dryer",
-           looks={"text": Look(label="dryer", decimals=1, width=8)}),
+           looks={"text": Look(label="dryer", decimals=1, width=12)}),
     Figure("pressure_dew_point_K", "Pressure dew pt", "temperature", where=_WINDOW_TEXT,
            note="Pressure dew point of the air reaching the dryer (frost point below 0 °C)",
-           looks={"text": Look(label="pdp", decimals=1, width=8)}),
+           looks={"text": Look(label="pdp", decimals=1, width=10)}),
     Figure("cooler_outlet_temperatures_K", "Cooler outlets", "temperature", joiner=" / ", where=_WINDOW_TEXT,
-           note="Air outlet of each cooler, first stage first (– where a stage has none)",
-           looks={"text": Look(label="cooler outlets", decimals=1, width=22)}),
+           align="right", note="Air outlet of each cooler, first stage first (– where a stage has none)",
+           looks={"text": Look(label="cooler outlets", decimals=1, width=26)}),
     Figure("coolant_outlet_temperatures_K", "Coolant outlets", "temperature", joiner=" / ", where=_WINDOW,
            note="Coolant outlet of each cooler with a coolant side"),
-    Figure("meets_limits", "Meets limits", style="yes_no", where=_WINDOW_TEXT,
+    Figure("meets_limits", "Meets limits", style="yes_no", where=_WINDOW_TEXT, align="right",
            note="No: a rated cooler leaves warmer than at its design condition, or the air reaches "
                 "the dryer above the stated limit",
-           looks={"text": Look(label="ok", width=5)}),
+           looks={"text": Look(label="ok", width=6)}),
 )
 
 #: the year's totals and extremes (paths into the year dict). The text table lower-cases a label's
