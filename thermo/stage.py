@@ -8,6 +8,7 @@ from dataclasses import dataclass
 
 from thermo.errors import (InputError, PropertyRangeError, SecondLawViolation, StagewrightError, message_detail,
                            quantity)
+from thermo.chart_points import PointsOnDemand
 from thermo.exergy import DeadState, heat_exergy
 from thermo.models.base import Point, PropertyModel
 from thermo.polytropic import polytropic_efficiency_between, polytropic_path
@@ -160,8 +161,9 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
     t_b = spec["heat_loss_boundary_temperature_K"] or dead.T0
     _check_heat_loss(where, q_loss, t_b, path, outlet)
     end = path[-1]  # end of the adiabatic internal compression (the efficiencies' reference)
-    if q_loss != 0.0 or v_out != 0.0:
-        path = _actual_path(model, start, outlet, p_out, detail)
+    if q_loss != 0.0 or v_out != 0.0:  # chart points: made when a chart (or to_dict) reads them
+        path = (PointsOnDemand(lambda: _actual_path(model, start, outlet, p_out, detail), (start, outlet))
+                if detail else _actual_path(model, start, outlet, p_out, detail))
     s_gen = mass_flow * (outlet.s - inlet.s) + q_loss / t_b + w_mech / dead.T0
     if s_gen < -1e-9 * max(1.0, w_shaft / dead.T0):
         hint = (" — the efficiency is total-to-static, so it must leave room for the exit kinetic "
