@@ -7,7 +7,7 @@ anything reads them (``TrainResult.to_dict()`` does, and so does every chart) an
 """
 from __future__ import annotations
 
-__all__ = ["PointsOnDemand", "path_ends"]
+__all__ = ["PointsOnDemand", "path_ends", "known_points"]
 
 import threading
 from collections.abc import Sequence
@@ -81,3 +81,9 @@ def path_ends(path) -> tuple:
     if isinstance(path, PointsOnDemand):
         return path.ends
     return path[0], path[-1]
+
+
+def known_points(path) -> list:
+    """The points of a path that exist already: all of a list, the two ends of one made on demand
+    (a compression path of positive efficiency heats monotonically, so its extremes are its ends)."""
+    return list(path.ends) if isinstance(path, PointsOnDemand) else path

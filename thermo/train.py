@@ -6,7 +6,7 @@ __all__ = ["solve_train"]
 import math
 from dataclasses import dataclass, field
 
-from thermo.chart_points import PointsOnDemand
+from thermo.chart_points import known_points
 from thermo.cooler import solve_cooler
 from thermo.errors import message_detail, quantity
 from thermo.exergy import flow_exergy, water_exergy
@@ -206,7 +206,7 @@ def _run_line(ctx: SolveContext, ratios: list, mass_flow: float, detail: bool) -
         st = solve_stage(line.model, spec, i, line.point, line.velocity, line.point.P * ratios[i], mass_flow,
                          intake.dead, detail)
         if mixture is not None:
-            check_humid_range(mixture, [st.outlet, max(_known_points(st.path), key=lambda p: p.T)], f"stages[{i}]",
+            check_humid_range(mixture, [st.outlet, max(known_points(st.path), key=lambda p: p.T)], f"stages[{i}]",
                               f"stage {i + 1} discharge")
         line.stages.append(st)
         limit = spec.get("max_discharge_temperature_K")
@@ -228,12 +228,6 @@ def _run_line(ctx: SolveContext, ratios: list, mass_flow: float, detail: bool) -
             line.warnings.extend(_water_notes(i, len(specs), w, mass_flow))
             line.model = MoistAir(mixture, w.water_after)
     return line
-
-
-def _known_points(path) -> list:
-    """The points of a stage path already made: the ends of one made on demand (its points lie
-    between them in temperature: a compression path of positive efficiency heats monotonically)."""
-    return list(path.ends) if isinstance(path, PointsOnDemand) else path
 
 
 def _totals(ctx: SolveContext, inlet: InletResult, line: _Line, mass_flow: float, detail: bool) -> TrainResult:
