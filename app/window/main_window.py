@@ -5,6 +5,7 @@ from __future__ import annotations
 
 __all__ = ["MainWindow", "STATE_VERSION", "dropped_project"]
 
+import threading
 from pathlib import Path
 
 from PySide6.QtCore import QSettings, Qt, QTimer
@@ -14,6 +15,7 @@ from PySide6.QtWidgets import (QDockWidget, QFrame, QLabel, QMainWindow, QMessag
 
 import thermo
 from thermo.coolprop_adapter import eos_reference
+from thermo.exchanger.coolant import warm_up as warm_up_coolants
 
 from app.presentation import units
 from app.window.actions import ACTIONS, MENUS, TOOLBAR
@@ -401,6 +403,8 @@ class MainWindow(QMainWindow):
         if self.editor.solved_jobs or self.editor.failure or not self.editor.solver.busy:
             self.editor.result_changed.disconnect(self._load_charts_soon)
             QTimer.singleShot(10, self.charts.ensure_canvases)
+            # the first solve with a coolant would wait for scipy and the coolant tables: load them now
+            threading.Thread(target=warm_up_coolants, name="stagewright-warm-up", daemon=True).start()
 
     def _restore_saved_layout(self) -> None:
         geometry = self.settings.value("window/geometry")
