@@ -176,3 +176,20 @@ def test_trial_solves_reuse_unchanged_leading_stages_and_report_the_same(monkeyp
         assert shared.to_dict() == alone.to_dict()
     # with reuse: 4 + 2 + 3 stages solved; each solve alone: 4 stages
     assert len(solved) == 4 + 2 + 3 + 3 * 4
+
+
+@pytest.mark.parametrize("T, P", [(278.0, 1e5), (303.15, 8e5), (318.0, 4e6), (350.0, 9e6)])
+def test_interaction_term_of_condensed_water_is_differentiated_analytically(T, P):
+    # reference: the old central difference of the interaction term along the saturation line
+    d = 1e-2
+    dln = (math.log(MIX.enhancement(T + d, P) * _p_ws(T + d)) - math.log(MIX.enhancement(T - d, P) * _p_ws(T - d))) / (2 * d)
+    mu, dmu = MIX._mu_virial_along_saturation(T, P, dln)
+    ref = (MIX._mu_virial(T + d, P, MIX.saturation_fraction(T + d, P))
+           - MIX._mu_virial(T - d, P, MIX.saturation_fraction(T - d, P))) / (2 * d)
+    assert mu == MIX._mu_virial(T, P, MIX.saturation_fraction(T, P))
+    assert dmu == pytest.approx(ref, rel=1e-7)
+
+
+def _p_ws(T):
+    from thermo.moist.saturation import saturation_pressure
+    return saturation_pressure(T)
