@@ -37,6 +37,9 @@ class PointsOnDemand(Sequence):
     ((1, 3), [])
     >>> list(pts), pts[-1], len(pts), calls
     ([1, 2, 3], 3, 3, [1])
+    >>> import copy, pickle
+    >>> copy.deepcopy(pts), pickle.loads(pickle.dumps(pts))
+    ([1, 2, 3], [1, 2, 3])
     """
 
     def __init__(self, make, ends: tuple):
@@ -71,6 +74,10 @@ class PointsOnDemand(Sequence):
         return list(self) == list(other) if isinstance(other, (list, tuple, Sequence)) else NotImplemented
 
     __hash__ = None
+
+    def __reduce__(self):
+        """Copied or pickled as the plain list of its points (made first)."""
+        return (list, (list(self),))
 
     def __repr__(self) -> str:
         return f"PointsOnDemand({self._points!r})" if self.made else "PointsOnDemand(<not made yet>)"
