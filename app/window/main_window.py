@@ -403,8 +403,12 @@ class MainWindow(QMainWindow):
         if self.editor.solved_jobs or self.editor.failure or not self.editor.solver.busy:
             self.editor.result_changed.disconnect(self._load_charts_soon)
             QTimer.singleShot(10, self.charts.ensure_canvases)
-            # the first solve with a coolant would wait for scipy and the coolant tables: load them now
-            threading.Thread(target=warm_up_coolants, name="stagewright-warm-up", daemon=True).start()
+            # the first solve with a coolant would wait for scipy and the coolant tables: load them
+            # on another thread once the charts are up (not competing with their import for the GIL)
+            QTimer.singleShot(WARM_UP_DELAY_MS, self, self._start_warm_up)
+
+    def _start_warm_up(self) -> None:
+        threading.Thread(target=warm_up_coolants, name="stagewright-warm-up", daemon=True).start()
 
     def _restore_saved_layout(self) -> None:
         geometry = self.settings.value("window/geometry")
@@ -437,6 +441,9 @@ class MainWindow(QMainWindow):
         self.settings.setValue("display/gauge", self.prefs.gauge)
         self.settings.sync()
         event.accept()
+
+
+WARM_UP_DELAY_MS = 2000  #: after the first answer: the coolant back ends load on a background thread
 
 
 def dropped_project(mime) -> str | None:
