@@ -377,7 +377,7 @@ def _from_one_path(model: PropertyModel, inlet: Point, target: Point, p_out: flo
     .. [1] S. L. Dixon, C. A. Hall, *Fluid Mechanics and Thermodynamics of Turbomachinery*,
        7th ed., Butterworth-Heinemann, 2014, §2.9 (small-stage efficiency, T ds = dh − v dp).
     .. [2] M. Abramowitz, I. A. Stegun, *Handbook of Mathematical Functions*, Dover, 1972,
-       25.4.29 (Gauss–Legendre quadrature) and 25.2.11 (Hermite interpolation).
+       §25.4 (Gauss–Legendre quadrature) and §25.2 (Hermite interpolation).
     .. [3] K. E. Atkinson, *An Introduction to Numerical Analysis*, 2nd ed., Wiley, 1989,
        §2.2 (Newton's method with an approximate derivative).
     """
