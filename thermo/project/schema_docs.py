@@ -24,7 +24,7 @@ import sys
 from pathlib import Path
 
 from thermo.project.schema import PROJECT
-from thermo.project.schema_types import MISSING, Choice, Items, Num, Obj, Text, Variant, walk
+from thermo.project.schema_types import MISSING, Changes, Choice, Items, Num, Obj, Raw, Text, Variant, walk
 
 #: schema path → meaning
 PROJECT_KEYS = {
@@ -120,6 +120,21 @@ PROJECT_KEYS = {
     "heat_recovery.boiler_efficiency": "Efficiency of that boiler (above 1 for condensing boilers, net basis).",
     "heat_recovery.operating_hours_per_year": "Hours for the yearly value; null: `year.operating_hours_per_year`, "
                                               "else 8760.",
+    "base_name": "Name of the base design (the document's own fields) among the project's cases.",
+    "cases": "Named cases: each is the base design with some fields changed (version 3). A case's results "
+             "are those of the same project saved on its own.",
+    "cases[]": "One case.",
+    "cases[].name": "The case's name: unique in the project, not the base's.",
+    "cases[].note": "Free text: what the case stands for.",
+    "cases[].changes": "The fields the case changes, each as a field path (`site.ambient_temperature_K`, "
+                       "`stages[1].cooler`, `stages` for another stage list) and its value in the same units as "
+                       "the field; `null` removes an optional key. Every other field follows the base.",
+    "snapshot": "The results as last saved (optional): on opening, the window shows them at once, solves again "
+                "and says which figures moved by more than 1e-6 relative, and why if the versions differ.",
+    "snapshot.stagewright_version": "Version of Stagewright that computed the snapshot.",
+    "snapshot.coolprop_version": "Version of CoolProp that computed the snapshot.",
+    "snapshot.saved_utc": "When the snapshot was taken (UTC, ISO 8601).",
+    "snapshot.results": "Each case's results by case name, in the form of `solve --json` (SI, unit in each key).",
     "year": "A year at the site: ambient profile, hours, load and prices (see *A year at the site* "
             "below), or null.",
     "year.profile": "The ambient profile: 12 months, or bins of hours.",
@@ -345,6 +360,10 @@ def _describe(node) -> tuple[str, str, str, str]:
         typ, unit, rng = "list", "", f"{node.min_length} to {node.max_length} items"
     elif isinstance(node, (Obj, Variant)):
         typ, unit, rng = "object" + null, "", ""
+    elif isinstance(node, Changes):
+        typ, unit, rng = "object", "", f"up to {node.max_items} field paths"
+    elif isinstance(node, Raw):
+        typ, unit, rng = "any" + null, "", ""
     else:
         raise TypeError(node)
     if getattr(node, "required", False):
@@ -353,7 +372,7 @@ def _describe(node) -> tuple[str, str, str, str]:
         default = "—"
     else:
         d = node.default
-        default = "null" if d is None else (f"`{d!r}`".replace("'", '"') if isinstance(d, (str, dict)) else _g(d))
+        default = "null" if d is None else (f"`{d!r}`".replace("'", '"') if isinstance(d, (str, dict, list)) else _g(d))
     return typ, unit, rng, default
 
 
