@@ -114,3 +114,18 @@ def test_a_snapshot_saved_with_the_project_reads_back(options, tmp_path, capsys)
     doc["snapshot"] = take_snapshot({name: _solve_json(capsys, p) for name, p in singles.items()})
     save(doc, tmp_path / "with_snapshot.json")
     assert load(tmp_path / "with_snapshot.json")["snapshot"] == doc["snapshot"]
+
+
+def test_the_report_of_a_project_with_cases_compares_them(options, tmp_path, capsys):
+    import pypdf
+
+    path, singles = options
+    pdf = tmp_path / "options.pdf"
+    assert main(["report", str(path), "-o", str(pdf)]) == 0
+    text = "\n".join(page.extract_text() for page in pypdf.PdfReader(str(pdf)).pages)
+    assert "Cases compared" in text and "Figures of each case" in text
+    line = next(ln for ln in text.splitlines() if ln.startswith("Driver input power [kW]"))
+    for name, single in singles.items():
+        power = _solve_json(capsys, single)["driver_power_W"] / 1e3
+        assert f"{power:.2f}" in line, name
+    assert "Hot day" in text and "Worn first stage" in text

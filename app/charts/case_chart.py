@@ -36,21 +36,24 @@ def draw_case_comparison(fig: MplFigure, outcomes: list, reference: str, system:
         ax.text(0.5, 0.5, "No cases compared yet", ha="center", va="center", transform=ax.transAxes,
                 fontsize=style.SIZE_LABEL, color=style.MUTED, fontfamily=style.FONT)
         return fig
-    axes = fig.subplots(1, len(figures), squeeze=False)[0]
+    cols = min(3, len(figures))
+    rows_n = -(-len(figures) // cols)
+    grid = fig.subplots(rows_n, cols, squeeze=False)
+    for ax in grid.flat[len(figures):]:
+        ax.set_axis_off()
     names = [o.name for o in solved]
-    for ax, f in zip(axes, figures):
+    short = [n if len(n) <= 12 else n[:11] + "…" for n in names]
+    for ax, f in zip(grid.flat, figures):
         u = f.unit_in("window", system)
         values = [(f.value(rows[n]) or 0.0) * f.to_si for n in names]
         shown = [u.to_display(v) if f.quantity else v for v in values]
         colours = [style.SHAFT if n == reference else style.LATENT for n in names]
-        bars = ax.bar(range(len(names)), shown, color=colours, edgecolor=style.INK, linewidth=0.6)
-        for bar, value in zip(bars, shown):
-            ax.annotate(f"{value:,.{u.decimals}f}".replace(",", " "), (bar.get_x() + bar.get_width() / 2,
-                        bar.get_height()), ha="center", va="bottom", fontsize=style.SIZE_TICK, color=style.INK,
-                        xytext=(0, 2), textcoords="offset points")
-        ax.set_xticks(range(len(names)), [n if len(n) <= 14 else n[:13] + "…" for n in names],
-                      rotation=30 if len(names) > 2 else 0, ha="right" if len(names) > 2 else "center",
-                      fontsize=style.SIZE_TICK)
-        style.style_axes(ax, title=f.label_in("window") + (f" [{u.symbol}]" if u.symbol else ""))
-        ax.margins(y=0.15)
+        bars = ax.bar(range(len(names)), shown, color=colours, edgecolor=style.INK, linewidth=0.6, zorder=2)
+        if len(names) <= 4:
+            ax.bar_label(bars, labels=[f"{v:,.{u.decimals}f}".replace(",", " ") for v in shown],
+                         fontsize=style.SIZE_NOTE, color=style.INK, padding=2)
+        ax.set_xticks(range(len(names)), short, fontsize=style.SIZE_TICK,
+                      rotation=30 if len(names) > 2 else 0, ha="right" if len(names) > 2 else "center")
+        style.style_axes(ax, title=f.label_in("window"), ylabel=u.symbol or None, grid_axis="y")
+        ax.margins(y=0.18)
     return fig
