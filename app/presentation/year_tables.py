@@ -25,7 +25,7 @@ from app.presentation.figures import Figure, Look, read_path, shown
 _KWH = 3.6e6  # J per kWh
 _WINDOW, _TEXT = {"window"}, {"text"}
 #: money in the window: thousands grouped, whole units, no unit text (the currency is the user's)
-_MONEY = {"window": Look(quantity="money", decimals=0, symbol="")}
+_MONEY = {out: Look(quantity="money", decimals=0, symbol="") for out in ("window", "pdf")}
 
 _DUTY = Figure("cooler_duty_W", "Cooler duty", "heat_flow", looks={"text": Look(label="duty", width=11)})
 _HOURS = Figure("totals.hours", "Operating hours", "hours")
@@ -49,6 +49,11 @@ YEAR_BINS: tuple[Figure, ...] = (
            looks={"text": Look(label="water", decimals=1, width=12)}),
     Figure("recoverable_heat_kWh", "Recoverable heat", "energy", to_si=_KWH, where=_TEXT,
            looks={"text": Look(label="recov.", unit="MWh", width=14)}),
+    # issue 17: the PDF report's year table (a column whose every value is zero is left out there)
+    replace(_DUTY, where=frozenset({"pdf"})),
+    replace(_CONDENSATE, where=frozenset({"pdf"})),
+    Figure("cooling_water_m3", "Cooling water", "liquid_volume", decimals=0, when="any", where={"pdf"}),
+    Figure("recoverable_heat_kWh", "Recoverable heat", "energy", to_si=_KWH, when="any", where={"pdf"}),
 )
 
 #: the year's totals and extremes (paths into the year dict). The text table lower-cases a label's
@@ -56,7 +61,7 @@ YEAR_BINS: tuple[Figure, ...] = (
 #: totals :func:`totals_for` keeps, with an extreme's bin after its value, and the hours last (what
 #: the year costs comes first in a short panel)
 YEAR_TOTALS: tuple[Figure, ...] = (
-    replace(_HOURS, where=frozenset(_TEXT)),
+    replace(_HOURS, where=frozenset(_TEXT | {"pdf"})),
     Figure("totals.energy_kWh", "Energy", "energy", to_si=_KWH),
     Figure("totals.energy_cost", "Energy cost", decimals=2, looks=_MONEY),
     Figure("totals.condensate_m3", "Condensate", "liquid_volume"),

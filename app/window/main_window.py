@@ -26,6 +26,7 @@ from app.window.export_ops import ExportController
 from app.window.file_ops import FileController
 from app.window.prompts import Prompts
 from app.window.recovery_ops import AUTOSAVE_MS, RecoveryController
+from app.cases.panel import CasesPanel
 from app.study.ops import StudyLink
 from app.window.help_dialogs import CautionsDialog, about_text
 from app.widgets.icons import icon
@@ -79,7 +80,8 @@ class MainWindow(QMainWindow):
         self.prompts = Prompts(self)
         self.files = FileController(self.editor, self.settings, self.prompts, self.statusBar(), path, self)
         self.files.state_changed.connect(self.update_title)
-        self.exports = ExportController(self.editor, self.files, self.prompts, self.statusBar(), self)
+        self.exports = ExportController(self.editor, self.files, self.prompts, self.statusBar(), self,
+                                        study_rows=lambda: self.study.current_rows())
         self.setWindowIcon(icon("app"))
         self.setDockOptions(QMainWindow.AnimatedDocks | QMainWindow.AllowTabbedDocks
                             | QMainWindow.AllowNestedDocks)
@@ -99,6 +101,7 @@ class MainWindow(QMainWindow):
         self.add_panel("balance", BalancePanel(self.editor), Qt.BottomDockWidgetArea)
         self.add_panel("study", StudyPanel(self.editor), Qt.BottomDockWidgetArea, tabify_with="balance")
         self.add_panel("year", YearPanel(self.editor), Qt.BottomDockWidgetArea, tabify_with="balance")
+        self.add_panel("cases", CasesPanel(self.editor), Qt.BottomDockWidgetArea, tabify_with="balance")
         self.docks["balance"].raise_()
         # below the key figures, inputs and messages run the full height on the left; the
         # balance sheet spans the charts and the train panel, where its columns have the width
@@ -129,6 +132,9 @@ class MainWindow(QMainWindow):
         self._on_prefs()
         self.recovery = RecoveryController(self.editor, self.files, self.prompts, self.statusBar(),
                                            autosave_ms, self)
+        self.files.keep_results_changed.connect(self.action_map["file.keep_results"].setChecked)
+        self.files.show_kept_results(self.model.project_snapshot())
+        self.editor.snapshot_checked.connect(lambda text: self.statusBar().showMessage(text, 12000))
         self.editor.solve_now(immediate=True)
 
     def _on_undo_changed(self, *_args) -> None:
@@ -433,6 +439,7 @@ class MainWindow(QMainWindow):
         self.exports.wait()
         self.panels["study"].shutdown()
         self.panels["year"].runner.shutdown()
+        self.panels["cases"].shutdown()
         self.recovery.shutdown()  # a clean exit: the work is saved or was let go
         self.editor.shutdown()
         self.settings.setValue("window/geometry", self.saveGeometry())
