@@ -25,7 +25,7 @@ sys.path.insert(0, str(ROOT / "bench"))
 
 import thermo  # noqa: E402
 import thermo.coolprop_adapter  # noqa: E402
-from naive import naive_solve  # noqa: E402
+from naive import naive_minimal, naive_solve  # noqa: E402
 
 SAMPLES = sorted((ROOT / "sample_projects").glob("*.json"))
 
@@ -115,6 +115,12 @@ def case_four_stage():
     # RP-1485 enhancement factor, condensed-water properties) then miss. A new ambient each run:
     report("  the same, a new ambient every solve", measure(_fresh(doc, True), 50), naive)
     report("  the same, detail=False, new ambient", measure(_fresh(doc, False), 50), naive)
+    # the window's solve: the balance and, for its charts, the points along paths (to_dict)
+    fresh = _fresh(doc, True)
+    report("  the same, new ambient, + to_dict (charts)", measure(lambda: fresh().to_dict(), 50), naive)
+    minimal = measure(lambda: naive_minimal(four_stage_doc(False)), 20)
+    report("naive minimal PropsSI, same train dry", minimal, extra="4 flashes a stage; ratio column: vs itself")
+    report("  4-stage moist full solve, new ambient, vs it", measure(_fresh(doc, True), 50), minimal)
 
 
 def _fresh(doc: dict, detail: bool):
@@ -144,6 +150,26 @@ def case_study():
         return
     doc = four_stage_doc(_humid_supported())
     report("staging comparison 1…6 stages", measure(lambda: compare_stagings(doc, max_stages=6), 5))
+    report("staging comparison 1…8 stages", measure(lambda: compare_stagings(doc, max_stages=8), 3))
+
+
+def case_first_coolant():
+    """A fresh process's first solve with a water coolant, cold and after the window's warm-up."""
+    code = ("import json, time, thermo\n"
+            "from thermo.exchanger import coolant\n"
+            "doc = json.load(open('sample_projects/two_stage_plant_air.json'))\n"
+            "for s in doc['stages']: s['cooler']['coolant'] = {'kind': 'water', 'temperature_rise_K': 8.0}\n"
+            "thermo.solve(json.load(open('sample_projects/two_stage_plant_air.json')))\n"
+            "WARM\n"
+            "t = time.perf_counter(); thermo.solve(doc); print(time.perf_counter() - t)\n")
+    for label, warm in (("cold", "pass"), ("after warm_up()", "getattr(coolant, 'warm_up', lambda: None)()")):
+        def run():
+            out = subprocess.run([sys.executable, "-c", code.replace("WARM", warm)], cwd=ROOT, check=True,
+                                 capture_output=True, text=True).stdout
+            return float(out.split()[-1])
+        times = [run() for _ in range(3)]
+        report(f"first solve with a water coolant, {label}",
+               (statistics.median(times), min(times), max(times)))
 
 
 def case_sweep():
@@ -281,7 +307,8 @@ def _peak_mb() -> float:
     return resource.getrusage(resource.RUSAGE_SELF).ru_maxrss / 1024.0
 
 
-CASES = [case_samples, case_four_stage, case_shaft_power, case_study, case_sweep, case_year, case_year_hourly,
+CASES = [case_samples, case_four_stage, case_shaft_power, case_study, case_first_coolant, case_sweep, case_year,
+         case_year_hourly,
          case_files, case_report, case_startup, case_startup_phases]
 
 

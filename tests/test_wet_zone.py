@@ -61,7 +61,9 @@ def test_two_zones_match_direct_integration_for_counterflow():
     assert ex.zones[1].ua_W_K == pytest.approx(wet, rel=5e-3)
     assert ex.zones[0].ua_W_K == pytest.approx(dry, rel=2e-3)  # mean cp over the dry zone
     assert ex.ua_W_K == pytest.approx(ex.zones[0].ua_W_K + ex.zones[1].ua_W_K, rel=1e-14)
-    assert ex.effectiveness is None and ex.ntu is None  # not defined for the whole condensing exchanger
+    # the whole condensing exchanger: F = 1 for counter-flow, ε and NTU on mean capacity rates
+    # (tests/test_zone_figures.py checks them against their definitions)
+    assert ex.correction_factor == 1.0 and 0.0 < ex.effectiveness < 1.0 and ex.ntu > 0.0
 
 
 @pytest.mark.parametrize("arr", ["counter_flow", "cross_flow_unmixed", "shell_and_tube_1_2"])

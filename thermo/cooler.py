@@ -5,6 +5,7 @@ __all__ = ["CoolerResult", "solve_cooler", "cooler_outlet_temperature", "outlet_
 
 from dataclasses import dataclass, field
 
+from thermo.chart_points import PointsOnDemand
 from thermo.moist.condensation import Condensation, condensation, cooling_line
 from thermo.moist.dew_point import dew_point
 from thermo.errors import InputError
@@ -203,7 +204,11 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
     duty = mass_flow * (inlet.h + ke - outlet.h)
     s_gen = mass_flow * (outlet.s - inlet.s) + duty / t_b
     water = condensation(model, inlet, outlet, duty, mass_flow, spec["separator_efficiency"]) if moist else None
-    path = _cooling_path(model, where, inlet, outlet, t_out, p_out, path_points, water)
+    if path_points:  # chart points: made when a chart (or to_dict) reads them, never for the balance
+        path = PointsOnDemand(lambda: _cooling_path(model, where, inlet, outlet, t_out, p_out, path_points, water),
+                              (inlet, water.after if water is not None and water.drained_kg_s > 0.0 else outlet))
+    else:
+        path = _cooling_path(model, where, inlet, outlet, t_out, p_out, path_points, water)
     return CoolerResult(index=index, inlet=inlet, outlet=outlet, duty_W=duty, boundary_temperature_K=t_b,
                         heat_exergy_W=heat_exergy(duty, t_b, dead.T0), entropy_generation_W_K=s_gen,
                         exergy_destroyed_W=dead.T0 * s_gen, path=path,

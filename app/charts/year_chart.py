@@ -69,7 +69,7 @@ def draw_year_chart(fig: Figure, year: dict, system: str = "SI", limit_K: float 
     style.prepare(fig)
     fit_layout.install(fig)  # titles and month labels fit a narrow panel (wrapped or smaller, same words)
     if side_by_side is None:
-        side_by_side = side_by_side_for(*fig.get_size_inches())
+        side_by_side = side_by_side_for(fig.bbox.width, fig.bbox.height)  # a SubFigure has no size of its own
     bins = year.get("bins") or []
     if side_by_side:
         ax_e, ax_w, ax_t = fig.subplots(1, 3)

@@ -25,7 +25,7 @@ from app.presentation.figures import Figure, Look, read_path, shown
 _KWH = 3.6e6  # J per kWh
 _WINDOW, _TEXT, _WINDOW_TEXT = {"window"}, {"text"}, {"window", "text"}
 #: money in the window: thousands grouped, whole units, no unit text (the currency is the user's)
-_MONEY = {"window": Look(quantity="money", decimals=0, symbol="")}
+_MONEY = {out: Look(quantity="money", decimals=0, symbol="") for out in ("window", "pdf")}
 
 _DUTY = Figure("cooler_duty_W", "Cooler duty", "heat_flow", looks={"text": Look(label="duty", width=11)})
 _HOURS = Figure("totals.hours", "Operating hours", "hours")
@@ -66,6 +66,11 @@ YEAR_BINS: tuple[Figure, ...] = (
            note="No: a rated cooler leaves warmer than at its design condition, or the air reaches "
                 "the dryer above the stated limit",
            looks={"text": Look(label="ok", width=6)}),
+    # issue 17: the PDF report's year table (a column whose every value is zero is left out there)
+    replace(_DUTY, where=frozenset({"pdf"})),
+    replace(_CONDENSATE, where=frozenset({"pdf"})),
+    Figure("cooling_water_m3", "Cooling water", "liquid_volume", decimals=0, when="any", where={"pdf"}),
+    Figure("recoverable_heat_kWh", "Recoverable heat", "energy", to_si=_KWH, when="any", where={"pdf"}),
 )
 
 #: the year's totals and extremes (paths into the year dict). The text table lower-cases a label's
@@ -73,7 +78,7 @@ YEAR_BINS: tuple[Figure, ...] = (
 #: totals :func:`totals_for` keeps, with an extreme's bin after its value, and the hours last (what
 #: the year costs comes first in a short panel)
 YEAR_TOTALS: tuple[Figure, ...] = (
-    replace(_HOURS, where=frozenset(_TEXT)),
+    replace(_HOURS, where=frozenset(_TEXT | {"pdf"})),
     Figure("totals.energy_kWh", "Energy", "energy", to_si=_KWH),
     Figure("totals.energy_cost", "Energy cost", decimals=2, looks=_MONEY),
     Figure("totals.condensate_m3", "Condensate", "liquid_volume"),

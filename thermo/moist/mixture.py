@@ -347,6 +347,37 @@ class MoistMixture:
         baa, baw, bww = (c[0] for c in self.virial.eval(T))
         return P * self.n_a / self.epsilon * (x_a * x_a * (2.0 * baw - baa) + x_w * (1.0 + x_a) * bww)
 
+    def _mu_virial_along_saturation(self, T: float, P: float, dln: float) -> tuple[float, float]:
+        r"""Interaction part of the chemical potential of water at saturation and its temperature
+        derivative along the saturation line, [J/kg], [J/(kg K)], analytically [1]_:
+
+        .. math::
+
+            \frac{d\mu_v}{dT} = \left(\frac{\partial\mu_v}{\partial T}\right)_{x_w}
+            + \left(\frac{\partial\mu_v}{\partial x_w}\right)_T x_{ws}\,\frac{d\ln(f p_{ws})}{dT},
+            \qquad
+            \left(\frac{\partial\mu_v}{\partial x_w}\right)_T = \frac{p}{\varepsilon M_a}\,
+            2 x_a\,(B_{ww} + B_{aa} - 2B_{aw})
+
+        with :math:`x_{ws} = f p_{ws}/p` and the virial coefficients' temperature derivatives
+        from their tables (the derivative of the interpolating cubic). ``dln`` is
+        :math:`d\ln(f p_{ws})/dT` [1/K]. Replaces central differences of :meth:`_mu_virial`.
+
+        References
+        ----------
+        .. [1] A. Herrmann, H.-J. Kretzschmar, D. P. Gatley, ASHRAE RP-1485, HVAC&R Research 15
+           (2009) 961–986 (second virial coefficients of humid air; the interaction term of
+           :meth:`mu_water`).
+        """
+        x_w = self.saturation_fraction(T, P)
+        x_a = 1.0 - x_w
+        baa, baw, bww = self.virial.eval(T)
+        k = P * self.n_a / self.epsilon
+        mu = k * (x_a * x_a * (2.0 * baw[0] - baa[0]) + x_w * (1.0 + x_a) * bww[0])
+        dmu_dt = k * (x_a * x_a * (2.0 * baw[1] - baa[1]) + x_w * (1.0 + x_a) * bww[1])
+        dmu_dx = k * 2.0 * x_a * (bww[0] + baa[0] - 2.0 * baw[0])
+        return mu, dmu_dt + dmu_dx * x_w * dln
+
     def liquid_gibbs(self, T: float, P: float) -> float:
         """Gibbs energy of condensed water in equilibrium with the vapour, [J/kg]."""
         return self.mu_water(T, P, self.saturation_fraction(T, P))
@@ -360,7 +391,10 @@ class MoistMixture:
         With :math:`g_l = h_w^\circ - T s_w^\circ + R_w T \ln(f p_{ws}/p_\mathrm{ref}) + \mu_v`
         (:math:`\mu_v` the interaction part), :math:`s_l = -\partial g_l/\partial T` and
         :math:`h_l = h_w^\circ - R_w T^2\,\partial\ln(f p_{ws})/\partial T + \mu_v - T\,\partial\mu_v/\partial T`;
-        only the two small terms are differentiated numerically (central differences).
+        :math:`\mu_v` and its derivative analytically (:meth:`_mu_virial_along_saturation`);
+        only :math:`\ln f` is differentiated numerically (central differences of CoolProp's
+        RP-1485 factor, which has no closed form: an implicit equation in :math:`x_{ws}` with
+        IAPWS-95 liquid properties and Henry's law in Herrmann et al. 2009).
         """
         return self._remembered((T, P), self._liquid, T, P)
 
@@ -384,9 +418,7 @@ class MoistMixture:
         if self.virial is None:
             mu_v = dmu_v = 0.0
         else:
-            mu_v = self._mu_virial(T, P, self.saturation_fraction(T, P))
-            dmu_v = (self._mu_virial(T + d, P, self.saturation_fraction(T + d, P))
-                     - self._mu_virial(T - d, P, self.saturation_fraction(T - d, P))) / (2.0 * d)
+            mu_v, dmu_v = self._mu_virial_along_saturation(T, P, dln)
         s_l = sw - self.R_w * (ln_fp - math.log(P_REF)) - self.R_w * T * dln - dmu_v
         h_l = hw - self.R_w * T * T * dln + mu_v - T * dmu_v
         return h_l, s_l

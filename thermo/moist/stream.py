@@ -159,6 +159,17 @@ class MoistAir:
         _, _, v, cp, hp, _, _ = self._state(T, P, slope=True)
         return P * (v / efficiency - hp) / cp
 
+    def polytropic_slope_parts(self, T: float, P: float) -> tuple[float, float, float]:
+        """(p v/c_p [K], p (∂h/∂p)_T/c_p [K], p v [J/kg]) at T, P, from the same state as
+        :meth:`polytropic_slope`, which is ``a/η − b`` of the first two (one evaluation gives the
+        slope at every efficiency; :func:`thermo.polytropic.polytropic_efficiency_between` uses it)."""
+        check_range(T, P, "polytropic path")
+        if self.split(T, P)[1] <= _LIQUID_NEGLIGIBLE * self.water:
+            v, cp, hp = self.mixture.gas_slope_terms(T, P, self.water)
+        else:
+            _, _, v, cp, hp, _, _ = self._state(T, P, slope=True)
+        return P * v / cp, P * hp / cp, P * v
+
     def _slope_vapour(self, T: float, P: float, efficiency: float) -> float:
         """Polytropic slope with all the water as vapour (no latent heat in cp).
 

@@ -1,4 +1,4 @@
-"""The project document, version 2: every key, its unit, range and default.
+"""The project document, version 3: every key, its unit, range and default.
 
 This table is the single source of truth for what a project may contain. The solver,
 the project-file loader, the window's entry fields and ``docs/project-format.md`` all
@@ -8,12 +8,13 @@ from __future__ import annotations
 
 __all__ = ["FORMAT_NAME", "FORMAT_VERSION", "PROJECT", "STAGE", "COOLER", "EFFICIENCY",
            "FLOW_KINDS", "MODEL_NAMES", "COOLANT", "COOLANT_KINDS", "ARRANGEMENT_NAMES",
-           "HEAT_RECOVERY", "YEAR", "YEAR_COOLERS"]
+           "HEAT_RECOVERY", "YEAR", "YEAR_COOLERS", "CASE", "SNAPSHOT"]
 
-from thermo.project.schema_types import Choice, Items, Num, Obj, Text, Variant
+from thermo.project.case_changes import CHANGEABLE_KEYS
+from thermo.project.schema_types import Changes, Choice, Items, Num, Obj, Raw, Text, Variant
 
 FORMAT_NAME = "stagewright-project"
-FORMAT_VERSION = 2  #: 2: the delivery pressure may be stated gauge (discharge_gauge_pressure_Pa)
+FORMAT_VERSION = 3  #: 2: the delivery pressure may be stated gauge; 3: cases and a results snapshot
 FLOW_KINDS = ("mass", "free_air_delivery", "normal_volume", "shaft_power")
 MODEL_NAMES = ("real_gas", "ideal_gas", "constant_cp")
 
@@ -106,6 +107,21 @@ YEAR = Obj(nullable=True, default=None, fields={
     "coolers": YEAR_COOLERS,
 })
 
+#: a named case: the base design with some fields changed (thermo.project.case_changes)
+CASE = Obj(fields={
+    "name": Text(required=True, max_length=80),
+    "note": Text(default="", max_length=1000),
+    "changes": Changes(roots=CHANGEABLE_KEYS, required=True),
+})
+
+#: the results as last saved, with the versions that computed them (thermo.cases.snapshot)
+SNAPSHOT = Obj(nullable=True, default=None, fields={
+    "stagewright_version": Text(required=True, max_length=40),
+    "coolprop_version": Text(required=True, max_length=40),
+    "saved_utc": Text(default="", max_length=40),
+    "results": Raw(required=True),
+})
+
 #: the delivery pressure: stated absolute or gauge (thermo.project.delivery), exactly one
 PROJECT = Obj(one_of=(("discharge_pressure_Pa", "discharge_gauge_pressure_Pa"),), fields={
     "format": Choice((FORMAT_NAME,), default=FORMAT_NAME),
@@ -141,4 +157,8 @@ PROJECT = Obj(one_of=(("discharge_pressure_Pa", "discharge_gauge_pressure_Pa"),)
     "stages": Items(STAGE, min_length=1, max_length=12, required=True),
     "heat_recovery": HEAT_RECOVERY,
     "year": YEAR,
+    # version 3: options as cases of one project (thermo.project.cases) and the results last saved
+    "base_name": Text(default="Base", max_length=80),
+    "cases": Items(CASE, max_length=50, default=[]),
+    "snapshot": SNAPSHOT,
 })

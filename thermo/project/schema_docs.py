@@ -24,7 +24,7 @@ import sys
 from pathlib import Path
 
 from thermo.project.schema import PROJECT
-from thermo.project.schema_types import MISSING, Choice, Items, Num, Obj, Text, Variant, walk
+from thermo.project.schema_types import MISSING, Changes, Choice, Items, Num, Obj, Raw, Text, Variant, walk
 
 #: schema path → meaning
 PROJECT_KEYS = {
@@ -124,6 +124,21 @@ PROJECT_KEYS = {
     "heat_recovery.boiler_efficiency": "Efficiency of that boiler (above 1 for condensing boilers, net basis).",
     "heat_recovery.operating_hours_per_year": "Hours for the yearly value; null: `year.operating_hours_per_year`, "
                                               "else 8760.",
+    "base_name": "Name of the base design (the document's own fields) among the project's cases.",
+    "cases": "Named cases: each is the base design with some fields changed (version 3). A case's results "
+             "are those of the same project saved on its own.",
+    "cases[]": "One case.",
+    "cases[].name": "The case's name: unique in the project, not the base's.",
+    "cases[].note": "Free text: what the case stands for.",
+    "cases[].changes": "The fields the case changes, each as a field path (`site.ambient_temperature_K`, "
+                       "`stages[1].cooler`, `stages` for another stage list) and its value in the same units as "
+                       "the field; `null` removes an optional key. Every other field follows the base.",
+    "snapshot": "The results as last saved (optional): on opening, the window shows them at once, solves again "
+                "and says which figures moved by more than 1e-6 relative, and why if the versions differ.",
+    "snapshot.stagewright_version": "Version of Stagewright that computed the snapshot.",
+    "snapshot.coolprop_version": "Version of CoolProp that computed the snapshot.",
+    "snapshot.saved_utc": "When the snapshot was taken (UTC, ISO 8601).",
+    "snapshot.results": "Each case's results by case name, in the form of `solve --json` (SI, unit in each key).",
     "year": "A year at the site: ambient profile, hours, load and prices (see *A year at the site* "
             "below), or null.",
     "year.profile": "The ambient profile: 12 months, or bins of hours.",
@@ -228,13 +243,18 @@ RESULT_KEYS = {
     "stages[].cooler.coolant_kind": "`water`, `glycol` or `air`; null without a coolant side.",
     "stages[].cooler.coolant_flow_kg_s": "Coolant mass flow (given, or found from the temperature rise).",
     "stages[].cooler.coolant_volume_flow_m3_s": "Coolant volume flow at its inlet.",
+    "stages[].cooler.cooling_water_m3_s": "Cooling-water flow of this cooler: its coolant volume flow at the inlet "
+                                          "when the coolant is water or a water–glycol mixture; null for fan air "
+                                          "or without a coolant side.",
     "stages[].cooler.coolant_inlet_temperature_K": "Coolant inlet temperature.",
     "stages[].cooler.coolant_outlet_temperature_K": "Coolant outlet temperature.",
     "stages[].cooler.lmtd_K": "Counter-flow log-mean temperature difference of the four terminal temperatures.",
-    "stages[].cooler.lmtd_correction_factor": "LMTD correction factor F of the arrangement.",
+    "stages[].cooler.lmtd_correction_factor": "LMTD correction factor F of the arrangement (≤ 1). A condensing "
+                                              "cooler: 1 for counter-flow, else null (see its dry zone).",
     "stages[].cooler.mean_temperature_difference_K": "Mean temperature difference, duty ÷ UA.",
-    "stages[].cooler.effectiveness": "Exchanger effectiveness ε.",
-    "stages[].cooler.ntu": "Number of transfer units, UA ÷ C_min.",
+    "stages[].cooler.effectiveness": "Exchanger effectiveness ε (a condensing cooler: on the mean capacity rates "
+                                     "of the terminal changes, latent heat included).",
+    "stages[].cooler.ntu": "Number of transfer units, UA ÷ C_min (C_min as for ε).",
     "stages[].cooler.ua_W_K": "Overall conductance UA (needed, or given when rating).",
     "stages[].cooler.zones": "One dry zone, or a dry and a condensing zone.",
     "stages[].cooler.zones[].kind": "`dry` (sensible only) or `wet` (condensing).",
@@ -244,11 +264,18 @@ RESULT_KEYS = {
     "stages[].cooler.zones[].coolant_inlet_temperature_K": "Coolant temperature entering the zone.",
     "stages[].cooler.zones[].coolant_outlet_temperature_K": "Coolant temperature leaving the zone.",
     "stages[].cooler.zones[].capacity_ratio": "C_min ÷ C_max of the zone.",
-    "stages[].cooler.zones[].effectiveness": "Effectiveness of the zone.",
-    "stages[].cooler.zones[].ntu": "Number of transfer units of the zone.",
+    "stages[].cooler.zones[].effectiveness": "Effectiveness of the zone (a wet zone: on the enthalpy basis).",
+    "stages[].cooler.zones[].ntu": "Number of transfer units of the zone (a wet zone: on the enthalpy basis).",
     "stages[].cooler.zones[].lmtd_K": "Log-mean temperature difference of the zone.",
-    "stages[].cooler.zones[].lmtd_correction_factor": "LMTD correction factor of the zone.",
+    "stages[].cooler.zones[].lmtd_correction_factor": "LMTD correction factor F of a dry zone (≤ 1); null for a "
+                                                      "wet zone, which is driven by an enthalpy difference.",
+    "stages[].cooler.zones[].log_mean_enthalpy_difference_J_kg": "Wet zone: log-mean difference between the air's "
+                                                                 "enthalpy and saturated air's at the coolant "
+                                                                 "temperature, per kg dry air (Braun, Klein & "
+                                                                 "Mitchell 1989); null for a dry zone.",
     "stages[].cooler.zones[].ua_W_K": "Conductance UA of the zone.",
+    "cooling_water_m3_s": "Cooling-water flow of the train: the sum of the coolers' `cooling_water_m3_s` (null when "
+                          "no cooler has a water or glycol side).",
     "recoverable_heat_W": "Heat that can be recovered (null without a `heat_recovery` section).",
     "heat_recovery": "Heat recovery figures, or null without a `heat_recovery` section.",
     "heat_recovery.delivery_temperature_K": "Temperature of the stream delivered.",
@@ -350,6 +377,10 @@ def _describe(node) -> tuple[str, str, str, str]:
         typ, unit, rng = "list", "", f"{node.min_length} to {node.max_length} items"
     elif isinstance(node, (Obj, Variant)):
         typ, unit, rng = "object" + null, "", ""
+    elif isinstance(node, Changes):
+        typ, unit, rng = "object", "", f"up to {node.max_items} field paths"
+    elif isinstance(node, Raw):
+        typ, unit, rng = "any" + null, "", ""
     else:
         raise TypeError(node)
     if getattr(node, "required", False):
@@ -358,7 +389,7 @@ def _describe(node) -> tuple[str, str, str, str]:
         default = "—"
     else:
         d = node.default
-        default = "null" if d is None else (f"`{d!r}`".replace("'", '"') if isinstance(d, (str, dict)) else _g(d))
+        default = "null" if d is None else (f"`{d!r}`".replace("'", '"') if isinstance(d, (str, dict, list)) else _g(d))
     return typ, unit, rng, default
 
 

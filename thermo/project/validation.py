@@ -18,6 +18,7 @@ from typing import Any
 
 from thermo.atmosphere import SEA_LEVEL_PRESSURE, standard_pressure
 from thermo.errors import InputError, Problem, message_detail, quantity
+from thermo.project.case_changes import apply_changes
 from thermo.project.delivery import ABSOLUTE_KEY, delivery_pressure, stated_delivery
 from thermo.project.schema import PROJECT
 from thermo.project.schema_types import check
@@ -35,7 +36,31 @@ def _check(doc: Any) -> tuple[dict, list[Problem]]:
     if not out:
         out.extend(_cross_checks(norm))
         out.extend(_humidity_checks(doc.get("site") or {}, norm))
+    if not out and norm.get("cases"):
+        out.extend(_case_checks(doc, norm))
     return norm, out
+
+
+def _case_checks(doc: dict, norm: dict) -> list[Problem]:
+    """Each case's name (unique, not the base's) and its own document's problems, reported at
+    ``cases[k].changes`` with the case's name and the field inside it."""
+    out: list[Problem] = []
+    seen = {norm["base_name"]}
+    for k, case in enumerate(norm["cases"]):
+        name = case["name"]
+        if not name.strip() or name in seen:
+            out.append(Problem(f"cases[{k}].name", name, "expected a name of its own (not empty, not another "
+                                                         "case's or the base's)"))
+        seen.add(name)
+        try:
+            own = apply_changes(doc, case["changes"])
+        except (KeyError, IndexError, TypeError, AttributeError, InputError) as exc:
+            out.append(Problem(f"cases[{k}].changes", name, f"a change runs through a field the base does not "
+                                                            f"have ({type(exc).__name__}: {exc})"))
+            continue
+        for p in _check(own)[1]:
+            out.append(Problem(f"cases[{k}].changes", p.value, f"in case {name!r}, {p.field}: {p.expected}"))
+    return out
 
 
 def _usable(value: Any) -> bool:
