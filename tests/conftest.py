@@ -14,6 +14,7 @@ os.environ.setdefault("STAGEWRIGHT_DATA_DIR", tempfile.mkdtemp(prefix="stagewrig
 
 ROOT = Path(__file__).resolve().parent.parent
 SAMPLES = ROOT / "sample_projects"
+PREPARED_BY = "Stagewright test suite"  #: who "prepared" the reports the tests write
 
 
 def make_doc(model="constant_cp", stages=2, eta=0.8, kind="isentropic", p_out=9e5, cool_to=None,
@@ -38,3 +39,21 @@ def make_doc(model="constant_cp", stages=2, eta=0.8, kind="isentropic", p_out=9e
 def doc_factory():
     return make_doc
 
+
+
+@pytest.fixture(scope="session")
+def sample_reports(tmp_path_factory):
+    """PDF and CSV report of every sample project in SI units, written once per test session by
+    ``stagewright report`` (a report takes seconds: the test files that read them share them).
+
+    Returns ``{sample path: (pdf path, csv path)}``.
+    """
+    from app.cli.main import main
+
+    out = {}
+    for path in sorted(SAMPLES.glob("*.json")):
+        folder = tmp_path_factory.mktemp(path.stem)
+        pdf, csv_path = folder / "r.pdf", folder / "r.csv"
+        assert main(["report", str(path), "-o", str(pdf), "--csv", str(csv_path), "--prepared-by", PREPARED_BY]) == 0
+        out[path] = (pdf, csv_path)
+    return out

@@ -91,10 +91,10 @@ def test_solve_json_has_cooler_sizing_keys(capsys):
         for key in ("arrangement", "coolant_flow_kg_s", "coolant_inlet_temperature_K",
                     "coolant_outlet_temperature_K", "lmtd_K", "ua_W_K"):
             assert c[key] is not None
-        if c["condensate_kg_s"] > 0.0:  # condensing: ε and NTU per zone (dry, wet), not for the whole
-            assert c["effectiveness"] is None and c["ntu"] is None
+        assert c["effectiveness"] is not None and c["ntu"] is not None
+        if c["condensate_kg_s"] > 0.0:  # condensing: each zone has its own ε and NTU too; a wet zone no F
             assert [z["kind"] for z in c["zones"]] == ["dry", "wet"]
             assert all(z["effectiveness"] is not None and z["ntu"] is not None for z in c["zones"])
-        else:
-            assert c["effectiveness"] is not None and c["ntu"] is not None
+            assert c["zones"][1]["lmtd_correction_factor"] is None
+            assert c["zones"][1]["log_mean_enthalpy_difference_J_kg"] > 0.0
     assert out["recoverable_heat_W"] > 0.0

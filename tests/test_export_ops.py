@@ -79,6 +79,30 @@ def test_export_failure_is_a_message_not_a_crash(qtbot, tmp_path):
     win.close()
 
 
+def test_export_prints_the_staging_study_run_in_the_window(qtbot, tmp_path):
+    # issue 17 item 4: a study run in the window goes into the report (not only `report --stagings`);
+    # a study that no longer fits the project (stale) does not
+    from test_study_panel import perfect_gas_doc, run
+
+    win = make_window(qtbot, tmp_path, perfect_gas_doc())
+    panel = run(qtbot, win, 3)
+    assert not panel.is_stale and len(panel.rows) == 3
+    _export(qtbot, win, tmp_path / "study.pdf", PDF_ONLY)
+    text = "\n".join(p.extract_text() for p in pypdf.PdfReader(str(tmp_path / "study.pdf")).pages)
+    assert "Staging comparison" in text and "Arrangements compared" in text
+    for row in panel.rows:  # each option's driver power at the printed precision (kW, 2 decimals)
+        m = re.search(rf"^{row['stages']} [\d. ×]+? ([\d ]+\.\d\d) ", text, re.M)
+        assert m and abs(float(m.group(1).replace(" ", "")) - row["driver_power_W"] / 1e3) <= 0.005
+    after = win.editor.solved_jobs
+    win.editor.set_value("stages[0].efficiency.value", 0.7)  # the study no longer describes the project
+    wait_solved(qtbot, win, after)
+    assert panel.is_stale
+    _export(qtbot, win, tmp_path / "stale.pdf", PDF_ONLY)
+    text = "\n".join(p.extract_text() for p in pypdf.PdfReader(str(tmp_path / "stale.pdf")).pages)
+    assert "Staging comparison" not in text
+    win.close()
+
+
 def test_export_starts_in_documents_with_a_name_from_the_title_then_in_the_last_folder(qtbot, tmp_path, monkeypatch):
     from PySide6.QtCore import QStandardPaths
     docs = tmp_path / "Documents"

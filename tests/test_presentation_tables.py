@@ -25,7 +25,7 @@ from thermo.project import load
 
 SAMPLE_FILES = sorted(SAMPLES.glob("*.json"))
 TABLES = {"POINTS": balance_tables.POINTS, "COMPONENTS": balance_tables.COMPONENTS,
-          "EXCHANGERS": balance_tables.EXCHANGERS, "TOTALS": balance_tables.TOTALS,
+          "EXCHANGERS": balance_tables.EXCHANGERS, "ZONES": balance_tables.ZONES, "TOTALS": balance_tables.TOTALS,
           "STAGING": staging_table.STAGING, "YEAR_BINS": year_tables.YEAR_BINS,
           "YEAR_TOTALS": year_tables.YEAR_TOTALS}
 
@@ -52,7 +52,7 @@ def _check_paths(figures, containers, seen: set) -> list[str]:
 
 
 def test_every_train_table_path_is_in_the_results_of_the_sample_projects(sample_results):
-    missing, seen = [], {name: set() for name in ("POINTS", "COMPONENTS", "EXCHANGERS", "TOTALS")}
+    missing, seen = [], {name: set() for name in ("POINTS", "COMPONENTS", "EXCHANGERS", "ZONES", "TOTALS")}
     kinds_met = set()
     for r in sample_results.values():
         rows = balance_tables.component_rows(r)
@@ -62,12 +62,39 @@ def test_every_train_table_path_is_in_the_results_of_the_sample_projects(sample_
                                 seen["POINTS"])
         missing += _check_paths(balance_tables.COMPONENTS, [(kind, c) for _, kind, _, c in rows], seen["COMPONENTS"])
         missing += _check_paths(balance_tables.EXCHANGERS, coolers, seen["EXCHANGERS"])
+        missing += _check_paths(balance_tables.ZONES, [(None, z) for _, c in coolers for z in c["zones"]],
+                                seen["ZONES"])
         missing += _check_paths(balance_tables.TOTALS, [(None, r)], seen["TOTALS"])
     assert missing == []
     for name in seen:  # every figure has a value in some sample: the samples exercise each row
         assert seen[name] == {f.id for f in TABLES[name]}, name
     named_kinds = {kind for f in balance_tables.COMPONENTS for kind in f.key}
     assert named_kinds <= kinds_met == {"filter", "stage", "cooler", "train"}
+
+
+def _pdf_key_figures():
+    from app.presentation.figures import shown
+    return shown(balance_tables.KEY_FIGURES, "pdf")
+
+
+def test_every_summary_and_recovery_path_is_in_the_results_of_the_sample_projects(sample_results):
+    from app.presentation import recovery_table, summary_table
+
+    missing, seen = [], {"summary": set(), "train": set(), "recovery": set(), "by_stage": set()}
+    for r in sample_results.values():
+        missing += _check_paths(_pdf_key_figures(), [(None, r)], seen["summary"])
+        rows = [(kind, c) for _, kind, _, c in balance_tables.component_rows(r) if kind in ("stage", "cooler")]
+        missing += _check_paths(summary_table.SUMMARY_TRAIN, rows, seen["train"])
+        if r["heat_recovery"]:
+            missing += _check_paths(recovery_table.RECOVERY, [(None, r["heat_recovery"])], seen["recovery"])
+            missing += _check_paths(recovery_table.RECOVERY_BY_STAGE,
+                                    [(None, row) for _, row in recovery_table.recovery_rows(r["heat_recovery"])],
+                                    seen["by_stage"])
+    assert missing == []
+    assert seen["summary"] == {f.id for f in _pdf_key_figures()}
+    assert seen["train"] == {f.id for f in summary_table.SUMMARY_TRAIN}
+    assert seen["recovery"] == {f.id for f in recovery_table.RECOVERY}
+    assert seen["by_stage"] == {f.id for f in recovery_table.RECOVERY_BY_STAGE}
 
 
 def test_every_staging_column_path_is_in_a_study_of_a_sample_project():

@@ -61,14 +61,8 @@ def _flat(s: str) -> str:
 
 
 @pytest.fixture(scope="module")
-def si_reports(tmp_path_factory):
-    out = {}
-    for path in SAMPLE_FILES:
-        folder = tmp_path_factory.mktemp(path.stem)
-        pdf, csv_path = folder / "r.pdf", folder / "r.csv"
-        assert main(["report", str(path), "-o", str(pdf), "--csv", str(csv_path)]) == 0
-        out[path] = (pdf, csv_path)
-    return out
+def si_reports(sample_reports):
+    return sample_reports
 
 
 @pytest.mark.parametrize("path", SAMPLE_FILES, ids=lambda p: p.stem)
@@ -287,11 +281,13 @@ def test_cooler_exchanger_figures_are_printed(tmp_path):
     export_report(doc, result, pdf)
     text, _ = _pdf_text(pdf)
     assert "Cooler exchangers" in text and "water, rise 8.00 K" in text
-    m = re.search(r"^Cooler 1 water ([\d.]+) ([\d.]+) ([\d.]+) ([\d.]+) ([\d.]+) ([\d.]+) ([\d.]+) ([\d.]+)$", text, re.M)
+    m = re.search(r"^Cooler 1 water ([\d.]+) ([\d.]+) ([\d.]+) ([\d.]+) ([\d.]+) ([\d.]+) ([\d.]+) ([\d.]+) "
+                  r"([\d.]+)$", text, re.M)
     assert m, "exchanger row not printed"
     assert abs(float(m.group(1)) - c["coolant_flow_kg_s"]) <= 5e-5
     assert abs(float(m.group(3)) - (c["coolant_outlet_temperature_K"] - 273.15)) <= 0.005
     assert abs(float(m.group(8)) - c["ua_W_K"] / 1e3) <= 5e-4  # kW/K
+    assert abs(float(m.group(9)) - c["cooling_water_m3_s"] * 3600.0) <= 0.005  # m³/h
 
 
 def test_report_with_the_staging_study(tmp_path):

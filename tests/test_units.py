@@ -39,3 +39,12 @@ def test_humidity_ratio_and_condensate_units():
     assert to_display(64.79891e-6 / 0.45359237, "humidity_ratio", "US") == pytest.approx(1.0)
     assert to_display(1.0 / 3600.0, "water_flow", "SI") == pytest.approx(1.0)
     assert to_display(0.45359237 / 3600.0, "water_flow", "US") == pytest.approx(1.0)
+
+
+def test_cooling_water_and_condensate_volume_flows():
+    # NIST SP 811, Appendix B: 1 US gallon = 3.785411784 L exactly; gpm = US gallons per minute
+    assert to_display(1.0 / 3600.0, "water_volume_flow", "SI") == pytest.approx(1.0)  # 1 m³/h
+    assert to_display(3.785411784e-3 / 60.0, "water_volume_flow", "US") == pytest.approx(1.0)  # 1 US gpm
+    assert to_display(1e-3 / 3600.0, "condensate_volume_flow", "SI") == pytest.approx(1.0)  # 1 L/h
+    assert to_display(3.785411784e-3 / 3600.0, "condensate_volume_flow", "US") == pytest.approx(1.0)  # 1 gal/h
+    assert unit("water_volume_flow", "US").symbol == "US gpm"

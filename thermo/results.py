@@ -1,7 +1,8 @@
 """The result of a train solve, and its plain-data form (``to_dict``) for JSON, CSV and reports."""
 from __future__ import annotations
 
-__all__ = ["TrainResult", "InletResult", "Warning_", "WaterResult", "point_dict", "exchanger_dict"]
+__all__ = ["TrainResult", "InletResult", "Warning_", "WaterResult", "point_dict", "exchanger_dict",
+           "LIQUID_COOLANTS", "cooling_water_m3_s"]
 
 import math
 from dataclasses import dataclass, field
@@ -95,18 +96,33 @@ def _cooler_water(cooler: CoolerResult, mixture) -> dict:
             "separator_outlet": point_dict(w.after, 0.0, mixture)}
 
 
+#: coolant kinds whose flow is cooling water (a water or water–glycol circuit), not fan air
+LIQUID_COOLANTS = ("water", "glycol")
+
+
+def cooling_water_m3_s(coolers) -> float | None:
+    """Cooling-water volume flow of the train, [m³/s]: the liquid coolants' flows at their inlets.
+
+    ``coolers`` are CoolerResults (or None); None when no cooler has a water or glycol side.
+    """
+    sides = [c.exchanger.coolant for c in coolers if c is not None and c.exchanger is not None]
+    flows = [s.volume_flow_m3_s for s in sides if s.kind in LIQUID_COOLANTS]
+    return sum(flows) if flows else None
+
+
 def exchanger_dict(cooler: CoolerResult) -> dict:
     """Sizing figures of a cooler's exchanger (None where no coolant side is given)."""
     ex = cooler.exchanger
     if ex is None:
         return {"arrangement": cooler.arrangement, "coolant_kind": None, "coolant_flow_kg_s": None,
-                "coolant_volume_flow_m3_s": None, "coolant_inlet_temperature_K": None,
+                "coolant_volume_flow_m3_s": None, "cooling_water_m3_s": None, "coolant_inlet_temperature_K": None,
                 "coolant_outlet_temperature_K": None, "lmtd_K": None, "lmtd_correction_factor": None,
                 "mean_temperature_difference_K": None, "effectiveness": None, "ntu": None,
                 "ua_W_K": None, "zones": []}
     c = ex.coolant
     return {"arrangement": ex.arrangement, "coolant_kind": c.kind, "coolant_flow_kg_s": c.flow_kg_s,
             "coolant_volume_flow_m3_s": c.volume_flow_m3_s,
+            "cooling_water_m3_s": c.volume_flow_m3_s if c.kind in LIQUID_COOLANTS else None,
             "coolant_inlet_temperature_K": c.inlet_temperature_K,
             "coolant_outlet_temperature_K": c.outlet_temperature_K, "lmtd_K": ex.lmtd_K,
             "lmtd_correction_factor": ex.correction_factor,
@@ -118,6 +134,7 @@ def exchanger_dict(cooler: CoolerResult) -> dict:
                        "coolant_outlet_temperature_K": z.coolant_outlet_temperature_K,
                        "capacity_ratio": z.capacity_ratio, "effectiveness": z.effectiveness, "ntu": z.ntu,
                        "lmtd_K": z.lmtd_K, "lmtd_correction_factor": z.correction_factor,
+                       "log_mean_enthalpy_difference_J_kg": z.log_mean_enthalpy_difference_J_kg,
                        "ua_W_K": z.ua_W_K} for z in ex.zones]}
 
 
@@ -218,6 +235,7 @@ class TrainResult:
                              "exergy_destroyed_W": self.inlet.exergy_destroyed_W},
             "delivery": point_dict(self.delivery, self.delivery_velocity_m_s, mix),
             "stages": [_stage_dict(s, c, mix) for s, c in zip(self.stages, self.coolers)],
+            "cooling_water_m3_s": cooling_water_m3_s(self.coolers),
             "recoverable_heat_W": None if self.recovery is None else self.recovery.recoverable_heat_W,
             "heat_recovery": _recovery_dict(self.recovery),
             "warnings": [w.to_dict() for w in self.warnings],

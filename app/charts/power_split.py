@@ -72,8 +72,10 @@ def heat_items(result: dict) -> list[tuple[str, str, list[tuple[str, float]]]]:
     return rows
 
 
-_LEGEND_BELOW = dict(loc="upper left", bbox_to_anchor=(0.0, -0.13), ncol=2, fontsize=style.SIZE_NOTE,
-                     frameon=False, handlelength=1.4, columnspacing=1.2, borderaxespad=0.0)
+# each panel's legend sits in an empty axes of its own under the panel (a row of the grid): the layout
+# then keeps it clear of the panel's x label and within the panel's width, whatever the figure's size
+_LEGEND_BELOW = dict(loc="upper left", bbox_to_anchor=(0.0, 1.0), ncol=1, fontsize=style.SIZE_NOTE,
+                     frameon=False, handlelength=1.4, borderaxespad=0.0)
 _PART_COLOUR = {"sensible": style.SENSIBLE, "latent": style.LATENT,
                 "casing": style.CASING, "mechanical": style.MECHANICAL}
 _EXERGY_COLOUR = {"heat": style.HEAT_EXERGY, "condensate": style.CONDENSATE}
@@ -99,13 +101,25 @@ def draw_power_split(fig: Figure, result: dict, system: str = "SI") -> Figure:
         The same figure.
     """
     style.prepare(fig)
-    ax_x, ax_q = fig.subplots(1, 2, width_ratios=[1.35, 1.0])
-    _draw_exergy(ax_x, result, system)
-    _draw_heat(ax_q, result, system)
+    (ax_x, ax_q), legends = fig.subplots(2, 2, width_ratios=[1.35, 1.0], height_ratios=[1.0, 0.01])
+    for ax in legends:
+        ax.set_axis_off()
+    _legend(legends[0], _draw_exergy(ax_x, result, system))
+    _legend(legends[1], _draw_heat(ax_q, result, system))
     return fig
 
 
-def _draw_exergy(ax, result: dict, system: str) -> None:
+def _legend(ax, handles: list) -> None:
+    """The legend of the panel above ``ax`` (an empty axes), top left, one entry a line."""
+    if not handles:
+        return
+    leg = ax.legend(handles=handles, **_LEGEND_BELOW)
+    for t in leg.get_texts():
+        t.set_color(style.INK)
+
+
+def _draw_exergy(ax, result: dict, system: str) -> list:
+    """The exergy cascade on ``ax``; returns its legend's handles."""
     pw = units.unit("power", system)
     shaft = result["shaft_power_W"]
     items = exergy_items(result)
@@ -154,12 +168,11 @@ def _draw_exergy(ax, result: dict, system: str) -> None:
                              label="heat to a sink below ambient (adds back)"))
     if any(gid == "condensate" for gid, _, _ in items):
         handles.append(Patch(color=style.CONDENSATE, label="out with drained condensate"))
-    leg = ax.legend(handles=handles, **_LEGEND_BELOW)
-    for t in leg.get_texts():
-        t.set_color(style.INK)
+    return handles
 
 
-def _draw_heat(ax, result: dict, system: str) -> None:
+def _draw_heat(ax, result: dict, system: str) -> list:
+    """The heat rejected on ``ax``; returns its legend's handles."""
     hu = units.unit("heat_flow", system)
     rows = heat_items(result)
     n = len(rows)
@@ -202,8 +215,4 @@ def _draw_heat(ax, result: dict, system: str) -> None:
                      xlabel=units.label("Heat flow", "heat_flow", system) if rows else None,
                      grid_axis="x" if rows else "")
     ax.tick_params(axis="y", length=0)
-    if used:
-        leg = ax.legend(handles=[Patch(color=_PART_COLOUR[p], label=_PART_LABEL[p]) for p in used],
-                        **dict(_LEGEND_BELOW, ncol=1))
-        for t in leg.get_texts():
-            t.set_color(style.INK)
+    return [Patch(color=_PART_COLOUR[p], label=_PART_LABEL[p]) for p in used]

@@ -26,6 +26,8 @@ def add_arguments(p: argparse.ArgumentParser) -> None:
     p.add_argument("--units", choices=("SI", "US"), default="SI", help="display units (default SI)")
     p.add_argument("--stagings", type=int, choices=range(1, 9), metavar="N", default=None,
                    help="also compare 1 … N stages, each at its optimum split, and print the comparison")
+    p.add_argument("--prepared-by", metavar="NAME", default=None,
+                   help="who made the report, printed on its first page (default: your user account's name)")
 
 
 def output_paths(paths: list[Path], output: str | None, csv: str | None) -> list[tuple[Path, Path | None]]:
@@ -78,7 +80,7 @@ def run(args) -> int:
                     from thermo.study import compare_stagings
                     rows = compare_stagings(doc, args.stagings).rows()
                 export_report(doc, result, pdf, csv_path, system=args.units, source_name=path.name,
-                              study_rows=rows)
+                              study_rows=rows, prepared_by=getattr(args, "prepared_by", None))
             except StagewrightError as exc:
                 bar.message(f"{path}: {exc}")
                 status = max(status, EXIT_INPUT)

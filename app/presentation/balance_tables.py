@@ -4,6 +4,7 @@
 * :data:`COMPONENTS` — the columns of the component table, whose rows are the intake filter,
   each stage, each cooler and the whole train (a path per row kind; :func:`component_rows`).
 * :data:`EXCHANGERS` — the PDF report's table of the coolers' exchangers (paths into a cooler).
+* :data:`ZONES` — the PDF report's table of the dry and wet zones of condensing coolers.
 * :data:`TOTALS` — the train's totals (paths into the result).
 * :data:`KEY_FIGURES` — the few figures an engineer looks for first (the window's key-figures
   strip); :func:`key_figures` lays them out for one result, a cooler figure once per cooler.
@@ -16,18 +17,21 @@ place one output lists it (each output keeps the order it has always had). No Qt
 """
 from __future__ import annotations
 
-__all__ = ["POINTS", "COMPONENTS", "EXCHANGERS", "TOTALS", "KEY_FIGURES", "KeyFigure", "LIQUID_COOLANTS",
+__all__ = ["POINTS", "COMPONENTS", "EXCHANGERS", "ZONES", "TOTALS", "KEY_FIGURES", "KeyFigure", "LIQUID_COOLANTS",
            "train_points", "component_rows", "cooler_name", "cooling_water_kg_s", "key_figures"]
 
 from dataclasses import dataclass
 
-from app.presentation.figures import Figure, Look, condition_holds
+from app.presentation.figures import Figure, Look, condition_holds, shown
 from app.presentation.result_notes import NEGATIVE_TIPS, TOTAL_TIPS
 
 _WINDOW, _PDF = {"window"}, {"pdf"}
 _WINDOW_PDF = {"window", "pdf"}
 _NOT_CSV = {"window", "text", "pdf"}
 _NOT_TEXT = {"window", "pdf", "csv"}
+_NOT_WINDOW = {"text", "pdf", "csv"}
+_L_H = 1e-3 / 3600.0  # m³/s per L/h
+_TEXT_2 = {"text": Look(decimals=2)}
 
 
 def _every_component(key: str) -> dict[str, str]:
@@ -89,6 +93,12 @@ COMPONENTS: tuple[Figure, ...] = (
            where=_WINDOW),
     Figure({"cooler": "coolant_outlet_temperature_K"}, "Coolant out", "temperature", id="coolant_out",
            when="exchanger", where=_WINDOW),
+    # issue 17: cooling water per cooler and for the train; the text table also lists each cooler's condensate
+    Figure({"cooler": "cooling_water_m3_s", "train": "cooling_water_m3_s"}, "Cooling water", "water_volume_flow",
+           id="cooling_water", when="any", note="Water (or water–glycol) flow through the cooler, at its inlet",
+           looks={"text": Look(label="water", width=14)}),
+    Figure({"cooler": "condensate_kg_s", "train": "condensate_kg_s"}, "Condensate", "water_flow", id="condensate",
+           when="moist", where={"text"}, looks={"text": Look(label="condensate", width=18)}),
 )
 
 #: the PDF report's table of cooler exchangers (paths into a cooler dict; coolers with a coolant side); the
@@ -100,6 +110,26 @@ EXCHANGERS: tuple[Figure, ...] = (
     Figure("coolant_outlet_temperature_K", "Coolant out", "temperature"),
     Figure("lmtd_K", "LMTD", "temperature_difference"),
     Figure("lmtd_correction_factor", "F", decimals=3),
+    Figure("effectiveness", "ε", decimals=3),
+    Figure("ntu", "NTU", decimals=3),
+    Figure("ua_W_K", "UA", "conductance"),
+    # issue 17: the volume of cooling water (blank for fan air)
+    Figure("cooling_water_m3_s", "Cooling water", "water_volume_flow", when="any"),
+)
+
+#: the PDF report's table of the zones of condensing coolers (paths into an entry of a cooler's ``zones``): a dry
+#: zone has its LMTD correction factor F, a wet zone is driven by its log-mean enthalpy difference instead
+ZONES: tuple[Figure, ...] = (
+    Figure("kind", "Zone", style="text"),
+    Figure("duty_W", "Duty", "heat_flow"),
+    Figure("hot_inlet_temperature_K", "Air in", "temperature"),
+    Figure("hot_outlet_temperature_K", "Air out", "temperature"),
+    Figure("coolant_inlet_temperature_K", "Coolant in", "temperature"),
+    Figure("coolant_outlet_temperature_K", "Coolant out", "temperature"),
+    Figure("lmtd_K", "LMTD", "temperature_difference"),
+    Figure("lmtd_correction_factor", "F", decimals=3, looks={"pdf": Look(missing="")}),
+    Figure("log_mean_enthalpy_difference_J_kg", "Δh_lm", "specific_enthalpy", id="lmed",
+           looks={"pdf": Look(missing="")}),
     Figure("effectiveness", "ε", decimals=3),
     Figure("ntu", "NTU", decimals=3),
     Figure("ua_W_K", "UA", "conductance"),
@@ -136,6 +166,23 @@ TOTALS: tuple[Figure, ...] = (
     Figure("delivered_pressure_dew_point_K", "Pressure dew point", "temperature", when="moist", where=_WINDOW),
     Figure("delivered_atmospheric_dew_point_K", "Atm. dew point", "temperature", when="moist", where=_WINDOW),
     Figure("iso8573_humidity_class", "ISO 8573-1 class", style="text", when="moist", where=_WINDOW),
+    # issue 17: water, cooling water and heat recovery in every output (the window lists the first four above;
+    # the CSV has the train's cooling water in the component columns' train row)
+    Figure("condensate_kg_s", "Condensate", "water_flow", when="moist", where=_NOT_WINDOW,
+           looks={**_TEXT_2, "csv": Look(label="condensate_drained")}),
+    Figure("condensate_L_h", "Condensate volume", "condensate_volume_flow", to_si=_L_H, when="moist", looks=_TEXT_2,
+           note="Condensate drained by all separators as a volume flow"),
+    Figure("delivered_pressure_dew_point_K", "Pressure dew point", "temperature", when="moist", where=_NOT_WINDOW,
+           looks=_TEXT_2, note="Dew point of the delivered air at the delivery pressure"),
+    Figure("delivered_atmospheric_dew_point_K", "Atmospheric dew point", "temperature", when="moist",
+           where=_NOT_WINDOW, looks=_TEXT_2, note="Dew point of the delivered air expanded to the site pressure"),
+    Figure("iso8573_humidity_class", "ISO 8573-1 humidity class", style="text", when="moist", where=_NOT_WINDOW,
+           looks={"csv": Look(label="iso8573_humidity_class")}),
+    Figure("cooling_water_m3_s", "Cooling water", "water_volume_flow", when="any", looks=_TEXT_2, where=_NOT_CSV,
+           note="Water (or water–glycol) flow through all coolers with a liquid coolant, at their inlets"),
+    Figure("recoverable_heat_W", "Recoverable heat", "heat_flow", when="any",
+           note="Heat the project's heat recovery can deliver at its delivery temperature"),
+    # the closure residuals last: a check on the balance, not a figure of the design
     Figure("energy_residual", "Energy closure residual", **_RESIDUAL,
            looks={"text": Look(label="energy balance residual"), "pdf": Look(label="Energy balance closure")}),
     Figure("exergy_residual", "Exergy closure residual", **_RESIDUAL,
@@ -175,7 +222,8 @@ def component_rows(result: dict) -> list[tuple[str, str, int | None, dict]]:
 #: coolant kinds counted as cooling water (a water–glycol mix is still the plant's cooling-water circuit)
 LIQUID_COOLANTS = ("water", "glycol")
 
-#: the answer first: what an engineer looks for before the detail of the balance sheet. A figure
+#: the answer first: what an engineer looks for before the detail of the balance sheet (the
+#: window's key-figures strip and the report's first page, each its own ``where``). A figure
 #: whose key names the ``"cooler"`` row kind is shown once per cooler (:func:`key_figures`); the
 #: others read the result, plus ``cooling_water_kg_s`` (:func:`cooling_water_kg_s`).
 KEY_FIGURES: tuple[Figure, ...] = (
@@ -193,6 +241,26 @@ KEY_FIGURES: tuple[Figure, ...] = (
            note="Water drained from the coolers' separators: it needs working drains and lawful disposal."),
     Figure("delivered_pressure_dew_point_K", "Pressure dew point", "temperature", when="moist", where=_WINDOW,
            note="Dew point of the delivered air at its own pressure (frost point below 0 °C)."),
+    # the report's first page: the answer as a client reads it (its own order and a few more figures)
+    Figure("driver_power_W", "Driver input power", "power", where=_PDF),
+    Figure("shaft_power_W", "Shaft power", "power", where=_PDF),
+    Figure("specific_power_kW_per_m3_min", "Specific power", "specific_power", where=_PDF,
+           note="driver input power per unit of free air delivery"),
+    Figure("free_air_delivery_m3_s", "Free air delivery", "volume_flow", where=_PDF),
+    Figure("mass_flow_kg_s", "Mass flow", "mass_flow", where=_PDF, note="of dry air"),
+    Figure("heat_rejected_W", "Heat rejected", "heat_flow", where=_PDF,
+           note="by the coolers, the stage casings and the mechanical losses"),
+    Figure("cooling_water_m3_s", "Cooling water", "water_volume_flow", when="any", where=_PDF,
+           note="through all coolers with a water or glycol side, at their inlets"),
+    Figure("condensate_kg_s", "Condensate drained", "water_flow", when="moist", where=_PDF),
+    Figure("condensate_L_h", "Condensate volume", "condensate_volume_flow", to_si=_L_H, when="moist", where=_PDF),
+    Figure("delivered_pressure_dew_point_K", "Pressure dew point", "temperature", when="moist", where=_PDF,
+           note="of the delivered air, at the delivery pressure"),
+    Figure("delivered_atmospheric_dew_point_K", "Atmospheric dew point", "temperature", when="moist", where=_PDF,
+           note="of the delivered air expanded to the site pressure"),
+    Figure("iso8573_humidity_class", "ISO 8573-1 humidity class", style="text", when="moist", where=_PDF),
+    Figure("recoverable_heat_W", "Recoverable heat", "heat_flow", when="any", where=_PDF,
+           note="at the heat recovery's delivery temperature"),
 )
 
 
@@ -243,7 +311,7 @@ def key_figures(result: dict) -> list[KeyFigure]:
     totals = {f.id for f in TOTALS}
     n = len(result["stages"])
     out: list[KeyFigure] = []
-    for fig in KEY_FIGURES:
+    for fig in shown(KEY_FIGURES, "window"):
         if not isinstance(fig.key, str):  # a cooler figure: one per cooler
             out += [KeyFigure(f"{fig.id}-{i}", f"{cooler_name(i, n)} {fig.label}", fig, cooler, "cooler",
                               detail=("components", row)) for row, i, cooler in coolers]

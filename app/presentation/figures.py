@@ -101,7 +101,8 @@ class Figure:
         ``"left"`` or ``"right"`` in tables (default: left for text and lists, right for numbers).
     when : str
         Shown only when this holds (:func:`condition_holds`): ``"moist"`` intake air, an
-        ``"exchanger"`` sized in some cooler, ``"any"`` row having the value. The window hides
+        ``"exchanger"`` sized in some cooler, ``"any"`` row having the value (for totals: the
+        result having it). The window hides
         the column or row, the PDF and the text tables leave it out; the CSV always has it. A
         :class:`Look` may set another condition for one output.
     where : frozenset of str
@@ -255,7 +256,8 @@ class Figure:
         if self.style == "scientific":
             return f"{value:.{u.decimals}e}"
         if self.joiner:
-            return self.joiner.join(f"{u.to_display(v * self.to_si):.{u.decimals}f}" for v in value)
+            return self.joiner.join("–" if v is None else f"{u.to_display(v * self.to_si):.{u.decimals}f}"
+                                    for v in value)
         shown = u.to_display(value * self.to_si)
         plain = (look.quantity or self.quantity) is None or not grouping
         text = f"{shown:.{u.decimals}f}" if plain else f"{shown:,.{u.decimals}f}".replace(",", " ")
@@ -280,7 +282,8 @@ def condition_holds(figure: Figure, output: str, result: dict | None = None, row
         A train's ``to_dict()``, for ``"moist"`` (the intake carries water) and ``"exchanger"``
         (some cooler's exchanger was sized).
     rows : iterable of (kind, dict)
-        The table's rows with their kinds (None for tables of one kind), for ``"any"``.
+        The table's rows with their kinds (None for tables of one kind), for ``"any"``; without
+        rows, ``"any"`` asks whether ``result`` itself has the value (a table of totals).
     """
     when = figure.when_in(output)
     if when == "":
@@ -289,6 +292,9 @@ def condition_holds(figure: Figure, output: str, result: dict | None = None, row
         return bool(result.get("intake_humidity_ratio") or result["intake"].get("humidity_ratio"))
     if when == "exchanger":
         return any((st["cooler"] or {}).get("ua_W_K") for st in result["stages"])
+    rows = list(rows)
+    if not rows and result is not None:
+        rows = [(None, result)]
     return any(figure.value(row, kind) is not None for kind, row in rows)
 
 

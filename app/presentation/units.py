@@ -77,6 +77,10 @@ QUANTITIES: dict[str, tuple[Unit, Unit]] = {
     "ratio": (Unit("", 1.0, 0.0, 4), Unit("", 1.0, 0.0, 4)),
     "conductance": (Unit("kW/K", 1e3, 0.0, 3), Unit("Btu/(h·°F)", _BTU / 3600.0 / _R_PER_K, 0.0, 0)),
     "energy": (Unit("kWh", 3.6e6, 0.0, 0), Unit("kWh", 3.6e6, 0.0, 0)),
+    # cooling water (or a water–glycol circuit) as a volume flow at the coolant inlet, [m³/s] inside
+    "water_volume_flow": (Unit("m³/h", 1.0 / 3600.0, 0.0, 2), Unit("US gpm", _GAL / 60.0, 0.0, 1)),
+    # drained condensate as a volume flow, [m³/s] inside (small: litres per hour)
+    "condensate_volume_flow": (Unit("L/h", 1e-3 / 3600.0, 0.0, 2), Unit("US gal/h", _GAL / 3600.0, 0.0, 2)),
     # condensate or cooling water collected over a period, [m³] inside
     "liquid_volume": (Unit("m³", 1.0, 0.0, 3), Unit("US gal", _GAL, 0.0, 1)),
     # operating hours (a year's profile keeps hours, [h], as its unit)

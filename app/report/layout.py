@@ -108,6 +108,11 @@ class Table:
     header: bool = True  #: False for key–value lists
     widths: list[float] | None = field(default=None)  #: column widths [in], computed if None
     row_notes: list[str] | None = None  #: per row, a remark printed under it across the table
+    pairs: int = 1  #: a key–value list (no header) printed as this many label–value column pairs
+
+    def is_label(self, column: int) -> bool:
+        """Whether cells of ``column`` are labels of a key–value list (printed bold)."""
+        return not self.header and column % (len(self.columns) // max(self.pairs, 1)) == 0
 
 
 class Pager:
@@ -131,6 +136,7 @@ class Pager:
         self.left = _MARGIN_X
         self.right = self.width - _MARGIN_X
         self.bottom = _MARGIN_BOTTOM
+        self.page_fill: list[float] = []  #: share of the body height used on each page, once it is complete
         self.new_page()
 
     # ------------------------------------------------------------------ pages and cursor
@@ -141,10 +147,19 @@ class Pager:
     def new_page(self) -> Figure:
         fig = Figure(figsize=(self.width, self.height))
         fig.set_facecolor(style.PAPER)
+        if self.pages:
+            self._draw_charts()
+            self.page_fill.append(self.filled())
         self.pages.append(fig)
         self.fig = fig
         self.y = self.height - _MARGIN_TOP
+        self._chart_blocks: list[tuple[float, float, list]] = []  # (top, bottom, draws) waiting on this page
         return fig
+
+    def filled(self) -> float:
+        """Share of the current page's body height used so far (0 on a fresh page, 1 when full)."""
+        body = self.height - _MARGIN_TOP - self.bottom
+        return min(1.0, max(0.0, (self.height - _MARGIN_TOP - self.y) / body))
 
     def space_left(self) -> float:
         return self.y - self.bottom
@@ -189,6 +204,11 @@ class Pager:
         self._text(self.left, self.y, text, size, bold=True, colour=style.SHAFT if level == 1 else style.INK)
         self.y -= 0.08 if level == 1 else 0.05
 
+    def paragraph_height(self, text: str, size: float = _BODY, indent: float = 0.0, bold_lead: str = "") -> float:
+        """Height :meth:`paragraph` takes for ``text``, [in]."""
+        lead = f"{bold_lead} " if bold_lead else ""
+        return len(wrap(lead + text, self.content_width - indent, size)) * size * 1.35 / 72.0 + 0.06
+
     def paragraph(self, text: str, size: float = _BODY, colour: str = style.INK, indent: float = 0.0,
                   italic: bool = False, bold_lead: str = "", keep_together: bool = False) -> None:
         """Wrapped text; a ``bold_lead`` is printed bold at its start (e.g. a caution title).
@@ -228,7 +248,7 @@ class Pager:
             for j, col in enumerate(table.columns):
                 cells = [r[j] for r in table.rows if j < len(r)]
                 w = max([text_width(col.header, size, True), text_width(col.unit, size)]
-                        + [text_width(c, size, j == 0 and not table.header) for c in cells] + [0.3])
+                        + [text_width(c, size, table.is_label(j)) for c in cells] + [0.3])
                 widths.append(w + pad)
             total = sum(widths)
             if total <= self.content_width:
@@ -324,7 +344,7 @@ class Pager:
                                               zorder=-1))
             for j, (col, lines) in enumerate(zip(table.columns, cells)):
                 xa = xs[j] + 0.05 if col.align == "left" else xs[j + 1] - 0.05
-                bold = j == 0 and not table.header
+                bold = table.is_label(j)
                 for m, line in enumerate(lines):
                     self._text(xa, self.y - pad_y - line_h * (m + 0.8), line, size, bold=bold, ha=col.align)
             first_note = max(len(c) for c in cells)
@@ -339,30 +359,61 @@ class Pager:
         self.y -= 0.1
 
     # ------------------------------------------------------------------------------ charts
-    def charts(self, heading: str, draws: list[tuple], gap_after: float = 0.15) -> None:
-        """Start a page with a heading and the given charts stacked on it.
+    def charts(self, heading: str, draws: list[tuple], gap_after: float = 0.15, shrink: float = 0.85) -> None:
+        """A heading and the given charts stacked under it, on this page when they fit.
 
         ``draws`` holds ``(draw_function, height_in)`` pairs; each function is called with a
-        sub-figure of the page (see :mod:`app.charts`). The page's constrained layout is
-        confined to the charts' rectangle, so text printed afterwards is not disturbed.
+        sub-figure of the page (see :mod:`app.charts`) when the page is complete, so that one
+        constrained layout, confined to the rectangle from the first chart's top to the last
+        one's bottom, lays out every chart block of the page (the text between blocks keeps
+        its place: the layout leaves those bands empty). Charts that fit the rest of the page
+        only when a little lower (down to ``shrink`` of their height) are drawn that much
+        lower rather than moved to a new page.
         """
-        if self.y < self.height - _MARGIN_TOP - 1e-9:
-            self.new_page()
-        self.heading(heading, keep_with=0.0)
+        heading_h = _HEADINGS[1] * 1.6 / 72.0 + 0.13
         total = sum(h for _, h in draws)
+        if self.y < self.height - _MARGIN_TOP - 1e-9:
+            room = self.space_left() - heading_h - 0.05
+            if total * shrink > room:
+                self.new_page()
+            elif total > room:
+                draws = [(draw, h * room / total) for draw, h in draws]
+                total = room
+        self.heading(heading, keep_with=0.0)
         top = self.y - 0.05
         bottom = max(self.bottom, top - total)
+        self._chart_blocks.append((top, bottom, draws))
+        self.y = bottom - gap_after
+
+    def _draw_charts(self) -> None:
+        """Draw the chart blocks of the current page in one constrained layout (bands between them empty)."""
+        blocks, self._chart_blocks = self._chart_blocks, []
+        if not blocks:
+            return
+        top, bottom = blocks[0][0], blocks[-1][1]
+        ratios, slots, y = [], [], top
+        for b_top, b_bottom, draws in blocks:
+            if y - b_top > 1e-6:  # text between two blocks: an empty band
+                ratios.append(y - b_top)
+                slots.append(None)
+            scale = (b_top - b_bottom) / sum(h for _, h in draws)
+            for draw, h in draws:
+                ratios.append(h * scale)
+                slots.append(draw)
+            y = b_bottom
         fig = self.fig
         fig.set_layout_engine("constrained", rect=(self.left / self.width, bottom / self.height,
                                                    self.content_width / self.width, (top - bottom) / self.height))
-        subs = fig.subfigures(len(draws), 1, height_ratios=[h for _, h in draws], squeeze=False)[:, 0]
-        for sub, (draw, _) in zip(subs, draws):
-            draw(sub)
-        self.y = bottom - gap_after
+        subs = fig.subfigures(len(ratios), 1, height_ratios=ratios, hspace=0.0, squeeze=False)[:, 0]
+        for sub, draw in zip(subs, slots):
+            if draw is not None:
+                draw(sub)
 
     # ---------------------------------------------------------------------------- finishing
     def finish(self) -> list[Figure]:
-        """Add running headers and "page i of n" footers; return the pages."""
+        """Draw the last page's charts, add running headers and "page i of n" footers; return the pages."""
+        self._draw_charts()
+        self.page_fill.append(self.filled())
         n = len(self.pages)
         for i, fig in enumerate(self.pages, 1):
             y_foot = _MARGIN_BOTTOM * 0.5

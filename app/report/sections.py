@@ -9,8 +9,8 @@ the pager.
 """
 from __future__ import annotations
 
-__all__ = ["ReportInfo", "title_block", "inputs", "state_points_table", "components_table", "totals_table",
-           "exchangers_table", "charts", "warnings", "staging", "cautions", "state_points", "Q"]
+__all__ = ["ReportInfo", "inputs", "state_points_table", "components_table", "totals_table",
+           "exchangers_table", "zones_table", "charts", "warnings", "staging", "cautions", "state_points", "Q"]
 
 from dataclasses import dataclass
 
@@ -38,6 +38,8 @@ class ReportInfo:
     date: str
     version: str
     system: str = "SI"
+    prepared_by: str = ""  #: who made the report
+    coolprop: str = ""  #: CoolProp version the properties came from
 
 
 def Q(si, quantity: str, system: str, **kw) -> str:
@@ -63,20 +65,6 @@ def _entered(raw: dict, keys: tuple) -> bool:
     return True
 
 
-# ----------------------------------------------------------------------------------- title
-
-def title_block(p: Pager, doc: dict, result: dict, info: ReportInfo) -> None:
-    p.title(doc.get("title") or "Untitled project", doc.get("note", ""))
-    model = result["model"]
-    rows = [["Project file", info.source_name or _DASH],
-            ["Date", info.date],
-            ["Program", f"Stagewright {info.version}"],
-            ["Display units", "SI" if info.system == "SI" else "US customary"],
-            ["Property model", model.replace("_", " ")],
-            ["Equation of state", result.get("eos_reference") or _DASH]]
-    p.table(Table("", [Column("", align="left"), Column("", align="left", wrap=True)], rows, header=False))
-
-
 # ---------------------------------------------------------------------------------- inputs
 
 _FLOW_TEXT = {"mass": ("Mass flow", "mass_flow"),
@@ -98,8 +86,8 @@ def _delivery_text(norm: dict, p0: float, system: str) -> str:
     absolute = _with(p_abs, "pressure", system)
     gauge = _with(p_abs, "pressure", system, gauge=True, barometric_Pa=p0)
     if key == GAUGE_KEY:
-        return f"{gauge} stated as gauge  (= {absolute} at this site)"
-    return f"{absolute} stated as absolute  (= {gauge} at this site)"
+        return f"{gauge} stated as gauge (= {absolute} at this site)"
+    return f"{absolute} stated as absolute (= {gauge} at this site)"
 
 
 def inputs(p: Pager, doc: dict, result: dict, system: str) -> None:
@@ -122,6 +110,8 @@ def inputs(p: Pager, doc: dict, result: dict, system: str) -> None:
     model = fluid["model"].replace("_", " ") + ("" if _entered(doc, ("fluid", "model")) else " (default)")
     if fluid["model"] == "constant_cp":
         model += f"; cp {_with(fluid['cp_J_kgK'], 'specific_heat', system)}, k {fluid['k']:.4g}"
+    if result.get("eos_reference"):
+        model += f": {result['eos_reference']}"
     rows.append(["Property model", model])
     name, quantity = _FLOW_TEXT[norm["flow"]["kind"]]
     rows.append([name, _with(norm["flow"]["value"], quantity, system)])
@@ -201,10 +191,32 @@ def exchangers_table(p: Pager, result: dict, system: str) -> None:
     figures = _pdf_columns(balance_tables.EXCHANGERS, result, [("cooler", c) for _, c in items])
     cols = [Column("Cooler", align="left")] + [_column(f, system) for f in figures]
     rows = [[f"Cooler {i}"] + [f.text(c, _PDF, system) for f in figures] for i, c in items]
+    condensing = [(i, c) for i, c in items if len(c.get("zones") or []) > 1]
     p.table(Table("Cooler exchangers", cols, rows,
                   note="LMTD: log-mean temperature difference; F its correction factor for the arrangement; "
                        "ε the exchanger effectiveness and NTU its number of transfer units; UA the "
-                       "overall conductance the duty needs."))
+                       "overall conductance the duty needs."
+                       + (" A condensing cooler's ε and NTU are on the mean heat-capacity rates of its "
+                          "terminal changes (latent heat included); its F is 1 for counter-flow and is given "
+                          "zone by zone otherwise." if condensing else "")))
+    zones_table(p, condensing, system)
+
+
+def zones_table(p: Pager, coolers: list[tuple[int, dict]], system: str) -> None:
+    """The dry and wet zones of the condensing coolers ``(stage number, cooler)`` (nothing when none)."""
+    zones = [(i, z) for i, c in coolers for z in c["zones"]]
+    if not zones:
+        return
+    figures = _pdf_columns(balance_tables.ZONES, None, [(None, z) for _, z in zones])
+    cols = [Column("Cooler", align="left")] + [_column(f, system) for f in figures]
+    rows = [[f"Cooler {i}"] + [f.text(z, _PDF, system) for f in figures] for i, z in zones]
+    p.table(Table("Condensing coolers, zone by zone", cols, rows,
+                  note="Each condensing cooler is a dry zone down to the dew point and a wet zone below it. "
+                       "A wet zone moves heat and water together, driven by the difference between the "
+                       "air's enthalpy and that of saturated air at the coolant temperature: Δh_lm is its "
+                       "log-mean value per kg of dry air (Braun, Klein & Mitchell, ASHRAE Transactions 95(2), "
+                       "1989), and its ε and NTU are on that enthalpy basis. The LMTD correction factor F "
+                       "applies to dry zones only."))
 
 
 # ----------------------------------------------------------------------------- balance sheet
@@ -272,10 +284,11 @@ def totals_table(p: Pager, result: dict, system: str) -> None:
 # ------------------------------------------------------------------------------ charts etc.
 
 def charts(p: Pager, doc: dict, result: dict, system: str) -> None:
+    """The T–s chart and the power split, each where it fits (a page's remainder or a new page)."""
     limits = [st["max_discharge_temperature_K"] for st in normalise(doc)["stages"]]
     tall = len(result["stages"]) > 4
-    p.charts("Charts", [(lambda f: draw_ts_chart(f, result, system, limits_K=limits), 4.7),
-                        (lambda f: draw_power_split(f, result, system), 4.6 if tall else 3.9)])
+    p.charts("Compression and cooling", [(lambda f: draw_ts_chart(f, result, system, limits_K=limits), 4.7)])
+    p.charts("Where the power goes", [(lambda f: draw_power_split(f, result, system), 4.6 if tall else 3.9)])
 
 
 def warnings(p: Pager, result: dict, system: str = "SI", doc: dict | None = None) -> None:
@@ -312,7 +325,9 @@ def staging(p: Pager, study_rows: list[dict] | None, system: str, limit_K=None) 
 
 
 def cautions(p: Pager) -> None:
-    p.heading("Cautions", keep_with=0.8)
+    """The safety cautions and the deferral to local codes, kept together on one page."""
+    height = sum(p.paragraph_height(text, bold_lead=f"{title}.") for title, text in CAUTIONS)
+    p.heading("Cautions", keep_with=height + 0.05 + p.paragraph_height(DEFERRAL))
     for title, text in CAUTIONS:
         p.paragraph(text, bold_lead=f"{title}.", keep_together=True)
     p.gap(0.05)

@@ -7,6 +7,8 @@ from __future__ import annotations
 
 __all__ = ["StudyLink"]
 
+import copy
+
 from PySide6.QtCore import QObject
 from PySide6.QtWidgets import QStatusBar
 
@@ -30,6 +32,13 @@ class StudyLink(QObject):
         panel.controller.finished.connect(self._on_done)
         panel.controller.cancelled.connect(self._on_stopped)
         panel.controller.failed.connect(self._on_stopped)
+
+    def current_rows(self) -> list[dict] | None:
+        """Rows of the study the panel shows when it was run on the project as it now stands
+        (a copy), else None: no study, an out-of-date one, or one without rows."""
+        if self.panel.is_stale or not self.panel.rows:
+            return None
+        return copy.deepcopy(self.panel.rows)
 
     def _on_started(self, max_stages: int) -> None:
         self.status.showMessage(f"Staging study: comparing 1 to {max_stages} stages…", 4000)

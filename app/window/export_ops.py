@@ -12,6 +12,7 @@ __all__ = ["ExportController", "ExportJob", "PDF_AND_CSV", "PDF_ONLY", "EXPORT_F
 import copy
 import threading
 from pathlib import Path
+from typing import Callable
 
 from PySide6.QtCore import QObject, Signal
 from PySide6.QtWidgets import QStatusBar
@@ -30,9 +31,12 @@ class ExportJob(QObject):
     done = Signal(str, str)
 
     def __init__(self, doc: dict, result: dict, pdf: Path, csv: Path | None, system: str, source: str,
-                 parent=None) -> None:
+                 parent=None, study_rows: list[dict] | None = None, project: dict | None = None,
+                 shown_case: str = "") -> None:
         super().__init__(parent)
         self.args = (doc, result, pdf, csv, system, source)
+        self.study_rows = study_rows  #: a staging study run in the window for this project, to print
+        self.project, self.shown_case = project, shown_case  #: the whole project (its cases) and the case shown
         self.thread = threading.Thread(target=self._run, name="stagewright-export", daemon=True)
 
     def start(self) -> None:
@@ -44,7 +48,8 @@ class ExportJob(QObject):
         from app.report import export_report
         doc, result, pdf, csv, system, source = self.args
         try:
-            pages = export_report(doc, result, pdf, csv, system=system, source_name=source)
+            pages = export_report(doc, result, pdf, csv, system=system, source_name=source,
+                                  study_rows=self.study_rows, project=self.project, shown_case=self.shown_case)
         except (OSError, StagewrightError) as exc:
             self.done.emit("", f"{pdf}: {getattr(exc, 'strerror', None) or exc}")
             return
@@ -72,14 +77,19 @@ class ExportController(QObject):
         Where to write, and errors.
     status : QStatusBar
         Progress and outcome.
+    study_rows : callable, optional
+        Returns the rows of the staging study the window shows when it was run on the project as
+        it now stands (else None); the report then carries the study.
     """
 
-    def __init__(self, editor, files, prompts, status: QStatusBar, parent: QObject | None = None):
+    def __init__(self, editor, files, prompts, status: QStatusBar, parent: QObject | None = None,
+                 study_rows: Callable[[], list[dict] | None] | None = None):
         super().__init__(parent)
         self.editor = editor
         self.files = files
         self.prompts = prompts
         self.status = status
+        self._study_rows = study_rows or (lambda: None)
         self.job: ExportJob | None = None
 
     def export_report_dialog(self) -> None:
@@ -106,7 +116,9 @@ class ExportController(QObject):
             return
         remember_folder(self.files.settings, EXPORT_FOLDER_KEY, pdf)
         source = path.name if path else ""
-        job = ExportJob(ed.model.snapshot(), copy.deepcopy(ed.result), pdf, csv, ed.prefs.system, source, self)
+        job = ExportJob(ed.model.snapshot(), copy.deepcopy(ed.result), pdf, csv, ed.prefs.system, source, self,
+                        study_rows=self._study_rows(), project=ed.model.project_snapshot(),
+                        shown_case=ed.model.active_case)
         job.done.connect(self._on_export_done)
         self.job = job
         self.status.showMessage(f"Exporting {pdf.name}…")

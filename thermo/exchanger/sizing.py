@@ -23,8 +23,10 @@ reaches the dry zone at the boundary temperature :math:`T_{c,b}` from
 :math:`h_c(T_{c,b}) = h_c(T_{c,i}) + \dot Q_{wet}/\dot m_c`. This is exact for counter-flow;
 for the cross-flow and 1-2 shell arrangements it is the usual zone-by-zone approximation
 (each zone treated as its own exchanger of that arrangement). The exchanger's UA is the
-sum of the zones'; its overall ε, NTU and F are then not defined and are reported per
-zone.
+sum of the zones'. The wet zone's driving force is its log-mean enthalpy difference
+(:func:`~thermo.exchanger.zone_figures.enthalpy_driving_force`), not an F-corrected LMTD;
+the whole exchanger's ε and NTU are on mean capacity rates and its F is that of
+counter-flow, 1, or not defined (:func:`~thermo.exchanger.zone_figures.overall_figures`).
 """
 from __future__ import annotations
 
@@ -39,6 +41,7 @@ from thermo.errors import InputError
 from thermo.exchanger.coolant import CoolantSide, coolant_side
 from thermo.exchanger.effectiveness import ARRANGEMENTS, max_effectiveness, ntu_from_effectiveness
 from thermo.exchanger.lmtd import counterflow_lmtd
+from thermo.exchanger.zone_figures import enthalpy_driving_force, overall_figures
 
 
 def brentq(*args, **kwargs):
@@ -91,8 +94,12 @@ class Zone:
     effectiveness: float
     ntu: float
     lmtd_K: float
-    correction_factor: float
+    #: LMTD correction factor F of a dry zone (≤ 1); None for a wet zone, whose driving force is an enthalpy
+    correction_factor: float | None
     ua_W_K: float
+    #: wet zone: log-mean enthalpy difference between the air and saturated air at the coolant
+    #: temperature, [J/kg dry air] (:mod:`thermo.exchanger.zone_figures`); None for a dry zone
+    log_mean_enthalpy_difference_J_kg: float | None = None
 
 
 @dataclass(frozen=True)
@@ -104,7 +111,8 @@ class Exchanger:
     zones: list = field(default_factory=list)
     ua_W_K: float = 0.0
     lmtd_K: float = 0.0  #: counter-flow LMTD of the four terminal temperatures, [K]
-    #: F, ε and NTU of the whole exchanger; None when it condenses (then see each zone)
+    #: F, ε and NTU of the whole exchanger. When it condenses: ε and NTU on mean capacity rates,
+    #: F = 1 for counter-flow and None for other arrangements (:mod:`thermo.exchanger.zone_figures`)
     correction_factor: float | None = 1.0
     effectiveness: float | None = 0.0
     ntu: float | None = 0.0
@@ -277,14 +285,21 @@ def _size_two_zones(arrangement, hot: HotSide, fluid, side: CoolantSide, field_n
     if side.flow_kg_s > 0.0 and q_wet > 0.0:
         h_cb = fluid.h(t_ci) + q_wet / side.flow_kg_s
         t_cb = brentq(lambda t: fluid.h(t) - h_cb, t_ci, side.outlet_temperature_K, xtol=1e-12, rtol=1e-15)
-    wet = wet_zone(arrangement, hot, q_wet, t_ci, t_cb, field_name)
+    if t_cb <= t_ci:  # the wet zone's duty warms the coolant by less than rounding: one dry zone
+        zone = dry_zone(arrangement, hot.inlet_temperature_K, hot.outlet_temperature_K, hot.duty_W, t_ci,
+                        side.outlet_temperature_K, field_name)
+        return Exchanger(arrangement=arrangement, coolant=side, zones=[zone], ua_W_K=zone.ua_W_K,
+                         lmtd_K=zone.lmtd_K, correction_factor=zone.correction_factor,
+                         effectiveness=zone.effectiveness, ntu=zone.ntu)
+    wet = enthalpy_driving_force(wet_zone(arrangement, hot, q_wet, t_ci, t_cb, field_name), hot)
     dry = dry_zone(arrangement, hot.inlet_temperature_K, hot.dew_point_K, q_dry, t_cb,
                    side.outlet_temperature_K, field_name)
     ua = wet.ua_W_K + dry.ua_W_K
     lmtd = counterflow_lmtd(hot.inlet_temperature_K, hot.outlet_temperature_K, t_ci, side.outlet_temperature_K,
                             field_name)
+    f, eps, ntu = overall_figures(arrangement, hot, side, ua)
     return Exchanger(arrangement=arrangement, coolant=side, zones=[dry, wet], ua_W_K=ua, lmtd_K=lmtd,
-                     correction_factor=None, effectiveness=None, ntu=None)
+                     correction_factor=f, effectiveness=eps, ntu=ntu)
 
 
 def _feasible(arrangement, hot, fluid, t_ci, flow, rise, where) -> bool:
