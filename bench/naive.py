@@ -74,3 +74,37 @@ def naive_solve(doc: dict) -> dict:
     s_d = _props("S", "H", h, "P", p)
     x_gain = m * ((h - h0) - T0 * (s_d - s0))
     return {"shaft_power_W": shaft, "stages": out, "second_law_efficiency": x_gain / shaft}
+
+
+def naive_minimal(doc: dict) -> float:
+    """The least a dry isentropic train needs, on PropsSI: four flashes a stage (s at the inlet,
+    h at the isentropic discharge, T at the discharge, h after the cooler), the equal ratio of
+    :func:`naive_solve`; returns the shaft power [W]. No polytropic efficiency, no closures."""
+    site = doc["site"]
+    T0 = site["ambient_temperature_K"]
+    P0 = site.get("barometric_pressure_Pa") or 101325.0
+    m = doc["flow"]["value"]
+    rho0 = _props("D", "T", T0, "P", P0)
+    m = m * rho0 if doc["flow"]["kind"] == "free_air_delivery" else m
+    p = P0 - doc.get("inlet_pressure_drop_Pa", 0.0)
+    T, h = T0, _props("H", "T", T0, "P", p)
+    drops = [(st.get("cooler") or {}).get("pressure_drop_Pa", 0.0) for st in doc["stages"]]
+    lo, hi = 1.0, 40.0
+    for _ in range(60):  # bisection on the equal ratio (pressure arithmetic only)
+        r = 0.5 * (lo + hi)
+        q = p
+        for dp in drops:
+            q = q * r - dp
+        lo, hi = (r, hi) if q < doc["discharge_pressure_Pa"] else (lo, r)
+    shaft = 0.0
+    for st, dp in zip(doc["stages"], drops):
+        p2 = p * r
+        h2s = _props("H", "S", _props("S", "T", T, "P", p), "P", p2)
+        h2 = h + (h2s - h) / st["efficiency"]["value"]
+        _props("T", "H", h2, "P", p2)
+        shaft += m * (h2 - h)
+        c = st.get("cooler") or {}
+        p = p2 - dp
+        T = c.get("outlet_temperature_K") or c["coolant_inlet_temperature_K"] + c["approach_K"]
+        h = _props("H", "T", T, "P", p)
+    return shaft

@@ -25,7 +25,7 @@ sys.path.insert(0, str(ROOT / "bench"))
 
 import thermo  # noqa: E402
 import thermo.coolprop_adapter  # noqa: E402
-from naive import naive_solve  # noqa: E402
+from naive import naive_minimal, naive_solve  # noqa: E402
 
 SAMPLES = sorted((ROOT / "sample_projects").glob("*.json"))
 
@@ -115,6 +115,12 @@ def case_four_stage():
     # RP-1485 enhancement factor, condensed-water properties) then miss. A new ambient each run:
     report("  the same, a new ambient every solve", measure(_fresh(doc, True), 50), naive)
     report("  the same, detail=False, new ambient", measure(_fresh(doc, False), 50), naive)
+    # the window's solve: the balance and, for its charts, the points along paths (to_dict)
+    fresh = _fresh(doc, True)
+    report("  the same, new ambient, + to_dict (charts)", measure(lambda: fresh().to_dict(), 50), naive)
+    minimal = measure(lambda: naive_minimal(four_stage_doc(False)), 20)
+    report("naive minimal PropsSI, same train dry", minimal, extra="4 flashes a stage; ratio column: vs itself")
+    report("  4-stage moist full solve, new ambient, vs it", measure(_fresh(doc, True), 50), minimal)
 
 
 def _fresh(doc: dict, detail: bool):
@@ -144,6 +150,26 @@ def case_study():
         return
     doc = four_stage_doc(_humid_supported())
     report("staging comparison 1…6 stages", measure(lambda: compare_stagings(doc, max_stages=6), 5))
+    report("staging comparison 1…8 stages", measure(lambda: compare_stagings(doc, max_stages=8), 3))
+
+
+def case_first_coolant():
+    """A fresh process's first solve with a water coolant, cold and after the window's warm-up."""
+    code = ("import json, time, thermo\n"
+            "from thermo.exchanger import coolant\n"
+            "doc = json.load(open('sample_projects/two_stage_plant_air.json'))\n"
+            "for s in doc['stages']: s['cooler']['coolant'] = {'kind': 'water', 'temperature_rise_K': 8.0}\n"
+            "thermo.solve(json.load(open('sample_projects/two_stage_plant_air.json')))\n"
+            "WARM\n"
+            "t = time.perf_counter(); thermo.solve(doc); print(time.perf_counter() - t)\n")
+    for label, warm in (("cold", "pass"), ("after warm_up()", "getattr(coolant, 'warm_up', lambda: None)()")):
+        def run():
+            out = subprocess.run([sys.executable, "-c", code.replace("WARM", warm)], cwd=ROOT, check=True,
+                                 capture_output=True, text=True).stdout
+            return float(out.split()[-1])
+        times = [run() for _ in range(3)]
+        report(f"first solve with a water coolant, {label}",
+               (statistics.median(times), min(times), max(times)))
 
 
 def case_sweep():
@@ -170,6 +196,46 @@ def case_year():
     profile = doc["year"]["profile"]
     report(f"year at site ({len(profile.get('months') or profile.get('bins') or [])} bins)",
            measure(lambda: run_year(doc), 5))
+    doc["year"]["coolers"] = {"mode": "design_once", "design_condition": "hottest_bin"}
+    report("year at site, design once, rate every bin", measure(lambda: run_year(doc), 5))
+
+
+def hourly_profile(hours: int = 8760) -> list:
+    """An invented hourly year (a continental site: −12 °C winter nights to 31 °C summer days).
+
+    Seasonal and daily cosines plus a fixed pseudo-random weather term (seed 15); humidity
+    falls as the air warms. Deterministic, so that runs compare."""
+    import math
+    import random
+    rng = random.Random(15)
+    out, weather = [], 0.0
+    for h in range(hours):
+        day = h / 24.0
+        weather = 0.97 * weather + rng.gauss(0.0, 0.6)
+        t = 282.0 - 12.0 * math.cos(2 * math.pi * (day - 15) / 365.0) - 4.0 * math.cos(2 * math.pi * (h % 24 - 3) / 24)
+        t += weather
+        rh = min(0.98, max(0.25, 0.72 - 0.025 * (t - 282.0) + 0.05 * rng.uniform(-1.0, 1.0)))
+        out.append({"temperature_K": round(t, 2), "relative_humidity": round(rh, 3), "hours": 1.0})
+    return out
+
+
+def case_year_hourly():
+    """A year of 8760 hourly bins (three-stage sample, fixed coolers rated every hour): CPU and wall."""
+    from thermo.year import run_year
+    doc = json.loads((ROOT / "sample_projects" / "three_stage_site_year.json").read_text())
+    doc["year"] = {"profile": {"kind": "bins", "bins": hourly_profile()},
+                   "coolers": {"mode": "design_once", "design_condition": "hottest_bin"}}
+    from thermo.year_profile import bin_profile
+    binned = dict(doc, year={**doc["year"], "profile": {"kind": "bins", "bins": bin_profile(hourly_profile())}})
+    n_binned = len(binned["year"]["profile"]["bins"])
+    report(f"year 8760 h binned (1 K × 5 %: {n_binned} bins), design once",
+           measure(lambda: run_year(binned, processes=1), 3))
+    for processes in (1, 2):
+        cpu0, t0 = time.process_time(), time.perf_counter()
+        run_year(doc, processes=processes)
+        wall, cpu = time.perf_counter() - t0, time.process_time() - cpu0
+        report(f"year 8760 h, design once, {processes} process(es)", (wall, wall, wall),
+               extra=f"CPU of this process {cpu:.1f} s; load {os.getloadavg()[0]:.1f}")
 
 
 def case_files():
@@ -241,8 +307,30 @@ def _peak_mb() -> float:
     return resource.getrusage(resource.RUSAGE_SELF).ru_maxrss / 1024.0
 
 
-CASES = [case_samples, case_four_stage, case_shaft_power, case_study, case_sweep, case_year,
+CASES = [case_samples, case_four_stage, case_shaft_power, case_study, case_first_coolant, case_sweep, case_year,
+         case_year_hourly,
          case_files, case_report, case_startup, case_startup_phases]
+
+
+def case_field_check_monte_carlo():
+    """Field-check uncertainty (thermo/uncertainty): first order, and 10 000 Monte Carlo draws
+    through the lean solve on the fast property path (the issue 21 target is <= 2 s)."""
+    try:
+        from thermo.uncertainty.field_check import field_check_uncertainty
+    except ImportError:
+        print(f"{'field check Monte Carlo':<44}  (thermo.uncertainty not available)")
+        return
+    doc = json.loads((ROOT / "sample_projects" / "field_check_two_stage.json").read_text())
+    report("field check first order (11 inputs)",
+           measure(lambda: field_check_uncertainty(doc, monte_carlo=False), 5))
+    report("field check 10 000 draws, real gas", measure(lambda: field_check_uncertainty(doc, draws=10_000), 1, 0))
+    report("  the same, 2 processes",
+           measure(lambda: field_check_uncertainty(doc, draws=10_000, processes=2), 1, 0))
+    gas = dict(doc, fluid={"model": "constant_cp"})
+    report("  the same, perfect gas (constant cp)", measure(lambda: field_check_uncertainty(gas, draws=10_000), 1, 0))
+
+
+CASES.append(case_field_check_monte_carlo)
 
 
 def main(argv: list[str]) -> None:

@@ -12,7 +12,7 @@ from hypothesis import strategies as st
 from thermo.atmosphere import standard_pressure
 from thermo.project.validation import problems
 from thermo.project.schema import PROJECT
-from thermo.project.schema_types import Choice, Items, Num, Obj, Text, Variant
+from thermo.project.schema_types import Changes, Choice, Items, Num, Obj, Raw, Text, Variant
 
 
 def _num(node: Num):
@@ -56,6 +56,10 @@ def strategy(node):
                        for kind, fields in node.variants.items()])
     elif isinstance(node, Items):
         s = st.lists(strategy(node.item), min_size=node.min_length, max_size=min(node.max_length, 4))
+    elif isinstance(node, Changes):  # a case's changes: a field any project has, with a valid value
+        s = st.fixed_dictionaries({}, optional={"title": st.text(max_size=20), "note": st.text(max_size=20)})
+    elif isinstance(node, Raw):
+        s = st.dictionaries(st.text(max_size=5), st.floats(allow_nan=False, allow_infinity=False), max_size=3)
     else:
         raise TypeError(node)
     return st.one_of(st.none(), s) if getattr(node, "nullable", False) else s

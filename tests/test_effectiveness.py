@@ -101,3 +101,17 @@ def test_crossflow_unmixed_within_rounding_of_its_limit_is_a_temperature_cross()
             ntu_from_effectiveness("cross_flow_unmixed", eps, 1.0)
     assert ntu_from_effectiveness("cross_flow_unmixed", 0.5, 1.0) == pytest.approx(
         ht.NTU_from_effectiveness(0.5, 1.0, subtype="crossflow"), rel=1e-6)  # ht library (C. Bell)
+
+
+@pytest.mark.parametrize("ntu", [1e-4, 0.3, 1.0, 4.0, 25.0, 150.0])
+@pytest.mark.parametrize("cr", [1e-8, 0.2, 0.75, 1.0])
+def test_crossflow_unmixed_series_matches_scipy_incomplete_gamma(ntu, cr):
+    # the same series (Shah & Sekulić 2003, Table 3.3) with scipy.special.gammainc for P(n+1, x)
+    import math
+    import numpy as np
+    from scipy.special import gammainc
+    from thermo.exchanger.effectiveness import crossflow_unmixed_effectiveness
+    n_max = int(ntu + 12.0 * math.sqrt(ntu) + 40.0)
+    k = np.arange(1, n_max + 1, dtype=float)
+    ref = float(np.sum(gammainc(k, ntu) * gammainc(k, cr * ntu)) / (cr * ntu)) if cr >= 1e-10 else -math.expm1(-ntu)
+    assert crossflow_unmixed_effectiveness(ntu, cr) == pytest.approx(ref, rel=1e-13)

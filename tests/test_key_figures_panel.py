@@ -177,3 +177,27 @@ def _two_cooler_result() -> dict:
     import thermo
     from thermo.project import load
     return thermo.solve(load(SAMPLE)).to_dict()
+
+
+def test_the_strip_has_one_tile_per_window_figure_before_and_after_a_result(qtbot, tmp_path):
+    # KEY_FIGURES also holds the report's first-page figures (shown in "pdf" only): the strip must
+    # not make tiles for them — before the first result it made one per entry, the duplicate ids
+    # overwrote each other and the orphaned tiles stayed on screen as blank boxes
+    from PySide6.QtWidgets import QWidget
+
+    from app.panels.key_figures_panel import FigureTile
+    from app.presentation.figures import shown
+
+    win = make_window(qtbot, tmp_path)
+    strip = win.panels["figures"]
+    win.editor.result = None
+    strip.refresh()
+    window_ids = [f.id for f in shown(tables.KEY_FIGURES, "window") if isinstance(f.key, str)]
+    assert list(strip.tiles)[:-1] == window_ids
+    win.editor.solve_now()
+    qtbot.waitUntil(lambda: win.editor.result is not None and not win.editor.stale, timeout=60_000)
+    strip.refresh()
+    qtbot.wait(50)  # deleteLater
+    live = [w for w in strip.findChildren(QWidget) if isinstance(w, FigureTile)]
+    assert len(live) == len(strip.tiles)
+    win.close()

@@ -3,6 +3,7 @@ import pytest
 
 import thermo
 from tests.conftest import make_doc
+from thermo.project.schema import FORMAT_VERSION
 from thermo.errors import InputError
 from thermo.project import load, save
 from thermo.project.delivery import ABSOLUTE_KEY, GAUGE_KEY, delivery_pressure, stated_delivery
@@ -68,7 +69,7 @@ def test_a_saved_gauge_statement_reads_back_as_stated(tmp_path):
     save(_gauge_doc(1000.0), path)
     doc = load(path)
     assert stated_delivery(doc) == (GAUGE_KEY, 7e5) and ABSOLUTE_KEY not in doc
-    assert doc["version"] == 2
+    assert doc["version"] == FORMAT_VERSION
 
 
 def test_a_sweep_over_the_elevation_resolves_the_gauge_statement_at_each_point():

@@ -22,6 +22,7 @@ from tests.conftest import ROOT, SAMPLES
 from tests.strategies import documents
 from thermo.errors import InputError, ProjectFileError, StagewrightError
 from thermo.project import dumps, load, loads, save
+from thermo.project.schema import FORMAT_VERSION
 
 SEEDS = [p.read_bytes() for p in sorted(SAMPLES.glob("*.json"))] + \
         [(ROOT / "tests" / "fixtures" / "project_v1.json").read_bytes()]
@@ -232,7 +233,7 @@ def test_many_seeded_valid_documents_solve_or_are_refused_naming_their_input(see
 def test_round_trip_of_generated_documents(doc):
     text = dumps(doc)
     first = loads(text)
-    assert first == {"format": "stagewright-project", **doc, "version": 2}  # a version-1 document is upgraded
+    assert first == {"format": "stagewright-project", **doc, "version": FORMAT_VERSION}  # a version-1 document is upgraded
     assert loads(dumps(first)) == first and dumps(first) == dumps(loads(dumps(first)))
 
 

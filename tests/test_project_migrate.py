@@ -139,8 +139,25 @@ def test_step_1_to_2():
     import thermo
 
     raw = json.loads((FIXTURES / "project_v1.json").read_text(encoding="utf-8"))
+    doc = migrate.STEPS[1](json.loads(json.dumps(raw)))  # the step alone
+    assert doc == raw
     doc, declared = migrate_doc(raw)
-    assert declared == 1 and doc["version"] == 2
+    assert declared == 1 and doc["version"] == schema.FORMAT_VERSION
     assert {k: v for k, v in doc.items() if k != "version"} == {k: v for k, v in raw.items() if k != "version"}
     assert "discharge_gauge_pressure_Pa" not in doc
     assert thermo.solve(doc).delivery.P == pytest.approx(raw["discharge_pressure_Pa"], rel=1e-9)
+
+
+def test_step_2_to_3():
+    """Version 3 adds cases and a results snapshot; a version-2 file is a project with one case,
+    its base, and solves exactly as before."""
+    import thermo
+    from thermo.project.cases import case_document, case_names
+
+    raw = json.loads((FIXTURES / "project_v2.json").read_text(encoding="utf-8"))
+    assert migrate.STEPS[2](json.loads(json.dumps(raw))) == raw  # the step alone
+    doc, declared = migrate_doc(raw)
+    assert declared == 2 and doc["version"] == 3
+    assert {k: v for k, v in doc.items() if k != "version"} == {k: v for k, v in raw.items() if k != "version"}
+    assert case_names(doc) == ["Base"]
+    assert thermo.solve(case_document(doc)).to_dict() == thermo.solve(raw).to_dict()

@@ -15,6 +15,7 @@ import pytest
 from tests.conftest import SAMPLES, make_doc
 from thermo.errors import InputError, ProjectFileError, StagewrightError
 from thermo.project import dumps, load, loads, save
+from thermo.project.schema import FORMAT_VERSION
 
 FIXTURE_V1 = SAMPLES.parent / "tests" / "fixtures" / "project_v1.json"
 
@@ -28,7 +29,7 @@ def test_load_returns_the_document_with_format_and_version(tmp_path):
     p = tmp_path / "a.json"
     p.write_text(json.dumps(doc), encoding="utf-8")
     got = load(p)
-    assert got == {"format": "stagewright-project", "version": 2, **doc}
+    assert got == {"format": "stagewright-project", "version": FORMAT_VERSION, **doc}
 
 
 @pytest.mark.parametrize("text, line, column", [

@@ -121,12 +121,11 @@ def test_two_humidity_inputs_are_refused():
         thermo.solve(moist(relative_humidity=0.5, dew_point_K=280.0))
 
 
-def test_moist_cooler_below_freezing_says_ice_is_out_of_scope():
+def test_moist_cooler_below_freezing_is_no_input_problem():
+    # issue 15: a cooler outlet below 0 °C is a caution of the solve (frozen condensate), not a refusal
     doc = moist(relative_humidity=0.5)
     doc["stages"][0]["cooler"] = {"outlet_temperature_K": 270.0}
-    found = problems(doc)
-    assert [p.field for p in found] == ["stages[0].cooler.outlet_temperature_K"]
-    assert "273.15 K or above" in found[0].expected and "ice is out of scope" in found[0].expected
+    assert problems(doc) == []
 
 
 def test_dry_cooler_below_freezing_stays_allowed():
@@ -135,11 +134,12 @@ def test_dry_cooler_below_freezing_stays_allowed():
     assert problems(doc) == []
 
 
-def test_moist_intake_below_freezing_and_frost_point_input_refused():
+def test_moist_intake_below_freezing_and_frost_point_input_accepted():
+    # issue 15: humid intake down to 223.15 K; a dew point below 0.01 °C is a frost point
     doc = make_doc(model="ideal_gas", T0=268.15, cool_to=290.0)
     doc["site"]["relative_humidity"] = 0.8
-    assert "over ice is out of scope" in problems(doc)[0].expected
-    assert "frost points" in problems(moist(dew_point_K=265.0))[0].expected
+    assert problems(doc) == []
+    assert problems(moist(dew_point_K=265.0)) == []
 
 
 def test_moist_real_gas_state_outside_rp1485_range_names_stage_and_range():

@@ -18,6 +18,7 @@ import textwrap
 import pytest
 
 from tests.conftest import ROOT, SAMPLES, make_doc
+from thermo.project.schema import FORMAT_VERSION
 from thermo.errors import InputError, SaveError
 from thermo.project import backup_path, dumps, load, save
 from thermo.project import writing
@@ -53,7 +54,7 @@ def test_first_save_of_a_new_file_makes_no_backup(tmp_path):
     path = tmp_path / "new.json"
     save(make_doc(), path)
     assert not backup_path(path).exists()
-    assert load(path)["version"] == 2
+    assert load(path)["version"] == FORMAT_VERSION
 
 
 def test_key_order_follows_the_schema():
@@ -86,7 +87,7 @@ def test_save_refuses_values_json_cannot_hold(tmp_path, bad, field):
 
 
 def test_save_refuses_a_document_of_another_version_or_format(tmp_path):
-    with pytest.raises(InputError, match="^version: 0 — expected 2"):
+    with pytest.raises(InputError, match=f"^version: 0 — expected {FORMAT_VERSION}"):
         save(dict(make_doc(), version=0), tmp_path / "x.json")
     with pytest.raises(InputError, match="^format: 'x' — expected 'stagewright-project'"):
         save(dict(make_doc(), format="x"), tmp_path / "x.json")

@@ -18,6 +18,8 @@ from pathlib import Path
 
 import pytest
 
+from thermo.project.schema import FORMAT_VERSION
+
 from app.document import recovery_file as recovery
 from app.document.recovery_file import RecoverySlot, claim_orphans, read_recovery_file, recovery_dir
 from tests.conftest import ROOT, SAMPLES, make_doc
@@ -81,7 +83,7 @@ def test_unsaved_work_that_does_not_validate_is_still_kept(data_dir):
     slot = RecoverySlot()
     slot.write(doc)  # autosave never refuses work in progress
     got = slot.read().document  # and restores it as it was, problems included
-    assert got == {"format": "stagewright-project", "version": 2, **doc}  # a version-1 document, upgraded
+    assert got == {"format": "stagewright-project", "version": FORMAT_VERSION, **doc}  # a version-1 document, upgraded
     assert [p.field for p in problems(got)] == ["stages[0].efficiency.value"]
 
 

@@ -78,3 +78,17 @@ def test_outlet_above_dew_point_is_one_dry_zone():
     ex = size_exchanger("counter_flow", hot_at(T_DEW + 5.0), WATER, 293.15, flow=2.0)
     assert [z.kind for z in ex.zones] == ["dry"]
     assert ex.effectiveness is not None
+
+
+def test_outlet_within_rounding_of_the_dew_point_sizes_one_dry_zone():
+    # found rating a year hour by hour: the rating's search asked for an outlet a hair below the
+    # dew point, whose wet-zone duty warms the coolant by nothing (was a ZeroDivisionError)
+    from thermo.exchanger.coolant import make_coolant
+    from thermo.exchanger.sizing import HotSide, size_exchanger
+    water = make_coolant({"kind": "water"}, (293.15, 101325.0, 0.0))
+    h = lambda T: 1000.0 * T  # noqa: E731  (sensible enthalpy per kg; the wet zone's duty is 1e-12 W)
+    hot = HotSide(400.0, 330.0 - 1e-12, 1000.0 * (400.0 - 330.0) + 1e-12, dew_point_K=330.0,
+                  dew_point_duty_W=1000.0 * (400.0 - 330.0), flow_kg_s=1.0, equilibrium_enthalpy=h,
+                  moist_cp_J_kgK=1000.0)
+    ex = size_exchanger("counter_flow", hot, water, 293.15, flow=2.0)
+    assert [z.kind for z in ex.zones] == ["dry"] and ex.ua_W_K > 0.0

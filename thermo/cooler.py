@@ -5,12 +5,15 @@ __all__ = ["CoolerResult", "solve_cooler", "cooler_outlet_temperature", "outlet_
 
 from dataclasses import dataclass, field
 
+from thermo.chart_points import PointsOnDemand
 from thermo.moist.condensation import Condensation, condensation, cooling_line
 from thermo.moist.dew_point import dew_point
 from thermo.errors import InputError
 from thermo.exchanger import Exchanger, HotSide, make_coolant, rate_exchanger, size_exchanger
 from thermo.exergy import DeadState, heat_exergy
 from thermo.models.base import Point, PropertyModel
+
+_FROST_LOW = 173.15  #: lowest dew (frost) point searched for in a cooler, [K] (the schema's lowest dew point)
 
 
 @dataclass
@@ -87,7 +90,7 @@ def _hot_side(model, where: str, t_stag: float, h_in0: float, p_out: float, mass
     def dew(t_out: float):
         # the dew point does not depend on the outlet asked for; search once over the widest span
         if "t" not in cache:
-            cache["t"] = dew_point(model.mixture, model.water, p_out, 273.15, t_stag)
+            cache["t"] = dew_point(model.mixture, model.water, p_out, _FROST_LOW, t_stag)
         t_dew = cache["t"]
         return t_dew if t_dew is not None and t_out < t_dew < t_stag else None
 
@@ -196,15 +199,16 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
                          f"cooler outlet {t_out:.2f} K is below the heat-sink temperature "
                          f"{t_b:.2f} K (coolant inlet, or ambient when none is given)")
     moist = getattr(model, "mixture", None) is not None
-    if moist and t_out < 273.15:
-        raise InputError(field, t_out, "moist air must leave a cooler at 273.15 K or above: condensate "
-                         "would freeze, and ice is out of scope")
     outlet = model.at_tp(t_out, p_out, f"{where} outlet")
     ke = 0.5 * inlet_velocity ** 2 * model.mass_per_dry_kg if moist else 0.5 * inlet_velocity ** 2
     duty = mass_flow * (inlet.h + ke - outlet.h)
     s_gen = mass_flow * (outlet.s - inlet.s) + duty / t_b
     water = condensation(model, inlet, outlet, duty, mass_flow, spec["separator_efficiency"]) if moist else None
-    path = _cooling_path(model, where, inlet, outlet, t_out, p_out, path_points, water)
+    if path_points:  # chart points: made when a chart (or to_dict) reads them, never for the balance
+        path = PointsOnDemand(lambda: _cooling_path(model, where, inlet, outlet, t_out, p_out, path_points, water),
+                              (inlet, water.after if water is not None and water.drained_kg_s > 0.0 else outlet))
+    else:
+        path = _cooling_path(model, where, inlet, outlet, t_out, p_out, path_points, water)
     return CoolerResult(index=index, inlet=inlet, outlet=outlet, duty_W=duty, boundary_temperature_K=t_b,
                         heat_exergy_W=heat_exergy(duty, t_b, dead.T0), entropy_generation_W_K=s_gen,
                         exergy_destroyed_W=dead.T0 * s_gen, path=path,

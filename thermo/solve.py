@@ -89,14 +89,16 @@ def solve(doc: dict, detail: bool = True) -> TrainResult:
     return solve_normalised(normalise(doc), detail)
 
 
-def solve_normalised(norm: dict, detail: bool = True, fast: bool = False) -> TrainResult:
+def solve_normalised(norm: dict, detail: bool = True, fast: bool = False, reuse: dict | None = None) -> TrainResult:
     """:func:`solve` for a document already passed through :func:`thermo.project.validation.normalise`.
 
     For callers that validate once and then solve many variants (sweeps, studies).
     ``fast`` selects the fast property path of trial solves: for moist real-gas air the
     enhancement factor is interpolated (:mod:`thermo.moist.enhancement_table`); reported figures
     agree with the exact path to better than 1e-4 relative (tests/test_fast_path.py), and
-    the other models are unaffected.
+    the other models are unaffected. ``reuse`` (a dict the caller keeps across solves of one
+    document that differ only in stage ratios) lets a stage whose inputs did not change be
+    taken from an earlier solve (:func:`thermo.train.solve_train`); shaft-power flows ignore it.
 
     The site is resolved here, once per solve (:func:`thermo.project.validation.resolve_site`),
     and the solve's context built from it (:func:`thermo.solve_context.solve_context`: the
@@ -110,7 +112,7 @@ def solve_normalised(norm: dict, detail: bool = True, fast: bool = False) -> Tra
         # moist intake: FAD refers to the moist air, so the intake's stream model converts it
         m = mass_flow_from(flow["kind"], flow["value"], ctx.intake.model, ctx.site.ambient_temperature_K,
                            ctx.site.pressure_Pa, ambient=ctx.intake.ambient)
-        return solve_train(ctx, m, detail)
+        return solve_train(ctx, m, detail, reuse)
     return _solve_for_power(ctx, flow["value"], fixed, detail)
 
 

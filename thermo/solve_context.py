@@ -33,7 +33,7 @@ from dataclasses import dataclass
 from thermo.exergy import DeadState
 from thermo.models.base import Point, PropertyModel
 from thermo.moist.mixture import MoistMixture, make_mixture
-from thermo.moist.stream import MoistAir, intake_humidity_ratio
+from thermo.moist.stream import MoistAir, ice_supersaturation, intake_humidity_ratio
 from thermo.project.delivery import delivery_pressure
 from thermo.project.validation import ResolvedSite, resolve_site
 
@@ -133,7 +133,12 @@ class IntakeState:
     humidity_ratio : float
         Intake humidity ratio W0, [kg water / kg dry air] (0 for a dry intake).
     relative_humidity : float
-        Ambient relative humidity, [-] (the humidity of an air coolant).
+        Ambient relative humidity over the stable phase (over ice below 0.01 °C), [-]: the
+        humidity of an air coolant, in the convention of CoolProp's ``HAPropsSI`` input ``R``.
+    frost_deposit : float
+        Water above saturation over ice that a sub-zero intake deposits on the intake
+        louvres and filter before the compressor, [kg/kg dry air] (0 normally;
+        :func:`thermo.moist.stream.ice_supersaturation`).
     ambient : Point
         Ambient air at the site's temperature and barometric pressure.
     dead : DeadState
@@ -151,6 +156,7 @@ class IntakeState:
     ambient: Point
     dead: DeadState
     after_filter: Point
+    frost_deposit: float = 0.0
 
 
 @dataclass(frozen=True)
@@ -244,10 +250,12 @@ def _new_intake_state(model: PropertyModel, site: ResolvedSite) -> IntakeState:
     :func:`_water_reference`.
     """
     T0, P0 = site.ambient_temperature_K, site.pressure_Pa
-    stream, mixture, W0 = model, None, 0.0
+    stream, mixture, W0, frost = model, None, 0.0, 0.0
     if site.moist:
         mix = mixture_for(model)
         W = intake_humidity_ratio(site.humidity_input(), mix, T0, P0)
+        frost = ice_supersaturation(mix, T0, P0, W)
+        W -= frost
         if W > 0.0:
             stream, mixture, W0 = MoistAir(mix, W), mix, W
     ambient = stream.at_tp(T0, P0, "site intake")
@@ -257,8 +265,9 @@ def _new_intake_state(model: PropertyModel, site: ResolvedSite) -> IntakeState:
         dead = DeadState(T0, P0, ambient.h, ambient.s, W0, *_water_reference(mixture, T0, P0, W0))
     p1 = P0 - site.inlet_pressure_drop_Pa
     after_filter = stream.at_hp(ambient.h, p1, "intake filter outlet", T_guess=T0)
-    rh0 = site.relative_humidity if mixture is None else mixture.relative_humidity(T0, P0, W0)
-    return IntakeState(stream, mixture, W0, rh0, ambient, dead, after_filter)
+    # saturated over ice after rime: 1 within rounding, and never above (CoolProp refuses R > 1)
+    rh0 = site.relative_humidity if mixture is None else min(1.0, mixture.saturation_degree(T0, P0, W0))
+    return IntakeState(stream, mixture, W0, rh0, ambient, dead, after_filter, frost)
 
 
 def intake_state(model: PropertyModel, site: ResolvedSite) -> IntakeState:

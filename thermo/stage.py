@@ -8,6 +8,7 @@ from dataclasses import dataclass
 
 from thermo.errors import (InputError, PropertyRangeError, SecondLawViolation, StagewrightError, message_detail,
                            quantity)
+from thermo.chart_points import PointsOnDemand, known_points, path_ends
 from thermo.exergy import DeadState, heat_exergy
 from thermo.models.base import T_MAX, T_MIN, Point, PropertyModel
 from thermo.polytropic import polytropic_efficiency_between, polytropic_path
@@ -229,21 +230,22 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
         outlet = path[-1]
     else:
         cp_mean = dh_s / (iso.T - start.T) if iso.T > start.T else 1000.0  # secant cp, a guess only
+        last = path_ends(path)[1]
         try:
-            outlet = model.at_hp(h_out, p_out, f"{where} discharge",
-                                 T_guess=path[-1].T + (h_out - path[-1].h) / cp_mean)
+            outlet = model.at_hp(h_out, p_out, f"{where} discharge", T_guess=last.T + (h_out - last.h) / cp_mean)
         except PropertyRangeError as exc:
-            if abs(h_out - path[-1].h) > 1e-9 * abs(dh):  # at the edge of the range (a measured
+            if abs(h_out - last.h) > 1e-9 * abs(dh):  # at the edge of the range (a measured
                 raise _outlet_out_of_range(where, q_loss, v_out, exc) from None  # 1300 K): the known
-            outlet = path[-1]                                                    # end is the outlet
+            outlet = last                                                        # end is the outlet
     w_gas = mass_flow * dh
     w_shaft = w_gas / spec["mechanical_efficiency"]
     w_mech = w_shaft - w_gas
     t_b = spec["heat_loss_boundary_temperature_K"] or dead.T0
-    _check_heat_loss(where, q_loss, t_b, path, outlet)
-    end = path[-1]  # end of the adiabatic internal compression (the efficiencies' reference)
-    if q_loss != 0.0 or v_out != 0.0:
-        path = _actual_path(model, start, outlet, p_out, detail)
+    _check_heat_loss(where, q_loss, t_b, known_points(path), outlet)
+    end = path_ends(path)[1]  # end of the adiabatic internal compression (the efficiencies' reference)
+    if q_loss != 0.0 or v_out != 0.0:  # chart points: made when a chart (or to_dict) reads them
+        path = (PointsOnDemand(lambda: _actual_path(model, start, outlet, p_out, detail), (start, outlet))
+                if detail else _actual_path(model, start, outlet, p_out, detail))
     s_gen = mass_flow * (outlet.s - inlet.s) + q_loss / t_b + w_mech / dead.T0
     if s_gen < -1e-9 * max(1.0, w_shaft / dead.T0):
         hint = (" — the efficiency is total-to-static, so it must leave room for the exit kinetic "

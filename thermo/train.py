@@ -6,10 +6,12 @@ __all__ = ["solve_train"]
 import math
 from dataclasses import dataclass, field
 
+from thermo.chart_points import known_points
 from thermo.cooler import solve_cooler
 from thermo.errors import InputError, message_detail, quantity
 from thermo.exergy import flow_exergy, water_exergy
 from thermo.flow import NORMAL_PRESSURE, NORMAL_TEMPERATURE
+from thermo.moist.freezing import frozen_condensate_warning, intake_rime_warning
 from thermo.moist.stream import MoistAir, check_humid_range
 from thermo.moist.iso8573 import REFERENCE_PRESSURE, REFERENCE_TEMPERATURE, humidity_class
 from thermo.models.base import Point, PropertyModel
@@ -22,7 +24,7 @@ from thermo.stage import solve_stage
 from thermo import coolprop_adapter
 
 
-def solve_train(ctx: SolveContext, mass_flow: float, detail: bool = True) -> TrainResult:
+def solve_train(ctx: SolveContext, mass_flow: float, detail: bool = True, reuse: dict | None = None) -> TrainResult:
     r"""Solve a normalised project at a given mass flow [1]_.
 
     Totals follow from the component balances; two closure figures check them:
@@ -44,6 +46,10 @@ def solve_train(ctx: SolveContext, mass_flow: float, detail: bool = True) -> Tra
     detail : bool
         False skips reporting-only work (polytropic efficiencies of isentropic stages,
         points along paths); powers, states and totals are unchanged. For trial solves.
+    reuse : dict or None
+        Stage and cooler results of earlier solves of the same document that differ only in
+        stage ratios (a staging study's trials), reused where a stage's inputs are the same
+        (:func:`_stage_and_cooler`); None solves every stage.
 
     Returns
     -------
@@ -106,7 +112,7 @@ def solve_train(ctx: SolveContext, mass_flow: float, detail: bool = True) -> Tra
     drops = [(s["cooler"] or {}).get("pressure_drop_Pa", 0.0) for s in specs]
     want = ctx.delivery_pressure_Pa  # resolved at the boundary (stated absolute or gauge)
     ratios = stage_pressure_ratios(ctx.intake.after_filter.P, want, [s["pressure_ratio"] for s in specs], drops)
-    line = _run_line(ctx, ratios, mass_flow, detail)
+    line = _run_line(ctx, ratios, mass_flow, detail, reuse)
     if all(s["pressure_ratio"] is not None for s in specs):
         if abs(line.point.P - want) > 1e-3 * want:
             line.warnings.append(Warning_(stated_delivery(norm)[0],
@@ -167,7 +173,7 @@ class _Line:
     warnings: list = field(default_factory=list)
 
 
-def _run_line(ctx: SolveContext, ratios: list, mass_flow: float, detail: bool) -> _Line:
+def _run_line(ctx: SolveContext, ratios: list, mass_flow: float, detail: bool, reuse: dict | None = None) -> _Line:
     """Solve every stage and its cooler in flow order; after a separator the stream carries its new water.
 
     Parameters
@@ -179,6 +185,8 @@ def _run_line(ctx: SolveContext, ratios: list, mass_flow: float, detail: bool) -
     mass_flow : float
         Mass flow of (dry) air, [kg/s].
     detail : bool
+        As :func:`solve_train`.
+    reuse : dict or None
         As :func:`solve_train`.
 
     Returns
@@ -201,16 +209,11 @@ def _run_line(ctx: SolveContext, ratios: list, mass_flow: float, detail: bool) -
     intake, mixture = ctx.intake, ctx.mixture
     specs = ctx.norm["stages"]
     line = _Line(intake.model, intake.after_filter)
+    rime = intake_rime_warning(intake.frost_deposit, mass_flow, ctx.site.ambient_temperature_K)
+    if rime is not None:
+        line.warnings.append(rime)
     for i, spec in enumerate(specs):
-        st = solve_stage(line.model, spec, i, line.point, line.velocity, line.point.P * ratios[i], mass_flow,
-                         intake.dead, detail)
-        if mixture is not None:
-            try:
-                check_humid_range(mixture, [st.outlet, max(st.path, key=lambda p: p.T)], f"stages[{i}]",
-                                  f"stage {i + 1} discharge")
-            except InputError as exc:  # named by the input the remedy changes first: the stage's ratio
-                raise InputError(f"stages[{i}].pressure_ratio", round(st.pressure_ratio, 6), exc.problem.expected,
-                                 exc.detail) from None
+        st, c = _stage_and_cooler(ctx, line, i, line.point.P * ratios[i], mass_flow, detail, reuse)
         line.stages.append(st)
         if detail and math.isnan(st.polytropic_efficiency):
             line.warnings.append(_polytropic_unavailable(i, spec))
@@ -218,11 +221,9 @@ def _run_line(ctx: SolveContext, ratios: list, mass_flow: float, detail: bool) -
         if limit is not None and st.outlet.T > limit:
             line.warnings.append(_limit_warning(i, st.outlet.T, limit))
         line.point, line.velocity = st.outlet, st.exit_velocity_m_s
-        if spec["cooler"] is None:
+        if c is None:
             line.coolers.append(None)
             continue
-        c = solve_cooler(line.model, spec["cooler"], i, line.point, line.velocity, mass_flow, intake.dead,
-                         8 if detail else 0, ambient_relative_humidity=intake.relative_humidity)
         line.coolers.append(c)
         line.point, line.velocity = c.leaving, 0.0
         if c.water is not None:
@@ -231,8 +232,51 @@ def _run_line(ctx: SolveContext, ratios: list, mass_flow: float, detail: bool) -
                 line.drains.append((w.drained_kg_s, w.liquid_enthalpy_J_kg, w.liquid_entropy_J_kgK,
                                     line.point.T, line.point.P))
             line.warnings.extend(_water_notes(i, len(specs), w, mass_flow))
+            frozen = frozen_condensate_warning(i, len(specs), c, (spec["cooler"].get("coolant") or {}).get("kind"),
+                                               ctx.site.ambient_temperature_K)
+            if frozen is not None:
+                line.warnings.append(frozen)
             line.model = MoistAir(mixture, w.water_after)
     return line
+
+
+def _stage_and_cooler(ctx: SolveContext, line: _Line, i: int, p_out: float, mass_flow: float, detail: bool,
+                      reuse: dict | None) -> tuple:
+    """Stage ``i`` and its cooler (None without one) from the stream leaving the line so far.
+
+    With ``reuse`` (a dict kept by the caller across solves of one document that differ only
+    in stage ratios, e.g. a study's trials) a stage whose inlet stream, discharge pressure,
+    mass flow and water are those of an earlier solve is taken from it: the same inputs give
+    the same results, so nothing reported changes.
+    """
+    key = None
+    if reuse is not None:
+        key = (i, line.point, line.velocity, p_out, mass_flow, detail, getattr(line.model, "water", None))
+        hit = reuse.get(key)
+        if hit is not None:
+            return hit
+    intake, mixture = ctx.intake, ctx.mixture
+    spec = ctx.norm["stages"][i]
+    st = solve_stage(line.model, spec, i, line.point, line.velocity, p_out, mass_flow, intake.dead, detail)
+    if mixture is not None:
+        try:
+            check_humid_range(mixture, [st.outlet, max(known_points(st.path), key=lambda p: p.T)], f"stages[{i}]",
+                              f"stage {i + 1} discharge")
+        except InputError as exc:  # named by the input the remedy changes first: the stage's ratio
+            raise InputError(f"stages[{i}].pressure_ratio", round(st.pressure_ratio, 6), exc.problem.expected,
+                             exc.detail) from None
+    c = None
+    if spec["cooler"] is not None:
+        c = solve_cooler(line.model, spec["cooler"], i, st.outlet, st.exit_velocity_m_s, mass_flow, intake.dead,
+                         8 if detail else 0, ambient_relative_humidity=intake.relative_humidity)
+    if key is not None:
+        if len(reuse) >= _REUSE_MAX:
+            reuse.clear()
+        reuse[key] = (st, c)
+    return st, c
+
+
+_REUSE_MAX = 4096  #: stages kept by one ``reuse`` dict
 
 
 def _totals(ctx: SolveContext, inlet: InletResult, line: _Line, mass_flow: float, detail: bool) -> TrainResult:

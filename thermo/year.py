@@ -16,20 +16,36 @@ circuit it is circulation, not consumption); glycol circuits are reported separa
 Load scales the project's flow value (mass, volume or shaft power). Air-cooled coolers
 take their coolant inlet from the bin's ambient temperature; water and glycol coolers
 keep theirs unless the bin gives ``coolant_inlet_temperature_K``.
+
+Coolers are sized afresh in every bin (``year.coolers.mode = "size_every_bin"``, each bin
+gets a perfect exchanger) or sized once at a design condition and rated at that fixed UA in
+every bin (``"design_once"``, :mod:`thermo.year_design`). Each bin's project shares every
+unchanged part with the year's normalised project (:mod:`thermo.year_bins`), so a year's time
+grows linearly with its bins. Bins are solved on the fast property path of trial solves
+(:func:`thermo.solve.solve_normalised` with ``detail=False, fast=True``; its figures agree with
+exact solves to better than 1e-4 relative, tests/test_year_design.py checks the totals);
+``run_year(..., exact=True)`` solves them exactly.
 """
 from __future__ import annotations
 
-__all__ = ["YearResult", "BinResult", "YearCancelled", "run_year", "CONDENSATE_DENSITY_KG_M3"]
+__all__ = ["YearResult", "BinResult", "YearCancelled", "run_year", "CONDENSATE_DENSITY_KG_M3", "FAST_PATH_BINS",
+           "POOL_BINS", "CHUNK_BINS"]
 
-import copy
+import os
 from dataclasses import asdict, dataclass, field
+from functools import partial
 
 from thermo.project.validation import normalise
 from thermo.errors import InputError, StagewrightError
-from thermo.solve import solve
+from thermo.solve import release_thread_models, solve_normalised
+from thermo.year_bins import norm_for_bin, year_base
+from thermo.year_design import YearDesign, design_coolers, limit_flags
 from thermo.year_profile import Bin, operating_bins
 
 CONDENSATE_DENSITY_KG_M3 = 1000.0
+FAST_PATH_BINS = 24  #: up to this many bins a year solves exactly by default (measured: bench/run.py)
+POOL_BINS = 2000  #: from this many bins a year uses every core by default
+CHUNK_BINS = 60  #: bins per worker task: progress and cancel between chunks
 
 
 class YearCancelled(StagewrightError):
@@ -58,6 +74,20 @@ class BinResult:
     recovered_value: float
     max_discharge_temperature_K: float
     warnings: list = field(default_factory=list)
+    #: per stage (None where it has no cooler): air outlet, coolant outlet, duty and condensate drained
+    cooler_outlet_temperatures_K: list = field(default_factory=list)
+    coolant_outlet_temperatures_K: list = field(default_factory=list)
+    cooler_duties_W: list = field(default_factory=list)
+    cooler_condensate_kg_s: list = field(default_factory=list)
+    #: the air reaching the dryer (the delivered air): temperature and pressure dew point (frost
+    #: point below 0.01 °C; None for a dry intake)
+    dryer_inlet_temperature_K: float = 0.0
+    pressure_dew_point_K: float | None = None
+    #: stated limits this bin misses (:func:`thermo.year_design.limit_flags`); empty when it meets them
+    limit_flags: list = field(default_factory=list)
+    meets_limits: bool = True
+    #: a cooler's condensate would freeze, or nearly (thermo.moist.freezing): freeze protection needed
+    freezing_condensate: bool = False
 
 
 @dataclass
@@ -68,10 +98,15 @@ class YearResult:
     totals: dict
     worst_discharge_bin: str
     worst_duty_bin: str
+    cooler_mode: str = "size_every_bin"
+    design: YearDesign | None = None  #: the coolers' design (``design_once``)
 
     def to_dict(self) -> dict:
-        """Plain data (JSON-ready): ``bins``, ``totals``, worst bins."""
+        """Plain data (JSON-ready): ``bins``, ``totals``, worst bins, the coolers' design."""
         return {"bins": [asdict(b) for b in self.bins], "totals": dict(self.totals),
+                "cooler_mode": self.cooler_mode,
+                "freezing_bins": [b.label for b in self.bins if b.freezing_condensate],
+                "cooler_design": None if self.design is None else self.design.to_dict(),
                 "worst_discharge_temperature": {"bin": self.worst_discharge_bin,
                                                 "temperature_K": max(b.max_discharge_temperature_K
                                                                      for b in self.bins)},
@@ -79,37 +114,32 @@ class YearResult:
                                       "duty_W": max(b.cooler_duty_W for b in self.bins)}}
 
 
-def _doc_for(doc: dict, b: Bin) -> dict:
-    d = copy.deepcopy(doc)
-    d.pop("year", None)
-    d["site"]["ambient_temperature_K"] = b.temperature_K
-    d["site"]["relative_humidity"] = b.relative_humidity
-    d["flow"]["value"] = d["flow"]["value"] * b.load
-    for st in d["stages"]:
-        cooler = st.get("cooler")
-        if not cooler:
-            continue
-        kind = (cooler.get("coolant") or {}).get("kind")
-        if kind == "air":
-            cooler.pop("coolant_inlet_temperature_K", None)
-        elif b.coolant_inlet_temperature_K is not None and (
-                kind is not None or cooler.get("coolant_inlet_temperature_K") is not None):
-            cooler["coolant_inlet_temperature_K"] = b.coolant_inlet_temperature_K
-    return d
+def _cooler_figures(res) -> tuple:
+    """Per stage: air outlet, coolant outlet, duty and condensate drained (None without a cooler)."""
+    outs, coolant, duties, cond = [], [], [], []
+    for c in res.coolers:
+        ex = None if c is None else c.exchanger
+        outs.append(None if c is None else c.outlet.T)
+        coolant.append(None if ex is None else ex.coolant.outlet_temperature_K)
+        duties.append(None if c is None else c.duty_W)
+        cond.append(None if c is None else (c.water.drained_kg_s if c.water is not None else 0.0))
+    return outs, coolant, duties, cond
 
 
-def _solve_bin(doc: dict, b: Bin, year: dict, rec: dict | None) -> BinResult:
-    res = solve(_doc_for(doc, b))
-    d = res.to_dict()
+def _bin_result(res, b: Bin, year: dict, rec: dict | None, flags: list) -> BinResult:
+    """A bin's figures from its solve (no ``to_dict``: only what the year reports)."""
     seconds = 3600.0 * b.hours
-    coolers = [st["cooler"] for st in d["stages"] if st["cooler"] is not None]
-    condensate_kg_s = d.get("condensate_kg_s") or 0.0
-    water = sum(c["coolant_volume_flow_m3_s"] for c in coolers if c.get("coolant_kind") == "water")
-    glycol = sum(c["coolant_volume_flow_m3_s"] for c in coolers if c.get("coolant_kind") == "glycol")
+    coolers = [c for c in res.coolers if c is not None]
+    water = sum(c.exchanger.coolant.volume_flow_m3_s for c in coolers
+                if c.exchanger is not None and c.exchanger.coolant.kind == "water")
+    glycol = sum(c.exchanger.coolant.volume_flow_m3_s for c in coolers
+                 if c.exchanger is not None and c.exchanger.coolant.kind == "glycol")
+    condensate_kg_s = res.water.condensate_kg_s if res.water is not None else 0.0
     energy = res.driver_power_W * b.hours / 1000.0
-    q_rec = d.get("recoverable_heat_W")
+    q_rec = None if res.recovery is None else res.recovery.recoverable_heat_W
     rec_kwh = (q_rec or 0.0) * b.hours / 1000.0
     value = rec_kwh / rec["boiler_efficiency"] * rec["fuel_price_per_kWh"] if rec else 0.0
+    outs, coolant, duties, cond = _cooler_figures(res)
     return BinResult(
         label=b.label, temperature_K=b.temperature_K, relative_humidity=b.relative_humidity, hours=b.hours,
         load=b.load, driver_power_W=res.driver_power_W, energy_kWh=energy,
@@ -117,17 +147,34 @@ def _solve_bin(doc: dict, b: Bin, year: dict, rec: dict | None) -> BinResult:
         condensate_m3=condensate_kg_s * seconds / CONDENSATE_DENSITY_KG_M3,
         cooling_water_m3=water * seconds, glycol_circulated_m3=glycol * seconds,
         water_cost=water * seconds * year["water_price_per_m3"],
-        cooler_duty_W=sum(c["duty_W"] for c in coolers), recoverable_heat_W=q_rec,
+        cooler_duty_W=sum(c.duty_W for c in coolers), recoverable_heat_W=q_rec,
         recoverable_heat_kWh=rec_kwh, recovered_value=value,
-        max_discharge_temperature_K=max(st["outlet"]["temperature_K"] for st in d["stages"]),
-        warnings=[w["message"] for w in d["warnings"]])
+        max_discharge_temperature_K=max(st.outlet.T for st in res.stages),
+        warnings=[w.message for w in res.warnings], cooler_outlet_temperatures_K=outs,
+        coolant_outlet_temperatures_K=coolant, cooler_duties_W=duties, cooler_condensate_kg_s=cond,
+        dryer_inlet_temperature_K=res.delivery.T,
+        pressure_dew_point_K=None if res.water is None else res.water.delivered_pressure_dew_point_K,
+        limit_flags=flags, meets_limits=not flags,
+        freezing_condensate=any(w.field.endswith(".cooler") and "freez" in w.message for w in res.warnings))
+
+
+def _in_bin(b: Bin, fn, *args):
+    """``fn(*args)``, its StagewrightError re-raised naming bin ``b``."""
+    try:
+        return fn(*args)
+    except StagewrightError as exc:
+        if isinstance(exc, InputError):
+            raise InputError(exc.problem.field, exc.problem.value, f"{exc.problem.expected} (year, {b.label})") from None
+        raise type(exc)(f"year, {b.label} ({b.temperature_K:.2f} K, RH {b.relative_humidity:.2f}): {exc}",
+                        exc.field) from None
 
 
 _SUMMED = ("hours", "energy_kWh", "energy_cost", "condensate_m3", "cooling_water_m3", "glycol_circulated_m3",
            "water_cost", "recoverable_heat_kWh", "recovered_value")
 
 
-def run_year(doc: dict, progress=None, cancelled=None) -> YearResult:
+def run_year(doc: dict, progress=None, cancelled=None, exact: bool | None = None,
+             processes: int | None = None) -> YearResult:
     """Solve a project for every bin of its ``year`` section and total the year.
 
     Parameters
@@ -135,16 +182,23 @@ def run_year(doc: dict, progress=None, cancelled=None) -> YearResult:
     doc : dict
         Project document with a ``year`` section (see ``docs/project-format.md``).
     progress : callable, optional
-        ``progress(done, total)`` after each bin.
+        ``progress(done, total)`` after each bin (after each chunk of bins with a pool).
     cancelled : callable, optional
-        ``cancelled()`` → True stops the run between bins (:class:`YearCancelled`).
+        ``cancelled()`` → True stops the run between bins or chunks (:class:`YearCancelled`).
+    exact : bool, optional
+        True: solve the bins (and the coolers' design) on the exact property path; False: on
+        the fast one (figures agree to better than 1e-4 relative). Default: exact for up to
+        FAST_PATH_BINS bins (the fast path's table costs more to fill than it saves), fast above.
+    processes : int, optional
+        Worker processes; default: all cores for POOL_BINS bins or more, else 1 (in-process).
 
     Returns
     -------
     YearResult
         Per-bin figures, totals (``energy_kWh``, ``energy_cost``, ``condensate_m3``,
-        ``cooling_water_m3``, ``recoverable_heat_kWh`` …) and the worst bins for discharge
-        temperature and cooler duty.
+        ``cooling_water_m3``, ``recoverable_heat_kWh``, ``bins_missing_limits`` …), the worst
+        bins for discharge temperature and cooler duty, and the coolers' design
+        (``year.coolers.mode = "design_once"``).
 
     Raises
     ------
@@ -167,26 +221,122 @@ def run_year(doc: dict, progress=None, cancelled=None) -> YearResult:
     year = norm.get("year")
     if not year:
         raise InputError("year", None, "add a 'year' section (ambient profile, hours, load) to run a year")
-    rec = norm.get("heat_recovery")
     bins = operating_bins(year)
+    base = year_base(norm)
+    exact = len(bins) <= FAST_PATH_BINS if exact is None else exact
+    settings = year["coolers"]
+    design = None
+    if settings["mode"] == "design_once":
+        design = _in_design(base, bins, settings, _solver(exact))
+    job = _Job(base, year, norm.get("heat_recovery"), design, exact)
+    n_proc = processes or ((os.cpu_count() or 1) if len(bins) >= POOL_BINS else 1)
+    out = (_run_in_process(job, bins, progress, cancelled) if n_proc <= 1 else
+           _run_in_pool(job, bins, n_proc, progress, cancelled))
+    return _year_result(out, settings["mode"], design, settings.get("max_dryer_inlet_temperature_K"))
+
+
+def _solver(exact: bool):
+    """The bins' solve: lean (no reporting-only work), on the exact or the fast property path."""
+    return partial(solve_normalised, detail=False, fast=not exact)
+
+
+@dataclass(frozen=True)
+class _Job:
+    """What every bin's solve needs (picklable: worker processes get it once per chunk)."""
+
+    base: dict
+    year: dict
+    rec: dict | None
+    design: YearDesign | None
+    exact: bool
+
+
+def _solve_bin(job: _Job, b: Bin) -> BinResult:
+    """One bin: its project, solve, figures and limit flags (errors name the bin)."""
+    design = job.design
+    res = _in_bin(b, _solver(job.exact), norm_for_bin(job.base, b, None if design is None else design.rating()))
+    flags = limit_flags(b, res, design, job.year["coolers"].get("max_dryer_inlet_temperature_K"))
+    return _bin_result(res, b, job.year, job.rec, flags)
+
+
+def _cancelled_error(out: list, total: int) -> YearCancelled:
+    err = YearCancelled(f"year run cancelled after {len(out)} of {total} bins")
+    err.partial = out
+    return err
+
+
+def _run_in_process(job: _Job, bins: list, progress, cancelled) -> list:
     out: list[BinResult] = []
     for i, b in enumerate(bins):
         if cancelled is not None and cancelled():
-            err = YearCancelled(f"year run cancelled after {i} of {len(bins)} bins")
-            err.partial = out
-            raise err
-        try:
-            out.append(_solve_bin(doc, b, year, rec))
-        except StagewrightError as exc:
-            raise type(exc)(f"year, {b.label} ({b.temperature_K:.2f} K, RH {b.relative_humidity:.2f}): {exc}",
-                            exc.field) if not isinstance(exc, InputError) else InputError(
-                exc.problem.field, exc.problem.value, f"{exc.problem.expected} (year, {b.label})") from None
+            raise _cancelled_error(out, len(bins))
+        out.append(_solve_bin(job, b))
         if progress is not None:
             progress(i + 1, len(bins))
+    return out
+
+
+def _solve_chunk(job: _Job, chunk: list) -> list:
+    """A worker's chunk of bins; a bin that fails ends the chunk as ``("error", its position)``
+    (the caller solves it again in its own process to raise the error with its type)."""
+    out = []
+    for k, b in enumerate(chunk):
+        try:
+            out.append(_solve_bin(job, b))
+        except StagewrightError:
+            out.append(("error", k))
+            break
+    release_thread_models()
+    return out
+
+
+def _run_in_pool(job: _Job, bins: list, n_proc: int, progress, cancelled) -> list:
+    """The bins in chunks of CHUNK_BINS on ``n_proc`` worker processes, in order."""
+    from concurrent.futures import ProcessPoolExecutor  # local: most years are short
+    from thermo.sweep import _pool_context
+    chunks = [bins[i:i + CHUNK_BINS] for i in range(0, len(bins), CHUNK_BINS)]
+    out: list = []
+    with ProcessPoolExecutor(max_workers=n_proc, mp_context=_pool_context()) as pool:
+        futures = [pool.submit(_solve_chunk, job, ch) for ch in chunks]
+        for ch, fut in zip(chunks, futures):
+            if cancelled is not None and cancelled():
+                for f in futures:
+                    f.cancel()
+                raise _cancelled_error(out, len(bins))
+            part = fut.result()
+            if part and isinstance(part[-1], tuple):
+                for f in futures:
+                    f.cancel()
+                _solve_bin(job, ch[part[-1][1]])  # raises the bin's own error
+            out.extend(part)
+            if progress is not None:
+                progress(len(out), len(bins))
+    return out
+
+
+def _in_design(base: dict, bins: list, settings: dict, solve_fn) -> YearDesign:
+    """:func:`thermo.year_design.design_coolers`, its errors naming the design condition."""
+    try:
+        return design_coolers(base, bins, settings, solve_fn)
+    except StagewrightError as exc:
+        where = "the site as stated" if settings["design_condition"] == "site" else "the hottest bin"
+        if isinstance(exc, InputError):
+            raise InputError(exc.problem.field, exc.problem.value,
+                             f"{exc.problem.expected} (year, design condition: {where})") from None
+        raise type(exc)(f"year, design condition ({where}): {exc}", exc.field) from None
+
+
+def _year_result(out: list, mode: str, design, max_dryer: float | None = None) -> YearResult:
+    """Totals of the bins, the worst bins and the bins that miss a stated limit."""
     totals = {k: sum(getattr(b, k) for b in out) for k in _SUMMED}
     totals["cost"] = totals["energy_cost"] + totals["water_cost"] - totals["recovered_value"]
     hours = totals["hours"]
     totals["mean_driver_power_W"] = totals["energy_kWh"] * 1000.0 / hours if hours > 0 else 0.0
+    missed = [b for b in out if b.limit_flags]
+    totals["bins_missing_limits"] = len(missed)
+    totals["hours_missing_limits"] = sum(b.hours for b in missed)
+    totals["limits_stated"] = design is not None or max_dryer is not None
     worst_t = max(out, key=lambda b: b.max_discharge_temperature_K)
     worst_q = max(out, key=lambda b: b.cooler_duty_W)
-    return YearResult(bins=out, totals=totals, worst_discharge_bin=worst_t.label, worst_duty_bin=worst_q.label)
+    return YearResult(bins=out, totals=totals, worst_discharge_bin=worst_t.label, worst_duty_bin=worst_q.label,
+                      cooler_mode=mode, design=design)

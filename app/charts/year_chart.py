@@ -38,7 +38,7 @@ def side_by_side_for(width: float, height: float) -> bool:
 
 
 def draw_year_chart(fig: Figure, year: dict, system: str = "SI", limit_K: float | None = None,
-                    side_by_side: bool | None = None) -> Figure:
+                    side_by_side: bool | None = None, dryer: bool = False) -> Figure:
     """Draw a year at the site into ``fig`` (cleared first).
 
     Parameters
@@ -56,6 +56,10 @@ def draw_year_chart(fig: Figure, year: dict, system: str = "SI", limit_K: float 
     side_by_side : bool, optional
         The three panels in a row (True) or stacked (False); by default from the figure's shape
         (:func:`side_by_side_for`).
+    dryer : bool
+        Also draw, in the temperature panel, the air reaching the dryer (``dryer_inlet_temperature_K``,
+        gid ``"year-dryer"``) and its pressure dew point (``"year-pdp"``), and ring the bins that
+        miss a stated limit (``"year-missed"``). The window draws them; off by default.
 
     Returns
     -------
@@ -78,13 +82,37 @@ def draw_year_chart(fig: Figure, year: dict, system: str = "SI", limit_K: float 
                   fontsize=style.SIZE_LABEL, color=style.MUTED, fontfamily=style.FONT)
         return fig
     _draw_bins(ax_e, ax_w, ax_t, year, system, limit_K)
-    x = list(range(len(bins)))
-    short = [b["label"][:3] if b["label"] in _MONTHS else b["label"] for b in bins]  # Jan … Dec
+    if dryer and "dryer_inlet_temperature_K" in bins[0]:
+        _draw_dryer(ax_t, bins, system)
+    every = max(1, len(bins) // 24)  # at most about 24 labels: an hourly year has thousands of bins
+    x = list(range(0, len(bins), every))
+    short = [bins[i]["label"][:3] if bins[i]["label"] in _MONTHS else bins[i]["label"] for i in x]  # Jan … Dec
     long_ticks = max(len(t) for t in short) > 4 or len(bins) > 12
     for ax in (ax_e, ax_w, ax_t) if side_by_side else (ax_t,):
         ax.set_xticks(x, short, rotation=45 if long_ticks else 0, ha="right" if long_ticks else "center")
         ax.set_xlim(-0.6, len(bins) - 0.4)
     return fig
+
+
+def _draw_dryer(ax_t, bins: list, system: str) -> None:
+    """The air reaching the dryer and its pressure dew point per bin; bins missing a limit ringed."""
+    tu = units.unit("temperature", system)
+    x = range(len(bins))
+    dryer = [tu.to_display(b["dryer_inlet_temperature_K"]) for b in bins]
+    ax_t.plot(x, dryer, color=style.SENSIBLE, linewidth=1.2, gid="year-dryer", zorder=3, label="to dryer")
+    if any(b.get("pressure_dew_point_K") is not None for b in bins):
+        pdp = [float("nan") if b.get("pressure_dew_point_K") is None else tu.to_display(b["pressure_dew_point_K"])
+               for b in bins]
+        ax_t.plot(x, pdp, color=style.LATENT, linewidth=1.0, linestyle=":", gid="year-pdp", zorder=3,
+                  label="pressure dew point")
+    missed = [i for i, b in enumerate(bins) if not b.get("meets_limits", True)]
+    if missed:
+        ax_t.plot(missed, [dryer[i] for i in missed], linestyle="none", marker="o", markersize=6,
+                  markerfacecolor="none", markeredgecolor=style.LIMIT, gid="year-missed", zorder=4,
+                  label="misses a limit")
+    lo, hi = ax_t.get_ylim()
+    ax_t.set_ylim(min(lo, min(v for v in dryer) - 2.0), hi)
+    ax_t.legend(loc="best", fontsize=style.SIZE_LABEL - 1, frameon=False)
 
 
 def _draw_bins(ax_e, ax_w, ax_t, year: dict, system: str, limit_K: float | None) -> None:

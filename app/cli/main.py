@@ -6,8 +6,13 @@
     stagewright study PROJECT --max-stages N   staging options side by side (app/cli/study.py)
     stagewright sweep PROJECT --axis FIELD=START:STOP:N …
                                                a grid of input values, one CSV row per point
+    stagewright compare PROJECT [--cases A,B] [--reference A] [--json|--csv]
+                                               the cases of one project side by side
     stagewright report FILE|FOLDER … [-o OUT] [--csv [OUT.csv]] [--units SI|US] [--force]
                                                PDF (and CSV) reports
+    stagewright uncertainty PROJECT … [--json] [--draws N]
+                                               a field check's results with their uncertainty,
+                                               contributors and verdicts on guarantees
 
 Nothing here imports Qt or the window (``app/entry.py`` opens the window when no
 sub-command is named). Outputs never replace an input, an existing file only with ``--force``
@@ -22,14 +27,15 @@ import argparse
 import os
 import sys
 
-from app.cli import check, report, solve, study, sweep, year
+from app.cli import check, compare, report, solve, study, sweep, uncertainty, year
 from app.cli.paths import EXIT_FAILED, expand_paths
 from app.cli.terminal import escaped_output
 
 #: sub-command -> module with ``run(args)`` and either ``build_parser()`` or ``add_arguments(p)``
 #: (imported here, not by name at run time, so the import contracts see them; each module
 #: imports the core only when it runs)
-SUBCOMMANDS = {"solve": solve, "check": check, "report": report, "study": study, "year": year, "sweep": sweep}
+SUBCOMMANDS = {"solve": solve, "check": check, "report": report, "study": study, "year": year, "sweep": sweep,
+               "uncertainty": uncertainty, "compare": compare}
 
 #: sub-commands that take the ``solve`` options (``--json``)
 _SOLVE_OPTIONS = ("year",)

@@ -12,6 +12,8 @@ __all__ = ["Signal", "ProjectModel", "new_document"]
 import copy
 from typing import Any, Callable
 
+from thermo.project.case_changes import base_document, differences
+from thermo.project.cases import base_name, case_document, case_names
 from thermo.project.validation import problems as doc_problems
 from thermo.project.schema import FORMAT_NAME, FORMAT_VERSION, PROJECT
 from thermo.project.schema_types import check
@@ -77,12 +79,88 @@ class ProjectModel:
         A value at ``path`` changed (``""``: the whole document was replaced).
     structure_changed(kind, index, new_index)
         The stage list changed: ``"insert"``, ``"remove"`` or ``"move"``.
+    cases_changed()
+        The project's cases (names, order) or the case being edited changed.
+
+    Cases
+    -----
+    A project may hold cases (:mod:`thermo.project.cases`). The model shows one at a time:
+    :attr:`doc`, :meth:`get`, :meth:`snapshot` and the edits read and change the *active* case
+    as a standalone document, and every edit is written back into the project — into the base's
+    own fields, or as the active case's changes (:func:`thermo.project.case_changes.differences`).
+    :meth:`project_snapshot` is the whole project (base, cases, snapshot) to save.
     """
 
     def __init__(self, doc: dict | None = None) -> None:
         self.changed = Signal()
         self.structure_changed = Signal()
-        self._doc: dict = copy.deepcopy(doc) if doc is not None else new_document()
+        self.cases_changed = Signal()
+        self._project: dict = copy.deepcopy(doc) if doc is not None else new_document()
+        self._active: str | None = None  # None: the base
+        self._doc: dict = self._view()
+
+    # ---- cases ---------------------------------------------------------------------------
+    def _view(self) -> dict:
+        """The active case as a standalone document (with the project's format and version)."""
+        view = case_document(self._project, self._active)
+        head = {k: self._project[k] for k in ("format", "version") if k in self._project}
+        return {**head, **{k: v for k, v in view.items() if k not in head}}
+
+    def _sync(self) -> None:
+        """Write the active view back into the project."""
+        if self._active is None:
+            keep = {k: self._project[k] for k in ("base_name", "cases", "snapshot") if k in self._project}
+            self._project = {**copy.deepcopy(self._doc), **keep}
+            return
+        changes = differences(base_document(self._project), self._doc)
+        for case in self._project.get("cases") or []:
+            if case.get("name") == self._active:
+                case["changes"] = changes
+
+    @property
+    def active_case(self) -> str:
+        """Name of the case being edited (the base's name for the base)."""
+        return self._active if self._active is not None else base_name(self._project)
+
+    @property
+    def is_base_active(self) -> bool:
+        return self._active is None
+
+    def case_names(self) -> list[str]:
+        """The base's name, then each case's."""
+        return case_names(self._project)
+
+    def activate(self, name: str | None) -> None:
+        """Show and edit case ``name`` (None or the base's name: the base). Not an edit."""
+        target = None if name is None or name == base_name(self._project) else name
+        if target == self._active:
+            return
+        if target is not None and target not in case_names(self._project):
+            raise KeyError(name)
+        self._active = target
+        self._doc = self._view()
+        self.structure_changed.emit("reset", 0, 0)
+        self.changed.emit("")
+        self.cases_changed.emit()
+
+    def project_snapshot(self) -> dict:
+        """The whole project — base, cases, kept results — as a deep copy, to save."""
+        return copy.deepcopy(self._project)
+
+    def project_problems(self) -> list:
+        """Every problem of the whole project, its cases included."""
+        return doc_problems(self._project)
+
+    def replace_project(self, doc: dict, active: str | None = None) -> None:
+        """Swap in a project after a case operation (add, rename, remove, make base), showing
+        case ``active`` (default: the base; a name the project lacks shows the base)."""
+        self._project = copy.deepcopy(doc)
+        names = case_names(self._project)
+        self._active = active if active in names[1:] else None
+        self._doc = self._view()
+        self.structure_changed.emit("reset", 0, 0)
+        self.changed.emit("")
+        self.cases_changed.emit()
 
     # ---- reading -------------------------------------------------------------------------
     @property
@@ -114,22 +192,26 @@ class ProjectModel:
     def set(self, path: str, value: Any) -> Any:
         """Set one value (``ABSENT`` removes the key); return the previous value."""
         old = set_in(self._doc, path, copy.deepcopy(value))
+        self._sync()
         self.changed.emit(path)
         return old
 
     def set_many(self, pairs: list[tuple[str, Any]]) -> list[Any]:
         """Set several values as one change; return the previous values in order."""
         olds = [set_in(self._doc, p, copy.deepcopy(v)) for p, v in pairs]
+        self._sync()
         self.changed.emit(_common_prefix([p for p, _ in pairs]))
         return olds
 
     def insert_stage(self, index: int, stage: dict) -> None:
         self._doc["stages"].insert(index, copy.deepcopy(stage))
+        self._sync()
         self.structure_changed.emit("insert", index, index)
         self.changed.emit("stages")
 
     def remove_stage(self, index: int) -> dict:
         stage = self._doc["stages"].pop(index)
+        self._sync()
         self.structure_changed.emit("remove", index, min(index, len(self._doc["stages"]) - 1))
         self.changed.emit("stages")
         return stage
@@ -137,14 +219,13 @@ class ProjectModel:
     def move_stage(self, index: int, new_index: int) -> None:
         stages = self._doc["stages"]
         stages.insert(new_index, stages.pop(index))
+        self._sync()
         self.structure_changed.emit("move", index, new_index)
         self.changed.emit("stages")
 
     def replace(self, doc: dict) -> None:
-        """Swap in another document (open, new, revert)."""
-        self._doc = copy.deepcopy(doc)
-        self.structure_changed.emit("reset", 0, 0)
-        self.changed.emit("")
+        """Swap in another project (open, new, revert), showing its base."""
+        self.replace_project(doc)
 
 
 def _common_prefix(paths: list[str]) -> str:

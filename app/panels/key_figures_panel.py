@@ -11,6 +11,7 @@ from PySide6.QtWidgets import QFrame, QLabel, QSizePolicy, QVBoxLayout, QWidget
 
 from app.widgets.plain_text import plain_label, plain_tip
 from app.presentation import balance_tables as tables
+from app.presentation.figures import shown
 from app.widgets.tile_flow import TileFlowLayout
 
 WARNINGS_KEY = "warnings"  #: the tile that counts problems and warnings
@@ -122,8 +123,8 @@ class KeyFiguresPanel(QWidget):
         figures = tables.key_figures(ed.result) if ed.result is not None else []
         self.figures = {k.key: k for k in figures}
         stale = ed.result is None or (ed.stale and not ed.solver.busy)
-        keys = [k.key for k in figures] if figures else [f.id for f in tables.KEY_FIGURES
-                                                         if isinstance(f.key, str)]
+        window_figures = shown(tables.KEY_FIGURES, "window")  # the table also holds the report's first page
+        keys = [k.key for k in figures] if figures else [f.id for f in window_figures if isinstance(f.key, str)]
         if keys + [WARNINGS_KEY] != list(self.tiles):
             self._rebuild(keys + [WARNINGS_KEY])
         system = ed.prefs.system
@@ -132,7 +133,7 @@ class KeyFiguresPanel(QWidget):
             tip = k.figure.note if value != _MISSING else self._why_missing(k)
             self.tiles[k.key].show_figure(k.label, value, f"{tip}\nClick for the detail.", stale=stale)
         if not figures:
-            for fig in tables.KEY_FIGURES:
+            for fig in window_figures:
                 if fig.id in self.tiles:
                     self.tiles[fig.id].show_figure(fig.label, _MISSING, "No results yet.", stale=True)
         self._show_warnings()

@@ -256,7 +256,8 @@ class Figure:
         if self.style == "scientific":
             return f"{value:.{u.decimals}e}"
         if self.joiner:
-            return self.joiner.join(f"{u.to_display(v * self.to_si):.{u.decimals}f}" for v in value)
+            return self.joiner.join("–" if v is None else f"{u.to_display(v * self.to_si):.{u.decimals}f}"
+                                    for v in value)
         shown = u.to_display(value * self.to_si)
         plain = (look.quantity or self.quantity) is None or not grouping
         text = f"{shown:.{u.decimals}f}" if plain else f"{shown:,.{u.decimals}f}".replace(",", " ")

@@ -14,7 +14,7 @@ shown as a plain number (the window groups its thousands). No Qt.
 """
 from __future__ import annotations
 
-__all__ = ["YEAR_BINS", "YEAR_TOTALS", "ONLY_WITH", "totals_for"]
+__all__ = ["YEAR_BINS", "YEAR_TOTALS", "ONLY_WITH", "totals_for", "design_note"]
 
 from collections.abc import Mapping
 from dataclasses import replace
@@ -23,7 +23,7 @@ from types import MappingProxyType
 from app.presentation.figures import Figure, Look, read_path, shown
 
 _KWH = 3.6e6  # J per kWh
-_WINDOW, _TEXT = {"window"}, {"text"}
+_WINDOW, _TEXT, _WINDOW_TEXT = {"window"}, {"text"}, {"window", "text"}
 #: money in the window: thousands grouped, whole units, no unit text (the currency is the user's)
 _MONEY = {out: Look(quantity="money", decimals=0, symbol="") for out in ("window", "pdf")}
 
@@ -49,6 +49,23 @@ YEAR_BINS: tuple[Figure, ...] = (
            looks={"text": Look(label="water", decimals=1, width=12)}),
     Figure("recoverable_heat_kWh", "Recoverable heat", "energy", to_si=_KWH, where=_TEXT,
            looks={"text": Look(label="recov.", unit="MWh", width=14)}),
+    # issue 15: what reaches the dryer, and each cooler as rated (window and text; the report
+    # branch decides whether its PDF and CSV show them)
+    Figure("dryer_inlet_temperature_K", "To dryer", "temperature", where=_WINDOW_TEXT,
+           note="Temperature of the delivered air, which reaches the dryer",
+           looks={"text": Look(label="dryer", decimals=1, width=12)}),
+    Figure("pressure_dew_point_K", "Pressure dew pt", "temperature", where=_WINDOW_TEXT,
+           note="Pressure dew point of the air reaching the dryer (frost point below 0 °C)",
+           looks={"text": Look(label="pdp", decimals=1, width=10)}),
+    Figure("cooler_outlet_temperatures_K", "Cooler outlets", "temperature", joiner=" / ", where=_WINDOW_TEXT,
+           align="right", note="Air outlet of each cooler, first stage first (– where a stage has none)",
+           looks={"text": Look(label="cooler outlets", decimals=1, width=26)}),
+    Figure("coolant_outlet_temperatures_K", "Coolant outlets", "temperature", joiner=" / ", where=_WINDOW,
+           note="Coolant outlet of each cooler with a coolant side"),
+    Figure("meets_limits", "Meets limits", style="yes_no", where=_WINDOW_TEXT, align="right",
+           note="No: a rated cooler leaves warmer than at its design condition, or the air reaches "
+                "the dryer above the stated limit",
+           looks={"text": Look(label="ok", width=6)}),
     # issue 17: the PDF report's year table (a column whose every value is zero is left out there)
     replace(_DUTY, where=frozenset({"pdf"})),
     replace(_CONDENSATE, where=frozenset({"pdf"})),
@@ -74,6 +91,8 @@ YEAR_TOTALS: tuple[Figure, ...] = (
     Figure("worst_discharge_temperature.temperature_K", "Worst discharge temperature", "temperature", decimals=1,
            bin_key="worst_discharge_temperature.bin"),
     Figure("worst_cooler_duty.duty_W", "Largest cooler duty", "heat_flow", bin_key="worst_cooler_duty.bin"),
+    Figure("totals.hours_missing_limits", "Hours missing a limit", "hours", where=_WINDOW_TEXT,
+           note="hours of the bins where a rated cooler or the dryer inlet misses its limit"),
     replace(_HOURS, where=frozenset(_WINDOW)),
     Figure("totals.mean_driver_power_W", "Mean driver power", "power", where=_WINDOW,
            note="energy over the operating hours"),
@@ -90,6 +109,7 @@ ONLY_WITH: Mapping[str, str] = MappingProxyType({
     "totals.recoverable_heat_kWh": "bins[*].recoverable_heat_W",  # None in every bin without heat recovery
     "totals.recovered_value": "totals.recovered_value",
     "totals.cost": "totals.cost",
+    "totals.hours_missing_limits": "totals.limits_stated",
 })
 
 
@@ -106,3 +126,23 @@ def totals_for(year: dict, output: str) -> list[Figure]:
     (False, False, True)
     """
     return [f for f in shown(YEAR_TOTALS, output) if f.id not in ONLY_WITH or read_path(year, ONLY_WITH[f.id])]
+
+
+def design_note(year: dict, system: str = "SI") -> str:
+    """One sentence on how the year treated its coolers (empty when each bin sized them afresh).
+
+    Examples
+    --------
+    >>> design_note({"cooler_design": {"condition": "hottest_bin", "bin": "July", "ua_margin": 0.1,
+    ...              "coolers": [{"stage": 1, "rated_ua_W_K": 1500.0}, None]}})
+    'Coolers designed once at the hottest bin (July), rated every bin with UA + 10 %: 1.500 kW/K (stage 1).'
+    """
+    from app.presentation import units
+    design = year.get("cooler_design")
+    if not design:
+        return ""
+    where = "the site as stated" if design["condition"] == "site" else f"the hottest bin ({design['bin']})"
+    uas = ", ".join(f"{units.format_value(c['rated_ua_W_K'], 'conductance', system, with_unit=True)} "
+                    f"(stage {c['stage']})" for c in design["coolers"] if c)
+    return (f"Coolers designed once at {where}, rated every bin with UA + {100 * design['ua_margin']:.0f} %"
+            + (f": {uas}." if uas else "."))

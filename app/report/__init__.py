@@ -23,7 +23,8 @@ from app.report.sections import ReportInfo
 
 def export_report(doc: dict, result, pdf_path, csv_path=None, system: str = "SI", source_name: str = "",
                   study_rows=None, *, date: str | None = None, paper: str | None = None,
-                  prepared_by: str | None = None, year=None) -> int:
+                  prepared_by: str | None = None, year=None, project: dict | None = None,
+                  shown_case: str = "") -> int:
     """Write the PDF report (and optionally the CSV) of a solved project.
 
     Parameters
@@ -48,6 +49,12 @@ def export_report(doc: dict, result, pdf_path, csv_path=None, system: str = "SI"
         ``"A4"`` or ``"Letter"`` (default: A4 for SI, Letter for US units).
     prepared_by : str, optional
         Who made the report, printed on its first page (default: the user account's name).
+    project : dict, optional
+        The whole project when ``doc`` is one of its cases (the window's shown case); by default
+        ``doc`` itself. When it has cases besides its base, they are solved and compared in a
+        section of their own (:func:`thermo.cases.compare_cases`).
+    shown_case : str, optional
+        Name of the case ``doc`` is (default: the project's base).
     year : dict or YearResult, optional
         The project's year at the site; computed here (:func:`thermo.year.run_year`, about a
         second) when the project has a ``year`` section and none is given.
@@ -70,8 +77,9 @@ def export_report(doc: dict, result, pdf_path, csv_path=None, system: str = "SI"
                       prepared_by=account_name() if prepared_by is None else prepared_by,
                       coolprop=coolprop_version())
     year, year_problem = _year_of(doc, year)
+    cases, shown_case = _cases_of(project if project is not None else doc, shown_case)
     n = write_pdf(doc, result, pdf_path, info, study_rows=study_rows, paper=paper, year=year,
-                  year_problem=year_problem)
+                  year_problem=year_problem, cases=cases, shown_case=shown_case, uncertainty=_uncertainty_of(doc))
     if csv_path is not None:
         write_csv(result, csv_path, system)
     return n
@@ -83,6 +91,29 @@ def account_name() -> str:
         return getpass.getuser()
     except (KeyError, OSError, ImportError):  # no such entry in the password database, no USER variable
         return ""
+
+
+def _uncertainty_of(doc: dict) -> dict | None:
+    """A field check's results with their first-order uncertainty and verdicts (None without a
+    ``field_check`` section, or when it cannot be evaluated). The Monte Carlo check is left to
+    ``stagewright uncertainty`` and the window: the report stays quick to write."""
+    from thermo import StagewrightError
+    from thermo.uncertainty.field_check import field_check_uncertainty, has_field_check
+    if not has_field_check(doc):
+        return None
+    try:
+        return field_check_uncertainty(doc, monte_carlo=False).to_dict()
+    except StagewrightError:
+        return None
+
+
+def _cases_of(project: dict, shown_case: str) -> tuple[list | None, str]:
+    """The project's cases solved side by side (None when it has no case besides its base)."""
+    if not project.get("cases"):
+        return None, shown_case
+    from thermo.cases import compare_cases
+    from thermo.project.cases import base_name
+    return compare_cases(project), shown_case or base_name(project)
 
 
 def _year_of(doc: dict, year) -> tuple[dict | None, str]:

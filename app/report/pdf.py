@@ -17,6 +17,8 @@ from matplotlib.backends.backend_pdf import PdfPages
 
 from app.report import sections
 from app.report.atomic import atomic_path
+from app.report.cases_section import cases_section
+from app.report.field_uncertainty_section import field_uncertainty_section
 from app.report.layout import Pager
 from app.report.recovery_section import heat_recovery
 from app.report.summary import summary_page
@@ -33,17 +35,22 @@ def program_version() -> str:
 
 
 def build_pages(doc: dict, result: dict, info: sections.ReportInfo, study_rows=None, paper: str | None = None,
-                year: dict | None = None, year_problem: str = ""):
+                year: dict | None = None, year_problem: str = "", cases: list | None = None, shown_case: str = "",
+                uncertainty: dict | None = None):
     """Lay the report out; returns the page figures (nothing written yet)."""
-    return lay_out(doc, result, info, study_rows, paper, year, year_problem).finish()
+    return lay_out(doc, result, info, study_rows, paper, year, year_problem, cases, shown_case, uncertainty).finish()
 
 
 def lay_out(doc: dict, result: dict, info: sections.ReportInfo, study_rows=None, paper: str | None = None,
-            year: dict | None = None, year_problem: str = "") -> Pager:
+            year: dict | None = None, year_problem: str = "", cases: list | None = None,
+            shown_case: str = "", uncertainty: dict | None = None) -> Pager:
     """Print every section onto a :class:`Pager` (its pages not finished: no footers yet).
 
     ``year`` is the project's year at the site (``YearResult.to_dict()``) when it has one, and
-    ``year_problem`` why it could not be computed; ``study_rows`` a staging study's rows.
+    ``year_problem`` why it could not be computed; ``study_rows`` a staging study's rows;
+    ``cases`` the project's cases compared (:class:`thermo.cases.CaseOutcome`, the first the
+    reference) and ``shown_case`` the case the rest of the report describes; ``uncertainty`` a
+    field check's ``FieldCheckUncertainty.to_dict()``.
     """
     system = info.system
     paper = paper or ("Letter" if system == "US" else "A4")
@@ -58,6 +65,8 @@ def lay_out(doc: dict, result: dict, info: sections.ReportInfo, study_rows=None,
     sections.components_table(p, result, system)
     sections.exchangers_table(p, result, system)
     sections.totals_table(p, result, system)
+    if uncertainty is not None:  # a field check: its results with their uncertainty and verdicts
+        field_uncertainty_section(p, uncertainty, system)
     heat_recovery(p, result, system)
     sections.charts(p, doc, result, system)
     limits = [st.get("max_discharge_temperature_K") for st in doc.get("stages", [])]
@@ -65,14 +74,17 @@ def lay_out(doc: dict, result: dict, info: sections.ReportInfo, study_rows=None,
     limit = min(limits) if limits else None
     year_at_site(p, year, system, limit_K=limit, problem=year_problem)
     sections.staging(p, study_rows, system, limit_K=limit)
+    if cases:
+        cases_section(p, cases, cases[0].name, shown_case or cases[0].name, system)
     sections.cautions(p)
     return p
 
 
 def write_pdf(doc: dict, result: dict, path, info: sections.ReportInfo, study_rows=None, paper: str | None = None,
-              year: dict | None = None, year_problem: str = "") -> int:
+              year: dict | None = None, year_problem: str = "", cases: list | None = None,
+              shown_case: str = "", uncertainty: dict | None = None) -> int:
     """Write the PDF report to ``path`` atomically; returns the number of pages (see :func:`lay_out`)."""
-    pages = build_pages(doc, result, info, study_rows, paper, year, year_problem)
+    pages = build_pages(doc, result, info, study_rows, paper, year, year_problem, cases, shown_case, uncertainty)
     meta = {"Title": doc.get("title") or "Stagewright report", "Creator": f"Stagewright {info.version}",
             "Subject": "Compression-train sizing report"}
     try:

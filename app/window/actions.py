@@ -34,6 +34,9 @@ ACTIONS = [
     ActionSpec("file.revert", "&Revert to Saved", "files.revert", "", "", "Discard changes since the last save"),
     ActionSpec("file.export", "&Export Report…", "exports.export_report_dialog", "Ctrl+E", "",
                "Write the PDF report (and the CSV balance sheet) of the current results"),
+    ActionSpec("file.keep_results", "&Keep Results in File", "files.set_keep_results", "", "",
+               "Save the shown results with the project; on opening they show at once and are checked by a "
+               "new solve", True),
     ActionSpec("file.quit", "&Quit", "window.close", "Quit"),
     ActionSpec("train.add_stage", "Add stage", "train.add_stage", "Ctrl+Shift+A", "stage_add",
                "Add a stage at the end of the train (a copy of the last one)"),
@@ -71,8 +74,8 @@ ACTIONS = [
 #: menu title -> action ids; "-" is a separator, "@recent" the recent-files submenu,
 #: "@undo" / "@redo" the undo stack's actions, "@panels" the panel toggles
 MENUS = {
-    "&File": ["file.new", "file.open", "@recent", "-", "file.save", "file.save_as", "file.revert", "-",
-              "file.export", "-", "file.quit"],
+    "&File": ["file.new", "file.open", "@recent", "-", "file.save", "file.save_as", "file.revert",
+              "file.keep_results", "-", "file.export", "-", "file.quit"],
     "&Edit": ["@undo", "@redo"],
     "&Train": ["train.add_stage", "train.insert_stage", "train.duplicate_stage", "train.remove_stage", "-",
                "train.move_up", "train.move_down", "-", "train.toggle_cooler", "-", "train.solve", "-",

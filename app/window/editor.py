@@ -17,7 +17,7 @@ from PySide6.QtGui import QUndoStack
 from thermo.project.validation import barometric_pressure
 from thermo.errors import Problem
 
-from app.window.commands import InsertStage, MoveStage, RemoveStage, SetValues
+from app.window.commands import InsertStage, MoveStage, RemoveStage, ReplaceProject, SetValues
 from app.document.display_prefs import DisplayPrefs
 from app.document.paths import ABSENT, is_related, stage_path
 from app.document.model import ProjectModel
@@ -37,12 +37,16 @@ class Editor(QObject):
     solve_started()
     focus_requested(str)
         The messages area asks the panels to show the field at this path.
+    snapshot_checked(str)
+        The results kept with the file were shown at once and the project has been solved
+        again: a sentence on whether any figure moved (:func:`thermo.cases.snapshot.change_summary`).
     """
 
     problems_changed = Signal()
     result_changed = Signal()
     solve_started = Signal()
     focus_requested = Signal(str)
+    snapshot_checked = Signal(str)
 
     def __init__(self, model: ProjectModel, prefs: DisplayPrefs, parent=None, debounce_ms: int = 150):
         super().__init__(parent)
@@ -58,6 +62,8 @@ class Editor(QObject):
         self.failure_detail: dict | None = None  # its template and values (thermo.errors.message_detail)
         self.solve_seconds: float | None = None
         self.solved_jobs = 0
+        self.from_snapshot = False  # the result shown is the one kept with the file, not yet re-solved
+        self._snapshot_check: tuple[dict, str] | None = None  # (snapshot, case) to compare the next solve with
         self.solver.finished.connect(self._on_solved)
         self.solver.failed.connect(self._on_failed)
         self.solver.started.connect(lambda _job: self.solve_started.emit())
@@ -101,6 +107,10 @@ class Editor(QObject):
         direction = "up" if new_index < index else "down"
         self.undo_stack.push(MoveStage(self.model, index, new_index, f"Move stage {index + 1} {direction}"))
 
+    def replace_project(self, doc: dict, show: str | None, text: str) -> None:
+        """A case operation (the whole project before and after) as one undo step, showing case ``show``."""
+        self.undo_stack.push(ReplaceProject(self.model, doc, show, text))
+
     def set_entry_error(self, path: str, message: str | None) -> None:
         """Record (or clear, with None) text in a field that could not be read as a value."""
         if message is None:
@@ -117,6 +127,7 @@ class Editor(QObject):
 
     # ---- solving -------------------------------------------------------------------------
     def _on_model_changed(self, path: str) -> None:
+        self.from_snapshot, self._snapshot_check = False, None  # an edit: the kept results no longer apply
         if path == "":
             self.entry_errors.clear()
         else:
@@ -141,17 +152,39 @@ class Editor(QObject):
             self._mark_stale()
             return
         self.solver.request(self.model.snapshot(), immediate=immediate)
-        self._mark_stale()
+        if not self.from_snapshot:  # the kept results stand, unmarked, until the solve checks them
+            self._mark_stale()
 
     def _mark_stale(self) -> None:
         if not self.stale:
             self.stale = True
             self.result_changed.emit()
 
+    def show_snapshot(self, snapshot: dict | None) -> bool:
+        """Show the results kept with the file for the case being edited at once (True when there
+        are any); the next solve is compared with them (:attr:`snapshot_checked`)."""
+        case = self.model.active_case
+        kept = ((snapshot or {}).get("results") or {}).get(case)
+        if not isinstance(kept, dict) or not kept.get("stages"):
+            self._snapshot_check = None
+            return False
+        self.result, self.stale, self.failure, self.from_snapshot = kept, False, None, True
+        self._snapshot_check = (snapshot, case)
+        self.result_changed.emit()
+        return True
+
     def _on_solved(self, job_id: int, result: dict, seconds: float) -> None:
         self.result, self.stale, self.failure, self.solve_seconds = result, False, None, seconds
         self.solved_jobs += 1
+        self.from_snapshot = False
         self.result_changed.emit()
+        if self._snapshot_check is not None:
+            snapshot, case = self._snapshot_check
+            self._snapshot_check = None
+            if case == self.model.active_case:
+                from thermo.cases.snapshot import change_summary, compare_snapshot
+                changes = compare_snapshot({"results": {case: snapshot["results"][case]}}, {case: result})
+                self.snapshot_checked.emit(change_summary(snapshot, changes))
 
     def _on_failed(self, job_id: int, message: str, field: str) -> None:
         self.stale, self.failure, self.solve_seconds = True, (message, field), None

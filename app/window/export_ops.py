@@ -31,10 +31,12 @@ class ExportJob(QObject):
     done = Signal(str, str)
 
     def __init__(self, doc: dict, result: dict, pdf: Path, csv: Path | None, system: str, source: str,
-                 parent=None, study_rows: list[dict] | None = None) -> None:
+                 parent=None, study_rows: list[dict] | None = None, project: dict | None = None,
+                 shown_case: str = "") -> None:
         super().__init__(parent)
         self.args = (doc, result, pdf, csv, system, source)
         self.study_rows = study_rows  #: a staging study run in the window for this project, to print
+        self.project, self.shown_case = project, shown_case  #: the whole project (its cases) and the case shown
         self.thread = threading.Thread(target=self._run, name="stagewright-export", daemon=True)
 
     def start(self) -> None:
@@ -47,7 +49,7 @@ class ExportJob(QObject):
         doc, result, pdf, csv, system, source = self.args
         try:
             pages = export_report(doc, result, pdf, csv, system=system, source_name=source,
-                                  study_rows=self.study_rows)
+                                  study_rows=self.study_rows, project=self.project, shown_case=self.shown_case)
         except (OSError, StagewrightError) as exc:
             self.done.emit("", f"{pdf}: {getattr(exc, 'strerror', None) or exc}")
             return
@@ -115,7 +117,8 @@ class ExportController(QObject):
         remember_folder(self.files.settings, EXPORT_FOLDER_KEY, pdf)
         source = path.name if path else ""
         job = ExportJob(ed.model.snapshot(), copy.deepcopy(ed.result), pdf, csv, ed.prefs.system, source, self,
-                        study_rows=self._study_rows())
+                        study_rows=self._study_rows(), project=ed.model.project_snapshot(),
+                        shown_case=ed.model.active_case)
         job.done.connect(self._on_export_done)
         self.job = job
         self.status.showMessage(f"Exporting {pdf.name}…")

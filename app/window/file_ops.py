@@ -63,12 +63,15 @@ class FileController(QObject):
         The user chose to drop the unsaved changes.
     opened(Path)
         A project file was opened by the user (not a revert): its recovered work may be offered.
+    keep_results_changed(bool)
+        Whether saving writes the shown results into the file changed.
     """
 
     state_changed = Signal()
     saved = Signal()
     discarded = Signal()
     opened = Signal(object)
+    keep_results_changed = Signal(bool)
 
     def __init__(self, editor, settings, prompts, status: QStatusBar, path=None, parent: QObject | None = None):
         super().__init__(parent)
@@ -80,6 +83,8 @@ class FileController(QObject):
         self.dirty_without_undo = False  # e.g. a document restored from recovery
         self.untitled_name = "Untitled"
         self.recent_menu: QMenu | None = None
+        #: write the shown case's results into the file on save (on when the opened file kept results)
+        self.keep_results = False
 
     # ---- state ---------------------------------------------------------------------------
     def is_modified(self) -> bool:
@@ -108,7 +113,20 @@ class FileController(QObject):
         self.editor.model.replace(doc)
         self.editor.undo_stack.setClean()
         self.state_changed.emit()
+        self.show_kept_results(doc)
         self.editor.solve_now(immediate=True)
+
+    def set_keep_results(self, on: bool) -> None:
+        """File ▸ Keep Results in File: the next save writes (or drops) the results snapshot."""
+        if on != self.keep_results:
+            self.keep_results = on
+            self.keep_results_changed.emit(on)
+
+    def show_kept_results(self, doc: dict) -> None:
+        """Show the results the file kept at once (the solve that follows checks them)."""
+        self.set_keep_results(bool(doc.get("snapshot")))
+        if self.editor.show_snapshot(doc.get("snapshot")):
+            self.status.showMessage("Showing the results saved with the file; solving again to check them…", 6000)
 
     def maybe_save(self) -> bool:
         """True when it is fine to drop the current document."""
@@ -174,14 +192,14 @@ class FileController(QObject):
 
     def save_to(self, path: Path) -> bool:
         """Write the project to ``path`` (asking first if it has input problems); True when written."""
-        found = self.editor.model.problems()
+        found = self.editor.model.project_problems()
         if found and not self.prompts.confirm(
                 "Save a project with problems?",
                 f"The project has {len(found)} input problem(s) (see Messages). It will be saved as it "
                 "is, but it cannot be opened again until they are fixed. Save anyway?"):
             return False
         try:
-            project.save(self.editor.model.snapshot(), path)
+            project.save(self._document_to_save(), path)
         except (OSError, StagewrightError) as exc:
             self.prompts.show_error("Cannot save project", f"{path}: {exc}")
             return False
@@ -194,6 +212,17 @@ class FileController(QObject):
         self.status.showMessage(f"Saved {self.path.name}", 4000)
         self.saved.emit()
         return True
+
+    def _document_to_save(self) -> dict:
+        """The whole project; with the shown case's results as its snapshot when the project keeps
+        results (:attr:`keep_results`) and they are up to date, else without a snapshot."""
+        doc = self.editor.model.project_snapshot()
+        doc.pop("snapshot", None)
+        ed = self.editor
+        if self.keep_results and ed.result is not None and not ed.stale:
+            from thermo.cases import take_snapshot
+            doc["snapshot"] = take_snapshot({ed.model.active_case: ed.result})
+        return doc
 
     def revert(self) -> None:
         if self.path is None or not self.is_modified():

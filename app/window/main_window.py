@@ -5,6 +5,7 @@ from __future__ import annotations
 
 __all__ = ["MainWindow", "STATE_VERSION", "dropped_project"]
 
+import threading
 from pathlib import Path
 
 from PySide6.QtCore import QSettings, Qt, QTimer
@@ -14,6 +15,7 @@ from PySide6.QtWidgets import (QDockWidget, QFrame, QLabel, QMainWindow, QMessag
 
 import thermo
 from thermo.coolprop_adapter import eos_reference
+from thermo.exchanger.coolant import warm_up as warm_up_coolants
 
 from app.presentation import units
 from app.window.safe_settings import byte_array, open_safely, text_value
@@ -25,6 +27,7 @@ from app.window.export_ops import ExportController
 from app.window.file_ops import FileController
 from app.window.prompts import Prompts
 from app.window.recovery_ops import AUTOSAVE_MS, RecoveryController
+from app.cases.panel import CasesPanel
 from app.study.ops import StudyLink
 from app.window.help_dialogs import CautionsDialog, about_text
 from app.widgets.icons import icon
@@ -36,6 +39,7 @@ from app.panels.messages_panel import MessagesPanel
 from app.panels.site_panel import SitePanel
 from app.study.panel import StudyPanel
 from app.year.panel import YearPanel
+from app.field_check.panel import FieldCheckPanel
 from app.panels.train_panel import TrainPanel
 
 STATE_VERSION = 3  #: bump when panels are added or renamed, so old saved layouts are ignored
@@ -99,6 +103,8 @@ class MainWindow(QMainWindow):
         self.add_panel("balance", BalancePanel(self.editor), Qt.BottomDockWidgetArea)
         self.add_panel("study", StudyPanel(self.editor), Qt.BottomDockWidgetArea, tabify_with="balance")
         self.add_panel("year", YearPanel(self.editor), Qt.BottomDockWidgetArea, tabify_with="balance")
+        self.add_panel("field_check", FieldCheckPanel(self.editor), Qt.BottomDockWidgetArea, tabify_with="balance")
+        self.add_panel("cases", CasesPanel(self.editor), Qt.BottomDockWidgetArea, tabify_with="balance")
         self.docks["balance"].raise_()
         # below the key figures, inputs and messages run the full height on the left; the
         # balance sheet spans the charts and the train panel, where its columns have the width
@@ -129,6 +135,9 @@ class MainWindow(QMainWindow):
         self._on_prefs()
         self.recovery = RecoveryController(self.editor, self.files, self.prompts, self.statusBar(),
                                            autosave_ms, self)
+        self.files.keep_results_changed.connect(self.action_map["file.keep_results"].setChecked)
+        self.files.show_kept_results(self.model.project_snapshot())
+        self.editor.snapshot_checked.connect(lambda text: self.statusBar().showMessage(text, 12000))
         self.editor.solve_now(immediate=True)
 
     def _on_undo_changed(self, *_args) -> None:
@@ -403,6 +412,12 @@ class MainWindow(QMainWindow):
         if self.editor.solved_jobs or self.editor.failure or not self.editor.solver.busy:
             self.editor.result_changed.disconnect(self._load_charts_soon)
             QTimer.singleShot(10, self.charts.ensure_canvases)
+            # the first solve with a coolant would wait for scipy and the coolant tables: load them
+            # on another thread once the charts are up (not competing with their import for the GIL)
+            QTimer.singleShot(WARM_UP_DELAY_MS, self, self._start_warm_up)
+
+    def _start_warm_up(self) -> None:
+        threading.Thread(target=warm_up_coolants, name="stagewright-warm-up", daemon=True).start()
 
     def _restore_saved_layout(self) -> None:
         geometry = byte_array(self.settings, "window/geometry")
@@ -427,6 +442,8 @@ class MainWindow(QMainWindow):
         self.exports.wait()
         self.panels["study"].shutdown()
         self.panels["year"].runner.shutdown()
+        self.panels["field_check"].shutdown()
+        self.panels["cases"].shutdown()
         self.recovery.shutdown()  # a clean exit: the work is saved or was let go
         self.editor.shutdown()
         self.settings.setValue("window/geometry", self.saveGeometry())
@@ -435,6 +452,9 @@ class MainWindow(QMainWindow):
         self.settings.setValue("display/gauge", self.prefs.gauge)
         self.settings.sync()
         event.accept()
+
+
+WARM_UP_DELAY_MS = 2000  #: after the first answer: the coolant back ends load on a background thread
 
 
 def dropped_project(mime) -> str | None:

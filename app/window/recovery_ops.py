@@ -94,7 +94,7 @@ class RecoveryController(QObject):
         if self._timer is not None:
             self._timer.stop()
         try:
-            self.slot.write(self.editor.model.snapshot(), self.files.path)
+            self.slot.write(self.editor.model.project_snapshot(), self.files.path)
         except Exception as exc:  # SaveError, or a bug: tell the user, never crash
             self.status.showMessage(f"Autosave failed: {exc}", 8000)
             return False

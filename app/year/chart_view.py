@@ -55,7 +55,7 @@ class YearChartView(QStackedWidget):
         from app.charts.year_chart import draw_year_chart, side_by_side_for
         year, system = self._shown
         self.side_by_side = side_by_side_for(*self.figure.get_size_inches())
-        draw_year_chart(self.figure, year, system, side_by_side=self.side_by_side)
+        draw_year_chart(self.figure, year, system, side_by_side=self.side_by_side, dryer=True)
         self.canvas.draw_idle()
 
     def _on_resized(self) -> None:

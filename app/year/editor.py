@@ -31,6 +31,20 @@ SCALAR_FIELDS = [
     ("year.load", "Load", "fraction", "", "Share of the project's flow for entries without a load."),
     ("year.energy_price_per_kWh", "Energy price", "ratio", "per kWh", "Price of electric energy."),
     ("year.water_price_per_m3", "Water price", "ratio", "per m³", "Price of once-through cooling water."),
+    ("year.coolers.ua_margin", "UA margin", "fraction", "",
+     "Fouling margin on UA when the coolers are designed once: every bin is rated with the design UA "
+     "plus this share (default 10 %, common practice, no source)."),
+    ("year.coolers.max_dryer_inlet_temperature_K", "Dryer inlet max", "temperature", "",
+     "Highest temperature of the air reaching the dryer; warmer bins are flagged. Empty: no limit."),
+]
+#: (path, label, [(value, text)], tooltip) of the year's choices
+CHOICE_FIELDS = [
+    ("year.coolers.mode", "Coolers", [("size_every_bin", "Sized every bin"), ("design_once", "Designed once")],
+     "Sized every bin: each bin gets a perfect cooler for its entry. Designed once: each cooler with a "
+     "coolant side is sized at the design condition, then every bin is rated at that fixed UA and "
+     "coolant flow, so its outlet, duty and condensate move with the weather."),
+    ("year.coolers.design_condition", "Design at", [("site", "Site as stated"), ("hottest_bin", "Hottest bin")],
+     "Where the coolers are designed: the project's site as stated, or the year's hottest bin."),
 ]
 KIND_CHOICES = [("monthly", "Monthly means"), ("bins", "Bins of hours")]
 PLACEHOLDER_NOTE = ("Placeholders: every month holds the site's ambient temperature and humidity. "
@@ -85,6 +99,11 @@ class YearEditor(QWidget):
         self.kind.setToolTip("Monthly means: exactly 12 months. Bins of hours: any number of ambient "
                              "states, each with its hours. Switching keeps the year as it is solved.")
         self.kind.activated.connect(lambda i: self.set_kind(KIND_CHOICES[i][0]))
+        self.import_button = QPushButton("Import CSV…")
+        self.import_button.setToolTip("Read an hourly or logged profile from a CSV file (dry-bulb temperature, "
+                                      "relative humidity, dew or frost point; optional load, coolant "
+                                      "temperature, timestamps or hours), optionally binned.")
+        self.import_button.clicked.connect(self._ask_import)
         self.add_button = QPushButton("Add bin")
         self.remove_button = QPushButton("Remove bin")
         self.delete_button = QPushButton("Delete year")
@@ -92,7 +111,7 @@ class YearEditor(QWidget):
         self.add_button.clicked.connect(self.add_entry)
         self.remove_button.clicked.connect(self.remove_entry)
         self.delete_button.clicked.connect(self.delete_year)
-        for w in (self.kind, self.add_button, self.remove_button):
+        for w in (self.kind, self.import_button, self.add_button, self.remove_button):
             bar.addWidget(w)
         bar.addStretch(1)
         bar.addWidget(self.delete_button)
@@ -133,6 +152,19 @@ class YearEditor(QWidget):
             form.addRow(lab, cell)
             edit.editingFinished.connect(lambda p=path: self._commit_field(p))
             self.fields[path] = (edit, unit, quantity)
+        from thermo.year_design import DEFAULT_UA_MARGIN
+        self.fields["year.coolers.ua_margin"][0].setPlaceholderText(f"{100 * DEFAULT_UA_MARGIN:g}")  # the default
+        self.choices: dict[str, tuple[QComboBox, list]] = {}
+        for path, label, options, tip in CHOICE_FIELDS:
+            box = QComboBox()
+            for _v, text in options:
+                box.addItem(text)
+            box.setToolTip(tip)
+            box.activated.connect(lambda i, p=path, o=options: self.set_choice(p, o[i][0]))
+            lab = QLabel(label)
+            lab.setToolTip(tip)
+            form.addRow(lab, box)
+            self.choices[path] = (box, options)
         scroll = QScrollArea()  # the panel stays as short as the other bottom panels
         scroll.setWidget(form_box)
         scroll.setWidgetResizable(True)
@@ -177,6 +209,52 @@ class YearEditor(QWidget):
         if isinstance(value, str) and key != "label":
             return self._refuse(value)
         return self._push(cell_pairs(doc, row, key, value), undo_text(f"{entries_path(doc)}[{row}].{key}", doc))
+
+    def set_choice(self, path: str, value: str) -> bool:
+        """Set one of the year's choices (cooler mode, design condition); one undo step."""
+        return self._push([(path, value)], undo_text(path, self.editor.model.doc))
+
+    def import_csv(self, path, units_chosen: dict | None = None, bin_steps: tuple | None = None) -> bool:
+        """Replace the profile by the bins of a CSV file (one undo step); False, with the reason
+        shown, when the file cannot be read — then nothing changes.
+
+        Parameters
+        ----------
+        path : str or Path
+            The CSV file (:mod:`app.document.year_csv`).
+        units_chosen : dict, optional
+            Units of columns whose header names none, e.g. ``{"temperature": "°F", "fraction": "%"}``.
+        bin_steps : tuple, optional
+            ``(kelvin, humidity fraction)``: bin the rows (:func:`thermo.year_profile.bin_profile`).
+        """
+        from pathlib import Path
+        from thermo.errors import InputError
+        from thermo.year_profile import bin_profile
+        from app.document.year_csv import read_profile_csv
+        try:
+            read = read_profile_csv(path, units_chosen)
+        except (InputError, OSError) as exc:
+            return self._refuse(f"Not imported: {exc}")
+        rows = read.bins
+        if bin_steps is not None:
+            system = self.editor.prefs.system
+            rows = bin_profile(rows, *bin_steps, label=lambda b: _bin_label(b, system))
+        if len(rows) > 8784:
+            return self._refuse(f"Not imported: {len(rows)} rows; a year holds at most 8784 bins.")
+        doc = self.editor.model.doc
+        pairs = [("year", {**(doc.get("year") or {}), "profile": {"kind": "bins", "bins": rows}})]
+        pairs[0][1].pop("operating_hours_per_year", None)
+        what = f"{read.rows} rows" + (f" in {len(rows)} bins" if bin_steps is not None else "")
+        done = self._push(pairs, f"Import the profile {Path(path).name}")
+        if done:
+            self._say(f"Imported {what} from {Path(path).name}; " + "; ".join(read.notes))
+        return done
+
+    def _ask_import(self) -> None:  # pragma: no cover - dialogs; tests call import_csv
+        from app.year.import_dialog import ask_import
+        answer = ask_import(self)
+        if answer is not None:
+            self.import_csv(*answer)
 
     def set_field(self, path: str, text: str) -> bool:
         quantity = self.fields[path][2]
@@ -271,6 +349,11 @@ class YearEditor(QWidget):
             with signals_blocked(edit):
                 edit.setText("" if value is None or value is ABSENT else format_entry(u.to_display(value), u.decimals))
                 edit.setModified(False)
+        for path, (box, options) in self.choices.items():
+            value = get_in(doc, path, None)
+            values = [v for v, _ in options]
+            with signals_blocked(box):
+                box.setCurrentIndex(values.index(value) if value in values else 0)
         self.note.setVisible(monthly and _is_placeholder(doc))
         self._update_buttons()
 
@@ -303,6 +386,12 @@ class YearEditor(QWidget):
         for b in (self.add_button, self.remove_button):
             b.setVisible(bins)
         self.remove_button.setEnabled(bins and self.table.rowCount() > 1)
+
+
+def _bin_label(b: dict, system: str) -> str:
+    """A binned row named by its mean in display units, e.g. ``"-7.5 °C 84 %"``."""
+    t = units.unit("temperature", system)
+    return f"{t.to_display(b['temperature_K']):.1f} {t.symbol} {100 * b['relative_humidity']:.0f} %"
 
 
 def _soft(item: QTableWidgetItem, tip: str) -> None:

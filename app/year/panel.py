@@ -107,8 +107,14 @@ class YearPanel(QWidget):
 
     def _on_finished(self, _job: int, result: dict, _seconds: float) -> None:
         self.result, self._result_doc = result, self._running_doc
+        note = year_tables.design_note(result, self.editor.prefs.system)
+        frozen = result.get("freezing_bins") or []
+        if frozen:
+            names = ", ".join(frozen[:6]) + (f" and {len(frozen) - 6} more" if len(frozen) > 6 else "")
+            note = (f"Caution: cooler condensate would freeze (or nearly) in {names}: freeze protection or a "
+                    f"minimum cooler outlet temperature is needed. " + note).strip()
         # edits made while the year ran are not in it: say so, rather than "solved" (issue 22 item 5)
-        self._idle(_STALE if self.is_stale else "Year solved.")
+        self._idle(_STALE if self.is_stale else "Year solved." + (f" {note}" if note else ""))
         self.tabs.setCurrentIndex(RESULTS_TAB)  # the totals first; the chart is one tab on
         self.refresh()
 

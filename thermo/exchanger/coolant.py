@@ -24,7 +24,7 @@ Properties come only through :mod:`thermo.coolprop_adapter`.
 """
 from __future__ import annotations
 
-__all__ = ["COOLANTS", "CoolantSide", "make_coolant", "coolant_side", "COOLANT_PRESSURE_PA"]
+__all__ = ["COOLANTS", "CoolantSide", "make_coolant", "coolant_side", "COOLANT_PRESSURE_PA", "warm_up"]
 
 import math
 from dataclasses import dataclass
@@ -79,10 +79,18 @@ class _AmbientAir:
     def __init__(self, pressure: float, humidity_ratio: float):
         self.label = "ambient air"
         self.P, self.W = pressure, humidity_ratio
+        self._memo: dict = {}
         self.t_min, self.t_max = 223.15, 573.15
 
     def _prop(self, name: str, T: float) -> float:
-        return cpa.humid_air_property(name, "T", T, "P", self.P, "W", self.W)
+        # a rating sizes the exchanger several times at the same coolant inlet: keep the answers
+        key = (name, T)
+        value = self._memo.get(key)
+        if value is None:
+            if len(self._memo) > 256:
+                self._memo.clear()
+            value = self._memo[key] = cpa.humid_air_property(name, "T", T, "P", self.P, "W", self.W)
+        return value
 
     def h(self, T: float) -> float:
         return self._prop("Hha", T)
@@ -118,6 +126,25 @@ COOLANTS = {"water": _water, "glycol": _glycol, "air": _air}
 def make_coolant(spec: dict, site: tuple):
     """Build the coolant a ``cooler.coolant`` entry names (see :data:`COOLANTS`)."""
     return COOLANTS[spec["kind"]](spec, site)
+
+
+def warm_up() -> None:
+    """Load what the first solve with a coolant needs, so that it does not wait for it.
+
+    scipy's root finder (the exchanger sizing's Brent method; importing ``scipy.optimize``
+    takes most of a second on a slow machine), CoolProp's incompressible-liquid tables of every
+    coolant and its humid-air back end. The window calls this once on a background thread after
+    its first answer; any later solve then finds them loaded. Nothing is computed for a result.
+
+    Examples
+    --------
+    >>> warm_up()
+    """
+    brentq(lambda x: x - 1.0, 0.0, 2.0)
+    for fluid, fraction in (("Water", None), ("MEG", 0.3), ("MPG", 0.3)):
+        liquid = _Liquid("warm-up", fluid, fraction, fluid)
+        liquid.h(0.5 * (liquid.t_min + liquid.t_max))
+    _AmbientAir(101_325.0, 0.01).h(300.0)
 
 
 @dataclass(frozen=True)

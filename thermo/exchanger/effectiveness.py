@@ -150,9 +150,45 @@ def crossflow_unmixed_effectiveness(ntu: float, cr: float) -> float:
     if cr < 1e-10:
         return -math.expm1(-ntu)
     n_max = int(ntu + 12.0 * math.sqrt(ntu) + 40.0)
-    k = np.arange(1, n_max + 1, dtype=float)
-    terms = gammainc(k, ntu) * gammainc(k, cr * ntu)
-    return float(np.sum(terms) / (cr * ntu))
+    a, b = _poisson_upper_tails(ntu, n_max), _poisson_upper_tails(cr * ntu, n_max)
+    return math.fsum(x * y for x, y in zip(a, b)) / (cr * ntu)
+
+
+def _poisson_upper_tails(x: float, n_max: int) -> list:
+    r""":math:`P(n+1, x)` for n = 0 … n_max − 1, as upper tails of the Poisson distribution [5]_.
+
+    .. math:: P(n+1, x) = \sum_{m=n+1}^{\infty} e^{-x}\frac{x^m}{m!}
+
+    summed from the far tail down (positive terms only, so no cancellation where P is
+    small); the terms come from :math:`p_m = p_{m-1}\,x/m`, :math:`p_0 = e^{-x}`, and the tail
+    is cut at n_max, past which the terms are below 1e-17 for every x up to the NTU (see
+    :func:`crossflow_unmixed_effectiveness`).
+    Pure Python: the series has a few dozen terms, where a vectorised ``gammainc`` call costs
+    more in overhead than the sum itself.
+
+    References
+    ----------
+    .. [5] M. Abramowitz, I. A. Stegun, *Handbook of Mathematical Functions*, Dover, 1965,
+       eq. 6.5.13 and 26.4.21 (incomplete gamma function and the Poisson distribution).
+    """
+    m_top = n_max
+    if x > 600.0:  # e^{-x} would underflow: each term from its logarithm
+        ln_x = math.log(x)
+        pmf = [math.exp(m * ln_x - x - math.lgamma(m + 1.0)) for m in range(m_top + 1)]
+    else:
+        pmf = [0.0] * (m_top + 1)
+        p = math.exp(-x)
+        pmf[0] = p
+        for m in range(1, m_top + 1):
+            p *= x / m
+            pmf[m] = p
+    tails = [0.0] * n_max
+    acc = 0.0
+    for m in range(m_top, 0, -1):
+        acc += pmf[m]
+        if m - 1 < n_max:
+            tails[m - 1] = acc
+    return tails
 
 
 def _cross_unmixed(ntu: float, cr: float, hot_is_cmin: bool) -> float:
@@ -350,9 +386,13 @@ def ntu_from_effectiveness(arrangement: str, eps: float, cr: float, hot_is_cmin:
     def miss(y: float) -> float:
         return arr.eps(math.exp(y), cr, hot_is_cmin) - eps
 
-    y_lo, y_hi = -40.0, math.log(1e4)
-    if miss(y_hi) <= 0.0:  # within rounding of the limit: more than 10⁴ transfer units, no finite exchanger
-        raise InputError(field, eps, cross)
+    # the upper end of the bracket grows from 20 transfer units (each evaluation of a series
+    # relation costs in proportion to the NTU) up to 10⁴, beyond which no finite exchanger counts
+    y_lo, y_hi, y_top = -40.0, math.log(20.0), math.log(1e4)
+    while miss(y_hi) <= 0.0:
+        if y_hi >= y_top:  # within rounding of the limit: more than 10⁴ transfer units
+            raise InputError(field, eps, cross)
+        y_hi = min(y_hi + math.log(8.0), y_top)
     if miss(y_lo) >= 0.0:
         return math.exp(y_lo)
     x = brentq(miss, y_lo, y_hi, xtol=1e-15, rtol=1e-14, maxiter=300)

@@ -10,6 +10,10 @@ that outlet. :math:`UA_\mathrm{req}` falls monotonically from infinity (at the p
 temperature cross) to zero (no duty), so the root is unique; it is found by Brent's
 method to 1e-12 K. Outlets that no finite exchanger reaches count as
 :math:`g = +\infty`.
+
+The search starts from an ε–NTU estimate (capacity rates from one sizing, the arrangement's
+ε(NTU, C_r) at the given UA) and takes secant steps on g from there, which usually settle in
+four or five sizings; should they not, Brent's method on the whole interval decides.
 """
 from __future__ import annotations
 
@@ -20,6 +24,7 @@ from typing import Callable
 
 
 from thermo.errors import InputError, PropertyRangeError
+from thermo.exchanger.effectiveness import effectiveness
 from thermo.exchanger.sizing import Exchanger, HotSide, size_exchanger
 
 _INFEASIBLE = 60.0
@@ -94,6 +99,9 @@ def rate_exchanger(arrangement: str, ua: float, t_hi: float, hot_at: Callable[[f
 
     span = t_hi - t_ci
     lo, hi = t_ci + 1e-9 * span, t_hi - 1e-9 * span
+    t_out = _secant_from_estimate(g, arrangement, ua, t_hi, t_ci, hot_at, fluid, flow, rise, where, lo, hi)
+    if t_out is not None:
+        return t_out, size_exchanger(arrangement, hot_at(t_out), fluid, t_ci, flow, rise, where)
     if g(lo) <= 0.0:
         lo = t_ci + 1e-12 * span
     if g(lo) <= 0.0 or g(hi) >= 0.0:  # the root would lie within rounding of an end: no usable outlet
@@ -104,3 +112,50 @@ def rate_exchanger(arrangement: str, ua: float, t_hi: float, hot_at: Callable[[f
                          f"({t_ci:.2f} K coolant, {t_hi:.2f} K air)")
     t_out = brentq(g, lo, hi, xtol=1e-12, rtol=1e-15, maxiter=500)
     return t_out, size_exchanger(arrangement, hot_at(t_out), fluid, t_ci, flow, rise, where)
+
+
+def _estimate(arrangement: str, ua: float, t_hi: float, t_ci: float, hot_at, fluid, flow, rise, where: str):
+    r"""ε–NTU estimate of the air outlet [K] with the capacity rates of one sizing at mid-span [1]_.
+
+    .. math:: T_{h,o} \approx T_{h,i} - \varepsilon(UA/C_\min, C_r)\,C_\min (T_{h,i} - T_{c,i}) / C_h
+
+    None when the mid-span sizing is not possible.
+
+    References
+    ----------
+    .. [1] F. P. Incropera et al., *Fundamentals of Heat and Mass Transfer*, 6th ed., 2007, §11.5.
+    """
+    t_mid = 0.5 * (t_hi + t_ci)
+    try:
+        ex = size_exchanger(arrangement, hot_at(t_mid), fluid, t_ci, flow, rise, where, explain=False)
+    except (InputError, PropertyRangeError):
+        return None
+    side = ex.coolant
+    if side.duty_W <= 0.0 or side.outlet_temperature_K <= t_ci:
+        return None
+    c_h = side.duty_W / (t_hi - t_mid)
+    c_c = side.duty_W / (side.outlet_temperature_K - t_ci)
+    c_min, c_max = min(c_h, c_c), max(c_h, c_c)
+    eps = effectiveness(arrangement, ua / c_min, c_min / c_max, c_h <= c_c)
+    return t_hi - eps * c_min * (t_hi - t_ci) / c_h
+
+
+def _secant_from_estimate(g, arrangement, ua, t_hi, t_ci, hot_at, fluid, flow, rise, where, lo, hi,
+                          max_steps: int = 12):
+    """Root of g by secant steps from :func:`_estimate`, to 1e-12 K; None when the steps leave
+    (lo, hi) or do not settle (the caller then brackets the whole interval)."""
+    t0 = _estimate(arrangement, ua, t_hi, t_ci, hot_at, fluid, flow, rise, where)
+    if t0 is None or not lo < t0 < hi:
+        return None
+    t1 = min(t0 + 1e-3 * (t_hi - t_ci), 0.5 * (t0 + hi))
+    g0, g1 = g(t0), g(t1)
+    for _ in range(max_steps):
+        if abs(g0) >= _INFEASIBLE or abs(g1) >= _INFEASIBLE or g1 == g0:
+            return None
+        t2 = t1 - g1 * (t1 - t0) / (g1 - g0)
+        if not lo < t2 < hi:
+            return None
+        if abs(t2 - t1) <= 1e-12 * max(1.0, abs(t2)) or g1 == 0.0:
+            return t2
+        t0, g0, t1, g1 = t1, g1, t2, g(t2)
+    return None

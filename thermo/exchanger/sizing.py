@@ -285,6 +285,12 @@ def _size_two_zones(arrangement, hot: HotSide, fluid, side: CoolantSide, field_n
     if side.flow_kg_s > 0.0 and q_wet > 0.0:
         h_cb = fluid.h(t_ci) + q_wet / side.flow_kg_s
         t_cb = brentq(lambda t: fluid.h(t) - h_cb, t_ci, side.outlet_temperature_K, xtol=1e-12, rtol=1e-15)
+    if t_cb <= t_ci:  # the wet zone's duty warms the coolant by less than rounding: one dry zone
+        zone = dry_zone(arrangement, hot.inlet_temperature_K, hot.outlet_temperature_K, hot.duty_W, t_ci,
+                        side.outlet_temperature_K, field_name)
+        return Exchanger(arrangement=arrangement, coolant=side, zones=[zone], ua_W_K=zone.ua_W_K,
+                         lmtd_K=zone.lmtd_K, correction_factor=zone.correction_factor,
+                         effectiveness=zone.effectiveness, ntu=zone.ntu)
     wet = enthalpy_driving_force(wet_zone(arrangement, hot, q_wet, t_ci, t_cb, field_name), hot)
     dry = dry_zone(arrangement, hot.inlet_temperature_K, hot.dew_point_K, q_dry, t_cb,
                    side.outlet_temperature_K, field_name)

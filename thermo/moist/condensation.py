@@ -9,6 +9,7 @@ from dataclasses import dataclass
 from thermo import coolprop_adapter as cpa
 from thermo.models.base import Point
 from thermo.moist.dew_point import dew_point
+from thermo.moist.saturation import T_TRIPLE
 
 
 @dataclass(frozen=True)
@@ -89,10 +90,13 @@ def condensation(model, inlet: Point, outlet: Point, duty_W: float, mass_flow: f
 
 
 def condensate_volume_L_h(mass_kg_s: float, T: float, P: float) -> float:
-    """Volume flow [L/h] of liquid water flowing at ``mass_kg_s`` [kg/s], density of IAPWS-95 at T [K], P [Pa]."""
+    """Volume flow [L/h] of liquid water flowing at ``mass_kg_s`` [kg/s], density of IAPWS-95 at T [K], P [Pa].
+
+    Below the triple point (a cooler outlet below 0.01 °C, where the condensate is ice) the
+    volume is that of the melted water at 273.16 K, what a heated drain passes."""
     if mass_kg_s == 0.0:
         return 0.0
-    return mass_kg_s / cpa.liquid_water_density(T, P) * 1000.0 * 3600.0
+    return mass_kg_s / cpa.liquid_water_density(max(T, T_TRIPLE), P) * 1000.0 * 3600.0
 
 
 def cooling_line(model, inlet: Point, t_out: float, p_out: float, where: str, points: int = 8) -> list[Point]:

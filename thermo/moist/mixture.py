@@ -13,7 +13,7 @@ import math
 from functools import lru_cache
 
 from thermo import coolprop_adapter as cpa
-from thermo.moist.saturation import T_CRITICAL, saturation_pressure, saturation_pressure_log_slope
+from thermo.moist.saturation import T_CRITICAL, liquid_vapour_pressure, vapour_pressure, vapour_pressure_log_slope
 
 P_REF = 101_325.0  #: reference pressure of the ideal-gas entropy of water vapour, [Pa]
 R_MOLAR = 8.314462618  #: molar gas constant, CODATA 2018, [J/(mol K)]
@@ -154,7 +154,8 @@ class MoistMixture:
 
     .. math:: x_{ws} = f(T, p)\,p_{ws}(T)/p
 
-    with :math:`p_{ws}` of IAPWS-IF97 and the enhancement factor :math:`f` of RP-1485
+    with :math:`p_{ws}` of IAPWS-IF97 (over ice, IAPWS 2011, below the triple point
+    273.16 K, where the condensed water is then ice) and the enhancement factor :math:`f` of RP-1485
     (CoolProp's implementation) for ``real_gas``, :math:`f = 1` for the ideal mixtures.
 
     Condensed water has the Gibbs energy of the vapour it is in equilibrium with,
@@ -319,7 +320,7 @@ class MoistMixture:
         """Mole fraction of water vapour at saturation, x_ws = f p_ws / p [-]; inf where water cannot condense."""
         if T >= T_CRITICAL:
             return math.inf
-        x = self.enhancement(T, P) * saturation_pressure(T) / P
+        x = self.enhancement(T, P) * vapour_pressure(T) / P
         return x if x < 1.0 else math.inf
 
     def saturation_ratio(self, T: float, P: float) -> float:
@@ -331,12 +332,12 @@ class MoistMixture:
         """Cheap test without the enhancement factor: True when w is certainly below saturation."""
         if T >= T_CRITICAL:
             return True
-        return w / (self.epsilon + w) * P < 0.999 * saturation_pressure(T)
+        return w / (self.epsilon + w) * P < 0.999 * vapour_pressure(T)
 
     # ---- condensed water ----------------------------------------------------------------------
     def _ln_fp(self, T: float, P: float) -> float:
         """ln(f p_ws) at saturation, [ln Pa]."""
-        return math.log(self.enhancement(T, P) * saturation_pressure(T))
+        return math.log(self.enhancement(T, P) * vapour_pressure(T))
 
     def _mu_virial(self, T: float, P: float, x_w: float) -> float:
         """Interaction part of the chemical potential of water, [J/kg] (0 for the ideal mixtures)."""
@@ -345,6 +346,37 @@ class MoistMixture:
         x_a = 1.0 - x_w
         baa, baw, bww = (c[0] for c in self.virial.eval(T))
         return P * self.n_a / self.epsilon * (x_a * x_a * (2.0 * baw - baa) + x_w * (1.0 + x_a) * bww)
+
+    def _mu_virial_along_saturation(self, T: float, P: float, dln: float) -> tuple[float, float]:
+        r"""Interaction part of the chemical potential of water at saturation and its temperature
+        derivative along the saturation line, [J/kg], [J/(kg K)], analytically [1]_:
+
+        .. math::
+
+            \frac{d\mu_v}{dT} = \left(\frac{\partial\mu_v}{\partial T}\right)_{x_w}
+            + \left(\frac{\partial\mu_v}{\partial x_w}\right)_T x_{ws}\,\frac{d\ln(f p_{ws})}{dT},
+            \qquad
+            \left(\frac{\partial\mu_v}{\partial x_w}\right)_T = \frac{p}{\varepsilon M_a}\,
+            2 x_a\,(B_{ww} + B_{aa} - 2B_{aw})
+
+        with :math:`x_{ws} = f p_{ws}/p` and the virial coefficients' temperature derivatives
+        from their tables (the derivative of the interpolating cubic). ``dln`` is
+        :math:`d\ln(f p_{ws})/dT` [1/K]. Replaces central differences of :meth:`_mu_virial`.
+
+        References
+        ----------
+        .. [1] A. Herrmann, H.-J. Kretzschmar, D. P. Gatley, ASHRAE RP-1485, HVAC&R Research 15
+           (2009) 961–986 (second virial coefficients of humid air; the interaction term of
+           :meth:`mu_water`).
+        """
+        x_w = self.saturation_fraction(T, P)
+        x_a = 1.0 - x_w
+        baa, baw, bww = self.virial.eval(T)
+        k = P * self.n_a / self.epsilon
+        mu = k * (x_a * x_a * (2.0 * baw[0] - baa[0]) + x_w * (1.0 + x_a) * bww[0])
+        dmu_dt = k * (x_a * x_a * (2.0 * baw[1] - baa[1]) + x_w * (1.0 + x_a) * bww[1])
+        dmu_dx = k * 2.0 * x_a * (bww[0] + baa[0] - 2.0 * baw[0])
+        return mu, dmu_dt + dmu_dx * x_w * dln
 
     def liquid_gibbs(self, T: float, P: float) -> float:
         """Gibbs energy of condensed water in equilibrium with the vapour, [J/kg]."""
@@ -359,7 +391,10 @@ class MoistMixture:
         With :math:`g_l = h_w^\circ - T s_w^\circ + R_w T \ln(f p_{ws}/p_\mathrm{ref}) + \mu_v`
         (:math:`\mu_v` the interaction part), :math:`s_l = -\partial g_l/\partial T` and
         :math:`h_l = h_w^\circ - R_w T^2\,\partial\ln(f p_{ws})/\partial T + \mu_v - T\,\partial\mu_v/\partial T`;
-        only the two small terms are differentiated numerically (central differences).
+        :math:`\mu_v` and its derivative analytically (:meth:`_mu_virial_along_saturation`);
+        only :math:`\ln f` is differentiated numerically (central differences of CoolProp's
+        RP-1485 factor, which has no closed form: an implicit equation in :math:`x_{ws}` with
+        IAPWS-95 liquid properties and Henry's law in Herrmann et al. 2009).
         """
         return self._remembered((T, P), self._liquid, T, P)
 
@@ -377,15 +412,13 @@ class MoistMixture:
         d = _DT_LIQUID
         hw, sw, _ = self.vapour(T)
         ln_fp = self._ln_fp(T, P)
-        dln = saturation_pressure_log_slope(T)
+        dln = vapour_pressure_log_slope(T)
         if self.uses_enhancement:
             dln += (math.log(self.enhancement(T + d, P)) - math.log(self.enhancement(T - d, P))) / (2.0 * d)
         if self.virial is None:
             mu_v = dmu_v = 0.0
         else:
-            mu_v = self._mu_virial(T, P, self.saturation_fraction(T, P))
-            dmu_v = (self._mu_virial(T + d, P, self.saturation_fraction(T + d, P))
-                     - self._mu_virial(T - d, P, self.saturation_fraction(T - d, P))) / (2.0 * d)
+            mu_v, dmu_v = self._mu_virial_along_saturation(T, P, dln)
         s_l = sw - self.R_w * (ln_fp - math.log(P_REF)) - self.R_w * T * dln - dmu_v
         h_l = hw - self.R_w * T * T * dln + mu_v - T * dmu_v
         return h_l, s_l
@@ -402,12 +435,22 @@ class MoistMixture:
 
     # ---- psychrometric quantities ---------------------------------------------------------
     def relative_humidity(self, T: float, P: float, w: float):
-        """Relative humidity x_w p / (f p_ws(T)) [-] (mole-fraction basis); None at or above the critical temperature.
+        """Relative humidity x_w p / (f p_w,liq(T)) [-] (mole-fraction basis), relative to liquid
+        water also below 0 °C (supercooled; the WMO convention of meteorological data, see
+        :mod:`thermo.moist.saturation`); None at or above the critical temperature.
 
         Defined also where p_ws(T) exceeds p (hot compressed air, where water cannot condense)."""
         if T >= T_CRITICAL:
             return None
-        return (w / (self.epsilon + w)) * P / (self.enhancement(T, P) * saturation_pressure(T))
+        return (w / (self.epsilon + w)) * P / (self.enhancement(T, P) * liquid_vapour_pressure(T))
+
+    def saturation_degree(self, T: float, P: float, w: float):
+        """x_w / x_ws [-]: relative humidity over the stable phase (ice below 0.01 °C), the
+        convention of ASHRAE RP-1485 and CoolProp's ``HAPropsSI`` input ``R``; None at or above
+        the critical temperature."""
+        if T >= T_CRITICAL:
+            return None
+        return (w / (self.epsilon + w)) * P / (self.enhancement(T, P) * vapour_pressure(T))
 
     def dew_point(self, P: float, w: float):
         """Temperature at which vapour content w saturates at pressure P, [K] (frost point below

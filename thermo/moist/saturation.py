@@ -1,7 +1,32 @@
-"""Saturation of water: vapour pressure over liquid water (IAPWS-IF97) and over ice (IAPWS 2011) [1]_ [2]_."""
+"""Saturation of water: vapour pressure over liquid water (IAPWS-IF97, supercooled: Murphy & Koop 2005)
+and over ice (IAPWS 2011) [1]_ [2]_ [3]_.
+
+Two saturation references are kept apart:
+
+* :func:`vapour_pressure` — over the *stable* condensed phase: liquid water from the triple
+  point 273.16 K up, ice Ih below (IAPWS R14-08(2011), Wagner, Riethmann, Feistel & Harvey,
+  J. Phys. Chem. Ref. Data 40, 043103 (2011)). This is where moist air really saturates:
+  condensation in a cooler, dew points (frost points below 0.01 °C), the enhancement factor
+  of ASHRAE RP-1485 (which also switches to ice at 273.16 K).
+* :func:`liquid_vapour_pressure` — over liquid water, supercooled below 0 °C. Relative
+  humidity as meteorological data give it is relative to liquid water even below 0 °C
+  (WMO-No. 8, *Guide to Instruments and Methods of Observation*, annex on humidity
+  formulae; the annex's own Magnus-type formula is not used here — detail from memory), so
+  the site's relative humidity is converted with this one.
+
+References
+----------
+.. [1] IAPWS R7-97(2012), *Revised Release on the IAPWS Industrial Formulation 1997*.
+.. [2] IAPWS R14-08(2011); W. Wagner, T. Riethmann, R. Feistel, A. H. Harvey, "New equations
+   for the sublimation pressure and melting pressure of H2O ice Ih", J. Phys. Chem. Ref. Data
+   40 (2011) 043103.
+.. [3] D. M. Murphy, T. Koop, "Review of the vapour pressures of ice and supercooled water for
+   atmospheric applications", Q. J. R. Meteorol. Soc. 131 (2005) 1539–1565, eq. (10).
+"""
 from __future__ import annotations
 
 __all__ = ["saturation_pressure", "saturation_pressure_log_slope", "saturation_temperature", "sublimation_pressure", "vapour_pressure",
+           "vapour_pressure_log_slope", "supercooled_vapour_pressure", "liquid_vapour_pressure",
            "dew_point_from_vapour_pressure", "T_TRIPLE", "P_TRIPLE", "T_CRITICAL", "P_CRITICAL", "T_IF97_MIN"]
 
 import math
@@ -20,6 +45,10 @@ _N = (0.11670521452767e4, -0.72421316703206e6, -0.17073846940092e2, 0.1202082470
 # IAPWS R14-08(2011), sublimation pressure of ice Ih, eq. (6): a_i, b_i
 _A_SUB = (-0.212144006e2, 0.273203819e2, -0.610598130e1)
 _B_SUB = (0.333333333e-2, 0.120666667e1, 0.170333333e1)
+
+# Murphy & Koop (2005) eq. (10): vapour pressure over (supercooled) liquid water, 123 K to 332 K
+_MK = (54.842763, -6763.22, -4.210, 0.000367, 0.0415, 218.8, 53.878, -1331.22, -9.44523, 0.014025)
+T_SUPERCOOLED_MIN = 123.0  #: lower end of Murphy & Koop eq. (10), [K]
 
 
 def saturation_pressure(T: float) -> float:
@@ -156,8 +185,8 @@ def sublimation_pressure(T: float) -> float:
 
     Notes
     -----
-    Used only to report frost points (dew points below 0 °C); ice is never formed in the
-    train: coolers of moist air are limited to 0 °C and above.
+    The saturation of moist air below the triple point (:func:`vapour_pressure`): frost
+    points, and the condensed water of a cooler whose outlet is below 0.01 °C (ice).
 
     Examples
     --------
@@ -175,21 +204,117 @@ def sublimation_pressure(T: float) -> float:
 
 
 def vapour_pressure(T: float) -> float:
-    """Saturation pressure of water vapour [Pa]: over liquid from 273.15 K (IF97), over ice below.
+    """Saturation pressure of water vapour over the stable condensed phase, [Pa] [1]_ [2]_.
+
+    Over liquid water from the triple point 273.16 K up (IF97; it reproduces the triple-point
+    pressure 611.657 Pa to 1e-8 Pa), over ice Ih below (IAPWS 2011), as ASHRAE RP-1485 does.
 
     Parameters
     ----------
     T : float
-        Temperature, [K], below the critical temperature.
+        Temperature, [K], 50 K up to the critical temperature.
+
+    Examples
+    --------
+    >>> round(vapour_pressure(250.0), 4)  # over ice: IAPWS R14-08(2011) eq. (6)
+    76.0127
+
+    References
+    ----------
+    .. [1] IAPWS R7-97(2012), eq. (30).
+    .. [2] IAPWS R14-08(2011), eq. (6).
     """
-    return saturation_pressure(T) if T >= T_IF97_MIN else sublimation_pressure(T)
+    return saturation_pressure(T) if T >= T_TRIPLE else sublimation_pressure(T)
+
+
+def vapour_pressure_log_slope(T: float) -> float:
+    r"""d ln p / dT of :func:`vapour_pressure`, [1/K]: IF97 from 273.16 K, ice below.
+
+    Below the triple point, from IAPWS R14-08(2011) eq. (6),
+    :math:`d\ln p/dT = \frac{1}{T_t}\sum_i a_i (b_i - 1)\,\vartheta^{b_i - 2}`.
+
+    Parameters
+    ----------
+    T : float
+        Temperature, [K].
+
+    References
+    ----------
+    .. [1] IAPWS R14-08(2011), eq. (6).
+    """
+    if T >= T_TRIPLE:
+        return saturation_pressure_log_slope(T)
+    th = T / T_TRIPLE
+    return sum(a * (b - 1.0) * th ** (b - 2.0) for a, b in zip(_A_SUB, _B_SUB)) / T_TRIPLE
+
+
+def supercooled_vapour_pressure(T: float) -> float:
+    r"""Vapour pressure over (supercooled) liquid water, Murphy & Koop (2005) eq. (10) [1]_.
+
+    .. math::
+
+        \ln\frac{p}{\mathrm{Pa}} = 54.842763 - \frac{6763.22}{T} - 4.210\ln T + 0.000367\,T
+        + \tanh\{0.0415\,(T - 218.8)\}\left(53.878 - \frac{1331.22}{T} - 9.44523\ln T
+        + 0.014025\,T\right)
+
+    with T in kelvin.
+
+    Parameters
+    ----------
+    T : float
+        Temperature, [K]; the equation holds from 123 K to 332 K.
+
+    Returns
+    -------
+    float
+        Vapour pressure over a plane surface of liquid water, [Pa].
+
+    Notes
+    -----
+    At 273.15 K it agrees with IF97 to 3e-8 relative, so :func:`liquid_vapour_pressure`
+    is continuous where it hands over; at 240 K it lies 0.14 % below CoolProp's IAPWS-95
+    continued into the supercooled region (tests/test_moist_saturation.py).
+
+    Examples
+    --------
+    >>> round(supercooled_vapour_pressure(263.15), 2)
+    286.45
+
+    References
+    ----------
+    .. [1] D. M. Murphy, T. Koop, "Review of the vapour pressures of ice and supercooled water
+       for atmospheric applications", Q. J. R. Meteorol. Soc. 131 (2005) 1539–1565, eq. (10).
+    """
+    c = _MK
+    ln_t = math.log(T)
+    return math.exp(c[0] + c[1] / T + c[2] * ln_t + c[3] * T
+                    + math.tanh(c[4] * (T - c[5])) * (c[6] + c[7] / T + c[8] * ln_t + c[9] * T))
+
+
+def liquid_vapour_pressure(T: float) -> float:
+    """Vapour pressure over liquid water, supercooled below 0 °C, [Pa] [1]_ [2]_.
+
+    The reference of relative humidity as meteorological data give it (WMO-No. 8: relative
+    to water even below 0 °C). IF97 from 273.15 K, Murphy & Koop (2005) below.
+
+    Parameters
+    ----------
+    T : float
+        Temperature, [K], 123 K up to the critical temperature.
+
+    References
+    ----------
+    .. [1] IAPWS R7-97(2012), eq. (30).
+    .. [2] D. M. Murphy, T. Koop, Q. J. R. Meteorol. Soc. 131 (2005) 1539–1565, eq. (10).
+    """
+    return saturation_pressure(T) if T >= T_IF97_MIN else supercooled_vapour_pressure(T)
 
 
 def dew_point_from_vapour_pressure(p_v: float) -> float:
     r"""Temperature at which water vapour of partial pressure p_v saturates, [K] [1]_ [2]_.
 
-    Above the IF97 lower end (611.213 Pa at 273.15 K) this is the IF97 backward equation;
-    below, the frost point over ice, found by Newton's method on the IAPWS 2011
+    From the triple-point pressure (611.657 Pa) up this is the IF97 backward equation;
+    below, the frost point over ice (the inverse of :func:`vapour_pressure`), found by Newton's method on the IAPWS 2011
     sublimation equation (with its exact d ln p / dT).
 
     Parameters
@@ -208,7 +333,7 @@ def dew_point_from_vapour_pressure(p_v: float) -> float:
     .. [1] IAPWS R7-97(2012), eq. (31).
     .. [2] IAPWS R14-08(2011), eq. (6).
     """
-    if p_v >= saturation_pressure(T_IF97_MIN):
+    if p_v >= P_TRIPLE:
         return saturation_temperature(p_v)
     target = math.log(p_v / P_TRIPLE)
     T = 260.0

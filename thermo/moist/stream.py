@@ -8,7 +8,7 @@ the per-point humidity figures of the results.
 """
 from __future__ import annotations
 
-__all__ = ["MoistAir", "intake_humidity_ratio", "humidity_of", "check_humid_range"]
+__all__ = ["MoistAir", "intake_humidity_ratio", "ice_supersaturation", "humidity_of", "check_humid_range"]
 
 import math
 
@@ -16,7 +16,7 @@ from thermo.errors import InputError, message_detail, quantity
 from thermo.models.base import Point, check_range
 from thermo.models.newton import invert_to_state
 from thermo.moist.mixture import MoistMixture
-from thermo.moist.saturation import T_CRITICAL, T_IF97_MIN, saturation_pressure
+from thermo.moist.saturation import T_CRITICAL, liquid_vapour_pressure, vapour_pressure
 
 _LIQUID_NEGLIGIBLE = 1e-9  # liquid share (of the stream's water) treated as none on a path
 _DT = 1e-3  # central-difference step in T for two-phase derivatives, [K]
@@ -96,7 +96,7 @@ class MoistAir:
         if mix.surely_unsaturated(T, P, W):
             if T < T_CRITICAL and W > 0.0:
                 self._dry_T = T
-                self._dry_P_limit = 0.999 * saturation_pressure(T) * (mix.epsilon + W) / W
+                self._dry_P_limit = 0.999 * vapour_pressure(T) * (mix.epsilon + W) / W
             return W, 0.0
         ws = mix.saturation_ratio(T, P)
         return (W, 0.0) if W <= ws else (ws, W - ws)
@@ -158,6 +158,17 @@ class MoistAir:
             return self._slope_vapour(T, P, efficiency)
         _, _, v, cp, hp, _, _ = self._state(T, P, slope=True)
         return P * (v / efficiency - hp) / cp
+
+    def polytropic_slope_parts(self, T: float, P: float) -> tuple[float, float, float]:
+        """(p v/c_p [K], p (∂h/∂p)_T/c_p [K], p v [J/kg]) at T, P, from the same state as
+        :meth:`polytropic_slope`, which is ``a/η − b`` of the first two (one evaluation gives the
+        slope at every efficiency; :func:`thermo.polytropic.polytropic_efficiency_between` uses it)."""
+        check_range(T, P, "polytropic path")
+        if self.split(T, P)[1] <= _LIQUID_NEGLIGIBLE * self.water:
+            v, cp, hp = self.mixture.gas_slope_terms(T, P, self.water)
+        else:
+            _, _, v, cp, hp, _, _ = self._state(T, P, slope=True)
+        return P * v / cp, P * hp / cp, P * v
 
     def _slope_vapour(self, T: float, P: float, efficiency: float) -> float:
         """Polytropic slope with all the water as vapour (no latent heat in cp).
@@ -251,12 +262,12 @@ class MoistAir:
 
 # ---- site humidity ---------------------------------------------------------------------------
 def intake_humidity_ratio(site: dict, mixture: MoistMixture, T0: float, P0: float) -> float:
-    r"""Humidity ratio of the intake air from the site's humidity input, [kg/kg] [1]_.
+    r"""Humidity ratio of the intake air from the site's humidity input, [kg/kg] [1]_ [2]_ [3]_.
 
     .. math::
 
-        x_w = \varphi\,x_{ws}(T_0, p_0) \quad\text{or}\quad x_w = f(T_d, p_0)\,p_{ws}(T_d)/p_0,
-        \qquad W = \varepsilon\,\frac{x_w}{1 - x_w}
+        x_w = \varphi\,\frac{f(T_0, p_0)\,p_{w,\mathrm{liq}}(T_0)}{p_0} \quad\text{or}\quad
+        x_w = \frac{f(T_d, p_0)\,p_{ws}(T_d)}{p_0}, \qquad W = \varepsilon\,\frac{x_w}{1 - x_w}
 
     Parameters
     ----------
@@ -267,33 +278,38 @@ def intake_humidity_ratio(site: dict, mixture: MoistMixture, T0: float, P0: floa
     mixture : MoistMixture
         Moist-air formulation of the project's model.
     T0, P0 : float
-        Ambient temperature [K] and barometric pressure [Pa].
+        Ambient temperature [K] and barometric pressure [Pa], down to 223.15 K.
 
     Returns
     -------
     float
-        Humidity ratio W, [kg water / kg dry air].
+        Humidity ratio W, [kg water / kg dry air]. Below 0 °C a relative humidity may give
+        more water than saturation over ice holds (:func:`ice_supersaturation`).
 
     Raises
     ------
     InputError
-        If the humidity ratio given exceeds saturation at the site, or the ambient is
-        below 0 °C (vapour over ice is out of scope).
+        If the humidity ratio given exceeds saturation at the site.
 
     Notes
     -----
-    Relative humidity is on the mole-fraction basis of RP-1485 (:math:`\varphi = x_w/x_{ws}`);
-    for the ideal mixtures (f = 1) this is the usual :math:`p_v/p_{ws}`.
+    Relative humidity :math:`\varphi` is on the mole-fraction basis of RP-1485 and, as
+    meteorological data give it, relative to **liquid water even below 0 °C** (WMO-No. 8,
+    *Guide to Instruments and Methods of Observation*, annex on humidity formulae — from
+    memory): :math:`p_{w,\mathrm{liq}}` is IF97 above 0 °C and the supercooled-water
+    equation of Murphy & Koop (2005) below (:func:`thermo.moist.saturation.liquid_vapour_pressure`);
+    the enhancement factor f is the mixture's (RP-1485; 1 for the ideal mixtures). A dew
+    point below 0.01 °C is a frost point: :math:`p_{ws}` is then the IAPWS 2011 sublimation
+    pressure. For the ideal mixtures (f = 1) the relative humidity is the usual
+    :math:`p_v/p_{w,\mathrm{liq}}`.
 
     References
     ----------
     .. [1] ASHRAE Handbook — Fundamentals, 2017, ch. 1, eqs. (20), (22), (24).
+    .. [2] D. M. Murphy, T. Koop, Q. J. R. Meteorol. Soc. 131 (2005) 1539–1565, eq. (10).
+    .. [3] IAPWS R14-08(2011); W. Wagner, T. Riethmann, R. Feistel, A. H. Harvey,
+       J. Phys. Chem. Ref. Data 40 (2011) 043103.
     """
-    if T0 < T_IF97_MIN:
-        field = next(k for k in ("dew_point_K", "humidity_ratio", "relative_humidity") if site.get(k))
-        raise InputError(f"site.{field}", site[field],
-                         f"moist intake air needs site.ambient_temperature_K of at least 273.15 K (found "
-                         f"{T0:.2f} K): water vapour over ice is out of scope; give relative_humidity 0")
     if site.get("dew_point_K") is not None:
         Td = site["dew_point_K"]
         x = mixture.saturation_fraction(Td, P0)
@@ -306,8 +322,40 @@ def intake_humidity_ratio(site: dict, mixture: MoistMixture, T0: float, P0: floa
                              f"expected at most {ws:.6g} kg/kg, saturation at the site ambient "
                              f"{T0:.2f} K and {P0:.0f} Pa")
         return W
-    x = site["relative_humidity"] * mixture.saturation_fraction(T0, P0)
+    x = site["relative_humidity"] * (mixture.enhancement(T0, P0) * liquid_vapour_pressure(T0) / P0)
     return mixture.epsilon * x / (1.0 - x)
+
+
+def ice_supersaturation(mixture: MoistMixture, T0: float, P0: float, W: float) -> float:
+    """Water above saturation over ice in intake air below 0.01 °C, [kg/kg dry air] (0 if none).
+
+    Relative humidity relative to liquid water can exceed saturation over ice (at −10 °C
+    ice saturates at about 91 % relative to water): freezing fog or rime. Such air deposits
+    the excess on the first cold surface, the intake louvres and filter, before the
+    compressor; the train takes in air saturated over ice and the caller warns.
+
+    Parameters
+    ----------
+    mixture : MoistMixture
+        Moist-air formulation.
+    T0, P0 : float
+        Ambient temperature [K] and pressure [Pa].
+    W : float
+        Humidity ratio from the site's input, [kg/kg].
+
+    Examples
+    --------
+    >>> from thermo.models import ConstantCpAir
+    >>> from thermo.moist.mixture import make_mixture
+    >>> mix = make_mixture(ConstantCpAir())
+    >>> W = intake_humidity_ratio({"relative_humidity": 0.95}, mix, 263.15, 101325.0)
+    >>> ice_supersaturation(mix, 263.15, 101325.0, W) > 0.0
+    True
+    """
+    if W <= 0.0:
+        return 0.0
+    ws = mixture.saturation_ratio(T0, P0)
+    return W - ws if W > ws * (1.0 + 1e-9) else 0.0
 
 
 def humidity_of(mixture: MoistMixture | None, p: Point) -> dict:

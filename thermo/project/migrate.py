@@ -6,7 +6,7 @@ version *n* is passed through the registered steps *n → n+1 → …* until it 
 then validated against :mod:`thermo.project.schema`. A file of a newer version than this release
 knows is refused, and nothing is written.
 
-Versions: 1, the first; 2 lets the delivery pressure be stated gauge
+Versions: 1, the first; 3 adds cases and a results snapshot (:mod:`thermo.project.cases`); 2 lets the delivery pressure be stated gauge
 (``discharge_gauge_pressure_Pa``, relative to the site's barometric pressure) as an alternative
 to ``discharge_pressure_Pa`` (absolute, unchanged), exactly one of the two. Whoever changes the meaning of a
 key, renames or removes one, or adds a required key bumps ``FORMAT_VERSION`` and registers
@@ -123,5 +123,17 @@ def _v1_to_v2(doc: dict) -> dict:
     ``discharge_pressure_Pa``, which keeps its meaning (absolute pressure, [Pa]); a version-1
     file always states the absolute key, so it reads exactly as before. The version is bumped
     because a version-2 file stating the gauge key cannot be read by a version-1 release.
+    """
+    return doc
+
+
+@step(2)
+def _v2_to_v3(doc: dict) -> dict:
+    """Version 2 → 3: nothing to change.
+
+    Version 3 adds cases (``base_name``, ``cases``: named cases, each the base design's
+    fields it changes) and ``snapshot`` (the results as last saved). A version-2 file is a
+    project with one case, its base; it reads exactly as before. The version is bumped because
+    a release that reads version 2 would refuse the new keys.
     """
     return doc

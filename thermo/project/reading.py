@@ -97,7 +97,7 @@ def loads(text: str | bytes) -> dict:
     >>> doc = loads('{"site": {"ambient_temperature_K": 293.15}, "flow": {"kind": "mass", "value": 1},'
     ...             ' "discharge_pressure_Pa": 4e5, "stages": [{"efficiency": {"kind": "isentropic", "value": 0.8}}]}')
     >>> doc["format"], doc["version"]  # no version: a version-1 file, upgraded in memory
-    ('stagewright-project', 2)
+    ('stagewright-project', 3)
     """
     data = text.encode("utf-8", "surrogatepass") if isinstance(text, str) else bytes(text)
     return read_document(data)[0]

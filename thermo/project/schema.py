@@ -1,4 +1,4 @@
-"""The project document, version 2: every key, its unit, range and default.
+"""The project document, version 3: every key, its unit, range and default.
 
 This table is the single source of truth for what a project may contain. The solver,
 the project-file loader, the window's entry fields and ``docs/project-format.md`` all
@@ -8,12 +8,13 @@ from __future__ import annotations
 
 __all__ = ["FORMAT_NAME", "FORMAT_VERSION", "PROJECT", "STAGE", "COOLER", "EFFICIENCY",
            "FLOW_KINDS", "MODEL_NAMES", "COOLANT", "COOLANT_KINDS", "ARRANGEMENT_NAMES",
-           "HEAT_RECOVERY", "YEAR"]
+           "HEAT_RECOVERY", "YEAR", "YEAR_COOLERS", "CASE", "SNAPSHOT", "FIELD_CHECK"]
 
-from thermo.project.schema_types import Choice, Items, Num, Obj, Text, Variant
+from thermo.project.case_changes import CHANGEABLE_KEYS
+from thermo.project.schema_types import Changes, Choice, Items, Num, Obj, Raw, Text, Variant
 
 FORMAT_NAME = "stagewright-project"
-FORMAT_VERSION = 2  #: 2: the delivery pressure may be stated gauge (discharge_gauge_pressure_Pa)
+FORMAT_VERSION = 3  #: 2: the delivery pressure may be stated gauge; 3: cases and a results snapshot
 FLOW_KINDS = ("mass", "free_air_delivery", "normal_volume", "shaft_power")
 MODEL_NAMES = ("real_gas", "ideal_gas", "constant_cp")
 
@@ -84,6 +85,15 @@ _AMBIENT_ENTRY = {
     "coolant_inlet_temperature_K": Num(263.15, 373.15, unit="K", nullable=True, default=None),
 }
 
+#: how a year treats the coolers: sized afresh in every bin, or sized once and rated at fixed UA
+#: (thermo.year_design; the default margin 0.10 is common practice, no source)
+YEAR_COOLERS = Obj(default={"mode": "size_every_bin"}, fields={
+    "mode": Choice(("size_every_bin", "design_once"), default="size_every_bin"),
+    "design_condition": Choice(("site", "hottest_bin"), default="site"),
+    "ua_margin": Num(0.0, 1.0, default=0.10),
+    "max_dryer_inlet_temperature_K": Num(223.15, 373.15, unit="K", nullable=True, default=None),
+})
+
 #: a year at the site: ambient profile, operating hours, load and prices (optional)
 YEAR = Obj(nullable=True, default=None, fields={
     "profile": Variant(required=True, variants={
@@ -98,6 +108,48 @@ YEAR = Obj(nullable=True, default=None, fields={
     "load": Num(0.0, 1.0, lo_open=True, default=1.0),
     "energy_price_per_kWh": Num(0.0, 100.0, unit="money/kWh", default=0.0),
     "water_price_per_m3": Num(0.0, 1000.0, unit="money/m³", default=0.0),
+    "coolers": YEAR_COOLERS,
+})
+
+#: a named case: the base design with some fields changed (thermo.project.case_changes)
+CASE = Obj(fields={
+    "name": Text(required=True, max_length=80),
+    "note": Text(default="", max_length=1000),
+    "changes": Changes(roots=CHANGEABLE_KEYS, required=True),
+})
+
+#: the results as last saved, with the versions that computed them (thermo.cases.snapshot)
+SNAPSHOT = Obj(nullable=True, default=None, fields={
+    "stagewright_version": Text(required=True, max_length=40),
+    "coolprop_version": Text(required=True, max_length=40),
+    "saved_utc": Text(default="", max_length=40),
+    "results": Raw(required=True),
+})
+
+#: a field check's measurement uncertainties and guaranteed figures (thermo.uncertainty); optional.
+#: Each uncertainty names a measured input by its field path and is in that input's SI unit.
+_NAMED_INPUT = {"input": Text(required=True, max_length=200)}
+_GUARANTEED = {"figure": Text(required=True, max_length=200),
+               "value": Num(0.0, 1.0e12, lo_open=True, required=True),
+               "limit": Choice(("both", "at_least", "at_most"), default="both")}
+FIELD_CHECK = Obj(nullable=True, default=None, fields={
+    "uncertainties": Items(Variant(variants={
+        "standard": {**_NAMED_INPUT, "standard_uncertainty": Num(0.0, 1.0e9, 
+                                                                 lo_open=True, required=True)},
+        "limits": {**_NAMED_INPUT, "half_width": Num(0.0, 1.0e9, lo_open=True,
+                                                     required=True)},
+        "accuracy_class": {**_NAMED_INPUT, "class_percent": Num(0.0, 100.0, lo_open=True, required=True),
+                           "full_scale": Num(0.0, 1.0e10, lo_open=True, nullable=True,
+                                             default=None)},
+    }), max_length=200),
+    "guarantees": Items(Variant(variants={
+        "relative": {**_GUARANTEED, "tolerance": Num(0.0, 1.0, lo_open=True, required=True)},
+        "absolute": {**_GUARANTEED, "tolerance": Num(0.0, 1.0e12, lo_open=True,
+                                                     required=True)},
+        "iso1217_annex_c": dict(_GUARANTEED),
+    }), max_length=50),
+    "monte_carlo_draws": Num(100, 1_000_000, integer=True, default=10_000),
+    "seed": Num(0, 2**32 - 1, integer=True, default=1),
 })
 
 #: the delivery pressure: stated absolute or gauge (thermo.project.delivery), exactly one
@@ -135,4 +187,9 @@ PROJECT = Obj(one_of=(("discharge_pressure_Pa", "discharge_gauge_pressure_Pa"),)
     "stages": Items(STAGE, min_length=1, max_length=12, required=True),
     "heat_recovery": HEAT_RECOVERY,
     "year": YEAR,
+    "field_check": FIELD_CHECK,
+    # version 3: options as cases of one project (thermo.project.cases) and the results last saved
+    "base_name": Text(default="Base", max_length=80),
+    "cases": Items(CASE, max_length=50, default=[]),
+    "snapshot": SNAPSHOT,
 })

@@ -24,7 +24,7 @@ import sys
 from pathlib import Path
 
 from thermo.project.schema import PROJECT
-from thermo.project.schema_types import MISSING, Choice, Items, Num, Obj, Text, Variant, walk
+from thermo.project.schema_types import MISSING, Changes, Choice, Items, Num, Obj, Raw, Text, Variant, walk
 
 #: schema path → meaning
 PROJECT_KEYS = {
@@ -40,9 +40,13 @@ PROJECT_KEYS = {
                                    "or `elevation_m`, not both; with neither, 101 325 Pa.",
     "site.elevation_m": "Site elevation; the barometric pressure then follows the ISO 2533 "
                         "standard atmosphere.",
-    "site.relative_humidity": "Relative humidity of the ambient air, as a fraction (0.6 = 60 %).",
+    "site.relative_humidity": "Relative humidity of the ambient air, as a fraction (0.6 = 60 %). As "
+                              "meteorological data give it: relative to liquid water, also below 0 °C "
+                              "(WMO-No. 8; supercooled water after Murphy & Koop 2005). Below 0 °C air "
+                              "above saturation over ice deposits the excess as rime on the intake (a caution).",
     "site.dew_point_K": "Dew point of the ambient air at the site pressure, instead of relative_humidity "
-                        "(at most one humidity key; not above ambient, not below 273.15 K: frost is out of scope).",
+                        "(at most one humidity key; not above ambient). Below 0.01 °C it is the frost point, over ice "
+                        "(IAPWS 2011); convert a meteorological dew point over supercooled water to relative_humidity.",
     "site.humidity_ratio": "Water vapour per dry air of the ambient air, kg/kg, instead of relative_humidity "
                            "(at most one humidity key; at most saturation).",
     "fluid": "How the properties of air are computed.",
@@ -120,6 +124,21 @@ PROJECT_KEYS = {
     "heat_recovery.boiler_efficiency": "Efficiency of that boiler (above 1 for condensing boilers, net basis).",
     "heat_recovery.operating_hours_per_year": "Hours for the yearly value; null: `year.operating_hours_per_year`, "
                                               "else 8760.",
+    "base_name": "Name of the base design (the document's own fields) among the project's cases.",
+    "cases": "Named cases: each is the base design with some fields changed (version 3). A case's results "
+             "are those of the same project saved on its own.",
+    "cases[]": "One case.",
+    "cases[].name": "The case's name: unique in the project, not the base's.",
+    "cases[].note": "Free text: what the case stands for.",
+    "cases[].changes": "The fields the case changes, each as a field path (`site.ambient_temperature_K`, "
+                       "`stages[1].cooler`, `stages` for another stage list) and its value in the same units as "
+                       "the field; `null` removes an optional key. Every other field follows the base.",
+    "snapshot": "The results as last saved (optional): on opening, the window shows them at once, solves again "
+                "and says which figures moved by more than 1e-6 relative, and why if the versions differ.",
+    "snapshot.stagewright_version": "Version of Stagewright that computed the snapshot.",
+    "snapshot.coolprop_version": "Version of CoolProp that computed the snapshot.",
+    "snapshot.saved_utc": "When the snapshot was taken (UTC, ISO 8601).",
+    "snapshot.results": "Each case's results by case name, in the form of `solve --json` (SI, unit in each key).",
     "year": "A year at the site: ambient profile, hours, load and prices (see *A year at the site* "
             "below), or null.",
     "year.profile": "The ambient profile: 12 months, or bins of hours.",
@@ -147,6 +166,66 @@ PROJECT_KEYS = {
     "year.load": "Scales the project's flow value (mass, volume or shaft power).",
     "year.energy_price_per_kWh": "Price of the driver's electricity (money per kWh).",
     "year.water_price_per_m3": "Price of cooling water, once-through kind `water` coolers (money per m³).",
+    "field_check": "Uncertainty of a field check's measured inputs and the guaranteed figures its results "
+                   "are judged against (see *Field-check uncertainty* below), or null.",
+    "field_check.uncertainties": "The measured inputs that carry an uncertainty, one entry each.",
+    "field_check.uncertainties[]": "One measured input and its uncertainty.",
+    "field_check.uncertainties[].kind": "`standard`: a standard uncertainty (Gaussian); `limits`: ±half-width, "
+                                        "u = a/√3 (rectangular, JCGM 100:2008 §4.3.7); `accuracy_class`: an "
+                                        "instrument's class in per cent of full scale (or of the reading), read "
+                                        "as limits.",
+    "field_check.uncertainties[]{standard}.input": "Field path of the measured input, e.g. "
+                                                   "`stages[1].efficiency.value_K` (see the list below).",
+    "field_check.uncertainties[]{standard}.standard_uncertainty": "Standard uncertainty, in the SI unit of the "
+                                                                  "input (its key names the unit).",
+    "field_check.uncertainties[]{limits}.input": "Field path of the measured input.",
+    "field_check.uncertainties[]{limits}.half_width": "Half-width a of the limits x ± a, in the SI unit of "
+                                                      "the input.",
+    "field_check.uncertainties[]{accuracy_class}.input": "Field path of the measured input.",
+    "field_check.uncertainties[]{accuracy_class}.class_percent": "Accuracy class: limit of error in per cent "
+                                                                 "of `full_scale`.",
+    "field_check.uncertainties[]{accuracy_class}.full_scale": "Full scale (span) of the instrument, in the SI "
+                                                              "unit of the input; null: the class is per cent "
+                                                              "of the reading.",
+    "field_check.guarantees": "Guaranteed figures, each with its tolerance.",
+    "field_check.guarantees[]": "One guaranteed figure.",
+    "field_check.guarantees[].kind": "`relative`: tolerance as a fraction of the guaranteed value; "
+                                     "`absolute`: in the figure's unit; `iso1217_annex_c`: ISO 1217 Annex C "
+                                     "tolerance on flow or specific power (values from memory).",
+    "field_check.guarantees[]{relative}.figure": "Result figure, by its path in the results: "
+                                                "`free_air_delivery_m3_s`, `specific_power_kW_per_m3_min`, "
+                                                "`stages[1].isentropic_efficiency`, `stages[0].cooler.duty_W` ….",
+    "field_check.guarantees[]{relative}.value": "Guaranteed value, in the figure's SI unit.",
+    "field_check.guarantees[]{relative}.limit": "`both`: value ± tolerance; `at_least`: not below value − "
+                                               "tolerance; `at_most`: not above value + tolerance.",
+    "field_check.guarantees[]{absolute}.figure": "Result figure, by its path in the results: "
+                                                "`free_air_delivery_m3_s`, `specific_power_kW_per_m3_min`, "
+                                                "`stages[1].isentropic_efficiency`, `stages[0].cooler.duty_W` ….",
+    "field_check.guarantees[]{absolute}.value": "Guaranteed value, in the figure's SI unit.",
+    "field_check.guarantees[]{absolute}.limit": "`both`: value ± tolerance; `at_least`: not below value − "
+                                               "tolerance; `at_most`: not above value + tolerance.",
+    "field_check.guarantees[]{iso1217_annex_c}.figure": "Result figure, by its path in the results: "
+                                                "`free_air_delivery_m3_s`, `specific_power_kW_per_m3_min`, "
+                                                "`stages[1].isentropic_efficiency`, `stages[0].cooler.duty_W` ….",
+    "field_check.guarantees[]{iso1217_annex_c}.value": "Guaranteed value, in the figure's SI unit.",
+    "field_check.guarantees[]{iso1217_annex_c}.limit": "`both`: value ± tolerance; `at_least`: not below value − "
+                                               "tolerance; `at_most`: not above value + tolerance.",
+    "field_check.guarantees[]{relative}.tolerance": "Tolerance as a fraction of the guaranteed value "
+                                                    "(0.05 = ±5 %).",
+    "field_check.guarantees[]{absolute}.tolerance": "Tolerance in the figure's SI unit.",
+    "field_check.monte_carlo_draws": "Draws of the Monte Carlo check (JCGM 101:2008).",
+    "field_check.seed": "Seed of the Monte Carlo draws (the same seed repeats a run).",
+    "year.coolers": "How the year treats the coolers that have a coolant side (thermo/year_design.py).",
+    "year.coolers.mode": "`size_every_bin`: each bin sizes every cooler afresh for its entry (a perfect "
+                         "exchanger every bin). `design_once`: each cooler is sized once at the design "
+                         "condition and every bin is rated at that fixed UA and design coolant flow; the air "
+                         "outlet, duty, coolant outlet and condensate then move with the bin.",
+    "year.coolers.design_condition": "Where `design_once` sizes the coolers: `site` (the project as "
+                                     "stated) or `hottest_bin` (the bin with the highest ambient).",
+    "year.coolers.ua_margin": "Fouling margin on UA: every bin is rated with (1 + margin) × the design UA. "
+                              "Default 0.10 is common practice, no source; 0 rates at the design UA.",
+    "year.coolers.max_dryer_inlet_temperature_K": "Highest temperature of the air reaching the dryer "
+                                                  "(the delivered air); warmer bins are flagged. Null: no limit.",
 }
 
 #: results path → meaning; ``point.*`` is the state-point object used by every state
@@ -273,8 +352,9 @@ RESULT_KEYS = {
     "point.density_kg_m3": "Density.",
     "point.velocity_m_s": "Velocity of the stream at this point.",
     "point.humidity_ratio": "Water vapour per unit mass of dry air, kg/kg.",
-    "point.relative_humidity": "Relative humidity, as a fraction.",
-    "point.dew_point_K": "Dew point at the point's pressure (null for dry air).",
+    "point.relative_humidity": "Relative humidity, as a fraction (relative to liquid water, also below 0 °C).",
+    "point.dew_point_K": "Dew point at the point's pressure; below 0.01 °C the frost point over ice "
+                         "(IAPWS 2011 sublimation pressure); null for dry air.",
     "point.liquid_ratio": "Liquid water carried per unit mass of dry air, kg/kg (moist air only).",
     "stages[].path[].humidity_ratio": "Water vapour per dry air at this point of the path (moist air only).",
     "stages[].path[].liquid_ratio": "Liquid water per dry air at this point of the path (moist air only).",
@@ -297,7 +377,8 @@ RESULT_KEYS = {
     "condensate_exergy_W": "Exergy leaving with the drained condensate.",
     "delivered_water_kg_s": "Water (vapour and liquid) leaving with the delivered air.",
     "delivered_liquid_kg_s": "Liquid water leaving with the delivered air.",
-    "delivered_pressure_dew_point_K": "Pressure dew point of the delivered air (null for a dry intake).",
+    "delivered_pressure_dew_point_K": "Pressure dew point of the delivered air; below 0.01 °C its frost "
+                                      "point over ice (IAPWS 2011); null for a dry intake.",
     "delivered_atmospheric_dew_point_K": "Dew point of the delivered air expanded to the site pressure.",
     "iso8573_humidity_class": "ISO 8573-1 water class the delivered air meets (table from memory).",
     "water_balance_residual": "Water in minus water out, relative to water in (0 for a dry intake).",
@@ -345,6 +426,10 @@ def _describe(node) -> tuple[str, str, str, str]:
         typ, unit, rng = "list", "", f"{node.min_length} to {node.max_length} items"
     elif isinstance(node, (Obj, Variant)):
         typ, unit, rng = "object" + null, "", ""
+    elif isinstance(node, Changes):
+        typ, unit, rng = "object", "", f"up to {node.max_items} field paths"
+    elif isinstance(node, Raw):
+        typ, unit, rng = "any" + null, "", ""
     else:
         raise TypeError(node)
     if getattr(node, "required", False):
@@ -353,7 +438,7 @@ def _describe(node) -> tuple[str, str, str, str]:
         default = "—"
     else:
         d = node.default
-        default = "null" if d is None else (f"`{d!r}`".replace("'", '"') if isinstance(d, (str, dict)) else _g(d))
+        default = "null" if d is None else (f"`{d!r}`".replace("'", '"') if isinstance(d, (str, dict, list)) else _g(d))
     return typ, unit, rng, default
 
 

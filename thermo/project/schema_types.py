@@ -8,7 +8,7 @@ allowed. It never raises on bad data and never evaluates anything.
 """
 from __future__ import annotations
 
-__all__ = ["Num", "Choice", "Text", "Obj", "Variant", "Items", "check", "walk", "MISSING"]
+__all__ = ["Num", "Choice", "Text", "Obj", "Variant", "Items", "Changes", "Raw", "check", "walk", "MISSING"]
 
 import json
 import math
@@ -98,6 +98,27 @@ class Items:
     default: Any = MISSING
 
 
+@dataclass(frozen=True)
+class Changes:
+    """An object mapping field paths (``site.ambient_temperature_K``, ``stages[1].cooler``) to
+    values: a case's differences from the base design. Each path must be well formed and start
+    at one of ``roots``; what the values mean is checked on the case's own document."""
+
+    roots: tuple = ()
+    required: bool = False
+    default: Any = MISSING
+    max_items: int = 200
+
+
+@dataclass(frozen=True)
+class Raw:
+    """Any JSON value, kept as it is (results kept with the file)."""
+
+    required: bool = False
+    nullable: bool = False
+    default: Any = MISSING
+
+
 def _is_number(v: Any) -> bool:
     return isinstance(v, (int, float)) and not isinstance(v, bool)
 
@@ -149,6 +170,27 @@ def _check_fields(fields: dict, v: dict, path: str, out: list, skip=()) -> dict:
     return result
 
 
+def _check_changes(schema: Changes, value: Any, path: str, out: list) -> dict:
+    from thermo.errors import InputError
+    from thermo.project.paths import parse_path
+
+    if not isinstance(value, dict):
+        out.append(Problem(path, value, "expected an object of field paths and their values"))
+        return {}
+    if len(value) > schema.max_items:
+        out.append(Problem(path, f"{len(value)} changes", f"expected at most {schema.max_items} changes"))
+        return {}
+    for key in value:
+        try:
+            first = parse_path(key)[0]
+        except InputError:
+            out.append(Problem(path, key, "expected a field path like stages[1].efficiency.value"))
+            continue
+        if first not in schema.roots:
+            out.append(Problem(path, key, "a case may change only " + ", ".join(schema.roots)))
+    return dict(value)
+
+
 def check(schema: Any, value: Any, path: str, out: list) -> Any:
     """Check ``value`` against ``schema``; append problems to ``out``; return normalised value."""
     if value is None and getattr(schema, "nullable", False):
@@ -190,6 +232,10 @@ def check(schema: Any, value: Any, path: str, out: list) -> Any:
         result = _check_fields(schema.variants[tag], value, path, out, skip=(schema.tag,))
         result[schema.tag] = tag
         return result
+    if isinstance(schema, Changes):
+        return _check_changes(schema, value, path, out)
+    if isinstance(schema, Raw):
+        return value
     if isinstance(schema, Items):
         if not isinstance(value, list):
             out.append(Problem(path, value, "expected a list"))

@@ -18,10 +18,12 @@ from typing import Any
 
 from thermo.atmosphere import SEA_LEVEL_PRESSURE, standard_pressure
 from thermo.errors import InputError, Problem, message_detail, quantity
+from thermo.project.case_changes import apply_changes
 from thermo.project.delivery import ABSOLUTE_KEY, delivery_pressure, stated_delivery
 from thermo.project.schema import PROJECT
 from thermo.project.schema_types import check
 from thermo.year_profile import year_problems
+from thermo.uncertainty.inputs import field_check_problems
 
 #: the site's ways of giving the intake humidity (the document allows at most one)
 HUMIDITY_KEYS = ("relative_humidity", "dew_point_K", "humidity_ratio")
@@ -35,7 +37,31 @@ def _check(doc: Any) -> tuple[dict, list[Problem]]:
     if not out:
         out.extend(_cross_checks(norm))
         out.extend(_humidity_checks(doc.get("site") or {}, norm))
+    if not out and norm.get("cases"):
+        out.extend(_case_checks(doc, norm))
     return norm, out
+
+
+def _case_checks(doc: dict, norm: dict) -> list[Problem]:
+    """Each case's name (unique, not the base's) and its own document's problems, reported at
+    ``cases[k].changes`` with the case's name and the field inside it."""
+    out: list[Problem] = []
+    seen = {norm["base_name"]}
+    for k, case in enumerate(norm["cases"]):
+        name = case["name"]
+        if not name.strip() or name in seen:
+            out.append(Problem(f"cases[{k}].name", name, "expected a name of its own (not empty, not another "
+                                                         "case's or the base's)"))
+        seen.add(name)
+        try:
+            own = apply_changes(doc, case["changes"])
+        except (KeyError, IndexError, TypeError, AttributeError, InputError) as exc:
+            out.append(Problem(f"cases[{k}].changes", name, f"a change runs through a field the base does not "
+                                                            f"have ({type(exc).__name__}: {exc})"))
+            continue
+        for p in _check(own)[1]:
+            out.append(Problem(f"cases[{k}].changes", p.value, f"in case {name!r}, {p.field}: {p.expected}"))
+    return out
 
 
 def _usable(value: Any) -> bool:
@@ -235,6 +261,7 @@ def _cross_checks(norm: dict) -> list[Problem]:
                                "required when the cooler outlet is given as an approach"))
         out.extend(_coolant_checks(cooler, f"stages[{i}].cooler"))
     out.extend(year_problems(norm))
+    out.extend(field_check_problems(norm))
     return out
 
 
@@ -284,11 +311,13 @@ def _coolant_checks(cooler: dict | None, where: str) -> list[Problem]:
     return out
 
 
-_ZERO_C = 273.15
-
-
 def _humidity_checks(raw_site: dict, norm: dict) -> list[Problem]:
-    """Moist intake: one humidity input, dew point not above ambient, nothing at or below freezing."""
+    """Moist intake: one humidity input, a dew (or frost) point not above ambient.
+
+    Intake air below 0 °C is in scope down to the schema's 223.15 K (relative humidity relative
+    to liquid water, a dew point below 0.01 °C a frost point; :mod:`thermo.moist.stream`), and
+    a cooler outlet below 0 °C is a caution of the solve (frozen condensate), not an input
+    problem."""
     out = []
     given = [k for k in HUMIDITY_KEYS if raw_site.get(k) is not None]
     if len(given) > 1:
@@ -302,32 +331,6 @@ def _humidity_checks(raw_site: dict, norm: dict) -> list[Problem]:
         out.append(Problem("site.dew_point_K", td,
                            f"expected at most the ambient temperature {T0:.2f} K (a dew point above "
                            "ambient would be fog)"))
-    if td is not None and td < _ZERO_C:
-        out.append(Problem("site.dew_point_K", td,
-                           "expected at least 273.15 K: dew points below 0 °C are frost points over ice, "
-                           "which is out of scope; give relative_humidity or humidity_ratio instead"))
-    moist = bool(site.get("relative_humidity")) or td is not None or bool(site.get("humidity_ratio"))
-    if not moist:
-        return out
-    if T0 < _ZERO_C:
-        out.append(Problem("site.ambient_temperature_K", T0,
-                           "moist intake air needs an ambient temperature of at least 273.15 K: water "
-                           "vapour over ice is out of scope; give relative_humidity 0 for a dry intake"))
-    for i, st in enumerate(norm["stages"]):
-        c = st.get("cooler")
-        if not c:
-            continue
-        if c.get("outlet_temperature_K") is not None:
-            field, value, t_out = "outlet_temperature_K", c["outlet_temperature_K"], c["outlet_temperature_K"]
-        elif c.get("approach_K") is not None and c.get("coolant_inlet_temperature_K") is not None:
-            field, value = "approach_K", c["approach_K"]
-            t_out = c["coolant_inlet_temperature_K"] + c["approach_K"]
-        else:
-            continue
-        if t_out < _ZERO_C:
-            out.append(Problem(f"stages[{i}].cooler.{field}", value,
-                               f"moist air must leave a cooler at 273.15 K or above (this gives {t_out:.2f} K): "
-                               "condensate would freeze, and ice is out of scope"))
     return out
 
 

@@ -93,12 +93,15 @@ class TrialSolver:
     (``fast=True``: interpolated enhancement factor for moist real-gas air, within 1e-4 of
     the exact path). The chosen split is then solved in full on the exact path. The document
     is normalised once; a trial changes only the stage ratios, so only they are checked
-    against the schema.
+    against the schema. Trials share their stage results: a trial that changes the ratio
+    of stage j takes stages before j from an earlier trial (``reuse`` of
+    :func:`thermo.solve.solve_normalised`; the same inputs give the same results).
     """
 
     def __init__(self, doc: dict, limits: list[SoftLimit], should_stop: Callable[[], bool]):
         self.doc, self.limits, self.should_stop = doc, limits, should_stop
         self._cache: dict[tuple, Trial] = {}
+        self._stages: dict = {}  # stage results shared by trials whose leading stages did not change
         self.solves = 0
         self.best: Trial | None = None  #: lowest-power feasible trial so far
 
@@ -114,7 +117,7 @@ class TrialSolver:
         self.solves += 1
         try:
             _check_ratios(key)
-            result = solve_normalised(doc, detail=False, fast=True)
+            result = solve_normalised(doc, detail=False, fast=True, reuse=self._stages)
         except StagewrightError as exc:
             trial = Trial(key, None, exc, None)
         else:
