@@ -102,6 +102,8 @@ def test_compare_runs_off_the_gui_thread_and_equals_each_case_alone(qtbot, tmp_p
     cool_kW = panel.outcomes[1].result["driver_power_W"] / 1e3
     assert cool_cell.startswith(f"{cool_kW:.2f}") and f"{cool_kW - base_kW:+.2f} kW".replace("-", "−") in cool_cell
     assert panel.canvas is not None and len(panel.canvas.figure.axes) >= 3
+    gids = {line.get_gid() for line in panel.paths_canvas.figure.axes[0].get_lines()}
+    assert {"Base:stage-1", "Cool day:stage-1", "Cool day:cooler-2"} <= gids  # the paths overlaid
     if os.environ.get("STAGEWRIGHT_SHOTS"):
         win.resize(1280, 800)
         panel.tabs.setCurrentIndex(0)
@@ -110,6 +112,9 @@ def test_compare_runs_off_the_gui_thread_and_equals_each_case_alone(qtbot, tmp_p
         panel.tabs.setCurrentIndex(1)
         qtbot.wait(200)
         win.grab().save(os.path.join(os.environ["STAGEWRIGHT_SHOTS"], "cases_chart.png"))
+        panel.tabs.setCurrentIndex(2)
+        qtbot.wait(200)
+        win.grab().save(os.path.join(os.environ["STAGEWRIGHT_SHOTS"], "cases_paths.png"))
     win.close()
 
 

@@ -343,3 +343,26 @@ def test_bad_study_input_is_reported_with_its_field(qtbot, tmp_path):
     field = win.panels["site"].field_for("site.ambient_temperature_K")
     qtbot.waitUntil(lambda: field.edit.hasFocus(), timeout=2000)
     win.close()
+
+
+def test_an_option_kept_as_a_case_solves_to_the_study_numbers(qtbot, tmp_path):
+    # issue 20: the options of a staging study can be kept as cases of the project
+    import thermo
+    from thermo.project.cases import case_document, case_names
+
+    win = make_window(qtbot, tmp_path, perfect_gas_doc())
+    ed = win.editor
+    panel = run(qtbot, win, 3)
+    panel.table.select_option(3)
+    act = win.action_map["train.study_keep_case"]
+    assert act.isEnabled()
+    count = ed.undo_stack.count()
+    act.trigger()
+    project = ed.model.project_snapshot()
+    assert case_names(project) == ["Base", "3 stages (study)"] and ed.undo_stack.count() == count + 1
+    assert ed.model.active_case == "Base" and ed.model.stage_count == 2  # the case shown is unchanged
+    kept = thermo.solve(case_document(project, "3 stages (study)"))
+    assert kept.driver_power_W / 1e3 == pytest.approx(optimum_kW(3), abs=0.006)
+    ed.undo_stack.undo()
+    assert case_names(ed.model.project_snapshot()) == ["Base"]
+    win.close()

@@ -111,6 +111,10 @@ class CasesPanel(QWidget):
         QVBoxLayout(self.chart_holder).setContentsMargins(0, 0, 0, 0)
         self.canvas = None
         self.tabs.addTab(self.chart_holder, "Chart")
+        self.paths_holder = QWidget()
+        QVBoxLayout(self.paths_holder).setContentsMargins(0, 0, 0, 0)
+        self.paths_canvas = None
+        self.tabs.addTab(self.paths_holder, "T–s paths")
         rv.addWidget(self.tabs, 1)
 
         split = QSplitter(Qt.Horizontal)
@@ -294,18 +298,25 @@ class CasesPanel(QWidget):
         self.table.resizeRowsToContents()
         self._draw(outcomes, reference.name if reference is not None else "", system)
 
+    @staticmethod
+    def _canvas(holder: QWidget, size: tuple[float, float]):
+        from matplotlib.backends.backend_qtagg import FigureCanvasQTAgg
+        from matplotlib.figure import Figure
+        canvas = FigureCanvasQTAgg(Figure(figsize=size, dpi=100))
+        canvas.setMinimumSize(320, 160)
+        holder.layout().addWidget(canvas)
+        return canvas
+
     def _draw(self, outcomes: list, reference: str, system: str) -> None:
-        if self.canvas is None:
-            from matplotlib.backends.backend_qtagg import FigureCanvasQTAgg
-            from matplotlib.figure import Figure
-            self.canvas = FigureCanvasQTAgg(Figure(figsize=(9, 2.6), dpi=100))
-            self.canvas.setMinimumSize(320, 160)
-            self.chart_holder.layout().addWidget(self.canvas)
         from app.charts.case_chart import draw_case_comparison
-        fig = self.canvas.figure
-        fig.clear()
-        draw_case_comparison(fig, outcomes, reference, system)
-        self.canvas.draw_idle()
+        from app.charts.case_ts_chart import draw_case_paths
+        if self.canvas is None:
+            self.canvas = self._canvas(self.chart_holder, (9, 2.6))
+            self.paths_canvas = self._canvas(self.paths_holder, (9, 3.2))
+        for canvas, draw in ((self.canvas, draw_case_comparison), (self.paths_canvas, draw_case_paths)):
+            canvas.figure.clear()
+            draw(canvas.figure, outcomes, reference, system)
+            canvas.draw_idle()
 
     def shutdown(self) -> None:
         self.runner.shutdown()

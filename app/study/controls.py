@@ -141,7 +141,7 @@ class StudyControls(QScrollArea):
     def add_action_buttons(self, actions: dict) -> None:
         """Run and Cancel under the inputs, Apply at the foot: buttons of the window's actions."""
         for key, row in (("train.study", self.buttons), ("train.study_cancel", self.buttons),
-                         ("train.study_apply", self.apply_row)):
+                         ("train.study_apply", self.apply_row), ("train.study_keep_case", self.apply_row)):
             if key in actions:
                 b = QToolButton()
                 b.setDefaultAction(actions[key])

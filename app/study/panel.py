@@ -250,6 +250,25 @@ class StudyPanel(QWidget):
         if self.editor.set_values([("stages", stages)], apply_text(row["stages"])):
             self._set_status(f"Applied the {row['stages']}-stage option: Edit ▸ Undo restores the previous train.")
 
+    def keep_selected_as_case(self) -> None:
+        """Add the selected option as a new case of the project, one undo step
+        ("train.study_keep_case"): the case shown with the option's stages."""
+        from thermo.project.case_changes import base_document, differences
+        from thermo.project.cases import add_case, case_document, unique_name
+
+        row = self.table.selected_row()
+        if not apply_state(row, self.answer, self.controller.busy, self.is_stale)[0]:
+            return
+        model = self.editor.model
+        project = model.project_snapshot()
+        own = case_document(project, model.active_case)
+        own["stages"] = option_stages(model.doc, row["pressure_ratios"], self.answer.get("first_efficiency"))
+        name = unique_name(project, f"{row['stages']} stages (study)")
+        new = add_case(project, name, differences(base_document(project), own),
+                       note=f"The staging study's {row['stages']}-stage option of “{model.active_case}”")
+        self.editor.replace_project(new, model.active_case, f"Keep the {row['stages']}-stage option as a case")
+        self._set_status(f"Kept the {row['stages']}-stage option as the case “{name}” (Cases panel).")
+
     def shutdown(self) -> None:
         """Stop the study thread (the window's closeEvent)."""
         self.controller.shutdown()
@@ -377,7 +396,8 @@ class StudyPanel(QWidget):
         busy = self.controller.busy
         stale = self.is_stale
         can_apply, text, why = apply_state(self.table.selected_row(), self.answer, busy, stale)
-        for key, on in (("train.study", not busy), ("train.study_cancel", busy), ("train.study_apply", can_apply)):
+        for key, on in (("train.study", not busy), ("train.study_cancel", busy), ("train.study_apply", can_apply),
+                        ("train.study_keep_case", can_apply)):
             if key in self.action_map:
                 self.action_map[key].setEnabled(on)
         if "train.study_apply" in self.action_map:

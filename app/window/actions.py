@@ -60,6 +60,9 @@ ACTIONS = [
     ActionSpec("train.study_apply", "Apply selected option", "study.apply_selected", "",
                "std:SP_DialogApplyButton",
                "Put the selected option's stages and pressure ratios into the project (one undo step)"),
+    ActionSpec("train.study_keep_case", "Keep selected option as a case", "study.keep_selected_as_case", "",
+               "", "Add the selected option to the project as a new case (one undo step); the case shown stays "
+                   "as it is", short="Keep as case"),
     ActionSpec("view.us_units", "US customary units", "window.set_us_units", "Ctrl+U", "",
                "Show every field and table in US customary units (the project stays in SI)", True,
                "US units"),
@@ -79,7 +82,7 @@ MENUS = {
     "&Edit": ["@undo", "@redo"],
     "&Train": ["train.add_stage", "train.insert_stage", "train.duplicate_stage", "train.remove_stage", "-",
                "train.move_up", "train.move_down", "-", "train.toggle_cooler", "-", "train.solve", "-",
-               "train.study", "train.study_cancel", "train.study_apply"],
+               "train.study", "train.study_cancel", "train.study_apply", "train.study_keep_case"],
     "&View": ["view.us_units", "view.gauge", "-", "@panels", "-", "view.reset_layout"],
     "&Help": ["help.cautions", "-", "help.about"],
 }
