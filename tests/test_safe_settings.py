@@ -72,3 +72,15 @@ def test_remove_unsafe_entries_keeps_plain_values(tmp_path):
     ini.write_text(plain + "\nbad=@DateTime(x)\nworse=a, @Variant(y)\ncont=a\\\n@Variant(z)\noct=\\100x", encoding="utf-8")
     assert len(remove_unsafe_entries(ini)) == 5
     assert ini.read_text(encoding="utf-8") == plain
+
+
+def test_quoted_and_continued_byte_arrays_are_kept_and_a_list_after_one_is_dropped(tmp_path):
+    # Qt quotes a byte array holding a separator and continues a long one on the next line with a
+    # trailing backslash (the window's dock state does both once the window has enough panels)
+    from app.window.safe_settings import remove_unsafe_entries
+    ini = tmp_path / "s.ini"
+    state = '"@ByteArray(\\0\\0\\0\\xff;\\0\\x14\\0p\\0\\x61\\\n\\0n\\0\\x65)"'
+    ini.write_text("[window]\nstate=" + state + '\nevil="@ByteArray(a)",@Variant(\\0)\n', encoding="utf-8")
+    dropped = remove_unsafe_entries(ini)
+    assert dropped == ['evil="@ByteArray(a)",@Variant(\\0)']
+    assert "state=" + state in ini.read_text(encoding="utf-8")

@@ -26,7 +26,11 @@ _TYPED_ELEMENT = re.compile(r'(?:^|,)[\s"]*@(?!@)')
 _ESCAPE = re.compile(r"\\(.)", re.DOTALL)
 #: escapes that could spell any character (hex, octal, Unicode)
 _CODE_ESCAPES = set("01234567xXuU")
-_SAFE_TYPED = re.compile(r"^\s*(?:@ByteArray\(.*\)|@Invalid\(\))\s*$")
+#: a byte array (or nothing) as the whole value: unquoted, with no list separator or quote in it, or
+#: quoted (Qt quotes a value with separators) with no unescaped quote inside — so no second,
+#: typed element can follow it
+_SAFE_TYPED = re.compile(r'^\s*(?:@ByteArray\((?:[^",;\\]|\\.)*\)|"@ByteArray\((?:[^"\\]|\\.)*\)"|@Invalid\(\))\s*$',
+                         re.DOTALL)
 
 
 def _safe_value(raw: str) -> bool:
@@ -54,21 +58,40 @@ def remove_unsafe_entries(path) -> list[str]:
     except UnicodeDecodeError:
         _replace(path, "")
         return ["(the whole file: not UTF-8)"]
-    kept, dropped, continued = [], [], False
-    for line in re.split(r"\r\n|\r|\n", text):
-        if continued or line.endswith("\\"):  # Qt joins a line ending in a backslash with the next
-            continued = line.endswith("\\")
-            dropped.append(line)
-            continue
+    kept, dropped = [], []
+    for entry in _entries(re.split(r"\r\n|\r|\n", text)):
+        line = "\n".join(entry)
         stripped = line.strip()
         if not stripped or stripped[0] in ";#[":
             kept.append(line)
             continue
-        _key, sep, value = line.partition("=")
-        (kept if sep and _safe_value(value) else dropped).append(line)
+        parts = [part[:-1] if part.endswith("\\") else part for part in entry]
+        _key, sep, value = "".join(parts).partition("=")
+        # judged as Qt reads it (the lines joined) and, to be safe, each continuation line alone
+        safe = sep and _safe_value(value) and (_SAFE_TYPED.match(value) or
+                                               not any(_TYPED_ELEMENT.search(part) for part in parts[1:]))
+        if safe:
+            kept.append(line)
+        else:
+            dropped.extend(entry)
     if dropped:
         _replace(path, "\n".join(kept))
     return dropped
+
+
+def _entries(lines: list[str]) -> list[list[str]]:
+    """Physical lines grouped into entries: Qt joins a line ending in a backslash with the next
+    (it writes long byte arrays that way), so an entry is judged as a whole."""
+    out: list[list[str]] = []
+    current: list[str] = []
+    for line in lines:
+        current.append(line)
+        if not line.endswith("\\"):
+            out.append(current)
+            current = []
+    if current:
+        out.append(current)
+    return out
 
 
 def _replace(path: Path, text: str) -> None:
