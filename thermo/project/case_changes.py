@@ -17,7 +17,7 @@ __all__ = ["DOCUMENT_ONLY_KEYS", "CHANGEABLE_KEYS", "apply_changes", "difference
 import copy
 from typing import Any, Mapping
 
-from thermo.project.paths import parse_path
+from thermo.project.paths import parent_at, parse_path
 
 #: keys of the project document that belong to the file, not to a design: never part of a case
 DOCUMENT_ONLY_KEYS = ("format", "version", "base_name", "cases", "snapshot")
@@ -76,13 +76,8 @@ def apply_changes(base: Mapping, changes: Mapping[str, Any]) -> dict:
     """
     doc = base_document(base)
     for path in sorted(changes, key=_order):
-        parts = parse_path(path)
-        node = doc
-        for part, nxt in zip(parts, parts[1:]):
-            if isinstance(part, str) and (part not in node or node[part] is None):
-                node[part] = [] if isinstance(nxt, int) else {}
-            node = node[part]
-        last, value = parts[-1], changes[path]
+        node, last = parent_at(doc, path)
+        value = changes[path]
         if value is None and isinstance(node, dict):
             node.pop(last, None)
         elif isinstance(node, list) and isinstance(last, int) and last == len(node):

@@ -5,7 +5,7 @@ commands and parameter sweeps, so a path from any of them can select or change a
 """
 from __future__ import annotations
 
-__all__ = ["parse_path", "get_path", "set_path"]
+__all__ = ["parse_path", "get_path", "set_path", "parent_at"]
 
 import re
 
@@ -42,12 +42,19 @@ def get_path(doc, path: str):
     return node
 
 
-def set_path(doc, path: str, value) -> None:
-    """Set the value at ``path`` in ``doc`` in place, creating missing objects on the way."""
+def parent_at(doc, path: str):
+    """``(container, last key or index)`` of ``path`` in ``doc``, creating missing objects (and
+    lists, before an index) on the way."""
     parts = parse_path(path)
     node = doc
     for part, nxt in zip(parts, parts[1:]):
         if isinstance(part, str) and (part not in node or node[part] is None):
             node[part] = [] if isinstance(nxt, int) else {}
         node = node[part]
-    node[parts[-1]] = value
+    return node, parts[-1]
+
+
+def set_path(doc, path: str, value) -> None:
+    """Set the value at ``path`` in ``doc`` in place, creating missing objects on the way."""
+    node, last = parent_at(doc, path)
+    node[last] = value
