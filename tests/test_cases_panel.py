@@ -39,6 +39,7 @@ def test_choosing_a_case_shows_it_and_edits_go_into_it_only(qtbot, tmp_path):
     panel.case_list.setCurrentRow(1)
     wait_solved(qtbot, win, after)
     assert win.model.active_case == "Cool day" and win.model.get("site.ambient_temperature_K") == 283.15
+    assert "case “Cool day”" in win.windowTitle()  # which option is on screen
     cool = thermo.solve(case_document(_two_case_doc(), "Cool day")).to_dict()
     assert win.editor.result["driver_power_W"] == cool["driver_power_W"]
     after = win.editor.solved_jobs

@@ -82,6 +82,7 @@ class MainWindow(QMainWindow):
         self.prompts = Prompts(self)
         self.files = FileController(self.editor, self.settings, self.prompts, self.statusBar(), path, self)
         self.files.state_changed.connect(self.update_title)
+        self.model.cases_changed.connect(self.update_title)
         self.exports = ExportController(self.editor, self.files, self.prompts, self.statusBar(), self,
                                         study_rows=lambda: self.study.current_rows())
         self.setWindowIcon(icon("app"))
@@ -146,7 +147,9 @@ class MainWindow(QMainWindow):
     def update_title(self) -> None:
         """File name and unsaved-changes mark in the title; Revert only for a modified saved file."""
         files = self.files
-        self.setWindowTitle(f"{files.document_name()}[*] — Stagewright")
+        names = self.model.case_names()
+        case = f" — case “{self.model.active_case}”" if len(names) > 1 else ""  # which option is on screen
+        self.setWindowTitle(f"{files.document_name()}[*]{case} — Stagewright")
         self.setWindowModified(files.is_modified())
         self.action_map["file.revert"].setEnabled(files.path is not None and files.is_modified())
 
