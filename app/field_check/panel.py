@@ -15,7 +15,6 @@ from PySide6.QtCore import Qt
 from PySide6.QtWidgets import (QAbstractItemView, QHBoxLayout, QLabel, QPlainTextEdit, QProgressBar, QPushButton,
                                QTableWidget, QTableWidgetItem, QTabWidget, QVBoxLayout, QWidget)
 
-from app.document.messages import error_text
 from app.field_check.inputs_editor import InputsEditor
 from app.field_check.worker import FieldCheckRunner
 from app.presentation import uncertainty_table as ut
@@ -132,9 +131,7 @@ class FieldCheckPanel(QWidget):
         self.refresh()
 
     def _on_failed(self, _job: int, message: str, field: str) -> None:
-        ed = self.editor
-        self._idle(error_text(message, field, self.runner.failure_detail, ed.model.doc, ed.prefs.system,
-                              gauge=ed.prefs.gauge, barometric_Pa=ed.barometric_Pa()))
+        self._idle(self.editor.failure_text(message, field, self.runner.failure_detail))
 
     def _idle(self, text: str) -> None:
         self.run_button.setEnabled(self.has_field_check())

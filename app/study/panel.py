@@ -20,7 +20,6 @@ from thermo.study.options import staging_note
 
 from app.widgets.plain_text import plain_label, plain_tip
 from app.presentation import units
-from app.document.messages import error_text
 from app.study.apply import apply_text, option_stages, study_key
 from app.study.chart_view import StagingChartView
 from app.study.controls import StudyControls
@@ -314,9 +313,7 @@ class StudyPanel(QWidget):
         self._pending = None
         self.answer, self._doc, self._key = None, None, ""
         self.controls.set_progress(0.0)
-        ed = self.editor
-        message = error_text(message, field, self.controller.failure_detail, ed.model.doc, ed.prefs.system,
-                             gauge=ed.prefs.gauge, barometric_Pa=ed.barometric_Pa())
+        message = self.editor.failure_text(message, field, self.controller.failure_detail)
         field = "" if field in _STUDY_INPUTS else field
         self._failure = (Message("problem", f"The staging study could not run: {message}", field),
                          key)

@@ -76,6 +76,14 @@ class Editor(QObject):
         ISO 2533 standard atmosphere at the elevation, else sea level)."""
         return barometric_pressure(self.model.get("site", {}))
 
+    def failure_text(self, message: str, field: str, detail: dict | None) -> str:
+        """A worker's failure (its SI message, field and message detail) in the display units and
+        field labels of this window (:func:`app.document.messages.error_text`)."""
+        from app.document.messages import error_text
+        p = self.prefs
+        return error_text(message, field, detail, self.model.doc, p.system, gauge=p.gauge,
+                          barometric_Pa=self.barometric_Pa())
+
     def problem_for(self, path: str) -> str | None:
         """Message marking the field at ``path`` (unreadable entry first, then range problem)."""
         if path in self.entry_errors:

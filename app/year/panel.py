@@ -15,7 +15,6 @@ from app.widgets.plain_text import plain_label
 from app.presentation import year_tables
 from app.presentation.figures import shown
 from app.year.chart_view import YearChartView
-from app.document.messages import error_text
 from app.year.editor import YearEditor
 from app.year.results_view import YearResultsView
 from app.year.worker import YearRunner
@@ -119,9 +118,7 @@ class YearPanel(QWidget):
         self.refresh()
 
     def _on_failed(self, _job: int, message: str, field: str) -> None:
-        ed = self.editor
-        self._idle(error_text(message, field, self.runner.failure_detail, ed.model.doc, ed.prefs.system,
-                              gauge=ed.prefs.gauge, barometric_Pa=ed.barometric_Pa()))
+        self._idle(self.editor.failure_text(message, field, self.runner.failure_detail))
 
     def _idle(self, text: str) -> None:
         self.run_button.setEnabled(self.has_profile())
