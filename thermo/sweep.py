@@ -11,12 +11,12 @@ __all__ = ["sweep", "axis_problems", "SweepResult", "SweepCancelled", "SWEEP_OUT
 import copy
 import itertools
 import math
-import multiprocessing
 import os
 from concurrent.futures import ProcessPoolExecutor
 from dataclasses import dataclass, field
 
 from thermo.project.paths import set_path
+from thermo.process_pool import pool_context
 from thermo.errors import InputError, StagewrightError
 from thermo.project.delivery import DELIVERY_KEYS, state_delivery
 from thermo.project.validation import normalise
@@ -110,14 +110,6 @@ def _solve_chunk(base_norm: dict, paths: list, chunk: list, bad: dict) -> list:
     return results
 
 
-def _pool_context():
-    methods = multiprocessing.get_all_start_methods()
-    if "forkserver" in methods:
-        ctx = multiprocessing.get_context("forkserver")
-        ctx.set_forkserver_preload(["thermo"])
-        return ctx
-    return multiprocessing.get_context("spawn")
-
 
 def sweep(doc: dict, axes: dict, *, processes: int | None = None, progress=None, cancel=None) -> SweepResult:
     """Solve ``doc`` at every point of the grid spanned by ``axes``.
@@ -197,7 +189,7 @@ def sweep(doc: dict, axes: dict, *, processes: int | None = None, progress=None,
                 raise _cancelled()
             _collect(_solve_chunk(base_norm, paths, ch, bad))
     else:
-        with ProcessPoolExecutor(max_workers=n_proc, mp_context=_pool_context()) as pool:
+        with ProcessPoolExecutor(max_workers=n_proc, mp_context=pool_context()) as pool:
             futures = [pool.submit(_solve_chunk, base_norm, paths, ch, bad) for ch in chunks]
             for fut in futures:
                 if is_cancelled():

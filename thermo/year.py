@@ -293,10 +293,10 @@ def _solve_chunk(job: _Job, chunk: list) -> list:
 def _run_in_pool(job: _Job, bins: list, n_proc: int, progress, cancelled) -> list:
     """The bins in chunks of CHUNK_BINS on ``n_proc`` worker processes, in order."""
     from concurrent.futures import ProcessPoolExecutor  # local: most years are short
-    from thermo.sweep import _pool_context
+    from thermo.process_pool import pool_context
     chunks = [bins[i:i + CHUNK_BINS] for i in range(0, len(bins), CHUNK_BINS)]
     out: list = []
-    with ProcessPoolExecutor(max_workers=n_proc, mp_context=_pool_context()) as pool:
+    with ProcessPoolExecutor(max_workers=n_proc, mp_context=pool_context()) as pool:
         futures = [pool.submit(_solve_chunk, job, ch) for ch in chunks]
         for ch, fut in zip(chunks, futures):
             if cancelled is not None and cancelled():

@@ -20,13 +20,13 @@ __all__ = ["MonteCarloResult", "MonteCarloCancelled", "draw_inputs", "propagate_
            "COVERAGE_PROBABILITY"]
 
 import math
-import multiprocessing
 from concurrent.futures import ProcessPoolExecutor
 from dataclasses import dataclass
 
 import numpy as np
 
 from thermo.errors import StagewrightError
+from thermo.process_pool import pool_context
 
 COVERAGE_PROBABILITY = math.erf(2.0 / math.sqrt(2.0))  #: 0.9545: ±2 σ of a Gaussian
 _CHUNK = 250
@@ -84,14 +84,6 @@ def _solve_chunk(model, xs: np.ndarray) -> tuple[np.ndarray, list]:
     return ys, failures
 
 
-def _pool_context():
-    methods = multiprocessing.get_all_start_methods()
-    if "forkserver" in methods:
-        ctx = multiprocessing.get_context("forkserver")
-        ctx.set_forkserver_preload(["thermo"])
-        return ctx
-    return multiprocessing.get_context("spawn")
-
 
 def propagate_monte_carlo(model, draws: int, seed: int, *, processes: int = 1, progress=None,
                           cancel=None) -> MonteCarloResult:
@@ -140,7 +132,7 @@ def propagate_monte_carlo(model, draws: int, seed: int, *, processes: int = 1, p
                 raise MonteCarloCancelled(done, draws)
             collect(_solve_chunk(model, ch))
     else:
-        with ProcessPoolExecutor(max_workers=processes, mp_context=_pool_context()) as pool:
+        with ProcessPoolExecutor(max_workers=processes, mp_context=pool_context()) as pool:
             futures = [pool.submit(_solve_chunk, model, ch) for ch in chunks]
             for fut in futures:
                 if is_cancelled():
