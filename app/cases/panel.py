@@ -157,59 +157,41 @@ class CasesPanel(QWidget):
         if item is not None:
             self.model.activate(item.data(Qt.UserRole))
 
-    def _push(self, new_doc: dict, show: str | None, text: str) -> None:
-        self.editor.replace_project(new_doc, show, text)
+    def _apply(self, operation, args: tuple, show: str | None, text: str) -> None:
+        """``operation(project, *args)`` (a :mod:`thermo.project.cases` function) as one undo
+        step showing case ``show``; a refusal is said in the status line and nothing changes."""
+        try:
+            new = operation(self.model.project_snapshot(), *args)
+        except StagewrightError as exc:
+            self.status.setText(f"Not done: {getattr(exc, 'problem', None) and exc.problem.expected or exc}.")
+            return
+        self.editor.replace_project(new, show, text)
 
     def _ask_name(self, title: str, start: str) -> str | None:
         name, ok = QInputDialog.getText(self, title, "Case name:", text=start)
         return name.strip() if ok and name.strip() else None
 
-    def _refuse(self, exc: StagewrightError) -> None:
-        self.status.setText(f"Not done: {getattr(exc, 'problem', None) and exc.problem.expected or exc}.")
-
     def new_case(self, name: str | None = None) -> None:
         """Add a case: a copy of the case shown (``name`` given: no question)."""
-        doc = self.model.project_snapshot()
         shown_case = self.model.active_case
-        name = name or self._ask_name("New case", project_cases.unique_name(doc, f"{shown_case} variant"))
-        if not name:
-            return
-        try:
-            new = project_cases.duplicate_case(doc, shown_case, name)
-        except StagewrightError as exc:
-            self._refuse(exc)
-            return
-        self._push(new, name, f"New case {name}")
+        start = project_cases.unique_name(self.model.project_snapshot(), f"{shown_case} variant")
+        name = name or self._ask_name("New case", start)
+        if name:
+            self._apply(project_cases.duplicate_case, (shown_case, name), name, f"New case {name}")
 
     def rename_case(self, name: str | None = None) -> None:
         old = self.model.active_case
         name = name or self._ask_name("Rename case", old)
-        if not name or name == old:
-            return
-        try:
-            new = project_cases.rename_case(self.model.project_snapshot(), old, name)
-        except StagewrightError as exc:
-            self._refuse(exc)
-            return
-        self._push(new, name, f"Rename case {old} to {name}")
+        if name and name != old:
+            self._apply(project_cases.rename_case, (old, name), name, f"Rename case {old} to {name}")
 
     def remove_case(self) -> None:
         name = self.model.active_case
-        try:
-            new = project_cases.remove_case(self.model.project_snapshot(), name)
-        except StagewrightError as exc:
-            self._refuse(exc)
-            return
-        self._push(new, None, f"Remove case {name}")
+        self._apply(project_cases.remove_case, (name,), None, f"Remove case {name}")
 
     def make_base(self) -> None:
         name = self.model.active_case
-        try:
-            new = project_cases.make_base(self.model.project_snapshot(), name)
-        except StagewrightError as exc:
-            self._refuse(exc)
-            return
-        self._push(new, None, f"Make {name} the base")
+        self._apply(project_cases.make_base, (name,), None, f"Make {name} the base")
 
     # ---- comparing -------------------------------------------------------------------------
     def compare(self) -> None:
