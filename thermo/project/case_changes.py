@@ -23,7 +23,8 @@ from thermo.project.paths import parent_at, parse_path
 DOCUMENT_ONLY_KEYS = ("format", "version", "base_name", "cases", "snapshot")
 #: the top-level keys a case may change
 CHANGEABLE_KEYS = ("title", "note", "site", "fluid", "flow", "inlet_pressure_drop_Pa", "discharge_pressure_Pa",
-                   "discharge_gauge_pressure_Pa", "driver", "stages", "heat_recovery", "year", "field_check")
+                   "discharge_gauge_pressure_Pa", "driver", "stages", "heat_recovery", "year", "field_check",
+                   "package")
 
 
 def base_document(doc: Mapping) -> dict:

@@ -8,7 +8,7 @@ from __future__ import annotations
 
 __all__ = ["FORMAT_NAME", "FORMAT_VERSION", "PROJECT", "STAGE", "COOLER", "EFFICIENCY",
            "FLOW_KINDS", "MODEL_NAMES", "COOLANT", "COOLANT_KINDS", "ARRANGEMENT_NAMES",
-           "HEAT_RECOVERY", "YEAR", "YEAR_COOLERS", "CASE", "SNAPSHOT", "FIELD_CHECK"]
+           "HEAT_RECOVERY", "YEAR", "YEAR_COOLERS", "CASE", "SNAPSHOT", "FIELD_CHECK", "CONTROL_KINDS", "PACKAGE"]
 
 from thermo.project.case_changes import CHANGEABLE_KEYS
 from thermo.project.schema_types import Changes, Choice, Items, Num, Obj, Raw, Text, Variant
@@ -111,6 +111,55 @@ YEAR = Obj(nullable=True, default=None, fields={
     "coolers": YEAR_COOLERS,
 })
 
+#: capacity control of the package (thermo.part_load). A receiver and pressure band set the
+#: cycles of the controls that stop delivering air (ideal gas, isothermal receiver). Defaults
+#: without a published source are marked in thermo/part_load/defaults.py.
+_STORAGE = {
+    "receiver_volume_m3": Num(0.0, 1.0e4, unit="m³", lo_open=True, required=True),
+    "pressure_band_Pa": Num(0.0, 2.0e6, unit="Pa", lo_open=True, default=50_000.0),
+    "unloaded_power_fraction": Num(0.0, 1.0, default=0.25),
+    "blowdown_time_s": Num(0.0, 3600.0, unit="s", default=40.0),
+}
+CONTROL_KINDS = ("load_unload", "modulation", "variable_speed", "start_stop", "measured_curve")
+_CURVE_POINT = Obj(fields={"flow_fraction": Num(0.0, 1.0, required=True),
+                           "power_fraction": Num(0.0, 2.0, required=True)})
+CONTROL = Variant(required=True, variants={
+    "load_unload": dict(_STORAGE),
+    "modulation": {"zero_flow_power_fraction": Num(0.0, 1.0, default=0.70)},
+    "variable_speed": {**_STORAGE, "min_speed_fraction": Num(0.05, 1.0, default=0.30),
+                       "specific_power_rise_at_min_speed": Num(0.0, 1.0, default=0.10),
+                       "drive_efficiency": Num(0.5, 1.0, default=0.97),
+                       "drive_fixed_loss_share": Num(0.0, 1.0, default=0.30)},
+    "start_stop": {**_STORAGE, "max_starts_per_hour": Num(0.0, 120.0, lo_open=True, default=6.0)},
+    "measured_curve": {"points": Items(_CURVE_POINT, min_length=2, max_length=50, required=True)},
+})
+
+#: the whole package: capacity control, the motor at part load, auxiliaries, a load profile
+PACKAGE = Obj(nullable=True, default=None, fields={
+    "control": CONTROL,
+    "motor": Obj(default={}, fields={
+        "rated_output_W": Num(0.0, 1.0e9, unit="W", lo_open=True, nullable=True, default=None),
+        "fixed_loss_share": Num(0.0, 1.0, default=0.35),
+        "efficiency_points": Items(Obj(fields={"load_fraction": Num(0.0, 1.5, lo_open=True, required=True),
+                                               "efficiency": Num(0.01, 1.0, required=True)}),
+                                   max_length=20, default=[]),
+    }),
+    "fan_power_W": Num(0.0, 1.0e7, unit="W", default=0.0),
+    "pump": Obj(nullable=True, default=None, fields={
+        "head_m": Num(0.0, 500.0, unit="m", lo_open=True, required=True),
+        "efficiency": Num(0.05, 1.0, default=0.70),
+    }),
+    "other_loads": Items(Obj(fields={"name": Text(required=True, max_length=80),
+                                     "power_W": Num(0.0, 1.0e8, unit="W", required=True)}),
+                         max_length=20, default=[]),
+    "load": Num(0.0, 1.0, lo_open=True, default=1.0),
+    "part_loads": Items(Num(0.0, 1.0, lo_open=True), min_length=1, max_length=10,
+                        default=[1.0, 0.75, 0.5, 0.25]),
+    "load_profile": Items(Obj(fields={"load": Num(0.0, 1.0, required=True),
+                                      "hours": Num(0.0, 8784.0, unit="h", lo_open=True, required=True)}),
+                          max_length=100, default=[]),
+})
+
 #: a named case: the base design with some fields changed (thermo.project.case_changes)
 CASE = Obj(fields={
     "name": Text(required=True, max_length=80),
@@ -188,6 +237,7 @@ PROJECT = Obj(one_of=(("discharge_pressure_Pa", "discharge_gauge_pressure_Pa"),)
     "heat_recovery": HEAT_RECOVERY,
     "year": YEAR,
     "field_check": FIELD_CHECK,
+    "package": PACKAGE,
     # version 3: options as cases of one project (thermo.project.cases) and the results last saved
     "base_name": Text(default="Base", max_length=80),
     "cases": Items(CASE, max_length=50, default=[]),
