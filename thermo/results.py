@@ -201,6 +201,8 @@ class TrainResult:
     warnings: list = field(default_factory=list)
     recovery: object = None  #: thermo.heat_recovery.RecoveryResult when the project asks for heat recovery
     water: WaterResult | None = None  #: moist intake air only
+    #: thermo.part_load.figures.PackageFigures when the project has a ``package`` section (detailed solves)
+    package: object = None
 
     def to_dict(self) -> dict:
         """Plain-data form (JSON-ready, no NaN: missing values are ``None``).
@@ -238,6 +240,7 @@ class TrainResult:
             "cooling_water_m3_s": cooling_water_m3_s(self.coolers),
             "recoverable_heat_W": None if self.recovery is None else self.recovery.recoverable_heat_W,
             "heat_recovery": _recovery_dict(self.recovery),
+            "package": None if self.package is None else self.package.to_dict(),
             "warnings": [w.to_dict() for w in self.warnings],
         }
         d.update(self._water_dict())

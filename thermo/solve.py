@@ -112,8 +112,13 @@ def solve_normalised(norm: dict, detail: bool = True, fast: bool = False, reuse:
         # moist intake: FAD refers to the moist air, so the intake's stream model converts it
         m = mass_flow_from(flow["kind"], flow["value"], ctx.intake.model, ctx.site.ambient_temperature_K,
                            ctx.site.pressure_Pa, ambient=ctx.intake.ambient)
-        return solve_train(ctx, m, detail, reuse)
-    return _solve_for_power(ctx, flow["value"], fixed, detail)
+        res = solve_train(ctx, m, detail, reuse)
+    else:
+        res = _solve_for_power(ctx, flow["value"], fixed, detail)
+    if detail and norm.get("package"):
+        from thermo.part_load.figures import package_figures  # only projects with a package need it
+        res.package = package_figures(norm, res)
+    return res
 
 
 def _casing_power(norm: dict, target_W: float) -> float:

@@ -129,7 +129,7 @@ CONTROL = Variant(required=True, variants={
     "variable_speed": {**_STORAGE, "min_speed_fraction": Num(0.05, 1.0, default=0.30),
                        "specific_power_rise_at_min_speed": Num(0.0, 1.0, default=0.10),
                        "drive_efficiency": Num(0.5, 1.0, default=0.97),
-                       "drive_fixed_loss_share": Num(0.0, 1.0, default=0.30)},
+                       "drive_fixed_loss_share": Num(0.0, 1.0, default=0.50)},
     "start_stop": {**_STORAGE, "max_starts_per_hour": Num(0.0, 120.0, lo_open=True, default=6.0)},
     "measured_curve": {"points": Items(_CURVE_POINT, min_length=2, max_length=50, required=True)},
 })
