@@ -196,3 +196,35 @@ def test_case_may_change_the_control():
     doc["cases"] = [{"name": "VSD", "changes": {"package.control": CONTROLS["variable_speed"]}}]
     norm = normalise(copy.deepcopy(doc))
     assert norm["package"]["control"]["kind"] == "load_unload"
+
+
+def _year_doc(package: dict | None) -> dict:
+    doc = json.loads((SAMPLES / "two_stage_plant_air.json").read_text())
+    doc["year"] = {"profile": {"kind": "bins", "bins": [
+        {"temperature_K": 278.15, "relative_humidity": 0.7, "hours": 2000.0, "load": 0.5},
+        {"temperature_K": 298.15, "relative_humidity": 0.5, "hours": 3000.0, "load": 0.8},
+        {"temperature_K": 303.15, "relative_humidity": 0.4, "hours": 1000.0, "load": 1.0}]}}
+    if package is not None:
+        doc["package"] = package
+    return doc
+
+
+def test_year_bins_go_through_the_control():
+    """Each bin's power is the package point of that bin's own solve; at full load the bin keeps
+    today's driver power exactly; part-load bins cost more than the proportional year."""
+    from thermo.year import run_year
+    plain = run_year(_year_doc(None), exact=True)
+    pkg = {"control": CONTROLS["modulation"], "fan_power_W": 1500.0}
+    year = run_year(_year_doc(pkg), exact=True)
+    assert plain.power_basis == "proportional" and year.power_basis == "modulation"
+    by_load = {b.load: (p, b) for p, b in zip(plain.bins, year.bins)}
+    p, b = by_load[1.0]
+    assert b.driver_power_W == pytest.approx(p.driver_power_W, rel=1e-12)
+    assert b.package_power_W == pytest.approx(p.driver_power_W + 1500.0, rel=1e-12)
+    p, b = by_load[0.5]
+    # modulation at half load: shaft 0.85 of the bin's full-load shaft power (solve at 0.5 × flow, / 0.5)
+    full_shaft = p.driver_power_W * 0.955 / 0.5
+    assert b.driver_power_W > p.driver_power_W
+    assert year.totals["energy_kWh"] > plain.totals["energy_kWh"]
+    assert year.totals["auxiliary_kWh"] == pytest.approx(1.5 * 6000.0)
+    assert 0.85 * full_shaft < b.driver_power_W < 0.85 * full_shaft / 0.9

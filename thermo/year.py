@@ -13,7 +13,11 @@ temperature, and its figures are weighted by the bin's operating hours :math:`t_
 Condensate volume is taken at :math:`\rho_w` = 1000 kg/m³. Cooling-water volume is the
 volume of water-kind coolant passed through the coolers (once-through use; in a closed
 circuit it is circulation, not consumption); glycol circuits are reported separately.
-Load scales the project's flow value (mass, volume or shaft power). Air-cooled coolers
+Load scales the project's flow value (mass, volume or shaft power). With a ``package``
+section each bin's power goes through the capacity control, motor, drive and auxiliaries
+(:mod:`thermo.part_load.in_year`) and :math:`P_{driver,j}` above is the package input; without
+one it is in proportion to the flow at full-load efficiency (optimistic below full load: the
+result's ``power_basis`` says which). Air-cooled coolers
 take their coolant inlet from the bin's ambient temperature; water and glycol coolers
 keep theirs unless the bin gives ``coolant_inlet_temperature_K``.
 
@@ -35,6 +39,7 @@ import os
 from dataclasses import asdict, dataclass, field
 from functools import partial
 
+from thermo.part_load.in_year import bin_power
 from thermo.project.validation import normalise
 from thermo.errors import InputError, StagewrightError
 from thermo.solve import release_thread_models, solve_normalised
@@ -88,6 +93,10 @@ class BinResult:
     meets_limits: bool = True
     #: a cooler's condensate would freeze, or nearly (thermo.moist.freezing): freeze protection needed
     freezing_condensate: bool = False
+    #: auxiliaries (fans, pump, fixed loads) and package input through the control (thermo.part_load);
+    #: without a ``package`` section 0 and the driver power
+    auxiliary_power_W: float = 0.0
+    package_power_W: float = 0.0
 
 
 @dataclass
@@ -100,11 +109,13 @@ class YearResult:
     worst_duty_bin: str
     cooler_mode: str = "size_every_bin"
     design: YearDesign | None = None  #: the coolers' design (``design_once``)
+    #: how part-load power was found: through the package's control, or in proportion to flow
+    power_basis: str = "proportional"
 
     def to_dict(self) -> dict:
         """Plain data (JSON-ready): ``bins``, ``totals``, worst bins, the coolers' design."""
         return {"bins": [asdict(b) for b in self.bins], "totals": dict(self.totals),
-                "cooler_mode": self.cooler_mode,
+                "cooler_mode": self.cooler_mode, "power_basis": self.power_basis,
                 "freezing_bins": [b.label for b in self.bins if b.freezing_condensate],
                 "cooler_design": None if self.design is None else self.design.to_dict(),
                 "worst_discharge_temperature": {"bin": self.worst_discharge_bin,
@@ -126,23 +137,25 @@ def _cooler_figures(res) -> tuple:
     return outs, coolant, duties, cond
 
 
-def _bin_result(res, b: Bin, year: dict, rec: dict | None, flags: list) -> BinResult:
-    """A bin's figures from its solve (no ``to_dict``: only what the year reports)."""
+def _bin_result(res, b: Bin, year: dict, rec: dict | None, flags: list, norm: dict | None = None) -> BinResult:
+    """A bin's figures from its solve (no ``to_dict``: only what the year reports); its power
+    through the package's control when ``norm`` has a ``package`` section."""
     seconds = 3600.0 * b.hours
+    power = bin_power(norm or {}, res, b.load)
     coolers = [c for c in res.coolers if c is not None]
     water = sum(c.exchanger.coolant.volume_flow_m3_s for c in coolers
                 if c.exchanger is not None and c.exchanger.coolant.kind == "water")
     glycol = sum(c.exchanger.coolant.volume_flow_m3_s for c in coolers
                  if c.exchanger is not None and c.exchanger.coolant.kind == "glycol")
     condensate_kg_s = res.water.condensate_kg_s if res.water is not None else 0.0
-    energy = res.driver_power_W * b.hours / 1000.0
+    energy = power.package_power_W * b.hours / 1000.0
     q_rec = None if res.recovery is None else res.recovery.recoverable_heat_W
     rec_kwh = (q_rec or 0.0) * b.hours / 1000.0
     value = rec_kwh / rec["boiler_efficiency"] * rec["fuel_price_per_kWh"] if rec else 0.0
     outs, coolant, duties, cond = _cooler_figures(res)
     return BinResult(
         label=b.label, temperature_K=b.temperature_K, relative_humidity=b.relative_humidity, hours=b.hours,
-        load=b.load, driver_power_W=res.driver_power_W, energy_kWh=energy,
+        load=b.load, driver_power_W=power.driver_power_W, energy_kWh=energy,
         energy_cost=energy * year["energy_price_per_kWh"],
         condensate_m3=condensate_kg_s * seconds / CONDENSATE_DENSITY_KG_M3,
         cooling_water_m3=water * seconds, glycol_circulated_m3=glycol * seconds,
@@ -155,7 +168,8 @@ def _bin_result(res, b: Bin, year: dict, rec: dict | None, flags: list) -> BinRe
         dryer_inlet_temperature_K=res.delivery.T,
         pressure_dew_point_K=None if res.water is None else res.water.delivered_pressure_dew_point_K,
         limit_flags=flags, meets_limits=not flags,
-        freezing_condensate=any(w.field.endswith(".cooler") and "freez" in w.message for w in res.warnings))
+        freezing_condensate=any(w.field.endswith(".cooler") and "freez" in w.message for w in res.warnings),
+        auxiliary_power_W=power.auxiliary_power_W, package_power_W=power.package_power_W)
 
 
 def _in_bin(b: Bin, fn, *args):
@@ -232,7 +246,10 @@ def run_year(doc: dict, progress=None, cancelled=None, exact: bool | None = None
     n_proc = processes or ((os.cpu_count() or 1) if len(bins) >= POOL_BINS else 1)
     out = (_run_in_process(job, bins, progress, cancelled) if n_proc <= 1 else
            _run_in_pool(job, bins, n_proc, progress, cancelled))
-    return _year_result(out, settings["mode"], design, settings.get("max_dryer_inlet_temperature_K"))
+    result = _year_result(out, settings["mode"], design, settings.get("max_dryer_inlet_temperature_K"))
+    if norm.get("package"):
+        result.power_basis = norm["package"]["control"]["kind"]
+    return result
 
 
 def _solver(exact: bool):
@@ -256,7 +273,7 @@ def _solve_bin(job: _Job, b: Bin) -> BinResult:
     design = job.design
     res = _in_bin(b, _solver(job.exact), norm_for_bin(job.base, b, None if design is None else design.rating()))
     flags = limit_flags(b, res, design, job.year["coolers"].get("max_dryer_inlet_temperature_K"))
-    return _bin_result(res, b, job.year, job.rec, flags)
+    return _bin_result(res, b, job.year, job.rec, flags, job.base)
 
 
 def _cancelled_error(out: list, total: int) -> YearCancelled:
@@ -332,6 +349,7 @@ def _year_result(out: list, mode: str, design, max_dryer: float | None = None) -
     totals["cost"] = totals["energy_cost"] + totals["water_cost"] - totals["recovered_value"]
     hours = totals["hours"]
     totals["mean_driver_power_W"] = totals["energy_kWh"] * 1000.0 / hours if hours > 0 else 0.0
+    totals["auxiliary_kWh"] = sum(b.auxiliary_power_W * b.hours / 1000.0 for b in out)
     missed = [b for b in out if b.limit_flags]
     totals["bins_missing_limits"] = len(missed)
     totals["hours_missing_limits"] = sum(b.hours for b in missed)

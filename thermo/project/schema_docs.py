@@ -215,6 +215,75 @@ PROJECT_KEYS = {
     "field_check.guarantees[]{absolute}.tolerance": "Tolerance in the figure's SI unit.",
     "field_check.monte_carlo_draws": "Draws of the Monte Carlo check (JCGM 101:2008).",
     "field_check.seed": "Seed of the Monte Carlo draws (the same seed repeats a run).",
+    "package": "The whole package at part load (thermo/part_load/): capacity control, the motor, auxiliaries, "
+               "a stated load and a load profile. Null: part-load power in proportion to flow (optimistic).",
+    "package.control": "Capacity control: how the package meets a demand below its full capacity.",
+    "package.control.kind": "`load_unload`: full capacity or none, cycling on a receiver; `modulation`: inlet "
+                            "throttling; `variable_speed`: speed follows demand down to a minimum speed; "
+                            "`start_stop`: the motor stops when the receiver is full; `measured_curve`: your own "
+                            "power-against-flow points.",
+    "package.control{load_unload}.receiver_volume_m3": "Receiver and piping volume the control cycles on.",
+    "package.control{load_unload}.pressure_band_Pa": "Pressure band between loading and unloading.",
+    "package.control{load_unload}.unloaded_power_fraction": "Shaft power when fully unloaded, as a share of "
+                                                            "full-load power (default 0.25: common practice, no "
+                                                            "source).",
+    "package.control{load_unload}.blowdown_time_s": "Time constant of the fall from loaded to unloaded power "
+                                                    "(default 40 s: common practice, no source).",
+    "package.control{modulation}.zero_flow_power_fraction": "Shaft power at zero flow as a share of full-load "
+                                                            "power; power falls linearly to it (default 0.70: DOE "
+                                                            "sourcebook, from memory).",
+    "package.control{variable_speed}.receiver_volume_m3": "Receiver volume for cycling below the minimum speed.",
+    "package.control{variable_speed}.pressure_band_Pa": "Pressure band for cycling below the minimum speed.",
+    "package.control{variable_speed}.unloaded_power_fraction": "Unloaded power below the minimum speed, as a "
+                                                               "share of the minimum-speed power.",
+    "package.control{variable_speed}.blowdown_time_s": "Blowdown time constant when cycling below the "
+                                                       "minimum speed.",
+    "package.control{variable_speed}.min_speed_fraction": "Lowest speed over full speed (default 0.30: common "
+                                                          "practice, no source).",
+    "package.control{variable_speed}.specific_power_rise_at_min_speed": "Rise of specific power at the minimum "
+                                                                        "speed over full speed, linear between "
+                                                                        "(0.10 = 10 % more; common practice, no "
+                                                                        "source).",
+    "package.control{variable_speed}.drive_efficiency": "Drive efficiency at full load (default 0.97: common "
+                                                        "practice, no source).",
+    "package.control{variable_speed}.drive_fixed_loss_share": "Share of the drive's full-load losses that stays "
+                                                              "at any load (default 0.5).",
+    "package.control{start_stop}.receiver_volume_m3": "Receiver and piping volume the control cycles on.",
+    "package.control{start_stop}.pressure_band_Pa": "Pressure band between starting and stopping.",
+    "package.control{start_stop}.unloaded_power_fraction": "Unloaded power in the cycles the starts limit "
+                                                           "keeps running, as a share of full-load power.",
+    "package.control{start_stop}.blowdown_time_s": "Blowdown time constant of those unloaded periods.",
+    "package.control{start_stop}.max_starts_per_hour": "Most motor starts an hour (default 6: common "
+                                                       "practice, no source; the motor's supplier states its own).",
+    "package.control{measured_curve}.points": "Measured part-load curve, interpolated linearly.",
+    "package.control{measured_curve}.points[]": "One point of the curve.",
+    "package.control{measured_curve}.points[].flow_fraction": "Delivered flow over full capacity.",
+    "package.control{measured_curve}.points[].power_fraction": "Shaft power over full-load shaft power.",
+    "package.motor": "The motor at part load.",
+    "package.motor.rated_output_W": "Rated output; null: the full-load shaft power solved (the motor exactly "
+                                    "sized, so full load keeps `driver.efficiency`).",
+    "package.motor.fixed_loss_share": "Share of the rated losses that stays at any load (iron, friction); the "
+                                      "rest grows with load squared (default 0.35: common practice, no source).",
+    "package.motor.efficiency_points": "A supplier's efficiency points; when given they replace the loss split.",
+    "package.motor.efficiency_points[]": "One point.",
+    "package.motor.efficiency_points[].load_fraction": "Output over rated output.",
+    "package.motor.efficiency_points[].efficiency": "Efficiency at that load.",
+    "package.fan_power_W": "Cooler fans' electrical input while the package runs.",
+    "package.pump": "Coolant pump: its input is ρ g H V / η at the coolers' full-load coolant flow.",
+    "package.pump.head_m": "Pump head.",
+    "package.pump.efficiency": "Pump and motor efficiency (default 0.70: common practice, no source).",
+    "package.other_loads": "Other fixed loads of the package (dryer, controls …), drawn while it runs.",
+    "package.other_loads[]": "One load.",
+    "package.other_loads[].name": "What the load is.",
+    "package.other_loads[].power_W": "Its electrical input.",
+    "package.load": "Demand over full capacity the solve reports the package at.",
+    "package.part_loads": "Loads of the data sheet.",
+    "package.part_loads[]": "A load over full capacity.",
+    "package.load_profile": "Hours at each load over a year at the site as stated (annual energy; the staging "
+                            "study's annual cost).",
+    "package.load_profile[]": "One row.",
+    "package.load_profile[].load": "Demand over full capacity.",
+    "package.load_profile[].hours": "Hours a year at that load.",
     "year.coolers": "How the year treats the coolers that have a coolant side (thermo/year_design.py).",
     "year.coolers.mode": "`size_every_bin`: each bin sizes every cooler afresh for its entry (a perfect "
                          "exchanger every bin). `design_once`: each cooler is sized once at the design "
@@ -325,6 +394,10 @@ RESULT_KEYS = {
     "stages[].cooler.zones[].ua_W_K": "Conductance UA of the zone.",
     "cooling_water_m3_s": "Cooling-water flow of the train: the sum of the coolers' `cooling_water_m3_s` (null when "
                           "no cooler has a water or glycol side).",
+    "package": "Package figures (null without a `package` section): the control, `full_load`, `at_load` "
+               "(the stated load), `part_loads`, a 21-point `curve` and the load profile's `annual` totals; each "
+               "point has driver, auxiliary and package input [W], delivered free air [m³/s], package specific "
+               "power [J/m³], loaded and running shares, cycles and starts per hour.",
     "recoverable_heat_W": "Heat that can be recovered (null without a `heat_recovery` section).",
     "heat_recovery": "Heat recovery figures, or null without a `heat_recovery` section.",
     "heat_recovery.delivery_temperature_K": "Temperature of the stream delivered.",
@@ -387,7 +460,7 @@ RESULT_KEYS = {
 _SUFFIX_UNITS = [  # longest first
     ("_per_kWh", "money/kWh"), ("_per_m3", "money/m³"), ("_kWh", "kWh"), ("_kW_per_m3_min", "kW/(m³/min)"), ("_J_kgK", "J/(kg·K)"), ("_kg_m3", "kg/m³"), ("_J_kg", "J/kg"),
     ("_kg_s", "kg/s"), ("_m3_s", "m³/s"), ("_W_K", "W/K"), ("_m_s", "m/s"), ("_Pa", "Pa"),
-    ("_K", "K"), ("_W", "W"), ("_m", "m"),
+    ("_K", "K"), ("_W", "W"), ("_m3", "m³"), ("_m", "m"), ("_s", "s"),
 ]
 
 
