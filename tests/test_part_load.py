@@ -228,3 +228,36 @@ def test_year_bins_go_through_the_control():
     assert year.totals["energy_kWh"] > plain.totals["energy_kWh"]
     assert year.totals["auxiliary_kWh"] == pytest.approx(1.5 * 6000.0)
     assert 0.85 * full_shaft < b.driver_power_W < 0.85 * full_shaft / 0.9
+
+
+def test_study_options_carry_the_package_year():
+    """Each staging option's package energy is its own solve through the control over the profile."""
+    from thermo.part_load.annual import annual_figures
+    from thermo.part_load.full_load import full_load_of
+    from thermo.study.compare import compare_stagings
+    doc = json.loads((SAMPLES / "two_stage_plant_air.json").read_text())
+    doc["package"] = {"control": CONTROLS["load_unload"], "load": 0.6,
+                      "load_profile": [{"load": 0.6, "hours": 4000.0}, {"load": 1.0, "hours": 2000.0}]}
+    comp = compare_stagings(doc, 2, energy_price_per_kWh=0.2)
+    pkg = normalise(doc)["package"]
+    for opt, row in zip(comp.options, comp.rows()):
+        want = annual_figures(pkg, full_load_of(opt.split.result, 0.955), pkg["load_profile"]).energy_kWh
+        assert row["package_annual_energy_kWh"] == pytest.approx(want, rel=1e-12)
+        assert row["package_annual_cost"] == pytest.approx(0.2 * want, rel=1e-12)
+        # 2000 h of the profile at full load draw the option's own driver power
+        assert want > row["driver_power_W"] * 2000.0 / 1000.0
+    plain = compare_stagings(json.loads((SAMPLES / "two_stage_plant_air.json").read_text()), 1).rows()[0]
+    assert plain["package_annual_energy_kWh"] is None
+
+
+def test_compare_table_reads_package_figures():
+    from app.presentation.compare_table import CASE_FIGURES, case_row
+    doc = json.loads((SAMPLES / "two_stage_plant_air.json").read_text())
+    doc["package"] = {"control": CONTROLS["modulation"], "load": 0.5,
+                      "load_profile": [{"load": 0.5, "hours": 1000.0}]}
+    row = case_row(solve(doc).to_dict())
+    by_key = {f.key: f for f in CASE_FIGURES}
+    pkg = row["package"]
+    assert by_key["package.at_load.package_power_W"].value(row) == pkg["at_load"]["package_power_W"]
+    text = by_key["package.at_load.package_specific_power_J_m3"].text(row, "text", "SI")
+    assert float(text.split()[0]) == pytest.approx(pkg["at_load"]["package_specific_power_J_m3"] / 60_000.0, abs=1e-3)

@@ -10,7 +10,7 @@ __all__ = ["format_comparison", "format_sensitivity"]
 
 from app.presentation import staging_table
 from app.presentation.cautions import CAUTIONS
-from app.presentation.figures import Figure, shown
+from app.presentation.figures import Figure, condition_holds, shown
 from app.presentation.units import format_value, unit
 
 _OUT = "text"
@@ -47,7 +47,8 @@ def format_comparison(title: str, rows: list[dict], system: str = "SI") -> str:
     note = rows[0]["note"] if rows else ""
     if note:
         lines += [note, ""]
-    columns = shown(staging_table.STAGING, _OUT)
+    columns = [f for f in shown(staging_table.STAGING, _OUT)
+               if condition_holds(f, _OUT, None, [(None, r) for r in rows])]
     lines.append(_line(columns, [fig.label_in(_OUT) for fig in columns]))
     lines.append(_line(columns, _units_line(columns, system)))
     for r in rows:

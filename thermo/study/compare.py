@@ -1,7 +1,7 @@
 """Staging options side by side: 1 … N stages, each at its optimum split."""
 from __future__ import annotations
 
-__all__ = ["DEFAULT_OPERATING_HOURS", "DEFAULT_ENERGY_PRICE", "StagingOption", "StagingComparison",
+__all__ = ["DEFAULT_OPERATING_HOURS", "DEFAULT_ENERGY_PRICE", "StagingOption", "StagingComparison", "package_row",
            "compare_stagings", "check_economics"]
 
 import math
@@ -56,8 +56,11 @@ class StagingOption:
     def feasible(self) -> bool:
         return self.split.feasible
 
-    def row(self, hours: float, price: float, note: str) -> dict:
-        """The comparison row (plain data, SI units, unit in each key)."""
+    def row(self, hours: float, price: float, note: str, package: dict | None = None,
+            driver_efficiency: float = 1.0) -> dict:
+        """The comparison row (plain data, SI units, unit in each key); with a ``package`` section
+        also the package input at its stated load and the year of its load profile
+        (:func:`package_row`)."""
         sp, r = self.split, self.split.result
         row = {"stages": self.stages, "feasible": sp.feasible,
                "binding_limits": [b.to_dict() for b in sp.binding_limits],
@@ -107,7 +110,26 @@ class StagingOption:
             "solves": sp.solves,
             "note": note,
         })
+        row.update(package_row(r, package, driver_efficiency, price))
         return row
+
+
+def package_row(result, package: dict | None, driver_efficiency: float, price: float) -> dict:
+    """An option's package figures: input at the stated load, and the load profile's energy and
+    cost (:mod:`thermo.part_load`); every value None without a package, profile or result."""
+    row = {"package_power_at_load_W": None, "package_annual_energy_kWh": None, "package_annual_cost": None}
+    if result is None or not package:
+        return row
+    from thermo.part_load.annual import annual_figures
+    from thermo.part_load.full_load import full_load_of
+    from thermo.part_load.package import package_point
+    full = full_load_of(result, driver_efficiency)
+    row["package_power_at_load_W"] = package_point(package, full, package["load"]).package_power_W
+    annual = annual_figures(package, full, package["load_profile"])
+    if annual is not None:
+        row["package_annual_energy_kWh"] = annual.energy_kWh
+        row["package_annual_cost"] = annual.energy_kWh * price
+    return row
 
 
 @dataclass
@@ -119,6 +141,8 @@ class StagingComparison:
     operating_hours_per_year: float
     energy_price_per_kWh: float
     notes: list = field(default_factory=list)  #: what the study changed in the project
+    package: dict | None = None  #: the project's normalised ``package`` section (part-load figures)
+    driver_efficiency: float = 1.0
 
     @property
     def baseline(self) -> StagingOption | None:
@@ -139,7 +163,8 @@ class StagingComparison:
     def rows(self) -> list[dict]:
         """One plain-data row per stage count (the ``stagewright study --json`` list)."""
         note = self.full_note()
-        return [o.row(self.operating_hours_per_year, self.energy_price_per_kWh, note) for o in self.options]
+        return [o.row(self.operating_hours_per_year, self.energy_price_per_kWh, note, self.package,
+                      self.driver_efficiency) for o in self.options]
 
 
 def _with_savings(options: list[StagingOption]) -> list[StagingOption]:
@@ -228,4 +253,5 @@ def compare_stagings(doc: dict, max_stages: int = 4, *, operating_hours_per_year
         options.append(StagingOption(n, split))
         done += weights[n - 1]
     span.report(1.0, f"compared 1 to {max_stages} stages")
-    return StagingComparison(_with_savings(options), note, hours, price, list(prepared.notes))
+    return StagingComparison(_with_savings(options), note, hours, price, list(prepared.notes),
+                             package=prepared.doc.get("package"), driver_efficiency=prepared.doc["driver"]["efficiency"])
