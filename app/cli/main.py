@@ -10,6 +10,9 @@
                                                the cases of one project side by side
     stagewright report FILE|FOLDER … [-o OUT] [--csv [OUT.csv]] [--units SI|US] [--force]
                                                PDF (and CSV) reports
+    stagewright datasheet PROJECT … [--json] [--units SI|US]
+                                               the package's data sheet: ISO 1217 reference and site,
+                                               full and part loads through its capacity control
     stagewright uncertainty PROJECT … [--json] [--draws N]
                                                a field check's results with their uncertainty,
                                                contributors and verdicts on guarantees
@@ -27,7 +30,7 @@ import argparse
 import os
 import sys
 
-from app.cli import check, compare, report, solve, study, sweep, uncertainty, year
+from app.cli import check, compare, datasheet, report, solve, study, sweep, uncertainty, year
 from app.cli.paths import EXIT_FAILED, expand_paths
 from app.cli.terminal import escaped_output
 
@@ -35,7 +38,7 @@ from app.cli.terminal import escaped_output
 #: (imported here, not by name at run time, so the import contracts see them; each module
 #: imports the core only when it runs)
 SUBCOMMANDS = {"solve": solve, "check": check, "report": report, "study": study, "year": year, "sweep": sweep,
-               "uncertainty": uncertainty, "compare": compare}
+               "uncertainty": uncertainty, "compare": compare, "datasheet": datasheet}
 
 #: sub-commands that take the ``solve`` options (``--json``)
 _SOLVE_OPTIONS = ("year",)
