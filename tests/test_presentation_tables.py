@@ -99,7 +99,10 @@ def test_every_summary_and_recovery_path_is_in_the_results_of_the_sample_project
 
 def test_every_staging_column_path_is_in_a_study_of_a_sample_project():
     from thermo.study import compare_stagings
-    rows = compare_stagings(load(SAMPLES / "single_stage_workshop.json"), 2).rows()
+    doc = load(SAMPLES / "single_stage_workshop.json")
+    # the package columns need a package with a load profile (thermo.part_load)
+    doc["package"] = {"control": {"kind": "modulation"}, "load_profile": [{"load": 0.7, "hours": 3000.0}]}
+    rows = compare_stagings(doc, 2).rows()
     seen: set = set()
     assert _check_paths(staging_table.STAGING, [(None, row) for row in rows], seen) == []
     assert seen == {f.id for f in staging_table.STAGING}
