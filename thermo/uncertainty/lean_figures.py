@@ -83,6 +83,12 @@ class LeanFigures:
 
     def __init__(self, names: list[str]) -> None:
         self.names = list(names)
+        where = {n: j for j, n in enumerate(self.names)}
+        count = len(self.names)  # a name not asked for goes to the spare slot at the end
+        self._efficiency = [where.get(f"stages[{i}].isentropic_efficiency", count) for i in range(count)]
+        self._duty = [where.get(f"stages[{i}].cooler.duty_W", count) for i in range(count)]
+        self._totals = [where.get(n, count) for n in ("mass_flow_kg_s", "free_air_delivery_m3_s", "shaft_power_W",
+                                                       "specific_power_kW_per_m3_min")]
         self._exponents: dict[int, float] = {}  #: stage → κ of its first isentropic discharge
         self._filter_drop_K: float | None = None  #: temperature change through the intake filter, first evaluation
 
@@ -156,7 +162,9 @@ class LeanFigures:
             m = (flow["value"] - fixed) / per_kg
         else:
             m = mass_flow_from(flow["kind"], flow["value"], model, T0, P0)
-        values, shaft = {}, 0.0
+        values, shaft = [math.nan] * (len(self.names) + 1), 0.0
+        if len(line) > len(self.names):
+            raise _Defer  # more stages than figures: never for a field check's figures
         for i, (spec, start, iso, outlet, leaving) in enumerate(line):
             q_loss, eta_m = spec["heat_loss_W"], spec["mechanical_efficiency"]
             dh_s, dh = iso[2] - start[2], outlet[2] - start[2] + q_loss / m
@@ -169,13 +177,13 @@ class LeanFigures:
             if s_gen < 1e-6 * max(1.0, w_shaft / T0):  # the full solve refuses below -1e-9 of this scale
                 raise _Defer
             shaft += w_shaft
-            values[f"stages[{i}].isentropic_efficiency"] = dh_s / dh
+            values[self._efficiency[i]] = dh_s / dh
             if leaving is not None:
-                values[f"stages[{i}].cooler.duty_W"] = m * (outlet[2] - leaving[2])
+                values[self._duty[i]] = m * (outlet[2] - leaving[2])
         fad = m / rho0
-        values.update(mass_flow_kg_s=m, free_air_delivery_m3_s=fad, shaft_power_W=shaft,
-                      specific_power_kW_per_m3_min=(shaft / norm["driver"]["efficiency"] / 1000.0) / (fad * 60.0))
-        return [values[n] for n in self.names]
+        for j, v in zip(self._totals, (m, fad, shaft, (shaft / norm["driver"]["efficiency"] / 1000.0) / (fad * 60.0))):
+            values[j] = v
+        return values[:-1]
 
 
 def _state_at(model, which: int, target: float, P: float, T: float) -> tuple:
