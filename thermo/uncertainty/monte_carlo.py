@@ -3,7 +3,9 @@ r"""Monte Carlo propagation of the measurement uncertainties through the solve (
 Each input is drawn from the distribution its stated uncertainty assigns it — Gaussian
 :math:`N(x, u^2)` for a standard uncertainty (JCGM 101:2008 §6.4.7), rectangular
 :math:`R(x - a, x + a)` for limits or an accuracy class (§6.4.2) — independently, with a
-seeded generator so a run can be repeated. Every draw is one solve of the measurement model.
+seeded generator so a run can be repeated. Every draw is one evaluation of the measurement model
+(:meth:`~thermo.uncertainty.measurement_model.MeasurementModel.draw`: its lean evaluation where
+that is enabled and covers the draw, else the full solve).
 From the :math:`M` results of each figure come its mean (§7.6, the estimate), its standard
 deviation (the standard uncertainty) and the probabilistically symmetric coverage interval
 between the :math:`(1-p)/2` and :math:`(1+p)/2` quantiles (§7.7). The coverage probability is
