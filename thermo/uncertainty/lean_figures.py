@@ -25,15 +25,19 @@ the shaft power :math:`\dot W = \sum_i (\dot m\,a_i + \dot Q_i)/\eta_{m,i}` (the
 isentropic efficiency and no casing heat loss; no exit velocity; coolers without a coolant;
 no heat-recovery section. For anything else, and for every draw near a refusal of the full
 solve (a second-law violation, a cooler that would heat the air, a state outside the property
-range, …), :func:`lean_figures` answers None and the caller runs the full solve, so a draw is
+range, …), :class:`LeanFigures` answers None and the caller runs the full solve, so a draw is
 refused for the same reason and with the same message either way.
 
 States from (h, p) and (s, p) are found by Newton's method on T with the model's ``terms``
-(W. H. Press et al., *Numerical Recipes*, 3rd ed., 2007, §9.4), stopped when the step is below
-1e-9 K as in :func:`thermo.models.newton.invert_to_state`, so they agree with the full solve's
-states to about 1e-9 K. The isentropic discharge starts from
-:math:`T_1 r^{\kappa}` with the exponent :math:`\kappa` of the first evaluation, which is
-within a few millikelvin for a draw near it (two steps instead of three or four).
+(W. H. Press et al., *Numerical Recipes*, 3rd ed., 2007, §9.4). Once a step is below
+:data:`_STEP_K` the state is carried over that step to first order
+(:math:`h \leftarrow h + c_p\,\Delta T`, :math:`s \leftarrow s + c_p \Delta T / T`): Newton's
+error after the step is then about 1e-9 K, as in the full solve, without one more property
+update. The first guesses are those of the first evaluation (the nominal values): the filter
+outlet at its temperature change, the isentropic discharge at :math:`T_1 r^{\kappa}` with that
+evaluation's exponent :math:`\kappa`, so a draw near it needs one or two updates per state.
+The guesses never change after that, so a draw's answer does not depend on the draws before it
+(one process or several give the same figures).
 """
 from __future__ import annotations
 
@@ -51,8 +55,8 @@ from thermo.split import stage_pressure_ratios
 
 
 #: Newton's last step on T, at most [K]: carried to first order, the state's h and s are then
-#: off by ½ (∂c_p/∂T) ΔT² ≤ 1e-7 J/kg and ½ c_p ΔT²/T² ≤ 1e-8 J/(kg K) (c_p of air varies by
-#: less than 0.2 J/(kg K²) below 1300 K), far below what the figures resolve
+#: off by ½ |∂c_p/∂T| ΔT² < 1e-6 J/kg (for |∂c_p/∂T| < 2 J/(kg K²); air's is a few tenths,
+#: from memory) and ½ c_p ΔT²/T² < 2e-8 J/(kg K) above 200 K: far below what the figures resolve
 _STEP_K = 1e-3
 
 
