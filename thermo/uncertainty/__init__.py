@@ -8,6 +8,8 @@ they meet guaranteed figures:
   that turn an accuracy class or limits into a standard uncertainty (JCGM 100:2008 §4.3.7);
 - :mod:`~thermo.uncertainty.measurement_model`: the solve as a measurement model, inputs to
   result figures (lean solve on the fast property path);
+- :mod:`~thermo.uncertainty.lean_figures`: the same figures from only the states they need,
+  for the many Monte Carlo draws (checked against the full solve before it is used);
 - :mod:`~thermo.uncertainty.linear`: first-order propagation, sensitivity coefficients by
   central differences of the solve (JCGM 100:2008 §5.1);
 - :mod:`~thermo.uncertainty.monte_carlo`: propagation of distributions (JCGM 101:2008);

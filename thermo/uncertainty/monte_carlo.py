@@ -3,7 +3,9 @@ r"""Monte Carlo propagation of the measurement uncertainties through the solve (
 Each input is drawn from the distribution its stated uncertainty assigns it — Gaussian
 :math:`N(x, u^2)` for a standard uncertainty (JCGM 101:2008 §6.4.7), rectangular
 :math:`R(x - a, x + a)` for limits or an accuracy class (§6.4.2) — independently, with a
-seeded generator so a run can be repeated. Every draw is one solve of the measurement model.
+seeded generator so a run can be repeated. Every draw is one evaluation of the measurement model
+(:meth:`~thermo.uncertainty.measurement_model.MeasurementModel.draw`: its lean evaluation where
+that is enabled and covers the draw, else the full solve).
 From the :math:`M` results of each figure come its mean (§7.6, the estimate), its standard
 deviation (the standard uncertainty) and the probabilistically symmetric coverage interval
 between the :math:`(1-p)/2` and :math:`(1+p)/2` quantiles (§7.7). The coverage probability is
@@ -30,6 +32,7 @@ from thermo.process_pool import pool_context
 
 COVERAGE_PROBABILITY = math.erf(2.0 / math.sqrt(2.0))  #: 0.9545: ±2 σ of a Gaussian
 _CHUNK = 250
+_LEAN_CHECKS = 8  #: draws at which the lean evaluation is compared with the full solve first
 
 
 class MonteCarloCancelled(StagewrightError):
@@ -76,9 +79,10 @@ def draw_inputs(inputs, draws: int, seed: int) -> np.ndarray:
 def _solve_chunk(model, xs: np.ndarray) -> tuple[np.ndarray, list]:
     ys = np.full((len(xs), len(model.figures)), np.nan)
     failures = []
+    evaluate = getattr(model, "draw", model)
     for j, x in enumerate(xs):
         try:
-            ys[j] = model(x)
+            ys[j] = evaluate(x)
         except StagewrightError as exc:
             failures.append(str(exc))
     return ys, failures
@@ -92,7 +96,10 @@ def propagate_monte_carlo(model, draws: int, seed: int, *, processes: int = 1, p
     Parameters
     ----------
     model : MeasurementModel
-        :math:`y = f(x)` with its ``inputs`` (their distributions) and ``figures``.
+        :math:`y = f(x)` with its ``inputs`` (their distributions) and ``figures``; each draw is
+        evaluated by its ``draw`` method where it has one (the lean evaluation, after
+        ``enable_lean`` has compared it with the full solve at the nominal values and the
+        first draws).
     draws : int
         Number of draws :math:`M`.
     seed : int
@@ -114,6 +121,8 @@ def propagate_monte_carlo(model, draws: int, seed: int, *, processes: int = 1, p
         When cancelled.
     """
     xs = draw_inputs(model.inputs, draws, seed)
+    if hasattr(model, "enable_lean"):  # checked against the full solve at the nominal values and a few draws
+        model.enable_lean([model.nominal, *xs[:_LEAN_CHECKS]])
     is_cancelled = (cancel.is_set if hasattr(cancel, "is_set") else cancel) or (lambda: False)
     chunks = [xs[i:i + _CHUNK] for i in range(0, draws, _CHUNK)]
     parts, failures, done = [], [], 0
