@@ -7,7 +7,7 @@ import atexit
 import threading
 
 from thermo.project.validation import normalise
-from thermo.errors import InputError, StagewrightError, message_detail, quantity
+from thermo.errors import InputError, SecondLawViolation, StagewrightError, message_detail, quantity
 from thermo.flow import mass_flow_from
 from thermo.models import make_model
 from thermo.results import TrainResult
@@ -159,21 +159,45 @@ def _casing_power(norm: dict, target_W: float) -> float:
     return fixed
 
 
+def _first_trial(ctx: SolveContext) -> tuple[float, TrainResult]:
+    """The first trial flow and its lean solve: 1 kg/s, else the first of a few decades either
+    side that the second law allows. With a casing heat loss the heat per kilogram depends on the
+    flow, so a measured discharge temperature may be possible only at smaller (or larger) flows
+    than the first trial's; the first refusal is raised when no trial is allowed."""
+    first = None
+    for m in (1.0, 0.1, 10.0, 0.01, 100.0, 1e-3, 1e-4, 1e-5):
+        try:
+            return m, solve_train(ctx, m, False)
+        except SecondLawViolation as exc:
+            first = first or exc
+    raise first
+
+
 def _solve_for_power(ctx: SolveContext, target_W: float, fixed: float, detail: bool = True) -> TrainResult:
     """Find the mass flow whose shaft power equals ``target_W`` (secant, bracketed); ``fixed`` is
-    the shaft power of the casing heat losses, [W] (:func:`_casing_power`)."""
+    the shaft power of the casing heat losses, [W] (:func:`_casing_power`).
+
+    A trial flow the second law refuses (a measured discharge temperature that needs the casing
+    heat loss of a smaller flow) is halved back toward the last allowed trial; only when the
+    iteration ends on a refused flow is that refusal raised."""
     # The trial solves skip the reporting-only work (their shaft power is the same either way);
     # the converged flow is then solved once with ``detail``. Without casing heat loss the
     # power per kilogram does not depend on the flow, so the first estimate is usually the
     # answer: it is solved with ``detail`` at once.
-    m0 = 1.0
-    r0 = solve_train(ctx, m0, False)
+    m0, r0 = _first_trial(ctx)
     per_kg = (r0.shaft_power_W - fixed) / m0
     m1 = (target_W - fixed) / per_kg
     m_prev, f_prev = m0, r0.shaft_power_W - target_W
     trial_detail = detail and fixed == 0.0
-    for _ in range(40):
-        r1 = solve_train(ctx, m1, trial_detail)
+    refused = None
+    for _ in range(60):
+        try:
+            r1 = solve_train(ctx, m1, trial_detail)
+        except SecondLawViolation as exc:
+            refused, trial_detail = exc, False
+            m1 = 0.5 * (m1 + m_prev)
+            continue
+        refused = None
         f1 = r1.shaft_power_W - target_W
         if abs(f1) <= 1e-12 * target_W:
             return r1 if trial_detail == detail else solve_train(ctx, m1, detail)
@@ -182,6 +206,8 @@ def _solve_for_power(ctx: SolveContext, target_W: float, fixed: float, detail: b
             break
         m_next = m1 - f1 * (m1 - m_prev) / (f1 - f_prev)
         m_prev, f_prev, m1 = m1, f1, max(m_next, 0.5 * m1)
+    if refused is not None:
+        raise refused
     raise StagewrightError(f"flow.value: no mass flow gives a shaft power of {target_W:.6g} W", "flow.value",
                            message_detail("No mass flow gives a shaft power of {value}",
                                           {"value": quantity(target_W, "power")}))
