@@ -36,7 +36,7 @@ HP, BTU, PSI = 745.69987158, 1055.05585262, 6894.757293168
 
 def _solve_json(path, capsys) -> dict:
     assert main(["solve", str(path), "--json"]) == 0
-    return json.loads(capsys.readouterr().out)
+    return json.loads(capsys.readouterr().out)[0]["result"]  # a list, an entry per file
 
 
 def _pdf_text(path) -> tuple[str, list[str]]:

@@ -36,7 +36,7 @@ FIGURES = [
 
 def _solve_json(path, capsys) -> dict:
     assert main(["solve", str(path), "--json"]) == 0
-    return json.loads(capsys.readouterr().out)
+    return json.loads(capsys.readouterr().out)[0]["result"]  # a list, an entry per file
 
 
 def _number_after(text: str, label: str, unit: str) -> tuple[float, int] | None:
