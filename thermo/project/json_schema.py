@@ -65,12 +65,13 @@ from pathlib import Path
 from typing import Any
 
 from thermo.project import schema
+# the schema's ``$id``, and the ``$schema`` value of every file the tool writes: defined beside the
+# reader, which ignores the key, so that saving a file does not import this generator
+from thermo.project.reading import SCHEMA_ID
 from thermo.project.schema_types import MISSING, Changes, Choice, Items, Num, Obj, Raw, Text, Variant, walk
 
 #: the dialect of the generated schema
 SCHEMA_DIALECT = "https://json-schema.org/draft/2020-12/schema"
-#: the schema's ``$id``, and the ``$schema`` value of every file the tool writes
-SCHEMA_ID = f"urn:stagewright:project:{schema.FORMAT_VERSION}"
 #: the generated schema as shipped with the package
 SCHEMA_FILE = Path(__file__).with_name("project.schema.json")
 

@@ -63,6 +63,9 @@ def recognise(data: Any) -> dict:
 
 #: the key naming a file's JSON Schema (thermo.project.json_schema); for editors, not a project key
 SCHEMA_KEY = "$schema"
+#: its value in the files :func:`thermo.project.save` writes, and the schema's ``$id``: a URN naming
+#: the schema of this format version (a name, not an address: nothing is fetched)
+SCHEMA_ID = f"urn:stagewright:project:{schema.FORMAT_VERSION}"
 
 
 def _without_schema_reference(data: dict) -> dict:

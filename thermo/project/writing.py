@@ -33,10 +33,9 @@ from typing import Any
 
 from thermo.project import schema
 from thermo.errors import InputError, SaveError
-from thermo.project.json_schema import SCHEMA_ID
 from thermo.project.schema_types import Items, Obj, Variant
 from thermo.project.parse import MAX_FILE_BYTES
-from thermo.project.reading import SCHEMA_KEY
+from thermo.project.reading import SCHEMA_ID, SCHEMA_KEY
 
 
 def backup_path(path) -> Path:
@@ -311,7 +310,7 @@ def _writable(path: Path, info: os.stat_result) -> bool:
 def save(doc: dict, path) -> None:
     """Write ``doc`` to ``path`` atomically, keeping the previous file as ``path.bak``.
 
-    The file is written with ``$schema`` (:data:`thermo.project.json_schema.SCHEMA_ID`, for
+    The file is written with ``$schema`` (:data:`thermo.project.reading.SCHEMA_ID`, for
     editors; the reader ignores it), ``format`` and ``version`` set. A document with validation
     problems (a value out of range, a missing key) is written as it is — the window asks
     the user first — and :func:`thermo.project.load` will name those problems when it is
