@@ -346,6 +346,21 @@ def _full_solve_draws(doc: dict, draws: int):
 CASES.append(case_field_check_monte_carlo)
 
 
+def case_cli():
+    """``stagewright check`` on a sample and ``stagewright --help``, each a fresh process (issue 18:
+    target < 0.5 s; neither imports CoolProp), beside a bare interpreter start."""
+    def run(*argv):
+        return lambda: subprocess.run([sys.executable, *argv], cwd=ROOT, check=True, capture_output=True)
+    bare = measure(run("-c", "pass"), 5)
+    report("python start (bare interpreter)", bare)
+    report("stagewright check SAMPLE (process)", measure(run("-m", "app.entry", "check", str(SAMPLES[0])), 5),
+           extra=f"{measure(run('-m', 'app.entry', 'solve', str(SAMPLES[0])), 3)[0]:.2f} s for solve")
+    report("stagewright --help (process)", measure(run("-m", "app.entry", "--help"), 5))
+
+
+CASES.append(case_cli)
+
+
 def main(argv: list[str]) -> None:
     print(f"Stagewright bench — {time.strftime('%Y-%m-%d')} — Python {platform.python_version()}, "
           f"{platform.machine()}, {os.cpu_count()} cores, CoolProp {thermo.coolprop_adapter.coolprop_version()}")

@@ -39,7 +39,7 @@ def options(tmp_path_factory):
 
 def _solve_json(capsys, path) -> dict:
     assert main(["solve", str(path), "--json"]) == 0
-    return json.loads(capsys.readouterr().out)
+    return json.loads(capsys.readouterr().out)[0]["result"]  # a list, an entry per file
 
 
 def test_compare_json_equals_each_case_solved_alone(options, capsys):

@@ -11,7 +11,9 @@ from tests.conftest import ROOT, SAMPLES, make_doc
 
 def test_solve_json_has_contract_keys(capsys):
     assert main(["solve", str(SAMPLES / "two_stage_plant_air.json"), "--json"]) == 0
-    out = json.loads(capsys.readouterr().out)
+    entries = json.loads(capsys.readouterr().out)  # one list, an entry per file, for one file too
+    assert [e["file"] for e in entries] == [str(SAMPLES / "two_stage_plant_air.json")]
+    out = entries[0]["result"]
     for key in ["mass_flow_kg_s", "free_air_delivery_m3_s", "shaft_power_W", "driver_power_W",
                 "specific_power_kW_per_m3_min", "heat_rejected_W", "entropy_generation_W_K",
                 "exergy_destroyed_W", "isothermal_power_W", "isothermal_efficiency",
@@ -71,7 +73,7 @@ def test_year_command_table_and_json(capsys):
     out = capsys.readouterr().out
     assert "January" in out and "December" in out and "worst discharge temperature" in out
     assert main(["year", path, "--json"]) == 0
-    y = json.loads(capsys.readouterr().out)
+    y = json.loads(capsys.readouterr().out)[0]["year"]
     assert len(y["bins"]) == 12
     assert y["totals"]["hours"] == pytest.approx(6000.0)
     assert y["totals"]["energy_kWh"] == pytest.approx(sum(b["energy_kWh"] for b in y["bins"]), rel=1e-12)
@@ -85,7 +87,7 @@ def test_year_without_section_is_one_line_and_exit_2(capsys):
 
 def test_solve_json_has_cooler_sizing_keys(capsys):
     assert main(["solve", str(SAMPLES / "three_stage_site_year.json"), "--json"]) == 0
-    out = json.loads(capsys.readouterr().out)
+    out = json.loads(capsys.readouterr().out)[0]["result"]
     for st in out["stages"]:
         c = st["cooler"]
         for key in ("arrangement", "coolant_flow_kg_s", "coolant_inlet_temperature_K",

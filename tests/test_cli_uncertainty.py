@@ -9,7 +9,7 @@ SAMPLE = str(SAMPLES / "field_check_two_stage.json")
 
 def test_json_has_figures_with_uncertainty_and_verdicts(capsys):
     assert main(["uncertainty", SAMPLE, "--json", "--draws", "200"]) == 0
-    out = json.loads(capsys.readouterr().out)
+    out = json.loads(capsys.readouterr().out)[0]["uncertainty"]  # a list, an entry per file
     names = [f["figure"] for f in out["figures"]]
     assert names[:2] == ["mass_flow_kg_s", "free_air_delivery_m3_s"]
     assert "stages[1].isentropic_efficiency" in names and "stages[0].cooler.duty_W" in names

@@ -25,7 +25,7 @@ def project(tmp_path):
 def test_json_matches_the_core(project, capsys):
     path, doc = project
     assert main(["datasheet", str(path), "--json"]) == 0
-    out = json.loads(capsys.readouterr().out)
+    out = json.loads(capsys.readouterr().out)[0]["data_sheet"]
     want = data_sheet(doc).to_dict()
     assert [c["condition"] for c in out["columns"]] == ["iso1217_reference", "site"]
     for got_col, want_col in zip(out["columns"], want["columns"]):

@@ -44,7 +44,7 @@ def test_export_writes_pdf_and_csv_matching_the_window(qtbot, tmp_path):
     with open(csv_path, newline="", encoding="utf-8") as fh:
         rows = list(csv.reader(fh))
     train = [row for row in rows if row[0] == "train"][0]
-    assert float(train[rows[0].index("shaft_power")]) * 1e3 == pytest.approx(r["shaft_power_W"], rel=1e-11)
+    assert float(train[rows[0].index("shaft_power_kW")]) * 1e3 == pytest.approx(r["shaft_power_W"], rel=1e-11)
     assert "Exported out.pdf" in win.statusBar().currentMessage()
     win.close()
 

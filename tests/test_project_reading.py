@@ -15,6 +15,7 @@ import pytest
 from tests.conftest import SAMPLES, make_doc
 from thermo.errors import InputError, ProjectFileError, StagewrightError
 from thermo.project import dumps, load, loads, save
+from thermo.project.json_schema import SCHEMA_ID
 from thermo.project.schema import FORMAT_VERSION
 
 FIXTURE_V1 = SAMPLES.parent / "tests" / "fixtures" / "project_v1.json"
@@ -148,7 +149,8 @@ def test_round_trip_is_identical(path, tmp_path):
     save(first, out)
     second = load(out)
     assert second == first
-    assert json.loads(out.read_text(encoding="utf-8")) == first  # the stdlib reads it the same
+    as_written = json.loads(out.read_text(encoding="utf-8"))  # the stdlib reads it the same
+    assert as_written.pop("$schema") == SCHEMA_ID and as_written == first  # and the editors' key (issue 18)
     save(second, out)
     assert out.read_bytes() == (tmp_path / (path.name + ".bak")).read_bytes()  # byte-stable
 

@@ -22,6 +22,7 @@ from thermo.project.schema import FORMAT_VERSION
 from thermo.errors import InputError, SaveError
 from thermo.project import backup_path, dumps, load, save
 from thermo.project import writing
+from thermo.project.writing import file_text
 
 SAMPLE = SAMPLES / "two_stage_plant_air.json"
 
@@ -44,7 +45,7 @@ def test_save_writes_canonical_text_and_keeps_a_backup(project):
     path, changed = project
     original = path.read_bytes()
     save(changed, path)
-    assert path.read_text(encoding="utf-8") == dumps(changed)
+    assert path.read_text(encoding="utf-8") == file_text(changed)  # dumps, "$schema" first (issue 18)
     assert backup_path(path).read_bytes() == original
     assert load(path) == changed
     assert _leftovers(path.parent) == []

@@ -36,7 +36,7 @@ HP, BTU, PSI = 745.69987158, 1055.05585262, 6894.757293168
 
 def _solve_json(path, capsys) -> dict:
     assert main(["solve", str(path), "--json"]) == 0
-    return json.loads(capsys.readouterr().out)
+    return json.loads(capsys.readouterr().out)[0]["result"]  # a list, an entry per file
 
 
 def _pdf_text(path) -> tuple[str, list[str]]:
@@ -142,27 +142,27 @@ def test_csv_parses_and_round_trips(si_reports):
     result = solve(load(path)).to_dict()
     with open(si_reports[path][1], newline="", encoding="utf-8") as fh:
         rows = list(csv.reader(fh))
-    header, unit_row, body = rows[0], rows[1], rows[2:]
+    header, body = rows[0], rows[1:]  # one header row, the unit in each column name (issue 18)
     assert header == [c for c, _ in COLUMNS]
-    assert unit_row[header.index("temperature")] == "°C" and unit_row[header.index("shaft_power")] == "kW"
+    assert "temperature_degC" in header and "shaft_power_kW" in header and body[0][0] == "state"
     states = [r for r in body if r[0] == "state"]
     points = state_points(result)
     assert [r[1] for r in states] == [name for name, _ in points]
     q = dict(COLUMNS)
     for row, (_, pt) in zip(states, points):
-        for col, key in (("temperature", "temperature_K"), ("pressure", "pressure_Pa"),
-                         ("enthalpy", "enthalpy_J_kg"), ("entropy", "entropy_J_kgK")):
+        for col, key in (("temperature_degC", "temperature_K"), ("pressure_bar_a", "pressure_Pa"),
+                         ("enthalpy_kJ_kg", "enthalpy_J_kg"), ("entropy_kJ_kgK", "entropy_J_kgK")):
             back = units.to_si(float(row[header.index(col)]), q[col], "SI")
             assert back == pytest.approx(pt[key], rel=1e-11)
     comps = {r[1]: r for r in body if r[0] == "component"}
     n_cool = sum(1 for st in result["stages"] if st["cooler"])
     assert len(comps) == 1 + len(result["stages"]) + n_cool
     st1 = result["stages"][0]
-    assert float(comps["Stage 1"][header.index("shaft_power")]) * 1e3 == pytest.approx(st1["shaft_power_W"], rel=1e-11)
+    assert float(comps["Stage 1"][header.index("shaft_power_kW")]) * 1e3 == pytest.approx(st1["shaft_power_W"], rel=1e-11)
     train = [r for r in body if r[0] == "train"][0]
-    assert float(train[header.index("exergy_destroyed")]) * 1e3 == pytest.approx(result["exergy_destroyed_W"],
+    assert float(train[header.index("exergy_destroyed_kW")]) * 1e3 == pytest.approx(result["exergy_destroyed_W"],
                                                                                  rel=1e-11)
-    assert comps["Intake filter"][header.index("shaft_power")] == ""  # missing values stay empty
+    assert comps["Intake filter"][header.index("shaft_power_kW")] == ""  # missing values stay empty
 
 
 def test_csv_in_us_units_uses_exact_conversions():
@@ -171,9 +171,9 @@ def test_csv_in_us_units_uses_exact_conversions():
     header = rows[0]
     reader = list(csv.reader(io.StringIO("\r\n".join(",".join(r) for r in rows))))
     train = [r for r in reader if r[0] == "train"][0]
-    assert float(train[header.index("shaft_power")]) == pytest.approx(result["shaft_power_W"] / HP, rel=1e-11)
+    assert float(train[header.index("shaft_power_hp")]) == pytest.approx(result["shaft_power_W"] / HP, rel=1e-11)
     intake = [r for r in reader if r[0] == "state"][0]
-    assert float(intake[header.index("temperature")]) == pytest.approx(1.8 * result["intake"]["temperature_K"] - 459.67,
+    assert float(intake[header.index("temperature_degF")]) == pytest.approx(1.8 * result["intake"]["temperature_K"] - 459.67,
                                                                        rel=1e-11)
 
 

@@ -43,7 +43,7 @@ def _near(text: str, label: str, unit: str, expected: float) -> None:
 @pytest.mark.parametrize("path", SAMPLE_FILES, ids=lambda p: p.stem)
 def test_first_page_has_the_answer(path, sample_reports, capsys):
     assert main(["solve", str(path), "--json"]) == 0
-    r = json.loads(capsys.readouterr().out)
+    r = json.loads(capsys.readouterr().out)[0]["result"]  # a list, an entry per file
     page = _first_page(sample_reports[path][0])
     flat = " ".join(page.split())
     doc = load(path)

@@ -26,7 +26,8 @@ FOUNDRY = SAMPLES / "three_stage_site_year.json"
 
 def _json(capsys, *argv) -> dict:
     assert main([*argv, "--json"]) == 0
-    return json.loads(capsys.readouterr().out)
+    entry = json.loads(capsys.readouterr().out)[0]  # a list, an entry per file
+    return entry["result" if argv[0] == "solve" else argv[0]]
 
 
 @pytest.fixture(scope="module")

@@ -36,7 +36,7 @@ FIGURES = [
 
 def _solve_json(path, capsys) -> dict:
     assert main(["solve", str(path), "--json"]) == 0
-    return json.loads(capsys.readouterr().out)
+    return json.loads(capsys.readouterr().out)[0]["result"]  # a list, an entry per file
 
 
 def _number_after(text: str, label: str, unit: str) -> tuple[float, int] | None:
@@ -124,23 +124,22 @@ def test_csv_train_row_carries_the_totals(reports, capsys):
     r = _solve_json(path, capsys)
     with open(reports[path][1], newline="", encoding="utf-8") as fh:
         rows = list(csv.reader(fh))
-    header, units_row = rows[0], rows[1]
+    header = rows[0]  # one header row, the display unit in each column name (issue 18)
     assert len(header) == len(set(header))  # a spreadsheet finds a column by its name
     train = next(row for row in rows if row[0] == "train")
-    expect = {"condensate_drained": (r["condensate_kg_s"] * 3600.0, "kg/h"),
-              "condensate_volume": (r["condensate_L_h"], "L/h"),
-              "pressure_dew_point": (r["delivered_pressure_dew_point_K"] - 273.15, "°C"),
-              "atmospheric_dew_point": (r["delivered_atmospheric_dew_point_K"] - 273.15, "°C"),
-              "cooling_water": (r["cooling_water_m3_s"] * 3600.0, "m³/h"),
-              "recoverable_heat": (r["recoverable_heat_W"] / 1e3, "kW")}
-    for name, (value, unit) in expect.items():
+    expect = {"condensate_drained_kg_h": r["condensate_kg_s"] * 3600.0,
+              "condensate_volume_L_h": r["condensate_L_h"],
+              "pressure_dew_point_degC": r["delivered_pressure_dew_point_K"] - 273.15,
+              "atmospheric_dew_point_degC": r["delivered_atmospheric_dew_point_K"] - 273.15,
+              "cooling_water_m3_h": r["cooling_water_m3_s"] * 3600.0,
+              "recoverable_heat_kW": r["recoverable_heat_W"] / 1e3}
+    for name, value in expect.items():
         col = header.index(name)
-        assert units_row[col] == unit
         assert float(train[col]) == pytest.approx(value, rel=1e-11, abs=1e-12)
     assert train[header.index("iso8573_humidity_class")] == r["iso8573_humidity_class"]
     cooler1 = next(row for row in rows if row[:2] == ["component", "Cooler 1"])
     expected = r["stages"][0]["cooler"]["cooling_water_m3_s"] * 3600.0
-    assert float(cooler1[header.index("cooling_water")]) == pytest.approx(expected, rel=1e-11)
+    assert float(cooler1[header.index("cooling_water_m3_h")]) == pytest.approx(expected, rel=1e-11)
 
 
 def test_cooling_water_is_the_liquid_coolants_volume_flow(capsys):

@@ -119,7 +119,7 @@ def test_cli_year_reads_a_csv_profile_bins_it_and_writes_every_bin(tmp_path, cap
     assert len(lines) == 121 and "cooler_outlet_temperatures_K[1]" in lines[0] and "pressure_dew_point_K" in lines[0]
     capsys.readouterr()
     assert main(["year", str(project), "--profile", str(csv_in), "--bin", "--json"]) == 0
-    y = json.loads(capsys.readouterr().out)
+    y = json.loads(capsys.readouterr().out)[0]["year"]  # a list, an entry per file
     assert 1 < len(y["bins"]) < 120 and y["totals"]["hours"] == pytest.approx(120.0)
     bad = tmp_path / "bad.csv"
     bad.write_text("temperature,rh\n10,50\n11,x\n")

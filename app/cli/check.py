@@ -1,11 +1,20 @@
 """``stagewright check FILE|FOLDER …``: "ok", or one line per problem (exit status 2)."""
 from __future__ import annotations
 
-__all__ = ["run"]
+__all__ = ["run", "SUMMARY", "EXAMPLES"]
 
 from pathlib import Path
 
 from app.cli.paths import EXIT_INPUT, EXIT_OK, expand_paths
+
+#: one line in ``stagewright --help``
+SUMMARY = 'validate project files without solving them: "ok", or one line per problem'
+#: the end of ``stagewright check --help``
+EXAMPLES = """\
+examples:
+  stagewright check plant.json
+  stagewright check projects/                  # every *.json in the folder
+"""
 
 
 def run(args) -> int:

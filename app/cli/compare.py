@@ -6,7 +6,7 @@ A case that cannot be solved is listed with its reason; the exit status is then 
 """
 from __future__ import annotations
 
-__all__ = ["build_parser", "run", "format_comparison"]
+__all__ = ["build_parser", "run", "format_comparison", "SUMMARY", "EXAMPLES"]
 
 import argparse
 import csv
@@ -15,10 +15,18 @@ import json
 import sys
 
 from app.cli.paths import EXIT_INPUT, EXIT_OK
-from app.document.messages import warning_text
-from app.presentation.cautions import CAUTIONS, DEFERRAL
-from app.presentation.compare_table import CASE_FIGURES, case_row, difference, difference_text, flags
-from app.presentation.figures import condition_holds, shown
+
+#: one line in ``stagewright --help``
+SUMMARY = 'the cases of one project side by side, each with its difference from a reference'
+#: the end of ``stagewright compare --help``
+EXAMPLES = """\
+examples:
+  stagewright compare plant.json
+  stagewright compare plant.json --cases Base,Winter --reference Base --csv > cases.csv
+"""
+
+# the presentation tables are imported where they are used: they read the core's units, and
+# importing them here would load CoolProp for every sub-command (and for ``--help``)
 
 _OUT = "text"
 
@@ -45,6 +53,9 @@ def _names(text: str | None) -> list[str] | None:
 
 def _figures(outcomes) -> list:
     """The figures that apply to at least one solved case (no dew point row for dry air only)."""
+    from app.presentation.compare_table import CASE_FIGURES, case_row
+    from app.presentation.figures import condition_holds, shown
+
     rows = [case_row(o.result, o.year) for o in outcomes if o.result is not None]
     return [f for f in shown(CASE_FIGURES, _OUT)
             if any(condition_holds(f, _OUT, r) and f.value(r) is not None for r in rows)]
@@ -53,6 +64,10 @@ def _figures(outcomes) -> list:
 def format_comparison(title: str, outcomes, reference: str, system: str = "SI", doc: dict | None = None) -> str:
     """The comparison as an aligned text table: a row per figure, a column per case, and below
     each case's value its difference from the reference."""
+    from app.document.messages import warning_text
+    from app.presentation.cautions import CAUTIONS, DEFERRAL
+    from app.presentation.compare_table import case_row, difference_text, flags
+
     ref = next(o for o in outcomes if o.name == reference)
     ref_row = case_row(ref.result, ref.year)
     figures = _figures(outcomes)
@@ -86,6 +101,8 @@ def format_comparison(title: str, outcomes, reference: str, system: str = "SI", 
 
 
 def _json(outcomes, reference: str) -> dict:
+    from app.presentation.compare_table import CASE_FIGURES, case_row, difference
+
     ref = next(o for o in outcomes if o.name == reference)
     ref_row = case_row(ref.result, ref.year)
     cases = []
@@ -105,6 +122,8 @@ def _json(outcomes, reference: str) -> dict:
 
 
 def _csv(outcomes) -> str:
+    from app.presentation.compare_table import CASE_FIGURES, case_row
+
     buf = io.StringIO()
     ids = [f.id for f in CASE_FIGURES]
     writer = csv.writer(buf, lineterminator="\n")

@@ -4,15 +4,30 @@ The package's data-sheet figures: free air delivery, package input and package s
 at the ISO 1217 reference conditions and at the site, full load and the project's
 ``package.part_loads``, through the package's capacity control, motor and auxiliaries
 (:mod:`thermo.part_load.data_sheet`). Reads the project's ``package`` section.
+``--json`` prints a list, an entry per file (as ``solve --json``): ``{"file", "title",
+"data_sheet"}``, or ``{"file", "error"}`` for a file that was rejected.
 """
 from __future__ import annotations
 
-__all__ = ["add_arguments", "format_data_sheet", "run"]
+__all__ = ["add_arguments", "format_data_sheet", "run", "SUMMARY", "EXAMPLES"]
 
 import json
 import sys
 
 from app.cli.paths import EXIT_INPUT, EXIT_OK, expand_paths
+
+#: one line in ``stagewright --help``
+SUMMARY = "the package's data sheet: ISO 1217 reference and site, full and part loads"
+#: the end of ``stagewright datasheet --help``
+EXAMPLES = """\
+examples:
+  stagewright datasheet plant.json
+  stagewright datasheet plant.json --units US
+  stagewright datasheet plant.json --json
+
+The project needs a 'package' section (capacity control, motor, auxiliaries).
+--json prints one list for one file or several, as solve --json does.
+"""
 
 
 def add_arguments(p) -> None:
@@ -70,12 +85,14 @@ def run(args) -> int:
         except StagewrightError as exc:
             print(f"{path}: {exc}", file=sys.stderr)
             status = EXIT_INPUT
+            outputs.append({"file": str(path), "error": str(exc)})
             continue
         outputs.append({"file": str(path), "title": doc.get("title", ""), "data_sheet": sheet})
-    if args.json and outputs:
-        print(json.dumps(outputs[0]["data_sheet"] if len(outputs) == 1 else outputs, indent=2, allow_nan=False))
-    elif not args.json:
+    if args.json:  # one shape for one file and for several, as solve --json
+        print(json.dumps(outputs, indent=2, allow_nan=False))
+    else:
         for o in outputs:
-            print(format_data_sheet(o["title"], o["data_sheet"], args.units))
-            print()
+            if "data_sheet" in o:
+                print(format_data_sheet(o["title"], o["data_sheet"], args.units))
+                print()
     return status

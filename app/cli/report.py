@@ -6,7 +6,7 @@ say), 0 when every report was written.
 """
 from __future__ import annotations
 
-__all__ = ["run", "add_arguments", "output_paths"]
+__all__ = ["run", "add_arguments", "output_paths", "SUMMARY", "EXAMPLES"]
 
 import argparse
 import sys
@@ -14,6 +14,15 @@ from pathlib import Path
 
 from app.cli.outputs import FORCE_HELP, output_problems
 from app.cli.paths import EXIT_FAILED, EXIT_INPUT, EXIT_OK, expand_paths
+
+#: one line in ``stagewright --help``
+SUMMARY = 'write the PDF hand-over report (and the balance sheet as CSV) of each project'
+#: the end of ``stagewright report --help``
+EXAMPLES = """\
+examples:
+  stagewright report plant.json -o plant.pdf --csv plant.csv
+  stagewright report projects/ -o reports/ --csv --units US
+"""
 
 
 def add_arguments(p: argparse.ArgumentParser) -> None:

@@ -1,12 +1,30 @@
-"""``stagewright solve FILE|FOLDER … [--json]``: the balance table, or results as JSON (SI)."""
+"""``stagewright solve FILE|FOLDER … [--json]``: the balance table, or results as JSON (SI).
+
+``--json`` prints a list with one entry per file, in the order solved, for one file as for
+several: ``{"file", "title", "result"}`` (``result`` is ``TrainResult.to_dict()``), or
+``{"file", "error"}`` for a file that was rejected (its line is on stderr too).
+"""
 from __future__ import annotations
 
-__all__ = ["add_arguments", "run"]
+__all__ = ["add_arguments", "run", "SUMMARY", "EXAMPLES"]
 
 import argparse
 import json
 
 from app.cli.paths import EXIT_INPUT, EXIT_OK, expand_paths
+
+#: one line in ``stagewright --help``
+SUMMARY = 'solve projects: the balance table of each, or the results as JSON (SI)'
+#: the end of ``stagewright solve --help``
+EXAMPLES = """\
+examples:
+  stagewright solve plant.json
+  stagewright solve plant.json other.json --json > results.json
+  stagewright solve projects/                  # every *.json in the folder
+
+--json prints one list for one file or several: per file {"file", "title", "result"},
+or {"file", "error"} for a file that was rejected.
+"""
 
 
 def add_arguments(p: argparse.ArgumentParser) -> None:
@@ -35,10 +53,8 @@ def run(args) -> int:
                 outputs.append({"file": str(path), "error": str(exc)})
                 continue
             outputs.append({"file": str(path), "title": doc.get("title", ""), "result": result})
-    if args.json:
-        payload = outputs[0].get("result") if len(paths) == 1 and "result" in outputs[0] else outputs
-        if not (len(paths) == 1 and "error" in outputs[0]):
-            print(json.dumps(payload, indent=2, allow_nan=False))
+    if args.json:  # one shape for one file and for several: a list, an entry per file
+        print(json.dumps(outputs, indent=2, allow_nan=False))
     else:
         for o in outputs:
             if "result" in o:

@@ -9,11 +9,20 @@ closest feasible value are named on stderr).
 """
 from __future__ import annotations
 
-__all__ = ["build_parser", "run"]
+__all__ = ["build_parser", "run", "SUMMARY", "EXAMPLES"]
 
 import argparse
 import json
 import sys
+
+#: one line in ``stagewright --help``
+SUMMARY = 'compare 1 … N stages, each at its least-power pressure split'
+#: the end of ``stagewright study --help``
+EXAMPLES = """\
+examples:
+  stagewright study plant.json --max-stages 4
+  stagewright study plant.json --vary ambient_temperature_K=278.15,308.15 --json
+"""
 
 EXIT_OK, EXIT_INPUT = 0, 2
 

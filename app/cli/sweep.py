@@ -1,14 +1,16 @@
 """``stagewright sweep``: a project solved over a grid of input values, headless (never imports Qt).
 
     stagewright sweep PROJECT.json --axis FIELD=START:STOP:N [--axis FIELD=V1,V2,…]
-                      [-o OUT.csv] [--processes N]
+                      [-o OUT.csv|OUT.parquet|OUT.xlsx] [--processes N]
 
 Each ``--axis`` names a field of the project file by its path (``site.ambient_temperature_K``,
 ``discharge_pressure_Pa`` or ``discharge_gauge_pressure_Pa`` — an axis on one of these replaces a
 project's statement in the other —, ``stages[0].efficiency.value`` …) and its values in SI units, as the
 project file carries them; the grid is the product of the axes, the last one fastest. One CSV row
 per grid point: the axis values, the totals of ``thermo.sweep.SWEEP_OUTPUTS`` (SI, the unit in
-each column name) and, for a point that cannot be solved, its message.
+each column name; one header row) and, for a point that cannot be solved, its message. ``-o``
+writes CSV, or Parquet or Excel by its suffix with the optional ``tables`` extra
+(:mod:`app.cli.tables`).
 
 Grid points are solved on the fast property path (agreement with a full solve better than 1e-4
 relative in every column; see ``thermo/sweep.py``); solve a chosen point with
@@ -19,14 +21,24 @@ file only with ``--force`` (app/cli/outputs.py).
 """
 from __future__ import annotations
 
-__all__ = ["build_parser", "run", "parse_axis"]
+__all__ = ["build_parser", "run", "parse_axis", "SUMMARY", "EXAMPLES"]
 
 import argparse
-import csv
-import io
 import math
 import sys
 from pathlib import Path
+
+#: one line in ``stagewright --help``
+SUMMARY = 'solve a project over a grid of input values: one row of totals per point'
+#: the end of ``stagewright sweep --help``
+EXAMPLES = """\
+examples:
+  stagewright sweep plant.json --axis site.ambient_temperature_K=275.15:313.15:20
+  stagewright sweep plant.json --axis discharge_pressure_Pa=6e5,8e5,10e5 -o grid.csv
+  stagewright sweep plant.json --axis stages[0].efficiency.value=0.7:0.85:4 -o grid.parquet
+
+-o chooses the format by its suffix: .csv (default), .parquet or .xlsx (the "tables" extra).
+"""
 
 EXIT_OK, EXIT_INTERRUPTED, EXIT_INPUT = 0, 1, 2
 MAX_AXIS_VALUES = 10_000
@@ -40,7 +52,9 @@ def build_parser() -> argparse.ArgumentParser:
     p.add_argument("--axis", action="append", required=True, metavar="FIELD=START:STOP:N|FIELD=V1,V2,…",
                    help="a field path and its values in SI units: N evenly spaced values from START to STOP, "
                         "or a list; repeat for a grid")
-    p.add_argument("-o", "--output", metavar="OUT.csv", help="CSV file (default: standard output)")
+    p.add_argument("-o", "--output", metavar="OUT.csv",
+                   help="output file: .csv, or .parquet / .xlsx with the optional 'tables' extra "
+                        "(default: CSV on standard output)")
     p.add_argument("--force", action="store_true", help="replace OUT.csv if it exists (never the project file)")
     p.add_argument("--processes", type=int, metavar="N",
                    help="worker processes (default: every core for 2000 points or more, else 1)")
@@ -99,7 +113,9 @@ def run(args) -> int:
 
     if args.output:
         from app.cli.outputs import output_problems
+        from app.cli.tables import format_problem
         refused = output_problems([Path(args.project)], [Path(args.output)], force=args.force)
+        refused += [p for p in [format_problem(args.output)] if p]
         if refused:  # before the sweep: its work would be lost
             print(f"-o {refused[0]}", file=sys.stderr)
             return EXIT_INPUT
@@ -122,16 +138,15 @@ def run(args) -> int:
     except KeyboardInterrupt:
         print(f"{args.project}: sweep interrupted", file=sys.stderr)
         return EXIT_INTERRUPTED
-    out = io.StringIO() if args.output else sys.stdout
-    w = csv.writer(out)
-    w.writerow(list(axes) + list(SWEEP_OUTPUTS) + ["error"])
-    for i, point in enumerate(result.points):
-        values = ["" if result.values[k][i] is None else repr(result.values[k][i]) for k in SWEEP_OUTPUTS]
-        w.writerow([repr(v) for v in point] + values + [result.errors.get(i, "")])
-    if args.output:
-        from app.cli.outputs import write_text_atomically
+    from app.cli.tables import csv_text, write_table
+    header = list(axes) + list(SWEEP_OUTPUTS) + ["error"]
+    rows = [[float(v) for v in point] + [result.values[k][i] for k in SWEEP_OUTPUTS] + [result.errors.get(i, "")]
+            for i, point in enumerate(result.points)]
+    if not args.output:
+        sys.stdout.write(csv_text(header, rows))
+    else:
         try:
-            write_text_atomically(Path(args.output), out.getvalue())
+            write_table(Path(args.output), header, rows)
         except OSError as exc:
             print(f"-o {args.output}: cannot write ({exc.strerror or exc}); nothing was written", file=sys.stderr)
             return EXIT_INTERRUPTED

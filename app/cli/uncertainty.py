@@ -3,15 +3,28 @@
 The uncertainty of a field check: each result with its expanded uncertainty (k = 2) by
 first-order propagation through the solve, checked by Monte Carlo, the largest contributors,
 and a verdict per guaranteed figure. Reads the project's ``field_check`` section.
+``--json`` prints a list, an entry per file (as ``solve --json``): ``{"file", "title",
+"uncertainty"}``, or ``{"file", "error"}`` for a file that was rejected.
 """
 from __future__ import annotations
 
-__all__ = ["add_arguments", "format_uncertainty", "run"]
+__all__ = ["add_arguments", "format_uncertainty", "run", "SUMMARY", "EXAMPLES"]
 
 import json
 import sys
 
 from app.cli.paths import EXIT_INPUT, EXIT_OK, expand_paths
+
+#: one line in ``stagewright --help``
+SUMMARY = "a field check's results with their uncertainty (k = 2), contributors and verdicts"
+#: the end of ``stagewright uncertainty --help``
+EXAMPLES = """\
+examples:
+  stagewright uncertainty plant.json
+  stagewright uncertainty plant.json --draws 20000 --seed 7 --json
+
+--json prints one list for one file or several, as solve --json does.
+"""
 
 
 def add_arguments(p) -> None:
@@ -75,12 +88,14 @@ def run(args) -> int:
         except StagewrightError as exc:
             print(f"{path}: {exc}", file=sys.stderr)
             status = EXIT_INPUT
+            outputs.append({"file": str(path), "error": str(exc)})
             continue
         outputs.append({"file": str(path), "title": doc.get("title", ""), "uncertainty": result})
-    if args.json and outputs:
-        print(json.dumps(outputs[0]["uncertainty"] if len(outputs) == 1 else outputs, indent=2, allow_nan=False))
-    elif not args.json:
+    if args.json:  # one shape for one file and for several, as solve --json
+        print(json.dumps(outputs, indent=2, allow_nan=False))
+    else:
         for o in outputs:
-            print(format_uncertainty(o["title"], o["uncertainty"], args.units))
-            print()
+            if "uncertainty" in o:
+                print(format_uncertainty(o["title"], o["uncertainty"], args.units))
+                print()
     return status

@@ -4,19 +4,35 @@ A year at the site (energy, cost, condensate, coolers): the project's own ``year
 profile read from an hourly or logged CSV file (:mod:`app.document.year_csv`; units in its header
 or chosen with ``--temperature-unit`` / ``--humidity-unit``), optionally binned by temperature and
 humidity (:func:`thermo.year_profile.bin_profile`). ``--coolers design_once`` sizes the coolers
-once and rates every bin at that UA. ``--csv`` writes every bin as one CSV row (SI, unit in each
-column name). Progress on a terminal; Ctrl+C stops the run.
+once and rates every bin at that UA. ``--csv OUT`` writes every bin as one row (SI, unit in each
+column name, one header row): CSV, or Parquet / Excel by the suffix with the optional ``tables``
+extra (:mod:`app.cli.tables`); like ``sweep -o`` it never writes over an input and replaces an
+existing file only with ``--force``. ``--json`` prints a list, an entry per file (as ``solve
+--json``). Progress on a terminal; Ctrl+C stops the run.
 """
 from __future__ import annotations
 
-__all__ = ["run", "add_arguments", "bins_csv_rows"]
+__all__ = ["run", "add_arguments", "bins_csv_rows", "SUMMARY", "EXAMPLES"]
 
 import argparse
-import csv
 import json
 import sys
+from pathlib import Path
 
-from app.cli.paths import EXIT_INPUT, EXIT_OK, expand_paths
+from app.cli.outputs import FORCE_HELP
+from app.cli.paths import EXIT_FAILED, EXIT_INPUT, EXIT_OK, expand_paths
+
+#: one line in ``stagewright --help``
+SUMMARY = 'a year at the site: annual energy, cost, condensate and cooling water, bin by bin'
+#: the end of ``stagewright year --help``
+EXAMPLES = """\
+examples:
+  stagewright year plant.json
+  stagewright year plant.json --profile hourly.csv --bin 2 --csv bins.csv
+  stagewright year plant.json --csv bins.xlsx      # .parquet or .xlsx need the "tables" extra
+
+--json prints one list for one file or several, as solve --json does.
+"""
 
 _T_UNITS = {"C": "°C", "°C": "°C", "F": "°F", "°F": "°F", "K": "K"}
 _H_UNITS = {"%": "%", "percent": "%", "fraction": ""}
@@ -34,7 +50,10 @@ def add_arguments(p: argparse.ArgumentParser) -> None:
                    help="bin the CSV rows by temperature (K wide, default 1) and humidity (5 %%) for speed")
     p.add_argument("--coolers", choices=("size_every_bin", "design_once"),
                    help="size the coolers in every bin, or once at the design condition and rate every bin")
-    p.add_argument("--csv", metavar="OUT", help="write every bin as a CSV row (SI)")
+    p.add_argument("--csv", metavar="OUT",
+                   help="write every bin as a row (SI, unit in each column name): .csv, or .parquet / .xlsx "
+                        "with the optional 'tables' extra")
+    p.add_argument("--force", action="store_true", help=FORCE_HELP)
 
 
 def _bin_label(b: dict) -> str:
@@ -89,8 +108,14 @@ def run(args) -> int:
     from app.cli.progress import Progress
     from app.cli.year_table import format_year
 
+    paths = expand_paths(args.files)
+    if args.csv:
+        refused = _csv_refused(paths, args)
+        if refused:  # before any work: it would be lost
+            print(refused, file=sys.stderr)
+            return EXIT_INPUT
     status, outputs = EXIT_OK, []
-    for path in expand_paths(args.files):
+    for path in paths:
         try:
             doc = _with_profile(load(path), args)
             bars: list = []
@@ -107,15 +132,34 @@ def run(args) -> int:
         except StagewrightError as exc:
             print(f"{path}: {exc}", file=sys.stderr)
             status = EXIT_INPUT
+            outputs.append({"file": str(path), "error": str(exc)})
             continue
         outputs.append({"file": str(path), "title": doc.get("title", ""), "year": result})
-    if args.csv and outputs:
-        with open(args.csv, "w", newline="", encoding="utf-8") as fh:
-            csv.writer(fh).writerows(bins_csv_rows(outputs[0]["year"]))
-    if args.json and outputs:
-        print(json.dumps(outputs[0]["year"] if len(outputs) == 1 else outputs, indent=2, allow_nan=False))
-    elif not args.json:
+    if args.csv and "year" in outputs[0]:
+        from app.cli.tables import write_table
+        table = bins_csv_rows(outputs[0]["year"])
+        try:
+            write_table(Path(args.csv), table[0], table[1:])
+        except OSError as exc:
+            print(f"--csv {args.csv}: cannot write ({exc.strerror or exc}); nothing was written", file=sys.stderr)
+            status = status or EXIT_FAILED
+    if args.json:  # one shape for one file and for several, as solve --json
+        print(json.dumps(outputs, indent=2, allow_nan=False))
+    else:
         for o in outputs:
-            print(format_year(o["title"], o["year"]))
-            print()
+            if "year" in o:
+                print(format_year(o["title"], o["year"]))
+                print()
     return status
+
+
+def _csv_refused(paths: list[Path], args) -> str | None:
+    """Why ``--csv`` may not be written (checked before any work), or None."""
+    from app.cli.outputs import output_problems
+    from app.cli.tables import format_problem
+
+    if len(paths) != 1:
+        return f"--csv {args.csv}: the bins of one project at a time ({len(paths)} projects named)"
+    inputs = paths + ([Path(args.profile)] if args.profile else [])
+    refused = output_problems(inputs, [Path(args.csv)], force=args.force) + [p for p in [format_problem(args.csv)] if p]
+    return f"--csv {refused[0]}" if refused else None

@@ -1,6 +1,8 @@
 """The balance sheet as CSV for spreadsheets: one row per state point and per component.
 
-Layout: a header row of column names, a units row, then data rows. The first column says
+Layout: one header row, each column named with its display unit as the sweep's and the JSON's
+keys carry theirs (``temperature_degC``, ``pressure_bar_a``, ``entropy_kJ_kgK``, ``shaft_power_kW``;
+:func:`column_name`), then data rows; a file reads into a data frame as it is. The first column says
 what the row is (``state``, ``component`` or ``train``). The columns are the figures of
 :mod:`app.presentation.balance_tables` that show in the ``"csv"`` output: state-point figures,
 then component figures, then any train totals (filled in the ``train`` row); a spreadsheet's
@@ -11,10 +13,11 @@ value is an empty cell. Written with the standard library's :mod:`csv` (RFC 4180
 """
 from __future__ import annotations
 
-__all__ = ["COLUMNS", "csv_columns", "csv_rows", "write_csv"]
+__all__ = ["COLUMNS", "column_name", "csv_columns", "csv_rows", "write_csv"]
 
 import csv
 import io
+import re
 
 from app.presentation import balance_tables as tables
 from app.presentation.figures import Figure, shown
@@ -31,14 +34,38 @@ def _figures() -> list[tuple[str, Figure]]:
             + [("total", f) for f in shown(tables.TOTALS, _OUT)])
 
 
-def csv_columns() -> list[tuple[str, str | None]]:
+#: characters of a unit symbol as a column name writes them (``kJ/(kg·K)`` → ``kJ_kgK``)
+_SYMBOL_CHARS = str.maketrans({"/": "_", "(": "_", ")": "", "·": "", " ": "", "°": "deg", "³": "3", "²": "2",
+                               "%": "percent"})
+
+
+def column_name(label: str, symbol: str) -> str:
+    """A column named with its unit, in the style of the project's keys (``discharge_pressure_Pa``).
+
+    Examples
+    --------
+    >>> column_name("entropy", "kJ/(kg·K)"), column_name("pressure", "bar(a)"), column_name("temperature", "°F")
+    ('entropy_kJ_kgK', 'pressure_bar_a', 'temperature_degF')
+    >>> column_name("density", "kg/m³"), column_name("relative_humidity", "%"), column_name("isentropic_efficiency", "")
+    ('density_kg_m3', 'relative_humidity_percent', 'isentropic_efficiency')
+    """
+    suffix = re.sub("_+", "_", symbol.translate(_SYMBOL_CHARS)).strip("_")
+    return f"{label}_{suffix}" if suffix and suffix != "-" else label
+
+
+def _column(fig: Figure, system: str) -> str:
+    return column_name(fig.label_in(_OUT), fig.symbol_in(_OUT, system) or "")
+
+
+def csv_columns(system: str = "SI") -> list[tuple[str, str | None]]:
     """(column name, display quantity or None for text) of every column, in order."""
     return [("kind", None), ("name", None)] + [
-        (f.label_in(_OUT), None if f.style in ("text", "yes_no") else (f.look(_OUT).quantity or f.quantity))
+        (_column(f, system), None if f.style in ("text", "yes_no") else (f.look(_OUT).quantity or f.quantity))
         for _, f in _figures()]
 
 
-#: (column name, quantity of app.presentation.units or None for text), as the tables stood at import
+#: (column name, quantity of app.presentation.units or None for text) in SI display units, as the
+#: tables stood at import
 COLUMNS = csv_columns()
 
 
@@ -51,15 +78,10 @@ def _cell(fig: Figure, data: dict | None, kind: str | None, system: str) -> str:
     return format(fig.unit_in(_OUT, system).to_display(float(value) * fig.to_si), ".12g")
 
 
-def _unit_text(fig: Figure, system: str) -> str:
-    return fig.symbol_in(_OUT, system) or "-"
-
-
 def csv_rows(result: dict, system: str = "SI") -> list[list[str]]:
-    """Header row, units row and data rows of the CSV (strings, display units)."""
+    """Header row (the unit in each column name) and data rows of the CSV (strings, display units)."""
     figures = _figures()
-    header = ["kind", "name"] + [f.label_in(_OUT) for _, f in figures]
-    unit_row = ["", ""] + [_unit_text(f, system) for _, f in figures]
+    header = ["kind", "name"] + [_column(f, system) for _, f in figures]
     # (row kind, name, {row part: (data, kind for per-kind paths)})
     records = [("state", name, {"point": (pt, None)}) for name, pt in state_points(result)]
     for _, kind, i, data in tables.component_rows(result):
@@ -70,7 +92,7 @@ def csv_rows(result: dict, system: str = "SI") -> list[list[str]]:
             records.append(("component", name, {"component": (data, kind)}))
     body = [[row_kind, name] + [_cell(f, *parts.get(part, (None, None)), system) for part, f in figures]
             for row_kind, name, parts in records]
-    return [header, unit_row] + body
+    return [header] + body
 
 
 def write_csv(result: dict, path, system: str = "SI") -> None:

@@ -13,6 +13,7 @@ from __future__ import annotations
 
 __all__ = ["MAX_FILE_BYTES", "MAX_DEPTH", "parse_bytes", "read_limited", "position"]
 
+import itertools
 import json
 import os
 import re
@@ -47,14 +48,21 @@ _STRINGS = re.compile(r'"(?:[^"\\]|\\.)*"?', re.DOTALL)
 _NOT_BRACKETS = bytes(c for c in range(256) if c not in b"[]{}")  # bytes.translate deletes these
 
 
+#: at most this many brackets are counted in Python; more in numpy (whose import, ~0.1 s, a
+#: typical project file of a few hundred brackets does not need: ``stagewright check`` stays fast)
+_PYTHON_BRACKETS = 20_000
+
+
 def _deepest(text: str) -> int:
     """Deepest nesting of brackets outside strings, in C-speed passes (a Python loop over the
     two million brackets of a 6 MB file took seconds)."""
-    import numpy as np
-
     brackets = _STRINGS.sub("", text).encode("utf-8", "surrogatepass").translate(None, _NOT_BRACKETS)
     if not brackets:
         return 0
+    if len(brackets) <= _PYTHON_BRACKETS:
+        return max(itertools.accumulate(1 if c in b"[{" else -1 for c in brackets))
+    import numpy as np
+
     codes = np.frombuffer(brackets, dtype=np.uint8)
     steps = np.where((codes == ord("[")) | (codes == ord("{")), 1, -1)
     return int(np.cumsum(steps).max())

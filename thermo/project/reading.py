@@ -42,7 +42,9 @@ def _refuse_oversized_lists(data: dict) -> None:
 
 
 def recognise(data: Any) -> dict:
-    """Refuse data that is not a project document at all (rather than a faulty one)."""
+    """Refuse data that is not a project document at all (rather than a faulty one); return it
+    without the ``$schema`` key (text, or refused) that files written by :func:`thermo.project.save`
+    carry."""
     if not isinstance(data, dict):
         kind = {list: "a list", str: "text", bool: "true/false", type(None): "null"}.get(type(data), "a number")
         raise ProjectFileError(f"(document): {kind} — not a Stagewright project "
@@ -56,7 +58,25 @@ def recognise(data: Any) -> dict:
         raise ProjectFileError(f"(document): no 'format' key and none of the project keys (found: {keys}) "
                                "— not a Stagewright project", field="(document)")
     _refuse_oversized_lists(data)
-    return data
+    return _without_schema_reference(data)
+
+
+#: the key naming a file's JSON Schema (thermo.project.json_schema); for editors, not a project key
+SCHEMA_KEY = "$schema"
+#: its value in the files :func:`thermo.project.save` writes, and the schema's ``$id``: a URN naming
+#: the schema of this format version (a name, not an address: nothing is fetched)
+SCHEMA_ID = f"urn:stagewright:project:{schema.FORMAT_VERSION}"
+
+
+def _without_schema_reference(data: dict) -> dict:
+    """``data`` without its ``$schema`` (any text: an editor may point it at a local copy of the
+    schema); :func:`thermo.project.save` writes it afresh."""
+    if SCHEMA_KEY not in data:
+        return data
+    if not isinstance(data[SCHEMA_KEY], str):
+        raise ProjectFileError(f"{SCHEMA_KEY}: {shown_value(data[SCHEMA_KEY])} — expected text (the address of "
+                               "the project file's JSON Schema)", field=SCHEMA_KEY)
+    return {k: v for k, v in data.items() if k != SCHEMA_KEY}
 
 
 def accept(data: Any) -> tuple[dict, int]:

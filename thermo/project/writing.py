@@ -16,7 +16,7 @@ read, and the next save of that file removes it once its process has ended
 """
 from __future__ import annotations
 
-__all__ = ["dumps", "save", "atomic_write", "backup_path", "remove_orphans"]
+__all__ = ["dumps", "file_text", "save", "atomic_write", "backup_path", "remove_orphans"]
 
 import contextlib
 import errno
@@ -35,6 +35,7 @@ from thermo.project import schema
 from thermo.errors import InputError, SaveError
 from thermo.project.schema_types import Items, Obj, Variant
 from thermo.project.parse import MAX_FILE_BYTES
+from thermo.project.reading import SCHEMA_ID, SCHEMA_KEY
 
 
 def backup_path(path) -> Path:
@@ -91,6 +92,25 @@ def dumps(doc: dict) -> str:
     """
     _check_data(doc, "")
     return json.dumps(_ordered(schema.PROJECT, doc), indent=2, ensure_ascii=False, allow_nan=False) + "\n"
+
+
+def file_text(doc: dict) -> str:
+    """What :func:`save` writes: :func:`dumps` with ``"$schema": SCHEMA_ID`` as the first key, so
+    that editors validate and complete the file against the schema shipped with the package
+    (:mod:`thermo.project.json_schema`; the reader ignores the key).
+
+    Examples
+    --------
+    >>> print(file_text({"format": "stagewright-project", "version": 3}), end="")
+    {
+      "$schema": "urn:stagewright:project:3",
+      "format": "stagewright-project",
+      "version": 3
+    }
+    """
+    body = dumps({k: v for k, v in doc.items() if k != SCHEMA_KEY})
+    first = "{\n  " + json.dumps(SCHEMA_KEY) + ": " + json.dumps(SCHEMA_ID)
+    return first + ("\n}\n" if body == "{}\n" else "," + body[1:])
 
 
 def _encode(text: str, doc_for_ascii) -> bytes:
@@ -290,7 +310,8 @@ def _writable(path: Path, info: os.stat_result) -> bool:
 def save(doc: dict, path) -> None:
     """Write ``doc`` to ``path`` atomically, keeping the previous file as ``path.bak``.
 
-    The file is written with ``format`` and ``version`` set. A document with validation
+    The file is written with ``$schema`` (:data:`thermo.project.reading.SCHEMA_ID`, for
+    editors; the reader ignores it), ``format`` and ``version`` set. A document with validation
     problems (a value out of range, a missing key) is written as it is — the window asks
     the user first — and :func:`thermo.project.load` will name those problems when it is
     read; :func:`thermo.project.load_with_problems` opens it anyway.
@@ -320,8 +341,8 @@ def save(doc: dict, path) -> None:
     if doc.get("format", schema.FORMAT_NAME) != schema.FORMAT_NAME:
         raise InputError("format", doc.get("format"), f"expected {schema.FORMAT_NAME!r}")
     full = {"format": schema.FORMAT_NAME, "version": schema.FORMAT_VERSION, **doc}
-    text = dumps(full)
-    data = _encode(text, _ordered(schema.PROJECT, full))
+    full.pop(SCHEMA_KEY, None)
+    data = _encode(file_text(full), {SCHEMA_KEY: SCHEMA_ID, **_ordered(schema.PROJECT, full)})
     if len(data) > MAX_FILE_BYTES:
         raise SaveError(f"{path}: the project would be {len(data)} bytes, more than the "
                         f"{MAX_FILE_BYTES} a project file may hold; nothing was written")
