@@ -32,3 +32,25 @@ def test_error_field_paths_resolve_in_the_document():
     with pytest.raises(InputError) as info:
         thermo.solve(doc)
     assert get_path(doc, info.value.field) == 3.0
+
+
+def test_an_index_of_thousands_of_digits_is_a_refusal_not_a_crash(tmp_path):
+    """A case change path with a 5000-digit index made ``load`` fail with Python's int() digit-limit
+    ValueError (a traceback) instead of naming the path."""
+    import json
+    from pathlib import Path
+
+    from thermo.errors import InputError, StagewrightError
+    from thermo.project import load
+    with pytest.raises(InputError):
+        parse_path("stages[" + "9" * 5000 + "]")
+    with pytest.raises(InputError):
+        parse_path("stages[\u0661]")  # an Arabic-Indic one: not an index here
+    sample = Path(__file__).resolve().parents[1] / "sample_projects" / "two_stage_plant_air.json"
+    doc = json.loads(sample.read_text())
+    doc["cases"] = [{"name": "Huge", "changes": {"stages[" + "9" * 5000 + "].name": "x"}}]
+    path = tmp_path / "huge.json"
+    path.write_text(json.dumps(doc))
+    with pytest.raises(StagewrightError) as err:
+        load(path)
+    assert "cases[0].changes" in str(err.value)

@@ -49,8 +49,7 @@ declaration in :mod:`~thermo.project.schema` first (they live in ``validation.py
 
 Nor does it state what the reader refuses before any document rule (``thermo.project.parse``):
 a file over 16 MB, nesting deeper than 32, text that is not UTF-8, a key given twice, ``NaN`` or
-``Infinity`` (not JSON, though Python's parser reads them), a field path in a case's changes
-whose index uses non-ASCII digits (the reader's ``\\d``; the schema allows ``0-9``).
+``Infinity`` (not JSON, though Python's parser reads them).
 """
 from __future__ import annotations
 
@@ -157,7 +156,7 @@ def _change_path_pattern(roots: tuple) -> str:
     """A field path (:func:`thermo.project.paths.parse_path`) starting at one of ``roots``."""
     name = "[A-Za-z_][A-Za-z0-9_]*"
     first = "|".join(re.escape(r) for r in roots)
-    return rf"^(?:{first})(?:\.{name}|\.?\[[0-9]+\](?:{name})?)*(?!\n)$"
+    return rf"^(?:{first})(?:\.{name}|\.?\[[0-9]{{1,9}}\](?:{name})?)*(?!\n)$"
 
 
 def node_schema(node: Any, path: str = "", meanings: dict | None = None) -> dict:

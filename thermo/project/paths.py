@@ -11,7 +11,9 @@ import re
 
 from thermo.errors import InputError
 
-_TOKEN = re.compile(r"([A-Za-z_][A-Za-z0-9_]*)|\[(\d+)\]")
+#: a key, or an index of ASCII digits (at most 9: no list here is longer, and a longer run of digits
+#: would cost Python's int() its digit limit — a file may hold thousands)
+_TOKEN = re.compile(r"([A-Za-z_][A-Za-z0-9_]*)|\[([0-9]{1,9})\]")
 
 
 def parse_path(path: str) -> list:
