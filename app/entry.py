@@ -27,7 +27,7 @@ def version_text() -> str:
     """``stagewright 0.1.0 (CoolProp 6.8.0, Python 3.11.7)``, without importing CoolProp."""
     from importlib import metadata
 
-    from thermo import __version__
+    from stagewright.core import __version__
 
     try:
         coolprop = f"CoolProp {metadata.version('CoolProp')}, "
@@ -38,8 +38,8 @@ def version_text() -> str:
 
 def build_parser() -> argparse.ArgumentParser:
     """The parser of ``stagewright`` without a sub-command; its help lists every sub-command."""
-    from app.cli.main import overview
-    from app.cli.paths import EXIT_STATUS_HELP
+    from stagewright.gui.cli.main import overview
+    from stagewright.gui.cli.paths import EXIT_STATUS_HELP
 
     p = argparse.ArgumentParser(
         prog="stagewright", formatter_class=argparse.RawDescriptionHelpFormatter,
@@ -60,7 +60,7 @@ def build_parser() -> argparse.ArgumentParser:
 
 def main(argv: list[str] | None = None) -> int:
     """Entry point of the ``stagewright`` console script; returns the exit status."""
-    from app.cli.main import SUBCOMMANDS, main as run_subcommand, parse_or_status
+    from stagewright.gui.cli.main import SUBCOMMANDS, main as run_subcommand, parse_or_status
 
     argv = sys.argv[1:] if argv is None else list(argv)
     if argv and (argv[0] in SUBCOMMANDS or _WORD.fullmatch(argv[0]) and not os.path.exists(argv[0])):
@@ -68,7 +68,7 @@ def main(argv: list[str] | None = None) -> int:
     args = parse_or_status(build_parser(), argv)
     if isinstance(args, int):
         return args
-    from app.window.launch import run_gui  # Qt is imported only here
+    from stagewright.gui.window.launch import run_gui  # Qt is imported only here
     return run_gui(args.project, args.screenshot, size=args.size)
 
 

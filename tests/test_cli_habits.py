@@ -9,11 +9,11 @@ import types
 
 import pytest
 
-import app.entry as entry
-import thermo
-from app.cli import tables
-from app.cli.main import SUBCOMMANDS, main, summary
-from app.cli.paths import EXIT_INPUT, EXIT_USAGE
+import stagewright.gui.entry as entry
+import stagewright.core
+from stagewright.gui.cli import tables
+from stagewright.gui.cli.main import SUBCOMMANDS, main, summary
+from stagewright.gui.cli.paths import EXIT_INPUT, EXIT_USAGE
 from conftest import ROOT, SAMPLES, make_doc
 
 PLANT = SAMPLES / "two_stage_plant_air.json"
@@ -23,7 +23,7 @@ YEAR = SAMPLES / "three_stage_site_year.json"
 def test_version_names_the_release(capsys):
     assert entry.main(["--version"]) == 0
     out = capsys.readouterr().out
-    assert out.startswith(f"stagewright {thermo.__version__} (") and "Python" in out
+    assert out.startswith(f"stagewright {stagewright.core.__version__} (") and "Python" in out
 
 
 def test_help_lists_every_sub_command_with_its_line_and_the_exit_statuses(capsys):
@@ -120,7 +120,7 @@ def test_solve_still_imports_coolprop():  # the test above can fail: this is how
 def test_the_package_solve_is_the_function_even_after_its_module_is_imported():
     import importlib
     module = importlib.import_module(thermo.__name__ + ".solve")
-    assert thermo.solve is module.solve and callable(thermo.solve)
+    assert stagewright.core.solve is module.solve and callable(stagewright.core.solve)
 
 
 # --- tables: one header row; Parquet and Excel only with their optional libraries -----------------

@@ -6,8 +6,8 @@ from pathlib import Path
 
 import pytest
 
-from app.cli.main import main
-from thermo.part_load.data_sheet import data_sheet
+from stagewright.gui.cli.main import main
+from stagewright.core.part_load.data_sheet import data_sheet
 
 SAMPLES = Path(__file__).resolve().parents[1] / "sample_projects"
 

@@ -1,4 +1,4 @@
-"""The flow found from a measured shaft power (thermo.solve._solve_for_power).
+"""The flow found from a measured shaft power (stagewright.core.solve._solve_for_power).
 
 Checked against the closed form of a perfect gas (constant cp, one stage with a measured
 discharge temperature and a casing heat loss): shaft power = ṁ cp (T2 − T1) + Q, so the flow is
@@ -8,8 +8,8 @@ from __future__ import annotations
 
 import pytest
 
-from thermo.errors import SecondLawViolation
-from thermo.solve import solve
+from stagewright.core.errors import SecondLawViolation
+from stagewright.core.solve import solve
 
 CP, T1, T2, Q = 1005.0, 293.15, 430.0, 2000.0
 

@@ -1,4 +1,4 @@
-"""The package at part load (thermo.part_load): controls, motor, drive, auxiliaries, solve figures.
+"""The package at part load (stagewright.core.part_load): controls, motor, drive, auxiliaries, solve figures.
 
 External references: the generic motor part-load ratios of the Washington State Energy Office
 *Energy-Efficient Electric Motor Selection Handbook* (1993) and the PWM drive table both as the
@@ -18,13 +18,13 @@ from pathlib import Path
 import pytest
 from fluids.pump import VFD_efficiency, motor_efficiency_underloaded
 
-from thermo.project.validation import normalise
-from thermo.part_load.annual import annual_figures
-from thermo.part_load.drive import drive_input
-from thermo.part_load.full_load import FullLoad
-from thermo.part_load.motor import motor_input
-from thermo.part_load.package import package_point
-from thermo.solve import solve
+from stagewright.core.project.validation import normalise
+from stagewright.core.part_load.annual import annual_figures
+from stagewright.core.part_load.drive import drive_input
+from stagewright.core.part_load.full_load import FullLoad
+from stagewright.core.part_load.motor import motor_input
+from stagewright.core.part_load.package import package_point
+from stagewright.core.solve import solve
 
 SAMPLES = Path(__file__).resolve().parents[1] / "sample_projects"
 
@@ -212,7 +212,7 @@ def _year_doc(package: dict | None) -> dict:
 def test_year_bins_go_through_the_control():
     """Each bin's power is the package point of that bin's own solve; at full load the bin keeps
     today's driver power exactly; part-load bins cost more than the proportional year."""
-    from thermo.year import run_year
+    from stagewright.core.year import run_year
     plain = run_year(_year_doc(None), exact=True)
     pkg = {"control": CONTROLS["modulation"], "fan_power_W": 1500.0}
     year = run_year(_year_doc(pkg), exact=True)
@@ -232,9 +232,9 @@ def test_year_bins_go_through_the_control():
 
 def test_study_options_carry_the_package_year():
     """Each staging option's package energy is its own solve through the control over the profile."""
-    from thermo.part_load.annual import annual_figures
-    from thermo.part_load.full_load import full_load_of
-    from thermo.study.compare import compare_stagings
+    from stagewright.core.part_load.annual import annual_figures
+    from stagewright.core.part_load.full_load import full_load_of
+    from stagewright.core.study.compare import compare_stagings
     doc = json.loads((SAMPLES / "two_stage_plant_air.json").read_text())
     doc["package"] = {"control": CONTROLS["load_unload"], "load": 0.6,
                       "load_profile": [{"load": 0.6, "hours": 4000.0}, {"load": 1.0, "hours": 2000.0}]}
@@ -251,7 +251,7 @@ def test_study_options_carry_the_package_year():
 
 
 def test_compare_table_reads_package_figures():
-    from app.presentation.compare_table import CASE_FIGURES, case_row
+    from stagewright.gui.presentation.compare_table import CASE_FIGURES, case_row
     doc = json.loads((SAMPLES / "two_stage_plant_air.json").read_text())
     doc["package"] = {"control": CONTROLS["modulation"], "load": 0.5,
                       "load_profile": [{"load": 0.5, "hours": 1000.0}]}

@@ -3,7 +3,7 @@
 validation on random documents except for the listed cross-key rules.
 
 Outside reference: the ``jsonschema`` package (an independent implementation of JSON Schema
-draft 2020-12) judges the documents; the tool's judgement is ``thermo.project.reading.accept``,
+draft 2020-12) judges the documents; the tool's judgement is ``stagewright.core.project.reading.accept``,
 what ``load`` does after parsing.
 """
 from __future__ import annotations
@@ -20,17 +20,17 @@ from hypothesis import strategies as st
 
 from tests.conftest import ROOT, SAMPLES, make_doc
 from tests.strategies import strategy
-from thermo.errors import InputError, ProjectFileError
-from thermo.project import json_schema, load, loads, save
-from thermo.project.reading import accept
-from thermo.project.schema import PROJECT
-from thermo.project.schema_types import Choice, Num, Obj, Text, Variant, walk
+from stagewright.core.errors import InputError, ProjectFileError
+from stagewright.core.project import json_schema, load, loads, save
+from stagewright.core.project.reading import accept
+from stagewright.core.project.schema import PROJECT
+from stagewright.core.project.schema_types import Choice, Num, Obj, Text, Variant, walk
 
 jsonschema = pytest.importorskip("jsonschema")
 
 FIXTURES = sorted((ROOT / "tests" / "fixtures").glob("project_v*.json"))
 VALIDATOR = jsonschema.Draft202012Validator(json_schema.json_schema())
-REGENERATE = "python -m thermo.project.json_schema --write"
+REGENERATE = "python -m stagewright.core.project.json_schema --write"
 
 
 def test_the_committed_schema_is_the_generated_one():

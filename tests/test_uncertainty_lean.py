@@ -1,6 +1,6 @@
 """The field check's lean Monte Carlo draws (thermo/uncertainty/lean_figures.py) against the full solve.
 
-The reference is the full solve (``thermo.solve.solve_normalised``), itself checked against
+The reference is the full solve (``stagewright.core.solve.solve_normalised``), itself checked against
 published sources elsewhere (tests/test_stage.py, tests/test_train.py, and the closed-form
 perfect-gas stage of tests/test_uncertainty_field_check.py). What is checked here is agreement:
 a draw evaluated lean gives the full solve's figures, the draws the full solve refuses are
@@ -18,12 +18,12 @@ import numpy as np
 import pytest
 
 from conftest import SAMPLES
-from thermo import coolprop_adapter
-from thermo.project.validation import normalise
-from thermo.uncertainty.figures import result_figures
-from thermo.uncertainty.inputs import measured_inputs
-from thermo.uncertainty.measurement_model import MeasurementModel
-from thermo.uncertainty.monte_carlo import draw_inputs, propagate_monte_carlo
+from stagewright.core import coolprop_adapter
+from stagewright.core.project.validation import normalise
+from stagewright.core.uncertainty.figures import result_figures
+from stagewright.core.uncertainty.inputs import measured_inputs
+from stagewright.core.uncertainty.measurement_model import MeasurementModel
+from stagewright.core.uncertainty.monte_carlo import draw_inputs, propagate_monte_carlo
 
 
 def _sample() -> dict:

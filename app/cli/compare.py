@@ -14,7 +14,7 @@ import io
 import json
 import sys
 
-from app.cli.paths import EXIT_INPUT, EXIT_OK
+from stagewright.gui.cli.paths import EXIT_INPUT, EXIT_OK
 
 #: one line in ``stagewright --help``
 SUMMARY = 'the cases of one project side by side, each with its difference from a reference'
@@ -53,8 +53,8 @@ def _names(text: str | None) -> list[str] | None:
 
 def _figures(outcomes) -> list:
     """The figures that apply to at least one solved case (no dew point row for dry air only)."""
-    from app.presentation.compare_table import CASE_FIGURES, case_row
-    from app.presentation.figures import condition_holds, shown
+    from stagewright.gui.presentation.compare_table import CASE_FIGURES, case_row
+    from stagewright.gui.presentation.figures import condition_holds, shown
 
     rows = [case_row(o.result, o.year) for o in outcomes if o.result is not None]
     return [f for f in shown(CASE_FIGURES, _OUT)
@@ -64,9 +64,9 @@ def _figures(outcomes) -> list:
 def format_comparison(title: str, outcomes, reference: str, system: str = "SI", doc: dict | None = None) -> str:
     """The comparison as an aligned text table: a row per figure, a column per case, and below
     each case's value its difference from the reference."""
-    from app.document.messages import warning_text
-    from app.presentation.cautions import CAUTIONS, DEFERRAL
-    from app.presentation.compare_table import case_row, difference_text, flags
+    from stagewright.gui.document.messages import warning_text
+    from stagewright.gui.presentation.cautions import CAUTIONS, DEFERRAL
+    from stagewright.gui.presentation.compare_table import case_row, difference_text, flags
 
     ref = next(o for o in outcomes if o.name == reference)
     ref_row = case_row(ref.result, ref.year)
@@ -101,7 +101,7 @@ def format_comparison(title: str, outcomes, reference: str, system: str = "SI", 
 
 
 def _json(outcomes, reference: str) -> dict:
-    from app.presentation.compare_table import CASE_FIGURES, case_row, difference
+    from stagewright.gui.presentation.compare_table import CASE_FIGURES, case_row, difference
 
     ref = next(o for o in outcomes if o.name == reference)
     ref_row = case_row(ref.result, ref.year)
@@ -122,7 +122,7 @@ def _json(outcomes, reference: str) -> dict:
 
 
 def _csv(outcomes) -> str:
-    from app.presentation.compare_table import CASE_FIGURES, case_row
+    from stagewright.gui.presentation.compare_table import CASE_FIGURES, case_row
 
     buf = io.StringIO()
     ids = [f.id for f in CASE_FIGURES]
@@ -137,10 +137,10 @@ def _csv(outcomes) -> str:
 
 def run(args) -> int:
     """Solve the cases asked for and print the comparison; exit status 2 if any case failed."""
-    from thermo import StagewrightError
-    from thermo.cases import compare_cases
-    from thermo.project import load
-    from thermo.project.cases import case_names
+    from stagewright.core import StagewrightError
+    from stagewright.core.cases import compare_cases
+    from stagewright.core.project import load
+    from stagewright.core.project.cases import case_names
 
     try:
         doc = load(args.project)

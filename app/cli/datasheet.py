@@ -3,7 +3,7 @@
 The package's data-sheet figures: free air delivery, package input and package specific power
 at the ISO 1217 reference conditions and at the site, full load and the project's
 ``package.part_loads``, through the package's capacity control, motor and auxiliaries
-(:mod:`thermo.part_load.data_sheet`). Reads the project's ``package`` section.
+(:mod:`stagewright.core.part_load.data_sheet`). Reads the project's ``package`` section.
 ``--json`` prints a list, an entry per file (as ``solve --json``): ``{"file", "title",
 "data_sheet"}``, or ``{"file", "error"}`` for a file that was rejected.
 """
@@ -14,7 +14,7 @@ __all__ = ["add_arguments", "format_data_sheet", "run", "SUMMARY", "EXAMPLES"]
 import json
 import sys
 
-from app.cli.paths import EXIT_INPUT, EXIT_OK, expand_paths
+from stagewright.gui.cli.paths import EXIT_INPUT, EXIT_OK, expand_paths
 
 #: one line in ``stagewright --help``
 SUMMARY = "the package's data sheet: ISO 1217 reference and site, full and part loads"
@@ -47,7 +47,7 @@ def _table(header: list, rows: list) -> list:
 
 def format_data_sheet(title: str, sheet: dict, system: str = "SI") -> str:
     """Plain-text data sheet of ``DataSheet.to_dict()`` in the display units of ``system``."""
-    from app.presentation.units import format_value, unit
+    from stagewright.gui.presentation.units import format_value, unit
     q, p, sp = (unit(k, system).symbol for k in ("volume_flow", "power", "specific_power"))
     lines = [f"Package data sheet — {title or 'untitled project'}", f"Capacity control: {sheet['control']}", ""]
     for col in sheet["columns"]:
@@ -73,9 +73,9 @@ def format_data_sheet(title: str, sheet: dict, system: str = "SI") -> str:
 
 def run(args) -> int:
     """Print the data sheet of every project named."""
-    from thermo import StagewrightError
-    from thermo.part_load.data_sheet import data_sheet
-    from thermo.project import load
+    from stagewright.core import StagewrightError
+    from stagewright.core.part_load.data_sheet import data_sheet
+    from stagewright.core.project import load
 
     status, outputs = EXIT_OK, []
     for path in expand_paths(args.files):

@@ -26,7 +26,7 @@ presentation tables and CoolProp are imported inside ``run`` (``stagewright --he
 Nothing here imports Qt or the window (``app/entry.py`` opens the window when no
 sub-command is named). Outputs never replace an input, an existing file only with ``--force``
 (``app/cli/outputs.py``). Every failure is one line on stderr; the exit statuses are those of
-:mod:`app.cli.paths` (0 done, 1 failed, 2 an input rejected, 64 a usage error).
+:mod:`stagewright.gui.cli.paths` (0 done, 1 failed, 2 an input rejected, 64 a usage error).
 """
 from __future__ import annotations
 
@@ -36,9 +36,9 @@ import argparse
 import os
 import sys
 
-from app.cli import check, compare, datasheet, report, solve, study, sweep, uncertainty, year
-from app.cli.paths import EXIT_FAILED, EXIT_STATUS_HELP, EXIT_USAGE, expand_paths
-from app.cli.terminal import escaped_output
+from stagewright.gui.cli import check, compare, datasheet, report, solve, study, sweep, uncertainty, year
+from stagewright.gui.cli.paths import EXIT_FAILED, EXIT_STATUS_HELP, EXIT_USAGE, expand_paths
+from stagewright.gui.cli.terminal import escaped_output
 
 #: sub-command -> module with ``run(args)`` and either ``build_parser()`` or ``add_arguments(p)``
 #: (imported here, not by name at run time, so the import contracts see them; each module
@@ -87,7 +87,7 @@ def build_parser(name: str) -> argparse.ArgumentParser:
 
 def parse_or_status(parser: argparse.ArgumentParser, argv: list[str]):
     """``parser.parse_args(argv)``, or the exit status when argparse stops: 0 after ``--help``
-    or ``--version``, :data:`~app.cli.paths.EXIT_USAGE` after a usage error (argparse's own 2
+    or ``--version``, :data:`~stagewright.gui.cli.paths.EXIT_USAGE` after a usage error (argparse's own 2
     would read as a rejected input)."""
     try:
         return parser.parse_args(argv)
@@ -100,7 +100,7 @@ def main(argv: list[str] | None = None) -> int:
     """Run one headless sub-command (``argv[0]``) and return its exit status.
 
     A command line argparse refuses (an unknown sub-command or option, a missing argument)
-    prints the usage and returns :data:`~app.cli.paths.EXIT_USAGE`; ``--help`` prints the
+    prints the usage and returns :data:`~stagewright.gui.cli.paths.EXIT_USAGE`; ``--help`` prints the
     help and returns 0.
     """
     argv = sys.argv[1:] if argv is None else list(argv)

@@ -7,10 +7,10 @@ Each ``--axis`` names a field of the project file by its path (``site.ambient_te
 ``discharge_pressure_Pa`` or ``discharge_gauge_pressure_Pa`` — an axis on one of these replaces a
 project's statement in the other —, ``stages[0].efficiency.value`` …) and its values in SI units, as the
 project file carries them; the grid is the product of the axes, the last one fastest. One CSV row
-per grid point: the axis values, the totals of ``thermo.sweep.SWEEP_OUTPUTS`` (SI, the unit in
+per grid point: the axis values, the totals of ``stagewright.core.sweep.SWEEP_OUTPUTS`` (SI, the unit in
 each column name; one header row) and, for a point that cannot be solved, its message. ``-o``
 writes CSV, or Parquet or Excel by its suffix with the optional ``tables`` extra
-(:mod:`app.cli.tables`).
+(:mod:`stagewright.gui.cli.tables`).
 
 Grid points are solved on the fast property path (agreement with a full solve better than 1e-4
 relative in every column; see ``thermo/sweep.py``); solve a chosen point with
@@ -69,7 +69,7 @@ def parse_axis(text: str) -> tuple[str, list[float]]:
     InputError
         Naming ``--axis``, the text given and the form expected.
     """
-    from thermo import InputError
+    from stagewright.core import InputError
 
     expected = (f"expected FIELD=START:STOP:N (N from 1 to {MAX_AXIS_VALUES}) or FIELD=V1,V2,… "
                 "with finite values in SI units")
@@ -94,8 +94,8 @@ def parse_axis(text: str) -> tuple[str, list[float]]:
 def _reject_dead_axes(doc: dict, axes: dict) -> None:
     """An axis none of whose values gives a valid project (a misspelt field, a range wholly
     outside the schema) rejects the sweep with the first value's own message."""
-    from thermo import StagewrightError
-    from thermo.sweep import axis_problems
+    from stagewright.core import StagewrightError
+    from stagewright.core.sweep import axis_problems
 
     bad = axis_problems(doc, axes)
     for field, values in axes.items():
@@ -105,15 +105,15 @@ def _reject_dead_axes(doc: dict, axes: dict) -> None:
 
 def run(args) -> int:
     """Run the sweep sub-command; returns the exit status."""
-    from thermo import StagewrightError
-    from thermo.project import load
-    from thermo.sweep import SWEEP_OUTPUTS, sweep
+    from stagewright.core import StagewrightError
+    from stagewright.core.project import load
+    from stagewright.core.sweep import SWEEP_OUTPUTS, sweep
 
-    from app.cli.progress import Progress
+    from stagewright.gui.cli.progress import Progress
 
     if args.output:
-        from app.cli.outputs import output_problems
-        from app.cli.tables import format_problem
+        from stagewright.gui.cli.outputs import output_problems
+        from stagewright.gui.cli.tables import format_problem
         refused = output_problems([Path(args.project)], [Path(args.output)], force=args.force)
         refused += [p for p in [format_problem(args.output)] if p]
         if refused:  # before the sweep: its work would be lost
@@ -138,7 +138,7 @@ def run(args) -> int:
     except KeyboardInterrupt:
         print(f"{args.project}: sweep interrupted", file=sys.stderr)
         return EXIT_INTERRUPTED
-    from app.cli.tables import csv_text, write_table
+    from stagewright.gui.cli.tables import csv_text, write_table
     header = list(axes) + list(SWEEP_OUTPUTS) + ["error"]
     rows = [[float(v) for v in point] + [result.values[k][i] for k in SWEEP_OUTPUTS] + [result.errors.get(i, "")]
             for i, point in enumerate(result.points)]

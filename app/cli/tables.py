@@ -81,7 +81,7 @@ def _xlsx(header: list[str], rows: list[list]) -> bytes:
     from openpyxl import Workbook
     from openpyxl.cell import WriteOnlyCell
 
-    from app.cli.terminal import escape_controls
+    from stagewright.gui.cli.terminal import escape_controls
 
     book = Workbook(write_only=True)
     sheet = book.create_sheet("table")
@@ -120,7 +120,7 @@ def write_table(path: Path, header: list[str], rows: list[list]) -> None:
     OSError
         When the file cannot be written; ``path`` is then unchanged.
     """
-    from app.report.atomic import atomic_path
+    from stagewright.gui.report.atomic import atomic_path
 
     data = table_bytes(table_format(path), header, rows)
     with atomic_path(path) as tmp:

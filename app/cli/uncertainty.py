@@ -13,7 +13,7 @@ __all__ = ["add_arguments", "format_uncertainty", "run", "SUMMARY", "EXAMPLES"]
 import json
 import sys
 
-from app.cli.paths import EXIT_INPUT, EXIT_OK, expand_paths
+from stagewright.gui.cli.paths import EXIT_INPUT, EXIT_OK, expand_paths
 
 #: one line in ``stagewright --help``
 SUMMARY = "a field check's results with their uncertainty (k = 2), contributors and verdicts"
@@ -48,7 +48,7 @@ def _table(header: tuple, rows: list[list[str]]) -> str:
 
 def format_uncertainty(title: str, d: dict, system: str = "SI") -> str:
     """Plain-text tables of a field check's uncertainty (``FieldCheckUncertainty.to_dict()``)."""
-    from app.presentation import uncertainty_table as ut
+    from stagewright.gui.presentation import uncertainty_table as ut
     parts = [f"Field check uncertainty — {title or 'untitled project'}", "",
              _table(ut.INPUT_COLUMNS, ut.input_rows(d, system)), "",
              _table(ut.FIGURE_COLUMNS, ut.figure_rows(d, system))]
@@ -72,10 +72,10 @@ def _ticker(bar, name: str):
 
 def run(args) -> int:
     """Report the field-check uncertainty of every project named."""
-    from app.cli.progress import Progress
-    from thermo import StagewrightError
-    from thermo.project import load
-    from thermo.uncertainty.field_check import field_check_uncertainty
+    from stagewright.gui.cli.progress import Progress
+    from stagewright.core import StagewrightError
+    from stagewright.core.project import load
+    from stagewright.core.uncertainty.field_check import field_check_uncertainty
 
     status, outputs = EXIT_OK, []
     for path in expand_paths(args.files):

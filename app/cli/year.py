@@ -1,12 +1,12 @@
 """``stagewright year PROJECT.json … [--json] [--profile HOURLY.csv [--bin [K]]] [--csv OUT.csv]``.
 
 A year at the site (energy, cost, condensate, coolers): the project's own ``year`` section, or a
-profile read from an hourly or logged CSV file (:mod:`app.document.year_csv`; units in its header
+profile read from an hourly or logged CSV file (:mod:`stagewright.gui.document.year_csv`; units in its header
 or chosen with ``--temperature-unit`` / ``--humidity-unit``), optionally binned by temperature and
-humidity (:func:`thermo.year_profile.bin_profile`). ``--coolers design_once`` sizes the coolers
+humidity (:func:`stagewright.core.year_profile.bin_profile`). ``--coolers design_once`` sizes the coolers
 once and rates every bin at that UA. ``--csv OUT`` writes every bin as one row (SI, unit in each
 column name, one header row): CSV, or Parquet / Excel by the suffix with the optional ``tables``
-extra (:mod:`app.cli.tables`); like ``sweep -o`` it never writes over an input and replaces an
+extra (:mod:`stagewright.gui.cli.tables`); like ``sweep -o`` it never writes over an input and replaces an
 existing file only with ``--force``. ``--json`` prints a list, an entry per file (as ``solve
 --json``). Progress on a terminal; Ctrl+C stops the run.
 """
@@ -19,8 +19,8 @@ import json
 import sys
 from pathlib import Path
 
-from app.cli.outputs import FORCE_HELP
-from app.cli.paths import EXIT_FAILED, EXIT_INPUT, EXIT_OK, expand_paths
+from stagewright.gui.cli.outputs import FORCE_HELP
+from stagewright.gui.cli.paths import EXIT_FAILED, EXIT_INPUT, EXIT_OK, expand_paths
 
 #: one line in ``stagewright --help``
 SUMMARY = 'a year at the site: annual energy, cost, condensate and cooling water, bin by bin'
@@ -63,8 +63,8 @@ def _bin_label(b: dict) -> str:
 
 def _with_profile(doc: dict, args) -> dict:
     """The project with the CSV profile (and cooler mode) of the command line, if any."""
-    from app.document.year_csv import read_profile_csv
-    from thermo.year_profile import bin_profile
+    from stagewright.gui.document.year_csv import read_profile_csv
+    from stagewright.core.year_profile import bin_profile
     doc = dict(doc)
     year = dict(doc.get("year") or {})
     if args.profile:
@@ -102,11 +102,11 @@ def bins_csv_rows(year: dict) -> list[list]:
 def run(args) -> int:
     """Run the year of every project named; a project without a year section (and no
     ``--profile``) is rejected."""
-    from thermo import StagewrightError
-    from thermo.project import load
-    from thermo.year import run_year
-    from app.cli.progress import Progress
-    from app.cli.year_table import format_year
+    from stagewright.core import StagewrightError
+    from stagewright.core.project import load
+    from stagewright.core.year import run_year
+    from stagewright.gui.cli.progress import Progress
+    from stagewright.gui.cli.year_table import format_year
 
     paths = expand_paths(args.files)
     if args.csv:
@@ -136,7 +136,7 @@ def run(args) -> int:
             continue
         outputs.append({"file": str(path), "title": doc.get("title", ""), "year": result})
     if args.csv and "year" in outputs[0]:
-        from app.cli.tables import write_table
+        from stagewright.gui.cli.tables import write_table
         table = bins_csv_rows(outputs[0]["year"])
         try:
             write_table(Path(args.csv), table[0], table[1:])
@@ -155,8 +155,8 @@ def run(args) -> int:
 
 def _csv_refused(paths: list[Path], args) -> str | None:
     """Why ``--csv`` may not be written (checked before any work), or None."""
-    from app.cli.outputs import output_problems
-    from app.cli.tables import format_problem
+    from stagewright.gui.cli.outputs import output_problems
+    from stagewright.gui.cli.tables import format_problem
 
     if len(paths) != 1:
         return f"--csv {args.csv}: the bins of one project at a time ({len(paths)} projects named)"

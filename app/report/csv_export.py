@@ -4,11 +4,11 @@ Layout: one header row, each column named with its display unit as the sweep's a
 keys carry theirs (``temperature_degC``, ``pressure_bar_a``, ``entropy_kJ_kgK``, ``shaft_power_kW``;
 :func:`column_name`), then data rows; a file reads into a data frame as it is. The first column says
 what the row is (``state``, ``component`` or ``train``). The columns are the figures of
-:mod:`app.presentation.balance_tables` that show in the ``"csv"`` output: state-point figures,
+:mod:`stagewright.gui.presentation.balance_tables` that show in the ``"csv"`` output: state-point figures,
 then component figures, then any train totals (filled in the ``train`` row); a spreadsheet's
 columns stay put, so a column is there even when no row has a value. Numbers are written in the
 chosen display units to 12 significant digits, so converting back with
-:func:`app.presentation.units.to_si` returns the solver's SI values to 1e-12 relative; a missing
+:func:`stagewright.gui.presentation.units.to_si` returns the solver's SI values to 1e-12 relative; a missing
 value is an empty cell. Written with the standard library's :mod:`csv` (RFC 4180 quoting, UTF-8).
 """
 from __future__ import annotations
@@ -19,10 +19,10 @@ import csv
 import io
 import re
 
-from app.presentation import balance_tables as tables
-from app.presentation.figures import Figure, shown
-from app.report.atomic import atomic_path
-from app.report.sections import state_points
+from stagewright.gui.presentation import balance_tables as tables
+from stagewright.gui.presentation.figures import Figure, shown
+from stagewright.gui.report.atomic import atomic_path
+from stagewright.gui.report.sections import state_points
 
 _OUT = "csv"
 
@@ -64,7 +64,7 @@ def csv_columns(system: str = "SI") -> list[tuple[str, str | None]]:
         for _, f in _figures()]
 
 
-#: (column name, quantity of app.presentation.units or None for text) in SI display units, as the
+#: (column name, quantity of stagewright.gui.presentation.units or None for text) in SI display units, as the
 #: tables stood at import
 COLUMNS = csv_columns()
 

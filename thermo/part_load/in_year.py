@@ -1,12 +1,12 @@
-"""A year bin's power through the package's control (:mod:`thermo.year` calls it per bin)."""
+"""A year bin's power through the package's control (:mod:`stagewright.core.year` calls it per bin)."""
 from __future__ import annotations
 
 __all__ = ["BinPower", "bin_power"]
 
 from dataclasses import dataclass
 
-from thermo.part_load.full_load import full_load_of
-from thermo.part_load.package import package_point
+from stagewright.core.part_load.full_load import full_load_of
+from stagewright.core.part_load.package import package_point
 
 
 @dataclass(frozen=True)
@@ -23,8 +23,8 @@ def bin_power(norm: dict, res, load: float) -> BinPower:
 
     The bin's train is solved at ``load`` times the full flow (its delivered air, condensate
     and cooling water). With a ``package`` section its full-load figures are that solve's per
-    unit of flow (:func:`thermo.part_load.full_load.full_load_of`) and the control, motor,
-    drive and auxiliaries give the power at that demand (:func:`thermo.part_load.package.package_point`).
+    unit of flow (:func:`stagewright.core.part_load.full_load.full_load_of`) and the control, motor,
+    drive and auxiliaries give the power at that demand (:func:`stagewright.core.part_load.package.package_point`).
     Without one the power is in proportion to the flow at full-load efficiency (the driver
     power of the solve): optimistic below full load, which the year's notes say.
 
@@ -32,7 +32,7 @@ def bin_power(norm: dict, res, load: float) -> BinPower:
     ----------
     norm : dict
         The normalised project (its ``package`` and ``driver`` sections).
-    res : thermo.results.TrainResult
+    res : stagewright.core.results.TrainResult
         The bin's solve.
     load : float
         The bin's demand over full capacity [-], > 0.

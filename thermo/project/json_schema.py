@@ -1,18 +1,18 @@
-"""The JSON Schema (draft 2020-12) of the project file, generated from :mod:`thermo.project.schema`.
+"""The JSON Schema (draft 2020-12) of the project file, generated from :mod:`stagewright.core.project.schema`.
 
 The schema ships with the package as ``project.schema.json`` beside this module
 (:data:`SCHEMA_FILE`), so editors can validate and complete project files, and other tools can
 check them without Stagewright. It is generated from the declarations of
-:mod:`~thermo.project.schema` (:class:`~thermo.project.schema_types.Num`, ``Choice``, ``Text``,
+:mod:`~stagewright.core.project.schema` (:class:`~stagewright.core.project.schema_types.Num`, ``Choice``, ``Text``,
 ``Obj``, ``Variant``, ``Items``, ``Changes``, ``Raw``) by one generic walk, so a new section
 needs no change here; after changing the schema (or a key's meaning in
-:mod:`~thermo.project.schema_docs`, which gives each key its ``description``) run::
+:mod:`~stagewright.core.project.schema_docs`, which gives each key its ``description``) run::
 
-    python -m thermo.project.json_schema --write
+    python -m stagewright.core.project.json_schema --write
 
 ``tests/test_project_json_schema.py`` fails until the committed file is the generated one.
 
-Files that :func:`thermo.project.save` writes carry ``"$schema": SCHEMA_ID``, a URN naming the
+Files that :func:`stagewright.core.project.save` writes carry ``"$schema": SCHEMA_ID``, a URN naming the
 schema of this format version (``urn:stagewright:project:3``). A URN, not a web address: nothing
 is fetched, no server has to stay up, and the name does not move with the installation; an
 editor is pointed at the installed file once (``docs/project-format.md``, *JSON Schema*). The
@@ -25,7 +25,7 @@ The schema states every key, type, range, default, required key and "exactly one
 the key table. It does not state the rules that the validation applies in code across keys
 (:data:`CROSS_KEY_RULES`; a document the schema accepts may still be refused for one of these,
 and the tool names the field); some of them JSON Schema could express, and would need a
-declaration in :mod:`~thermo.project.schema` first (they live in ``validation.py``,
+declaration in :mod:`~stagewright.core.project.schema` first (they live in ``validation.py``,
 ``year_profile.py`` and ``uncertainty/inputs.py`` today):
 
 - ``site``: not both ``barometric_pressure_Pa`` and ``elevation_m``; at most one of
@@ -47,7 +47,7 @@ declaration in :mod:`~thermo.project.schema` first (they live in ``validation.py
 - ``cases``: names unique, not empty and not the base's; each case's own document (the base
   with its changes) valid.
 
-Nor does it state what the reader refuses before any document rule (``thermo.project.parse``):
+Nor does it state what the reader refuses before any document rule (``stagewright.core.project.parse``):
 a file over 16 MB, nesting deeper than 32, text that is not UTF-8, a key given twice, ``NaN`` or
 ``Infinity`` (not JSON, though Python's parser reads them).
 """
@@ -63,11 +63,11 @@ import sys
 from pathlib import Path
 from typing import Any
 
-from thermo.project import schema
+from stagewright.core.project import schema
 # the schema's ``$id``, and the ``$schema`` value of every file the tool writes: defined beside the
 # reader, which ignores the key, so that saving a file does not import this generator
-from thermo.project.reading import SCHEMA_ID
-from thermo.project.schema_types import MISSING, Changes, Choice, Items, Num, Obj, Raw, Text, Variant, walk
+from stagewright.core.project.reading import SCHEMA_ID
+from stagewright.core.project.schema_types import MISSING, Changes, Choice, Items, Num, Obj, Raw, Text, Variant, walk
 
 #: the dialect of the generated schema
 SCHEMA_DIALECT = "https://json-schema.org/draft/2020-12/schema"
@@ -153,14 +153,14 @@ def _exactly_one(group: tuple) -> dict:
 
 
 def _change_path_pattern(roots: tuple) -> str:
-    """A field path (:func:`thermo.project.paths.parse_path`) starting at one of ``roots``."""
+    """A field path (:func:`stagewright.core.project.paths.parse_path`) starting at one of ``roots``."""
     name = "[A-Za-z_][A-Za-z0-9_]*"
     first = "|".join(re.escape(r) for r in roots)
     return rf"^(?:{first})(?:\.{name}|\.?\[[0-9]{{1,9}}\](?:{name})?)*(?!\n)$"
 
 
 def node_schema(node: Any, path: str = "", meanings: dict | None = None) -> dict:
-    """The JSON Schema of one schema node (``path`` in :func:`~thermo.project.schema_types.walk`
+    """The JSON Schema of one schema node (``path`` in :func:`~stagewright.core.project.schema_types.walk`
     notation names its meaning in ``meanings``).
 
     Examples
@@ -211,13 +211,13 @@ def node_schema(node: Any, path: str = "", meanings: dict | None = None) -> dict
 
 def _largest_list() -> int:
     """The most items any list may hold (the reader refuses longer ones anywhere, even in a
-    snapshot's results: ``thermo.project.reading``)."""
+    snapshot's results: ``stagewright.core.project.reading``)."""
     return max(n.max_length for _, n in walk(schema.PROJECT) if isinstance(n, Items))
 
 
 def json_schema() -> dict:
-    """The JSON Schema of the project file, generated afresh from :mod:`thermo.project.schema`."""
-    from thermo.project.schema_docs import PROJECT_KEYS  # the meanings, read only when generating
+    """The JSON Schema of the project file, generated afresh from :mod:`stagewright.core.project.schema`."""
+    from stagewright.core.project.schema_docs import PROJECT_KEYS  # the meanings, read only when generating
 
     top = node_schema(schema.PROJECT, "", PROJECT_KEYS)
     top["properties"] = {"$schema": {"type": "string", "description":
@@ -227,7 +227,7 @@ def json_schema() -> dict:
         "$schema": SCHEMA_DIALECT,
         "$id": SCHEMA_ID,
         "title": f"Stagewright project file, format version {schema.FORMAT_VERSION}",
-        "description": "Generated from thermo/project/schema.py by `python -m thermo.project.json_schema "
+        "description": "Generated from thermo/project/schema.py by `python -m stagewright.core.project.json_schema "
                        "--write`; rules across keys that it does not state are listed in "
                        "docs/project-format.md (JSON Schema).",
         **top,

@@ -9,7 +9,7 @@ __all__ = ["parse_path", "get_path", "set_path", "parent_at"]
 
 import re
 
-from thermo.errors import InputError
+from stagewright.core.errors import InputError
 
 #: a key, or an index of ASCII digits (at most 9: no list here is longer, and a longer run of digits
 #: would cost Python's int() its digit limit — a file may hold thousands)

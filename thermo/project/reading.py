@@ -10,16 +10,16 @@ __all__ = ["load", "loads", "load_with_problems", "read_document", "accept", "re
 from pathlib import Path
 from typing import Any
 
-from thermo.project import schema
-from thermo.project.validation import problems
-from thermo.errors import InputError, ProjectFileError, StagewrightError, shown_value
-from thermo.project.migrate import migrate
-from thermo.project.parse import parse_bytes, read_limited
+from stagewright.core.project import schema
+from stagewright.core.project.validation import problems
+from stagewright.core.errors import InputError, ProjectFileError, StagewrightError, shown_value
+from stagewright.core.project.migrate import migrate
+from stagewright.core.project.parse import parse_bytes, read_limited
 
 
 def _list_limits() -> tuple[dict, int]:
     """Item limit of each top-level list of the schema, and the largest limit of any list."""
-    from thermo.project.schema_types import Items, walk
+    from stagewright.core.project.schema_types import Items, walk
     top = {k: n.max_length for k, n in schema.PROJECT.fields.items() if isinstance(n, Items)}
     return top, max(n.max_length for _, n in walk(schema.PROJECT) if isinstance(n, Items))
 
@@ -43,7 +43,7 @@ def _refuse_oversized_lists(data: dict) -> None:
 
 def recognise(data: Any) -> dict:
     """Refuse data that is not a project document at all (rather than a faulty one); return it
-    without the ``$schema`` key (text, or refused) that files written by :func:`thermo.project.save`
+    without the ``$schema`` key (text, or refused) that files written by :func:`stagewright.core.project.save`
     carry."""
     if not isinstance(data, dict):
         kind = {list: "a list", str: "text", bool: "true/false", type(None): "null"}.get(type(data), "a number")
@@ -61,16 +61,16 @@ def recognise(data: Any) -> dict:
     return _without_schema_reference(data)
 
 
-#: the key naming a file's JSON Schema (thermo.project.json_schema); for editors, not a project key
+#: the key naming a file's JSON Schema (stagewright.core.project.json_schema); for editors, not a project key
 SCHEMA_KEY = "$schema"
-#: its value in the files :func:`thermo.project.save` writes, and the schema's ``$id``: a URN naming
+#: its value in the files :func:`stagewright.core.project.save` writes, and the schema's ``$id``: a URN naming
 #: the schema of this format version (a name, not an address: nothing is fetched)
 SCHEMA_ID = f"urn:stagewright:project:{schema.FORMAT_VERSION}"
 
 
 def _without_schema_reference(data: dict) -> dict:
     """``data`` without its ``$schema`` (any text: an editor may point it at a local copy of the
-    schema); :func:`thermo.project.save` writes it afresh."""
+    schema); :func:`stagewright.core.project.save` writes it afresh."""
     if SCHEMA_KEY not in data:
         return data
     if not isinstance(data[SCHEMA_KEY], str):
@@ -135,7 +135,7 @@ def load(path) -> dict:
     -------
     dict
         The document as written in the file (defaults are not filled in; use
-        :func:`thermo.project.validation.normalise` for that), upgraded to the current format
+        :func:`stagewright.core.project.validation.normalise` for that), upgraded to the current format
         version, with ``format`` and ``version`` set. ``load → save → load`` gives an
         identical document.
 

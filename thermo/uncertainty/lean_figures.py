@@ -1,13 +1,13 @@
 r"""The field check's figures from one draw of its inputs, computing only the states they need.
 
 A Monte Carlo run (JCGM 101:2008 §7.2) evaluates the measurement model thousands of times; the
-full solve (:func:`thermo.solve.solve_normalised`) also balances entropy, exergy and water,
+full solve (:func:`stagewright.core.solve.solve_normalised`) also balances entropy, exergy and water,
 checks closures and, for a flow given as shaft power, solves the train twice (the secant on
 the mass flow). For the trains a field check usually describes, the figures follow from a
 handful of states:
 
 - the intake: ambient :math:`h_0 = h(T_0, p_0)` and the filter outlet at :math:`h_0` and
-  :math:`p_0 - \Delta p_\mathrm{filter}` (a throttle, :func:`thermo.solve_context.intake_state`);
+  :math:`p_0 - \Delta p_\mathrm{filter}` (a throttle, :func:`stagewright.core.solve_context.intake_state`);
 - per stage, the isentropic discharge :math:`h_{2s} = h(s_1, p_2)` and the discharge,
   measured :math:`h_2 = h(T_2, p_2)` or from the isentropic efficiency
   :math:`h_2 = h_1 + (h_{2s} - h_1)/\eta_s`;
@@ -15,11 +15,11 @@ handful of states:
 
 None of these depends on the mass flow, so the work per kilogram :math:`a_i = h_2 - h_1` and
 the shaft power :math:`\dot W = \sum_i (\dot m\,a_i + \dot Q_i)/\eta_{m,i}` (the balance of
-:func:`thermo.stage.solve_stage`, ASME PTC 10-1997 §5) give a shaft-power flow in closed form,
+:func:`stagewright.core.stage.solve_stage`, ASME PTC 10-1997 §5) give a shaft-power flow in closed form,
 :math:`\dot m = (\dot W - \sum_i \dot Q_i/\eta_{m,i}) / \sum_i a_i/\eta_{m,i}`; then
 :math:`\eta_{s,i} = (h_{2s} - h_1)/(a_i + \dot Q_i/\dot m)`, the cooler duty
 :math:`\dot Q_c = \dot m\,(h_2 - h_c)` and the free air delivery :math:`\dot m/\rho_0`
-(:func:`thermo.train.solve_train`).
+(:func:`stagewright.core.train.solve_train`).
 
 **What it covers.** Dry intake air; stages with a measured discharge temperature, or with an
 isentropic efficiency and no casing heat loss; no exit velocity; coolers without a coolant;
@@ -45,13 +45,13 @@ __all__ = ["LeanFigures"]
 
 import math
 
-from thermo.cooler import cooler_outlet_temperature
-from thermo.errors import StagewrightError
-from thermo.flow import mass_flow_from
-from thermo.models.base import T_MAX, T_MIN
-from thermo.project.delivery import delivery_pressure
-from thermo.project.validation import resolve_site
-from thermo.split import stage_pressure_ratios
+from stagewright.core.cooler import cooler_outlet_temperature
+from stagewright.core.errors import StagewrightError
+from stagewright.core.flow import mass_flow_from
+from stagewright.core.models.base import T_MAX, T_MIN
+from stagewright.core.project.delivery import delivery_pressure
+from stagewright.core.project.validation import resolve_site
+from stagewright.core.split import stage_pressure_ratios
 
 
 #: Newton's last step on T, at most [K]: carried to first order, the state's h and s are then
@@ -70,12 +70,12 @@ class LeanFigures:
     Parameters
     ----------
     names : list of str
-        Figure names (:class:`thermo.uncertainty.figures.ResultFigure` ``name``).
+        Figure names (:class:`stagewright.core.uncertainty.figures.ResultFigure` ``name``).
 
     Examples
     --------
-    >>> from thermo.models import ConstantCpAir
-    >>> from thermo.project.validation import normalise
+    >>> from stagewright.core.models import ConstantCpAir
+    >>> from stagewright.core.project.validation import normalise
     >>> norm = normalise({"site": {"ambient_temperature_K": 293.15, "barometric_pressure_Pa": 1e5},
     ...                   "fluid": {"model": "constant_cp"}, "flow": {"kind": "mass", "value": 1.0},
     ...                   "discharge_pressure_Pa": 4e5,
@@ -104,7 +104,7 @@ class LeanFigures:
         norm : dict
             Normalised project document (a draw's values already set).
         model : PropertyModel
-            Dry-air property model (:func:`thermo.solve.model_for`).
+            Dry-air property model (:func:`stagewright.core.solve.model_for`).
         """
         if norm.get("heat_recovery"):
             return None
@@ -209,7 +209,7 @@ def _state_at(model, which: int, target: float, P: float, T: float) -> tuple:
 
 
 def _cooler_outlet(model, cooler: dict, inlet: tuple, T0: float) -> tuple:
-    """(T, P, h, s) leaving a cooler without a coolant (:func:`thermo.cooler.solve_cooler`);
+    """(T, P, h, s) leaving a cooler without a coolant (:func:`stagewright.core.cooler.solve_cooler`);
     raises _Defer where that would refuse it, or nearly."""
     t_out = cooler_outlet_temperature(cooler, T0)
     t_b = cooler.get("coolant_inlet_temperature_K") or T0
@@ -222,7 +222,7 @@ def _cooler_outlet(model, cooler: dict, inlet: tuple, T0: float) -> tuple:
 
 def _heat_loss_allowed(spec: dict, q: float, start: tuple, iso: tuple, outlet: tuple, T0: float) -> bool:
     """False where the full solve might refuse the casing heat loss ``q`` [J/kg]: the gas cooled
-    below the boundary the heat leaves at (the Clausius check of :func:`thermo.stage.solve_stage`),
+    below the boundary the heat leaves at (the Clausius check of :func:`stagewright.core.stage.solve_stage`),
     or the adiabatic compression before the loss ending near the top of the property range."""
     if q <= 0.0:
         return True

@@ -1,13 +1,13 @@
 """The solve as a measurement model: measured input values in, result figures out.
 
 JCGM 100:2008 §4.1 writes a measurement as :math:`Y = f(X_1, \\dots, X_N)`; here :math:`f` is
-the train solve itself (:func:`thermo.solve.solve_normalised`), lean (``detail=False``: the
+the train solve itself (:func:`stagewright.core.solve.solve_normalised`), lean (``detail=False``: the
 same powers, states and totals without the reporting-only work) and on the fast property path,
 so that the same function serves the finite differences of the first-order propagation and
 every Monte Carlo draw.
 
 The Monte Carlo draws go through :meth:`MeasurementModel.draw`: the same figures from only the
-states they need (:mod:`thermo.uncertainty.lean_figures`), with the full solve wherever that
+states they need (:mod:`stagewright.core.uncertainty.lean_figures`), with the full solve wherever that
 evaluation does not cover the train or the draw. :meth:`MeasurementModel.enable_lean` first
 checks the two against each other at given points and keeps the full solve if they differ by
 more than :data:`LEAN_AGREEMENT` relative.
@@ -20,12 +20,12 @@ import copy
 
 import numpy as np
 
-from thermo.errors import InputError, StagewrightError
-from thermo.project.paths import parse_path
-from thermo.solve import model_for, solve_normalised
-from thermo.uncertainty.figures import ResultFigure, figure_values
-from thermo.uncertainty.inputs import MeasuredInput
-from thermo.uncertainty.lean_figures import LeanFigures
+from stagewright.core.errors import InputError, StagewrightError
+from stagewright.core.project.paths import parse_path
+from stagewright.core.solve import model_for, solve_normalised
+from stagewright.core.uncertainty.figures import ResultFigure, figure_values
+from stagewright.core.uncertainty.inputs import MeasuredInput
+from stagewright.core.uncertainty.lean_figures import LeanFigures
 
 #: largest relative difference between the lean evaluation and the full solve that
 #: :meth:`MeasurementModel.enable_lean` accepts (both solve their states to 1e-9 K; the
@@ -45,7 +45,7 @@ class MeasurementModel:
     figures : list of ResultFigure
         The outputs :math:`y`.
     fast : bool
-        Solve on the fast property path (the default; :func:`thermo.solve.solve_normalised`).
+        Solve on the fast property path (the default; :func:`stagewright.core.solve.solve_normalised`).
     allow_lean : bool
         Let :meth:`enable_lean` turn on the lean evaluation of draws (False: every draw is a
         full solve, the reference the tests and the bench compare with).

@@ -4,7 +4,7 @@ Each input is drawn from the distribution its stated uncertainty assigns it — 
 :math:`N(x, u^2)` for a standard uncertainty (JCGM 101:2008 §6.4.7), rectangular
 :math:`R(x - a, x + a)` for limits or an accuracy class (§6.4.2) — independently, with a
 seeded generator so a run can be repeated. Every draw is one evaluation of the measurement model
-(:meth:`~thermo.uncertainty.measurement_model.MeasurementModel.draw`: its lean evaluation where
+(:meth:`~stagewright.core.uncertainty.measurement_model.MeasurementModel.draw`: its lean evaluation where
 that is enabled and covers the draw, else the full solve).
 From the :math:`M` results of each figure come its mean (§7.6, the estimate), its standard
 deviation (the standard uncertainty) and the probabilistically symmetric coverage interval
@@ -27,8 +27,8 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from thermo.errors import StagewrightError
-from thermo.process_pool import pool_context
+from stagewright.core.errors import StagewrightError
+from stagewright.core.process_pool import pool_context
 
 COVERAGE_PROBABILITY = math.erf(2.0 / math.sqrt(2.0))  #: 0.9545: ±2 σ of a Gaussian
 _CHUNK = 250
