@@ -1,4 +1,5 @@
-"""The examples in the docstrings of ``stagewright.core`` and ``stagewright.gui`` run, under the installed import names.
+"""The examples in the docstrings of ``stagewright.core`` and ``stagewright.gui`` run, under the
+installed import names.
 
 pytest's ``--doctest-modules`` would import ``thermo/solve.py`` by its path, as a second module
 named ``thermo.solve`` beside ``stagewright.core.solve`` (other classes, other caches, warning
