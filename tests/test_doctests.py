@@ -1,5 +1,5 @@
-"""The examples in the docstrings of ``stagewright.core`` and ``stagewright.gui`` run, under the
-installed import names.
+"""The examples in the docstrings of ``stagewright.core`` and ``stagewright.gui`` and in
+``docs/python-api.md`` run, under the installed import names.
 
 pytest's ``--doctest-modules`` would import ``thermo/solve.py`` by its path, as a second module
 named ``thermo.solve`` beside ``stagewright.core.solve`` (other classes, other caches, warning
@@ -19,8 +19,10 @@ import pytest
 
 import stagewright.core
 import stagewright.gui
+from tests.conftest import ROOT
 
 FLAGS = doctest.ELLIPSIS | doctest.NORMALIZE_WHITESPACE
+API_DOC = ROOT / "docs" / "python-api.md"
 
 
 def module_names() -> list[str]:
@@ -63,3 +65,10 @@ def test_docstring_examples(name):
     assert attempted > 0, f"{name} has '>>>' in its source but no example was found"
     assert not failures, failures
 
+
+def test_python_api_document():
+    text = API_DOC.read_text(encoding="utf-8")
+    test = doctest.DocTestParser().get_doctest(text, {"__name__": "python_api_doc"}, str(API_DOC), str(API_DOC), 0)
+    attempted, failures = run([test])
+    assert attempted >= 20, "docs/python-api.md lost its examples"
+    assert not failures, failures

@@ -61,3 +61,12 @@ def test_with_pandas_a_frame_holds_the_rows():
     grid = sweep(make_doc(), {"discharge_pressure_Pa": [5e5, 8e5]})
     frame = to_frame(grid)
     assert isinstance(frame, pandas.DataFrame) and frame.to_dict("records") == sweep_rows(grid)
+
+
+def test_the_python_api_document_quotes_the_message_without_pandas(monkeypatch):
+    from tests.conftest import ROOT
+    monkeypatch.setitem(sys.modules, "pandas", None)
+    with pytest.raises(ImportError) as err:
+        to_frame([{"a_W": 1.0}])
+    doc = " ".join((ROOT / "docs" / "python-api.md").read_text(encoding="utf-8").split())
+    assert f"`{err.value}`" in doc
