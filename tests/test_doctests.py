@@ -1,11 +1,11 @@
 """The examples in the docstrings of ``stagewright.core`` and ``stagewright.gui`` and in
 ``docs/python-api.md`` run, under the installed import names.
 
-pytest's ``--doctest-modules`` would import ``thermo/solve.py`` by its path, as a second module
-named ``thermo.solve`` beside ``stagewright.core.solve`` (other classes, other caches, warning
-filters that do not apply), so the modules are found by name here instead. Every module is also
-imported once (what ``--doctest-modules`` did for modules without examples). No physical value is
-checked here beyond what each docstring states with its own source.
+pytest's ``--doctest-modules`` would import ``thermo/solve.py`` by its path, as a second copy of
+the module named after the folder, beside ``stagewright.core.solve`` (other classes, other
+caches, warning filters that do not apply), so the modules are found by name here instead.
+Every module is also imported once (what ``--doctest-modules`` did for modules without
+examples). No physical value is checked here beyond what each docstring states with its source.
 """
 from __future__ import annotations
 

@@ -60,7 +60,7 @@ SIDE_BY_SIDE = textwrap.dedent("""
     import json, sys
     from importlib import metadata
     from pathlib import Path
-    import thermo                      # the ChEDL property library
+    import thermo  # the ChEDL property library (rename: keep)
     import stagewright.core, stagewright.gui.cli.main
     site = Path(thermo.__file__).resolve().parents[1]
     assert Path(thermo.__file__).resolve() == site / "thermo" / "__init__.py"
