@@ -119,7 +119,7 @@ def test_solve_still_imports_coolprop():  # the test above can fail: this is how
 
 def test_the_package_solve_is_the_function_even_after_its_module_is_imported():
     import importlib
-    module = importlib.import_module(thermo.__name__ + ".solve")
+    module = importlib.import_module(stagewright.core.__name__ + ".solve")
     assert stagewright.core.solve is module.solve and callable(stagewright.core.solve)
 
 
