@@ -164,10 +164,11 @@ def _agree(doc: dict, seen: Counter) -> None:
         seen["cross-key rule"] += 1
 
 
-def _run(examples: int) -> Counter:
+def _run(examples: int, derandomize: bool = False) -> Counter:
     seen: Counter = Counter()
 
-    @settings(max_examples=examples, deadline=None, suppress_health_check=list(HealthCheck))
+    @settings(max_examples=examples, deadline=None, suppress_health_check=list(HealthCheck),
+              derandomize=derandomize)
     @given(strategy(PROJECT), st.lists(_MUTATIONS, max_size=3))
     def one(doc, mutations):
         _agree(_mutated(doc, mutations), seen)
@@ -177,9 +178,12 @@ def _run(examples: int) -> Counter:
 
 
 def test_schema_and_tool_agree_on_random_documents():
-    seen = _run(300)
+    # a fixed set of draws (derandomize): the counts below are then the same on every run — with
+    # random draws about 5 % of the documents are accepted by both, and a floor of 20 in 300 failed
+    # now and then; the slow variant below draws fresh documents
+    seen = _run(300, derandomize=True)
     # the test can fail both ways: documents both accept, both refuse, and the listed rules refuse
-    assert seen["both accept"] >= 20 and seen["both refuse"] >= 20 and seen["cross-key rule"] >= 5, seen
+    assert seen["both accept"] >= 10 and seen["both refuse"] >= 20 and seen["cross-key rule"] >= 5, seen
 
 
 @pytest.mark.slow

@@ -31,6 +31,7 @@ __all__ = ["Site", "Coolant", "Cooler", "Stage", "HeatRecovery", "Month", "Bin",
            "Case", "Project"]
 
 import dataclasses
+import copy
 from dataclasses import dataclass, field
 
 from stagewright.core.errors import InputError
@@ -240,6 +241,9 @@ class Project:
     note: str | None = None
     heat_recovery: HeatRecovery | None = None
     year: Year | None = None
+    #: the ``package`` section (capacity control, motor, auxiliaries) as plain data, SI, as
+    #: ``docs/project-format.md`` gives it
+    package: dict | None = None
     base_name: str | None = None
     cases: list[Case] = field(default_factory=list)
 
@@ -263,6 +267,8 @@ class Project:
         doc.update({k: plain[k] for k in ("heat_recovery", "base_name") if k in plain})
         if self.year is not None:
             doc["year"] = self.year.to_dict()
+        if self.package is not None:
+            doc["package"] = copy.deepcopy(self.package)
         if self.cases:
             doc["cases"] = plain["cases"]
         return doc
