@@ -83,9 +83,16 @@ def _hot_side(model, where: str, t_stag: float, h_in0: float, p_out: float, mass
     """
     moist = getattr(model, "mixture", None) is not None and model.water > 0.0
     cache: dict = {}
+    h_memo: dict = {}
 
     def h_eq(T: float) -> float:
-        return model.at_tp(T, p_out, f"{where} outlet").h
+        # a rating sizes the exchanger several times: the dew point and coolant inlet repeat
+        h = h_memo.get(T)
+        if h is None:
+            if len(h_memo) > 64:
+                h_memo.clear()
+            h = h_memo[T] = model.at_tp(T, p_out, f"{where} outlet").h
+        return h
 
     def dew(t_out: float):
         # the dew point does not depend on the outlet asked for; search once over the widest span
