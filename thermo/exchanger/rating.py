@@ -39,7 +39,7 @@ def brentq(*args, **kwargs):
 
 def rate_exchanger(arrangement: str, ua: float, t_hi: float, hot_at: Callable[[float], HotSide],
                    fluid, t_ci: float, flow: float | None = None, rise: float | None = None,
-                   where: str = "cooler") -> tuple[float, Exchanger]:
+                   where: str = "cooler", rtol: float = 1e-12) -> tuple[float, Exchanger]:
     r"""Air outlet temperature and exchanger state of a cooler of known UA [1]_.
 
     Parameters
@@ -60,6 +60,9 @@ def rate_exchanger(arrangement: str, ua: float, t_hi: float, hot_at: Callable[[f
         Coolant mass flow [kg/s] or temperature rise [K]; exactly one.
     where : str
         Input path of the cooler entry, for messages.
+    rtol : float
+        Relative tolerance of the air outlet temperature (1e-12; trial solves on the fast
+        property path ask for less, :func:`thermo.cooler.solve_cooler`).
 
     Returns
     -------
@@ -103,7 +106,7 @@ def rate_exchanger(arrangement: str, ua: float, t_hi: float, hot_at: Callable[[f
 
     span = t_hi - t_ci
     lo, hi = t_ci + 1e-9 * span, t_hi - 1e-9 * span
-    t_out = _secant_from_estimate(g, arrangement, ua, t_hi, t_ci, hot_at, fluid, flow, rise, where, lo, hi)
+    t_out = _secant_from_estimate(g, arrangement, ua, t_hi, t_ci, hot_at, fluid, flow, rise, where, lo, hi, rtol)
     if t_out is not None:
         return t_out, sized[t_out]
     if g(lo) <= 0.0:
@@ -144,8 +147,8 @@ def _estimate(arrangement: str, ua: float, t_hi: float, t_ci: float, hot_at, flu
 
 
 def _secant_from_estimate(g, arrangement, ua, t_hi, t_ci, hot_at, fluid, flow, rise, where, lo, hi,
-                          max_steps: int = 12):
-    """Root of g by secant steps from :func:`_estimate`, to 1e-12 K relative; None when the steps leave
+                          rtol: float = 1e-12, max_steps: int = 12):
+    """Root of g by secant steps from :func:`_estimate`, to ``rtol`` relative; None when the steps leave
     (lo, hi) or do not settle (the caller then brackets the whole interval).
 
     Returns the last outlet g was evaluated at once the next secant step is within the tolerance of
@@ -161,7 +164,7 @@ def _secant_from_estimate(g, arrangement, ua, t_hi, t_ci, hot_at, fluid, flow, r
         t2 = t1 - g1 * (t1 - t0) / (g1 - g0)
         if not lo < t2 < hi:
             return None
-        if abs(t2 - t1) <= 1e-12 * max(1.0, abs(t2)) or g1 == 0.0:
+        if abs(t2 - t1) <= rtol * max(1.0, abs(t2)) or g1 == 0.0:
             return t1
         t0, g0, t1, g1 = t1, g1, t2, g(t2)
     return None
