@@ -147,3 +147,21 @@ def test_the_year_prints_the_air_reaching_the_dryer_and_the_limits(tmp_path, cap
     assert 0 < missing < year["totals"]["hours"]
     m = re.search(r"^Hours missing a limit ([\d ]+) h$", text, re.M)
     assert m and abs(_number(m.group(1)) - missing) <= 0.5
+
+
+def test_the_report_of_a_year_with_frost_carries_the_winter_caution(tmp_path, capsys):
+    # issue 15: the cautions had no winter line; the foundry's January is 1 °C, so a colder copy of it
+    from app.presentation.cautions import WINTER
+    doc = json.loads(FOUNDRY.read_text(encoding="utf-8"))
+    assert main(["report", str(FOUNDRY), "-o", str(tmp_path / "warm.pdf")]) == 0
+    doc["year"]["profile"]["months"][0]["temperature_K"] = 266.15
+    project = tmp_path / "foundry_frost.json"
+    project.write_text(json.dumps(doc), encoding="utf-8")
+    assert main(["report", str(project), "-o", str(tmp_path / "frost.pdf")]) == 0
+    capsys.readouterr()
+
+    def cautions_page(name):
+        pages = [p.extract_text() for p in pypdf.PdfReader(str(tmp_path / name)).pages]
+        return " ".join(" ".join(p.split()) for p in pages if "Cautions" in p)
+    assert f"{WINTER[0]}." in cautions_page("frost.pdf") and "Heat-trace and insulate" in cautions_page("frost.pdf")
+    assert f"{WINTER[0]}." not in cautions_page("warm.pdf")
