@@ -2,7 +2,7 @@
 
 0 °C = 273.15 K by the definition of the Celsius scale (BIPM, SI Brochure, 9th ed., 2019, §2.3.1).
 """
-from app.presentation.cautions import ALL_CAUTIONS, CAUTIONS, WINTER, below_freezing, cautions_for
+from stagewright.gui.presentation.cautions import ALL_CAUTIONS, CAUTIONS, WINTER, below_freezing, cautions_for
 
 
 def _doc(t_site, months=None, bins=None):

@@ -4,7 +4,7 @@ in test_export_ops.py).
 
 Printed figures are compared with ``stagewright year --json`` and ``solve --json`` at the printed
 precision; unit factors written out from their definitions (NIST SP 811, 2008 edition, Appendix B:
-1 kW = 1e3 W, 1 kWh = 3.6e6 J, t/°C = T/K − 273.15), not taken from app.presentation.units.
+1 kW = 1e3 W, 1 kWh = 3.6e6 J, t/°C = T/K − 273.15), not taken from stagewright.gui.presentation.units.
 """
 from __future__ import annotations
 
@@ -14,12 +14,12 @@ import re
 import pypdf
 import pytest
 
-from app.cli.main import main
-from app.report.pdf import lay_out
-from app.report.sections import ReportInfo
+from stagewright.gui.cli.main import main
+from stagewright.gui.report.pdf import lay_out
+from stagewright.gui.report.sections import ReportInfo
 from conftest import SAMPLES
-from thermo import solve
-from thermo.project import load
+from stagewright.core import solve
+from stagewright.core.project import load
 
 FOUNDRY = SAMPLES / "three_stage_site_year.json"
 
@@ -106,15 +106,15 @@ def test_a_year_that_cannot_be_computed_is_said_in_words():
 
 def test_a_year_given_by_the_caller_is_printed_as_given(tmp_path, monkeypatch):
     # the window may pass the year it already has: export_report then does not run it again
-    import app.report
-    import thermo.year
+    import stagewright.gui.report
+    import stagewright.core.year
 
     doc = load(FOUNDRY)
-    year = thermo.year.run_year(doc).to_dict()
-    monkeypatch.setattr(thermo.year, "run_year", lambda *_a, **_k: pytest.fail("year run again"))
+    year = stagewright.core.year.run_year(doc).to_dict()
+    monkeypatch.setattr(stagewright.core.year, "run_year", lambda *_a, **_k: pytest.fail("year run again"))
     written = {}
-    monkeypatch.setattr(app.report, "write_pdf", lambda *a, **kw: written.update(kw) or 1)  # no PDF needed here
-    app.report.export_report(doc, solve(doc), tmp_path / "y.pdf", year=year)
+    monkeypatch.setattr(stagewright.gui.report, "write_pdf", lambda *a, **kw: written.update(kw) or 1)  # no PDF needed here
+    stagewright.gui.report.export_report(doc, solve(doc), tmp_path / "y.pdf", year=year)
     assert written["year"] is year and written["year_problem"] == ""
 
 
@@ -151,7 +151,7 @@ def test_the_year_prints_the_air_reaching_the_dryer_and_the_limits(tmp_path, cap
 
 def test_the_report_of_a_year_with_frost_carries_the_winter_caution(tmp_path, capsys):
     # issue 15: the cautions had no winter line; the foundry's January is 1 °C, so a colder copy of it
-    from app.presentation.cautions import WINTER
+    from stagewright.gui.presentation.cautions import WINTER
     doc = json.loads(FOUNDRY.read_text(encoding="utf-8"))
     assert main(["report", str(FOUNDRY), "-o", str(tmp_path / "warm.pdf")]) == 0
     doc["year"]["profile"]["months"][0]["temperature_K"] = 266.15

@@ -7,9 +7,9 @@ import math
 
 import pytest
 
-import thermo.year as year_module
-from thermo.year import run_year, same_input_groups
-from thermo.year_profile import Bin
+import stagewright.core.year as year_module
+from stagewright.core.year import run_year, same_input_groups
+from stagewright.core.year_profile import Bin
 
 
 def _doc(bins, coolers=None):
@@ -74,7 +74,7 @@ def test_pool_with_repeated_bins_gives_the_same_year_and_counts_every_bin():
 
 
 def test_cancel_keeps_the_finished_bins_in_profile_order():
-    from thermo.year import YearCancelled
+    from stagewright.core.year import YearCancelled
     calls = []
 
     def cancelled():

@@ -1,8 +1,8 @@
 """Readable plain-text table of a solved train for the command line (SI units).
 
-Its columns and totals are those of :mod:`app.presentation.balance_tables` that show in the
+Its columns and totals are those of :mod:`stagewright.gui.presentation.balance_tables` that show in the
 ``"text"`` output: a figure added there appears here too. Numbers are right-aligned in the
-width a figure's text :class:`~app.presentation.figures.Look` gives (else two characters wider
+width a figure's text :class:`~stagewright.gui.presentation.figures.Look` gives (else two characters wider
 than its header), without thousands grouping; totals print to 4 decimals unless told otherwise,
 with their labels' first letter in lower case.
 """
@@ -10,8 +10,8 @@ from __future__ import annotations
 
 __all__ = ["format_result"]
 
-from app.presentation import balance_tables as tables
-from app.presentation.figures import Figure, condition_holds, shown
+from stagewright.gui.presentation import balance_tables as tables
+from stagewright.gui.presentation.figures import Figure, condition_holds, shown
 
 _OUT = "text"
 _NAME_WIDTH, _TOTAL_NAME_WIDTH, _TOTAL_WIDTH, _TOTAL_DECIMALS = 22, 24, 14, 4

@@ -2,11 +2,11 @@
 
 Layout: a header row of column names, a units row, then data rows. The first column says
 what the row is (``state``, ``component`` or ``train``). The columns are the figures of
-:mod:`app.presentation.balance_tables` that show in the ``"csv"`` output: state-point figures,
+:mod:`stagewright.gui.presentation.balance_tables` that show in the ``"csv"`` output: state-point figures,
 then component figures, then any train totals (filled in the ``train`` row); a spreadsheet's
 columns stay put, so a column is there even when no row has a value. Numbers are written in the
 chosen display units to 12 significant digits, so converting back with
-:func:`app.presentation.units.to_si` returns the solver's SI values to 1e-12 relative; a missing
+:func:`stagewright.gui.presentation.units.to_si` returns the solver's SI values to 1e-12 relative; a missing
 value is an empty cell. Written with the standard library's :mod:`csv` (RFC 4180 quoting, UTF-8).
 """
 from __future__ import annotations
@@ -16,10 +16,10 @@ __all__ = ["COLUMNS", "csv_columns", "csv_rows", "write_csv"]
 import csv
 import io
 
-from app.presentation import balance_tables as tables
-from app.presentation.figures import Figure, shown
-from app.report.atomic import atomic_path
-from app.report.sections import state_points
+from stagewright.gui.presentation import balance_tables as tables
+from stagewright.gui.presentation.figures import Figure, shown
+from stagewright.gui.report.atomic import atomic_path
+from stagewright.gui.report.sections import state_points
 
 _OUT = "csv"
 
@@ -38,7 +38,7 @@ def csv_columns() -> list[tuple[str, str | None]]:
         for _, f in _figures()]
 
 
-#: (column name, quantity of app.presentation.units or None for text), as the tables stood at import
+#: (column name, quantity of stagewright.gui.presentation.units or None for text), as the tables stood at import
 COLUMNS = csv_columns()
 
 
