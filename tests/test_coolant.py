@@ -51,3 +51,19 @@ def test_too_little_water_names_flow_and_minimum():
         coolant_side(w, 293.15, 70_000.0, flow=0.1, where="stages[1].cooler")
     with pytest.raises(InputError, match=r"coolant\.temperature_rise_K.*at most 80\.00 K"):
         coolant_side(w, 293.15, 70_000.0, rise=85.0, where="stages[1].cooler")
+
+
+@pytest.mark.parametrize("spec, t_in", [({"kind": "water"}, 285.0), ({"kind": "air"}, 268.0),
+                                        ({"kind": "glycol", "glycol_fraction": 0.3}, 262.0)])
+@pytest.mark.parametrize("duty_per_kg", [50.0, 4_000.0, 60_000.0])
+def test_coolant_outlet_solves_its_enthalpy_balance_to_1e_9_K(spec, t_in, duty_per_kg):
+    # issue 15 (speed): the outlet comes from secant steps now (Brent's method before); the answer must
+    # still satisfy h(T_out) = h(T_in) + Q/m: checked with CoolProp's own enthalpy at the answer,
+    # and against the outlet Brent's method finds on the same function (scipy.optimize.brentq)
+    from scipy.optimize import brentq
+    fluid = make_coolant(spec, (t_in, 98_000.0, 0.6))
+    side = coolant_side(fluid, t_in, duty_per_kg, flow=1.0)
+    target = fluid.h(t_in) + duty_per_kg
+    assert fluid.h(side.outlet_temperature_K) == pytest.approx(target, rel=1e-13, abs=1e-7)
+    ref = brentq(lambda t: fluid.h(t) - target, t_in, fluid.t_max, xtol=1e-12, rtol=1e-15)
+    assert side.outlet_temperature_K == pytest.approx(ref, abs=1e-9)

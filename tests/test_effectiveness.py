@@ -115,3 +115,16 @@ def test_crossflow_unmixed_series_matches_scipy_incomplete_gamma(ntu, cr):
     k = np.arange(1, n_max + 1, dtype=float)
     ref = float(np.sum(gammainc(k, ntu) * gammainc(k, cr * ntu)) / (cr * ntu)) if cr >= 1e-10 else -math.expm1(-ntu)
     assert crossflow_unmixed_effectiveness(ntu, cr) == pytest.approx(ref, rel=1e-13)
+
+
+@pytest.mark.parametrize("ntu", [0.01, 0.3, 1.7, 4.0, 9.0])
+@pytest.mark.parametrize("cr", [1e-6, 0.05, 0.37, 0.8, 1.0])
+def test_crossflow_unmixed_inverse_matches_ht(ntu, cr):
+    # issue 15 (speed): Newton steps with the series' exact slope replaced Brent's method; checked
+    # against ht.NTU_from_effectiveness (C. Bell's ht library, its own numerical inverse of the
+    # exact cross-flow relation) and by the round trip through our series
+    eps = crossflow_unmixed_effectiveness(ntu, cr)
+    ours = ntu_from_effectiveness("cross_flow_unmixed", eps, cr)
+    assert ours == pytest.approx(ntu, rel=1e-10)
+    if eps < 0.999:  # near ε = 1 ht's own solve fails to converge (its integral loses precision)
+        assert ours == pytest.approx(ht.NTU_from_effectiveness(eps, cr, subtype="crossflow"), rel=1e-6)

@@ -79,3 +79,24 @@ def test_the_study_table_names_the_limit_and_the_value():
     row = {"binding_limits": [b]}
     assert limit_summary(row, "SI") == "Stage 1 discharge 346 °C > 200 °C limit"  # was "… not met"
     assert limit_summary(row, "US") == "Stage 1 discharge 654.9 °F > 392 °F limit"
+
+
+def test_a_site_below_zero_shows_the_winter_caution(qtbot, tmp_path):
+    # issue 15: the cautions had no winter line
+    doc = json.loads((SAMPLES / "two_stage_plant_air.json").read_text(encoding="utf-8"))
+    doc["site"]["ambient_temperature_K"] = 265.15
+    win = make_window(qtbot, tmp_path, doc)
+    msgs = win.panels["messages"]
+    assert win.editor.result is not None
+    qtbot.waitUntil(lambda: any(t.startswith("Caution — freezing condensate:") for t in msgs.texts("caution")),
+                    timeout=5000)
+    win.close()
+
+
+def test_a_warm_site_shows_no_winter_caution(qtbot, tmp_path):
+    doc = json.loads((SAMPLES / "two_stage_plant_air.json").read_text(encoding="utf-8"))
+    win = make_window(qtbot, tmp_path, doc)
+    msgs = win.panels["messages"]
+    assert win.editor.result is not None
+    assert not any("freezing condensate" in t for t in msgs.texts("caution"))
+    win.close()

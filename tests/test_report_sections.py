@@ -117,3 +117,52 @@ def test_a_year_given_by_the_caller_is_printed_as_given(tmp_path, monkeypatch):
     monkeypatch.setattr(stagewright.gui.report, "write_pdf", lambda *a, **kw: written.update(kw) or 1)  # no PDF needed here
     stagewright.gui.report.export_report(doc, solve(doc), tmp_path / "y.pdf", year=year)
     assert written["year"] is year and written["year_problem"] == ""
+
+
+def test_the_year_prints_the_air_reaching_the_dryer_and_the_limits(tmp_path, capsys):
+    # issue 15: the window, text and bin CSV showed each bin's dryer inlet, pressure dew point and
+    # limit flags; the PDF did not. Coolers designed once with a dryer-inlet limit, so that some
+    # months miss it
+    doc = json.loads(FOUNDRY.read_text(encoding="utf-8"))
+    doc["year"]["coolers"] = {"mode": "design_once", "design_condition": "hottest_bin",
+                              "max_dryer_inlet_temperature_K": 303.15}
+    project = tmp_path / "foundry_limits.json"
+    project.write_text(json.dumps(doc), encoding="utf-8")
+    year = _json(capsys, "year", str(project))
+    assert main(["report", str(project), "-o", str(tmp_path / "r.pdf")]) == 0
+    capsys.readouterr()
+    text = "\n".join(p.extract_text() for p in pypdf.PdfReader(str(tmp_path / "r.pdf")).pages)
+    assert "Month by month: the air reaching the dryer" in text
+    missing = 0
+    for b in year["bins"]:
+        # bin, T [°C], RH [%], to dryer [°C], pressure dew point [°C], three cooler outlets [°C], yes/no
+        m = re.search(rf"^{b['label']} (-?[\d.]+) ([\d.]+) (-?[\d.]+) (-?[\d.]+) (-?[\d.]+) / (-?[\d.]+) / (-?[\d.]+) "
+                      r"(yes|no)$", text, re.M)
+        assert m, b["label"]
+        assert abs(float(m.group(3)) - (b["dryer_inlet_temperature_K"] - 273.15)) <= 0.005
+        assert abs(float(m.group(4)) - (b["pressure_dew_point_K"] - 273.15)) <= 0.005
+        for k in range(3):
+            assert abs(float(m.group(5 + k)) - (b["cooler_outlet_temperatures_K"][k] - 273.15)) <= 0.05
+        assert (m.group(8) == "yes") == b["meets_limits"]
+        missing += 0 if b["meets_limits"] else b["hours"]
+    assert 0 < missing < year["totals"]["hours"]
+    m = re.search(r"^Hours missing a limit ([\d ]+) h$", text, re.M)
+    assert m and abs(_number(m.group(1)) - missing) <= 0.5
+
+
+def test_the_report_of_a_year_with_frost_carries_the_winter_caution(tmp_path, capsys):
+    # issue 15: the cautions had no winter line; the foundry's January is 1 °C, so a colder copy of it
+    from stagewright.gui.presentation.cautions import WINTER
+    doc = json.loads(FOUNDRY.read_text(encoding="utf-8"))
+    assert main(["report", str(FOUNDRY), "-o", str(tmp_path / "warm.pdf")]) == 0
+    doc["year"]["profile"]["months"][0]["temperature_K"] = 266.15
+    project = tmp_path / "foundry_frost.json"
+    project.write_text(json.dumps(doc), encoding="utf-8")
+    assert main(["report", str(project), "-o", str(tmp_path / "frost.pdf")]) == 0
+    capsys.readouterr()
+
+    def cautions_page(name):
+        pages = [p.extract_text() for p in pypdf.PdfReader(str(tmp_path / name)).pages]
+        return " ".join(" ".join(p.split()) for p in pages if "Cautions" in p)
+    assert f"{WINTER[0]}." in cautions_page("frost.pdf") and "Heat-trace and insulate" in cautions_page("frost.pdf")
+    assert f"{WINTER[0]}." not in cautions_page("warm.pdf")

@@ -14,6 +14,7 @@ from stagewright.core.exergy import DeadState, heat_exergy
 from stagewright.core.models.base import Point, PropertyModel
 
 _FROST_LOW = 173.15  #: lowest dew (frost) point searched for in a cooler, [K] (the schema's lowest dew point)
+_FAST_RATING_RTOL = 1e-9  #: rated air outlet on the fast property path (trial solves, year bins), relative
 
 
 @dataclass
@@ -83,9 +84,16 @@ def _hot_side(model, where: str, t_stag: float, h_in0: float, p_out: float, mass
     """
     moist = getattr(model, "mixture", None) is not None and model.water > 0.0
     cache: dict = {}
+    h_memo: dict = {}
 
     def h_eq(T: float) -> float:
-        return model.at_tp(T, p_out, f"{where} outlet").h
+        # a rating sizes the exchanger several times: the dew point and coolant inlet repeat
+        h = h_memo.get(T)
+        if h is None:
+            if len(h_memo) > 64:
+                h_memo.clear()
+            h = h_memo[T] = model.at_tp(T, p_out, f"{where} outlet").h
+        return h
 
     def dew(t_out: float):
         # the dew point does not depend on the outlet asked for; search once over the widest span
@@ -284,8 +292,9 @@ def _exchanger(model: PropertyModel, spec: dict, where: str, field: str, inlet: 
                          f"expected below the cooler air inlet {t_stag:.2f} K: the coolant cannot "
                          "cool air colder than itself")
     if t_out is None:
+        fast = getattr(getattr(model, "dry", model), "fast_properties", False)  # trial solves: 1e-4 suffices
         t_out, exchanger = rate_exchanger(spec["arrangement"], spec["ua_W_K"], t_stag, hot_at, fluid,
-                                          t_ci, flow, rise, where)
+                                          t_ci, flow, rise, where, rtol=_FAST_RATING_RTOL if fast else 1e-12)
     else:
         if t_out <= t_ci:
             raise InputError(field, t_out if field.endswith("_temperature_K") else spec["approach_K"],

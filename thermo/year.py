@@ -28,12 +28,14 @@ unchanged part with the year's normalised project (:mod:`stagewright.core.year_b
 grows linearly with its bins. Bins are solved on the fast property path of trial solves
 (:func:`stagewright.core.solve.solve_normalised` with ``detail=False, fast=True``; its figures agree with
 exact solves to better than 1e-4 relative, tests/test_year_design.py checks the totals);
-``run_year(..., exact=True)`` solves them exactly.
+``run_year(..., exact=True)`` solves them exactly. Bins whose inputs (temperature, humidity, load,
+coolant inlet) are bit-for-bit equal — hourly data repeats them often — share one solve
+(:func:`same_input_groups`); nothing is rounded or binned for it.
 """
 from __future__ import annotations
 
 __all__ = ["YearResult", "BinResult", "YearCancelled", "run_year", "CONDENSATE_DENSITY_KG_M3", "FAST_PATH_BINS",
-           "POOL_BINS", "CHUNK_BINS"]
+           "POOL_BINS", "CHUNK_BINS", "same_input_groups"]
 
 import os
 from dataclasses import asdict, dataclass, field
@@ -196,7 +198,8 @@ def run_year(doc: dict, progress=None, cancelled=None, exact: bool | None = None
     doc : dict
         Project document with a ``year`` section (see ``docs/project-format.md``).
     progress : callable, optional
-        ``progress(done, total)`` after each bin (after each chunk of bins with a pool).
+        ``progress(done, total)`` after each solve (of a bin and the bins with its inputs; after
+        each chunk of bins with a pool).
     cancelled : callable, optional
         ``cancelled()`` → True stops the run between bins or chunks (:class:`YearCancelled`).
     exact : bool, optional
@@ -268,38 +271,65 @@ class _Job:
     exact: bool
 
 
-def _solve_bin(job: _Job, b: Bin) -> BinResult:
-    """One bin: its project, solve, figures and limit flags (errors name the bin)."""
+def _solve_bin(job: _Job, b: Bin, same: tuple = ()) -> list:
+    """Bin ``b`` and the bins ``same`` whose inputs equal its own: one solve, each bin's figures and
+    limit flags (errors name bin ``b``)."""
     design = job.design
     res = _in_bin(b, _solver(job.exact), norm_for_bin(job.base, b, None if design is None else design.rating()))
-    flags = limit_flags(b, res, design, job.year["coolers"].get("max_dryer_inlet_temperature_K"))
-    return _bin_result(res, b, job.year, job.rec, flags, job.base)
+    limit = job.year["coolers"].get("max_dryer_inlet_temperature_K")
+    return [_bin_result(res, x, job.year, job.rec, limit_flags(x, res, design, limit), job.base)
+            for x in (b, *same)]
 
 
-def _cancelled_error(out: list, total: int) -> YearCancelled:
+def _inputs(b: Bin) -> tuple:
+    """Everything a bin's solve depends on (its label and hours only scale or name its figures)."""
+    return (b.temperature_K, b.relative_humidity, b.load, b.coolant_inlet_temperature_K)
+
+
+def same_input_groups(bins: list) -> list:
+    """Positions of the bins grouped by exactly equal inputs (:func:`_inputs`), in order of first
+    appearance: hourly data repeats a bin's temperature, humidity, load and coolant inlet often, and
+    such bins are solved once. Only bit-for-bit equal inputs share a solve (no rounding, no binning)."""
+    groups: dict = {}
+    for i, b in enumerate(bins):
+        groups.setdefault(_inputs(b), []).append(i)
+    return list(groups.values())
+
+
+def _cancelled_error(done: list, total: int) -> YearCancelled:
+    """The error of a cancelled run; ``partial`` holds the finished bins in profile order."""
+    out = [r for _, r in sorted(done, key=lambda d: d[0])]
     err = YearCancelled(f"year run cancelled after {len(out)} of {total} bins")
     err.partial = out
     return err
 
 
-def _run_in_process(job: _Job, bins: list, progress, cancelled) -> list:
-    out: list[BinResult] = []
-    for i, b in enumerate(bins):
-        if cancelled is not None and cancelled():
-            raise _cancelled_error(out, len(bins))
-        out.append(_solve_bin(job, b))
-        if progress is not None:
-            progress(i + 1, len(bins))
+def _in_order(done: list, total: int) -> list:
+    out: list = [None] * total
+    for i, r in done:
+        out[i] = r
     return out
 
 
+def _run_in_process(job: _Job, bins: list, progress, cancelled) -> list:
+    done: list = []
+    for group in same_input_groups(bins):
+        if cancelled is not None and cancelled():
+            raise _cancelled_error(done, len(bins))
+        done.extend(zip(group, _solve_bin(job, bins[group[0]], tuple(bins[i] for i in group[1:]))))
+        if progress is not None:
+            progress(len(done), len(bins))
+    return _in_order(done, len(bins))
+
+
 def _solve_chunk(job: _Job, chunk: list) -> list:
-    """A worker's chunk of bins; a bin that fails ends the chunk as ``("error", its position)``
-    (the caller solves it again in its own process to raise the error with its type)."""
+    """A worker's chunk of same-input groups (lists of bins); a group that fails ends the chunk as
+    ``("error", its position)`` (the caller solves it again in its own process to raise the error
+    with its type)."""
     out = []
-    for k, b in enumerate(chunk):
+    for k, group in enumerate(chunk):
         try:
-            out.append(_solve_bin(job, b))
+            out.append(_solve_bin(job, group[0], tuple(group[1:])))
         except StagewrightError:
             out.append(("error", k))
             break
@@ -308,27 +338,32 @@ def _solve_chunk(job: _Job, chunk: list) -> list:
 
 
 def _run_in_pool(job: _Job, bins: list, n_proc: int, progress, cancelled) -> list:
-    """The bins in chunks of CHUNK_BINS on ``n_proc`` worker processes, in order."""
+    """The same-input groups in chunks of about CHUNK_BINS bins on ``n_proc`` worker processes."""
     from concurrent.futures import ProcessPoolExecutor  # local: most years are short
     from stagewright.core.process_pool import pool_context
-    chunks = [bins[i:i + CHUNK_BINS] for i in range(0, len(bins), CHUNK_BINS)]
-    out: list = []
+    chunks: list = [[]]
+    for group in same_input_groups(bins):
+        if sum(len(g) for g in chunks[-1]) >= CHUNK_BINS:
+            chunks.append([])
+        chunks[-1].append(group)
+    done: list = []
     with ProcessPoolExecutor(max_workers=n_proc, mp_context=pool_context()) as pool:
-        futures = [pool.submit(_solve_chunk, job, ch) for ch in chunks]
+        futures = [pool.submit(_solve_chunk, job, [[bins[i] for i in g] for g in ch]) for ch in chunks]
         for ch, fut in zip(chunks, futures):
             if cancelled is not None and cancelled():
                 for f in futures:
                     f.cancel()
-                raise _cancelled_error(out, len(bins))
+                raise _cancelled_error(done, len(bins))
             part = fut.result()
             if part and isinstance(part[-1], tuple):
                 for f in futures:
                     f.cancel()
-                _solve_bin(job, ch[part[-1][1]])  # raises the bin's own error
-            out.extend(part)
+                _solve_bin(job, bins[ch[part[-1][1]][0]])  # raises the bin's own error
+            for group, results in zip(ch, part):
+                done.extend(zip(group, results))
             if progress is not None:
-                progress(len(out), len(bins))
-    return out
+                progress(len(done), len(bins))
+    return _in_order(done, len(bins))
 
 
 def _in_design(base: dict, bins: list, settings: dict, solve_fn) -> YearDesign:

@@ -11,11 +11,11 @@ from PySide6.QtGui import QColor, QIcon, QPainter, QPixmap
 from PySide6.QtWidgets import QLabel, QListWidget, QListWidgetItem, QVBoxLayout, QWidget
 
 from stagewright.gui.widgets.plain_text import plain_tip
-from stagewright.gui.presentation.cautions import CAUTIONS
+from stagewright.gui.presentation.cautions import ALL_CAUTIONS, WINTER, cautions_for
 from stagewright.gui.document.messages import error_text, problem_text, warning_text
 from stagewright.gui.document.field_specs import describe
 
-_CAUTION = dict(CAUTIONS)
+_CAUTION = dict(ALL_CAUTIONS)
 _SEVERITY_COLOUR = {"problem": "#c0392b", "warning": "#d98e04", "caution": "#7b5ea7", "ok": "#2e8b57",
                     "note": "#5b6b7a"}
 
@@ -91,6 +91,8 @@ class MessagesPanel(QWidget):
                     cautions.append("Discharge temperature")
                 if "condensate" in w.get("message", "").lower() or "dew" in w.get("message", "").lower():
                     cautions.append("Condensate disposal")
+            if WINTER in cautions_for(doc, ed.result.get("warnings", [])):
+                cautions.append(WINTER[0])
             for title in dict.fromkeys(cautions):
                 out.append(Message("caution", f"Caution — {title.lower()}: {_CAUTION[title]}", ""))
             if not ed.result.get("warnings"):

@@ -4,7 +4,8 @@ One text for all places, so the window and the printed report never disagree.
 """
 from __future__ import annotations
 
-__all__ = ["CAUTIONS", "DEFERRAL", "cautions_text"]
+__all__ = ["CAUTIONS", "DEFERRAL", "cautions_text", "WINTER", "ALL_CAUTIONS", "FREEZING_K", "below_freezing",
+           "cautions_for"]
 
 DEFERRAL = (
     "Stagewright is a calculation aid. Its results do not replace the design review, "
@@ -35,6 +36,75 @@ CAUTIONS = (
      "Compressed air can inject air or particles through skin, lift debris at speed and rupture "
      "hoses. Never point it at a person; use rated hoses, couplings and restraints."),
 )
+
+
+#: shown where the site or a month or bin of its year is below 0 °C (:func:`cautions_for`), and in Help
+WINTER = (
+    "Freezing condensate",
+    "Below 0 °C the condensate of coolers and separators freezes wherever it meets the cold: in an "
+    "air-cooled cooler, in a separator, drain valve or drain line outside a heated room, and in any "
+    "cooler whose coolant is below 0 °C. A frozen drain lets water carry over to the dryer and the "
+    "network, and ice can split a drain line, a trap or a separator bowl. Heat-trace and insulate "
+    "drains and separators (or keep them indoors), check that automatic drains work in frost, and "
+    "hold a minimum air outlet temperature above 0 °C on air-cooled coolers (louvres, fan control or "
+    "a bypass) (common practice, no source).")
+
+#: every caution, the winter one included (Help ▸ Safety cautions lists them all)
+ALL_CAUTIONS = CAUTIONS + (WINTER,)
+
+FREEZING_K = 273.15  #: 0 °C, [K]
+
+
+def _profile_temperatures(doc: dict) -> list:
+    """Ambient temperatures [K] of the year's months or bins in a project document (as stored)."""
+    year = doc.get("year") if isinstance(doc, dict) else None
+    profile = year.get("profile") if isinstance(year, dict) else None
+    if not isinstance(profile, dict):
+        return []
+    rows = profile.get("months") or profile.get("bins") or []
+    return [r.get("temperature_K") for r in rows if isinstance(r, dict)]
+
+
+def below_freezing(doc: dict) -> bool:
+    """Whether the site's ambient, or that of a month or bin of its year, is below 0 °C.
+
+    Examples
+    --------
+    >>> below_freezing({"site": {"ambient_temperature_K": 288.15}})
+    False
+    >>> below_freezing({"site": {"ambient_temperature_K": 288.15},
+    ...                 "year": {"profile": {"kind": "bins", "bins": [{"temperature_K": 265.0}]}}})
+    True
+    """
+    site = doc.get("site") if isinstance(doc, dict) else None
+    temps = [site.get("ambient_temperature_K")] if isinstance(site, dict) else []
+    temps += _profile_temperatures(doc)
+    return any(isinstance(t, (int, float)) and not isinstance(t, bool) and t < FREEZING_K for t in temps)
+
+
+def cautions_for(doc: dict | None = None, warnings=(), year: dict | None = None) -> tuple:
+    """The cautions a report or the window shows for a project: :data:`CAUTIONS`, and :data:`WINTER`
+    when :func:`below_freezing` holds, a result warning says condensate would freeze, or a bin of
+    the year does (``freezing_bins``).
+
+    Parameters
+    ----------
+    doc : dict, optional
+        The project document (None: the cautions every project gets).
+    warnings : iterable of dict
+        Result warnings (``{"field", "message"}``), e.g. ``TrainResult.to_dict()["warnings"]``.
+    year : dict, optional
+        The year at the site (``YearResult.to_dict()``).
+
+    Examples
+    --------
+    >>> site = {"site": {"ambient_temperature_K": 283.15}}
+    >>> WINTER in cautions_for(site), WINTER in cautions_for(site, year={"freezing_bins": ["Jan"]})
+    (False, True)
+    """
+    freezing = any("freez" in str(w.get("message", "")).lower() for w in warnings)
+    freezing = freezing or bool((year or {}).get("freezing_bins"))
+    return ALL_CAUTIONS if freezing or (doc is not None and below_freezing(doc)) else CAUTIONS
 
 
 def cautions_text() -> str:

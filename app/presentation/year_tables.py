@@ -14,7 +14,8 @@ shown as a plain number (the window groups its thousands). No Qt.
 """
 from __future__ import annotations
 
-__all__ = ["YEAR_BINS", "YEAR_TOTALS", "ONLY_WITH", "totals_for", "design_note"]
+__all__ = ["YEAR_BINS", "YEAR_TOTALS", "ONLY_WITH", "totals_for", "design_note", "PDF_DRYER_COLUMNS",
+           "PDF_ROW_KEYS", "BIN_ONLY_WITH", "bin_columns_for"]
 
 from collections.abc import Mapping
 from dataclasses import replace
@@ -24,6 +25,7 @@ from stagewright.gui.presentation.figures import Figure, Look, read_path, shown
 
 _KWH = 3.6e6  # J per kWh
 _WINDOW, _TEXT, _WINDOW_TEXT = {"window"}, {"text"}, {"window", "text"}
+_WINDOW_TEXT_PDF = {"window", "text", "pdf"}
 #: money in the window: thousands grouped, whole units, no unit text (the currency is the user's)
 _MONEY = {out: Look(quantity="money", decimals=0, symbol="") for out in ("window", "pdf")}
 
@@ -49,20 +51,22 @@ YEAR_BINS: tuple[Figure, ...] = (
            looks={"text": Look(label="water", decimals=1, width=12)}),
     Figure("recoverable_heat_kWh", "Recoverable heat", "energy", to_si=_KWH, where=_TEXT,
            looks={"text": Look(label="recov.", unit="MWh", width=14)}),
-    # issue 15: what reaches the dryer, and each cooler as rated (window and text; the report
-    # branch decides whether its PDF and CSV show them)
-    Figure("dryer_inlet_temperature_K", "To dryer", "temperature", where=_WINDOW_TEXT,
+    # issue 15: what reaches the dryer, and each cooler as rated (window, text and the PDF's second
+    # year table, :data:`PDF_DRYER_COLUMNS`)
+    Figure("dryer_inlet_temperature_K", "To dryer", "temperature", where=_WINDOW_TEXT_PDF,
            note="Temperature of the delivered air, which reaches the dryer",
            looks={"text": Look(label="dryer", decimals=1, width=12)}),
-    Figure("pressure_dew_point_K", "Pressure dew pt", "temperature", where=_WINDOW_TEXT,
+    Figure("pressure_dew_point_K", "Pressure dew pt", "temperature", where=_WINDOW_TEXT_PDF,
            note="Pressure dew point of the air reaching the dryer (frost point below 0 °C)",
-           looks={"text": Look(label="pdp", decimals=1, width=10)}),
-    Figure("cooler_outlet_temperatures_K", "Cooler outlets", "temperature", joiner=" / ", where=_WINDOW_TEXT,
+           looks={"text": Look(label="pdp", decimals=1, width=10), "pdf": Look(label="Pressure dew point",
+                                                                                 when="any")}),
+    Figure("cooler_outlet_temperatures_K", "Cooler outlets", "temperature", joiner=" / ", where=_WINDOW_TEXT_PDF,
            align="right", note="Air outlet of each cooler, first stage first (– where a stage has none)",
-           looks={"text": Look(label="cooler outlets", decimals=1, width=26)}),
+           looks={"text": Look(label="cooler outlets", decimals=1, width=26),
+                  "pdf": Look(label="Cooler air outlets", decimals=1)}),
     Figure("coolant_outlet_temperatures_K", "Coolant outlets", "temperature", joiner=" / ", where=_WINDOW,
            note="Coolant outlet of each cooler with a coolant side"),
-    Figure("meets_limits", "Meets limits", style="yes_no", where=_WINDOW_TEXT, align="right",
+    Figure("meets_limits", "Meets limits", style="yes_no", where=_WINDOW_TEXT_PDF, align="right",
            note="No: a rated cooler leaves warmer than at its design condition, or the air reaches "
                 "the dryer above the stated limit",
            looks={"text": Look(label="ok", width=6)}),
@@ -72,6 +76,36 @@ YEAR_BINS: tuple[Figure, ...] = (
     Figure("cooling_water_m3", "Cooling water", "liquid_volume", decimals=0, when="any", where={"pdf"}),
     Figure("recoverable_heat_kWh", "Recoverable heat", "energy", to_si=_KWH, when="any", where={"pdf"}),
 )
+
+#: the PDF prints these bin figures in a second table, after the bin's label and ambient
+#: (:data:`PDF_ROW_KEYS`), so that each table keeps a readable width on a portrait page
+PDF_DRYER_COLUMNS: frozenset = frozenset({"dryer_inlet_temperature_K", "pressure_dew_point_K",
+                                          "cooler_outlet_temperatures_K", "meets_limits"})
+PDF_ROW_KEYS: tuple = ("label", "temperature_K", "relative_humidity")
+
+#: bin figures a year may have nothing to show for: figure id → path into the year dict that is
+#: false when the project states no limit (every bin then "meets" it); :func:`bin_columns_for`
+#: leaves such a column out
+BIN_ONLY_WITH: Mapping[str, str] = MappingProxyType({"meets_limits": "totals.limits_stated"})
+
+
+def bin_columns_for(year: dict, output: str) -> list[Figure]:
+    """The columns of :data:`YEAR_BINS` that ``output`` shows for ``year``: a column whose condition
+    is ``"any"`` only when some bin has a non-zero value there, and none :data:`BIN_ONLY_WITH`
+    finds nothing for.
+
+    Examples
+    --------
+    >>> year = {"totals": {"limits_stated": False}, "bins": [{"pressure_dew_point_K": None}]}
+    >>> ids = [f.id for f in bin_columns_for(year, "pdf")]
+    >>> "pressure_dew_point_K" in ids, "meets_limits" in ids, "dryer_inlet_temperature_K" in ids
+    (False, False, True)
+    """
+    bins = year.get("bins") or []
+    return [f for f in shown(YEAR_BINS, output)
+            if (f.when_in(output) != "any" or any(f.value(b) for b in bins))
+            and (f.id not in BIN_ONLY_WITH or read_path(year, BIN_ONLY_WITH[f.id]))]
+
 
 #: the year's totals and extremes (paths into the year dict). The text table lower-cases a label's
 #: first letter and prints a note in brackets after the value; the window's year panel lists the
@@ -91,7 +125,7 @@ YEAR_TOTALS: tuple[Figure, ...] = (
     Figure("worst_discharge_temperature.temperature_K", "Worst discharge temperature", "temperature", decimals=1,
            bin_key="worst_discharge_temperature.bin"),
     Figure("worst_cooler_duty.duty_W", "Largest cooler duty", "heat_flow", bin_key="worst_cooler_duty.bin"),
-    Figure("totals.hours_missing_limits", "Hours missing a limit", "hours", where=_WINDOW_TEXT,
+    Figure("totals.hours_missing_limits", "Hours missing a limit", "hours", where=_WINDOW_TEXT_PDF,
            note="hours of the bins where a rated cooler or the dryer inlet misses its limit"),
     replace(_HOURS, where=frozenset(_WINDOW)),
     Figure("totals.mean_driver_power_W", "Mean driver power", "power", where=_WINDOW,

@@ -76,7 +76,7 @@ def lay_out(doc: dict, result: dict, info: sections.ReportInfo, study_rows=None,
     sections.staging(p, study_rows, system, limit_K=limit)
     if cases:
         cases_section(p, cases, cases[0].name, shown_case or cases[0].name, system)
-    sections.cautions(p)
+    sections.cautions(p, doc, result.get("warnings") or (), year)
     return p
 
 

@@ -18,7 +18,7 @@ from stagewright.core.project.delivery import GAUGE_KEY, delivery_pressure, stat
 from stagewright.core.project.validation import normalise
 
 from stagewright.gui.presentation import balance_tables, staging_table, units
-from stagewright.gui.presentation.cautions import CAUTIONS, DEFERRAL
+from stagewright.gui.presentation.cautions import DEFERRAL, cautions_for
 from stagewright.gui.presentation.figures import Figure, condition_holds, shown
 from stagewright.gui.document.messages import limit_sentence, warning_text
 from stagewright.gui.document.field_specs import describe
@@ -324,11 +324,13 @@ def staging(p: Pager, study_rows: list[dict] | None, system: str, limit_K=None) 
     p.table(Table("Arrangements compared", cols, rows, note=" ".join(sorted(notes)), row_notes=remarks))
 
 
-def cautions(p: Pager) -> None:
-    """The safety cautions and the deferral to local codes, kept together on one page."""
-    height = sum(p.paragraph_height(text, bold_lead=f"{title}.") for title, text in CAUTIONS)
+def cautions(p: Pager, doc: dict | None = None, warnings=(), year: dict | None = None) -> None:
+    """The safety cautions and the deferral to local codes, kept together on one page (the winter
+    caution too when the site or its year goes below 0 °C: :func:`stagewright.gui.presentation.cautions.cautions_for`)."""
+    shown = cautions_for(doc, warnings, year)
+    height = sum(p.paragraph_height(text, bold_lead=f"{title}.") for title, text in shown)
     p.heading("Cautions", keep_with=height + 0.05 + p.paragraph_height(DEFERRAL))
-    for title, text in CAUTIONS:
+    for title, text in shown:
         p.paragraph(text, bold_lead=f"{title}.", keep_together=True)
     p.gap(0.05)
     p.paragraph(DEFERRAL, italic=True, keep_together=True)

@@ -3,9 +3,12 @@
 Printed when the project has a ``year`` section. The year (``YearResult.to_dict()`` of
 :func:`stagewright.core.year.run_year`) is computed by :func:`stagewright.gui.report.export_report`; a year that
 could not be computed is reported in words. The columns and totals are the figures of
-:mod:`stagewright.gui.presentation.year_tables` that show in the ``"pdf"`` output; a column whose
-condition is ``"any"`` is left out when every bin has zero or nothing there (no cooling water,
-no heat recovery). No Qt.
+:mod:`stagewright.gui.presentation.year_tables` that show in the ``"pdf"`` output
+(:func:`~stagewright.gui.presentation.year_tables.bin_columns_for`: a column whose condition is ``"any"`` is
+left out when every bin has zero or nothing there — no cooling water, no heat recovery, no dew
+point of a dry intake — and "Meets limits" when the project states none). The bins are printed in
+two tables of readable width: energy and water, then the air reaching the dryer (its temperature,
+pressure dew point, each cooler's air outlet and whether the bin meets the stated limits). No Qt.
 """
 from __future__ import annotations
 
@@ -13,7 +16,7 @@ __all__ = ["year_at_site"]
 
 from stagewright.gui.charts.year_chart import draw_year_chart
 from stagewright.gui.presentation import year_tables
-from stagewright.gui.presentation.figures import Figure, read_path, shown
+from stagewright.gui.presentation.figures import Figure, read_path
 from stagewright.gui.report.layout import Column, Pager, Table
 
 _PDF = "pdf"
@@ -23,9 +26,11 @@ def _column(fig: Figure, system: str) -> Column:
     return Column(fig.label_in(_PDF), fig.symbol_in(_PDF, system), align="left" if fig.is_left_aligned() else "right")
 
 
-def _bin_columns(bins: list[dict]) -> list[Figure]:
-    return [f for f in shown(year_tables.YEAR_BINS, _PDF)
-            if f.when_in(_PDF) != "any" or any(f.value(b) for b in bins)]
+
+
+def _bin_table(title: str, figures: list[Figure], bins: list[dict], system: str, note: str) -> Table:
+    rows = [[f.text(b, _PDF, system) for f in figures] for b in bins]
+    return Table(title, [_column(f, system) for f in figures], rows, note=note)
 
 
 def _total_text(fig: Figure, year: dict, system: str) -> str:
@@ -46,12 +51,17 @@ def year_at_site(p: Pager, year: dict | None, system: str, limit_K: float | None
         return
     p.charts("A year at the site", [(lambda f: draw_year_chart(f, year, system, limit_K=limit_K), 5.0)])
     bins = year["bins"]
-    figures = _bin_columns(bins)
-    rows = [[f.text(b, _PDF, system) for f in figures] for b in bins]
-    p.table(Table("Month by month" if len(bins) == 12 else "Bin by bin", [_column(f, system) for f in figures],
-                  rows, note="Energy is the driver's input over the bin's operating hours; condensate and "
-                             "cooling water are volumes over those hours; the hottest discharge is that of the "
-                             "hottest stage."))
+    columns = year_tables.bin_columns_for(year, _PDF)
+    title = "Month by month" if len(bins) == 12 else "Bin by bin"
+    energy = [f for f in columns if f.id not in year_tables.PDF_DRYER_COLUMNS]
+    p.table(_bin_table(title, energy, bins, system,
+                       "Energy is the driver's input over the bin's operating hours; condensate and cooling "
+                       "water are volumes over those hours; the hottest discharge is that of the hottest stage."))
+    dryer = [f for f in columns if f.id in year_tables.PDF_DRYER_COLUMNS]
+    if dryer:
+        keys = [f for f in columns if f.id in year_tables.PDF_ROW_KEYS]
+        p.table(_bin_table(f"{title}: the air reaching the dryer", keys + dryer, bins, system,
+                           " ".join(f"{f.label_in(_PDF)}: {f.note}." for f in dryer if f.note)))
     totals = [[f.label_in(_PDF), _total_text(f, year, system)] for f in year_tables.totals_for(year, _PDF)
               if f.value(year) is not None]
     notes = " ".join(f"{f.label_in(_PDF)}: {f.note}." for f in year_tables.totals_for(year, _PDF) if f.note)

@@ -7,12 +7,12 @@ import html
 
 from PySide6.QtWidgets import QDialog, QDialogButtonBox, QTextBrowser, QVBoxLayout
 
-from stagewright.gui.presentation.cautions import CAUTIONS, DEFERRAL
+from stagewright.gui.presentation.cautions import ALL_CAUTIONS, DEFERRAL
 
 
 def cautions_html() -> str:
     parts = ["<h3>Safety cautions</h3>"]
-    for title, text in CAUTIONS:
+    for title, text in ALL_CAUTIONS:
         parts.append(f"<p><b>{html.escape(title)}.</b> {html.escape(text)}</p>")
     parts.append(f"<p><i>{html.escape(DEFERRAL)}</i></p>")
     return "".join(parts)

@@ -24,7 +24,8 @@ Properties come only through :mod:`stagewright.core.coolprop_adapter`.
 """
 from __future__ import annotations
 
-__all__ = ["COOLANTS", "CoolantSide", "make_coolant", "coolant_side", "COOLANT_PRESSURE_PA", "warm_up"]
+__all__ = ["COOLANTS", "CoolantSide", "make_coolant", "coolant_side", "COOLANT_PRESSURE_PA", "warm_up",
+           "temperature_from_h"]
 
 import math
 from dataclasses import dataclass
@@ -167,8 +168,31 @@ class CoolantSide:
         return self.flow_kg_s / self.inlet_density_kg_m3
 
 
-def _temperature_from_h(fluid, h_target: float, t_lo: float, t_hi: float) -> float:
-    return brentq(lambda T: fluid.h(T) - h_target, t_lo, t_hi, xtol=1e-12, rtol=1e-15, maxiter=200)
+def temperature_from_h(fluid, h_target: float, t_lo: float, t_hi: float, h_lo: float, h_hi: float) -> float:
+    """T with ``fluid.h(T) = h_target`` on [t_lo, t_hi] (``h_lo``, ``h_hi`` the enthalpies there), to 1e-12 K.
+
+    A coolant's h(T) is nearly straight, so secant steps from the chord's root settle in three or
+    four enthalpy calls (each a CoolProp call, humid air ~0.1 ms); steps are kept inside the
+    bracket, and Brent's method on the bracket decides should they not settle in 12 steps.
+    """
+    a, fa, b, fb = t_lo, h_lo - h_target, t_hi, h_hi - h_target
+    x0, f0 = (a, fa) if abs(fa) <= abs(fb) else (b, fb)
+    x1 = a - fa * (b - a) / (fb - fa) if fb != fa else 0.5 * (a + b)
+    for _ in range(12):
+        f1 = fluid.h(x1) - h_target
+        if f1 == 0.0:
+            return x1
+        if f1 < 0.0:
+            a, fa = x1, f1
+        else:
+            b, fb = x1, f1
+        x2 = x1 - f1 * (x1 - x0) / (f1 - f0) if f1 != f0 else 0.5 * (a + b)
+        if not a < x2 < b:
+            x2 = 0.5 * (a + b)
+        if abs(x2 - x1) <= 1e-12:
+            return x2
+        x0, f0, x1 = x1, f1, x2
+    return brentq(lambda T: fluid.h(T) - h_target, a, b, xtol=1e-12, rtol=1e-15, maxiter=200)
 
 
 def coolant_side(fluid, t_in: float, duty: float, flow: float | None = None, rise: float | None = None,
@@ -253,7 +277,8 @@ def coolant_side(fluid, t_in: float, duty: float, flow: float | None = None, ris
                              f"expected at least {duty / (h_max - h_in):.6g} kg/s for a duty of "
                              f"{duty:.6g} W: less would heat the {fluid.label} above "
                              f"{fluid.t_max:.2f} K")
-        t_out = t_in if duty <= 0.0 else _temperature_from_h(fluid, h_in + duty / flow, t_in, fluid.t_max)
+        t_out = t_in if duty <= 0.0 else temperature_from_h(fluid, h_in + duty / flow, t_in, fluid.t_max,
+                                                                             h_in, h_max)
     ds = fluid.s(t_out) - fluid.s(t_in)
     dh = fluid.h(t_out) - h_in
     t_mean = dh / ds if ds > 0.0 and dh > 0.0 else 0.5 * (t_in + t_out)

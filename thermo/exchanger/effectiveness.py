@@ -195,6 +195,80 @@ def _cross_unmixed(ntu: float, cr: float, hot_is_cmin: bool) -> float:
     return crossflow_unmixed_effectiveness(ntu, cr)
 
 
+def _poisson_pmf(x: float, m_top: int) -> list:
+    """Poisson probabilities e^{-x} x^m / m! for m = 0 … m_top (from logarithms where e^{-x} underflows)."""
+    if x > 600.0:
+        ln_x = math.log(x)
+        return [math.exp(m * ln_x - x - math.lgamma(m + 1.0)) for m in range(m_top + 1)]
+    pmf = [0.0] * (m_top + 1)
+    p = pmf[0] = math.exp(-x)
+    for m in range(1, m_top + 1):
+        p *= x / m
+        pmf[m] = p
+    return pmf
+
+
+def _cross_unmixed_and_slope(y: float, cr: float) -> tuple:
+    r"""Unmixed cross-flow ε at :math:`N = e^y` and its slope :math:`d\varepsilon/dy` [3]_ [5]_.
+
+    With :math:`S = \sum_n P(n+1, N) P(n+1, C_r N)` and :math:`dP(n+1, x)/dx = e^{-x} x^n/n!`
+    (the Poisson probability, Abramowitz & Stegun 6.5.25),
+
+    .. math:: \frac{d\varepsilon}{dy} = N \frac{d\varepsilon}{dN}
+              = \frac{1}{C_r}\sum_n \left[p_n(N)\,P(n+1, C_r N) + C_r P(n+1, N)\,p_n(C_r N)\right]
+              - \varepsilon
+    """
+    ntu = math.exp(y)
+    n_max = int(ntu + 12.0 * math.sqrt(ntu) + 40.0)
+    pa, pb = _poisson_pmf(ntu, n_max), _poisson_pmf(cr * ntu, n_max)
+    a, b = _tails_from_pmf(pa, n_max), _tails_from_pmf(pb, n_max)
+    eps = math.fsum(x * z for x, z in zip(a, b)) / (cr * ntu)
+    slope = math.fsum(pa[n] * b[n] + cr * a[n] * pb[n] for n in range(n_max)) / cr - eps
+    return eps, slope
+
+
+def _tails_from_pmf(pmf: list, n_max: int) -> list:
+    """:math:`P(n+1, x)` for n = 0 … n_max − 1 from the Poisson probabilities, summed from the far tail."""
+    tails = [0.0] * n_max
+    acc = 0.0
+    for m in range(n_max, 0, -1):
+        acc += pmf[m]
+        tails[m - 1] = acc
+    return tails
+
+
+def _cross_unmixed_inv(eps: float, cr: float) -> float | None:
+    r"""NTU of unmixed cross-flow for ``eps`` by safeguarded Newton steps on :math:`y = \ln N`.
+
+    Counter-flow needs the fewest transfer units of all arrangements, so its closed-form NTU is a
+    lower bound and the start; each step is a Newton step (exact slope,
+    :func:`_cross_unmixed_and_slope`) kept inside the bracket found so far (bisection otherwise).
+    Stops when a step is below 1e-9 in y (the next error is below 1e-17); None if 60 steps do
+    not settle or the NTU passes 10⁴ (the caller then brackets with Brent's method).
+    """
+    y = math.log(max(_counter_inv(eps, cr, True), 1e-300))
+    lo, hi, y_top = y, None, math.log(1e4)
+    for _ in range(60):
+        e, slope = _cross_unmixed_and_slope(y, cr)
+        f = e - eps
+        if f == 0.0:
+            return math.exp(y)
+        if f < 0.0:
+            lo = max(lo, y)
+        else:
+            hi = y if hi is None else min(hi, y)
+        step = -f / slope if slope > 0.0 else math.inf
+        y_new = y + step
+        if not (lo <= y_new and (hi is None or y_new <= hi)) or not math.isfinite(y_new):
+            y_new = 0.5 * (lo + hi) if hi is not None else lo + math.log(8.0)
+        elif abs(step) <= 1e-9 * max(1.0, abs(y)):
+            return math.exp(y_new)
+        if y_new > y_top:
+            return None
+        y = y_new
+    return None
+
+
 @dataclass(frozen=True)
 class Arrangement:
     """One flow arrangement: its ε(NTU, Cr) and, where one exists, the closed-form inverse."""
@@ -334,8 +408,9 @@ def ntu_from_effectiveness(arrangement: str, eps: float, cr: float, hot_is_cmin:
         \qquad
         N_{C_\min\,\mathrm{mixed}} = -\frac{\ln\left[C_r \ln(1-\varepsilon) + 1\right]}{C_r}
 
-    Cross-flow with both fluids unmixed is inverted numerically (Brent's method on
-    :math:`\ln N`, to 1e-14 relative).
+    Cross-flow with both fluids unmixed is inverted numerically: Newton steps on :math:`\ln N`
+    from the counter-flow NTU with the series' exact slope, kept in a bracket (Brent's method on
+    :math:`\ln N` to 1e-14 relative should they not settle).
 
     Parameters
     ----------
@@ -383,6 +458,11 @@ def ntu_from_effectiveness(arrangement: str, eps: float, cr: float, hot_is_cmin:
         if not math.isfinite(ntu):
             raise InputError(field, eps, cross)
         return ntu
+    if arrangement == "cross_flow_unmixed" and cr >= 1e-10:
+        ntu = _cross_unmixed_inv(eps, cr)
+        if ntu is not None:
+            return ntu
+
     def miss(y: float) -> float:
         return arr.eps(math.exp(y), cr, hot_is_cmin) - eps
 

@@ -25,6 +25,7 @@ from typing import Callable
 
 from stagewright.core.errors import InputError, PropertyRangeError
 from stagewright.core.exchanger.effectiveness import effectiveness
+from stagewright.core.exchanger.coolant import coolant_side
 from stagewright.core.exchanger.sizing import Exchanger, HotSide, size_exchanger
 
 _INFEASIBLE = 60.0
@@ -38,7 +39,7 @@ def brentq(*args, **kwargs):
 
 def rate_exchanger(arrangement: str, ua: float, t_hi: float, hot_at: Callable[[float], HotSide],
                    fluid, t_ci: float, flow: float | None = None, rise: float | None = None,
-                   where: str = "cooler") -> tuple[float, Exchanger]:
+                   where: str = "cooler", rtol: float = 1e-12) -> tuple[float, Exchanger]:
     r"""Air outlet temperature and exchanger state of a cooler of known UA [1]_.
 
     Parameters
@@ -59,6 +60,9 @@ def rate_exchanger(arrangement: str, ua: float, t_hi: float, hot_at: Callable[[f
         Coolant mass flow [kg/s] or temperature rise [K]; exactly one.
     where : str
         Input path of the cooler entry, for messages.
+    rtol : float
+        Relative tolerance of the air outlet temperature (1e-12; trial solves on the fast
+        property path ask for less, :func:`stagewright.core.cooler.solve_cooler`).
 
     Returns
     -------
@@ -90,18 +94,21 @@ def rate_exchanger(arrangement: str, ua: float, t_hi: float, hot_at: Callable[[f
                          f"expected below the cooler air inlet {t_hi:.2f} K: the coolant cannot cool "
                          "air colder than itself")
 
+    sized: dict = {}
+
     def g(t_out: float) -> float:
         try:
             ex = size_exchanger(arrangement, hot_at(t_out), fluid, t_ci, flow, rise, where, explain=False)
         except (InputError, PropertyRangeError):
             return _INFEASIBLE
+        sized[t_out] = ex
         return math.log(ex.ua_W_K / ua) if ex.ua_W_K > 0.0 else -_INFEASIBLE
 
     span = t_hi - t_ci
     lo, hi = t_ci + 1e-9 * span, t_hi - 1e-9 * span
-    t_out = _secant_from_estimate(g, arrangement, ua, t_hi, t_ci, hot_at, fluid, flow, rise, where, lo, hi)
+    t_out = _secant_from_estimate(g, arrangement, ua, t_hi, t_ci, hot_at, fluid, flow, rise, where, lo, hi, rtol)
     if t_out is not None:
-        return t_out, size_exchanger(arrangement, hot_at(t_out), fluid, t_ci, flow, rise, where)
+        return t_out, sized[t_out]
     if g(lo) <= 0.0:
         lo = t_ci + 1e-12 * span
     if g(lo) <= 0.0 or g(hi) >= 0.0:  # the root would lie within rounding of an end: no usable outlet
@@ -126,11 +133,10 @@ def _estimate(arrangement: str, ua: float, t_hi: float, t_ci: float, hot_at, flu
     .. [1] F. P. Incropera et al., *Fundamentals of Heat and Mass Transfer*, 6th ed., 2007, §11.5.
     """
     t_mid = 0.5 * (t_hi + t_ci)
-    try:
-        ex = size_exchanger(arrangement, hot_at(t_mid), fluid, t_ci, flow, rise, where, explain=False)
+    try:  # the capacity rates need only the coolant side, not the zones' sizing
+        side = coolant_side(fluid, t_ci, hot_at(t_mid).duty_W, flow=flow, rise=rise, where=where)
     except (InputError, PropertyRangeError):
         return None
-    side = ex.coolant
     if side.duty_W <= 0.0 or side.outlet_temperature_K <= t_ci:
         return None
     c_h = side.duty_W / (t_hi - t_mid)
@@ -141,9 +147,12 @@ def _estimate(arrangement: str, ua: float, t_hi: float, t_ci: float, hot_at, flu
 
 
 def _secant_from_estimate(g, arrangement, ua, t_hi, t_ci, hot_at, fluid, flow, rise, where, lo, hi,
-                          max_steps: int = 12):
-    """Root of g by secant steps from :func:`_estimate`, to 1e-12 K; None when the steps leave
-    (lo, hi) or do not settle (the caller then brackets the whole interval)."""
+                          rtol: float = 1e-12, max_steps: int = 12):
+    """Root of g by secant steps from :func:`_estimate`, to ``rtol`` relative; None when the steps leave
+    (lo, hi) or do not settle (the caller then brackets the whole interval).
+
+    Returns the last outlet g was evaluated at once the next secant step is within the tolerance of
+    it (so that its sizing is the answer's, with no sizing more)."""
     t0 = _estimate(arrangement, ua, t_hi, t_ci, hot_at, fluid, flow, rise, where)
     if t0 is None or not lo < t0 < hi:
         return None
@@ -155,7 +164,7 @@ def _secant_from_estimate(g, arrangement, ua, t_hi, t_ci, hot_at, fluid, flow, r
         t2 = t1 - g1 * (t1 - t0) / (g1 - g0)
         if not lo < t2 < hi:
             return None
-        if abs(t2 - t1) <= 1e-12 * max(1.0, abs(t2)) or g1 == 0.0:
-            return t2
+        if abs(t2 - t1) <= rtol * max(1.0, abs(t2)) or g1 == 0.0:
+            return t1
         t0, g0, t1, g1 = t1, g1, t2, g(t2)
     return None

@@ -38,16 +38,10 @@ from typing import Callable
 
 
 from stagewright.core.errors import InputError
-from stagewright.core.exchanger.coolant import CoolantSide, coolant_side
+from stagewright.core.exchanger.coolant import CoolantSide, coolant_side, temperature_from_h
 from stagewright.core.exchanger.effectiveness import ARRANGEMENTS, max_effectiveness, ntu_from_effectiveness
 from stagewright.core.exchanger.lmtd import counterflow_lmtd
 from stagewright.core.exchanger.zone_figures import enthalpy_driving_force, overall_figures
-
-
-def brentq(*args, **kwargs):
-    """scipy.optimize.brentq, imported on first use (keeps start-up light)."""
-    from scipy.optimize import brentq as _brentq
-    return _brentq(*args, **kwargs)
 
 
 class Infeasible(InputError):
@@ -284,7 +278,8 @@ def _size_two_zones(arrangement, hot: HotSide, fluid, side: CoolantSide, field_n
     t_cb = t_ci
     if side.flow_kg_s > 0.0 and q_wet > 0.0:
         h_cb = fluid.h(t_ci) + q_wet / side.flow_kg_s
-        t_cb = brentq(lambda t: fluid.h(t) - h_cb, t_ci, side.outlet_temperature_K, xtol=1e-12, rtol=1e-15)
+        t_co = side.outlet_temperature_K
+        t_cb = temperature_from_h(fluid, h_cb, t_ci, t_co, fluid.h(t_ci), fluid.h(t_co))
     if t_cb <= t_ci:  # the wet zone's duty warms the coolant by less than rounding: one dry zone
         zone = dry_zone(arrangement, hot.inlet_temperature_K, hot.outlet_temperature_K, hot.duty_W, t_ci,
                         side.outlet_temperature_K, field_name)
