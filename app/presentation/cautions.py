@@ -4,7 +4,7 @@ One text for all places, so the window and the printed report never disagree.
 """
 from __future__ import annotations
 
-__all__ = ["CAUTIONS", "DEFERRAL", "cautions_text"]
+__all__ = ["CAUTIONS", "DEFERRAL", "PACKAGE_CAUTIONS", "package_cautions", "cautions_text"]
 
 DEFERRAL = (
     "Stagewright is a calculation aid. Its results do not replace the design review, "
@@ -35,6 +35,36 @@ CAUTIONS = (
      "Compressed air can inject air or particles through skin, lift debris at speed and rupture "
      "hoses. Never point it at a person; use rated hoses, couplings and restraints."),
 )
+
+
+#: cautions of a package with a capacity control (the package panel and the report's package section)
+PACKAGE_CAUTIONS = (
+    ("Receiver and relief",
+     "The receiver a capacity control cycles on is a pressure vessel. It must be designed, marked, "
+     "inspected and protected by a relief valve able to discharge the full delivery of every compressor "
+     "that can feed it, as the pressure-equipment rules at the site require. A control's pressure band is "
+     "no protection: never set it, or raise it, above the receiver's and the package's rated pressure."),
+    ("Automatic restart",
+     "A compressor under start/stop or variable-speed control stops when the demand falls and starts "
+     "again without warning when the pressure drops. A stopped machine is not a safe one: mark it as "
+     "starting automatically, and isolate and lock out the driver and vent the package before any work on it."),
+    ("Data-sheet figures",
+     "The data sheet states figures as this project computes them, at the stated reference conditions. "
+     "Compare them with a supplier's only at the same conditions, the same delivery pressure and the same "
+     "scope of auxiliaries; acceptance tests follow the applicable test standard, not this sheet."),
+)
+
+
+def package_cautions(control_kind: str) -> tuple:
+    """The package cautions that matter for ``control_kind`` (restart only where the motor stops).
+
+    Examples
+    --------
+    >>> [t for t, _ in package_cautions("modulation")]
+    ['Receiver and relief', 'Data-sheet figures']
+    """
+    restarts = control_kind in ("start_stop", "variable_speed")
+    return tuple(c for c in PACKAGE_CAUTIONS if restarts or c[0] != "Automatic restart")
 
 
 def cautions_text() -> str:
