@@ -87,6 +87,9 @@ QUANTITIES: dict[str, tuple[Unit, Unit]] = {
     "air_volume": (Unit("m³", 1.0, 0.0, 0), Unit("ft³", _FT ** 3, 0.0, 0)),
     # operating hours (a year's profile keeps hours, [h], as its unit)
     "hours": (Unit("h", 1.0, 0.0, 0), Unit("h", 1.0, 0.0, 0)),
+    # a duration in seconds (a blowdown), and a rate per hour (starts, load cycles)
+    "time": (Unit("s", 1.0, 0.0, 0), Unit("s", 1.0, 0.0, 0)),
+    "per_hour": (Unit("1/h", 1.0, 0.0, 1), Unit("1/h", 1.0, 0.0, 1)),
     # an amount in the currency of the energy price the user gave: never converted
     "money": (Unit("cost", 1.0, 0.0, 0), Unit("cost", 1.0, 0.0, 0)),
 }
