@@ -94,5 +94,5 @@ def draw_part_load_chart(fig: Figure, package: dict, system: str = "SI", side_by
     ax_s.set_ylim(0.0, top * 1.1)
     ax_s.set_xlim(0.0, q_full * 1.03)
     for ax in (ax_p, ax_s):
-        ax.legend(loc="lower right" if ax is ax_p else "upper right", fontsize=style.SIZE_NOTE, frameon=False)
+        ax.legend(loc="best", fontsize=style.SIZE_NOTE, frameon=True, framealpha=0.85, edgecolor="none")
     return fig

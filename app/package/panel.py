@@ -123,9 +123,9 @@ class PackagePanel(QWidget):
         if self._sheet_pending:
             self.request_sheet()
 
-    def _on_sheet(self, _job: int, sheet: dict, seconds: float) -> None:
+    def _on_sheet(self, _job: int, sheet: dict, _seconds: float) -> None:
         self.sheet = sheet
-        self._show_sheet(f"Data sheet computed in {seconds:.1f} s.")
+        self._show_sheet("")
 
     def _on_sheet_failed(self, _job: int, message: str, field: str) -> None:
         self.sheet = None

@@ -78,10 +78,10 @@ class PackageResults(QTabWidget):
         lay = QVBoxLayout(sheet)
         lay.setContentsMargins(2, 2, 2, 2)
         self.sheet_status = _note("packageSheetStatus")
-        self.conditions = _table("sheetConditions")
+        self.conditions = _note("sheetConditions")
         self.sheet = _table("sheetLoads")
         self.sheet_notes = _note("footNote")
-        for w, stretch in ((self.sheet_status, 0), (self.conditions, 2), (self.sheet, 3), (self.sheet_notes, 0)):
+        for w, stretch in ((self.sheet_status, 0), (self.conditions, 0), (self.sheet, 1), (self.sheet_notes, 0)):
             lay.addWidget(w, stretch)
         self.chart = QStackedWidget()
         self.chart_hint = QLabel("The part-load chart shows once the project is solved.")
@@ -132,13 +132,13 @@ class PackageResults(QTabWidget):
 
     def show_sheet(self, sheet: dict | None, system: str, status: str) -> None:
         self.sheet_status.setText(status)
+        self.sheet_status.setVisible(bool(status))
         if sheet is None:
-            self.conditions.setRowCount(0)
+            self.conditions.setText("")
             self.sheet.setRowCount(0)
             self.sheet_notes.setText("")
             return
-        _fill(self.conditions, ["Condition", "ISO 1217 reference", "Site"],
-              pt.sheet_condition_rows(sheet, _OUT, system))
-        heads = [f"{h} [{u}]" if u else h for h, u in pt.sheet_headers(_OUT, system)]
+        self.conditions.setText("\n".join(pt.sheet_condition_lines(sheet, _OUT, system)))
+        heads = [f"{h}\n[{u}]" if u else h for h, u in pt.sheet_headers(_OUT, system)]
         _fill(self.sheet, heads, pt.sheet_rows(sheet, _OUT, system), left=(0, 1))
-        self.sheet_notes.setText("\n".join(n[:1].upper() + n[1:] + "." for n in sheet["notes"]))
+        self.sheet_notes.setText(" ".join(n[:1].upper() + n[1:] + "." for n in sheet["notes"]))

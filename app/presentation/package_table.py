@@ -20,7 +20,7 @@ from __future__ import annotations
 
 __all__ = ["PACKAGE_POINT", "PACKAGE_ANNUAL", "SHEET_POINT", "SHEET_CONDITIONS", "J_M3", "point_figures",
            "point_columns", "point_rows", "annual_view", "annual_rows", "control_line", "sheet_headers",
-           "sheet_rows", "sheet_condition_rows", "load_name"]
+           "sheet_rows", "sheet_condition_rows", "sheet_condition_lines", "load_name"]
 
 from app.presentation.figures import Figure, Look
 
@@ -83,7 +83,8 @@ PACKAGE_ANNUAL: tuple[Figure, ...] = (
 
 #: one load of the data sheet, at one condition (paths into a PackagePoint dict)
 SHEET_POINT: tuple[Figure, ...] = (
-    Figure("delivered_fad_m3_s", "Free air delivery", "volume_flow", id="sheet_fad"),
+    Figure("delivered_fad_m3_s", "Free air delivery", "volume_flow", id="sheet_fad",
+           looks={"window": Look(label="FAD")}),
     Figure("package_power_W", "Package input", "power", id="sheet_power"),
     Figure("package_specific_power_J_m3", "Specific power", "specific_power", to_si=J_M3, id="sheet_specific"),
 )
@@ -199,6 +200,13 @@ def sheet_rows(sheet: dict, output: str, system: str = "SI") -> list[list[str]]:
             rows.append([load_name(a["demand_fraction"]) if first == 0 else "", where]
                         + [f.text(point, output, system, grouping=output != "text") for f in SHEET_POINT])
     return rows
+
+
+def sheet_condition_lines(sheet: dict, output: str, system: str = "SI") -> list[str]:
+    """One line per column of the sheet: ``"ISO 1217 reference: inlet pressure 1.000 bar(a), …"``."""
+    return [f"{name}: " + ", ".join(f"{f.label_in(output).lower()} {f.text(col, output, system, with_unit=True)}"
+                                    for f in SHEET_CONDITIONS)
+            for name, col in zip(("ISO 1217 reference", "Site"), sheet["columns"])]
 
 
 def sheet_condition_rows(sheet: dict, output: str, system: str = "SI") -> list[list[str]]:

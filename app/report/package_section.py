@@ -6,9 +6,9 @@ Printed when the project has a ``package`` section. The rows are those of
 read the same rows); the data sheet (``DataSheet.to_dict()`` of
 :func:`thermo.part_load.data_sheet.data_sheet`, two extra solves) is computed by
 :func:`app.report.export_report`, and a sheet that could not be computed is reported in words.
-The sheet's page is laid out to be held beside a supplier's sheet: conditions first, then one row
-per load with the reference and the site figures side by side, then what the figures include
-and the cautions that matter for the control. The layout is Stagewright's own. No Qt.
+The sheet's page is laid out to be held beside a supplier's sheet: conditions first, then two rows
+per load (the reference and the site), the part-load curve, what the package input includes and
+the cautions that matter for the control (the report's Cautions section, next, defers to local codes). The layout is Stagewright's own. No Qt.
 """
 from __future__ import annotations
 
@@ -16,7 +16,7 @@ __all__ = ["package_section"]
 
 from app.charts.part_load_chart import draw_part_load_chart
 from app.presentation import package_table as pt
-from app.presentation.cautions import DEFERRAL, package_cautions
+from app.presentation.cautions import package_cautions
 from app.report.layout import Column, Pager, Table
 
 _PDF = "pdf"
@@ -64,7 +64,6 @@ def package_section(p: Pager, result: dict, system: str = "SI", sheet: dict | No
                       note="Energy in proportion to flow: the same hours at the full-load specific power, "
                            "what an ideal control would use; the part-load extra is what this control costs "
                            "over it."))
-    p.charts("Part-load curve", [(lambda f: draw_part_load_chart(f, pkg, system, side_by_side=True), 3.0)])
     _sheet_page(p, pkg, sheet, sheet_problem, title, system)
 
 
@@ -88,16 +87,16 @@ def _sheet_page(p: Pager, pkg: dict, sheet: dict | None, problem: str, title: st
                   note="Free air delivery at the inlet conditions of its column (ISO 1217). Package input: "
                        "driver input plus the auxiliaries named below; specific power: package input per "
                        "unit of free air delivery."))
+    p.charts("Part-load curve at the site", [(lambda f: draw_part_load_chart(f, pkg, system, side_by_side=True),
+                                              2.2)], shrink=0.8)
     scope = _scope_rows(pkg, system)
     if scope:
         p.table(Table("Included in the package input (full load, site)", [Column("", align="left"),
                                                                           Column("", align="left")],
                       scope, header=False))
-    for note in sheet["notes"]:
-        p.paragraph(note[:1].upper() + note[1:] + ".", size=7.0)
+    p.paragraph(" ".join(n[:1].upper() + n[1:] + "." for n in sheet["notes"]), size=7.0)
     for head, text in package_cautions(pkg["control"]):
-        p.paragraph(text, bold_lead=f"{head}.", keep_together=True)
-    p.paragraph(DEFERRAL, italic=True, keep_together=True, size=7.0)
+        p.paragraph(text, bold_lead=f"{head}.", keep_together=True, size=7.5)
 
 
 def _scope_rows(pkg: dict, system: str) -> list[list[str]]:
