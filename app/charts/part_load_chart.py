@@ -5,7 +5,7 @@ Built on a plain matplotlib ``Figure`` (no Qt, no pyplot) from ``TrainResult.to_
 package input power (line ``"part-load-power"``) with the ideal control for reference, input in
 proportion to flow at the full-load specific power (dashed, ``"part-load-ideal"``), and package
 specific power (``"part-load-specific"``, with its full-load value as a dashed line,
-``"part-load-specific-ideal"``). The stated load is marked on both (``"part-load-stated"``,
+``"part-load-specific-ideal"``), one legend under both. The stated load is marked on both (``"part-load-stated"``,
 ``"part-load-stated-specific"``) and the data-sheet loads as small rings (``"part-load-sheet"``).
 A wide, short figure puts the panels side by side; a taller one stacks them (same rule as the
 year chart, :func:`app.charts.year_chart.side_by_side_for`).
@@ -93,6 +93,9 @@ def draw_part_load_chart(fig: Figure, package: dict, system: str = "SI", side_by
     top = max([s[1] for s in spec] + [sp_full])
     ax_s.set_ylim(0.0, top * 1.1)
     ax_s.set_xlim(0.0, q_full * 1.03)
-    for ax in (ax_p, ax_s):
-        ax.legend(loc="best", fontsize=style.SIZE_NOTE, frameon=True, framealpha=0.85, edgecolor="none")
+    handles, labels = ax_p.get_legend_handles_labels()
+    more = [(h, lab) for h, lab in zip(*ax_s.get_legend_handles_labels()) if lab not in labels]
+    # one legend under both panels: inside either it covers some control's curve
+    fig.legend(handles + [h for h, _ in more], labels + [lab for _, lab in more], loc="outside lower center",
+               ncol=3, fontsize=style.SIZE_NOTE, frameon=False)
     return fig

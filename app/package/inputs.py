@@ -7,7 +7,7 @@ control is one undo step. Only the parameters of the chosen kind are shown.
 """
 from __future__ import annotations
 
-__all__ = ["PackageInputs", "PARAMETER_TIPS"]
+__all__ = ["PackageInputs", "PARAMETER_TIPS", "SHORT_LABELS"]
 
 from PySide6.QtWidgets import QCheckBox, QFormLayout, QLabel, QLineEdit, QPushButton, QVBoxLayout
 
@@ -39,6 +39,12 @@ PARAMETER_TIPS = {
 }
 
 
+#: parameter key → its short label in the form (the full one, from field_specs, is in the tooltip and messages)
+SHORT_LABELS = {"receiver_volume_m3": "Receiver", "pressure_band_Pa": "Pressure band",
+                "specific_power_rise_at_min_speed": "Rise at min. speed", "drive_fixed_loss_share": "Drive fixed loss",
+                "zero_flow_power_fraction": "Power at zero flow", "max_starts_per_hour": "Starts limit"}
+
+
 class PackageInputs(FieldPanel):
     """The form of the ``package`` section (shown only when the project has one)."""
 
@@ -56,7 +62,8 @@ class PackageInputs(FieldPanel):
         keys = dict.fromkeys(k for ks in CONTROL_KEYS.values() for k in ks if k != "points")
         for key in keys:
             field = QuantityField(editor, _C + key)
-            self.add_row(form, _label(_C + key), field, PARAMETER_TIPS.get(key, ""))
+            self.add_row(form, SHORT_LABELS.get(key, _label(_C + key)), field,
+                         f"{_label(_C + key)}: {PARAMETER_TIPS.get(key, '')}".rstrip(": "))
             self.parameters[key] = (form.labelForField(field), field)
         self.points = RowsEditor(editor, _C + "points", [RowColumn("flow_fraction", "Flow", "fraction"),
                                                          RowColumn("power_fraction", "Power", "fraction")],

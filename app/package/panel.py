@@ -68,7 +68,7 @@ class PackagePanel(QWidget):
         split.addWidget(self.results)
         split.setStretchFactor(0, 0)
         split.setStretchFactor(1, 1)
-        split.setSizes([340, 700])
+        split.setSizes([380, 660])
         self.pages.addWidget(split)
         self.runner.finished.connect(self._on_sheet)
         self.runner.failed.connect(self._on_sheet_failed)

@@ -20,6 +20,8 @@ from app.presentation.cautions import package_cautions
 from app.report.layout import Column, Pager, Table
 
 _PDF = "pdf"
+_CHART_MIN_IN, _CHART_MAX_IN = 1.8, 2.7  #: the data sheet's part-load curve, [in]
+_CHART_HEADING_IN = 10.5 * 1.6 / 72.0 + 0.13  #: a level-1 heading above a chart block (Pager.charts), [in]
 
 
 def _points_table(pkg: dict, system: str) -> Table:
@@ -85,17 +87,21 @@ def _sheet_page(p: Pager, pkg: dict, sheet: dict | None, problem: str, title: st
     cols = [Column(h, u, align="left" if j < 2 else "right") for j, (h, u) in enumerate(heads)]
     p.table(Table("Free air delivery and package input by load", cols, pt.sheet_rows(sheet, _PDF, system),
                   note="Free air delivery at the inlet conditions of its column (ISO 1217). Package input: "
-                       "driver input plus the auxiliaries named below; specific power: package input per "
+                       "driver input plus the auxiliaries listed below; specific power: package input per "
                        "unit of free air delivery."))
+    scope = "Included in the package input at full load, site: " + "; ".join(
+        f"{label[:1].lower() + label[1:]} {value}" for label, value in _scope_rows(pkg, system)) + "."
+    notes = " ".join(n[:1].upper() + n[1:] + "." for n in sheet["notes"])
+    cautions = package_cautions(pkg["control"])
+    rest = (p.paragraph_height(scope) + p.paragraph_height(notes, size=7.0)
+            + sum(p.paragraph_height(text, size=7.5, bold_lead=f"{head}.") for head, text in cautions))
+    # the curve takes what the rest of the sheet leaves on its page (the sheet stays one page)
+    chart_h = min(_CHART_MAX_IN, max(_CHART_MIN_IN, p.space_left() - _CHART_HEADING_IN - rest - 0.2))
     p.charts("Part-load curve at the site", [(lambda f: draw_part_load_chart(f, pkg, system, side_by_side=True),
-                                              2.2)], shrink=0.8)
-    scope = _scope_rows(pkg, system)
-    if scope:
-        p.table(Table("Included in the package input (full load, site)", [Column("", align="left"),
-                                                                          Column("", align="left")],
-                      scope, header=False))
-    p.paragraph(" ".join(n[:1].upper() + n[1:] + "." for n in sheet["notes"]), size=7.0)
-    for head, text in package_cautions(pkg["control"]):
+                                              chart_h)], shrink=0.8)
+    p.paragraph(scope)
+    p.paragraph(notes, size=7.0)
+    for head, text in cautions:
         p.paragraph(text, bold_lead=f"{head}.", keep_together=True, size=7.5)
 
 
