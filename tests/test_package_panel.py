@@ -111,6 +111,10 @@ def test_load_profile_rows_add_edit_remove_and_undo(qtbot, tmp_path):
     profile.table.item(3, 1).setText("many")
     assert win.model.get("package.load_profile[3].hours") == rows[-1]["hours"]
     assert "'many' is not a number" in profile.status.text()
+    profile.table.item(3, 1).setText("-5")  # out of range: into the document, marked and named
+    assert win.model.get("package.load_profile[3].hours") == -5.0
+    assert "Load-profile row 4 hours: -5 h is out of range (allowed: above 0 h" in profile.table.item(3, 1).toolTip()
+    win.editor.undo_stack.undo()
     profile.table.setCurrentCell(0, 0)
     profile.remove_button.click()
     assert win.model.get("package.load_profile") == [rows[1], rows[2], {**rows[-1], "load": 0.45}]

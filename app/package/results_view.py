@@ -9,8 +9,8 @@ from __future__ import annotations
 __all__ = ["PackageResults", "FIGURES_TAB", "YEAR_TAB", "SHEET_TAB", "CHART_TAB"]
 
 from PySide6.QtCore import Qt
-from PySide6.QtWidgets import (QAbstractItemView, QLabel, QStackedWidget, QTableWidget, QTableWidgetItem,
-                               QTabWidget, QVBoxLayout, QWidget)
+from PySide6.QtWidgets import (QAbstractItemView, QFrame, QLabel, QScrollArea, QStackedWidget, QTableWidget,
+                               QTableWidgetItem, QTabWidget, QVBoxLayout, QWidget)
 
 from app.presentation import package_table as pt
 from app.presentation.cautions import package_cautions
@@ -55,6 +55,16 @@ def _note(name: str) -> QLabel:
     return label
 
 
+def _scrolled(page: QWidget) -> QScrollArea:
+    """``page`` in a scroll area: its wrapped notes never make the docked panel (and so the window)
+    taller than the user sized it."""
+    area = QScrollArea()
+    area.setWidgetResizable(True)
+    area.setFrameShape(QFrame.NoFrame)
+    area.setWidget(page)
+    return area
+
+
 class PackageResults(QTabWidget):
     """``show_package(pkg, system)`` fills the Figures and Chart tabs; ``show_sheet(sheet, system, note)``
     the Data sheet tab (None: the note alone)."""
@@ -88,9 +98,9 @@ class PackageResults(QTabWidget):
         self.chart_hint.setAlignment(Qt.AlignCenter)
         self.chart.addWidget(self.chart_hint)
         self.canvas = None
-        self.addTab(figures, "Figures")
+        self.addTab(_scrolled(figures), "Figures")
         self.addTab(self.annual, "Load profile year")
-        self.addTab(sheet, "Data sheet")
+        self.addTab(_scrolled(sheet), "Data sheet")
         self.addTab(self.chart, "Chart")
 
     def show_package(self, pkg: dict | None, system: str) -> None:
@@ -124,7 +134,7 @@ class PackageResults(QTabWidget):
             from matplotlib.backends.backend_qtagg import FigureCanvasQTAgg
             from matplotlib.figure import Figure
             self.canvas = FigureCanvasQTAgg(Figure(figsize=(7, 3.2), dpi=100))
-            self.canvas.setMinimumSize(320, 200)
+            self.canvas.setMinimumSize(240, 120)  # never taller than the dock the user sized
             self.chart.addWidget(self.canvas)
         self.chart.setCurrentWidget(self.canvas)
         draw_part_load_chart(self.canvas.figure, pkg, system)

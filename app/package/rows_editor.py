@@ -19,7 +19,7 @@ from PySide6.QtWidgets import (QAbstractItemView, QHBoxLayout, QLabel, QPushButt
 from app.document.paths import ABSENT
 from app.package.edits import with_row, without_row
 from app.presentation import units
-from app.widgets.plain_text import plain_label
+from app.widgets.plain_text import plain_label, plain_tip
 from app.widgets.quantity_field import format_shown, parse_number
 from app.widgets.signals_blocked import signals_blocked
 from app.widgets.table_copy import attach_table_copy
@@ -94,13 +94,21 @@ class RowsEditor(QWidget):
                         text = format_shown(u.to_display(float(value)))
                     item = QTableWidgetItem(text)
                     item.setTextAlignment((Qt.AlignLeft if u is None else Qt.AlignRight) | Qt.AlignVCenter)
-                    problem = self.editor.problem_for(f"{self.path}[{r}].{col.key}")
+                    problem = self._problem(f"{self.path}[{r}].{col.key}")
                     if problem:
-                        item.setToolTip(problem)
+                        item.setToolTip(plain_tip(problem))
                         item.setForeground(Qt.red)
                     self.table.setItem(r, c, item)
         self.add_button.setEnabled(len(rows) < self.max_rows)
         self.remove_button.setEnabled(len(rows) > self.min_rows)
+
+    def _problem(self, path: str) -> str | None:
+        """The project's problem with the value at ``path``, in display units with the field's label."""
+        from app.document.messages import problem_text
+        found = next((p for p in self.editor.problems if p.field == path), None)
+        if found is None:
+            return None
+        return problem_text(found, self.editor.model.doc, self.editor.prefs.system)
 
     def _on_item_changed(self, item: QTableWidgetItem) -> None:
         r, c = item.row(), item.column()
