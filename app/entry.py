@@ -17,7 +17,7 @@ import sys
 
 def main(argv: list[str] | None = None) -> int:
     """Entry point of the ``stagewright`` console script; returns the exit status."""
-    from app.cli.main import SUBCOMMANDS, main as run_subcommand
+    from stagewright.gui.cli.main import SUBCOMMANDS, main as run_subcommand
 
     argv = sys.argv[1:] if argv is None else list(argv)
     if argv and argv[0] in SUBCOMMANDS:
@@ -28,7 +28,7 @@ def main(argv: list[str] | None = None) -> int:
     p.add_argument("--screenshot", metavar="OUT.png", help="render the window offscreen to a PNG and exit")
     p.add_argument("--size", metavar="WxH", help="window size for --screenshot (default 1280x800)")
     args = p.parse_args(argv)
-    from app.window.launch import run_gui  # Qt is imported only here
+    from stagewright.gui.window.launch import run_gui  # Qt is imported only here
     return run_gui(args.project, args.screenshot, size=args.size)
 
 

@@ -8,7 +8,7 @@ import time
 from pathlib import Path
 
 sys.path.insert(0, str(Path(__file__).resolve().parent.parent))
-import thermo  # noqa: E402
+import stagewright.core  # noqa: E402
 
 
 def doc(model, kind, rh):
@@ -19,11 +19,11 @@ def doc(model, kind, rh):
 
 
 def median_ms(d, n=15):
-    thermo.solve(d)
+    stagewright.core.solve(d)
     times = []
     for _ in range(n):
         t = time.perf_counter()
-        thermo.solve(d)
+        stagewright.core.solve(d)
         times.append(time.perf_counter() - t)
     return 1e3 * statistics.median(times)
 

@@ -1,6 +1,6 @@
 """A deliberately naive train solve on CoolProp's high-level PropsSI, for benchmark ratios only.
 
-It does the same job as thermo.solve for dry air (intake filter, equal split with cooler
+It does the same job as stagewright.core.solve for dry air (intake filter, equal split with cooler
 pressure drops, isentropic or polytropic stages, coolers) the straightforward way: a
 PropsSI call for every property, Euler steps in (h, p) for polytropic paths and bisection
 for the polytropic efficiency of isentropic stages. Never used by the program.

@@ -23,8 +23,8 @@ ROOT = Path(__file__).resolve().parent.parent
 sys.path.insert(0, str(ROOT))
 sys.path.insert(0, str(ROOT / "bench"))
 
-import thermo  # noqa: E402
-import thermo.coolprop_adapter  # noqa: E402
+import stagewright.core  # noqa: E402
+import stagewright.core.coolprop_adapter  # noqa: E402
 from naive import naive_minimal, naive_solve  # noqa: E402
 
 SAMPLES = sorted((ROOT / "sample_projects").glob("*.json"))
@@ -78,8 +78,8 @@ def report(name: str, ours, naive=None, extra: str = "") -> None:
 
 def _humid_supported() -> bool:
     try:
-        r = thermo.solve(four_stage_doc(True)).to_dict()
-    except thermo.StagewrightError:
+        r = stagewright.core.solve(four_stage_doc(True)).to_dict()
+    except stagewright.core.StagewrightError:
         return False
     return "condensate_kg_s" in r
 
@@ -87,7 +87,7 @@ def _humid_supported() -> bool:
 def case_samples():
     for path in SAMPLES:
         doc = json.loads(path.read_text())
-        ours = measure(lambda: thermo.solve(doc), 20)
+        ours = measure(lambda: stagewright.core.solve(doc), 20)
         dry_naive = _naive_applicable(doc)
         naive = measure(lambda: naive_solve(doc), 3) if dry_naive else None
         report(f"solve {path.stem}", ours, naive)
@@ -105,12 +105,12 @@ def _naive_applicable(doc) -> bool:
 def case_four_stage():
     humid = _humid_supported()
     doc = four_stage_doc(humid)
-    ours = measure(lambda: thermo.solve(doc), 50)
+    ours = measure(lambda: stagewright.core.solve(doc), 50)
     naive = measure(lambda: naive_solve(four_stage_doc(False)), 3)
     report("solve 4-stage real gas" + (" moist" if humid else " (dry: moist n/a)"), ours, naive,
            "naive ref is dry")
     # the lean solve of studies, sweeps and the shaft-power iteration (no reporting-only work)
-    report("  the same, detail=False (trial solve)", measure(lambda: thermo.solve(doc, detail=False), 50), naive)
+    report("  the same, detail=False (trial solve)", measure(lambda: stagewright.core.solve(doc, detail=False), 50), naive)
     # Editing in the window gives every solve new states: the caches of recent (T, p) (the exact
     # RP-1485 enhancement factor, condensed-water properties) then miss. A new ambient each run:
     report("  the same, a new ambient every solve", measure(_fresh(doc, True), 50), naive)
@@ -131,22 +131,22 @@ def _fresh(doc: dict, detail: bool):
         count[0] += 1
         d = dict(doc, site=dict(doc["site"], ambient_temperature_K=doc["site"]["ambient_temperature_K"]
                                 + 0.0137 * count[0]))
-        return thermo.solve(d, detail=detail)
+        return stagewright.core.solve(d, detail=detail)
     return run
 
 
 def case_shaft_power():
     doc = four_stage_doc(_humid_supported())
-    power = thermo.solve(doc).shaft_power_W
+    power = stagewright.core.solve(doc).shaft_power_W
     doc["flow"] = {"kind": "shaft_power", "value": power}
-    report("solve 4-stage, flow from shaft power", measure(lambda: thermo.solve(doc), 20))
+    report("solve 4-stage, flow from shaft power", measure(lambda: stagewright.core.solve(doc), 20))
 
 
 def case_study():
     try:
-        from thermo.study import compare_stagings
+        from stagewright.core.study import compare_stagings
     except ImportError:
-        print(f"{'staging comparison 1…6':<44}  (thermo.study not available)")
+        print(f"{'staging comparison 1…6':<44}  (stagewright.core.study not available)")
         return
     doc = four_stage_doc(_humid_supported())
     report("staging comparison 1…6 stages", measure(lambda: compare_stagings(doc, max_stages=6), 5))
@@ -155,13 +155,13 @@ def case_study():
 
 def case_first_coolant():
     """A fresh process's first solve with a water coolant, cold and after the window's warm-up."""
-    code = ("import json, time, thermo\n"
-            "from thermo.exchanger import coolant\n"
+    code = ("import json, time, stagewright.core\n"
+            "from stagewright.core.exchanger import coolant\n"
             "doc = json.load(open('sample_projects/two_stage_plant_air.json'))\n"
             "for s in doc['stages']: s['cooler']['coolant'] = {'kind': 'water', 'temperature_rise_K': 8.0}\n"
-            "thermo.solve(json.load(open('sample_projects/two_stage_plant_air.json')))\n"
+            "stagewright.core.solve(json.load(open('sample_projects/two_stage_plant_air.json')))\n"
             "WARM\n"
-            "t = time.perf_counter(); thermo.solve(doc); print(time.perf_counter() - t)\n")
+            "t = time.perf_counter(); stagewright.core.solve(doc); print(time.perf_counter() - t)\n")
     for label, warm in (("cold", "pass"), ("after warm_up()", "getattr(coolant, 'warm_up', lambda: None)()")):
         def run():
             out = subprocess.run([sys.executable, "-c", code.replace("WARM", warm)], cwd=ROOT, check=True,
@@ -174,9 +174,9 @@ def case_first_coolant():
 
 def case_sweep():
     try:
-        from thermo.sweep import sweep
+        from stagewright.core.sweep import sweep
     except ImportError:
-        print(f"{'sweep 10 000 points':<44}  (thermo.sweep not available)")
+        print(f"{'sweep 10 000 points':<44}  (stagewright.core.sweep not available)")
         return
     doc = json.loads((ROOT / "sample_projects" / "two_stage_plant_air.json").read_text())
     import numpy as np
@@ -191,7 +191,7 @@ def case_sweep():
 
 
 def case_year():
-    from thermo.year import run_year
+    from stagewright.core.year import run_year
     doc = json.loads((ROOT / "sample_projects" / "three_stage_site_year.json").read_text())
     profile = doc["year"]["profile"]
     report(f"year at site ({len(profile.get('months') or profile.get('bins') or [])} bins)",
@@ -221,11 +221,11 @@ def hourly_profile(hours: int = 8760) -> list:
 
 def case_year_hourly():
     """A year of 8760 hourly bins (three-stage sample, fixed coolers rated every hour): CPU and wall."""
-    from thermo.year import run_year
+    from stagewright.core.year import run_year
     doc = json.loads((ROOT / "sample_projects" / "three_stage_site_year.json").read_text())
     doc["year"] = {"profile": {"kind": "bins", "bins": hourly_profile()},
                    "coolers": {"mode": "design_once", "design_condition": "hottest_bin"}}
-    from thermo.year_profile import bin_profile
+    from stagewright.core.year_profile import bin_profile
     binned = dict(doc, year={**doc["year"], "profile": {"kind": "bins", "bins": bin_profile(hourly_profile())}})
     n_binned = len(binned["year"]["profile"]["bins"])
     report(f"year 8760 h binned (1 K × 5 %: {n_binned} bins), design once",
@@ -239,7 +239,7 @@ def case_year_hourly():
 
 
 def case_files():
-    from thermo.project import load, save
+    from stagewright.core.project import load, save
     path = SAMPLES[0]
     doc = load(path)
     report("project load", measure(lambda: load(path), 50))
@@ -257,7 +257,7 @@ def case_startup():
         shot = str(Path(tmp) / "s.png")
 
         def run():
-            subprocess.run([sys.executable, "-m", "app.entry", "--screenshot", shot], cwd=ROOT, env=env,
+            subprocess.run([sys.executable, "-m", "stagewright.gui.entry", "--screenshot", shot], cwd=ROOT, env=env,
                            check=True, capture_output=True)
         ours = measure(run, 5)
     peak = resource.getrusage(resource.RUSAGE_CHILDREN).ru_maxrss / 1024.0
@@ -281,11 +281,11 @@ def case_report():
     """Chart drawing (Agg, as the window redraws after a solve) and the PDF + CSV report."""
     from matplotlib.backends.backend_agg import FigureCanvasAgg
     from matplotlib.figure import Figure
-    from thermo.project import load
-    from app.charts import draw_power_split, draw_ts_chart
-    from app.report import export_report
+    from stagewright.core.project import load
+    from stagewright.gui.charts import draw_power_split, draw_ts_chart
+    from stagewright.gui.report import export_report
     doc = load(SAMPLES[0])
-    result = thermo.solve(doc).to_dict()
+    result = stagewright.core.solve(doc).to_dict()
     fig = Figure(figsize=(7, 4.5), dpi=100)
     FigureCanvasAgg(fig)
 
@@ -316,9 +316,9 @@ def case_field_check_monte_carlo():
     """Field-check uncertainty (thermo/uncertainty): first order, and 10 000 Monte Carlo draws
     through the lean solve on the fast property path (the issue 21 target is <= 2 s)."""
     try:
-        from thermo.uncertainty.field_check import field_check_uncertainty
+        from stagewright.core.uncertainty.field_check import field_check_uncertainty
     except ImportError:
-        print(f"{'field check Monte Carlo':<44}  (thermo.uncertainty not available)")
+        print(f"{'field check Monte Carlo':<44}  (stagewright.core.uncertainty not available)")
         return
     doc = json.loads((ROOT / "sample_projects" / "field_check_two_stage.json").read_text())
     report("field check first order (11 inputs)",
@@ -335,7 +335,7 @@ CASES.append(case_field_check_monte_carlo)
 
 def main(argv: list[str]) -> None:
     print(f"Stagewright bench — {time.strftime('%Y-%m-%d')} — Python {platform.python_version()}, "
-          f"{platform.machine()}, {os.cpu_count()} cores, CoolProp {thermo.coolprop_adapter.coolprop_version()}")
+          f"{platform.machine()}, {os.cpu_count()} cores, CoolProp {stagewright.core.coolprop_adapter.coolprop_version()}")
     print(f"{'case':<44}{'median':>12}  [min … max]  naive/ours")
     wanted = argv[1:] if len(argv) > 1 else None
     for case in CASES:

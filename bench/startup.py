@@ -29,10 +29,10 @@ def child() -> int:
     from PySide6.QtCore import QEventLoop, QSettings, QTimer
     from PySide6.QtWidgets import QApplication
 
-    from app.window.launch import DEMO_PROJECT
-    from app.window.main_window import MainWindow
-    from app.window.style import apply_style
-    from thermo.project import load
+    from stagewright.gui.window.launch import DEMO_PROJECT
+    from stagewright.gui.window.main_window import MainWindow
+    from stagewright.gui.window.style import apply_style
+    from stagewright.core.project import load
 
     app = QApplication(sys.argv[:1])
     apply_style(app)

@@ -20,8 +20,8 @@ import statistics  # noqa: E402
 import time  # noqa: E402
 from pathlib import Path  # noqa: E402
 
-import thermo  # noqa: E402
-from thermo.study import compare_stagings, optimal_split  # noqa: E402
+import stagewright.core  # noqa: E402
+from stagewright.core.study import compare_stagings, optimal_split  # noqa: E402
 
 SAMPLE = Path(__file__).resolve().parent.parent / "sample_projects" / "two_stage_plant_air.json"
 
@@ -83,7 +83,7 @@ def main() -> None:
         for s in doc["stages"]:
             s["pressure_ratio"] = 9.5 ** (1 / n)
         for detail in (False, True):
-            med, lo, _ = timed(lambda: thermo.solve(doc, detail=detail), args.repeats * 5)
+            med, lo, _ = timed(lambda: stagewright.core.solve(doc, detail=detail), args.repeats * 5)
             what = "full" if detail else "trial (detail=False)"
             print(f"{f'one {what} solve, {n} stages, real_gas':<46}{med * 1e3:8.2f}ms{lo * 1e3:8.2f}ms")
 

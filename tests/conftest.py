@@ -48,7 +48,7 @@ def sample_reports(tmp_path_factory):
 
     Returns ``{sample path: (pdf path, csv path)}``.
     """
-    from app.cli.main import main
+    from stagewright.gui.cli.main import main
 
     out = {}
     for path in sorted(SAMPLES.glob("*.json")):

@@ -22,7 +22,7 @@ def main(spec_json: str) -> None:
     from PySide6.QtCore import QSettings
     from PySide6.QtWidgets import QApplication
 
-    from app.window.main_window import MainWindow
+    from stagewright.gui.window.main_window import MainWindow
     from tests.gui_support import simple_real_gas_doc
 
     app = QApplication.instance() or QApplication([])

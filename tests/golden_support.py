@@ -66,7 +66,7 @@ def write_report(sample: Path, folder: Path) -> tuple[Path, Path]:
     """Write the sample's PDF and CSV report into ``folder`` as the golden files are made."""
     if str(HERE.parent) not in sys.path:
         sys.path.insert(0, str(HERE.parent))
-    from app.cli.main import main
+    from stagewright.gui.cli.main import main
 
     pdf, csv_path = folder / f"{sample.stem}.pdf", folder / f"{sample.stem}.csv"
     status = main(["report", str(sample), "-o", str(pdf), "--csv", str(csv_path), "--prepared-by", PREPARED_BY])

@@ -29,7 +29,7 @@ def simple_real_gas_doc(stages: int = 2, eta: float = 0.8) -> dict:
 def make_window(qtbot, tmp_path, doc=None, autosave_ms=None):
     from PySide6.QtCore import QSettings
 
-    from app.window.main_window import MainWindow
+    from stagewright.gui.window.main_window import MainWindow
     settings = QSettings(str(tmp_path / "settings.ini"), QSettings.IniFormat)
     win = MainWindow(doc if doc is not None else json.loads(SAMPLE.read_text(encoding="utf-8")),
                      settings=settings, debounce_ms=10, restore_layout=False, autosave_ms=autosave_ms)

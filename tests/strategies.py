@@ -1,6 +1,6 @@
 """Hypothesis strategies that build project documents from the schema itself.
 
-Because they are derived from ``thermo.project.schema.PROJECT``, a key added to the schema is
+Because they are derived from ``stagewright.core.project.schema.PROJECT``, a key added to the schema is
 exercised by the round-trip and fuzz tests without touching this file.
 """
 from __future__ import annotations
@@ -9,10 +9,10 @@ import math
 
 from hypothesis import strategies as st
 
-from thermo.atmosphere import standard_pressure
-from thermo.project.validation import problems
-from thermo.project.schema import PROJECT
-from thermo.project.schema_types import Changes, Choice, Items, Num, Obj, Raw, Text, Variant
+from stagewright.core.atmosphere import standard_pressure
+from stagewright.core.project.validation import problems
+from stagewright.core.project.schema import PROJECT
+from stagewright.core.project.schema_types import Changes, Choice, Items, Num, Obj, Raw, Text, Variant
 
 
 def _num(node: Num):

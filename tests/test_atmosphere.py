@@ -1,8 +1,8 @@
 """ISO 2533 standard atmosphere: published table values."""
 import pytest
 
-from thermo.atmosphere import standard_elevation, standard_pressure
-from thermo.errors import InputError
+from stagewright.core.atmosphere import standard_elevation, standard_pressure
+from stagewright.core.errors import InputError
 
 
 @pytest.mark.parametrize("z, p", [(0.0, 101_325.0), (500.0, 95_461.0), (1000.0, 89_875.0), (2000.0, 79_495.0)])

@@ -6,7 +6,7 @@ import pytest
 
 pytest.importorskip("PySide6")
 
-from app.panels.balance_panel import NEGATIVE_TIPS, TOTAL_TIPS  # noqa: E402
+from stagewright.gui.panels.balance_panel import NEGATIVE_TIPS, TOTAL_TIPS  # noqa: E402
 from gui_support import SAMPLE, make_window, simple_real_gas_doc, wait_solved  # noqa: E402
 
 pytestmark = pytest.mark.gui

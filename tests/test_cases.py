@@ -12,15 +12,15 @@ import json
 
 import pytest
 
-import thermo
+import stagewright.core
 from conftest import SAMPLES, make_doc
-from thermo.cases import compare_cases
-from thermo.errors import InputError
-from thermo.project import load, save
-from thermo.project.case_changes import apply_changes, base_document, differences
-from thermo.project.cases import (add_case, case_document, case_names, duplicate_case, make_base, remove_case,
+from stagewright.core.cases import compare_cases
+from stagewright.core.errors import InputError
+from stagewright.core.project import load, save
+from stagewright.core.project.case_changes import apply_changes, base_document, differences
+from stagewright.core.project.cases import (add_case, case_document, case_names, duplicate_case, make_base, remove_case,
                                   rename_case, unique_name)
-from thermo.project.validation import problems
+from stagewright.core.project.validation import problems
 
 SAMPLE_FILES = sorted(SAMPLES.glob("*.json"))
 
@@ -56,18 +56,18 @@ def test_a_case_solves_exactly_as_the_same_project_saved_on_its_own(path, tmp_pa
         alone = load(file)
         assert "cases" not in alone and "snapshot" not in alone
         if o.result is None:  # a case may be refused (e.g. too hot); then alone it is refused the same way
-            with pytest.raises(thermo.StagewrightError) as err:
-                thermo.solve(alone)
+            with pytest.raises(stagewright.core.StagewrightError) as err:
+                stagewright.core.solve(alone)
             assert str(err.value) == o.error
             continue
-        assert thermo.solve(alone).to_dict() == o.result  # exactly, not approximately
+        assert stagewright.core.solve(alone).to_dict() == o.result  # exactly, not approximately
 
 
 def test_the_base_case_is_the_project_without_its_cases():
     doc = _with_cases(SAMPLE_FILES[0])
     base, = compare_cases(doc, ["Base"], with_year=False)
     plain = {k: v for k, v in doc.items() if k not in ("cases", "base_name")}
-    assert base.result == thermo.solve(plain).to_dict()
+    assert base.result == stagewright.core.solve(plain).to_dict()
 
 
 @pytest.mark.parametrize("a, b", list(itertools.permutations(SAMPLE_FILES, 2)),

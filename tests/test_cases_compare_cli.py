@@ -12,12 +12,12 @@ import json
 
 import pytest
 
-from app.cli.main import main
+from stagewright.gui.cli.main import main
 from conftest import SAMPLES
-from thermo.cases import compare_snapshot, take_snapshot
-from thermo.cases.snapshot import change_summary
-from thermo.project import load, save
-from thermo.project.cases import add_case, case_document
+from stagewright.core.cases import compare_snapshot, take_snapshot
+from stagewright.core.cases.snapshot import change_summary
+from stagewright.core.project import load, save
+from stagewright.core.project.cases import add_case, case_document
 
 PLANT = SAMPLES / "two_stage_plant_air.json"
 

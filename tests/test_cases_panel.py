@@ -2,7 +2,7 @@
 
 Each edit to a case is one undo step and goes into that case only; rename, new, remove and make
 base are each one undo step; a comparison runs off the GUI thread and its figures equal the
-core's for each case's standalone document (the reference here is ``thermo.solve`` of that
+core's for each case's standalone document (the reference here is ``stagewright.core.solve`` of that
 document).
 """
 from __future__ import annotations
@@ -14,10 +14,10 @@ import pytest
 pytest.importorskip("pytestqt")
 pytestmark = pytest.mark.gui
 
-import thermo  # noqa: E402
+import stagewright.core  # noqa: E402
 from gui_support import make_window, simple_real_gas_doc, wait_solved  # noqa: E402
-from thermo.project import load  # noqa: E402
-from thermo.project.cases import add_case, case_document, case_names  # noqa: E402
+from stagewright.core.project import load  # noqa: E402
+from stagewright.core.project.cases import add_case, case_document, case_names  # noqa: E402
 
 
 def _two_case_doc():
@@ -40,7 +40,7 @@ def test_choosing_a_case_shows_it_and_edits_go_into_it_only(qtbot, tmp_path):
     wait_solved(qtbot, win, after)
     assert win.model.active_case == "Cool day" and win.model.get("site.ambient_temperature_K") == 283.15
     assert "case “Cool day”" in win.windowTitle()  # which option is on screen
-    cool = thermo.solve(case_document(_two_case_doc(), "Cool day")).to_dict()
+    cool = stagewright.core.solve(case_document(_two_case_doc(), "Cool day")).to_dict()
     assert win.editor.result["driver_power_W"] == cool["driver_power_W"]
     after = win.editor.solved_jobs
     win.editor.set_value("stages[0].efficiency.value", 0.75)
@@ -95,7 +95,7 @@ def test_compare_runs_off_the_gui_thread_and_equals_each_case_alone(qtbot, tmp_p
         assert not panel.compare_button.isEnabled() and panel.cancel_button.isEnabled()
     assert [o.name for o in panel.outcomes] == ["Base", "Cool day"]
     for o in panel.outcomes:
-        assert o.result["driver_power_W"] == thermo.solve(case_document(doc, o.name)).to_dict()["driver_power_W"]
+        assert o.result["driver_power_W"] == stagewright.core.solve(case_document(doc, o.name)).to_dict()["driver_power_W"]
     headers = [panel.table.verticalHeaderItem(r).text() for r in range(panel.table.rowCount())]
     power_row = headers.index("Driver input power [kW]")
     cool_cell = panel.table.item(power_row, 1).text()
@@ -131,7 +131,7 @@ def test_kept_results_show_at_once_and_the_new_solve_checks_them(qtbot, tmp_path
     win.close()
     from PySide6.QtCore import QSettings
 
-    from app.window.main_window import MainWindow
+    from stagewright.gui.window.main_window import MainWindow
     checks = []
     again = MainWindow(saved, settings=QSettings(str(tmp_path / "s2.ini"), QSettings.IniFormat), debounce_ms=10,
                        restore_layout=False)

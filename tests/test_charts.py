@@ -19,12 +19,12 @@ from CoolProp.CoolProp import PropsSI
 from matplotlib.backends.backend_agg import FigureCanvasAgg
 from matplotlib.figure import Figure
 
-from app.charts import draw_power_split, draw_staging_chart, draw_ts_chart
-from app.charts.power_split import exergy_items, heat_items
-from app.charts.ts_chart import isobar_pressures, stage_limits
+from stagewright.gui.charts import draw_power_split, draw_staging_chart, draw_ts_chart
+from stagewright.gui.charts.power_split import exergy_items, heat_items
+from stagewright.gui.charts.ts_chart import isobar_pressures, stage_limits
 from conftest import SAMPLES, make_doc
-from thermo import solve
-from thermo.project import load
+from stagewright.core import solve
+from stagewright.core.project import load
 
 
 def _fig():
@@ -293,7 +293,7 @@ def test_staging_chart_marks_infeasible_arrangements():
 
 
 def test_charts_import_neither_qt_nor_pyplot():
-    code = ("import sys, app.charts; bad = [m for m in sys.modules if m.startswith(('PySide6', 'PyQt'))"
+    code = ("import sys, stagewright.gui.charts; bad = [m for m in sys.modules if m.startswith(('PySide6', 'PyQt'))"
             " or m == 'matplotlib.pyplot' or 'backend_qt' in m]; print(json.dumps(bad))")
     out = subprocess.run([sys.executable, "-c", "import json; " + code], capture_output=True, text=True,
                          check=True)

@@ -5,7 +5,7 @@ import sys
 
 import pytest
 
-from app.cli.main import main
+from stagewright.gui.cli.main import main
 from tests.conftest import ROOT, SAMPLES, make_doc
 
 
@@ -36,7 +36,7 @@ def test_bad_file_is_one_line_and_exit_2(tmp_path):
     bad["stages"][0]["efficiency"]["value"] = 1.5
     p = tmp_path / "bad.json"
     p.write_text(json.dumps(bad))
-    proc = subprocess.run([sys.executable, "-m", "app.entry", "solve", str(p)], cwd=ROOT,
+    proc = subprocess.run([sys.executable, "-m", "stagewright.gui.entry", "solve", str(p)], cwd=ROOT,
                           capture_output=True, text=True)
     assert proc.returncode == 2
     assert "Traceback" not in proc.stderr

@@ -7,11 +7,11 @@ import sys
 
 import pytest
 
-import thermo.errors
+import stagewright.core.errors
 
-from app.cli.main import main
+from stagewright.gui.cli.main import main
 from tests.conftest import ROOT, SAMPLES, make_doc
-from thermo.project.schema import FORMAT_VERSION, PROJECT
+from stagewright.core.project.schema import FORMAT_VERSION, PROJECT
 
 
 def _write(path, doc):
@@ -79,7 +79,7 @@ def test_garbage_never_gives_a_traceback(tmp_path):
     for i, content in enumerate(garbage):
         paths.append(tmp_path / f"garbage{i}.json")
         paths[-1].write_bytes(content)
-    proc = subprocess.run([sys.executable, "-m", "app.entry", "check", *map(str, paths)], cwd=ROOT,
+    proc = subprocess.run([sys.executable, "-m", "stagewright.gui.entry", "check", *map(str, paths)], cwd=ROOT,
                           capture_output=True, text=True)
     assert proc.returncode == 2
     assert "Traceback" not in proc.stdout + proc.stderr and proc.stderr == ""
@@ -95,8 +95,8 @@ def test_garbage_never_gives_a_traceback(tmp_path):
 ], ids=["value", "key", "format", "list"])
 def test_messages_cut_an_echoed_value_to_a_readable_length(tmp_path, capsys, change):
     # issue 22 item 8: the whole value was echoed (a 3 MB line, a dialog half a million pixels tall)
-    from app.document.field_specs import problem_message
-    from thermo.project import load_with_problems
+    from stagewright.gui.document.field_specs import problem_message
+    from stagewright.core.project import load_with_problems
 
     doc = json.loads((SAMPLES / "two_stage_plant_air.json").read_text(encoding="utf-8"))
     change(doc)
@@ -107,7 +107,7 @@ def test_messages_cut_an_echoed_value_to_a_readable_length(tmp_path, capsys, cha
     assert lines and all(len(line) < 600 for line in lines), max(map(len, lines))
     try:
         _, found = load_with_problems(path)
-    except thermo.errors.ProjectFileError as exc:
+    except stagewright.core.errors.ProjectFileError as exc:
         assert len(str(exc)) < 400
     else:
         assert found and all(len(problem_message(p, doc)) < 600 for p in found)

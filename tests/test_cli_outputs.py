@@ -8,7 +8,7 @@ import shutil
 
 import pytest
 
-from app.cli.main import main
+from stagewright.gui.cli.main import main
 from conftest import SAMPLES
 
 DEMO = SAMPLES / "two_stage_plant_air.json"

@@ -6,8 +6,8 @@ import json
 
 import pytest
 
-from app.cli.main import main
-from app.cli.terminal import escape_controls
+from stagewright.gui.cli.main import main
+from stagewright.gui.cli.terminal import escape_controls
 from conftest import SAMPLES
 
 DEMO = SAMPLES / "two_stage_plant_air.json"

@@ -1,7 +1,7 @@
 """``stagewright uncertainty``: tables, JSON, and a project without a field_check section."""
 import json
 
-from app.cli.main import main
+from stagewright.gui.cli.main import main
 from tests.conftest import SAMPLES, make_doc
 
 SAMPLE = str(SAMPLES / "field_check_two_stage.json")

@@ -7,9 +7,9 @@ pytest.importorskip("PySide6")
 
 from PySide6.QtGui import QUndoStack  # noqa: E402
 
-from app.window.commands import InsertStage, MoveStage, RemoveStage, SetValues  # noqa: E402
-from app.document.paths import ABSENT  # noqa: E402
-from app.document.model import ProjectModel  # noqa: E402
+from stagewright.gui.window.commands import InsertStage, MoveStage, RemoveStage, SetValues  # noqa: E402
+from stagewright.gui.document.paths import ABSENT  # noqa: E402
+from stagewright.gui.document.model import ProjectModel  # noqa: E402
 
 
 def test_every_command_undoes_to_the_identical_document(doc_factory):

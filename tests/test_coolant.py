@@ -2,8 +2,8 @@
 import CoolProp.CoolProp as CP
 import pytest
 
-from thermo.errors import InputError
-from thermo.exchanger.coolant import coolant_side, make_coolant
+from stagewright.core.errors import InputError
+from stagewright.core.exchanger.coolant import coolant_side, make_coolant
 
 SITE = (293.15, 101_325.0, 0.0)
 

@@ -5,9 +5,9 @@ import json
 import CoolProp.CoolProp as CP
 import pytest
 
-import thermo
+import stagewright.core
 from tests.conftest import SAMPLES, make_doc
-from thermo.errors import InputError
+from stagewright.core.errors import InputError
 
 
 def _sample():
@@ -16,12 +16,12 @@ def _sample():
 
 def _sized_and_rated(doc):
     """The train sized from its approaches, and again rated from the UA that sizing found."""
-    sized = thermo.solve(doc)
+    sized = stagewright.core.solve(doc)
     rated_doc = copy.deepcopy(doc)
     for st, c in zip(rated_doc["stages"], sized.coolers):
         del st["cooler"]["approach_K"]
         st["cooler"]["ua_W_K"] = c.exchanger.ua_W_K
-    return sized, thermo.solve(rated_doc)
+    return sized, stagewright.core.solve(rated_doc)
 
 
 def _with_coolant(doc, coolant, arrangement="counter_flow"):
@@ -33,8 +33,8 @@ def _with_coolant(doc, coolant, arrangement="counter_flow"):
 
 
 def test_without_new_keys_nothing_changes_but_the_none_fields():
-    plain = thermo.solve(_sample()).to_dict()
-    sized = thermo.solve(_with_coolant(_sample(), {"kind": "water", "temperature_rise_K": 8.0})).to_dict()
+    plain = stagewright.core.solve(_sample()).to_dict()
+    sized = stagewright.core.solve(_with_coolant(_sample(), {"kind": "water", "temperature_rise_K": 8.0})).to_dict()
     for a, b in zip(plain["stages"], sized["stages"]):
         assert a["cooler"]["duty_W"] == b["cooler"]["duty_W"]
         assert a["cooler"]["outlet"] == b["cooler"]["outlet"]
@@ -50,7 +50,7 @@ def test_coolant_energy_balance_matches_air_duty(model):
                         {"kind": "water", "flow_kg_s": 1.2})
     for st in doc["stages"]:
         st["cooler"]["coolant_inlet_temperature_K"] = 291.15
-    res = thermo.solve(doc)
+    res = stagewright.core.solve(doc)
     for c in res.coolers:
         side = c.exchanger.coolant
         dh = (CP.PropsSI("H", "T", side.outlet_temperature_K, "P", 3e5, "INCOMP::Water")
@@ -74,7 +74,7 @@ def test_air_cooled_defaults_to_site_ambient():
     doc = make_doc(model="ideal_gas", stages=1, p_out=8e5, T0=303.15)
     doc["stages"][0]["cooler"] = {"approach_K": 12.0, "coolant": {"kind": "air", "temperature_rise_K": 10.0},
                                   "arrangement": "cross_flow_unmixed"}
-    c = thermo.solve(doc).to_dict()["stages"][0]["cooler"]
+    c = stagewright.core.solve(doc).to_dict()["stages"][0]["cooler"]
     assert c["outlet"]["temperature_K"] == pytest.approx(315.15)
     assert c["coolant_inlet_temperature_K"] == pytest.approx(303.15)
     assert c["coolant_outlet_temperature_K"] == pytest.approx(313.15)
@@ -84,22 +84,22 @@ def test_air_cooled_defaults_to_site_ambient():
 def test_bad_cooler_inputs_name_field_and_limit():
     doc = _with_coolant(_sample(), {"kind": "water", "flow_kg_s": 0.05})
     with pytest.raises(InputError, match=r"stages\[0\]\.cooler\.coolant\.flow_kg_s.*at least"):
-        thermo.solve(doc)
+        stagewright.core.solve(doc)
     doc = _with_coolant(_sample(), {"kind": "water", "flow_kg_s": 1.0})
     doc["stages"][0]["cooler"]["approach_K"] = 0.0
     with pytest.raises(InputError, match=r"stages\[0\]\.cooler\.approach_K.*above 0 K"):
-        thermo.solve(doc)
+        stagewright.core.solve(doc)
     doc = _sample()
     del doc["stages"][0]["cooler"]["approach_K"]
     doc["stages"][0]["cooler"]["ua_W_K"] = 1000.0
     with pytest.raises(InputError, match=r"stages\[0\]\.cooler\.coolant.*required"):
-        thermo.solve(doc)
+        stagewright.core.solve(doc)
     doc["stages"][0]["cooler"]["approach_K"] = 5.0
     with pytest.raises(InputError, match="exactly one of outlet_temperature_K, approach_K, ua_W_K"):
-        thermo.solve(doc)
+        stagewright.core.solve(doc)
     doc = _with_coolant(_sample(), {"kind": "glycol", "flow_kg_s": 1.0})
     with pytest.raises(InputError, match="glycol_fraction"):
-        thermo.solve(doc)
+        stagewright.core.solve(doc)
 
 
 # ---- condensing coolers in the train: dry and wet zones -----------------------------------------
@@ -112,7 +112,7 @@ def _humid_with_coolant(rh=0.65, flow=2.0, arrangement="counter_flow"):
 
 
 def test_condensing_cooler_is_split_at_the_dew_point_of_hapropssi():
-    res = thermo.solve(_humid_with_coolant())
+    res = stagewright.core.solve(_humid_with_coolant())
     for c in res.coolers:
         assert c.water.condensate_kg_s > 0.0
         assert [z.kind for z in c.exchanger.zones] == ["dry", "wet"]
@@ -131,7 +131,7 @@ def test_condensing_cooler_is_split_at_the_dew_point_of_hapropssi():
 def test_condensing_coolant_balance_includes_latent_heat():
     # coolant enthalpy rise from CoolProp PropsSI (INCOMP::Water), a different call path from the
     # AbstractState the core uses, equals the air-side duty including the latent part to 1e-6
-    res = thermo.solve(_humid_with_coolant())
+    res = stagewright.core.solve(_humid_with_coolant())
     for c, st in zip(res.coolers, _sample()["stages"]):
         side = c.exchanger.coolant
         t_ci = st["cooler"]["coolant_inlet_temperature_K"]
@@ -151,7 +151,7 @@ def test_condensing_wet_zone_matches_direct_integration_with_hapropssi():
     # (Braun, Klein & Mitchell 1989): agreement to 1 % (common practice, no source).
     from scipy.integrate import quad
     from scipy.optimize import brentq
-    res = thermo.solve(_humid_with_coolant())
+    res = stagewright.core.solve(_humid_with_coolant())
     c = res.coolers[1]
     P, W, m, T_in = c.outlet.P, c.inlet.w, res.mass_flow_kg_s, c.inlet.T
     t_dew = CP.HAPropsSI("D", "T", T_in, "P", P, "W", W)
@@ -194,8 +194,8 @@ def test_condensing_train_rating_from_ua_inverts_sizing(arrangement):
 def test_condensing_ua_is_larger_than_a_dry_only_estimate():
     # the wet zone's enthalpy driving force needs more area than one mean-cp LMTD would claim for the
     # same duty (ASHRAE Handbook, HVAC Systems and Equipment, "Coils": dry and wet zones, from memory)
-    from thermo.exchanger import HotSide, make_coolant, size_exchanger
-    res = thermo.solve(_humid_with_coolant())
+    from stagewright.core.exchanger import HotSide, make_coolant, size_exchanger
+    res = stagewright.core.solve(_humid_with_coolant())
     c = res.coolers[1]
     fluid = make_coolant({"kind": "water"}, (298.15, 101325.0, 0.0))
     t_ci = _sample()["stages"][1]["cooler"]["coolant_inlet_temperature_K"]

@@ -34,7 +34,7 @@ def test_8_bar_gauge_is_held_when_the_elevation_changes(qtbot, tmp_path):
 
 
 def ABSENT_ABS(ed) -> bool:
-    from app.document.paths import ABSENT
+    from stagewright.gui.document.paths import ABSENT
     return ed.model.get(ABSOLUTE) is ABSENT
 
 
@@ -63,15 +63,15 @@ def test_typing_writes_the_key_of_the_basis_shown_as_one_undo_step(qtbot, tmp_pa
 
 
 def test_a_new_project_states_its_delivery_pressure_gauge():
-    from app.document.model import new_document
-    from thermo.project.validation import problems
+    from stagewright.gui.document.model import new_document
+    from stagewright.core.project.validation import problems
     doc = new_document()
     assert doc[GAUGE] == 700_000.0 and ABSOLUTE not in doc and problems(doc) == []
 
 
 def test_the_flow_row_is_named_for_what_it_holds_and_normal_volume_names_its_state(qtbot, tmp_path):
     """Issue 14, item 10: a shaft power is labelled Shaft power (not Flow); normal volume reads
-    Nm³/min or scfm with the reference state it refers to (thermo.flow: DIN 1343, 0 °C, 101 325 Pa)."""
+    Nm³/min or scfm with the reference state it refers to (stagewright.core.flow: DIN 1343, 0 °C, 101 325 Pa)."""
     doc = simple_real_gas_doc()
     doc["flow"] = {"kind": "shaft_power", "value": 200_000.0}
     win = make_window(qtbot, tmp_path, doc)
@@ -87,7 +87,7 @@ def test_the_flow_row_is_named_for_what_it_holds_and_normal_volume_names_its_sta
     assert duty.flow.text() == "2119"  # shown to four significant digits; the tooltip has them all
     assert float(duty.flow.edit.toolTip().split()[0]) == pytest.approx(60.0 / 0.3048 ** 3, rel=1e-6)  # 1 ft = 0.3048 m (exact)
     bal = win.panels["balance"]
-    from app.panels.balance_panel import TOTALS
+    from stagewright.gui.panels.balance_panel import TOTALS
     row = [f.key for f in TOTALS].index("normal_volume_flow_m3_s")
     wait_solved(qtbot, win, 0)
     assert bal.totals.item(row, 1).text().endswith("scfm") and "DIN 1343" in bal.totals.item(row, 0).toolTip()

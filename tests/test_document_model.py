@@ -3,9 +3,9 @@ from __future__ import annotations
 
 import copy
 
-from app.document.paths import ABSENT
-from app.document.model import ProjectModel, Signal, new_document
-from thermo.project.validation import problems
+from stagewright.gui.document.paths import ABSENT
+from stagewright.gui.document.model import ProjectModel, Signal, new_document
+from stagewright.core.project.validation import problems
 
 
 def test_signal_connect_emit_disconnect():

@@ -1,7 +1,7 @@
 """Window-side path helpers (reading, setting, removing, relating field paths)."""
 from __future__ import annotations
 
-from app.document.paths import ABSENT, get_in, is_related, set_in, stage_index
+from stagewright.gui.document.paths import ABSENT, get_in, is_related, set_in, stage_index
 
 
 def test_get_set_remove(doc_factory):

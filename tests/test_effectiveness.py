@@ -4,10 +4,10 @@ import math
 import ht
 import pytest
 
-from thermo.errors import InputError
-from thermo.exchanger.effectiveness import (ARRANGEMENTS, crossflow_unmixed_effectiveness, effectiveness,
+from stagewright.core.errors import InputError
+from stagewright.core.exchanger.effectiveness import (ARRANGEMENTS, crossflow_unmixed_effectiveness, effectiveness,
                                             max_effectiveness, ntu_from_effectiveness)
-from thermo.project.schema import ARRANGEMENT_NAMES
+from stagewright.core.project.schema import ARRANGEMENT_NAMES
 
 NTUS = [0.05, 0.4, 1.0, 2.5, 6.0]
 CRS = [0.0, 0.2, 0.55, 0.9, 1.0]
@@ -110,7 +110,7 @@ def test_crossflow_unmixed_series_matches_scipy_incomplete_gamma(ntu, cr):
     import math
     import numpy as np
     from scipy.special import gammainc
-    from thermo.exchanger.effectiveness import crossflow_unmixed_effectiveness
+    from stagewright.core.exchanger.effectiveness import crossflow_unmixed_effectiveness
     n_max = int(ntu + 12.0 * math.sqrt(ntu) + 40.0)
     k = np.arange(1, n_max + 1, dtype=float)
     ref = float(np.sum(gammainc(k, ntu) * gammainc(k, cr * ntu)) / (cr * ntu)) if cr >= 1e-10 else -math.expm1(-ntu)

@@ -15,7 +15,7 @@ pytest.importorskip("pytestqt")
 
 from gui_support import make_window, type_into, wait_solved  # noqa: E402
 
-from app.window.export_ops import PDF_AND_CSV, PDF_ONLY  # noqa: E402
+from stagewright.gui.window.export_ops import PDF_AND_CSV, PDF_ONLY  # noqa: E402
 
 pytestmark = pytest.mark.gui
 EXPORT_TIMEOUT_MS = 60_000

@@ -9,7 +9,7 @@ pytest.importorskip("pytestqt")
 
 from gui_support import make_window, simple_real_gas_doc  # noqa: E402
 
-from app.document.file_names import file_stem_for  # noqa: E402
+from stagewright.gui.document.file_names import file_stem_for  # noqa: E402
 
 pytestmark = pytest.mark.gui
 

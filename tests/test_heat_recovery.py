@@ -1,7 +1,7 @@
 """Heat recovery against the perfect-gas steady-flow energy balance."""
 import pytest
 
-import thermo
+import stagewright.core
 from tests.conftest import make_doc
 
 
@@ -14,7 +14,7 @@ def _doc(**rec):
 
 def test_cooler_heat_above_delivery_plus_approach_is_cp_delta_t():
     # perfect gas, steady flow (Çengel & Boles 2015, §5-4): Q = m cp (T_in − (T_d + ΔT_min))
-    res = thermo.solve(_doc())
+    res = stagewright.core.solve(_doc())
     t_in = res.coolers[0].inlet.T
     assert res.recovery.coolers_W[0] == pytest.approx(1.0 * 1005.0 * (t_in - 338.15), rel=1e-12)
     assert res.recovery.casings_W == [0.0]  # no casing share asked for
@@ -26,23 +26,23 @@ def test_cooler_heat_above_delivery_plus_approach_is_cp_delta_t():
 def test_casing_share_counts_only_above_the_source_temperature():
     doc = _doc(casing_share=0.5)
     doc["stages"][0]["heat_loss_boundary_temperature_K"] = 400.0
-    assert thermo.solve(doc).recovery.casings_W == [pytest.approx(1000.0)]
+    assert stagewright.core.solve(doc).recovery.casings_W == [pytest.approx(1000.0)]
     doc["stages"][0]["heat_loss_boundary_temperature_K"] = 330.0
-    assert thermo.solve(doc).recovery.casings_W == [0.0]
+    assert stagewright.core.solve(doc).recovery.casings_W == [0.0]
 
 
 def test_yearly_value_is_fuel_saved_times_price():
-    res = thermo.solve(_doc(fuel_price_per_kWh=0.08, boiler_efficiency=0.85, operating_hours_per_year=4000.0))
+    res = stagewright.core.solve(_doc(fuel_price_per_kWh=0.08, boiler_efficiency=0.85, operating_hours_per_year=4000.0))
     r = res.recovery
     assert r.value_per_year == pytest.approx(r.recoverable_heat_W * 4000.0 / 1000.0 / 0.85 * 0.08, rel=1e-12)
 
 
 def test_only_heat_above_the_source_temperature_counts():
-    res = thermo.solve(_doc(approach_K=90.0))  # source 423 K, discharge about 590 K: some left
+    res = stagewright.core.solve(_doc(approach_K=90.0))  # source 423 K, discharge about 590 K: some left
     assert res.recovery.recoverable_heat_W > 0.0
     doc = _doc(delivery_temperature_K=423.15, approach_K=100.0, casing_share=1.0)
     doc["stages"][0]["efficiency"]["value"] = 0.95  # discharge about 544 K: only its top ~20 K lies above 523 K
-    res = thermo.solve(doc)
+    res = stagewright.core.solve(doc)
     t_in = res.coolers[0].inlet.T
     assert t_in < 523.15 + 50.0
     expected = 1005.0 * (t_in - 523.15) if t_in > 523.15 else 0.0
@@ -53,7 +53,7 @@ def test_only_heat_above_the_source_temperature_counts():
 def test_no_section_means_none_in_results():
     doc = _doc()
     del doc["heat_recovery"]
-    assert thermo.solve(doc).to_dict()["recoverable_heat_W"] is None
+    assert stagewright.core.solve(doc).to_dict()["recoverable_heat_W"] is None
 
 
 def _humid_doc(rh=0.8, delivery=313.15):
@@ -69,7 +69,7 @@ def test_moist_recovery_counts_the_latent_heat_above_the_source_temperature():
     # The source temperature lies below the stream's dew point, so part of it is latent heat.
     # 0.5 % covers the two moist-air formulations (tolerance common practice, no source).
     import CoolProp.CoolProp as CP
-    res = thermo.solve(_humid_doc())
+    res = stagewright.core.solve(_humid_doc())
     t_x = 318.15
     checked = 0
     for c, q in zip(res.coolers, res.recovery.coolers_W):
@@ -91,7 +91,7 @@ def test_moist_recovery_counts_the_latent_heat_above_the_source_temperature():
 
 def test_dry_intake_recovery_is_unchanged_by_the_stream_model():
     # zero humidity runs the dry code: the recovered heat is the dry-air model's enthalpy drop
-    res = thermo.solve(_humid_doc(rh=0.0))
+    res = stagewright.core.solve(_humid_doc(rh=0.0))
     c = res.coolers[0]
     h_x = c.stream_model.at_tp(318.15, c.outlet.P).h
     assert res.recovery.coolers_W[0] == pytest.approx(res.mass_flow_kg_s * (c.outlet.h + c.duty_W / res.mass_flow_kg_s - h_x), rel=1e-12)

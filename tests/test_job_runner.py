@@ -4,7 +4,7 @@ one-line messages naming field, value and range, a bug as "internal error", neve
 
 These tests check the runner's own contract (threads and signals), so no physical value is
 checked here: the out-of-range input comes from the project schema's own range
-(``thermo.project.schema``), not from a published source."""
+(``stagewright.core.project.schema``), not from a published source."""
 from __future__ import annotations
 
 import threading
@@ -15,7 +15,7 @@ pytest.importorskip("pytestqt")
 
 from PySide6.QtCore import Signal  # noqa: E402
 
-from app.jobs.job_runner import JobCancelled, JobRunner  # noqa: E402
+from stagewright.gui.jobs.job_runner import JobCancelled, JobRunner  # noqa: E402
 
 pytestmark = pytest.mark.gui
 
@@ -146,7 +146,7 @@ def test_forget_drops_the_running_job(qtbot, runner):
 
 
 def test_bad_input_fails_with_field_value_and_range(qtbot):
-    from thermo.project.validation import normalise
+    from stagewright.core.project.validation import normalise
 
     from conftest import make_doc
     doc = make_doc()
@@ -180,7 +180,7 @@ def test_a_bug_in_the_work_is_an_internal_error_message(qtbot, capfd):
 
 def test_shutdown_frees_the_thread_states_in_the_worker_thread(qtbot, monkeypatch):
     import importlib
-    solve_module = importlib.import_module("thermo.solve")  # thermo.solve is also the function
+    solve_module = importlib.import_module("stagewright.core.solve")  # stagewright.core.solve is also the function
     freed = []
     monkeypatch.setattr(solve_module, "release_thread_models", lambda: freed.append(threading.get_ident()))
     r = GatedRunner()
@@ -203,7 +203,7 @@ def test_a_job_outliving_the_shutdown_wait_does_not_abort_the_process(tmp_path):
         import sys, threading, time
         sys.path.insert(0, sys.argv[1])
         from PySide6.QtCore import QCoreApplication
-        from app.jobs.job_runner import JobRunner
+        from stagewright.gui.jobs.job_runner import JobRunner
         app = QCoreApplication([])
         started = threading.Event()
         def work(payload, report, cancel):

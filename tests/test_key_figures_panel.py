@@ -17,7 +17,7 @@ pytest.importorskip("pytestqt")
 from PySide6.QtCore import QPoint, QRect, QSize, Qt  # noqa: E402
 from PySide6.QtWidgets import QApplication, QLabel, QTableView  # noqa: E402
 
-from app.presentation import balance_tables as tables  # noqa: E402
+from stagewright.gui.presentation import balance_tables as tables  # noqa: E402
 from gui_support import SAMPLE, make_window, simple_real_gas_doc, type_into  # noqa: E402
 
 pytestmark = pytest.mark.gui
@@ -174,9 +174,9 @@ def test_key_figures_table_is_read_not_hard_coded():
 
 
 def _two_cooler_result() -> dict:
-    import thermo
-    from thermo.project import load
-    return thermo.solve(load(SAMPLE)).to_dict()
+    import stagewright.core
+    from stagewright.core.project import load
+    return stagewright.core.solve(load(SAMPLE)).to_dict()
 
 
 def test_the_strip_has_one_tile_per_window_figure_before_and_after_a_result(qtbot, tmp_path):
@@ -185,8 +185,8 @@ def test_the_strip_has_one_tile_per_window_figure_before_and_after_a_result(qtbo
     # overwrote each other and the orphaned tiles stayed on screen as blank boxes
     from PySide6.QtWidgets import QWidget
 
-    from app.panels.key_figures_panel import FigureTile
-    from app.presentation.figures import shown
+    from stagewright.gui.panels.key_figures_panel import FigureTile
+    from stagewright.gui.presentation.figures import shown
 
     win = make_window(qtbot, tmp_path)
     strip = win.panels["figures"]

@@ -4,9 +4,9 @@ import math
 import ht
 import pytest
 
-from thermo.errors import InputError
-from thermo.exchanger.effectiveness import effectiveness
-from thermo.exchanger.lmtd import correction_factor, counterflow_lmtd, log_mean
+from stagewright.core.errors import InputError
+from stagewright.core.exchanger.effectiveness import effectiveness
+from stagewright.core.exchanger.lmtd import correction_factor, counterflow_lmtd, log_mean
 
 
 @pytest.mark.parametrize("temps", [(420.0, 305.0, 295.0, 330.0), (380.0, 300.0, 290.0, 370.0),

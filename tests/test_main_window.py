@@ -11,7 +11,7 @@ pytest.importorskip("pytestqt")
 from CoolProp.CoolProp import PropsSI  # noqa: E402
 
 from gui_support import make_window, simple_real_gas_doc, type_into, wait_solved, window  # noqa: E402,F401
-from thermo.project import dumps  # noqa: E402
+from stagewright.core.project import dumps  # noqa: E402
 
 pytestmark = pytest.mark.gui
 
@@ -231,13 +231,13 @@ def test_closing_with_unsaved_changes_asks(qtbot, window, tmp_path):
 
 
 def test_every_action_handler_is_a_method_of_an_object_the_window_owns(window):
-    from app.window.actions import ACTIONS
+    from stagewright.gui.window.actions import ACTIONS
     for spec in ACTIONS:
         assert callable(window.handler(spec.handler)), spec.id
 
 
 def test_save_and_open_round_trip(qtbot, window, tmp_path):
-    from thermo.project import load
+    from stagewright.core.project import load
     out = tmp_path / "train.json"
     window.editor.set_value("title", "Saved train")
     assert window.files.save_to(out)
@@ -251,7 +251,7 @@ def test_save_and_open_round_trip(qtbot, window, tmp_path):
 
 
 def test_site_pressure_switches_between_barometric_and_elevation(qtbot, tmp_path):
-    from thermo.atmosphere import standard_pressure
+    from stagewright.core.atmosphere import standard_pressure
     win = make_window(qtbot, tmp_path, simple_real_gas_doc())
     ed, site = win.editor, win.panels["site"]
     site._choose_mode("elevation")
@@ -267,7 +267,7 @@ def test_site_pressure_switches_between_barometric_and_elevation(qtbot, tmp_path
 
 
 def test_warned_value_is_highlighted_in_the_balance(qtbot, window):
-    from app.panels.balance_panel import WARNING_BG
+    from stagewright.gui.panels.balance_panel import WARNING_BG
     bal = window.panels["balance"]
     n = window.editor.solved_jobs
     window.editor.set_value("stages[0].max_discharge_temperature_K", 400.0)
@@ -279,8 +279,8 @@ def test_warned_value_is_highlighted_in_the_balance(qtbot, window):
 
 
 def test_help_shows_the_cautions_and_the_deferral_to_local_codes(qtbot, window):
-    from app.presentation.cautions import CAUTIONS, DEFERRAL
-    from app.window.help_dialogs import CautionsDialog
+    from stagewright.gui.presentation.cautions import CAUTIONS, DEFERRAL
+    from stagewright.gui.window.help_dialogs import CautionsDialog
     dlg = CautionsDialog(window)
     text = dlg.browser.toPlainText()
     for title, body in CAUTIONS:
@@ -347,7 +347,7 @@ def test_staging_study_runs_off_the_gui_thread_and_is_shown_once_in_its_panel(qt
 def test_layout_and_display_choices_are_remembered(qtbot, tmp_path):
     from PySide6.QtCore import QSettings
 
-    from app.window.main_window import MainWindow
+    from stagewright.gui.window.main_window import MainWindow
     win = make_window(qtbot, tmp_path, simple_real_gas_doc())
     win.docks["messages"].hide()
     win.action_map["view.us_units"].trigger()
@@ -373,7 +373,7 @@ def test_layout_and_display_choices_are_remembered(qtbot, tmp_path):
 def test_moist_intake_shows_humidity_condensate_and_dew_point(qtbot, tmp_path):
     # humidity ratio and condensate equal the solver's own figures (the solver's moist-air
     # checks against IAPWS-IF97 and ASHRAE tables live in the core tests)
-    import thermo
+    import stagewright.core
     doc = simple_real_gas_doc(stages=2)
     doc["site"]["relative_humidity"] = 0.7
     for st in doc["stages"]:
@@ -381,7 +381,7 @@ def test_moist_intake_shows_humidity_condensate_and_dew_point(qtbot, tmp_path):
     doc["site"]["ambient_temperature_K"] = 298.15
     win = make_window(qtbot, tmp_path, doc)
     bal = win.panels["balance"]
-    expected = thermo.solve(doc).to_dict()
+    expected = stagewright.core.solve(doc).to_dict()
     assert not bal.points.isColumnHidden(7)
     w_shown = shown_number(bal.value_text("points", "intake", "w"))
     assert w_shown == pytest.approx(expected["intake"]["humidity_ratio"] * 1e3, abs=6e-4)
@@ -394,7 +394,7 @@ def test_moist_intake_shows_humidity_condensate_and_dew_point(qtbot, tmp_path):
 
 def test_dry_intake_hides_the_humidity_columns(qtbot, window):
     bal = window.panels["balance"]
-    from app.panels.balance_panel import POINT_COLUMNS
+    from stagewright.gui.panels.balance_panel import POINT_COLUMNS
     col = 1 + [c.id for c in POINT_COLUMNS].index("w")
     assert not bal.points.isColumnHidden(col)  # the demo's intake is humid
     ed = window.editor

@@ -70,7 +70,7 @@ def test_cancelling_the_question_keeps_the_work(qtbot, tmp_path, project_file):
 
 
 def test_only_one_local_json_file_is_taken(tmp_path, project_file):
-    from app.window.main_window import dropped_project
+    from stagewright.gui.window.main_window import dropped_project
     other = tmp_path / "notes.txt"
     other.write_text("x", encoding="utf-8")
     assert dropped_project(_mime(project_file)) == str(project_file)

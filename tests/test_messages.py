@@ -1,4 +1,4 @@
-"""Messages for people in the display units, with field names (app.document.messages).
+"""Messages for people in the display units, with field names (stagewright.gui.document.messages).
 
 Issue 14, items 7 and 8: errors and warnings spoke SI and key paths even in US units. The
 conversions checked here are the exact definitions (NIST SP 811, 2008 edition, Appendix B:
@@ -12,12 +12,12 @@ import json
 import pytest
 
 from conftest import SAMPLES, make_doc
-from thermo import InputError, SecondLawViolation, StagewrightError, solve
-from thermo.errors import PropertyRangeError
-from thermo.models.base import check_range
+from stagewright.core import InputError, SecondLawViolation, StagewrightError, solve
+from stagewright.core.errors import PropertyRangeError
+from stagewright.core.models.base import check_range
 
-from app.document.field_specs import describe
-from app.document.messages import error_text, format_quantity, limit_sentence, limit_short, warning_text
+from stagewright.gui.document.field_specs import describe
+from stagewright.gui.document.messages import error_text, format_quantity, limit_sentence, limit_short, warning_text
 
 
 def _f(kelvin: float) -> float:
@@ -116,7 +116,7 @@ def test_study_limits_name_the_limit_and_the_value():
 
 
 def test_a_failed_study_option_keeps_the_solve_error_in_display_units():
-    from thermo.study.optimal_split import _failure_detail
+    from stagewright.core.study.optimal_split import _failure_detail
     doc = _demo_one_stage(heat_loss_W=0.0)
     with pytest.raises(InputError) as info:
         solve(doc)
@@ -137,8 +137,8 @@ def test_values_as_typed_keep_their_decimals_and_others_get_four_figures():
 
 def test_a_discharge_pressure_below_the_intake_names_the_rule_not_the_schema_range():
     # it used to read "-7.44 psig is out of range (allowed: -7.44406 to 7237.19 psig)"
-    from thermo.project.validation import problems
-    from app.document.messages import problem_text
+    from stagewright.core.project.validation import problems
+    from stagewright.gui.document.messages import problem_text
     doc = _demo_one_stage()
     doc["discharge_pressure_Pa"] = 5e4
     [p] = problems(doc)

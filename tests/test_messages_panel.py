@@ -52,7 +52,7 @@ def test_a_hot_single_stage_is_solved_and_warned_about_in_us_units(qtbot, tmp_pa
 def test_a_discharge_beyond_the_humid_air_range_fails_in_plain_words(qtbot, tmp_path):
     from PySide6.QtCore import QSettings
 
-    from app.window.main_window import MainWindow
+    from stagewright.gui.window.main_window import MainWindow
     settings = QSettings(str(tmp_path / "settings.ini"), QSettings.IniFormat)
     win = MainWindow(_demo_one_stage(heat_loss_W=0.0), settings=settings, debounce_ms=10, restore_layout=False)
     win.ask_save_changes = lambda: "discard"
@@ -73,7 +73,7 @@ def test_a_discharge_beyond_the_humid_air_range_fails_in_plain_words(qtbot, tmp_
 
 
 def test_the_study_table_names_the_limit_and_the_value():
-    from app.study.display import limit_summary
+    from stagewright.gui.study.display import limit_summary
     b = {"field": "stages[0].max_discharge_temperature_K", "limit": 473.15, "value": 619.1859900091036,
          "closest_feasible": 619.1859900091036, "status": "violated", "message": "…"}
     row = {"binding_limits": [b]}

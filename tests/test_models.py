@@ -3,8 +3,8 @@ import math
 
 import pytest
 
-from thermo.errors import PropertyRangeError
-from thermo.models import ConstantCpAir, IdealGasAir, RealGasAir
+from stagewright.core.errors import PropertyRangeError
+from stagewright.core.models import ConstantCpAir, IdealGasAir, RealGasAir
 
 
 # Lemmon, Jacobsen, Penoncello, Friend, J. Phys. Chem. Ref. Data 29 (2000) 331, Table A2

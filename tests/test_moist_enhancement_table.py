@@ -10,9 +10,9 @@ import random
 
 import pytest
 
-from thermo import coolprop_adapter as cpa
-from thermo.moist.enhancement_table import T_FIRST, T_LAST, EnhancementTable
-from thermo.moist.saturation import saturation_pressure
+from stagewright.core import coolprop_adapter as cpa
+from stagewright.core.moist.enhancement_table import T_FIRST, T_LAST, EnhancementTable
+from stagewright.core.moist.saturation import saturation_pressure
 
 
 def _exact(T, p):

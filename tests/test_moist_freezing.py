@@ -11,13 +11,13 @@ import math
 import CoolProp.CoolProp as CP
 import pytest
 
-from thermo.models import make_model
-from thermo.moist.dew_point import dew_point
-from thermo.moist.mixture import make_mixture
-from thermo.moist.saturation import (liquid_vapour_pressure, saturation_pressure, sublimation_pressure,
+from stagewright.core.models import make_model
+from stagewright.core.moist.dew_point import dew_point
+from stagewright.core.moist.mixture import make_mixture
+from stagewright.core.moist.saturation import (liquid_vapour_pressure, saturation_pressure, sublimation_pressure,
                                      supercooled_vapour_pressure, vapour_pressure)
-from thermo.moist.stream import ice_supersaturation, intake_humidity_ratio
-from thermo.solve import solve
+from stagewright.core.moist.stream import ice_supersaturation, intake_humidity_ratio
+from stagewright.core.solve import solve
 
 P0 = 101325.0
 
@@ -138,7 +138,7 @@ def test_supersaturated_intake_warns_of_rime_and_keeps_water_balance():
 
 def test_year_with_a_frozen_month_runs():
     # the issue's reproduction: one month at −8 °C and 85 % RH stopped the whole year
-    from thermo.year import run_year
+    from stagewright.core.year import run_year
     doc = _cold_doc(T0=288.15, rh=0.6, approach=12.0)
     months = [{"temperature_K": 265.15 if i in (0, 1) else 283.15, "relative_humidity": 0.85 if i < 2 else 0.7}
               for i in range(12)]
@@ -158,8 +158,8 @@ def test_air_cooled_train_with_rime_at_the_intake_solves():
 
 def test_sweep_and_study_run_a_humid_intake_below_zero():
     # issue 15: single solves, years, studies and sweeps all take a humid intake down to 223.15 K
-    from thermo.study.compare import compare_stagings
-    from thermo.sweep import sweep
+    from stagewright.core.study.compare import compare_stagings
+    from stagewright.core.sweep import sweep
     r = sweep(_cold_doc(), {"site.ambient_temperature_K": [223.15, 248.15, 268.15, 283.15]}, processes=1)
     assert r.to_dict()["errors"] == {}
     doc = _cold_doc(T0=258.15, rh=0.8)

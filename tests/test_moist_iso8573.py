@@ -1,7 +1,7 @@
 """ISO 8573-1 water classes (table values from memory, see thermo/moist/iso8573.py)."""
 import pytest
 
-from thermo.moist.iso8573 import class_description, humidity_class
+from stagewright.core.moist.iso8573 import class_description, humidity_class
 
 
 @pytest.mark.parametrize("pdp_C, cls", [(-75.0, "1"), (-70.0, "1"), (-50.0, "2"), (-25.0, "3"), (3.0, "4"),

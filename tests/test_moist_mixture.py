@@ -2,8 +2,8 @@
 import CoolProp.CoolProp as CP
 import pytest
 
-from thermo.models import ConstantCpAir, IdealGasAir, RealGasAir
-from thermo.moist.mixture import make_mixture
+from stagewright.core.models import ConstantCpAir, IdealGasAir, RealGasAir
+from stagewright.core.moist.mixture import make_mixture
 
 REAL = make_mixture(RealGasAir())
 IDEAL = make_mixture(IdealGasAir())

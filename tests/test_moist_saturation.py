@@ -1,7 +1,7 @@
 """Saturation of water against the IAPWS verification tables."""
 import pytest
 
-from thermo.moist.saturation import (dew_point_from_vapour_pressure, saturation_pressure, saturation_temperature,
+from stagewright.core.moist.saturation import (dew_point_from_vapour_pressure, saturation_pressure, saturation_temperature,
                                sublimation_pressure, vapour_pressure)
 
 

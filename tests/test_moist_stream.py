@@ -2,10 +2,10 @@
 import CoolProp.CoolProp as CP
 import pytest
 
-from thermo.errors import InputError
-from thermo.moist.stream import MoistAir, humidity_of, intake_humidity_ratio
-from thermo.models import ConstantCpAir, IdealGasAir, RealGasAir
-from thermo.moist.mixture import make_mixture
+from stagewright.core.errors import InputError
+from stagewright.core.moist.stream import MoistAir, humidity_of, intake_humidity_ratio
+from stagewright.core.models import ConstantCpAir, IdealGasAir, RealGasAir
+from stagewright.core.moist.mixture import make_mixture
 
 MIXES = [make_mixture(RealGasAir()), make_mixture(IdealGasAir()), make_mixture(ConstantCpAir())]
 

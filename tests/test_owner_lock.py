@@ -13,8 +13,8 @@ import sys
 
 import pytest
 
-from app.document import owner_lock
-from app.document.owner_lock import OwnerLock, owner_alive, process_identity
+from stagewright.gui.document import owner_lock
+from stagewright.gui.document.owner_lock import OwnerLock, owner_alive, process_identity
 from tests.conftest import ROOT
 
 
@@ -47,7 +47,7 @@ def test_a_lock_file_replaced_while_locking_is_not_taken_for_the_current_one(tmp
 
 
 def test_the_lock_ends_with_its_process(tmp_path):
-    code = ("import sys; from app.document.owner_lock import OwnerLock; l = OwnerLock(sys.argv[1]); "
+    code = ("import sys; from stagewright.gui.document.owner_lock import OwnerLock; l = OwnerLock(sys.argv[1]); "
             "print(l.try_acquire(), flush=True); sys.stdin.readline()")
     proc = subprocess.Popen([sys.executable, "-c", code, str(tmp_path / "x.lock")], stdin=subprocess.PIPE,
                             stdout=subprocess.PIPE, text=True, cwd=ROOT)

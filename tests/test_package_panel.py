@@ -15,7 +15,7 @@ import pytest
 
 pytest.importorskip("PySide6")
 
-from app.presentation import package_table as pt  # noqa: E402
+from stagewright.gui.presentation import package_table as pt  # noqa: E402
 from gui_support import SAMPLE, make_window, type_into, wait_solved  # noqa: E402
 
 pytestmark = pytest.mark.gui
@@ -129,7 +129,7 @@ def test_out_of_range_package_value_is_named_in_the_messages(qtbot, tmp_path):
     panel = _show(win)
     field = panel.inputs.parameters["unloaded_power_fraction"][1]
     type_into(qtbot, field, "150")  # per cent: above 100 %
-    from app.document.messages import problem_text
+    from stagewright.gui.document.messages import problem_text
     (problem,) = [p for p in win.editor.problems if p.field == "package.control.unloaded_power_fraction"]
     text = problem_text(problem, win.model.doc, "SI")
     assert "Unloaded power" in text and "150" in text and "100 %" in text, text
@@ -138,7 +138,7 @@ def test_out_of_range_package_value_is_named_in_the_messages(qtbot, tmp_path):
 
 
 def test_data_sheet_is_computed_off_the_gui_thread_and_shown(qtbot, tmp_path):
-    from thermo.part_load.data_sheet import data_sheet
+    from stagewright.core.part_load.data_sheet import data_sheet
     win = make_window(qtbot, tmp_path)
     panel = win.panels["package"]
     with qtbot.waitSignal(panel.runner.finished, timeout=SHEET_MS):

@@ -1,4 +1,4 @@
-"""The package at part load (thermo.part_load): controls, motor, drive, auxiliaries, solve figures.
+"""The package at part load (stagewright.core.part_load): controls, motor, drive, auxiliaries, solve figures.
 
 External references: the generic motor part-load ratios of the Washington State Energy Office
 *Energy-Efficient Electric Motor Selection Handbook* (1993) and the PWM drive table both as the
@@ -18,13 +18,13 @@ from pathlib import Path
 import pytest
 from fluids.pump import VFD_efficiency, motor_efficiency_underloaded
 
-from thermo.project.validation import normalise
-from thermo.part_load.annual import annual_figures
-from thermo.part_load.drive import drive_input
-from thermo.part_load.full_load import FullLoad
-from thermo.part_load.motor import motor_input
-from thermo.part_load.package import package_point
-from thermo.solve import solve
+from stagewright.core.project.validation import normalise
+from stagewright.core.part_load.annual import annual_figures
+from stagewright.core.part_load.drive import drive_input
+from stagewright.core.part_load.full_load import FullLoad
+from stagewright.core.part_load.motor import motor_input
+from stagewright.core.part_load.package import package_point
+from stagewright.core.solve import solve
 
 SAMPLES = Path(__file__).resolve().parents[1] / "sample_projects"
 

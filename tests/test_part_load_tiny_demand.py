@@ -16,7 +16,7 @@ from pathlib import Path
 
 import pytest
 
-from thermo import StagewrightError, solve
+from stagewright.core import StagewrightError, solve
 
 SAMPLE = Path(__file__).resolve().parents[1] / "sample_projects" / "two_stage_plant_air.json"
 

@@ -45,7 +45,7 @@ def make_window_unsolved(qtbot, tmp_path, doc):
     """A window on a document with input problems (no solve to wait for)."""
     from PySide6.QtCore import QSettings
 
-    from app.window.main_window import MainWindow
+    from stagewright.gui.window.main_window import MainWindow
     settings = QSettings(str(tmp_path / "settings.ini"), QSettings.IniFormat)
     win = MainWindow(doc, settings=settings, debounce_ms=10, restore_layout=False)
     win.prompts.ask_save_changes = lambda _name: "discard"
@@ -62,7 +62,7 @@ def test_message_tooltips_show_markup_as_text(qtbot, tmp_path):
     doc["stages"][0]["efficiency"]["value"] = 1.5  # a problem on a stage named with markup
     doc[MARKUP] = 1                                # and an unknown key named with it
     win = make_window_unsolved(qtbot, tmp_path, doc)
-    from app.widgets.quantity_field import QuantityField
+    from stagewright.gui.widgets.quantity_field import QuantityField
 
     panel = win.panels["messages"]
     shown = [_as_rendered(panel.list.item(i).toolTip()) for i in range(panel.list.count())]
@@ -76,7 +76,7 @@ def test_message_tooltips_show_markup_as_text(qtbot, tmp_path):
 
 
 def test_plain_tip_keeps_every_character():
-    from app.widgets.plain_text import plain_tip
+    from stagewright.gui.widgets.plain_text import plain_tip
 
     text = "a < b & c > d\n  indented <i>not italic</i>"
     assert _as_rendered(plain_tip(text)) == text

@@ -8,8 +8,8 @@ from __future__ import annotations
 
 import pytest
 
-from app.presentation import units
-from app.presentation.figures import Figure, Look, condition_holds, has_path, read_path, shown, snake_case
+from stagewright.gui.presentation import units
+from stagewright.gui.presentation.figures import Figure, Look, condition_holds, has_path, read_path, shown, snake_case
 
 HP_W = 745.69987158
 

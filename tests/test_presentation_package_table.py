@@ -14,10 +14,10 @@ import json
 
 import pytest
 
-from app.cli.main import main
-from app.presentation import package_table as pt
+from stagewright.gui.cli.main import main
+from stagewright.gui.presentation import package_table as pt
 from conftest import SAMPLES
-from thermo.project import load
+from stagewright.core.project import load
 
 SAMPLE = SAMPLES / "two_stage_plant_air.json"
 HP = 745.69987158  # W (NIST SP 811)
@@ -95,7 +95,7 @@ def test_text_output_of_solve_has_the_package_rows(solved, capsys):
 
 @pytest.mark.parametrize("system", ["SI", "US"])
 def test_csv_package_rows_convert_back_to_the_solved_figures(solved, system):
-    from app.report.csv_export import csv_rows
+    from stagewright.gui.report.csv_export import csv_rows
     header, unit_row, *body = csv_rows(solved, system)
     rows = {r[1]: dict(zip(header, r)) for r in body if r[0] == "package"}
     assert list(rows) == ["Full load", "Stated load 70 %", "Part load 100 %", "Part load 75 %", "Part load 50 %"]
@@ -113,8 +113,8 @@ def test_csv_package_rows_convert_back_to_the_solved_figures(solved, system):
 
 
 def test_csv_of_a_project_without_package_keeps_its_columns():
-    from app.report.csv_export import COLUMNS, csv_rows
-    from thermo import solve
+    from stagewright.gui.report.csv_export import COLUMNS, csv_rows
+    from stagewright.core import solve
     doc = load(SAMPLE)
     del doc["package"]
     header = csv_rows(solve(doc).to_dict())[0]
@@ -122,7 +122,7 @@ def test_csv_of_a_project_without_package_keeps_its_columns():
 
 
 def test_sheet_rows_are_the_data_sheet_figures():
-    from thermo.part_load.data_sheet import data_sheet
+    from stagewright.core.part_load.data_sheet import data_sheet
     sheet = data_sheet(load(SAMPLE)).to_dict()
     rows = pt.sheet_rows(sheet, "pdf", "US")
     ref, site = sheet["columns"]
@@ -143,8 +143,8 @@ def test_sheet_rows_are_the_data_sheet_figures():
 def test_report_prints_the_package_section_only_with_a_package(tmp_path):
     import pypdf
 
-    from app.report import export_report
-    from thermo import solve
+    from stagewright.gui.report import export_report
+    from stagewright.core import solve
     doc = load(SAMPLE)
     out = tmp_path / "with.pdf"
     export_report(doc, solve(doc), out, prepared_by="test")

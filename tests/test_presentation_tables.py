@@ -4,7 +4,7 @@ projects, they stay Qt-free, and one line added to a table shows in every output
 Check kinds: behaviour checks on the sample projects (invented scenarios). Where a test compares
 a shown number with the solver's SI value, the unit factors are written out from their exact
 definitions (NIST SP 811, 2008 edition, Appendix B: 1 bar = 1e5 Pa, 1 kW = 1e3 W), not taken from
-app.presentation.units.
+stagewright.gui.presentation.units.
 """
 from __future__ import annotations
 
@@ -17,11 +17,11 @@ import re
 import pypdf
 import pytest
 
-from app.presentation import balance_tables, staging_table, year_tables
-from app.presentation.figures import OUTPUTS, Figure, has_path, read_path, shown
+from stagewright.gui.presentation import balance_tables, staging_table, year_tables
+from stagewright.gui.presentation.figures import OUTPUTS, Figure, has_path, read_path, shown
 from conftest import ROOT, SAMPLES
-from thermo import solve
-from thermo.project import load
+from stagewright.core import solve
+from stagewright.core.project import load
 
 SAMPLE_FILES = sorted(SAMPLES.glob("*.json"))
 TABLES = {"POINTS": balance_tables.POINTS, "COMPONENTS": balance_tables.COMPONENTS,
@@ -73,12 +73,12 @@ def test_every_train_table_path_is_in_the_results_of_the_sample_projects(sample_
 
 
 def _pdf_key_figures():
-    from app.presentation.figures import shown
+    from stagewright.gui.presentation.figures import shown
     return shown(balance_tables.KEY_FIGURES, "pdf")
 
 
 def test_every_summary_and_recovery_path_is_in_the_results_of_the_sample_projects(sample_results):
-    from app.presentation import recovery_table, summary_table
+    from stagewright.gui.presentation import recovery_table, summary_table
 
     missing, seen = [], {"summary": set(), "train": set(), "recovery": set(), "by_stage": set()}
     for r in sample_results.values():
@@ -98,7 +98,7 @@ def test_every_summary_and_recovery_path_is_in_the_results_of_the_sample_project
 
 
 def test_every_staging_column_path_is_in_a_study_of_a_sample_project():
-    from thermo.study import compare_stagings
+    from stagewright.core.study import compare_stagings
     rows = compare_stagings(load(SAMPLES / "single_stage_workshop.json"), 2).rows()
     seen: set = set()
     assert _check_paths(staging_table.STAGING, [(None, row) for row in rows], seen) == []
@@ -106,7 +106,7 @@ def test_every_staging_column_path_is_in_a_study_of_a_sample_project():
 
 
 def test_every_year_path_is_in_the_year_of_the_sample_project():
-    from thermo.year import run_year
+    from stagewright.core.year import run_year
     year = run_year(load(SAMPLES / "three_stage_site_year.json")).to_dict()
     seen: set = set()
     assert _check_paths(year_tables.YEAR_BINS, [(None, b) for b in year["bins"]], seen) == []
@@ -165,8 +165,8 @@ def _printed_near(expected: float, text: str) -> None:
 @pytest.mark.parametrize("case", sorted(ONE_LINE))
 def test_one_line_in_one_table_shows_in_the_window_text_pdf_and_csv(case, monkeypatch, qtbot, tmp_path):
     pytest.importorskip("PySide6")
-    from app.cli.solve_table import format_result
-    from app.report import csv_rows, export_report
+    from stagewright.gui.cli.solve_table import format_result
+    from stagewright.gui.report import csv_rows, export_report
     from gui_support import make_window
 
     table, line, si_of, scale, labels = ONE_LINE[case]

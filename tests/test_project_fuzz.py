@@ -17,12 +17,12 @@ import pytest
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
-import thermo
+import stagewright.core
 from tests.conftest import ROOT, SAMPLES
 from tests.strategies import documents
-from thermo.errors import InputError, ProjectFileError, StagewrightError
-from thermo.project import dumps, load, loads, save
-from thermo.project.schema import FORMAT_VERSION
+from stagewright.core.errors import InputError, ProjectFileError, StagewrightError
+from stagewright.core.project import dumps, load, loads, save
+from stagewright.core.project.schema import FORMAT_VERSION
 
 SEEDS = [p.read_bytes() for p in sorted(SAMPLES.glob("*.json"))] + \
         [(ROOT / "tests" / "fixtures" / "project_v1.json").read_bytes()]
@@ -106,7 +106,7 @@ def _check(data: bytes) -> str:
         assert str(exc).startswith(exc.problems[0].field)
         return "refused by validation"
     try:
-        result = thermo.solve(doc).to_dict()
+        result = stagewright.core.solve(doc).to_dict()
     except StagewrightError as exc:
         assert str(exc), "an empty error message"
         # issue 22 item 11: every refusal names the input (a field path of the document), its value
@@ -119,8 +119,8 @@ def _check(data: bytes) -> str:
 
 def _names_an_input(field: str) -> bool:
     """True when ``field`` is a path to a key of the project document (``stages[1].efficiency.value``)."""
-    from thermo.project.paths import parse_path
-    from thermo.project.schema import PROJECT
+    from stagewright.core.project.paths import parse_path
+    from stagewright.core.project.schema import PROJECT
 
     if not field:
         return False

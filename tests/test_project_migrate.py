@@ -1,7 +1,7 @@
 """Format versions: the upgrade chain is complete, every old version has a fixture, newer
 versions are refused and left untouched.
 
-Whoever bumps ``thermo.project.schema.FORMAT_VERSION`` must add, for the old version n:
+Whoever bumps ``stagewright.core.project.schema.FORMAT_VERSION`` must add, for the old version n:
 a step ``@step(n)`` in thermo/project/migrate.py, a fixture tests/fixtures/project_v<n+1>.json
 (the old tests/fixtures/project_v<n>.json stays, frozen), and a test named
 ``test_step_<n>_to_<n+1>`` in this file that checks what the step changes.
@@ -16,11 +16,11 @@ import sys
 import pytest
 
 from tests.conftest import ROOT
-from thermo.project import schema
-from thermo.project.validation import problems
-from thermo.errors import ProjectFileError
-from thermo.project import load, migrate
-from thermo.project.migrate import migrate as migrate_doc
+from stagewright.core.project import schema
+from stagewright.core.project.validation import problems
+from stagewright.core.errors import ProjectFileError
+from stagewright.core.project import load, migrate
+from stagewright.core.project.migrate import migrate as migrate_doc
 
 FIXTURES = ROOT / "tests" / "fixtures"
 
@@ -136,7 +136,7 @@ def test_a_whole_float_version_is_read():
 def test_step_1_to_2():
     """Version 2 adds the gauge statement of the delivery pressure; a version-1 file keeps its
     absolute ``discharge_pressure_Pa`` with its meaning and solves exactly as before."""
-    import thermo
+    import stagewright.core
 
     raw = json.loads((FIXTURES / "project_v1.json").read_text(encoding="utf-8"))
     doc = migrate.STEPS[1](json.loads(json.dumps(raw)))  # the step alone
@@ -145,14 +145,14 @@ def test_step_1_to_2():
     assert declared == 1 and doc["version"] == schema.FORMAT_VERSION
     assert {k: v for k, v in doc.items() if k != "version"} == {k: v for k, v in raw.items() if k != "version"}
     assert "discharge_gauge_pressure_Pa" not in doc
-    assert thermo.solve(doc).delivery.P == pytest.approx(raw["discharge_pressure_Pa"], rel=1e-9)
+    assert stagewright.core.solve(doc).delivery.P == pytest.approx(raw["discharge_pressure_Pa"], rel=1e-9)
 
 
 def test_step_2_to_3():
     """Version 3 adds cases and a results snapshot; a version-2 file is a project with one case,
     its base, and solves exactly as before."""
-    import thermo
-    from thermo.project.cases import case_document, case_names
+    import stagewright.core
+    from stagewright.core.project.cases import case_document, case_names
 
     raw = json.loads((FIXTURES / "project_v2.json").read_text(encoding="utf-8"))
     assert migrate.STEPS[2](json.loads(json.dumps(raw))) == raw  # the step alone
@@ -160,4 +160,4 @@ def test_step_2_to_3():
     assert declared == 2 and doc["version"] == 3
     assert {k: v for k, v in doc.items() if k != "version"} == {k: v for k, v in raw.items() if k != "version"}
     assert case_names(doc) == ["Base"]
-    assert thermo.solve(case_document(doc)).to_dict() == thermo.solve(raw).to_dict()
+    assert stagewright.core.solve(case_document(doc)).to_dict() == stagewright.core.solve(raw).to_dict()

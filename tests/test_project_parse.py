@@ -10,9 +10,9 @@ import json
 
 import pytest
 
-from thermo.errors import ProjectFileError
-from thermo.project import parse
-from thermo.project.parse import MAX_DEPTH, MAX_FILE_BYTES, parse_bytes, position, read_limited
+from stagewright.core.errors import ProjectFileError
+from stagewright.core.project import parse
+from stagewright.core.project.parse import MAX_DEPTH, MAX_FILE_BYTES, parse_bytes, position, read_limited
 
 
 def _nested(depth: int) -> bytes:
@@ -99,7 +99,7 @@ def test_position_agrees_with_counting_lines(text, index):
 def _largest(node):
     """The largest value the schema allows: every key, every list full, every text at its
     longest in 4-byte characters, every number with 17 significant digits."""
-    from thermo.project.schema_types import Changes, Choice, Items, Num, Obj, Raw, Text, Variant
+    from stagewright.core.project.schema_types import Changes, Choice, Items, Num, Obj, Raw, Text, Variant
     if isinstance(node, Changes):  # a case changing as many fields as it may, each a number
         return {f"stages[{i % 12}].cooler.coolant.glycol_fraction{'' if i < 12 else f'_{i}'}": -1.2345678901234567e-100
                 for i in range(node.max_items)}
@@ -124,8 +124,8 @@ def _largest(node):
 
 
 def test_the_largest_document_the_schema_allows_fits_the_limits():
-    from thermo.project import dumps
-    from thermo.project.schema import PROJECT
+    from stagewright.core.project import dumps
+    from stagewright.core.project.schema import PROJECT
     data = dumps(_largest(PROJECT)).encode("utf-8")
     assert len(data) < MAX_FILE_BYTES / 2, f"{len(data)} bytes: raise MAX_FILE_BYTES"
     assert parse_bytes(data)["stages"][0]["name"].startswith("\U0001F600")  # and depth is within MAX_DEPTH
@@ -135,8 +135,8 @@ def test_unterminated_string_of_escaped_quotes_is_refused_in_linear_time():
     # issue 22 item 6: the depth scanner's regex retried the unterminated string from every
     # quote, 35 s for 60 kB; now one pass
     from tests.time_limit import finishes_within
-    from thermo.errors import ProjectFileError
-    from thermo.project.parse import parse_bytes
+    from stagewright.core.errors import ProjectFileError
+    from stagewright.core.project.parse import parse_bytes
 
     data = b'{"title": "' + b'\\"' * 100_000
     with finishes_within(5.0, "refusing 200 kB of escaped quotes"):

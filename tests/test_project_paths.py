@@ -2,8 +2,8 @@
 import pytest
 
 from tests.conftest import make_doc
-from thermo.project.paths import get_path, parse_path, set_path
-from thermo.errors import InputError
+from stagewright.core.project.paths import get_path, parse_path, set_path
+from stagewright.core.errors import InputError
 
 
 def test_parse_round_trip():
@@ -26,9 +26,9 @@ def test_get_and_set():
 
 def test_error_field_paths_resolve_in_the_document():
     # a path reported by validation must address the offending value
-    import thermo
+    import stagewright.core
     doc = make_doc()
     doc["stages"][1]["efficiency"]["value"] = 3.0
     with pytest.raises(InputError) as info:
-        thermo.solve(doc)
+        stagewright.core.solve(doc)
     assert get_path(doc, info.value.field) == 3.0

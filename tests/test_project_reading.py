@@ -13,9 +13,9 @@ import re
 import pytest
 
 from tests.conftest import SAMPLES, make_doc
-from thermo.errors import InputError, ProjectFileError, StagewrightError
-from thermo.project import dumps, load, loads, save
-from thermo.project.schema import FORMAT_VERSION
+from stagewright.core.errors import InputError, ProjectFileError, StagewrightError
+from stagewright.core.project import dumps, load, loads, save
+from stagewright.core.project.schema import FORMAT_VERSION
 
 FIXTURE_V1 = SAMPLES.parent / "tests" / "fixtures" / "project_v1.json"
 

@@ -9,15 +9,15 @@ import re
 
 import pytest
 
-import thermo
+import stagewright.core
 from tests.conftest import ROOT, SAMPLES, make_doc
-from thermo.project import schema_docs
-from thermo.project import load
-from thermo.project.schema import PROJECT
-from thermo.project.schema_types import Num, walk
+from stagewright.core.project import schema_docs
+from stagewright.core.project import load
+from stagewright.core.project.schema import PROJECT
+from stagewright.core.project.schema_types import Num, walk
 
 DOC = ROOT / "docs" / "project-format.md"
-FIX = "run `python -m thermo.project.schema_docs --write` after describing the key in thermo/project/schema_docs.py"
+FIX = "run `python -m stagewright.core.project.schema_docs --write` after describing the key in thermo/project/schema_docs.py"
 
 
 def test_every_schema_key_has_a_meaning_and_none_is_stale():
@@ -29,11 +29,11 @@ def test_every_schema_key_has_a_meaning_and_none_is_stale():
 
 
 def _results():
-    out = [thermo.solve(load(p)).to_dict() for p in sorted(SAMPLES.glob("*.json"))]
+    out = [stagewright.core.solve(load(p)).to_dict() for p in sorted(SAMPLES.glob("*.json"))]
     hot = make_doc(stages=1, p_out=4e5)
     hot["stages"][0]["max_discharge_temperature_K"] = 300.0  # to produce a warning entry
     hot["stages"][0]["cooler"] = None
-    out.append(thermo.solve(hot).to_dict())
+    out.append(stagewright.core.solve(hot).to_dict())
     return out
 
 
@@ -102,7 +102,7 @@ def test_the_documented_range_is_what_the_loader_accepts(key, kind, where):
     import math
 
     from tests.conftest import make_doc
-    from thermo.project.validation import problems
+    from stagewright.core.project.validation import problems
 
     text = (ROOT / "docs" / "project-format.md").read_text(encoding="utf-8")
     rows = [m for m in _RANGE_ROW.finditer(text) if m["key"] == key and m["kind"] == kind]

@@ -1,10 +1,10 @@
 """Bad input: every rejection names the field path, the value and the valid range."""
 import pytest
 
-import thermo
+import stagewright.core
 from tests.conftest import make_doc
-from thermo.project.validation import normalise, problems
-from thermo.errors import InputError, SecondLawViolation
+from stagewright.core.project.validation import normalise, problems
+from stagewright.core.errors import InputError, SecondLawViolation
 
 
 @pytest.mark.parametrize("mutate, field, text", [
@@ -30,7 +30,7 @@ def test_bad_input_names_field_value_and_range(mutate, field, text):
     doc = make_doc()
     mutate(doc)
     with pytest.raises(InputError, match=field) as info:
-        thermo.solve(doc)
+        stagewright.core.solve(doc)
     assert info.match(text)
 
 
@@ -45,35 +45,35 @@ def test_problems_lists_everything_at_once():
 def test_cooler_outlet_above_inlet_is_refused():
     doc = make_doc(stages=1, p_out=2e5, cool_to=600.0)
     with pytest.raises(InputError, match=r"stages\[0\]\.cooler\.outlet_temperature_K.*above its inlet"):
-        thermo.solve(doc)
+        stagewright.core.solve(doc)
 
 
 def test_cooler_outlet_below_heat_sink_is_refused():
     doc = make_doc(stages=1, p_out=4e5, cool_to=280.0, T0=293.15)
     with pytest.raises(InputError, match="below the heat-sink temperature"):
-        thermo.solve(doc)
+        stagewright.core.solve(doc)
 
 
 def test_too_small_shaft_power_is_refused():
     doc = make_doc(stages=1, flow=("shaft_power", 100.0))
     doc["stages"][0]["heat_loss_W"] = 500.0
     with pytest.raises(InputError, match="too small to move any air"):
-        thermo.solve(doc)
+        stagewright.core.solve(doc)
 
 
 def test_hot_casing_boundary_is_second_law_violation():
     doc = make_doc(stages=1, p_out=2e5)
     doc["stages"][0].update(heat_loss_W=100.0, heat_loss_boundary_temperature_K=900.0)
     with pytest.raises(SecondLawViolation, match="second-law violation"):
-        thermo.solve(doc)
+        stagewright.core.solve(doc)
 
 
 def test_state_outside_property_range_is_clear():
     doc = make_doc(stages=1, p_out=3.9e6, eta=0.3, model="real_gas")
     # named by the input, with what would work (issue 22 item 11)
-    with pytest.raises(thermo.PropertyRangeError,
+    with pytest.raises(stagewright.core.PropertyRangeError,
                        match=r"^stages\[0\]\.efficiency\.value: 0\.3 — the discharge would be above the property range"):
-        thermo.solve(doc)
+        stagewright.core.solve(doc)
 
 
 def test_normalise_fills_defaults():
@@ -87,15 +87,15 @@ def test_casing_loss_that_cools_below_boundary_is_second_law_violation():
     doc = make_doc(stages=1, p_out=1.3e5, flow=("mass", 0.05))
     doc["stages"][0]["heat_loss_W"] = 2000.0
     with pytest.raises(SecondLawViolation, match=r"stages\[0\]\.heat_loss_W.*second-law violation"):
-        thermo.solve(doc)
+        stagewright.core.solve(doc)
 
 
 # ---- moist intake air ----------------------------------------------------------------------
 import pytest
 
-import thermo
-from thermo.project.validation import problems
-from thermo.errors import InputError
+import stagewright.core
+from stagewright.core.project.validation import problems
+from stagewright.core.errors import InputError
 from tests.conftest import make_doc
 
 
@@ -108,17 +108,17 @@ def moist(**site):
 @pytest.mark.parametrize("rh", [-0.1, 1.2])
 def test_relative_humidity_outside_unit_interval(rh):
     with pytest.raises(InputError, match=r"site\.relative_humidity: .* expected a number in \[0, 1\]"):
-        thermo.solve(moist(relative_humidity=rh))
+        stagewright.core.solve(moist(relative_humidity=rh))
 
 
 def test_site_dew_point_above_ambient():
     with pytest.raises(InputError, match=r"site\.dew_point_K: 300\.0 — expected at most the ambient temperature 298\.15 K"):
-        thermo.solve(moist(dew_point_K=300.0))
+        stagewright.core.solve(moist(dew_point_K=300.0))
 
 
 def test_two_humidity_inputs_are_refused():
     with pytest.raises(InputError, match=r"site\.dew_point_K: .*give at most one of relative_humidity, dew_point_K"):
-        thermo.solve(moist(relative_humidity=0.5, dew_point_K=280.0))
+        stagewright.core.solve(moist(relative_humidity=0.5, dew_point_K=280.0))
 
 
 def test_moist_cooler_below_freezing_is_no_input_problem():
@@ -146,14 +146,14 @@ def test_moist_real_gas_state_outside_rp1485_range_names_stage_and_range():
     doc = make_doc(model="real_gas", stages=1, eta=0.75, p_out=12e5, T0=298.15)
     doc["site"]["relative_humidity"] = 0.5
     with pytest.raises(InputError, match=r"stages\[0\]\.pressure_ratio: 12\.0 — .*up to 623\.15 K and 1e\+07 Pa .*RP-1485"):
-        thermo.solve(doc)
+        stagewright.core.solve(doc)
 
 
 # ---- resolved inputs: the site worked out once at the boundary ---------------------------------
 
 def test_site_pressure_resolves_from_pressure_elevation_or_sea_level():
-    from thermo.atmosphere import standard_pressure
-    from thermo.project.validation import resolve_site
+    from stagewright.core.atmosphere import standard_pressure
+    from stagewright.core.project.validation import resolve_site
     doc = make_doc()
     assert resolve_site(normalise(doc)).pressure_Pa == 1e5  # as given, exactly
     doc["site"].pop("barometric_pressure_Pa")
@@ -173,7 +173,7 @@ def test_site_pressure_resolves_from_pressure_elevation_or_sea_level():
     ({"humidity_ratio": 0.008}, ("humidity_ratio", 0.008)),
 ])
 def test_resolved_site_names_the_one_humidity_input(site, humidity):
-    from thermo.project.validation import resolve_site
+    from stagewright.core.project.validation import resolve_site
     doc = make_doc(inlet_pressure_drop_Pa=1500.0)
     doc["site"].update(site)
     resolved = resolve_site(normalise(doc))
@@ -196,5 +196,5 @@ def test_resolved_site_names_the_one_humidity_input(site, humidity):
 ])
 def test_barometric_pressure_of_a_document_being_edited(site, expected):
     # the window shows gauge pressures relative to this while the user types: never raises
-    from thermo.project.validation import barometric_pressure
+    from stagewright.core.project.validation import barometric_pressure
     assert barometric_pressure(site) == expected

@@ -18,10 +18,10 @@ import textwrap
 import pytest
 
 from tests.conftest import ROOT, SAMPLES, make_doc
-from thermo.project.schema import FORMAT_VERSION
-from thermo.errors import InputError, SaveError
-from thermo.project import backup_path, dumps, load, save
-from thermo.project import writing
+from stagewright.core.project.schema import FORMAT_VERSION
+from stagewright.core.errors import InputError, SaveError
+from stagewright.core.project import backup_path, dumps, load, save
+from stagewright.core.project import writing
 
 SAMPLE = SAMPLES / "two_stage_plant_air.json"
 
@@ -67,8 +67,8 @@ def test_key_order_follows_the_schema():
 def test_a_document_with_problems_is_saved_and_named_on_reading(project):
     # the window asks before saving such a document; the work is kept, and reading names
     # what has to be fixed
-    from thermo.errors import InputError as Refused
-    from thermo.project import load_with_problems
+    from stagewright.core.errors import InputError as Refused
+    from stagewright.core.project import load_with_problems
     path, changed = project
     changed["stages"][0]["efficiency"]["value"] = 7.0
     save(changed, path)
@@ -309,7 +309,7 @@ def test_missing_folder_is_a_save_error(tmp_path):
 _KILLED = textwrap.dedent("""
     import os, sys, time
     sys.path.insert(0, {root!r})
-    from thermo.project import load, save
+    from stagewright.core.project import load, save
     point = sys.argv[2]
     real = {{"fsync": os.fsync, "link": os.link, "replace": os.replace}}
     def hang(name):

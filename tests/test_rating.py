@@ -1,8 +1,8 @@
 """Rating (UA given) inverts sizing (outlet given) to 1e-6, for every arrangement and coolant."""
 import pytest
 
-from thermo.errors import InputError
-from thermo.exchanger import ARRANGEMENTS, HotSide, make_coolant, rate_exchanger, size_exchanger
+from stagewright.core.errors import InputError
+from stagewright.core.exchanger import ARRANGEMENTS, HotSide, make_coolant, rate_exchanger, size_exchanger
 
 COOLANTS = {"water": {"kind": "water"}, "glycol": {"kind": "glycol", "glycol_fraction": 0.4},
             "air": {"kind": "air"}}

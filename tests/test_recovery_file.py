@@ -18,14 +18,14 @@ from pathlib import Path
 
 import pytest
 
-from thermo.project.schema import FORMAT_VERSION
+from stagewright.core.project.schema import FORMAT_VERSION
 
-from app.document import recovery_file as recovery
-from app.document.recovery_file import RecoverySlot, claim_orphans, read_recovery_file, recovery_dir
+from stagewright.gui.document import recovery_file as recovery
+from stagewright.gui.document.recovery_file import RecoverySlot, claim_orphans, read_recovery_file, recovery_dir
 from tests.conftest import ROOT, SAMPLES, make_doc
-from thermo.project.validation import problems
-from thermo.errors import ProjectFileError, SaveError, StagewrightError
-from thermo.project import load
+from stagewright.core.project.validation import problems
+from stagewright.core.errors import ProjectFileError, SaveError, StagewrightError
+from stagewright.core.project import load
 
 
 @pytest.fixture
@@ -100,7 +100,7 @@ def test_a_live_windows_file_is_not_an_orphan_and_a_crashed_ones_is(data_dir):
 
 CHILD = """
 import sys
-from app.document.recovery_file import RecoverySlot
+from stagewright.gui.document.recovery_file import RecoverySlot
 slot = RecoverySlot(sys.argv[1], window="child")
 slot.write({"title": sys.argv[2], "stages": []})
 print("written", flush=True)
@@ -274,6 +274,6 @@ def test_recovery_dir_per_platform(monkeypatch, platform, env, expected):
 
 
 def test_recovery_does_not_import_qt():
-    code = "import sys, app.document.recovery_file; print(sorted(m for m in sys.modules if m.startswith(('PySide', 'PyQt'))))"
+    code = "import sys, stagewright.gui.document.recovery_file; print(sorted(m for m in sys.modules if m.startswith(('PySide', 'PyQt'))))"
     out = subprocess.run([sys.executable, "-c", code], cwd=ROOT, capture_output=True, text=True, check=True)
     assert out.stdout.strip() == "[]"

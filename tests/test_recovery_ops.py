@@ -74,7 +74,7 @@ def empty_data_dir(tmp_path, monkeypatch):
 @pytest.fixture(autouse=True)
 def no_modal_dialogs(monkeypatch):
     """A question a test did not expect fails it instead of waiting for a click that never comes."""
-    from app.window.prompts import Prompts
+    from stagewright.gui.window.prompts import Prompts
 
     def unexpected(self, *args):
         raise AssertionError(f"unexpected question: {args}")
@@ -192,7 +192,7 @@ def test_opening_a_file_offers_only_its_own_work(qtbot, tmp_path, data_dir, cras
 def test_start_up_with_a_file_offers_only_its_own_work(qtbot, tmp_path, data_dir, crashed):
     from PySide6.QtCore import QSettings
 
-    from app.window.main_window import MainWindow
+    from stagewright.gui.window.main_window import MainWindow
     other = crashed[1]["other"]
     win = MainWindow(json.loads(other.read_text(encoding="utf-8")), other, autosave_ms=20, restore_layout=False,
                      settings=QSettings(str(tmp_path / "s.ini"), QSettings.IniFormat))

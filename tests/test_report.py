@@ -4,7 +4,7 @@ The PDF is read back with pypdf (a general-purpose PDF library) and the printed 
 compared with the JSON results of the ``solve`` sub-command at the printed precision. Unit
 conversions in these checks are written out from their exact definitions (NIST SP 811, 2008
 edition, Appendix B: 1 hp = 745.69987158 W, 1 Btu(IT) = 1055.05585262 J,
-1 psi = 6894.757293168 Pa, t/°F = 1.8·T/K − 459.67), not taken from app.presentation.units.
+1 psi = 6894.757293168 Pa, t/°F = 1.8·T/K − 459.67), not taken from stagewright.gui.presentation.units.
 """
 from __future__ import annotations
 
@@ -16,19 +16,19 @@ import re
 import pypdf
 import pytest
 
-from app.presentation import units
-from app.presentation.cautions import CAUTIONS, DEFERRAL
-from app.document.messages import limit_sentence, warning_text
-from app.document.field_specs import describe
-from app.cli.main import main
-from app.cli.progress import Progress
-from app.report import csv_rows, export_report
-from app.report.csv_export import COLUMNS
-from app.report.layout import Column, Pager, Table
-from app.report.sections import state_points
+from stagewright.gui.presentation import units
+from stagewright.gui.presentation.cautions import CAUTIONS, DEFERRAL
+from stagewright.gui.document.messages import limit_sentence, warning_text
+from stagewright.gui.document.field_specs import describe
+from stagewright.gui.cli.main import main
+from stagewright.gui.cli.progress import Progress
+from stagewright.gui.report import csv_rows, export_report
+from stagewright.gui.report.csv_export import COLUMNS
+from stagewright.gui.report.layout import Column, Pager, Table
+from stagewright.gui.report.sections import state_points
 from conftest import SAMPLES, make_doc
-from thermo import InputError, solve
-from thermo.project import load
+from stagewright.core import InputError, solve
+from stagewright.core.project import load
 
 SAMPLE_FILES = sorted(SAMPLES.glob("*.json"))
 HP, BTU, PSI = 745.69987158, 1055.05585262, 6894.757293168
@@ -115,7 +115,7 @@ def test_negative_heat_exergy_is_explained_in_the_report(path, si_reports, capsy
     # heat rejected below the ambient temperature carries negative exergy, Q(1 − T0/Tb) < 0
     # (Bejan, Tsatsaronis & Moran, Thermal Design and Optimization, 1996, §3.2): the report says
     # so where the figure is negative, and only there
-    from app.presentation.result_notes import NEGATIVE_TIPS
+    from stagewright.gui.presentation.result_notes import NEGATIVE_TIPS
     r = _solve_json(path, capsys)
     flat = _flat(_pdf_text(si_reports[path][0])[0])
     note = _flat(NEGATIVE_TIPS["heat_exergy_W"])[1:]  # the report lower-cases its first letter
@@ -183,7 +183,7 @@ def test_warnings_and_staging_rows_are_printed(tmp_path):
         st["max_discharge_temperature_K"] = 350.0  # far below the discharge: a warning per stage
     result = solve(doc)
     assert len(result.warnings) == 2
-    # rows shaped like thermo.study's staging comparison (binding limits, one shared note)
+    # rows shaped like stagewright.core.study's staging comparison (binding limits, one shared note)
     rows = [dict(stages=1, driver_power_W=300e3, max_discharge_temperature_K=600.0, feasible=False,
                  pressure_ratios=[9.0], note="Each option repeats stage 1.",
                  binding_limits=[{"field": "stages[0].max_discharge_temperature_K", "status": "violated",
@@ -291,8 +291,8 @@ def test_cooler_exchanger_figures_are_printed(tmp_path):
 
 
 def test_report_with_the_staging_study(tmp_path):
-    """--stagings runs thermo.study.compare_stagings; its rows are printed at printed precision."""
-    from thermo.study import compare_stagings
+    """--stagings runs stagewright.core.study.compare_stagings; its rows are printed at printed precision."""
+    from stagewright.core.study import compare_stagings
 
     path = SAMPLE_FILES[0]
     rows = compare_stagings(load(path), 3).rows()

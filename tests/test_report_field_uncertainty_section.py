@@ -3,10 +3,10 @@ import json
 
 from matplotlib.backends.backend_agg import FigureCanvasAgg
 
-from app.report.field_uncertainty_section import field_uncertainty_section
-from app.report.layout import Pager
+from stagewright.gui.report.field_uncertainty_section import field_uncertainty_section
+from stagewright.gui.report.layout import Pager
 from tests.conftest import SAMPLES
-from thermo.uncertainty.field_check import field_check_uncertainty
+from stagewright.core.uncertainty.field_check import field_check_uncertainty
 
 
 def _texts(pages) -> str:

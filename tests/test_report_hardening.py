@@ -6,13 +6,13 @@ import json
 
 import pypdf
 
-from app.cli.main import main
-from app.report import export_report
-from app.report.layout import text_width, wrap
+from stagewright.gui.cli.main import main
+from stagewright.gui.report import export_report
+from stagewright.gui.report.layout import text_width, wrap
 from conftest import SAMPLES
 from tests.time_limit import finishes_within
-from thermo import solve
-from thermo.project import load
+from stagewright.core import solve
+from stagewright.core.project import load
 
 DEMO = SAMPLES / "two_stage_plant_air.json"
 

@@ -3,7 +3,7 @@ legends that stay clear of each other.
 
 Figures on the first page are compared with ``solve --json`` at the printed precision; unit
 factors are written out from their definitions (NIST SP 811, 2008 edition, Appendix B: 1 kW =
-1e3 W, 1 m³/min = 1/60 m³/s, 1 m³/h = 1/3600 m³/s), not taken from app.presentation.units.
+1e3 W, 1 m³/min = 1/60 m³/s, 1 m³/h = 1/3600 m³/s), not taken from stagewright.gui.presentation.units.
 """
 from __future__ import annotations
 
@@ -16,14 +16,14 @@ import pytest
 from matplotlib.backends.backend_agg import FigureCanvasAgg
 from matplotlib.figure import Figure
 
-from app.charts import draw_power_split
-from app.cli.main import main
-from app.document.messages import warning_text
-from app.report.pdf import lay_out
-from app.report.sections import ReportInfo
+from stagewright.gui.charts import draw_power_split
+from stagewright.gui.cli.main import main
+from stagewright.gui.document.messages import warning_text
+from stagewright.gui.report.pdf import lay_out
+from stagewright.gui.report.sections import ReportInfo
 from conftest import SAMPLES
-from thermo import solve
-from thermo.project import load
+from stagewright.core import solve
+from stagewright.core.project import load
 
 SAMPLE_FILES = sorted(SAMPLES.glob("*.json"))
 
@@ -78,14 +78,14 @@ def test_first_page_has_the_answer(path, sample_reports, capsys):
 
 
 def test_prepared_by_is_printed(tmp_path, monkeypatch):
-    import app.report
+    import stagewright.gui.report
 
     infos = []
-    monkeypatch.setattr(app.report, "write_pdf", lambda doc, result, path, info, **kw: infos.append(info) or 1)
+    monkeypatch.setattr(stagewright.gui.report, "write_pdf", lambda doc, result, path, info, **kw: infos.append(info) or 1)
     path = SAMPLES / "single_stage_workshop.json"
     assert main(["report", str(path), "-o", str(tmp_path / "r.pdf"), "--prepared-by", "A. Designer, Example Ltd"]) == 0
     assert main(["report", str(path), "-o", str(tmp_path / "r.pdf")]) == 0
-    assert [i.prepared_by for i in infos] == ["A. Designer, Example Ltd", app.report.account_name()]
+    assert [i.prepared_by for i in infos] == ["A. Designer, Example Ltd", stagewright.gui.report.account_name()]
     doc = load(path)
     p = lay_out(doc, solve(doc).to_dict(), infos[0])
     first = "\n".join(t.get_text() for t in p.pages[0].texts)
@@ -95,7 +95,7 @@ def test_prepared_by_is_printed(tmp_path, monkeypatch):
 def _page_fill(page) -> float:
     """Share of a PDF page's body (between the running header and the footer) that its text reaches down to."""
     height = float(page.mediabox.height)
-    top, bottom = height - 0.85 * 72.0, 0.8 * 72.0  # the report's margins (app.report.layout), [pt]
+    top, bottom = height - 0.85 * 72.0, 0.8 * 72.0  # the report's margins (stagewright.gui.report.layout), [pt]
     lowest = [top]
 
     def visit(text, cm, tm, font, size):

@@ -4,7 +4,7 @@ in test_export_ops.py).
 
 Printed figures are compared with ``stagewright year --json`` and ``solve --json`` at the printed
 precision; unit factors written out from their definitions (NIST SP 811, 2008 edition, Appendix B:
-1 kW = 1e3 W, 1 kWh = 3.6e6 J, t/°C = T/K − 273.15), not taken from app.presentation.units.
+1 kW = 1e3 W, 1 kWh = 3.6e6 J, t/°C = T/K − 273.15), not taken from stagewright.gui.presentation.units.
 """
 from __future__ import annotations
 
@@ -14,12 +14,12 @@ import re
 import pypdf
 import pytest
 
-from app.cli.main import main
-from app.report.pdf import lay_out
-from app.report.sections import ReportInfo
+from stagewright.gui.cli.main import main
+from stagewright.gui.report.pdf import lay_out
+from stagewright.gui.report.sections import ReportInfo
 from conftest import SAMPLES
-from thermo import solve
-from thermo.project import load
+from stagewright.core import solve
+from stagewright.core.project import load
 
 FOUNDRY = SAMPLES / "three_stage_site_year.json"
 
@@ -106,13 +106,13 @@ def test_a_year_that_cannot_be_computed_is_said_in_words():
 
 def test_a_year_given_by_the_caller_is_printed_as_given(tmp_path, monkeypatch):
     # the window may pass the year it already has: export_report then does not run it again
-    import app.report
-    import thermo.year
+    import stagewright.gui.report
+    import stagewright.core.year
 
     doc = load(FOUNDRY)
-    year = thermo.year.run_year(doc).to_dict()
-    monkeypatch.setattr(thermo.year, "run_year", lambda *_a, **_k: pytest.fail("year run again"))
+    year = stagewright.core.year.run_year(doc).to_dict()
+    monkeypatch.setattr(stagewright.core.year, "run_year", lambda *_a, **_k: pytest.fail("year run again"))
     written = {}
-    monkeypatch.setattr(app.report, "write_pdf", lambda *a, **kw: written.update(kw) or 1)  # no PDF needed here
-    app.report.export_report(doc, solve(doc), tmp_path / "y.pdf", year=year)
+    monkeypatch.setattr(stagewright.gui.report, "write_pdf", lambda *a, **kw: written.update(kw) or 1)  # no PDF needed here
+    stagewright.gui.report.export_report(doc, solve(doc), tmp_path / "y.pdf", year=year)
     assert written["year"] is year and written["year_problem"] == ""

@@ -4,7 +4,7 @@ Each figure printed in the PDF, the ``solve`` text table, the CSV and the window
 equals the ``solve --json`` value at the printed precision. Unit factors are written out from
 their exact definitions (NIST SP 811, 2008 edition, Appendix B: 1 US gallon = 3.785411784 L,
 1 lb = 0.45359237 kg, 1 Btu(IT) = 1055.05585262 J, t/°F = 1.8·T/K − 459.67), not taken from
-app.presentation.units.
+stagewright.gui.presentation.units.
 """
 from __future__ import annotations
 
@@ -15,7 +15,7 @@ import re
 import pypdf
 import pytest
 
-from app.cli.main import main
+from stagewright.gui.cli.main import main
 from conftest import SAMPLES
 
 SAMPLE_FILES = sorted(SAMPLES.glob("*.json"))

@@ -4,7 +4,7 @@ import math
 import pytest
 from scipy.optimize import brentq
 
-from thermo.roots import bracketed_root
+from stagewright.core.roots import bracketed_root
 
 
 @pytest.mark.parametrize("f, lo, hi", [

@@ -45,7 +45,7 @@ def test_a_pickled_value_in_the_settings_file_is_never_loaded(qtbot, tmp_path):
 
     from PySide6.QtCore import QSettings
 
-    from app.window.main_window import MainWindow
+    from stagewright.gui.window.main_window import MainWindow
 
     ini, marker = _crafted(tmp_path)
     settings = QSettings(str(ini), QSettings.IniFormat)
@@ -60,7 +60,7 @@ def test_a_pickled_value_in_the_settings_file_is_never_loaded(qtbot, tmp_path):
 
 
 def test_remove_unsafe_entries_keeps_plain_values(tmp_path):
-    from app.window.safe_settings import remove_unsafe_entries
+    from stagewright.gui.window.safe_settings import remove_unsafe_entries
 
     ini = tmp_path / "s.ini"
     plain = ("[window]\ngeometry=@ByteArray(\\0\\x1@Variant(x))\n[files]\n"
@@ -77,7 +77,7 @@ def test_remove_unsafe_entries_keeps_plain_values(tmp_path):
 def test_quoted_and_continued_byte_arrays_are_kept_and_a_list_after_one_is_dropped(tmp_path):
     # Qt quotes a byte array holding a separator and continues a long one on the next line with a
     # trailing backslash (the window's dock state does both once the window has enough panels)
-    from app.window.safe_settings import remove_unsafe_entries
+    from stagewright.gui.window.safe_settings import remove_unsafe_entries
     ini = tmp_path / "s.ini"
     state = '"@ByteArray(\\0\\0\\0\\xff;\\0\\x14\\0p\\0\\x61\\\n\\0n\\0\\x65)"'
     ini.write_text("[window]\nstate=" + state + '\nevil="@ByteArray(a)",@Variant(\\0)\n', encoding="utf-8")

@@ -12,9 +12,9 @@ import pytest
 from CoolProp.CoolProp import PropsSI
 from fluids.atmosphere import ATMOSPHERE_1976
 
-import thermo
+import stagewright.core
 from tests.conftest import SAMPLES
-from thermo.project import load
+from stagewright.core.project import load
 
 ALL = sorted(SAMPLES.glob("*.json"))
 REQUIRED = {"single_stage_workshop.json", "two_stage_plant_air.json", "three_stage_high_pressure.json",
@@ -23,7 +23,7 @@ REQUIRED = {"single_stage_workshop.json", "two_stage_plant_air.json", "three_sta
 
 def _solve(name):
     doc = load(SAMPLES / name)
-    return doc, thermo.solve(doc)
+    return doc, stagewright.core.solve(doc)
 
 
 def test_the_required_samples_exist():
@@ -34,7 +34,7 @@ def test_the_required_samples_exist():
 def test_sample_solves_closes_and_respects_its_limits(path):
     doc = load(path)
     assert doc["title"].strip() and doc["note"].startswith("Invented")
-    r = thermo.solve(doc)
+    r = stagewright.core.solve(doc)
     assert abs(r.energy_residual) <= 1e-6 and abs(r.exergy_residual) <= 1e-6
     # no limit is exceeded (condensate notes on humid samples are information, not a breach)
     assert [w for w in r.warnings if not w.field.endswith(".cooler.separator_efficiency")] == []
@@ -42,15 +42,15 @@ def test_sample_solves_closes_and_respects_its_limits(path):
         assert spec.get("max_discharge_temperature_K") is not None, "every sample states its stage limits"
         assert st.outlet.T < spec["max_discharge_temperature_K"]
         assert 0.0 < st.isentropic_efficiency < st.polytropic_efficiency <= 1.0
-    from thermo.project.delivery import delivery_pressure
-    from thermo.project.validation import normalise
+    from stagewright.core.project.delivery import delivery_pressure
+    from stagewright.core.project.validation import normalise
     assert r.delivery.P == pytest.approx(delivery_pressure(normalise(doc), r.dead.P0), rel=1e-9)
 
 
 @pytest.mark.parametrize("path", [p for p in ALL if load(p)["flow"]["kind"] == "free_air_delivery"],
                          ids=lambda p: p.name)
 def test_free_air_delivery_gives_the_mass_flow_of_ambient_air(path):
-    doc, r = load(path), thermo.solve(load(path))
+    doc, r = load(path), stagewright.core.solve(load(path))
     T0, P0 = doc["site"]["ambient_temperature_K"], r.dead.P0
     # ISO 1217 FAD is at the intake conditions; density from CoolProp PropsSI (HEOS air)
     rh = doc["site"].get("relative_humidity", 0.0)
@@ -106,4 +106,4 @@ def test_field_check_reproduces_the_readings_and_inverts():
         assert st.isentropic_efficiency == pytest.approx((h2s - h1) / (h2 + q - h1), rel=1e-6)
     # the inverse: the flow found, given as mass flow, takes the measured shaft power
     forward = dict(doc, flow={"kind": "mass", "value": r.mass_flow_kg_s})
-    assert thermo.solve(forward).shaft_power_W == pytest.approx(doc["flow"]["value"], rel=1e-9)
+    assert stagewright.core.solve(forward).shaft_power_W == pytest.approx(doc["flow"]["value"], rel=1e-9)

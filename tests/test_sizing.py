@@ -2,8 +2,8 @@
 import ht
 import pytest
 
-from thermo.errors import InputError
-from thermo.exchanger import ARRANGEMENTS, HotSide, make_coolant, size_exchanger
+from stagewright.core.errors import InputError
+from stagewright.core.exchanger import ARRANGEMENTS, HotSide, make_coolant, size_exchanger
 
 WATER = make_coolant({"kind": "water"}, (293.15, 101_325.0, 0.0))
 

@@ -10,10 +10,10 @@ import threading
 import pytest
 
 from tests.conftest import make_doc
-from thermo.errors import InputError
-from thermo.models import make_model
-from thermo.project.validation import normalise, resolve_site
-from thermo.solve_context import intake_state, mixture_for, release_thread_caches, solve_context
+from stagewright.core.errors import InputError
+from stagewright.core.models import make_model
+from stagewright.core.project.validation import normalise, resolve_site
+from stagewright.core.solve_context import intake_state, mixture_for, release_thread_caches, solve_context
 
 
 def _norm(**site):
@@ -76,7 +76,7 @@ def test_a_humidity_above_saturation_names_the_field():
 @pytest.mark.parametrize("rh", [0.0, 0.7])
 def test_free_air_delivery_from_the_contexts_ambient_equals_a_fresh_property_call(model, rh):
     # consistency: the solve converts FAD with the intake state it already has (no property call)
-    from thermo.flow import mass_flow_from
+    from stagewright.core.flow import mass_flow_from
     ctx = solve_context(_norm(relative_humidity=rh), make_model({"model": model}))
     T0, P0 = ctx.site.ambient_temperature_K, ctx.site.pressure_Pa
     for kind in ("free_air_delivery", "normal_volume", "mass"):

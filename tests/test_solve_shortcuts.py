@@ -3,7 +3,7 @@
 - Chart points (the cooling lines, the path of a stage with casing loss or exit velocity) are
   made when something reads them, never in the balance; made later they are the same points.
 - The polytropic efficiency of isentropic and measured-temperature moist stages comes from one
-  RK4 path integration (thermo.polytropic._from_one_path); the reference is the plain
+  RK4 path integration (stagewright.core.polytropic._from_one_path); the reference is the plain
   definition: the efficiency whose RK4 path (the public ``polytropic_path``) ends at the
   discharge temperature, found by Brent's method to 1e-15. The issue's tolerance: 1e-8 relative.
 
@@ -21,13 +21,13 @@ from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 from scipy.optimize import brentq
 
-import thermo
-from thermo import polytropic
-from thermo.chart_points import PointsOnDemand
-from thermo.models import RealGasAir
-from thermo.moist.mixture import make_mixture
-from thermo.moist.stream import MoistAir
-from thermo.polytropic import path_steps, polytropic_efficiency_between, polytropic_path
+import stagewright.core
+from stagewright.core import polytropic
+from stagewright.core.chart_points import PointsOnDemand
+from stagewright.core.models import RealGasAir
+from stagewright.core.moist.mixture import make_mixture
+from stagewright.core.moist.stream import MoistAir
+from stagewright.core.polytropic import path_steps, polytropic_efficiency_between, polytropic_path
 from tests.test_train import moist_projects
 
 REL = 1e-8
@@ -108,7 +108,7 @@ def test_the_balance_makes_no_chart_points():
            "fluid": {"model": "real_gas"}, "flow": {"kind": "mass", "value": 0.5}, "discharge_pressure_Pa": 9e5,
            "stages": [{"efficiency": {"kind": "isentropic", "value": 0.8}, "heat_loss_W": 800.0,
                        "cooler": {"outlet_temperature_K": 308.15}} for _ in range(2)]}
-    res = thermo.solve(doc)
+    res = stagewright.core.solve(doc)
     lazy = [s.path for s in res.stages] + [c.path for c in res.coolers]
     assert all(isinstance(p, PointsOnDemand) and not p.made for p in lazy)
     d = res.to_dict()
@@ -123,10 +123,10 @@ def test_chart_points_made_later_are_the_points_of_an_eager_solve(doc, heat_loss
     for s in doc["stages"]:
         s["heat_loss_W"] = heat_loss
     try:
-        late = thermo.solve(copy.deepcopy(doc))
-    except thermo.StagewrightError:
+        late = stagewright.core.solve(copy.deepcopy(doc))
+    except stagewright.core.StagewrightError:
         return
-    eager = thermo.solve(copy.deepcopy(doc))
+    eager = stagewright.core.solve(copy.deepcopy(doc))
     eager_paths = [(list(s.path), list(c.path) if c else None) for s, c in zip(eager.stages, eager.coolers)]
     d_late = late.to_dict()
     assert _dict_without_paths(d_late) == _dict_without_paths(eager.to_dict())
@@ -155,9 +155,9 @@ def test_a_stage_whose_estimate_is_poor_still_finds_the_root(monkeypatch):
 def test_trial_solves_reuse_unchanged_leading_stages_and_report_the_same(monkeypatch):
     # issue 19: a study's trial that changes stage j's ratio takes stages before j from an
     # earlier trial; the reference is the same trial solved from scratch
-    from thermo import train
-    from thermo.project.validation import normalise
-    from thermo.solve import solve_normalised
+    from stagewright.core import train
+    from stagewright.core.project.validation import normalise
+    from stagewright.core.solve import solve_normalised
     doc = {"site": {"ambient_temperature_K": 303.15, "barometric_pressure_Pa": 100e3, "relative_humidity": 0.6},
            "fluid": {"model": "real_gas"}, "flow": {"kind": "free_air_delivery", "value": 0.5},
            "discharge_pressure_Pa": 30e5,
@@ -191,5 +191,5 @@ def test_interaction_term_of_condensed_water_is_differentiated_analytically(T, P
 
 
 def _p_ws(T):
-    from thermo.moist.saturation import saturation_pressure
+    from stagewright.core.moist.saturation import saturation_pressure
     return saturation_pressure(T)

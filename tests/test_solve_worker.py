@@ -8,7 +8,7 @@ import pytest
 
 pytest.importorskip("pytestqt")
 
-from app.jobs.solve_worker import SolveController  # noqa: E402
+from stagewright.gui.jobs.solve_worker import SolveController  # noqa: E402
 
 pytestmark = pytest.mark.gui
 
@@ -34,14 +34,14 @@ def test_only_the_newest_job_answers(qtbot, controller, doc_factory):
 
 
 def test_solves_run_in_another_thread(qtbot, controller, doc_factory, monkeypatch):
-    import thermo
+    import stagewright.core
     threads = []
-    real = thermo.solve
+    real = stagewright.core.solve
 
     def spy(doc):
         threads.append(threading.get_ident())
         return real(doc)
-    monkeypatch.setattr(thermo, "solve", spy)
+    monkeypatch.setattr(stagewright.core, "solve", spy)
     with qtbot.waitSignal(controller.finished, timeout=30_000):
         controller.request(doc_factory(), immediate=True)
     assert threads and threads[0] != threading.get_ident()

@@ -6,8 +6,8 @@ import math
 import pytest
 from hypothesis import assume, given, settings, strategies as st
 
-from thermo.errors import InputError
-from thermo.split import delivered_pressure, stage_pressure_ratios
+from stagewright.core.errors import InputError
+from stagewright.core.split import delivered_pressure, stage_pressure_ratios
 
 
 def test_two_stages_without_drops_split_at_the_geometric_mean():

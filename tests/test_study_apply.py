@@ -1,7 +1,7 @@
 """A study option back into the project: the stage list reproduces the option, field paths
 map to the project's own fields, and the study key tells when a study still fits.
 
-A project with applied ratios is solved by ``thermo.solve`` and must give the option's
+A project with applied ratios is solved by ``stagewright.core.solve`` and must give the option's
 numbers; where a number is checked against a source it is the closed form of staged
 perfect-gas compression (``fluids.compressible.isentropic_work_compression``, C. Bell,
 fluids / ChEDL on PyPI; Çengel & Boles, *Thermodynamics*, 8th ed., 2015, §7-11).
@@ -14,11 +14,11 @@ import json
 import pytest
 from fluids.compressible import isentropic_work_compression
 
-from app.study.apply import apply_text, option_stages, project_field, study_key
-from app.study.job import StudyRequest, run_request
+from stagewright.gui.study.apply import apply_text, option_stages, project_field, study_key
+from stagewright.gui.study.job import StudyRequest, run_request
 from conftest import SAMPLES, make_doc
-from thermo import solve
-from thermo.project.validation import problems
+from stagewright.core import solve
+from stagewright.core.project.validation import problems
 
 R_MOLAR, M_AIR = 8.314462618, 0.02896546  # J/(mol K) CODATA 2018; kg/mol (CoolProp's air)
 

@@ -7,7 +7,7 @@ import pytest
 
 pytest.importorskip("pytestqt")
 
-from app.study.chart_view import StagingChartView  # noqa: E402
+from stagewright.gui.study.chart_view import StagingChartView  # noqa: E402
 
 pytestmark = pytest.mark.gui
 HP_W = 745.69987158

@@ -3,7 +3,7 @@ import json
 import subprocess
 import sys
 
-from app.cli.main import main
+from stagewright.gui.cli.main import main
 
 from conftest import SAMPLES, make_doc
 
@@ -82,7 +82,7 @@ def test_vary_gives_one_block_per_value(capsys):
 
 
 def test_study_never_imports_qt():
-    code = ("import sys; from app.cli.main import main; main(['study', %r, '--max-stages', '1', '--json']); "
+    code = ("import sys; from stagewright.gui.cli.main import main; main(['study', %r, '--max-stages', '1', '--json']); "
             "print(any(m.startswith('PySide6') for m in sys.modules))" % str(SAMPLE))
     out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=False).stdout
     assert out.strip().splitlines()[-1] == "False"

@@ -4,9 +4,9 @@ import json
 import pytest
 from fluids.compressible import isentropic_work_compression
 
-from thermo.errors import InputError
-from thermo.results import TrainResult
-from thermo.study import StudyCancelled, compare_stagings
+from stagewright.core.errors import InputError
+from stagewright.core.results import TrainResult
+from stagewright.core.study import StudyCancelled, compare_stagings
 
 from conftest import make_doc
 

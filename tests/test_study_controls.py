@@ -10,9 +10,9 @@ pytest.importorskip("pytestqt")
 
 from conftest import make_doc  # noqa: E402
 
-from app.document.display_prefs import DisplayPrefs  # noqa: E402
-from app.document.model import ProjectModel  # noqa: E402
-from app.study.controls import StudyControls, study_stage_count  # noqa: E402
+from stagewright.gui.document.display_prefs import DisplayPrefs  # noqa: E402
+from stagewright.gui.document.model import ProjectModel  # noqa: E402
+from stagewright.gui.study.controls import StudyControls, study_stage_count  # noqa: E402
 
 pytestmark = pytest.mark.gui
 

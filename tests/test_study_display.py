@@ -3,13 +3,13 @@ in display units naming the project's field, values typed for a site variable.
 
 Unit factors are exact by definition (NIST SP 811, 2008, App. B: 1 hp = 745.69987158 W,
 T[°F] = T[K]·9/5 − 459.67, 1 K difference = 1.8 °F). The comparison rows are the plain data
-of ``thermo.study``; a few are written out here so every kind of limit is covered.
+of ``stagewright.core.study``; a few are written out here so every kind of limit is covered.
 """
 from __future__ import annotations
 
 import pytest
 
-from app.study.display import (COLUMNS, case_label, cells, format_values, header, limit_messages,
+from stagewright.gui.study.display import (COLUMNS, case_label, cells, format_values, header, limit_messages,
                                limit_summary, parse_values, tooltip)
 
 HP_W = 745.69987158

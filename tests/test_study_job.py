@@ -9,9 +9,9 @@ from __future__ import annotations
 import pytest
 from fluids.compressible import isentropic_work_compression
 
-from app.study.job import StudyRequest, partial_answer, run_request
+from stagewright.gui.study.job import StudyRequest, partial_answer, run_request
 from conftest import make_doc
-from thermo.study import StudyCancelled
+from stagewright.core.study import StudyCancelled
 
 R_MOLAR, M_AIR = 8.314462618, 0.02896546  # J/(mol K) CODATA 2018; kg/mol (CoolProp's air)
 
@@ -55,12 +55,12 @@ def test_a_cancelled_study_keeps_what_it_finished():
 
 def test_trial_progress_counts_the_trial_solves_between_the_studys_reports():
     # the study asks whether to stop once as it starts an option and once before every trial
-    # solve (thermo.study.trials.TrialSolver); the count of the latter grows within an option,
+    # solve (stagewright.core.study.trials.TrialSolver); the count of the latter grows within an option,
     # starts again with the next, and ends at the option's own count of solves
     import re
     import threading
 
-    from app.study.job import TrialProgress
+    from stagewright.gui.study.job import TrialProgress
     seen = []
     progress = TrialProgress(lambda f, m: seen.append((f, m)), threading.Event(), interval=0.0)
     ans = run_request(StudyRequest(doc(), 3, 6000.0, 0.2), progress.report, progress.cancel)

@@ -3,8 +3,8 @@ import math
 
 import pytest
 
-from thermo.split import delivered_pressure
-from thermo.study.limits import RatioBounds, implied_ratio, pressure_reach_problems, ratio_bounds
+from stagewright.core.split import delivered_pressure
+from stagewright.core.study.limits import RatioBounds, implied_ratio, pressure_reach_problems, ratio_bounds
 
 
 def bounds(lo, hi):

@@ -6,11 +6,11 @@ import numpy as np
 import pytest
 from fluids.compressible import isentropic_work_compression
 
-import thermo
-from thermo.errors import InputError
-from thermo.split import delivered_pressure
-from thermo.study import LimitNotMet, StudyCancelled, optimal_split
-from thermo.study.limits import implied_ratio
+import stagewright.core
+from stagewright.core.errors import InputError
+from stagewright.core.split import delivered_pressure
+from stagewright.core.study import LimitNotMet, StudyCancelled, optimal_split
+from stagewright.core.study.limits import implied_ratio
 
 from conftest import make_doc
 
@@ -94,7 +94,7 @@ def _real_doc(n):
 def _power_at(doc, ratios):
     d = dict(doc)
     d["stages"] = [dict(s, pressure_ratio=r) for s, r in zip(doc["stages"], ratios)]
-    return thermo.solve(d, detail=False).driver_power_W
+    return stagewright.core.solve(d, detail=False).driver_power_W
 
 
 def test_two_stage_optimum_not_worse_than_brute_force_grid():
@@ -220,7 +220,7 @@ def test_active_ratio_bound_and_held_stage():
 
 def test_measured_temperature_and_shaft_power_are_restated_with_notes():
     base_doc = make_doc(model="ideal_gas", stages=2, p_out=9e5, drop=5000.0)
-    base = thermo.solve(base_doc)
+    base = stagewright.core.solve(base_doc)
     doc = make_doc(model="ideal_gas", stages=2, p_out=9e5, drop=5000.0, flow=("shaft_power", base.shaft_power_W))
     doc["stages"][1]["efficiency"] = {"kind": "discharge_temperature", "value_K": base.stages[1].outlet.T}
     out = optimal_split(doc)
@@ -262,7 +262,7 @@ def test_coolers_rated_from_ua_are_optimised_too():
         st["cooler"] = {"ua_W_K": 2500.0, "coolant": {"kind": "water", "flow_kg_s": 1.0},
                         "coolant_inlet_temperature_K": 293.15, "pressure_drop_Pa": 5000.0}
     out = optimal_split(doc)
-    equal = thermo.solve(doc)  # the project's own (equal) split
+    equal = stagewright.core.solve(doc)  # the project's own (equal) split
     assert out.result.driver_power_W <= equal.driver_power_W
     p_in = out.result.inlet.outlet.P
     grid = [_power_at(doc, [r1, implied_ratio(p_in, 9e5, [r1, None], [5000.0] * 2, 1)])

@@ -8,7 +8,7 @@ import pytest
 
 pytest.importorskip("pytestqt")
 
-from app.study.options_table import OptionsTable, apply_state, best_row, comparison_note  # noqa: E402
+from stagewright.gui.study.options_table import OptionsTable, apply_state, best_row, comparison_note  # noqa: E402
 
 pytestmark = pytest.mark.gui
 HP_W = 745.69987158

@@ -22,7 +22,7 @@ from fluids.compressible import isentropic_work_compression  # noqa: E402
 
 from conftest import make_doc  # noqa: E402
 from gui_support import make_window, wait_solved  # noqa: E402
-from thermo.project import dumps  # noqa: E402
+from stagewright.core.project import dumps  # noqa: E402
 
 pytestmark = pytest.mark.gui
 
@@ -86,8 +86,8 @@ def test_a_study_fills_the_table_with_the_classical_optimum(qtbot, tmp_path):
 
 
 def test_cancel_stops_the_study_and_the_window_stays_usable(qtbot, tmp_path, monkeypatch):
-    import thermo.study
-    real = thermo.study.compare_stagings
+    import stagewright.core.study
+    real = stagewright.core.study.compare_stagings
     held = threading.Event()
     first_call = [True]
 
@@ -101,7 +101,7 @@ def test_cancel_stops_the_study_and_the_window_stays_usable(qtbot, tmp_path, mon
                 held.set()
                 cancel.wait(20)  # the study waits here until the user presses Cancel
         return real(doc, max_stages, progress=report, cancel=cancel, **kw)
-    monkeypatch.setattr(thermo.study, "compare_stagings", held_after_first_option)
+    monkeypatch.setattr(stagewright.core.study, "compare_stagings", held_after_first_option)
 
     win = make_window(qtbot, tmp_path, perfect_gas_doc())
     panel = win.panels["study"]
@@ -130,8 +130,8 @@ def test_cancel_stops_the_study_and_the_window_stays_usable(qtbot, tmp_path, mon
 def _held_study(monkeypatch, before: threading.Event, after: threading.Event):
     """compare_stagings held until ``before`` is set, and again after it optimised every option
     (its last report, 1.0) until ``after`` is set; returns the events it sets when it gets there."""
-    import thermo.study
-    real = thermo.study.compare_stagings
+    import stagewright.core.study
+    real = stagewright.core.study.compare_stagings
     started, optimised = threading.Event(), threading.Event()
 
     def held(doc, max_stages=4, *, progress=None, cancel=None, **kw):
@@ -141,7 +141,7 @@ def _held_study(monkeypatch, before: threading.Event, after: threading.Event):
         optimised.set()
         after.wait(20)  # the answer is not in yet
         return comparison
-    monkeypatch.setattr(thermo.study, "compare_stagings", held)
+    monkeypatch.setattr(stagewright.core.study, "compare_stagings", held)
     return started, optimised
 
 
@@ -300,7 +300,7 @@ def test_the_panel_has_a_view_toggle_and_its_layout_is_remembered(qtbot, tmp_pat
     from PySide6.QtCore import QSettings
     from PySide6.QtWidgets import QToolBar
 
-    from app.window.main_window import MainWindow
+    from stagewright.gui.window.main_window import MainWindow
     win = make_window(qtbot, tmp_path, perfect_gas_doc())
     view = next(a.menu() for a in win.menuBar().actions() if a.text() == "&View")
     toggle = next(a for a in view.actions() if a.text() == "Staging study")
@@ -347,8 +347,8 @@ def test_bad_study_input_is_reported_with_its_field(qtbot, tmp_path):
 
 def test_an_option_kept_as_a_case_solves_to_the_study_numbers(qtbot, tmp_path):
     # issue 20: the options of a staging study can be kept as cases of the project
-    import thermo
-    from thermo.project.cases import case_document, case_names
+    import stagewright.core
+    from stagewright.core.project.cases import case_document, case_names
 
     win = make_window(qtbot, tmp_path, perfect_gas_doc())
     ed = win.editor
@@ -361,7 +361,7 @@ def test_an_option_kept_as_a_case_solves_to_the_study_numbers(qtbot, tmp_path):
     project = ed.model.project_snapshot()
     assert case_names(project) == ["Base", "3 stages (study)"] and ed.undo_stack.count() == count + 1
     assert ed.model.active_case == "Base" and ed.model.stage_count == 2  # the case shown is unchanged
-    kept = thermo.solve(case_document(project, "3 stages (study)"))
+    kept = stagewright.core.solve(case_document(project, "3 stages (study)"))
     assert kept.driver_power_W / 1e3 == pytest.approx(optimum_kW(3), abs=0.006)
     ed.undo_stack.undo()
     assert case_names(ed.model.project_snapshot()) == ["Base"]

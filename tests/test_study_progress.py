@@ -3,8 +3,8 @@ import threading
 
 import pytest
 
-from thermo.errors import StagewrightError
-from thermo.study.progress import ProgressSpan, StudyCancelled, cancel_check
+from stagewright.core.errors import StagewrightError
+from stagewright.core.study.progress import ProgressSpan, StudyCancelled, cancel_check
 
 
 def test_cancel_check_accepts_event_callable_and_none():

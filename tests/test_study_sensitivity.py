@@ -1,8 +1,8 @@
 """The comparison across a site variable."""
 import pytest
 
-from thermo.errors import InputError
-from thermo.study import StudyCancelled, compare_stagings, sensitivity
+from stagewright.core.errors import InputError
+from stagewright.core.study import StudyCancelled, compare_stagings, sensitivity
 
 from conftest import make_doc
 

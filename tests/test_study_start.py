@@ -1,10 +1,10 @@
 """Starting splits: the equal split and the ideal-gas optimum."""
 import pytest
 
-from thermo.models import ConstantCpAir
-from thermo.study.limits import ratio_bounds
-from thermo.study.prepare import prepare
-from thermo.study.start import equal_split, ideal_gas_split
+from stagewright.core.models import ConstantCpAir
+from stagewright.core.study.limits import ratio_bounds
+from stagewright.core.study.prepare import prepare
+from stagewright.core.study.start import equal_split, ideal_gas_split
 
 from conftest import make_doc
 

@@ -1,9 +1,9 @@
 """Trial solves: the lean core solve gives the same powers and states as the full one."""
 import pytest
 
-import thermo
-from thermo.study.progress import StudyCancelled
-from thermo.study.trials import TrialSolver, soft_limits
+import stagewright.core
+from stagewright.core.study.progress import StudyCancelled
+from stagewright.core.study.trials import TrialSolver, soft_limits
 
 from conftest import make_doc
 
@@ -16,7 +16,7 @@ def test_lean_solve_equals_full_solve(model, kind):
     doc = make_doc(model=model, stages=3, kind=kind, eta=0.81, p_out=15e5, drop=9000.0,
                    flow=("free_air_delivery", 0.3))
     doc["stages"][1].update({"heat_loss_W": 900.0, "exit_velocity_m_s": 30.0, "mechanical_efficiency": 0.97})
-    full, lean = thermo.solve(doc), thermo.solve(doc, detail=False)
+    full, lean = stagewright.core.solve(doc), stagewright.core.solve(doc, detail=False)
     assert lean.driver_power_W == pytest.approx(full.driver_power_W, rel=1e-12)
     assert lean.exergy_destroyed_W == pytest.approx(full.exergy_destroyed_W, rel=1e-10)
     for a, b in zip(lean.stages, full.stages):
@@ -26,7 +26,7 @@ def test_lean_solve_equals_full_solve(model, kind):
 
 
 def test_trials_are_cached_and_cancellable():
-    doc = thermo.project.validation.normalise(make_doc(model="constant_cp", stages=2))
+    doc = stagewright.core.project.validation.normalise(make_doc(model="constant_cp", stages=2))
     doc["stages"] = [dict(s, max_discharge_temperature_K=400.0) for s in doc["stages"]]
     stop = {"now": False}
     ts = TrialSolver(doc, soft_limits(doc["stages"], 293.15), lambda: stop["now"])

@@ -12,8 +12,8 @@ pytest.importorskip("pytestqt")
 
 from fluids.compressible import isentropic_work_compression  # noqa: E402
 
-from app.study.job import StudyRequest  # noqa: E402
-from app.study.worker import StudyController  # noqa: E402
+from stagewright.gui.study.job import StudyRequest  # noqa: E402
+from stagewright.gui.study.worker import StudyController  # noqa: E402
 from conftest import make_doc  # noqa: E402
 
 pytestmark = pytest.mark.gui
@@ -36,14 +36,14 @@ def controller(qtbot):
 
 
 def test_a_study_runs_in_another_thread_and_reports_progress(qtbot, controller, monkeypatch):
-    import thermo.study
+    import stagewright.core.study
     threads, fractions = [], []
-    real = thermo.study.compare_stagings
+    real = stagewright.core.study.compare_stagings
 
     def spy(*a, **kw):
         threads.append(threading.get_ident())
         return real(*a, **kw)
-    monkeypatch.setattr(thermo.study, "compare_stagings", spy)
+    monkeypatch.setattr(stagewright.core.study, "compare_stagings", spy)
     controller.progress.connect(lambda job, f, m: fractions.append(f))
     with qtbot.waitSignal(controller.finished, timeout=30_000) as blocker:
         controller.run(request(3))
@@ -69,8 +69,8 @@ def test_only_the_newest_study_answers(qtbot, controller):
 
 
 def test_cancel_answers_with_the_options_finished(qtbot, controller, monkeypatch):
-    import thermo.study
-    real = thermo.study.compare_stagings
+    import stagewright.core.study
+    real = stagewright.core.study.compare_stagings
     reached = threading.Event()
 
     def held(doc, max_stages=4, *, progress=None, cancel=None, **kw):
@@ -80,7 +80,7 @@ def test_cancel_answers_with_the_options_finished(qtbot, controller, monkeypatch
                 reached.set()
                 cancel.wait(20)  # hold after the first option until cancelled
         return real(doc, max_stages, progress=report, cancel=cancel, **kw)
-    monkeypatch.setattr(thermo.study, "compare_stagings", held)
+    monkeypatch.setattr(stagewright.core.study, "compare_stagings", held)
     controller.run(request(5))
     qtbot.waitUntil(reached.is_set, timeout=30_000)
     with qtbot.waitSignal(controller.cancelled, timeout=30_000) as blocker:

@@ -3,9 +3,9 @@ import threading
 
 import pytest
 
-import thermo
+import stagewright.core
 from tests.conftest import make_doc
-from thermo.sweep import SweepCancelled, sweep
+from stagewright.core.sweep import SweepCancelled, sweep
 
 
 def test_grid_order_and_values_match_single_solves():
@@ -16,7 +16,7 @@ def test_grid_order_and_values_match_single_solves():
     for i, (T0, p) in enumerate(res.points):
         d = make_doc(model="ideal_gas", p_out=p, cool_to=310.0)
         d["site"]["ambient_temperature_K"] = T0
-        assert res.values["shaft_power_W"][i] == pytest.approx(thermo.solve(d).shaft_power_W, rel=1e-12)
+        assert res.values["shaft_power_W"][i] == pytest.approx(stagewright.core.solve(d).shaft_power_W, rel=1e-12)
 
 
 def test_humid_sweep_reports_the_condensate_of_each_point():
@@ -28,7 +28,7 @@ def test_humid_sweep_reports_the_condensate_of_each_point():
     for i, (p,) in enumerate(res.points):
         d = make_doc(model="real_gas", p_out=p, cool_to=305.0)
         d["site"]["relative_humidity"] = 0.7
-        exact = thermo.solve(d)
+        exact = stagewright.core.solve(d)
         assert exact.water.condensate_kg_s > 0.0
         assert res.values["condensate_kg_s"][i] == pytest.approx(exact.water.condensate_kg_s, rel=1e-4)
         assert res.values["max_discharge_temperature_K"][i] == pytest.approx(

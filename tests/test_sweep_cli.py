@@ -6,9 +6,9 @@ import sys
 
 import pytest
 
-import thermo
-from app.cli.main import main
-from app.cli.sweep import parse_axis
+import stagewright.core
+from stagewright.gui.cli.main import main
+from stagewright.gui.cli.sweep import parse_axis
 from conftest import SAMPLES
 
 DEMO = SAMPLES / "two_stage_plant_air.json"
@@ -32,7 +32,7 @@ def test_each_row_equals_the_solve_of_its_point(tmp_path):
         doc = json.loads(DEMO.read_text())
         doc["site"]["ambient_temperature_K"] = float(r["site.ambient_temperature_K"])
         doc["discharge_pressure_Pa"] = float(r["discharge_pressure_Pa"])
-        res = thermo.solve(doc)
+        res = stagewright.core.solve(doc)
         assert float(r["shaft_power_W"]) == pytest.approx(res.shaft_power_W, rel=1e-4)
         assert float(r["condensate_kg_s"]) == pytest.approx(res.water.condensate_kg_s, rel=1e-4, abs=1e-12)
         assert r["error"] == ""
@@ -77,7 +77,7 @@ def test_axis_forms():
 
 
 def test_sweep_never_imports_qt(tmp_path):
-    code = ("import sys; from app.cli.main import main; "
+    code = ("import sys; from stagewright.gui.cli.main import main; "
             f"main(['sweep', {str(DEMO)!r}, '--axis', 'discharge_pressure_Pa=7e5,8e5', '-o', {str(tmp_path / 'o.csv')!r}]); "
             "assert not any(m.startswith('PySide6') for m in sys.modules), 'Qt imported'")
     subprocess.run([sys.executable, "-c", code], check=True)
@@ -91,7 +91,7 @@ def test_a_gauge_axis_on_an_absolute_project_replaces_its_statement(tmp_path, ca
     del doc["discharge_pressure_Pa"]
     doc["discharge_gauge_pressure_Pa"] = 7e5
     assert row["error"] == ""
-    assert float(row["shaft_power_W"]) == pytest.approx(thermo.solve(doc).shaft_power_W, rel=1e-4)  # fast path
+    assert float(row["shaft_power_W"]) == pytest.approx(stagewright.core.solve(doc).shaft_power_W, rel=1e-4)  # fast path
     assert main(["sweep", str(DEMO), "--axis", "discharge_gauge_pressure_Pa=7e5",
                  "--axis", "discharge_pressure_Pa=8e5", "-o", str(tmp_path / "both.csv")]) == 2
     assert "not both" in capsys.readouterr().err

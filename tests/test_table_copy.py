@@ -12,7 +12,7 @@ from PySide6.QtCore import Qt  # noqa: E402
 from PySide6.QtGui import QGuiApplication  # noqa: E402
 from PySide6.QtWidgets import QTableWidget, QTableWidgetItem  # noqa: E402
 
-from app.widgets.table_copy import attach_table_copy, clipboard_cell, table_rows, tsv  # noqa: E402
+from stagewright.gui.widgets.table_copy import attach_table_copy, clipboard_cell, table_rows, tsv  # noqa: E402
 from gui_support import make_window, wait_solved  # noqa: E402
 
 pytestmark = pytest.mark.gui
@@ -141,7 +141,7 @@ def test_out_of_date_numbers_copy_under_the_out_of_date_note(qtbot, tmp_path):
 
 
 def test_study_options_table_copies_its_options(qtbot):
-    from app.study.options_table import OptionsTable
+    from stagewright.gui.study.options_table import OptionsTable
     rows = [{"stages": n, "pressure_ratios": [9 ** (1 / n)] * n, "driver_power_W": p, "feasible": True,
              "binding_limits": [], "note": ""} for n, p in ((2, 260_000.0), (3, 250_000.0))]  # invented
     table = OptionsTable()

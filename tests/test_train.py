@@ -5,7 +5,7 @@ import pytest
 from hypothesis import HealthCheck, assume, given, settings
 from hypothesis import strategies as st
 
-import thermo
+import stagewright.core
 from tests.conftest import make_doc
 
 
@@ -16,7 +16,7 @@ def test_two_stage_perfect_intercooling_matches_closed_form():
     w = 2 cp T1 (r^((k-1)/k) − 1) / ηs with r = √(p2/p1).
     """
     doc = make_doc(stages=2, eta=0.8, p_out=16e5, T0=300.0)
-    res = thermo.solve(doc)
+    res = stagewright.core.solve(doc)
     cp, k = 1005.0, 1.4
     r = math.sqrt(16.0)
     w = 2 * cp * 300.0 * (r ** ((k - 1) / k) - 1) / 0.8
@@ -26,7 +26,7 @@ def test_two_stage_perfect_intercooling_matches_closed_form():
 
 def test_isothermal_power_is_ideal_gas_closed_form():
     # w_iso = R T0 ln(p2/p1) for an ideal gas (Çengel & Boles 2015, eq. 7-57)
-    res = thermo.solve(make_doc(stages=3, p_out=20e5, T0=300.0))
+    res = stagewright.core.solve(make_doc(stages=3, p_out=20e5, T0=300.0))
     R = 1005.0 * 0.4 / 1.4
     assert res.isothermal_power_W == pytest.approx(R * 300.0 * math.log(20.0), rel=1e-12)
 
@@ -34,13 +34,13 @@ def test_isothermal_power_is_ideal_gas_closed_form():
 def test_real_gas_aftercooler_rejects_more_than_shaft_work():
     # Joule–Thomson: real air compressed to 8 bar(a) and cooled back to the inlet temperature has
     # lower enthalpy than at intake (Lemmon et al. 2000 EOS), so the cooler duty exceeds the work.
-    res = thermo.solve(make_doc(model="real_gas", stages=1, p_out=8e5, T0=293.15))
+    res = stagewright.core.solve(make_doc(model="real_gas", stages=1, p_out=8e5, T0=293.15))
     assert res.coolers[0].duty_W > res.shaft_power_W
     assert res.energy_residual == pytest.approx(0.0, abs=1e-12)
 
 
 def test_equal_split_accounts_for_cooler_pressure_drops():
-    res = thermo.solve(make_doc(stages=3, p_out=25e5, drop=20_000.0))
+    res = stagewright.core.solve(make_doc(stages=3, p_out=25e5, drop=20_000.0))
     assert res.delivery.P == pytest.approx(25e5, rel=1e-12)
     ratios = [s.pressure_ratio for s in res.stages]
     assert max(ratios) - min(ratios) < 1e-12
@@ -51,19 +51,19 @@ def test_shaft_power_mode_inverts_mass_flow_mode(model):
     doc = make_doc(model=model, stages=2, p_out=9e5, flow=("mass", 0.73))
     doc["stages"][0]["heat_loss_W"] = 2500.0
     doc["driver"] = {"efficiency": 0.94}
-    forward = thermo.solve(doc)
+    forward = stagewright.core.solve(doc)
     doc["flow"] = {"kind": "shaft_power", "value": forward.shaft_power_W}
-    back = thermo.solve(doc)
+    back = stagewright.core.solve(doc)
     assert back.mass_flow_kg_s == pytest.approx(0.73, rel=1e-9)
 
 
 def test_field_check_measured_temperatures_and_power_give_flow_and_efficiencies():
     doc = make_doc(model="real_gas", stages=2, p_out=9e5, flow=("mass", 1.1))
-    design = thermo.solve(doc)
+    design = stagewright.core.solve(doc)
     for spec, st_ in zip(doc["stages"], design.stages):
         spec["efficiency"] = {"kind": "discharge_temperature", "value_K": st_.outlet.T}
     doc["flow"] = {"kind": "shaft_power", "value": design.shaft_power_W}
-    check = thermo.solve(doc)
+    check = stagewright.core.solve(doc)
     assert check.mass_flow_kg_s == pytest.approx(1.1, rel=1e-9)
     assert [s.isentropic_efficiency for s in check.stages] == pytest.approx([0.8, 0.8], rel=1e-9)
 
@@ -71,7 +71,7 @@ def test_field_check_measured_temperatures_and_power_give_flow_and_efficiencies(
 def test_free_air_delivery_uses_intake_density():
     # ISO 1217 (from memory): FAD is the delivered flow expressed at the standard inlet point
     doc = make_doc(model="ideal_gas", flow=("free_air_delivery", 0.25), T0=303.15, P0=97_000.0)
-    res = thermo.solve(doc)
+    res = stagewright.core.solve(doc)
     R = res.stages[0].inlet.P / (res.stages[0].inlet.rho * res.stages[0].inlet.T)
     assert res.mass_flow_kg_s == pytest.approx(0.25 * 97_000.0 / (R * 303.15), rel=1e-12)
     assert res.free_air_delivery_m3_s == pytest.approx(0.25, rel=1e-12)
@@ -79,7 +79,7 @@ def test_free_air_delivery_uses_intake_density():
 
 def test_normal_volume_uses_din_1343_state():
     # DIN 1343: 273.15 K, 101 325 Pa
-    res = thermo.solve(make_doc(model="constant_cp", flow=("normal_volume", 1.0)))
+    res = stagewright.core.solve(make_doc(model="constant_cp", flow=("normal_volume", 1.0)))
     R = 1005.0 * 0.4 / 1.4
     assert res.mass_flow_kg_s == pytest.approx(101_325.0 / (R * 273.15), rel=1e-12)
 
@@ -123,8 +123,8 @@ def _plausible(doc):
 def test_random_trains_close_both_balances_and_obey_second_law(doc):
     assume(_plausible(doc))
     try:
-        res = thermo.solve(doc)
-    except thermo.StagewrightError as exc:
+        res = stagewright.core.solve(doc)
+    except stagewright.core.StagewrightError as exc:
         # an honest refusal is allowed (e.g. cooler coolant warmer than the stage discharge),
         # but it checks no balance: ask hypothesis for another train
         assert exc.args[0]
@@ -150,7 +150,7 @@ import json
 
 import pytest
 
-import thermo
+import stagewright.core
 from tests.conftest import ROOT
 
 BASELINE = json.loads((ROOT / "tests" / "data" / "dry_baseline.json").read_text())
@@ -187,7 +187,7 @@ def test_dry_intake_reproduces_the_dry_air_core_exactly(name):
     for spec, st in zip(case["doc"]["stages"], expected["stages"]):
         if spec.get("heat_loss_W") or spec.get("exit_velocity_m_s"):
             st.pop("path")
-    _same(expected, thermo.solve(copy.deepcopy(case["doc"])).to_dict(), rel=1e-12)
+    _same(expected, stagewright.core.solve(copy.deepcopy(case["doc"])).to_dict(), rel=1e-12)
 
 
 @pytest.mark.parametrize("humidity", [{"relative_humidity": 0.0}, {"humidity_ratio": 0.0}, {}])
@@ -197,7 +197,7 @@ def test_zero_humidity_given_any_way_is_the_dry_path(humidity):
     dry["site"].pop("relative_humidity", None)
     doc = copy.deepcopy(dry)
     doc["site"].update(humidity)
-    _same(thermo.solve(dry).to_dict(), thermo.solve(doc).to_dict())
+    _same(stagewright.core.solve(dry).to_dict(), stagewright.core.solve(doc).to_dict())
 
 
 # ---- moist intake air: conservation and the second law, property-based ----------------------
@@ -236,7 +236,7 @@ def moist_projects(draw, models=("constant_cp", "ideal_gas"), always_cool=False)
 
 
 def _check_moist_balances(doc):
-    res = thermo.solve(doc)
+    res = stagewright.core.solve(doc)
     d = res.to_dict()
     assert abs(d["water_balance_residual"]) <= 1e-9
     assert abs(d["energy_residual"]) <= 1e-6 and abs(d["exergy_residual"]) <= 1e-6
@@ -272,9 +272,9 @@ def test_vanishing_humidity_tends_to_the_dry_result():
     # so a tiny humidity must give nearly the dry result (the dry path itself is separate code)
     for model in ("real_gas", "ideal_gas"):
         doc = copy.deepcopy(BASELINE[f"{model}_isentropic_3"]["doc"])
-        dry = thermo.solve(copy.deepcopy(doc))
+        dry = stagewright.core.solve(copy.deepcopy(doc))
         doc["site"]["humidity_ratio"] = 1e-9
-        wet = thermo.solve(doc)
+        wet = stagewright.core.solve(doc)
         assert wet.shaft_power_W == pytest.approx(dry.shaft_power_W, rel=1e-8)
         assert wet.stages[-1].outlet.T == pytest.approx(dry.stages[-1].outlet.T, abs=1e-6)
 
@@ -282,13 +282,13 @@ def test_vanishing_humidity_tends_to_the_dry_result():
 def test_sample_projects_solve_with_closed_balances():
     from tests.conftest import SAMPLES
     for path in sorted(SAMPLES.glob("*.json")):
-        d = thermo.solve(json.loads(path.read_text())).to_dict()
+        d = stagewright.core.solve(json.loads(path.read_text())).to_dict()
         assert abs(d["energy_residual"]) <= 1e-6 and abs(d["exergy_residual"]) <= 1e-6, path.name
 
 
 def _assert_lean_matches_full(doc, rel=1e-9):
     """The lean solve (``detail=False``: trial solves of studies and sweeps) against the full one."""
-    full, lean = thermo.solve(copy.deepcopy(doc)), thermo.solve(copy.deepcopy(doc), detail=False)
+    full, lean = stagewright.core.solve(copy.deepcopy(doc)), stagewright.core.solve(copy.deepcopy(doc), detail=False)
     for name in ("shaft_power_W", "driver_power_W", "heat_rejected_W", "entropy_generation_W_K",
                  "exergy_destroyed_W", "isothermal_power_W", "free_air_delivery_m3_s"):
         assert getattr(lean, name) == pytest.approx(getattr(full, name), rel=rel), name
@@ -324,13 +324,13 @@ def test_flow_from_shaft_power_equals_the_solve_at_its_mass_flow(heat_loss):
     doc["site"]["relative_humidity"] = 0.7
     for s in doc["stages"]:
         s["heat_loss_W"] = heat_loss
-    power = 1.3 * thermo.solve(copy.deepcopy(doc)).shaft_power_W
+    power = 1.3 * stagewright.core.solve(copy.deepcopy(doc)).shaft_power_W
     doc["flow"] = {"kind": "shaft_power", "value": power}
-    res = thermo.solve(copy.deepcopy(doc))
+    res = stagewright.core.solve(copy.deepcopy(doc))
     assert res.shaft_power_W == pytest.approx(power, rel=1e-12)
     assert res.stages[0].path[1:-1], "the answer is a full solve (points along the path)"
     doc["flow"] = {"kind": "mass", "value": res.mass_flow_kg_s}
-    again = thermo.solve(doc)
+    again = stagewright.core.solve(doc)
     assert res.to_dict() == again.to_dict()
 
 
@@ -338,10 +338,10 @@ def test_remembered_intake_states_follow_every_site_input():
     # consistency check of the intake memo (sweeps and studies solve many trains at one site):
     # alternating humidity inputs at the same ambient and pressure must give exactly the results
     # of a fresh model each time — a memo keyed too loosely would hand one site's water to another
-    from thermo.project.validation import normalise
-    from thermo.models import make_model
-    from thermo.solve_context import solve_context
-    from thermo.train import solve_train
+    from stagewright.core.project.validation import normalise
+    from stagewright.core.models import make_model
+    from stagewright.core.solve_context import solve_context
+    from stagewright.core.train import solve_train
 
     def doc(site_humidity):
         return {"site": {"ambient_temperature_K": 300.0, "barometric_pressure_Pa": 1e5, **site_humidity},
@@ -370,7 +370,7 @@ def test_a_hot_single_stage_is_reported_not_failed():
     # Now it solves, and the discharge above its limit is a warning naming the limit.
     doc = json.loads((ROOT / "sample_projects" / "two_stage_plant_air.json").read_text(encoding="utf-8"))
     del doc["stages"][1]
-    r = thermo.solve(doc)
+    r = stagewright.core.solve(doc)
     t_out = r.stages[0].outlet.T
     assert 473.15 < t_out < 623.15
     hot = [w for w in r.warnings if w.field == "stages[0].max_discharge_temperature_K"]

@@ -1,4 +1,4 @@
-"""The T–s chart's lines as plain SI data (thermo.ts_lines), without drawing.
+"""The T–s chart's lines as plain SI data (stagewright.core.ts_lines), without drawing.
 
 External checks: isobars against CoolProp's high-level ``PropsSI`` (Lemmon et al. 2000 air
 EOS, a different call path from our AbstractState model) and the perfect-gas entropy relation
@@ -13,9 +13,9 @@ import pytest
 from CoolProp.CoolProp import PropsSI
 
 from tests.conftest import make_doc
-from thermo import solve
-from thermo.models.base import T_MAX, T_MIN
-from thermo.ts_lines import isobar_model, isobar_pressures, isobars, path_segments
+from stagewright.core import solve
+from stagewright.core.models.base import T_MAX, T_MIN
+from stagewright.core.ts_lines import isobar_model, isobar_pressures, isobars, path_segments
 
 
 @pytest.fixture(scope="module")

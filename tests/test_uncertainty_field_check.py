@@ -10,12 +10,12 @@ import numpy as np
 import pytest
 
 from conftest import SAMPLES
-from thermo.errors import InputError
-from thermo.project.validation import normalise, problems
-from thermo.uncertainty.field_check import field_check_uncertainty, has_field_check
-from thermo.uncertainty.inputs import measured_inputs
-from thermo.uncertainty.monte_carlo import draw_inputs
-from thermo.uncertainty.verdict import judge, tolerance_of
+from stagewright.core.errors import InputError
+from stagewright.core.project.validation import normalise, problems
+from stagewright.core.uncertainty.field_check import field_check_uncertainty, has_field_check
+from stagewright.core.uncertainty.inputs import measured_inputs
+from stagewright.core.uncertainty.monte_carlo import draw_inputs
+from stagewright.core.uncertainty.verdict import judge, tolerance_of
 
 T1, P1, RATIO, K, T2 = 293.15, 100_000.0, 4.0, 1.4, 470.0
 
@@ -142,7 +142,7 @@ def test_guarantee_on_a_figure_the_check_does_not_report():
 
 
 def test_removing_a_stage_leaves_a_project_that_still_solves():
-    from thermo import solve
+    from stagewright.core import solve
     doc = json.loads((SAMPLES / "field_check_two_stage.json").read_text())
     doc["stages"] = doc["stages"][:1]
     doc["stages"][0]["pressure_ratio"] = None

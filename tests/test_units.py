@@ -1,7 +1,7 @@
 """Display units: exact definitions from NIST SP 811 (2008), Appendix B."""
 import pytest
 
-from app.presentation.units import QUANTITIES, SYSTEMS, format_value, to_display, to_si, unit
+from stagewright.gui.presentation.units import QUANTITIES, SYSTEMS, format_value, to_display, to_si, unit
 
 
 def test_temperature_scales():

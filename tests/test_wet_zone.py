@@ -3,7 +3,7 @@ import CoolProp.CoolProp as CP
 import pytest
 from scipy.integrate import quad
 
-from thermo.exchanger import HotSide, make_coolant, rate_exchanger, size_exchanger
+from stagewright.core.exchanger import HotSide, make_coolant, rate_exchanger, size_exchanger
 
 P, W = 8.0e5, 0.012  # compressed air at 8 bar(a) carrying 12 g of water per kg dry air (invented)
 M = 1.0  # dry air, kg/s
@@ -83,8 +83,8 @@ def test_outlet_above_dew_point_is_one_dry_zone():
 def test_outlet_within_rounding_of_the_dew_point_sizes_one_dry_zone():
     # found rating a year hour by hour: the rating's search asked for an outlet a hair below the
     # dew point, whose wet-zone duty warms the coolant by nothing (was a ZeroDivisionError)
-    from thermo.exchanger.coolant import make_coolant
-    from thermo.exchanger.sizing import HotSide, size_exchanger
+    from stagewright.core.exchanger.coolant import make_coolant
+    from stagewright.core.exchanger.sizing import HotSide, size_exchanger
     water = make_coolant({"kind": "water"}, (293.15, 101325.0, 0.0))
     h = lambda T: 1000.0 * T  # noqa: E731  (sensible enthalpy per kg; the wet zone's duty is 1e-12 W)
     hot = HotSide(400.0, 330.0 - 1e-12, 1000.0 * (400.0 - 330.0) + 1e-12, dew_point_K=330.0,

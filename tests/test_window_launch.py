@@ -23,7 +23,7 @@ def _png_size(path: Path) -> tuple[int, int]:
 def test_screenshot_command_writes_a_png_of_the_requested_size(tmp_path):
     out = tmp_path / "shot.png"
     env = dict(os.environ, QT_QPA_PLATFORM="offscreen")
-    proc = subprocess.run([sys.executable, "-m", "app.entry", "--screenshot", str(out), "--size", "1024x700",
+    proc = subprocess.run([sys.executable, "-m", "stagewright.gui.entry", "--screenshot", str(out), "--size", "1024x700",
                            str(ROOT / "sample_projects" / "two_stage_plant_air.json")],
                           cwd=ROOT, env=env, capture_output=True, text=True, timeout=120)
     assert proc.returncode == 0, proc.stderr
@@ -35,7 +35,7 @@ def test_screenshot_of_a_broken_project_fails_with_one_line(tmp_path):
     bad = tmp_path / "bad.json"
     bad.write_text('{"site": 1}', encoding="utf-8")
     env = dict(os.environ, QT_QPA_PLATFORM="offscreen")
-    proc = subprocess.run([sys.executable, "-m", "app.entry", "--screenshot", str(tmp_path / "x.png"), str(bad)],
+    proc = subprocess.run([sys.executable, "-m", "stagewright.gui.entry", "--screenshot", str(tmp_path / "x.png"), str(bad)],
                           cwd=ROOT, env=env, capture_output=True, text=True, timeout=120)
     assert proc.returncode == 2
     assert proc.stderr.startswith("stagewright: ") and "site" in proc.stderr
@@ -62,7 +62,7 @@ X11 = {"DISPLAY": ":0"}
 
 
 def test_missing_libraries_are_read_from_ldd_output():
-    from app.window.launch import missing_libraries, packages_for
+    from stagewright.gui.window.launch import missing_libraries, packages_for
     assert missing_libraries(LDD_MISSING) == ["libxcb-icccm.so.4", "libxcb-keysyms.so.1"]
     assert missing_libraries(LDD_COMPLETE) == []
     # Debian 12 package names: `dpkg -S libxcb-icccm.so.4` → libxcb-icccm4, `dpkg -S libxcb-keysyms.so.1` → libxcb-keysyms1
@@ -72,7 +72,7 @@ def test_missing_libraries_are_read_from_ldd_output():
 
 
 def test_missing_xcb_libraries_give_one_install_line(tmp_path):
-    from app.window.launch import platform_problem
+    from stagewright.gui.window.launch import platform_problem
     plugin = tmp_path / "libqxcb.so"
     for env in ({**X11}, {**X11, "QT_QPA_PLATFORM": "xcb"}, {}):
         text = platform_problem(env, plugin, ldd=lambda _p: LDD_MISSING, platform="linux")
@@ -82,7 +82,7 @@ def test_missing_xcb_libraries_give_one_install_line(tmp_path):
 
 
 def test_the_check_stays_out_of_the_way_when_qt_would_not_use_xcb(tmp_path):
-    from app.window.launch import platform_problem
+    from stagewright.gui.window.launch import platform_problem
     plugin = tmp_path / "libqxcb.so"
 
     def check(env, platform="linux"):
@@ -99,7 +99,7 @@ def test_the_check_stays_out_of_the_way_when_qt_would_not_use_xcb(tmp_path):
 
 
 def test_run_gui_prints_the_problem_and_stops_before_qt(monkeypatch, capsys):
-    from app.window import launch
+    from stagewright.gui.window import launch
     monkeypatch.delenv("QT_QPA_PLATFORM", raising=False)
     monkeypatch.setattr(launch, "platform_problem", lambda: "libraries are missing")
     assert launch.run_gui(None) == 1
@@ -107,7 +107,7 @@ def test_run_gui_prints_the_problem_and_stops_before_qt(monkeypatch, capsys):
 
 
 def test_readme_installs_every_library_package_the_check_knows():
-    from app.window.launch import XCB_PACKAGES
+    from stagewright.gui.window.launch import XCB_PACKAGES
     readme = (ROOT / "README.md").read_text(encoding="utf-8")
     lines = [line for line in readme.splitlines() if line.startswith("sudo apt-get install ")]
     assert len(lines) == 1

@@ -3,11 +3,11 @@ import copy
 
 import pytest
 
-import thermo
+import stagewright.core
 from tests.conftest import make_doc
-from thermo.errors import InputError
-from thermo.year import run_year
-from thermo.year_profile import DAYS_IN_MONTH, parse_bins_text
+from stagewright.core.errors import InputError
+from stagewright.core.year import run_year
+from stagewright.core.year_profile import DAYS_IN_MONTH, parse_bins_text
 
 
 def _doc(months=None, **year):
@@ -34,7 +34,7 @@ def test_year_of_identical_months_is_twelve_times_one_month():
     del single["year"]
     single["site"]["ambient_temperature_K"] = 288.15
     single["site"]["relative_humidity"] = 0.6
-    res = thermo.solve(single)
+    res = stagewright.core.solve(single)
     assert one.energy_kWh == pytest.approx(res.driver_power_W * 600.0 / 1000.0, rel=1e-12)
     assert one.cooling_water_m3 == pytest.approx(
         sum(c.exchanger.coolant.volume_flow_m3_s for c in res.coolers) * 3600 * 600.0, rel=1e-12)

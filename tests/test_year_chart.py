@@ -5,10 +5,10 @@ import pytest
 from matplotlib.backends.backend_agg import FigureCanvasAgg
 from matplotlib.figure import Figure
 
-from app.charts.year_chart import draw_year_chart
+from stagewright.gui.charts.year_chart import draw_year_chart
 from conftest import SAMPLES
-from thermo.project import load
-from thermo.year import run_year
+from stagewright.core.project import load
+from stagewright.core.year import run_year
 
 
 @pytest.fixture(scope="module")

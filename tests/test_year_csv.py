@@ -9,14 +9,14 @@ import random
 import CoolProp.CoolProp as CP
 import pytest
 
-from app.cli.main import main
-from app.document.year_csv import read_profile_text
-from thermo.errors import InputError
-from thermo.models import make_model
-from thermo.moist.mixture import make_mixture
-from thermo.moist.stream import intake_humidity_ratio
-from thermo.year import run_year
-from thermo.year_profile import bin_profile
+from stagewright.gui.cli.main import main
+from stagewright.gui.document.year_csv import read_profile_text
+from stagewright.core.errors import InputError
+from stagewright.core.models import make_model
+from stagewright.core.moist.mixture import make_mixture
+from stagewright.core.moist.stream import intake_humidity_ratio
+from stagewright.core.year import run_year
+from stagewright.core.year_profile import bin_profile
 
 
 def test_units_in_the_header_and_timestamps_give_hours():
@@ -88,7 +88,7 @@ def test_binning_keeps_the_hours_and_the_weighted_means():
 
 
 def test_binning_changes_energy_little_and_extremes_by_less_than_a_bin():
-    # what binning changes (thermo.year_profile.bin_profile): energy within 0.1 %, extremes smoothed
+    # what binning changes (stagewright.core.year_profile.bin_profile): energy within 0.1 %, extremes smoothed
     doc = {"site": {"ambient_temperature_K": 288.15, "relative_humidity": 0.6}, "fluid": {"model": "ideal_gas"},
            "flow": {"kind": "free_air_delivery", "value": 0.3}, "discharge_pressure_Pa": 8e5,
            "stages": [{"efficiency": {"kind": "isentropic", "value": 0.8},

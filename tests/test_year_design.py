@@ -11,10 +11,10 @@ import CoolProp.CoolProp as CP
 import ht
 import pytest
 
-from thermo.project.validation import normalise
-from thermo.year import run_year
-from thermo.year_bins import norm_for_bin, year_base
-from thermo.year_profile import operating_bins
+from stagewright.core.project.validation import normalise
+from stagewright.core.year import run_year
+from stagewright.core.year_bins import norm_for_bin, year_base
+from stagewright.core.year_profile import operating_bins
 
 
 def _doc(model="constant_cp", rh=0.0, arrangement="counter_flow", coolers=None, months=None):
@@ -68,7 +68,7 @@ def test_rated_bins_match_a_hand_ntu_rating_with_ht(arrangement, subtype, n):
     cooler = y.design.coolers[0]
     doc = _doc(arrangement=arrangement)
     base = year_base(normalise(doc))
-    from thermo.solve import solve_normalised
+    from stagewright.core.solve import solve_normalised
     for b in (y.bins[0], y.bins[5]):
         bin_ = next(x for x in operating_bins(normalise(doc)["year"]) if x.label == b.label)
         res = solve_normalised(norm_for_bin(base, bin_, y.design.rating()), detail=False)
@@ -168,7 +168,7 @@ def test_pool_of_two_processes_gives_the_same_year_and_reports_progress():
 
 
 def test_pool_cancel_keeps_the_bins_finished():
-    from thermo.year import YearCancelled
+    from stagewright.core.year import YearCancelled
     bins = [{"temperature_K": 270.0 + 0.2 * i, "relative_humidity": 0.0, "hours": 1.0} for i in range(130)]
     doc = _doc(coolers={"mode": "size_every_bin"})
     doc["year"]["profile"] = {"kind": "bins", "bins": bins}

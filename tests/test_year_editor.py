@@ -7,7 +7,7 @@ import pytest
 
 pytest.importorskip("PySide6")
 
-from app.year.edits import ENTRY_COLUMNS  # noqa: E402
+from stagewright.gui.year.edits import ENTRY_COLUMNS  # noqa: E402
 from gui_support import ROOT, make_window, simple_real_gas_doc  # noqa: E402
 
 YEAR_SAMPLE = ROOT / "sample_projects" / "three_stage_site_year.json"
@@ -96,7 +96,7 @@ def test_an_out_of_range_cell_is_refused_naming_field_value_and_range(qtbot, tmp
     ed.fields["year.load"][0].editingFinished.emit()
     assert "year.load" in ed.message.text() and "(0, 1]" in ed.message.text()
     assert win.editor.model.doc == before
-    # a month longer than the month is the core's rule (thermo.year_profile), also refused
+    # a month longer than the month is the core's rule (stagewright.core.year_profile), also refused
     _type_cell(ed, 1, "hours", "700")
     assert "February" in ed.message.text() and win.editor.model.doc == before
     # a good value clears the message
@@ -105,8 +105,8 @@ def test_an_out_of_range_cell_is_refused_naming_field_value_and_range(qtbot, tmp
 
 
 def test_monthly_hours_typed_once_fill_the_other_months_so_the_year_keeps_its_hours(qtbot, tmp_path):
-    from thermo.project.validation import normalise
-    from thermo.year_profile import operating_bins
+    from stagewright.core.project.validation import normalise
+    from stagewright.core.year_profile import operating_bins
     win = _sample_window(qtbot, tmp_path)
     ed = win.panels["year"].profile_editor
     before = operating_bins(normalise(win.editor.model.doc)["year"])
@@ -119,8 +119,8 @@ def test_monthly_hours_typed_once_fill_the_other_months_so_the_year_keeps_its_ho
 
 
 def test_switch_to_bins_keeps_the_year_then_add_and_remove_bins(qtbot, tmp_path):
-    from thermo.project.validation import normalise
-    from thermo.year_profile import operating_bins
+    from stagewright.core.project.validation import normalise
+    from stagewright.core.year_profile import operating_bins
     win = _sample_window(qtbot, tmp_path)
     ed = win.panels["year"].profile_editor
     model, stack = win.editor.model, win.editor.undo_stack
@@ -175,7 +175,7 @@ def test_the_last_bin_cannot_be_removed(qtbot, tmp_path):
 
 
 def test_edited_year_saves_and_loads_back_the_same(qtbot, tmp_path):
-    from thermo.project import load
+    from stagewright.core.project import load
     win = _sample_window(qtbot, tmp_path)
     win.set_us_units(True)
     ed = win.panels["year"].profile_editor

@@ -5,11 +5,11 @@ import json
 
 import pytest
 
-from app.document.paths import set_in
-from app.year.edits import (cell_pairs, month_hours, profile_as, refusal, start_from_site, undo_text,
+from stagewright.gui.document.paths import set_in
+from stagewright.gui.year.edits import (cell_pairs, month_hours, profile_as, refusal, start_from_site, undo_text,
                             with_entry_added, with_entry_removed)
-from thermo.project.validation import normalise, problems
-from thermo.year_profile import DAYS_IN_MONTH, operating_bins
+from stagewright.core.project.validation import normalise, problems
+from stagewright.core.year_profile import DAYS_IN_MONTH, operating_bins
 
 from conftest import SAMPLES, make_doc
 
@@ -33,7 +33,7 @@ def test_start_from_site_is_a_valid_monthly_year_at_the_site():
     assert problems(doc) == []
     bins = operating_bins(normalise(doc)["year"])
     assert {(b.temperature_K, b.relative_humidity) for b in bins} == {(301.15, 0.4)}
-    # no hours given: 8760 h spread by the days of each month (thermo.year_profile's rule);
+    # no hours given: 8760 h spread by the days of each month (stagewright.core.year_profile's rule);
     # 8760 h = 365 d × 24 h, a common year (ISO 8601 calendar)
     assert [b.hours for b in bins] == pytest.approx([24.0 * d for d in DAYS_IN_MONTH])
 

@@ -7,7 +7,7 @@ import pytest
 
 pytest.importorskip("PySide6")
 
-from app.year.panel import YEAR_COLUMNS  # noqa: E402
+from stagewright.gui.year.panel import YEAR_COLUMNS  # noqa: E402
 from gui_support import ROOT, make_window, window  # noqa: E402,F401
 
 YEAR_SAMPLE = ROOT / "sample_projects" / "three_stage_site_year.json"
@@ -52,9 +52,9 @@ def _year_canvas(qtbot, panel):
 
 
 def test_year_run_fills_one_row_per_bin_and_matches_the_core(qtbot, tmp_path):
-    # the panel shows thermo.year's own figures (whose checks against twelve identical months
+    # the panel shows stagewright.core.year's own figures (whose checks against twelve identical months
     # and the coolant balance live in the core tests)
-    from thermo.year import run_year
+    from stagewright.core.year import run_year
     doc = json.loads(YEAR_SAMPLE.read_text(encoding="utf-8"))
     win = make_window(qtbot, tmp_path, doc)
     panel = win.panels["year"]
@@ -77,10 +77,10 @@ def _number(text: str) -> float:
 
 @pytest.mark.parametrize("system", ["SI", "US"])
 def test_results_show_the_years_money_cooling_water_and_recoverable_heat(qtbot, tmp_path, system):
-    # the totals are thermo.year's own (its energy and water sums are checked in the core tests);
+    # the totals are stagewright.core.year's own (its energy and water sums are checked in the core tests);
     # 1 US gal = 3.785411784e-3 m³ (NIST SP 811, 2008, App. B.8). Each shown total is the core's
     # at the decimals it is printed with
-    from thermo.year import run_year
+    from stagewright.core.year import run_year
     doc = json.loads(YEAR_SAMPLE.read_text(encoding="utf-8"))
     totals = run_year(doc).to_dict()["totals"]
     win = make_window(qtbot, tmp_path, doc)
@@ -173,11 +173,11 @@ def test_project_without_year_profile_says_so(qtbot, window):
 
 def test_exchanger_figures_appear_in_the_balance_sheet(qtbot, tmp_path):
     # UA and LMTD as the core reports them (their checks against `ht` live in the core tests)
-    import thermo
+    import stagewright.core
     doc = json.loads(YEAR_SAMPLE.read_text(encoding="utf-8"))
     win = make_window(qtbot, tmp_path, doc)
     bal = win.panels["balance"]
-    expected = thermo.solve(doc).to_dict()["stages"][0]["cooler"]
+    expected = stagewright.core.solve(doc).to_dict()["stages"][0]["cooler"]
     ua = float(bal.value_text("components", "cooler-1", "ua").replace(" ", ""))
     assert ua == pytest.approx(expected["ua_W_K"] / 1e3, abs=6e-4)
 

@@ -16,15 +16,15 @@ import pytest
 from hypothesis import HealthCheck, assume, given, settings
 from hypothesis import strategies as st
 
-from app.presentation import balance_tables
-from app.report import sections
-from app.report.layout import Pager
+from stagewright.gui.presentation import balance_tables
+from stagewright.gui.report import sections
+from stagewright.gui.report.layout import Pager
 from conftest import SAMPLES
 from test_wet_zone import CP_M, M, T_DEW, WATER, h_eq, hot_at
-from thermo import StagewrightError, solve
-from thermo.exchanger import size_exchanger
-from thermo.exchanger.effectiveness import ARRANGEMENTS
-from thermo.project import load
+from stagewright.core import StagewrightError, solve
+from stagewright.core.exchanger import size_exchanger
+from stagewright.core.exchanger.effectiveness import ARRANGEMENTS
+from stagewright.core.project import load
 
 SAMPLE_FILES = sorted(SAMPLES.glob("*.json"))
 F_LIMIT = 1.0 + 1e-9  # F ≤ 1, with room for rounding in Q/(UA·LMTD) of a counter-flow zone

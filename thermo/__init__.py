@@ -2,8 +2,8 @@
 
 Pure Python on numpy, scipy and CoolProp; it never imports Qt.
 """
-from thermo.errors import InputError, PropertyRangeError, SecondLawViolation, StagewrightError
-from thermo.solve import solve
+from stagewright.core.errors import InputError, PropertyRangeError, SecondLawViolation, StagewrightError
+from stagewright.core.solve import solve
 
 __all__ = ["solve", "StagewrightError", "InputError", "SecondLawViolation", "PropertyRangeError"]
 __version__ = "0.1.0"

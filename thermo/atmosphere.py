@@ -8,7 +8,7 @@ from __future__ import annotations
 __all__ = ["standard_pressure", "standard_elevation", "SEA_LEVEL_PRESSURE", "SEA_LEVEL_TEMPERATURE",
            "ELEVATION_MIN", "ELEVATION_MAX"]
 
-from thermo.errors import InputError
+from stagewright.core.errors import InputError
 
 SEA_LEVEL_PRESSURE = 101_325.0  #: [Pa], ISO 2533
 SEA_LEVEL_TEMPERATURE = 288.15  #: [K], ISO 2533

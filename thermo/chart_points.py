@@ -27,7 +27,7 @@ class PointsOnDemand(Sequence):
     -----
     ``make`` uses the property model of the solve that recorded it: read the points in the
     thread that solved (``TrainResult.to_dict()`` in the solve's own job does), as the model
-    objects are per thread (:mod:`thermo.solve_context`).
+    objects are per thread (:mod:`stagewright.core.solve_context`).
 
     Examples
     --------

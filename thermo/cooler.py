@@ -5,13 +5,13 @@ __all__ = ["CoolerResult", "solve_cooler", "cooler_outlet_temperature", "outlet_
 
 from dataclasses import dataclass, field
 
-from thermo.chart_points import PointsOnDemand
-from thermo.moist.condensation import Condensation, condensation, cooling_line
-from thermo.moist.dew_point import dew_point
-from thermo.errors import InputError
-from thermo.exchanger import Exchanger, HotSide, make_coolant, rate_exchanger, size_exchanger
-from thermo.exergy import DeadState, heat_exergy
-from thermo.models.base import Point, PropertyModel
+from stagewright.core.chart_points import PointsOnDemand
+from stagewright.core.moist.condensation import Condensation, condensation, cooling_line
+from stagewright.core.moist.dew_point import dew_point
+from stagewright.core.errors import InputError
+from stagewright.core.exchanger import Exchanger, HotSide, make_coolant, rate_exchanger, size_exchanger
+from stagewright.core.exergy import DeadState, heat_exergy
+from stagewright.core.models.base import Point, PropertyModel
 
 _FROST_LOW = 173.15  #: lowest dew (frost) point searched for in a cooler, [K] (the schema's lowest dew point)
 
@@ -72,12 +72,12 @@ def outlet_field(spec: dict, where: str) -> str:
 
 
 def _hot_side(model, where: str, t_stag: float, h_in0: float, p_out: float, mass_flow: float):
-    r"""``hot_at(T_out)`` → :class:`~thermo.exchanger.HotSide` of the air cooled to ``T_out``.
+    r"""``hot_at(T_out)`` → :class:`~stagewright.core.exchanger.HotSide` of the air cooled to ``T_out``.
 
     For moist air that condenses before ``T_out`` the hot side carries the dew point at the
     cooler outlet pressure, the duty down to it, the equilibrium enthalpy per kg dry air
     (liquid water included) and the mean specific heat of the unsaturated part, so that
-    the exchanger is split into a dry and a wet zone (:mod:`thermo.exchanger.sizing`,
+    the exchanger is split into a dry and a wet zone (:mod:`stagewright.core.exchanger.sizing`,
     Braun, Klein & Mitchell 1989). Dry air, or moist air that stays above its dew point,
     gives the plain sensible hot side.
     """
@@ -154,11 +154,11 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
 
     Notes
     -----
-    For moist air (a :class:`~thermo.moist.stream.MoistAir` model) the outlet is at phase
+    For moist air (a :class:`~stagewright.core.moist.stream.MoistAir` model) the outlet is at phase
     equilibrium: below the dew point at the outlet pressure it is saturated and the rest
     of the water is liquid. The duty is split into sensible and latent parts and the
     separator after the cooler removes its fraction of that liquid
-    (:func:`thermo.moist.condensation.condensation`); the entropy balance covers cooler and
+    (:func:`stagewright.core.moist.condensation.condensation`); the entropy balance covers cooler and
     separator, whose phase split itself generates no entropy. The chart line includes the
     dew point and ends with the separator step at the outlet temperature.
 
@@ -166,7 +166,7 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
     temperature when one is given, otherwise at the site ambient temperature; the
     exchanger's own internal temperature differences and the coolant's warming are then
     part of the cooler's entropy generation. With a ``coolant`` entry the exchanger is
-    sized (or, from ``ua_W_K``, rated) by :mod:`thermo.exchanger`, and the heat crosses
+    sized (or, from ``ua_W_K``, rated) by :mod:`stagewright.core.exchanger`, and the heat crosses
     at the coolant's thermodynamic mean temperature :math:`\bar T_c = \Delta h_c/\Delta s_c`,
     so that :math:`\dot Q/\bar T_c` is the entropy the coolant gains and the heat's
     exergy is the exergy the coolant gains. The cooling line for charts assumes the
@@ -223,7 +223,7 @@ def _exchanger(model: PropertyModel, spec: dict, where: str, field: str, inlet: 
 
     The air enters at its stagnation state, :math:`h_{01} = h_1 + \tfrac12 V_1^2`; the heat
     crosses at the coolant's thermodynamic mean temperature :math:`\bar T_c = \Delta h_c/\Delta s_c`
-    (:mod:`thermo.exchanger`).
+    (:mod:`stagewright.core.exchanger`).
 
     Parameters
     ----------
@@ -258,8 +258,8 @@ def _exchanger(model: PropertyModel, spec: dict, where: str, field: str, inlet: 
     ------
     InputError
         If the coolant is not colder than the air, or the outlet asked for is not above the
-        coolant inlet; see also :func:`thermo.exchanger.size_exchanger` and
-        :func:`thermo.exchanger.rate_exchanger`.
+        coolant inlet; see also :func:`stagewright.core.exchanger.size_exchanger` and
+        :func:`stagewright.core.exchanger.rate_exchanger`.
 
     References
     ----------
@@ -323,7 +323,7 @@ def _cooling_path(model: PropertyModel, where: str, inlet: Point, outlet: Point,
     -------
     list of Point
         Dry air: ``path_points`` equal steps in temperature and pressure. Moist air: the line
-        of :func:`thermo.moist.condensation.cooling_line` (with its dew point), the outlet,
+        of :func:`stagewright.core.moist.condensation.cooling_line` (with its dew point), the outlet,
         and the separator outlet where water is drained.
 
     Notes

@@ -1,7 +1,7 @@
 """The one place where the core talks to CoolProp [1]_.
 
 Everything else in :mod:`thermo` asks this module for property states; a failed
-CoolProp flash becomes a :class:`~thermo.errors.PropertyRangeError` that echoes the
+CoolProp flash becomes a :class:`~stagewright.core.errors.PropertyRangeError` that echoes the
 inputs instead of a C++ message.
 """
 from __future__ import annotations
@@ -16,7 +16,7 @@ from functools import lru_cache
 import CoolProp
 import CoolProp.CoolProp as _CP
 
-from thermo.errors import PropertyRangeError
+from stagewright.core.errors import PropertyRangeError
 
 PT_INPUTS = _CP.PT_INPUTS
 DmassT_INPUTS = _CP.DmassT_INPUTS

@@ -5,7 +5,7 @@ __all__ = ["DeadState", "flow_exergy", "heat_exergy", "water_exergy"]
 
 from dataclasses import dataclass
 
-from thermo.models.base import Point
+from stagewright.core.models.base import Point
 
 
 @dataclass(frozen=True)
@@ -60,7 +60,7 @@ def flow_exergy(point: Point, velocity: float, dead: DeadState) -> float:
 
     Examples
     --------
-    >>> from thermo.models import ConstantCpAir
+    >>> from stagewright.core.models import ConstantCpAir
     >>> m = ConstantCpAir(); d = DeadState(300.0, 1e5, m.at_tp(300.0, 1e5).h, m.at_tp(300.0, 1e5).s)
     >>> round(flow_exergy(m.at_tp(300.0, 1e6), 0.0, d), 1)  # = R T0 ln 10
     198351.3

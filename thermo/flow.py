@@ -3,7 +3,7 @@ from __future__ import annotations
 
 __all__ = ["NORMAL_TEMPERATURE", "NORMAL_PRESSURE", "mass_flow_from", "VOLUME_KINDS"]
 
-from thermo.models.base import Point, PropertyModel
+from stagewright.core.models.base import Point, PropertyModel
 
 NORMAL_TEMPERATURE = 273.15  #: DIN 1343 normal temperature, [K]
 NORMAL_PRESSURE = 101_325.0  #: DIN 1343 normal pressure, [Pa]
@@ -44,7 +44,7 @@ def mass_flow_from(kind: str, value: float, model: PropertyModel, T0: float, P0:
         Site ambient temperature [K] and barometric pressure [Pa].
     ambient : Point, optional
         The intake air at T0, P0 from ``model`` when the caller has it already (the solve
-        context's :attr:`~thermo.solve_context.IntakeState.ambient`): free air delivery then
+        context's :attr:`~stagewright.core.solve_context.IntakeState.ambient`): free air delivery then
         needs no property call of its own.
 
     Returns
@@ -59,7 +59,7 @@ def mass_flow_from(kind: str, value: float, model: PropertyModel, T0: float, P0:
     memory). Normal volume is referred to the DIN 1343 normal state, 273.15 K and
     101 325 Pa, dry gas.
 
-    With moist intake air (``model`` a :class:`~thermo.moist.stream.MoistAir`) the mass flow
+    With moist intake air (``model`` a :class:`~stagewright.core.moist.stream.MoistAir`) the mass flow
     returned is that of the dry air. Free air delivery is the volume of the moist intake
     air, vapour included, at the site's temperature, pressure and humidity (ISO 1217
     refers FAD to the total temperature, pressure and composition at the inlet point, from

@@ -20,7 +20,7 @@ it). The value per year is the boiler fuel it saves:
 with :math:`t_{op}` in hours and :math:`c_{fuel}` per kWh of fuel.
 
 For moist intake air :math:`h` is the equilibrium enthalpy of the cooler's own stream per
-kilogram of dry air (:class:`thermo.moist.stream.MoistAir`, liquid water included) and
+kilogram of dry air (:class:`stagewright.core.moist.stream.MoistAir`, liquid water included) and
 :math:`\dot m` the dry-air flow, so that where :math:`T_x` lies below the stream's dew point
 the latent heat of the water condensed above :math:`T_x` counts as recoverable (ASHRAE
 Handbook—Fundamentals 2017, ch. 1, cooling with dehumidification).
@@ -31,7 +31,7 @@ __all__ = ["RecoveryResult", "heat_recovery", "cooler_heat_above"]
 
 from dataclasses import dataclass, field
 
-from thermo.models.base import PropertyModel
+from stagewright.core.models.base import PropertyModel
 
 HOURS_PER_YEAR = 8760.0
 
@@ -111,13 +111,13 @@ def heat_recovery(spec: dict, model: PropertyModel, stage_specs: list, stages: l
 
     Examples
     --------
-    >>> import thermo
+    >>> import stagewright.core
     >>> doc = {"site": {"ambient_temperature_K": 293.15}, "fluid": {"model": "constant_cp"},
     ...        "flow": {"kind": "mass", "value": 1.0}, "discharge_pressure_Pa": 8e5,
     ...        "stages": [{"efficiency": {"kind": "isentropic", "value": 0.8},
     ...                    "cooler": {"outlet_temperature_K": 303.15}}],
     ...        "heat_recovery": {"delivery_temperature_K": 333.15}}
-    >>> r = thermo.solve(doc)
+    >>> r = stagewright.core.solve(doc)
     >>> r.recovery.recoverable_heat_W < r.coolers[0].duty_W
     True
 

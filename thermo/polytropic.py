@@ -5,9 +5,9 @@ __all__ = ["polytropic_path", "polytropic_efficiency_between", "path_steps"]
 
 import math
 
-from thermo.chart_points import PointsOnDemand
-from thermo.errors import PropertyRangeError, StagewrightError
-from thermo.models.base import T_MAX, Point, PropertyModel
+from stagewright.core.chart_points import PointsOnDemand
+from stagewright.core.errors import PropertyRangeError, StagewrightError
+from stagewright.core.models.base import T_MAX, Point, PropertyModel
 
 _LN_T_BEYOND = math.log(2.0 * T_MAX)  # ln T past which a path has left every model's range
 _MAX_STEP_LN_P = 0.2  # RK4 step in ln p, on ln T; error about 1e-8 relative in Δh (see tests)
@@ -58,7 +58,7 @@ def polytropic_path(model: PropertyModel, inlet: Point, p_out: float, efficiency
 
     Examples
     --------
-    >>> from thermo.models import ConstantCpAir
+    >>> from stagewright.core.models import ConstantCpAir
     >>> m = ConstantCpAir()
     >>> path = polytropic_path(m, m.at_tp(300.0, 1e5), 4e5, 0.8)
     >>> round(path[-1].T, 4)  # 300 * 4 ** (0.4 / (1.4 * 0.8))

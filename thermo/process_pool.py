@@ -12,6 +12,6 @@ def pool_context():
     """A multiprocessing context for ``ProcessPoolExecutor(mp_context=…)``."""
     if "forkserver" in multiprocessing.get_all_start_methods():
         ctx = multiprocessing.get_context("forkserver")
-        ctx.set_forkserver_preload(["thermo"])
+        ctx.set_forkserver_preload(["stagewright.core"])
         return ctx
     return multiprocessing.get_context("spawn")

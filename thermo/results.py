@@ -7,12 +7,12 @@ __all__ = ["TrainResult", "InletResult", "Warning_", "WaterResult", "point_dict"
 import math
 from dataclasses import dataclass, field
 
-from thermo.cooler import CoolerResult
-from thermo.errors import message_detail
-from thermo.exergy import DeadState
-from thermo.moist.stream import humidity_of
-from thermo.models.base import Point
-from thermo.stage import StageResult
+from stagewright.core.cooler import CoolerResult
+from stagewright.core.errors import message_detail
+from stagewright.core.exergy import DeadState
+from stagewright.core.moist.stream import humidity_of
+from stagewright.core.models.base import Point
+from stagewright.core.stage import StageResult
 
 
 @dataclass(frozen=True)
@@ -20,7 +20,7 @@ class Warning_:
     """Something the user should look at; ``field`` is the input path to select.
 
     ``message`` is SI (command line, JSON); ``detail`` the same sentence as a template with
-    named values (:func:`thermo.errors.message_detail`) for display units.
+    named values (:func:`stagewright.core.errors.message_detail`) for display units.
     """
 
     field: str
@@ -199,9 +199,9 @@ class TrainResult:
     energy_residual: float
     exergy_residual: float
     warnings: list = field(default_factory=list)
-    recovery: object = None  #: thermo.heat_recovery.RecoveryResult when the project asks for heat recovery
+    recovery: object = None  #: stagewright.core.heat_recovery.RecoveryResult when the project asks for heat recovery
     water: WaterResult | None = None  #: moist intake air only
-    #: thermo.part_load.figures.PackageFigures when the project has a ``package`` section (detailed solves)
+    #: stagewright.core.part_load.figures.PackageFigures when the project has a ``package`` section (detailed solves)
     package: object = None
 
     def to_dict(self) -> dict:

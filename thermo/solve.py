@@ -6,13 +6,13 @@ __all__ = ["solve", "solve_normalised", "model_for", "release_thread_models"]
 import atexit
 import threading
 
-from thermo.project.validation import normalise
-from thermo.errors import InputError, StagewrightError, message_detail, quantity
-from thermo.flow import mass_flow_from
-from thermo.models import make_model
-from thermo.results import TrainResult
-from thermo.solve_context import SolveContext, release_thread_caches, solve_context
-from thermo.train import solve_train
+from stagewright.core.project.validation import normalise
+from stagewright.core.errors import InputError, StagewrightError, message_detail, quantity
+from stagewright.core.flow import mass_flow_from
+from stagewright.core.models import make_model
+from stagewright.core.results import TrainResult
+from stagewright.core.solve_context import SolveContext, release_thread_caches, solve_context
+from stagewright.core.train import solve_train
 
 _local = threading.local()
 
@@ -26,7 +26,7 @@ def _release_models() -> None:
 
 def release_thread_models() -> None:
     """Drop the calling thread's cached property models, and the mixtures and intake states
-    kept for them (:mod:`thermo.solve_context`). Call it in a worker thread before the thread
+    kept for them (:mod:`stagewright.core.solve_context`). Call it in a worker thread before the thread
     ends: states left in a finished thread are only collected at interpreter teardown, too
     late for CoolProp."""
     _release_models()
@@ -36,7 +36,7 @@ def model_for(fluid: dict, fast: bool = False):
     """Property model for a ``fluid`` section, reused per thread (one AbstractState each).
 
     ``fast`` gives a separate model flagged ``fast_properties``: its moist-air mixture
-    interpolates the enhancement factor (:mod:`thermo.moist.enhancement_table`)."""
+    interpolates the enhancement factor (:mod:`stagewright.core.moist.enhancement_table`)."""
     cache = getattr(_local, "models", None)
     if cache is None:
         cache = _local.models = {}
@@ -57,7 +57,7 @@ def solve(doc: dict, detail: bool = True) -> TrainResult:
     doc : dict
         Project document (see ``docs/project-format.md``).
     detail : bool
-        False skips reporting-only work (see :func:`thermo.train.solve_train`); powers,
+        False skips reporting-only work (see :func:`stagewright.core.train.solve_train`); powers,
         states and totals are unchanged. Used for the many trial solves of a study.
 
     Returns
@@ -90,18 +90,18 @@ def solve(doc: dict, detail: bool = True) -> TrainResult:
 
 
 def solve_normalised(norm: dict, detail: bool = True, fast: bool = False, reuse: dict | None = None) -> TrainResult:
-    """:func:`solve` for a document already passed through :func:`thermo.project.validation.normalise`.
+    """:func:`solve` for a document already passed through :func:`stagewright.core.project.validation.normalise`.
 
     For callers that validate once and then solve many variants (sweeps, studies).
     ``fast`` selects the fast property path of trial solves: for moist real-gas air the
-    enhancement factor is interpolated (:mod:`thermo.moist.enhancement_table`); reported figures
+    enhancement factor is interpolated (:mod:`stagewright.core.moist.enhancement_table`); reported figures
     agree with the exact path to better than 1e-4 relative (tests/test_fast_path.py), and
     the other models are unaffected. ``reuse`` (a dict the caller keeps across solves of one
     document that differ only in stage ratios) lets a stage whose inputs did not change be
-    taken from an earlier solve (:func:`thermo.train.solve_train`); shaft-power flows ignore it.
+    taken from an earlier solve (:func:`stagewright.core.train.solve_train`); shaft-power flows ignore it.
 
-    The site is resolved here, once per solve (:func:`thermo.project.validation.resolve_site`),
-    and the solve's context built from it (:func:`thermo.solve_context.solve_context`: the
+    The site is resolved here, once per solve (:func:`stagewright.core.project.validation.resolve_site`),
+    and the solve's context built from it (:func:`stagewright.core.solve_context.solve_context`: the
     intake's stream model, humidity ratio and states); every train solve of the shaft-power
     iteration reads them from that one context.
     """
@@ -116,7 +116,7 @@ def solve_normalised(norm: dict, detail: bool = True, fast: bool = False, reuse:
     else:
         res = _solve_for_power(ctx, flow["value"], fixed, detail)
     if detail and norm.get("package"):
-        from thermo.part_load.figures import package_figures  # only projects with a package need it
+        from stagewright.core.part_load.figures import package_figures  # only projects with a package need it
         res.package = package_figures(norm, res)
     return res
 
@@ -145,7 +145,7 @@ def _casing_power(norm: dict, target_W: float) -> float:
     Notes
     -----
     :math:`\dot W_\mathrm{shaft} = (\dot m\,\Delta h_0 + \dot Q)/\eta_m` per stage
-    (:func:`thermo.stage.solve_stage`), so the shaft power tends to this sum as the flow
+    (:func:`stagewright.core.stage.solve_stage`), so the shaft power tends to this sum as the flow
     tends to zero.
     """
     fixed = sum(s["heat_loss_W"] / s["mechanical_efficiency"] for s in norm["stages"])

@@ -1,16 +1,16 @@
 """One solve's context: the resolved site, the property model, the intake state and the caches.
 
 A solve resolves its inputs once, at the boundary, and passes them down:
-:func:`thermo.project.validation.resolve_site` works out the site (barometric pressure,
+:func:`stagewright.core.project.validation.resolve_site` works out the site (barometric pressure,
 humidity input), :func:`solve_context` adds the property model and the state of the intake
 air (its stream model, moist-air mixture, humidity ratio, the ambient and dead states and
-the filter outlet) in one :class:`SolveContext`, and :func:`thermo.train.solve_train` and
+the filter outlet) in one :class:`SolveContext`, and :func:`stagewright.core.train.solve_train` and
 its steps read them from there. Nothing below derives the site pressure or the intake
 humidity again, and nothing is stored on the model objects.
 
 Caches shared across solves (sweeps, studies and the shaft-power iteration solve many
 trains at one site) are kept per thread, as the property models themselves are
-(:func:`thermo.solve.model_for`: one CoolProp state per thread), in two small
+(:func:`stagewright.core.solve.model_for`: one CoolProp state per thread), in two small
 least-recently-used maps keyed on the model object itself (never on its ``id``, which a
 later object could reuse):
 
@@ -19,7 +19,7 @@ later object could reuse):
 * the intake state of each (model, resolved site) (:func:`intake_state`, 64 sites).
 
 :func:`release_thread_caches` empties the calling thread's maps
-(:func:`thermo.solve.release_thread_models` calls it before a worker thread ends).
+(:func:`stagewright.core.solve.release_thread_models` calls it before a worker thread ends).
 """
 from __future__ import annotations
 
@@ -30,12 +30,12 @@ import threading
 from collections import OrderedDict
 from dataclasses import dataclass
 
-from thermo.exergy import DeadState
-from thermo.models.base import Point, PropertyModel
-from thermo.moist.mixture import MoistMixture, make_mixture
-from thermo.moist.stream import MoistAir, ice_supersaturation, intake_humidity_ratio
-from thermo.project.delivery import delivery_pressure
-from thermo.project.validation import ResolvedSite, resolve_site
+from stagewright.core.exergy import DeadState
+from stagewright.core.models.base import Point, PropertyModel
+from stagewright.core.moist.mixture import MoistMixture, make_mixture
+from stagewright.core.moist.stream import MoistAir, ice_supersaturation, intake_humidity_ratio
+from stagewright.core.project.delivery import delivery_pressure
+from stagewright.core.project.validation import ResolvedSite, resolve_site
 
 MIXTURE_CACHE_SIZE = 16  #: dry-air models whose moist mixture each thread keeps
 INTAKE_CACHE_SIZE = 64  #: (model, site) pairs whose intake state each thread keeps
@@ -96,7 +96,7 @@ def mixture_for(model: PropertyModel) -> MoistMixture:
     Returns
     -------
     MoistMixture
-        :func:`thermo.moist.mixture.make_mixture` of ``model``; the same object on every
+        :func:`stagewright.core.moist.mixture.make_mixture` of ``model``; the same object on every
         call with the same model (its tables and memos of recent states are kept).
 
     Notes
@@ -105,7 +105,7 @@ def mixture_for(model: PropertyModel) -> MoistMixture:
 
     Examples
     --------
-    >>> from thermo.models import ConstantCpAir
+    >>> from stagewright.core.models import ConstantCpAir
     >>> air = ConstantCpAir()
     >>> mixture_for(air) is mixture_for(air)
     True
@@ -125,7 +125,7 @@ class IntakeState:
     Attributes
     ----------
     model : PropertyModel
-        Stream model of the intake air: a :class:`~thermo.moist.stream.MoistAir` of the
+        Stream model of the intake air: a :class:`~stagewright.core.moist.stream.MoistAir` of the
         intake's water, or the dry-air model itself for a dry intake (so that the dry
         calculation is exactly the one without moist air).
     mixture : MoistMixture or None
@@ -138,7 +138,7 @@ class IntakeState:
     frost_deposit : float
         Water above saturation over ice that a sub-zero intake deposits on the intake
         louvres and filter before the compressor, [kg/kg dry air] (0 normally;
-        :func:`thermo.moist.stream.ice_supersaturation`).
+        :func:`stagewright.core.moist.stream.ice_supersaturation`).
     ambient : Point
         Ambient air at the site's temperature and barometric pressure.
     dead : DeadState
@@ -166,7 +166,7 @@ class SolveContext:
     Attributes
     ----------
     norm : dict
-        Normalised project document (:func:`thermo.project.validation.normalise`).
+        Normalised project document (:func:`stagewright.core.project.validation.normalise`).
     site : ResolvedSite
         The site resolved at the boundary: ambient temperature [K], barometric pressure
         [Pa], humidity input, intake filter drop [Pa].
@@ -177,7 +177,7 @@ class SolveContext:
     delivery_pressure_Pa : float
         Absolute pressure wanted after the last cooler, resolved from what the project
         states (absolute, or gauge above this solve's site pressure;
-        :func:`thermo.project.delivery.delivery_pressure`), [Pa].
+        :func:`stagewright.core.project.delivery.delivery_pressure`), [Pa].
     """
 
     norm: dict
@@ -280,7 +280,7 @@ def intake_state(model: PropertyModel, site: ResolvedSite) -> IntakeState:
     model : PropertyModel
         Dry-air property model named by the project.
     site : ResolvedSite
-        Resolved site (:func:`thermo.project.validation.resolve_site`).
+        Resolved site (:func:`stagewright.core.project.validation.resolve_site`).
 
     Returns
     -------
@@ -292,7 +292,7 @@ def intake_state(model: PropertyModel, site: ResolvedSite) -> IntakeState:
     InputError
         If the humidity input is out of range at the site (a humidity ratio above
         saturation, an ambient below 0 °C for moist air;
-        :func:`thermo.moist.stream.intake_humidity_ratio`).
+        :func:`stagewright.core.moist.stream.intake_humidity_ratio`).
     PropertyRangeError
         If the ambient state lies outside the property model's range.
 
@@ -300,14 +300,14 @@ def intake_state(model: PropertyModel, site: ResolvedSite) -> IntakeState:
     -----
     The intake filter is a throttle: the air keeps the ambient enthalpy and drops to the
     stage-1 inlet pressure. The intake humidity ratio follows from the site's humidity
-    input and the mixture's saturation law (:func:`thermo.moist.stream.intake_humidity_ratio`);
+    input and the mixture's saturation law (:func:`stagewright.core.moist.stream.intake_humidity_ratio`);
     it depends on the property model, which is why it is resolved here, once per solve,
     and not by the validation. Cached per thread for the last 64 (model, site) pairs.
 
     Examples
     --------
-    >>> from thermo.models import ConstantCpAir
-    >>> from thermo.project.validation import ResolvedSite
+    >>> from stagewright.core.models import ConstantCpAir
+    >>> from stagewright.core.project.validation import ResolvedSite
     >>> site = ResolvedSite(293.15, 1e5, None, 0.0, 2000.0)
     >>> state = intake_state(ConstantCpAir(), site)
     >>> state.after_filter.T, state.after_filter.P, state.mixture is None
@@ -335,10 +335,10 @@ def solve_context(norm: dict, model: PropertyModel, site: ResolvedSite | None = 
     norm : dict
         Normalised project document.
     model : PropertyModel
-        Dry-air property model named by the project (:func:`thermo.solve.model_for`).
+        Dry-air property model named by the project (:func:`stagewright.core.solve.model_for`).
     site : ResolvedSite, optional
         The resolved site, when the caller has it already; by default
-        :func:`thermo.project.validation.resolve_site` of ``norm``.
+        :func:`stagewright.core.project.validation.resolve_site` of ``norm``.
 
     Returns
     -------
@@ -351,8 +351,8 @@ def solve_context(norm: dict, model: PropertyModel, site: ResolvedSite | None = 
 
     Examples
     --------
-    >>> from thermo.models import ConstantCpAir
-    >>> from thermo.project.validation import normalise
+    >>> from stagewright.core.models import ConstantCpAir
+    >>> from stagewright.core.project.validation import normalise
     >>> norm = normalise({"site": {"ambient_temperature_K": 293.15, "elevation_m": 1000.0},
     ...                   "flow": {"kind": "mass", "value": 1.0}, "discharge_pressure_Pa": 4e5,
     ...                   "stages": [{"efficiency": {"kind": "isentropic", "value": 0.8}}]})

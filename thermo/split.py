@@ -3,8 +3,8 @@ from __future__ import annotations
 
 __all__ = ["stage_pressure_ratios", "delivered_pressure"]
 
-from thermo.errors import InputError, message_detail, quantity
-from thermo.roots import bracketed_root
+from stagewright.core.errors import InputError, message_detail, quantity
+from stagewright.core.roots import bracketed_root
 
 
 def delivered_pressure(p_in: float, ratios: list[float], cooler_drops: list[float]) -> float:

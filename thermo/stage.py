@@ -6,12 +6,12 @@ __all__ = ["StageResult", "solve_stage"]
 import math
 from dataclasses import dataclass
 
-from thermo.errors import (InputError, PropertyRangeError, SecondLawViolation, StagewrightError, message_detail,
+from stagewright.core.errors import (InputError, PropertyRangeError, SecondLawViolation, StagewrightError, message_detail,
                            quantity)
-from thermo.chart_points import PointsOnDemand, known_points, path_ends
-from thermo.exergy import DeadState, heat_exergy
-from thermo.models.base import T_MAX, T_MIN, Point, PropertyModel
-from thermo.polytropic import polytropic_efficiency_between, polytropic_path
+from stagewright.core.chart_points import PointsOnDemand, known_points, path_ends
+from stagewright.core.exergy import DeadState, heat_exergy
+from stagewright.core.models.base import T_MAX, T_MIN, Point, PropertyModel
+from stagewright.core.polytropic import polytropic_efficiency_between, polytropic_path
 
 
 @dataclass
@@ -177,7 +177,7 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
 
     Notes
     -----
-    For moist air the model is a :class:`~thermo.moist.stream.MoistAir` of the stage's total
+    For moist air the model is a :class:`~stagewright.core.moist.stream.MoistAir` of the stage's total
     water; h and s are per kilogram of dry air, ``mass_flow`` is the dry-air flow and the
     kinetic energy is that of the whole moist mass. Liquid carried into a stage (a
     separator of efficiency below 1) evaporates as compression heats the stream, by
@@ -187,7 +187,7 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
     state to the discharge pressure, whose end enthalpy is
     :math:`h_{2i} = h_{01} + \dot W_\mathrm{gas}/\dot m`:
     :math:`\eta_s = (h_{2s} - h_{01})/(h_{2i} - h_{01})`; the polytropic efficiency is that
-    of the constant-efficiency path from 01 to 2i (see :mod:`thermo.polytropic`). The
+    of the constant-efficiency path from 01 to 2i (see :mod:`stagewright.core.polytropic`). The
     casing loss and the exit kinetic energy are then taken off to give the static
     discharge state. The returned ``path`` runs from the inlet to that actual discharge
     (:func:`_actual_path`), so that a chart never shows the stage hotter than it is. Efficiencies are therefore total-to-static: the exit kinetic energy
@@ -361,7 +361,7 @@ def _actual_path(model: PropertyModel, start: Point, outlet: Point, p_out: float
     The real process is non-adiabatic; it is drawn as the path of constant polytropic
     efficiency between the actual end states (:math:`dh = v\,dp/\eta_p` with the
     :math:`\eta_p` found from the end points by
-    :func:`thermo.polytropic.polytropic_efficiency_between`), the usual end-point
+    :func:`stagewright.core.polytropic.polytropic_efficiency_between`), the usual end-point
     description of a compression whose heat transfer is not resolved along the way.
 
     Parameters

@@ -15,12 +15,12 @@ import os
 from concurrent.futures import ProcessPoolExecutor
 from dataclasses import dataclass, field
 
-from thermo.project.paths import set_path
-from thermo.process_pool import pool_context
-from thermo.errors import InputError, StagewrightError
-from thermo.project.delivery import DELIVERY_KEYS, state_delivery
-from thermo.project.validation import normalise
-from thermo.solve import solve_normalised
+from stagewright.core.project.paths import set_path
+from stagewright.core.process_pool import pool_context
+from stagewright.core.errors import InputError, StagewrightError
+from stagewright.core.project.delivery import DELIVERY_KEYS, state_delivery
+from stagewright.core.project.validation import normalise
+from stagewright.core.solve import solve_normalised
 
 #: result keys collected at every point (totals of ``TrainResult.to_dict()``)
 SWEEP_OUTPUTS = ("mass_flow_kg_s", "shaft_power_W", "driver_power_W", "specific_power_kW_per_m3_min",
@@ -65,7 +65,7 @@ def _summary(result) -> tuple:
 
 def _set_axis_value(doc: dict, path: str, value: float) -> None:
     """Set one axis value; an axis on one delivery-pressure key replaces a statement in the other
-    (absolute or gauge, :mod:`thermo.project.delivery`), so that the point states exactly one."""
+    (absolute or gauge, :mod:`stagewright.core.project.delivery`), so that the point states exactly one."""
     if path in DELIVERY_KEYS:
         state_delivery(doc, path, value)
     else:
@@ -117,7 +117,7 @@ def sweep(doc: dict, axes: dict, *, processes: int | None = None, progress=None,
     Parameters
     ----------
     doc : dict
-        Project document (validated at each point by :func:`thermo.solve`).
+        Project document (validated at each point by :func:`stagewright.core.solve`).
     axes : dict
         Field path (``"site.ambient_temperature_K"``, ``"stages[0].efficiency.value"``) →
         list of SI values. The grid is their Cartesian product, the last axis fastest.

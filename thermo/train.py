@@ -6,22 +6,22 @@ __all__ = ["solve_train"]
 import math
 from dataclasses import dataclass, field
 
-from thermo.chart_points import known_points
-from thermo.cooler import solve_cooler
-from thermo.errors import InputError, message_detail, quantity
-from thermo.exergy import flow_exergy, water_exergy
-from thermo.flow import NORMAL_PRESSURE, NORMAL_TEMPERATURE
-from thermo.moist.freezing import frozen_condensate_warning, intake_rime_warning
-from thermo.moist.stream import MoistAir, check_humid_range
-from thermo.moist.iso8573 import REFERENCE_PRESSURE, REFERENCE_TEMPERATURE, humidity_class
-from thermo.models.base import Point, PropertyModel
-from thermo.heat_recovery import heat_recovery
-from thermo.project.delivery import stated_delivery
-from thermo.solve_context import SolveContext
-from thermo.results import InletResult, TrainResult, Warning_, WaterResult
-from thermo.split import stage_pressure_ratios
-from thermo.stage import solve_stage
-from thermo import coolprop_adapter
+from stagewright.core.chart_points import known_points
+from stagewright.core.cooler import solve_cooler
+from stagewright.core.errors import InputError, message_detail, quantity
+from stagewright.core.exergy import flow_exergy, water_exergy
+from stagewright.core.flow import NORMAL_PRESSURE, NORMAL_TEMPERATURE
+from stagewright.core.moist.freezing import frozen_condensate_warning, intake_rime_warning
+from stagewright.core.moist.stream import MoistAir, check_humid_range
+from stagewright.core.moist.iso8573 import REFERENCE_PRESSURE, REFERENCE_TEMPERATURE, humidity_class
+from stagewright.core.models.base import Point, PropertyModel
+from stagewright.core.heat_recovery import heat_recovery
+from stagewright.core.project.delivery import stated_delivery
+from stagewright.core.solve_context import SolveContext
+from stagewright.core.results import InletResult, TrainResult, Warning_, WaterResult
+from stagewright.core.split import stage_pressure_ratios
+from stagewright.core.stage import solve_stage
+from stagewright.core import coolprop_adapter
 
 
 def solve_train(ctx: SolveContext, mass_flow: float, detail: bool = True, reuse: dict | None = None) -> TrainResult:
@@ -39,7 +39,7 @@ def solve_train(ctx: SolveContext, mass_flow: float, detail: bool = True, reuse:
     Parameters
     ----------
     ctx : SolveContext
-        The solve's context (:func:`thermo.solve_context.solve_context`): normalised project,
+        The solve's context (:func:`stagewright.core.solve_context.solve_context`): normalised project,
         resolved site, property model and intake state.
     mass_flow : float
         Mass flow of air, [kg/s].
@@ -65,10 +65,10 @@ def solve_train(ctx: SolveContext, mass_flow: float, detail: bool = True, reuse:
     Notes
     -----
     Steps: the intake filter (:func:`_intake_filter`), the stage ratios
-    (:func:`thermo.split.stage_pressure_ratios`), the stages and coolers in flow order
+    (:func:`stagewright.core.split.stage_pressure_ratios`), the stages and coolers in flow order
     (:func:`_run_line`), the totals and closures (:func:`_totals`), heat recovery.
 
-    Moist intake air (see :mod:`thermo.moist.stream`): ``mass_flow`` is the dry-air flow; each
+    Moist intake air (see :mod:`stagewright.core.moist.stream`): ``mass_flow`` is the dry-air flow; each
     stage and cooler uses the stream model of its total water; the condensate drained by
     the separators leaves the train at its cooler's outlet temperature and pressure and
     enters both closures:
@@ -88,9 +88,9 @@ def solve_train(ctx: SolveContext, mass_flow: float, detail: bool = True, reuse:
 
     Examples
     --------
-    >>> from thermo.models import ConstantCpAir
-    >>> from thermo.project.validation import normalise
-    >>> from thermo.solve_context import solve_context
+    >>> from stagewright.core.models import ConstantCpAir
+    >>> from stagewright.core.project.validation import normalise
+    >>> from stagewright.core.solve_context import solve_context
     >>> norm = normalise({"site": {"ambient_temperature_K": 293.15, "barometric_pressure_Pa": 1e5},
     ...                   "flow": {"kind": "mass", "value": 1.0}, "discharge_pressure_Pa": 4e5,
     ...                   "fluid": {"model": "constant_cp"},
@@ -198,13 +198,13 @@ def _run_line(ctx: SolveContext, ratios: list, mass_flow: float, detail: bool, r
     Raises
     ------
     StagewrightError
-        As :func:`thermo.stage.solve_stage`, :func:`thermo.cooler.solve_cooler` and
-        :func:`thermo.moist.stream.check_humid_range`.
+        As :func:`stagewright.core.stage.solve_stage`, :func:`stagewright.core.cooler.solve_cooler` and
+        :func:`stagewright.core.moist.stream.check_humid_range`.
 
     Notes
     -----
-    The balances are those of :func:`thermo.stage.solve_stage` and
-    :func:`thermo.cooler.solve_cooler`, with their sources.
+    The balances are those of :func:`stagewright.core.stage.solve_stage` and
+    :func:`stagewright.core.cooler.solve_cooler`, with their sources.
     """
     intake, mixture = ctx.intake, ctx.mixture
     specs = ctx.norm["stages"]

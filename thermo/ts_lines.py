@@ -16,8 +16,8 @@ __all__ = ["PathSegment", "Isobar", "path_segments", "isobar_pressures", "isobar
 
 from dataclasses import dataclass
 
-from thermo.errors import StagewrightError
-from thermo.models.base import T_MAX, T_MIN, PropertyModel
+from stagewright.core.errors import StagewrightError
+from stagewright.core.models.base import T_MAX, T_MIN, PropertyModel
 
 ISOBAR_POINTS = 48  #: points along an isobar, evenly spaced in temperature
 
@@ -96,19 +96,19 @@ def path_segments(result: dict) -> list[PathSegment]:
 
     Notes
     -----
-    The states are the solver's own (:func:`thermo.polytropic.polytropic_path` for the
-    compression, :func:`thermo.cooler.solve_cooler` for the cooling line); nothing is
+    The states are the solver's own (:func:`stagewright.core.polytropic.polytropic_path` for the
+    compression, :func:`stagewright.core.cooler.solve_cooler` for the cooling line); nothing is
     recomputed.
 
     Examples
     --------
-    >>> import thermo
+    >>> import stagewright.core
     >>> doc = {"site": {"ambient_temperature_K": 293.15, "barometric_pressure_Pa": 1e5},
     ...        "fluid": {"model": "constant_cp"}, "flow": {"kind": "mass", "value": 1.0},
     ...        "discharge_pressure_Pa": 4e5,
     ...        "stages": [{"efficiency": {"kind": "polytropic", "value": 0.8},
     ...                    "cooler": {"outlet_temperature_K": 303.15}}]}
-    >>> segs = path_segments(thermo.solve(doc).to_dict())
+    >>> segs = path_segments(stagewright.core.solve(doc).to_dict())
     >>> [s.name for s in segs], round(segs[0].points[-1][0], 4)  # 293.15 K · 4 ** (0.4 / (1.4 · 0.8))
     (['stage-1', 'cooler-1'], 480.9626)
     """
@@ -170,7 +170,7 @@ def isobar_model(result: dict) -> PropertyModel | None:
     Returns
     -------
     PropertyModel or None
-        The model named by ``result["model"]`` (:func:`thermo.solve.model_for`); for moist
+        The model named by ``result["model"]`` (:func:`stagewright.core.solve.model_for`); for moist
         intake air (``intake_humidity_ratio`` > 0) the moist stream model of the intake's
         water, whose entropy per kilogram of dry air is the one the result's states carry
         (below the dew point at a pressure, the isobar includes the condensed water). None
@@ -186,12 +186,12 @@ def isobar_model(result: dict) -> PropertyModel | None:
 
     Examples
     --------
-    >>> import thermo
+    >>> import stagewright.core
     >>> doc = {"site": {"ambient_temperature_K": 293.15, "barometric_pressure_Pa": 1e5},
     ...        "fluid": {"model": "constant_cp", "cp_J_kgK": 1040.0, "k": 1.36},
     ...        "flow": {"kind": "mass", "value": 1.0}, "discharge_pressure_Pa": 4e5,
     ...        "stages": [{"efficiency": {"kind": "isentropic", "value": 0.8}}]}
-    >>> model = isobar_model(thermo.solve(doc).to_dict())
+    >>> model = isobar_model(stagewright.core.solve(doc).to_dict())
     >>> round(model.at_tp(300.0, 1e5).h - model.at_tp(299.0, 1e5).h, 6)  # cp, [J/(kg K)]
     1040.0
 
@@ -202,7 +202,7 @@ def isobar_model(result: dict) -> PropertyModel | None:
     .. [2] ASHRAE Handbook — Fundamentals, 2017, ch. 1 (moist-air properties per kilogram of
        dry air).
     """
-    from thermo.solve import model_for  # local: thermo.solve is the solver's entry point
+    from stagewright.core.solve import model_for  # local: stagewright.core.solve is the solver's entry point
     name = result.get("model")
     fluid = {"model": name}
     if name == "constant_cp":
@@ -218,8 +218,8 @@ def isobar_model(result: dict) -> PropertyModel | None:
         return None
     w0 = result.get("intake_humidity_ratio") or 0.0
     if w0 > 0.0:  # moist intake: isobars of the intake air's own water (entropy per kg dry air)
-        from thermo.moist.stream import MoistAir
-        from thermo.solve_context import mixture_for
+        from stagewright.core.moist.stream import MoistAir
+        from stagewright.core.solve_context import mixture_for
         model = MoistAir(mixture_for(model), w0)
     return model
 
@@ -253,12 +253,12 @@ def isobars(result: dict, T_lo: float, T_hi: float, points: int = ISOBAR_POINTS)
 
     Examples
     --------
-    >>> import thermo
+    >>> import stagewright.core
     >>> doc = {"site": {"ambient_temperature_K": 293.15, "barometric_pressure_Pa": 1e5},
     ...        "fluid": {"model": "constant_cp"}, "flow": {"kind": "mass", "value": 1.0},
     ...        "discharge_pressure_Pa": 4e5,
     ...        "stages": [{"efficiency": {"kind": "isentropic", "value": 0.8}}]}
-    >>> lines = isobars(thermo.solve(doc).to_dict(), 250.0, 500.0, points=6)
+    >>> lines = isobars(stagewright.core.solve(doc).to_dict(), 250.0, 500.0, points=6)
     >>> [(iso.number, iso.pressure_Pa, iso.temperature_K[:2]) for iso in lines]
     [(1, 100000.0, (250.0, 300.0)), (2, 400000.0, (250.0, 300.0))]
     >>> # perfect gas: s(T, 4 bar) − s(T, 1 bar) = −R ln 4 (Çengel & Boles 2015, §7-9)

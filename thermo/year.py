@@ -19,10 +19,10 @@ keep theirs unless the bin gives ``coolant_inlet_temperature_K``.
 
 Coolers are sized afresh in every bin (``year.coolers.mode = "size_every_bin"``, each bin
 gets a perfect exchanger) or sized once at a design condition and rated at that fixed UA in
-every bin (``"design_once"``, :mod:`thermo.year_design`). Each bin's project shares every
-unchanged part with the year's normalised project (:mod:`thermo.year_bins`), so a year's time
+every bin (``"design_once"``, :mod:`stagewright.core.year_design`). Each bin's project shares every
+unchanged part with the year's normalised project (:mod:`stagewright.core.year_bins`), so a year's time
 grows linearly with its bins. Bins are solved on the fast property path of trial solves
-(:func:`thermo.solve.solve_normalised` with ``detail=False, fast=True``; its figures agree with
+(:func:`stagewright.core.solve.solve_normalised` with ``detail=False, fast=True``; its figures agree with
 exact solves to better than 1e-4 relative, tests/test_year_design.py checks the totals);
 ``run_year(..., exact=True)`` solves them exactly.
 """
@@ -35,12 +35,12 @@ import os
 from dataclasses import asdict, dataclass, field
 from functools import partial
 
-from thermo.project.validation import normalise
-from thermo.errors import InputError, StagewrightError
-from thermo.solve import release_thread_models, solve_normalised
-from thermo.year_bins import norm_for_bin, year_base
-from thermo.year_design import YearDesign, design_coolers, limit_flags
-from thermo.year_profile import Bin, operating_bins
+from stagewright.core.project.validation import normalise
+from stagewright.core.errors import InputError, StagewrightError
+from stagewright.core.solve import release_thread_models, solve_normalised
+from stagewright.core.year_bins import norm_for_bin, year_base
+from stagewright.core.year_design import YearDesign, design_coolers, limit_flags
+from stagewright.core.year_profile import Bin, operating_bins
 
 CONDENSATE_DENSITY_KG_M3 = 1000.0
 FAST_PATH_BINS = 24  #: up to this many bins a year solves exactly by default (measured: bench/run.py)
@@ -83,10 +83,10 @@ class BinResult:
     #: point below 0.01 °C; None for a dry intake)
     dryer_inlet_temperature_K: float = 0.0
     pressure_dew_point_K: float | None = None
-    #: stated limits this bin misses (:func:`thermo.year_design.limit_flags`); empty when it meets them
+    #: stated limits this bin misses (:func:`stagewright.core.year_design.limit_flags`); empty when it meets them
     limit_flags: list = field(default_factory=list)
     meets_limits: bool = True
-    #: a cooler's condensate would freeze, or nearly (thermo.moist.freezing): freeze protection needed
+    #: a cooler's condensate would freeze, or nearly (stagewright.core.moist.freezing): freeze protection needed
     freezing_condensate: bool = False
 
 
@@ -293,7 +293,7 @@ def _solve_chunk(job: _Job, chunk: list) -> list:
 def _run_in_pool(job: _Job, bins: list, n_proc: int, progress, cancelled) -> list:
     """The bins in chunks of CHUNK_BINS on ``n_proc`` worker processes, in order."""
     from concurrent.futures import ProcessPoolExecutor  # local: most years are short
-    from thermo.process_pool import pool_context
+    from stagewright.core.process_pool import pool_context
     chunks = [bins[i:i + CHUNK_BINS] for i in range(0, len(bins), CHUNK_BINS)]
     out: list = []
     with ProcessPoolExecutor(max_workers=n_proc, mp_context=pool_context()) as pool:
@@ -315,7 +315,7 @@ def _run_in_pool(job: _Job, bins: list, n_proc: int, progress, cancelled) -> lis
 
 
 def _in_design(base: dict, bins: list, settings: dict, solve_fn) -> YearDesign:
-    """:func:`thermo.year_design.design_coolers`, its errors naming the design condition."""
+    """:func:`stagewright.core.year_design.design_coolers`, its errors naming the design condition."""
     try:
         return design_coolers(base, bins, settings, solve_fn)
     except StagewrightError as exc:

@@ -10,7 +10,7 @@ from __future__ import annotations
 
 __all__ = ["year_base", "norm_for_bin", "rated_cooler_spec", "cooler_for_bin"]
 
-from thermo.year_profile import Bin
+from stagewright.core.year_profile import Bin
 
 
 def year_base(norm: dict) -> dict:
@@ -21,7 +21,7 @@ def year_base(norm: dict) -> dict:
 def rated_cooler_spec(spec: dict, ua_W_K: float, coolant_flow_kg_s: float) -> dict:
     """A cooler entry rated at a fixed UA with a fixed coolant flow (the installed exchanger).
 
-    The air outlet is then a result of the rating (:func:`thermo.exchanger.rate_exchanger`);
+    The air outlet is then a result of the rating (:func:`stagewright.core.exchanger.rate_exchanger`);
     the coolant flow is the design flow (a pump or fan at fixed speed), so the coolant's
     outlet temperature moves with the bin's coolant inlet and duty.
 
@@ -61,7 +61,7 @@ def norm_for_bin(base: dict, b: Bin, rating: list | None = None) -> dict:
         The operating bin.
     rating : list, optional
         Per stage, ``(ua_W_K, coolant_flow_kg_s)`` of a cooler rated at a fixed UA, or None
-        where the cooler keeps its entry (design once, rate every bin: :mod:`thermo.year_design`).
+        where the cooler keeps its entry (design once, rate every bin: :mod:`stagewright.core.year_design`).
 
     Returns
     -------

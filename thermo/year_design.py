@@ -8,7 +8,7 @@ inlet plus approach). Its installed conductance is the sized UA plus a fouling m
 .. math:: UA_\mathrm{rated} = (1 + m)\,UA_\mathrm{design},
 
 and every bin is then *rated* with that UA and the design coolant flow (a pump or fan at fixed
-speed) by the ε–NTU method (:func:`thermo.exchanger.rate_exchanger`; wet zones where the air
+speed) by the ε–NTU method (:func:`stagewright.core.exchanger.rate_exchanger`; wet zones where the air
 condenses): the air outlet, duty, coolant outlet and condensate move with the bin's coolant
 and ambient temperatures and its load, as they do in a real plant. The default margin
 m = 0.10 is common practice, no source (fouling allowances of 10–25 % on UA or area are
@@ -32,8 +32,8 @@ __all__ = ["CoolerDesign", "YearDesign", "design_coolers", "limit_flags", "DEFAU
 
 from dataclasses import dataclass
 
-from thermo.year_bins import norm_for_bin
-from thermo.year_profile import Bin
+from stagewright.core.year_bins import norm_for_bin
+from stagewright.core.year_profile import Bin
 
 DEFAULT_UA_MARGIN = 0.10  #: fouling margin on UA (common practice, no source)
 _OUTLET_TOLERANCE_K = 1e-6  #: a rated outlet this close to its stated outlet still meets it
@@ -67,7 +67,7 @@ class YearDesign:
     coolers: tuple
 
     def rating(self) -> list:
-        """Per stage ``(UA, coolant flow)`` to rate with, or None (:func:`thermo.year_bins.norm_for_bin`)."""
+        """Per stage ``(UA, coolant flow)`` to rate with, or None (:func:`stagewright.core.year_bins.norm_for_bin`)."""
         return [None if c is None else (c.rated_ua_W_K, c.coolant_flow_kg_s) for c in self.coolers]
 
     def to_dict(self) -> dict:
@@ -82,7 +82,7 @@ def design_coolers(base: dict, bins: list, settings: dict, solve_fn) -> YearDesi
     Parameters
     ----------
     base : dict
-        The normalised project without its year (:func:`thermo.year_bins.year_base`).
+        The normalised project without its year (:func:`stagewright.core.year_bins.year_base`).
     bins : list of Bin
         The year's operating bins (the hottest is the design bin of ``"hottest_bin"``).
     settings : dict

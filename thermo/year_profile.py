@@ -12,7 +12,7 @@ __all__ = ["MONTH_NAMES", "DAYS_IN_MONTH", "Bin", "year_problems", "operating_bi
 
 from dataclasses import dataclass
 
-from thermo.errors import InputError, Problem
+from stagewright.core.errors import InputError, Problem
 
 MONTH_NAMES = ("January", "February", "March", "April", "May", "June", "July", "August",
                "September", "October", "November", "December")

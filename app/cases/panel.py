@@ -2,7 +2,7 @@
 
 Left: the list of cases (the base first, marked); choosing one shows it in every panel and the
 edits go into it. New case (a copy of the one shown), Rename, Remove and Make base are each one
-undo step (:class:`app.window.commands.ReplaceProject`). Right: Compare solves the chosen cases
+undo step (:class:`stagewright.gui.window.commands.ReplaceProject`). Right: Compare solves the chosen cases
 (all when none is chosen) off the GUI thread (progress, cancel) and shows a table — a row per
 figure, a column per case, each value with its difference from the reference case below it,
 a case with warnings marked — and bar charts side by side.
@@ -17,13 +17,13 @@ from PySide6.QtWidgets import (QAbstractItemView, QComboBox, QGridLayout, QHBoxL
                                QListWidgetItem, QProgressBar, QPushButton, QSplitter, QTableWidget,
                                QTableWidgetItem, QTabWidget, QVBoxLayout, QWidget)
 
-from thermo.errors import StagewrightError
-from thermo.project import cases as project_cases
+from stagewright.core.errors import StagewrightError
+from stagewright.core.project import cases as project_cases
 
-from app.cases.worker import CompareRunner
-from app.presentation.compare_table import CASE_FIGURES, case_row, difference_text, flags
-from app.presentation.figures import condition_holds, shown
-from app.widgets.table_copy import attach_table_copy
+from stagewright.gui.cases.worker import CompareRunner
+from stagewright.gui.presentation.compare_table import CASE_FIGURES, case_row, difference_text, flags
+from stagewright.gui.presentation.figures import condition_holds, shown
+from stagewright.gui.widgets.table_copy import attach_table_copy
 
 _OUT = "window"
 _WARN = QColor("#fbeed5")  # a case with warnings or a failure: a pale amber header
@@ -158,7 +158,7 @@ class CasesPanel(QWidget):
             self.model.activate(item.data(Qt.UserRole))
 
     def _apply(self, operation, args: tuple, show: str | None, text: str) -> None:
-        """``operation(project, *args)`` (a :mod:`thermo.project.cases` function) as one undo
+        """``operation(project, *args)`` (a :mod:`stagewright.core.project.cases` function) as one undo
         step showing case ``show``; a refusal is said in the status line and nothing changes."""
         try:
             new = operation(self.model.project_snapshot(), *args)
@@ -290,8 +290,8 @@ class CasesPanel(QWidget):
         return canvas
 
     def _draw(self, outcomes: list, reference: str, system: str) -> None:
-        from app.charts.case_chart import draw_case_comparison
-        from app.charts.case_ts_chart import draw_case_paths
+        from stagewright.gui.charts.case_chart import draw_case_comparison
+        from stagewright.gui.charts.case_ts_chart import draw_case_paths
         if self.canvas is None:
             self.canvas = self._canvas(self.chart_holder, (9, 2.6))
             self.paths_canvas = self._canvas(self.paths_holder, (9, 3.2))

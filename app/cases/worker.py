@@ -1,5 +1,5 @@
-"""Compare cases off the GUI thread: :func:`thermo.cases.compare_cases` in a
-:class:`~app.jobs.job_runner.JobRunner` (progress per case, cancel between cases, stale answers
+"""Compare cases off the GUI thread: :func:`stagewright.core.cases.compare_cases` in a
+:class:`~stagewright.gui.jobs.job_runner.JobRunner` (progress per case, cancel between cases, stale answers
 dropped)."""
 from __future__ import annotations
 
@@ -10,12 +10,12 @@ from typing import Callable
 
 from PySide6.QtCore import Signal
 
-from app.jobs.job_runner import JobCancelled, JobRunner
+from stagewright.gui.jobs.job_runner import JobCancelled, JobRunner
 
 
 def _compare(payload: tuple[dict, list[str] | None], report: Callable[[int, int], None],
              cancel: threading.Event) -> list:
-    from thermo.cases import compare_cases
+    from stagewright.core.cases import compare_cases
     doc, names = payload
     outcomes = compare_cases(doc, names, progress=report, cancelled=cancel.is_set)
     if cancel.is_set():

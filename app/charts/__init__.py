@@ -8,6 +8,6 @@ from __future__ import annotations
 
 __all__ = ["draw_ts_chart", "draw_power_split", "draw_staging_chart"]
 
-from app.charts.power_split import draw_power_split
-from app.charts.staging_chart import draw_staging_chart
-from app.charts.ts_chart import draw_ts_chart
+from stagewright.gui.charts.power_split import draw_power_split
+from stagewright.gui.charts.staging_chart import draw_staging_chart
+from stagewright.gui.charts.ts_chart import draw_ts_chart

@@ -2,7 +2,7 @@
 
 Panels: driver input power, specific power, heat rejected, condensate (moist intake) and the
 cost per year (when a year was run), each only when some case has a value. The reference case's
-bar is outlined. Reads :data:`app.presentation.compare_table.CASE_FIGURES` for labels and units.
+bar is outlined. Reads :data:`stagewright.gui.presentation.compare_table.CASE_FIGURES` for labels and units.
 """
 from __future__ import annotations
 
@@ -10,15 +10,15 @@ __all__ = ["draw_case_comparison", "CHART_FIGURES"]
 
 from matplotlib.figure import Figure as MplFigure
 
-from app.charts import style
-from app.presentation.compare_table import CASE_FIGURES, case_row
+from stagewright.gui.charts import style
+from stagewright.gui.presentation.compare_table import CASE_FIGURES, case_row
 
 #: ids of the figures drawn, in panel order
 CHART_FIGURES = ("driver_power_W", "specific_power_kW_per_m3_min", "heat_rejected_W", "condensate_kg_s", "year_cost")
 
 
 def draw_case_comparison(fig: MplFigure, outcomes: list, reference: str, system: str = "SI") -> MplFigure:
-    """Draw ``outcomes`` (:class:`thermo.cases.CaseOutcome`) into ``fig`` as bar panels.
+    """Draw ``outcomes`` (:class:`stagewright.core.cases.CaseOutcome`) into ``fig`` as bar panels.
 
     Returns
     -------

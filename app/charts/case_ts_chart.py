@@ -1,17 +1,17 @@
 """The T–s paths of several cases overlaid on one chart (a colour per case, the reference case
 drawn heavier). Entropy is relative to each case's own intake, as on the single-case chart
-(:mod:`app.charts.ts_chart`), so paths start at zero and differ in where they go. The lines come
-from the core as plain SI data (:func:`thermo.ts_lines.path_segments`)."""
+(:mod:`stagewright.gui.charts.ts_chart`), so paths start at zero and differ in where they go. The lines come
+from the core as plain SI data (:func:`stagewright.core.ts_lines.path_segments`)."""
 from __future__ import annotations
 
 __all__ = ["draw_case_paths", "CASE_COLOURS"]
 
 from matplotlib.figure import Figure
 
-from thermo.ts_lines import path_segments
+from stagewright.core.ts_lines import path_segments
 
-from app.charts import style
-from app.presentation import units
+from stagewright.gui.charts import style
+from stagewright.gui.presentation import units
 
 #: colours of the cases in order (the house palette's most distinct entries)
 CASE_COLOURS = (style.SHAFT, style.COMPRESSION, style.COOLING, style.LIMIT, style.AMBIENT, style.DESTROYED,
@@ -20,7 +20,7 @@ CASE_COLOURS = (style.SHAFT, style.COMPRESSION, style.COOLING, style.LIMIT, styl
 
 def draw_case_paths(fig: Figure, outcomes: list, reference: str, system: str = "SI") -> Figure:
     """Draw the compression and cooling path of every solved case in ``outcomes``
-    (:class:`thermo.cases.CaseOutcome`); each line has the gid ``"<case>:<segment>"``.
+    (:class:`stagewright.core.cases.CaseOutcome`); each line has the gid ``"<case>:<segment>"``.
 
     Returns
     -------

@@ -26,7 +26,7 @@ import warnings
 
 from matplotlib.layout_engine import ConstrainedLayoutEngine
 
-from app.charts import style
+from stagewright.gui.charts import style
 
 _EDGE_PX = 2.0      # keep this far from the figure edge
 _TICK_GAP_PX = 2.0  # least gap between neighbouring x tick labels

@@ -1,14 +1,14 @@
 """Part-load chart: the package's input power and specific power against the air it delivers.
 
 Built on a plain matplotlib ``Figure`` (no Qt, no pyplot) from ``TrainResult.to_dict()["package"]``
-(:func:`thermo.part_load.figures.package_figures`): two panels over delivered free air —
+(:func:`stagewright.core.part_load.figures.package_figures`): two panels over delivered free air —
 package input power (line ``"part-load-power"``) with the ideal control for reference, input in
 proportion to flow at the full-load specific power (dashed, ``"part-load-ideal"``), and package
 specific power (``"part-load-specific"``, with its full-load value as a dashed line,
 ``"part-load-specific-ideal"``), one legend under both. The stated load is marked on both (``"part-load-stated"``,
 ``"part-load-stated-specific"``) and the data-sheet loads as small rings (``"part-load-sheet"``).
 A wide, short figure puts the panels side by side; a taller one stacks them (same rule as the
-year chart, :func:`app.charts.year_chart.side_by_side_for`).
+year chart, :func:`stagewright.gui.charts.year_chart.side_by_side_for`).
 """
 from __future__ import annotations
 
@@ -16,10 +16,10 @@ __all__ = ["draw_part_load_chart"]
 
 from matplotlib.figure import Figure
 
-from app.charts import fit_layout, style
-from app.charts.year_chart import side_by_side_for
-from app.presentation import units
-from app.presentation.package_table import J_M3, load_name
+from stagewright.gui.charts import fit_layout, style
+from stagewright.gui.charts.year_chart import side_by_side_for
+from stagewright.gui.presentation import units
+from stagewright.gui.presentation.package_table import J_M3, load_name
 
 _STATED = style.LIMIT  # the stated load: plum, the colour of a stated limit or mark
 

@@ -21,8 +21,8 @@ __all__ = ["draw_power_split", "exergy_items", "heat_items", "drained_water"]
 from matplotlib.figure import Figure
 from matplotlib.patches import Patch
 
-from app.presentation import units
-from app.charts import style
+from stagewright.gui.presentation import units
+from stagewright.gui.charts import style
 
 
 def exergy_items(result: dict) -> list[tuple[str, str, float]]:

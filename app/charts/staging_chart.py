@@ -16,8 +16,8 @@ from matplotlib.font_manager import FontProperties
 from matplotlib.lines import Line2D
 from matplotlib.ticker import MaxNLocator
 
-from app.presentation import units
-from app.charts import style
+from stagewright.gui.presentation import units
+from stagewright.gui.charts import style
 
 _HANDLE, _TEXTPAD, _COLSPACE = 2.2, 0.8, 2.0  # legend spacing, [font sizes] (matplotlib's own units)
 _measure = RendererAgg(10, 10, 72.0)  # 72 dpi: one pixel is one point

@@ -8,7 +8,7 @@ PDF. Every process segment is one ``Line2D`` with a gid (``"stage-1"``, ``"coole
 Entropy is drawn relative to the intake state, :math:`s - s_\\mathrm{intake}`, because the
 absolute value depends on each property model's reference state. The chart only draws:
 the process path and the isobars come from the core as plain SI data
-(:mod:`thermo.ts_lines`), computed from the property model the result names.
+(:mod:`stagewright.core.ts_lines`), computed from the property model the result names.
 """
 from __future__ import annotations
 
@@ -19,10 +19,10 @@ import math
 
 from matplotlib.figure import Figure
 
-from thermo.ts_lines import ISOBAR_POINTS, isobar_pressures, isobars, path_segments
+from stagewright.core.ts_lines import ISOBAR_POINTS, isobar_pressures, isobars, path_segments
 
-from app.presentation import units
-from app.charts import style
+from stagewright.gui.presentation import units
+from stagewright.gui.charts import style
 
 
 def stage_limits(result: dict, limits_K=None) -> list:
@@ -51,7 +51,7 @@ def draw_ts_chart(fig: Figure, result: dict, system: str = "SI", limits_K=None) 
     result : dict
         ``TrainResult.to_dict()`` of a solve.
     system : str
-        Display units, ``"SI"`` or ``"US"`` (see :mod:`app.presentation.units`).
+        Display units, ``"SI"`` or ``"US"`` (see :mod:`stagewright.gui.presentation.units`).
     limits_K : float or list, optional
         Discharge-temperature limit(s), [K]; by default each stage's
         ``max_discharge_temperature_K`` in the result, if present.

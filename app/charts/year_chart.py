@@ -1,14 +1,14 @@
 """Year-at-site chart: energy, condensate and worst discharge temperature bin by bin.
 
 Built on a plain matplotlib ``Figure`` (no Qt, no pyplot) from ``YearResult.to_dict()``
-(:func:`thermo.year.run_year`): three panels — energy per bin (bars, gid ``"year-energy-<i>"``),
+(:func:`stagewright.core.year.run_year`): three panels — energy per bin (bars, gid ``"year-energy-<i>"``),
 condensate drained per bin (bars, ``"year-condensate-<i>"``) and the highest stage discharge
 temperature of the bin (line ``"year-discharge"``), with the worst bin circled
 (``"year-worst"``) and named in that panel's title, never beside the point, where it would run
 into the month labels of a short panel. A wide, short figure (a panel docked under the
 window's charts) puts the three panels side by side, each with its own month labels; a taller
 one stacks them over one shared month axis. Titles and month labels are fitted to the space at
-every draw (:mod:`app.charts.fit_layout`).
+every draw (:mod:`stagewright.gui.charts.fit_layout`).
 """
 from __future__ import annotations
 
@@ -16,8 +16,8 @@ __all__ = ["draw_year_chart", "side_by_side_for", "SIDE_BY_SIDE_ASPECT"]
 
 from matplotlib.figure import Figure
 
-from app.presentation import units
-from app.charts import fit_layout, style
+from stagewright.gui.presentation import units
+from stagewright.gui.charts import fit_layout, style
 
 _MONTHS = ("January", "February", "March", "April", "May", "June", "July", "August", "September", "October",
            "November", "December")

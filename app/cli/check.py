@@ -5,15 +5,15 @@ __all__ = ["run"]
 
 from pathlib import Path
 
-from app.cli.paths import EXIT_INPUT, EXIT_OK, expand_paths
+from stagewright.gui.cli.paths import EXIT_INPUT, EXIT_OK, expand_paths
 
 
 def run(args) -> int:
     """Validate every file named without solving it."""
-    from thermo import StagewrightError
-    from thermo.project.parse import read_limited
-    from thermo.project.reading import read_document
-    from thermo.project.schema import FORMAT_VERSION
+    from stagewright.core import StagewrightError
+    from stagewright.core.project.parse import read_limited
+    from stagewright.core.project.reading import read_document
+    from stagewright.core.project.schema import FORMAT_VERSION
 
     status = EXIT_OK
     paths = expand_paths(args.files)

@@ -14,11 +14,11 @@ import io
 import json
 import sys
 
-from app.cli.paths import EXIT_INPUT, EXIT_OK
-from app.document.messages import warning_text
-from app.presentation.cautions import CAUTIONS, DEFERRAL
-from app.presentation.compare_table import CASE_FIGURES, case_row, difference, difference_text, flags
-from app.presentation.figures import condition_holds, shown
+from stagewright.gui.cli.paths import EXIT_INPUT, EXIT_OK
+from stagewright.gui.document.messages import warning_text
+from stagewright.gui.presentation.cautions import CAUTIONS, DEFERRAL
+from stagewright.gui.presentation.compare_table import CASE_FIGURES, case_row, difference, difference_text, flags
+from stagewright.gui.presentation.figures import condition_holds, shown
 
 _OUT = "text"
 
@@ -118,10 +118,10 @@ def _csv(outcomes) -> str:
 
 def run(args) -> int:
     """Solve the cases asked for and print the comparison; exit status 2 if any case failed."""
-    from thermo import StagewrightError
-    from thermo.cases import compare_cases
-    from thermo.project import load
-    from thermo.project.cases import case_names
+    from stagewright.core import StagewrightError
+    from stagewright.core.cases import compare_cases
+    from stagewright.core.project import load
+    from stagewright.core.project.cases import case_names
 
     try:
         doc = load(args.project)

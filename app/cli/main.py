@@ -27,9 +27,9 @@ import argparse
 import os
 import sys
 
-from app.cli import check, compare, report, solve, study, sweep, uncertainty, year
-from app.cli.paths import EXIT_FAILED, expand_paths
-from app.cli.terminal import escaped_output
+from stagewright.gui.cli import check, compare, report, solve, study, sweep, uncertainty, year
+from stagewright.gui.cli.paths import EXIT_FAILED, expand_paths
+from stagewright.gui.cli.terminal import escaped_output
 
 #: sub-command -> module with ``run(args)`` and either ``build_parser()`` or ``add_arguments(p)``
 #: (imported here, not by name at run time, so the import contracts see them; each module

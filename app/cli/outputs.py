@@ -76,7 +76,7 @@ def write_text_atomically(path: Path, text: str) -> None:
     OSError
         When the file cannot be written; ``path`` is then unchanged.
     """
-    from app.report.atomic import atomic_path
+    from stagewright.gui.report.atomic import atomic_path
 
     with atomic_path(path) as tmp:
         with open(tmp, "w", encoding="utf-8", newline="") as fh:

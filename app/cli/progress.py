@@ -12,7 +12,7 @@ import shutil
 import sys
 import time
 
-from app.cli.terminal import EscapingStream, escape_controls
+from stagewright.gui.cli.terminal import EscapingStream, escape_controls
 
 
 class Progress:

@@ -12,8 +12,8 @@ import argparse
 import sys
 from pathlib import Path
 
-from app.cli.outputs import FORCE_HELP, output_problems
-from app.cli.paths import EXIT_FAILED, EXIT_INPUT, EXIT_OK, expand_paths
+from stagewright.gui.cli.outputs import FORCE_HELP, output_problems
+from stagewright.gui.cli.paths import EXIT_FAILED, EXIT_INPUT, EXIT_OK, expand_paths
 
 
 def add_arguments(p: argparse.ArgumentParser) -> None:
@@ -54,11 +54,11 @@ def output_paths(paths: list[Path], output: str | None, csv: str | None) -> list
 
 def run(args) -> int:
     """Write the reports asked for on the command line; returns the exit status."""
-    from thermo import StagewrightError, solve
-    from thermo.project import load
+    from stagewright.core import StagewrightError, solve
+    from stagewright.core.project import load
 
-    from app.cli.progress import Progress
-    from app.report import export_report
+    from stagewright.gui.cli.progress import Progress
+    from stagewright.gui.report import export_report
 
     paths = expand_paths(args.files)
     if len(paths) > 1 and args.output and args.output.lower().endswith(".pdf"):
@@ -86,7 +86,7 @@ def run(args) -> int:
                 result = solve(doc)
                 rows = None
                 if getattr(args, "stagings", None):
-                    from thermo.study import compare_stagings
+                    from stagewright.core.study import compare_stagings
                     rows = compare_stagings(doc, args.stagings).rows()
                 export_report(doc, result, pdf, csv_path, system=args.units, source_name=path.name,
                               study_rows=rows, prepared_by=getattr(args, "prepared_by", None))

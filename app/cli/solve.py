@@ -6,7 +6,7 @@ __all__ = ["add_arguments", "run"]
 import argparse
 import json
 
-from app.cli.paths import EXIT_INPUT, EXIT_OK, expand_paths
+from stagewright.gui.cli.paths import EXIT_INPUT, EXIT_OK, expand_paths
 
 
 def add_arguments(p: argparse.ArgumentParser) -> None:
@@ -16,10 +16,10 @@ def add_arguments(p: argparse.ArgumentParser) -> None:
 
 def run(args) -> int:
     """Solve every file named; one line per rejected file; exit status 2 if any was rejected."""
-    from thermo import StagewrightError, solve
-    from thermo.project import load
-    from app.cli.progress import Progress
-    from app.cli.solve_table import format_result
+    from stagewright.core import StagewrightError, solve
+    from stagewright.core.project import load
+    from stagewright.gui.cli.progress import Progress
+    from stagewright.gui.cli.solve_table import format_result
 
     status, outputs = EXIT_OK, []
     paths = expand_paths(args.files)

@@ -1,8 +1,8 @@
 """Readable plain-text table of a solved train for the command line (SI units).
 
-Its columns and totals are those of :mod:`app.presentation.balance_tables` that show in the
+Its columns and totals are those of :mod:`stagewright.gui.presentation.balance_tables` that show in the
 ``"text"`` output: a figure added there appears here too. Numbers are right-aligned in the
-width a figure's text :class:`~app.presentation.figures.Look` gives (else two characters wider
+width a figure's text :class:`~stagewright.gui.presentation.figures.Look` gives (else two characters wider
 than its header), without thousands grouping; totals print to 4 decimals unless told otherwise,
 with their labels' first letter in lower case.
 """
@@ -10,9 +10,9 @@ from __future__ import annotations
 
 __all__ = ["format_result", "package_lines"]
 
-from app.presentation import balance_tables as tables
-from app.presentation import package_table
-from app.presentation.figures import Figure, condition_holds, shown
+from stagewright.gui.presentation import balance_tables as tables
+from stagewright.gui.presentation import package_table
+from stagewright.gui.presentation.figures import Figure, condition_holds, shown
 
 _OUT = "text"
 _NAME_WIDTH, _TOTAL_NAME_WIDTH, _TOTAL_WIDTH, _TOTAL_DECIMALS = 22, 24, 14, 4
@@ -91,7 +91,7 @@ def format_result(title: str, r: dict) -> str:
 
 def package_lines(pkg: dict) -> list[str]:
     """The package's figures at full and at the stated load, and its load profile's year
-    (:mod:`app.presentation.package_table`, the ``"text"`` rows), as aligned lines."""
+    (:mod:`stagewright.gui.presentation.package_table`, the ``"text"`` rows), as aligned lines."""
     rows = package_table.point_rows(pkg, _OUT)
     heads = [h.lower() for h, _ in package_table.point_columns(pkg)]
     label_w = max([len(r[0]) + len(r[1]) + 3 for r in rows] + [_TOTAL_NAME_WIDTH])

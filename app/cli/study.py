@@ -20,7 +20,7 @@ EXIT_OK, EXIT_INPUT = 0, 2
 
 def build_parser() -> argparse.ArgumentParser:
     """Argument parser of the ``study`` sub-command."""
-    from thermo.study import DEFAULT_ENERGY_PRICE, DEFAULT_OPERATING_HOURS, MAX_STAGES, SITE_VARIABLES
+    from stagewright.core.study import DEFAULT_ENERGY_PRICE, DEFAULT_OPERATING_HOURS, MAX_STAGES, SITE_VARIABLES
 
     p = argparse.ArgumentParser(prog="stagewright study",
                                 description="Compare 1 … N stages, each at its least-power pressure split.")
@@ -37,7 +37,7 @@ def build_parser() -> argparse.ArgumentParser:
 
 
 def _parse_vary(text: str):
-    from thermo import InputError
+    from stagewright.core import InputError
 
     name, sep, values = text.partition("=")
     try:
@@ -61,10 +61,10 @@ def _infeasible_line(path, rows: list[dict]) -> str | None:
 
 def run(args) -> int:
     """Run the study sub-command; returns the exit status."""
-    from thermo import StagewrightError
-    from thermo.project import load
-    from thermo.study import compare_stagings, sensitivity
-    from app.cli.study_table import format_comparison, format_sensitivity
+    from stagewright.core import StagewrightError
+    from stagewright.core.project import load
+    from stagewright.core.study import compare_stagings, sensitivity
+    from stagewright.gui.cli.study_table import format_comparison, format_sensitivity
 
     try:
         doc = load(args.project)

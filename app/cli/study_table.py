@@ -1,17 +1,17 @@
-"""Plain-text table of a staging comparison for the command line (display units from app.presentation.units).
+"""Plain-text table of a staging comparison for the command line (display units from stagewright.gui.presentation.units).
 
-Its columns are those of :data:`app.presentation.staging_table.STAGING` that show in the ``"text"``
-output, each as wide as its text :class:`~app.presentation.figures.Look` says (else two characters
+Its columns are those of :data:`stagewright.gui.presentation.staging_table.STAGING` that show in the ``"text"``
+output, each as wide as its text :class:`~stagewright.gui.presentation.figures.Look` says (else two characters
 wider than its header); text and lists are left-aligned and cut to that width.
 """
 from __future__ import annotations
 
 __all__ = ["format_comparison", "format_sensitivity"]
 
-from app.presentation import staging_table
-from app.presentation.cautions import CAUTIONS
-from app.presentation.figures import Figure, shown
-from app.presentation.units import format_value, unit
+from stagewright.gui.presentation import staging_table
+from stagewright.gui.presentation.cautions import CAUTIONS
+from stagewright.gui.presentation.figures import Figure, shown
+from stagewright.gui.presentation.units import format_value, unit
 
 _OUT = "text"
 
@@ -41,7 +41,7 @@ def _stages(n: int) -> str:
 
 
 def format_comparison(title: str, rows: list[dict], system: str = "SI") -> str:
-    """Format the rows of a :class:`thermo.study.StagingComparison` as an aligned table."""
+    """Format the rows of a :class:`stagewright.core.study.StagingComparison` as an aligned table."""
     lines = [title or "(untitled project)",
              f"Staging study: 1 to {len(rows)} stages, each at its least-power pressure split", ""]
     note = rows[0]["note"] if rows else ""
@@ -93,7 +93,7 @@ def format_comparison(title: str, rows: list[dict], system: str = "SI") -> str:
 
 
 def format_sensitivity(title: str, points: list[dict], system: str = "SI") -> str:
-    """Format the rows of a :class:`thermo.study.SensitivityStudy`: one table per value."""
+    """Format the rows of a :class:`stagewright.core.study.SensitivityStudy`: one table per value."""
     blocks = []
     for p in points:
         head = f"{title or '(untitled project)'} — {p['variable']} = {p['value']:g}"

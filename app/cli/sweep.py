@@ -7,7 +7,7 @@ Each ``--axis`` names a field of the project file by its path (``site.ambient_te
 ``discharge_pressure_Pa`` or ``discharge_gauge_pressure_Pa`` — an axis on one of these replaces a
 project's statement in the other —, ``stages[0].efficiency.value`` …) and its values in SI units, as the
 project file carries them; the grid is the product of the axes, the last one fastest. One CSV row
-per grid point: the axis values, the totals of ``thermo.sweep.SWEEP_OUTPUTS`` (SI, the unit in
+per grid point: the axis values, the totals of ``stagewright.core.sweep.SWEEP_OUTPUTS`` (SI, the unit in
 each column name) and, for a point that cannot be solved, its message.
 
 Grid points are solved on the fast property path (agreement with a full solve better than 1e-4
@@ -55,7 +55,7 @@ def parse_axis(text: str) -> tuple[str, list[float]]:
     InputError
         Naming ``--axis``, the text given and the form expected.
     """
-    from thermo import InputError
+    from stagewright.core import InputError
 
     expected = (f"expected FIELD=START:STOP:N (N from 1 to {MAX_AXIS_VALUES}) or FIELD=V1,V2,… "
                 "with finite values in SI units")
@@ -80,8 +80,8 @@ def parse_axis(text: str) -> tuple[str, list[float]]:
 def _reject_dead_axes(doc: dict, axes: dict) -> None:
     """An axis none of whose values gives a valid project (a misspelt field, a range wholly
     outside the schema) rejects the sweep with the first value's own message."""
-    from thermo import StagewrightError
-    from thermo.sweep import axis_problems
+    from stagewright.core import StagewrightError
+    from stagewright.core.sweep import axis_problems
 
     bad = axis_problems(doc, axes)
     for field, values in axes.items():
@@ -91,14 +91,14 @@ def _reject_dead_axes(doc: dict, axes: dict) -> None:
 
 def run(args) -> int:
     """Run the sweep sub-command; returns the exit status."""
-    from thermo import StagewrightError
-    from thermo.project import load
-    from thermo.sweep import SWEEP_OUTPUTS, sweep
+    from stagewright.core import StagewrightError
+    from stagewright.core.project import load
+    from stagewright.core.sweep import SWEEP_OUTPUTS, sweep
 
-    from app.cli.progress import Progress
+    from stagewright.gui.cli.progress import Progress
 
     if args.output:
-        from app.cli.outputs import output_problems
+        from stagewright.gui.cli.outputs import output_problems
         refused = output_problems([Path(args.project)], [Path(args.output)], force=args.force)
         if refused:  # before the sweep: its work would be lost
             print(f"-o {refused[0]}", file=sys.stderr)
@@ -129,7 +129,7 @@ def run(args) -> int:
         values = ["" if result.values[k][i] is None else repr(result.values[k][i]) for k in SWEEP_OUTPUTS]
         w.writerow([repr(v) for v in point] + values + [result.errors.get(i, "")])
     if args.output:
-        from app.cli.outputs import write_text_atomically
+        from stagewright.gui.cli.outputs import write_text_atomically
         try:
             write_text_atomically(Path(args.output), out.getvalue())
         except OSError as exc:

@@ -6,7 +6,7 @@ bidirectional-override characters that reverse what follows, or an unpaired surr
 ``\\ud800`` escape) that cannot be encoded at all. While a sub-command runs, standard output and
 standard error are wrapped (:func:`escaped_output`) so that every such character is printed as
 a visible escape (``\\x1b``, ``\\r``, ``\\u202e``, ``\\ud800``); line feeds, tabs and the
-``\\r\\n`` of CSV rows pass unchanged. Only :class:`app.cli.progress.Progress` writes its own
+``\\r\\n`` of CSV rows pass unchanged. Only :class:`stagewright.gui.cli.progress.Progress` writes its own
 control sequence, to the unwrapped stream.
 """
 from __future__ import annotations

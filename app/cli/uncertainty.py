@@ -11,7 +11,7 @@ __all__ = ["add_arguments", "format_uncertainty", "run"]
 import json
 import sys
 
-from app.cli.paths import EXIT_INPUT, EXIT_OK, expand_paths
+from stagewright.gui.cli.paths import EXIT_INPUT, EXIT_OK, expand_paths
 
 
 def add_arguments(p) -> None:
@@ -35,7 +35,7 @@ def _table(header: tuple, rows: list[list[str]]) -> str:
 
 def format_uncertainty(title: str, d: dict, system: str = "SI") -> str:
     """Plain-text tables of a field check's uncertainty (``FieldCheckUncertainty.to_dict()``)."""
-    from app.presentation import uncertainty_table as ut
+    from stagewright.gui.presentation import uncertainty_table as ut
     parts = [f"Field check uncertainty — {title or 'untitled project'}", "",
              _table(ut.INPUT_COLUMNS, ut.input_rows(d, system)), "",
              _table(ut.FIGURE_COLUMNS, ut.figure_rows(d, system))]
@@ -59,10 +59,10 @@ def _ticker(bar, name: str):
 
 def run(args) -> int:
     """Report the field-check uncertainty of every project named."""
-    from app.cli.progress import Progress
-    from thermo import StagewrightError
-    from thermo.project import load
-    from thermo.uncertainty.field_check import field_check_uncertainty
+    from stagewright.gui.cli.progress import Progress
+    from stagewright.core import StagewrightError
+    from stagewright.core.project import load
+    from stagewright.core.uncertainty.field_check import field_check_uncertainty
 
     status, outputs = EXIT_OK, []
     for path in expand_paths(args.files):

@@ -1,9 +1,9 @@
 """``stagewright year PROJECT.json … [--json] [--profile HOURLY.csv [--bin [K]]] [--csv OUT.csv]``.
 
 A year at the site (energy, cost, condensate, coolers): the project's own ``year`` section, or a
-profile read from an hourly or logged CSV file (:mod:`app.document.year_csv`; units in its header
+profile read from an hourly or logged CSV file (:mod:`stagewright.gui.document.year_csv`; units in its header
 or chosen with ``--temperature-unit`` / ``--humidity-unit``), optionally binned by temperature and
-humidity (:func:`thermo.year_profile.bin_profile`). ``--coolers design_once`` sizes the coolers
+humidity (:func:`stagewright.core.year_profile.bin_profile`). ``--coolers design_once`` sizes the coolers
 once and rates every bin at that UA. ``--csv`` writes every bin as one CSV row (SI, unit in each
 column name). Progress on a terminal; Ctrl+C stops the run.
 """
@@ -16,7 +16,7 @@ import csv
 import json
 import sys
 
-from app.cli.paths import EXIT_INPUT, EXIT_OK, expand_paths
+from stagewright.gui.cli.paths import EXIT_INPUT, EXIT_OK, expand_paths
 
 _T_UNITS = {"C": "°C", "°C": "°C", "F": "°F", "°F": "°F", "K": "K"}
 _H_UNITS = {"%": "%", "percent": "%", "fraction": ""}
@@ -44,8 +44,8 @@ def _bin_label(b: dict) -> str:
 
 def _with_profile(doc: dict, args) -> dict:
     """The project with the CSV profile (and cooler mode) of the command line, if any."""
-    from app.document.year_csv import read_profile_csv
-    from thermo.year_profile import bin_profile
+    from stagewright.gui.document.year_csv import read_profile_csv
+    from stagewright.core.year_profile import bin_profile
     doc = dict(doc)
     year = dict(doc.get("year") or {})
     if args.profile:
@@ -83,11 +83,11 @@ def bins_csv_rows(year: dict) -> list[list]:
 def run(args) -> int:
     """Run the year of every project named; a project without a year section (and no
     ``--profile``) is rejected."""
-    from thermo import StagewrightError
-    from thermo.project import load
-    from thermo.year import run_year
-    from app.cli.progress import Progress
-    from app.cli.year_table import format_year
+    from stagewright.core import StagewrightError
+    from stagewright.core.project import load
+    from stagewright.core.year import run_year
+    from stagewright.gui.cli.progress import Progress
+    from stagewright.gui.cli.year_table import format_year
 
     status, outputs = EXIT_OK, []
     for path in expand_paths(args.files):

@@ -1,7 +1,7 @@
 """Plain-text table of a year at the site for ``stagewright year`` (SI units, °C for reading).
 
-Its columns and totals are the figures of :mod:`app.presentation.year_tables` that show in the
-``"text"`` output, each column as wide as its text :class:`~app.presentation.figures.Look` says
+Its columns and totals are the figures of :mod:`stagewright.gui.presentation.year_tables` that show in the
+``"text"`` output, each column as wide as its text :class:`~stagewright.gui.presentation.figures.Look` says
 (else two characters wider than its header); text is left-aligned, numbers right-aligned,
 without thousands grouping.
 """
@@ -9,8 +9,8 @@ from __future__ import annotations
 
 __all__ = ["format_year"]
 
-from app.presentation import year_tables
-from app.presentation.figures import Figure, read_path, shown
+from stagewright.gui.presentation import year_tables
+from stagewright.gui.presentation.figures import Figure, read_path, shown
 
 _OUT = "text"
 _TOTAL_NAME_WIDTH, _TOTAL_WIDTH = 25, 14

@@ -3,8 +3,8 @@ from __future__ import annotations
 
 __all__ = ["DisplayPrefs"]
 
-from app.presentation import units
-from app.document.model import Signal
+from stagewright.gui.presentation import units
+from stagewright.gui.document.model import Signal
 
 
 class DisplayPrefs:

@@ -1,7 +1,7 @@
 """What each document field is called, which display quantity it has, and its schema range.
 
 Entry fields, undo descriptions and the messages area all take their words from here,
-and every range comes from :mod:`thermo.project.schema` (the one schema), converted to the
+and every range comes from :mod:`stagewright.core.project.schema` (the one schema), converted to the
 display unit only when shown. Qt-free.
 """
 from __future__ import annotations
@@ -12,13 +12,13 @@ __all__ = ["FieldSpec", "spec_for", "quantity_for", "describe", "edit_text", "sc
 import re
 from dataclasses import dataclass
 
-from thermo.errors import InputError, Problem, shown_value
-from thermo.project.schema import PROJECT
-from thermo.project.schema_types import Items, Num, Obj, Variant
-from thermo.year_profile import MONTH_NAMES
+from stagewright.core.errors import InputError, Problem, shown_value
+from stagewright.core.project.schema import PROJECT
+from stagewright.core.project.schema_types import Items, Num, Obj, Variant
+from stagewright.core.year_profile import MONTH_NAMES
 
-from app.presentation import units
-from app.document.paths import format_path, get_in, parse_path
+from stagewright.gui.presentation import units
+from stagewright.gui.document.paths import format_path, get_in, parse_path
 
 
 @dataclass(frozen=True)
@@ -26,7 +26,7 @@ class FieldSpec:
     """Label (lower case, used inside sentences) and display quantity of a field."""
 
     label: str
-    quantity: str | None = None  #: key of :data:`app.presentation.units.QUANTITIES`; None for text/choices
+    quantity: str | None = None  #: key of :data:`stagewright.gui.presentation.units.QUANTITIES`; None for text/choices
     gauge_aware: bool = False  #: pressure shown gauge or absolute as the user prefers
 
 

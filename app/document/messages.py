@@ -2,8 +2,8 @@
 
 The calculation core gives every message in SI (for the command line and JSON) and, where it
 can, the same sentence as a template with named values, each SI and tagged with its quantity
-(:func:`thermo.errors.message_detail`). This module renders those in the display system
-chosen in the window or report, with the field names of :mod:`app.document.field_specs`;
+(:func:`stagewright.core.errors.message_detail`). This module renders those in the display system
+chosen in the window or report, with the field names of :mod:`stagewright.gui.document.field_specs`;
 the field path itself is kept only for jumping to the field. Qt-free: the Messages panel, the
 status line, the staging study and the reports all read it.
 """
@@ -16,8 +16,8 @@ import math
 import re
 import string
 
-from app.document.field_specs import describe, problem_message
-from app.presentation import units
+from stagewright.gui.document.field_specs import describe, problem_message
+from stagewright.gui.presentation import units
 
 _STAGE_PLACE = re.compile(r"^stages\[(\d+)\](?![.\[])\s*(.*)$")
 _FIELD_PREFIX = re.compile(r"^([a-z_]+(?:\[\d+\])?(?:\.[a-z_A-Z0-9]+(?:\[\d+\])?)*):\s+")
@@ -84,7 +84,7 @@ def place(where: str, doc: dict | None = None) -> str:
 
 def render(detail: dict, field: str = "", doc: dict | None = None, system: str = "SI", *,
            gauge: bool = False, barometric_Pa: float = 101_325.0) -> str:
-    """The sentence of a :func:`thermo.errors.message_detail` in display units.
+    """The sentence of a :func:`stagewright.core.errors.message_detail` in display units.
 
     ``{label}`` becomes the name of ``field``; a value named ``where`` is a place
     (:func:`place`); every other value is shown with :func:`format_quantity`. Values may be
@@ -113,9 +113,9 @@ class _Missing(dict):
 
 def problem_text(problem, doc: dict | None = None, system: str = "SI", *, gauge: bool = False,
                  barometric_Pa: float = 101_325.0) -> str:
-    """An input problem (:class:`thermo.errors.Problem`) for people: its template where it has
+    """An input problem (:class:`stagewright.core.errors.Problem`) for people: its template where it has
     one (a rule between fields), else the schema range in display units
-    (:func:`app.document.field_specs.problem_message`)."""
+    (:func:`stagewright.gui.document.field_specs.problem_message`)."""
     detail = getattr(problem, "detail", None)
     if detail:
         return render(detail, problem.field, doc, system, gauge=gauge, barometric_Pa=barometric_Pa)

@@ -3,7 +3,7 @@
 Views read the document through :class:`ProjectModel` and change it only through its
 methods (normally from undo commands), so every change is announced once with the path
 that changed. The document stays plain JSON data in SI units — exactly what
-:func:`thermo.project.save` writes and :func:`thermo.solve` reads.
+:func:`stagewright.core.project.save` writes and :func:`stagewright.core.solve` reads.
 """
 from __future__ import annotations
 
@@ -12,13 +12,13 @@ __all__ = ["Signal", "ProjectModel", "new_document"]
 import copy
 from typing import Any, Callable
 
-from thermo.project.case_changes import base_document, differences
-from thermo.project.cases import base_name, case_document, case_names
-from thermo.project.validation import problems as doc_problems
-from thermo.project.schema import FORMAT_NAME, FORMAT_VERSION, PROJECT
-from thermo.project.schema_types import check
+from stagewright.core.project.case_changes import base_document, differences
+from stagewright.core.project.cases import base_name, case_document, case_names
+from stagewright.core.project.validation import problems as doc_problems
+from stagewright.core.project.schema import FORMAT_NAME, FORMAT_VERSION, PROJECT
+from stagewright.core.project.schema_types import check
 
-from app.document.paths import ABSENT, format_path, get_in, parse_path, set_in
+from stagewright.gui.document.paths import ABSENT, format_path, get_in, parse_path, set_in
 
 
 class Signal:
@@ -84,10 +84,10 @@ class ProjectModel:
 
     Cases
     -----
-    A project may hold cases (:mod:`thermo.project.cases`). The model shows one at a time:
+    A project may hold cases (:mod:`stagewright.core.project.cases`). The model shows one at a time:
     :attr:`doc`, :meth:`get`, :meth:`snapshot` and the edits read and change the *active* case
     as a standalone document, and every edit is written back into the project — into the base's
-    own fields, or as the active case's changes (:func:`thermo.project.case_changes.differences`).
+    own fields, or as the active case's changes (:func:`stagewright.core.project.case_changes.differences`).
     :meth:`project_snapshot` is the whole project (base, cases, snapshot) to save.
     """
 
@@ -180,7 +180,7 @@ class ProjectModel:
         return check(PROJECT, self._doc, "", []) if isinstance(self._doc, dict) else {}
 
     def problems(self) -> list:
-        """Every :class:`thermo.errors.Problem` of the document (ranges come from the schema)."""
+        """Every :class:`stagewright.core.errors.Problem` of the document (ranges come from the schema)."""
         return doc_problems(self._doc)
 
     @property

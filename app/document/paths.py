@@ -1,6 +1,6 @@
 """Field paths for the window: reading, setting and removing values at a path.
 
-The spelling is :mod:`thermo.project.paths`'s (the same paths appear in problems, result
+The spelling is :mod:`stagewright.core.project.paths`'s (the same paths appear in problems, result
 warnings and sweeps); this module adds what an editor needs on top — ``ABSENT`` for "key
 not present", removal, and tests of which paths a change touches. Qt-free.
 """
@@ -11,7 +11,7 @@ __all__ = ["ABSENT", "parse_path", "format_path", "get_in", "set_in", "stage_ind
 
 from typing import Any
 
-from thermo.project.paths import parse_path as _parse_core
+from stagewright.core.project.paths import parse_path as _parse_core
 
 class _Absent:
     """Marker for "key not present" (different from a JSON ``null``); survives copying."""

@@ -43,14 +43,14 @@ import sys
 from dataclasses import dataclass, field
 from pathlib import Path
 
-from thermo.errors import InputError, ProjectFileError, SaveError
-from thermo.project.migrate import migrate
-from thermo.project.parse import MAX_FILE_BYTES, parse_bytes, read_limited
-from thermo.project.reading import recognise
-from thermo.project.schema import FORMAT_NAME
-from thermo.project.writing import atomic_write, dumps
+from stagewright.core.errors import InputError, ProjectFileError, SaveError
+from stagewright.core.project.migrate import migrate
+from stagewright.core.project.parse import MAX_FILE_BYTES, parse_bytes, read_limited
+from stagewright.core.project.reading import recognise
+from stagewright.core.project.schema import FORMAT_NAME
+from stagewright.core.project.writing import atomic_write, dumps
 
-from app.document.owner_lock import OwnerLock, owner_alive, process_identity
+from stagewright.gui.document.owner_lock import OwnerLock, owner_alive, process_identity
 
 ENV_VAR = "STAGEWRIGHT_DATA_DIR"
 RECOVERY_FORMAT = "stagewright-recovery"

@@ -21,12 +21,12 @@ hours (optional)       hours, duration, interval                            h
 Relative humidity is taken as meteorological data give it, relative to liquid water also below
 0 °C (WMO-No. 8); a dew point too (over supercooled water below 0 °C, as station data report
 it) and a frost point over ice; both are turned into relative humidity with the vapour
-pressures of :mod:`thermo.moist.saturation` (the enhancement factor cancels in the ratio to
+pressures of :mod:`stagewright.core.moist.saturation` (the enhancement factor cancels in the ratio to
 within about 1e-4). Each row runs for its ``hours``, else for the time to the next timestamp
 (the last row: the median step), else one hour.
 
 Nothing is imported half-way: every row is read first, and the first bad one raises an
-:class:`~thermo.errors.InputError` naming its line, its column and the valid range.
+:class:`~stagewright.core.errors.InputError` naming its line, its column and the valid range.
 """
 from __future__ import annotations
 
@@ -39,10 +39,10 @@ import statistics
 from dataclasses import dataclass, field
 from datetime import datetime
 
-from thermo.errors import InputError
-from thermo.moist.saturation import T_TRIPLE, liquid_vapour_pressure, sublimation_pressure
+from stagewright.core.errors import InputError
+from stagewright.core.moist.saturation import T_TRIPLE, liquid_vapour_pressure, sublimation_pressure
 
-from app.presentation.units import Unit, unit_named
+from stagewright.gui.presentation.units import Unit, unit_named
 
 #: column → the header names that mean it (lower case, without spaces, units or brackets)
 COLUMNS = {

@@ -12,9 +12,9 @@ __all__ = ["InputsEditor"]
 from PySide6.QtWidgets import (QComboBox, QHBoxLayout, QLabel, QLineEdit, QPushButton, QTableWidget, QVBoxLayout,
                                QWidget)
 
-from app.field_check.edits import KINDS, uncertainty_entry, with_uncertainty, without_uncertainty
-from app.presentation.uncertainty_table import difference_quantity
-from app.presentation.units import to_si, unit
+from stagewright.gui.field_check.edits import KINDS, uncertainty_entry, with_uncertainty, without_uncertainty
+from stagewright.gui.presentation.uncertainty_table import difference_quantity
+from stagewright.gui.presentation.units import to_si, unit
 
 
 class InputsEditor(QWidget):
@@ -57,7 +57,7 @@ class InputsEditor(QWidget):
 
     def refresh(self) -> None:
         """The measurable inputs of the project as it is now."""
-        from thermo.uncertainty.inputs import describe_input, measurable_paths
+        from stagewright.core.uncertainty.inputs import describe_input, measurable_paths
         norm = self._norm()
         current = self.input_box.currentData()
         self.paths = measurable_paths(norm)
@@ -72,7 +72,7 @@ class InputsEditor(QWidget):
         self._update_units()
 
     def _quantity(self) -> str | None:
-        from thermo.uncertainty.inputs import describe_input
+        from stagewright.core.uncertainty.inputs import describe_input
         path = self.input_box.currentData()
         found = describe_input(self.editor.model.snapshot(), path) if path else None
         return found[1] if found else None

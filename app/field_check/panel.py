@@ -3,7 +3,7 @@ guaranteed figure, and the measured inputs with theirs.
 
 It reads the project's ``field_check`` section (the uncertainty of each measured input and the
 guaranteed figures, see docs/project-format.md) and runs the first-order propagation and the
-Monte Carlo check off the GUI thread (:class:`~app.field_check.worker.FieldCheckRunner`), with
+Monte Carlo check off the GUI thread (:class:`~stagewright.gui.field_check.worker.FieldCheckRunner`), with
 progress and cancel. The verdicts come first, in a line above the tables, because they are the
 answer a facility engineer came for; the Results tab then gives every figure with its U.
 """
@@ -15,10 +15,10 @@ from PySide6.QtCore import Qt
 from PySide6.QtWidgets import (QAbstractItemView, QHBoxLayout, QLabel, QPlainTextEdit, QProgressBar, QPushButton,
                                QTableWidget, QTableWidgetItem, QTabWidget, QVBoxLayout, QWidget)
 
-from app.field_check.inputs_editor import InputsEditor
-from app.field_check.worker import FieldCheckRunner
-from app.presentation import uncertainty_table as ut
-from app.widgets.table_copy import attach_table_copy
+from stagewright.gui.field_check.inputs_editor import InputsEditor
+from stagewright.gui.field_check.worker import FieldCheckRunner
+from stagewright.gui.presentation import uncertainty_table as ut
+from stagewright.gui.widgets.table_copy import attach_table_copy
 
 RESULTS_TAB, GUARANTEES_TAB, INPUTS_TAB, NOTES_TAB = range(4)
 _COLOURS = {"within": "#1b7f3b", "outside": "#b3261e", "not decidable": "#8a5a00"}
@@ -105,7 +105,7 @@ class FieldCheckPanel(QWidget):
 
     # ---- running -------------------------------------------------------------------------
     def has_field_check(self) -> bool:
-        from thermo.uncertainty.field_check import has_field_check
+        from stagewright.core.uncertainty.field_check import has_field_check
         return has_field_check(self.editor.model.snapshot())
 
     def run(self, draws: int | None = None) -> None:

@@ -1,6 +1,6 @@
 """Run a field check's uncertainty off the GUI thread, with progress, cancel and stale answers dropped.
 
-A :class:`~app.jobs.job_runner.JobRunner`. The job propagates to first order (a few dozen solves)
+A :class:`~stagewright.gui.jobs.job_runner.JobRunner`. The job propagates to first order (a few dozen solves)
 and then draws the Monte Carlo check; cancel stops the draws at the next chunk and the job
 still *finishes*, with the first-order result and a note saying the Monte Carlo run was
 cancelled (cancelled before the first order is done, it answers ``cancelled``).
@@ -14,12 +14,12 @@ from typing import Callable
 
 from PySide6.QtCore import Signal
 
-from app.jobs.job_runner import JobCancelled, JobRunner
+from stagewright.gui.jobs.job_runner import JobCancelled, JobRunner
 
 
 def _field_check(payload: tuple, report: Callable[[float, str], None], cancel: threading.Event) -> dict:
-    from thermo.uncertainty.field_check import field_check_uncertainty
-    from thermo.uncertainty.monte_carlo import MonteCarloCancelled
+    from stagewright.core.uncertainty.field_check import field_check_uncertainty
+    from stagewright.core.uncertainty.monte_carlo import MonteCarloCancelled
     doc, draws = payload
     try:
         return field_check_uncertainty(doc, draws=draws, progress=report, cancel=cancel).to_dict()
@@ -28,7 +28,7 @@ def _field_check(payload: tuple, report: Callable[[float, str], None], cancel: t
 
 
 class FieldCheckRunner(JobRunner):
-    """Runs :func:`thermo.uncertainty.field_check.field_check_uncertainty` in its own thread.
+    """Runs :func:`stagewright.core.uncertainty.field_check.field_check_uncertainty` in its own thread.
 
     Signals
     -------

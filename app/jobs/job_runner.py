@@ -8,13 +8,13 @@ started yet, and whatever it still reports is dropped in the GUI thread, so only
 job's progress and answer are passed on. Nothing the work raises reaches Qt:
 
 - :class:`JobCancelled` becomes ``cancelled(job, partial answer, message)``;
-- a :class:`thermo.errors.StagewrightError` becomes ``failed(job, message, field path)``,
+- a :class:`stagewright.core.errors.StagewrightError` becomes ``failed(job, message, field path)``,
   its message naming the field, the value and the valid range;
 - anything else (a bug) becomes ``failed(job, "internal error in <what>: …", "")``, with
   the traceback on stderr for the developer, never in front of the user.
 
-The solve, staging-study and year runners of the window (:mod:`app.jobs.solve_worker`,
-:mod:`app.study.worker`, :mod:`app.year.worker`) are thin subclasses.
+The solve, staging-study and year runners of the window (:mod:`stagewright.gui.jobs.solve_worker`,
+:mod:`stagewright.gui.study.worker`, :mod:`stagewright.gui.year.worker`) are thin subclasses.
 """
 from __future__ import annotations
 
@@ -123,7 +123,7 @@ class _Worker(QObject):
             return  # superseded while queued (a cancelled newest job still runs, and answers)
         start = time.perf_counter()
         try:
-            from thermo import StagewrightError
+            from stagewright.core import StagewrightError
             try:
                 answer = self._work(payload, lambda *args: self.news.emit(job_id, "progress", args), cancel)
             except JobCancelled as exc:
@@ -152,7 +152,7 @@ class _WorkerThread(QThread):
         try:
             self.exec()
         finally:
-            from thermo.solve import release_thread_models
+            from stagewright.core.solve import release_thread_models
             release_thread_models()
 
 

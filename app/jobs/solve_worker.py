@@ -1,7 +1,7 @@
 """Solve the project off the GUI thread, debounced, dropping results that are out of date.
 
 Every request gets a job id one higher than the last, so an edit made during a solve always
-wins: the running solve's answer is dropped (:class:`~app.jobs.job_runner.JobRunner` does the
+wins: the running solve's answer is dropped (:class:`~stagewright.gui.jobs.job_runner.JobRunner` does the
 thread, the job ids and the error messages). Requests are debounced: a burst of edits makes
 one solve of the last document. Errors become a ``failed`` signal with the reason and the
 field path; nothing propagates into Qt.
@@ -14,11 +14,11 @@ import threading
 
 from PySide6.QtCore import QTimer
 
-from app.jobs.job_runner import JobRunner
+from stagewright.gui.jobs.job_runner import JobRunner
 
 
 def _solve(doc: dict, _report, _cancel: threading.Event) -> dict:
-    from thermo import solve  # looked up per job (tests replace it)
+    from stagewright.core import solve  # looked up per job (tests replace it)
     return solve(doc).to_dict()
 
 

@@ -19,12 +19,12 @@ import copy
 #: receiver volume per free air delivery offered for a new package: 4 L per (L/s), i.e. 4 s of full
 #: delivery at the receiver's volume (common practice, no source)
 RECEIVER_L_PER_L_S = 4.0
-#: control kind → words for the drop-down (thermo.part_load.controls.CONTROL_LABELS, capitalised)
+#: control kind → words for the drop-down (stagewright.core.part_load.controls.CONTROL_LABELS, capitalised)
 CONTROL_CHOICES = [("load_unload", "Load/unload"), ("modulation", "Inlet modulation"),
                    ("variable_speed", "Variable speed"), ("start_stop", "Start/stop"),
                    ("measured_curve", "Measured curve")]
 STORAGE_KEYS = ("receiver_volume_m3", "pressure_band_Pa", "unloaded_power_fraction", "blowdown_time_s")
-#: control kind → its parameter keys (thermo.project.schema.CONTROL), in the order the panel shows them
+#: control kind → its parameter keys (stagewright.core.project.schema.CONTROL), in the order the panel shows them
 CONTROL_KEYS = {
     "load_unload": STORAGE_KEYS,
     "modulation": ("zero_flow_power_fraction",),

@@ -1,8 +1,8 @@
 """The package panel's inputs: capacity control and its parameters, motor, auxiliaries and loads.
 
 Entry fields are bound to paths of the ``package`` section (labels and display quantities from
-:mod:`app.document.field_specs`); the control's drop-down replaces the whole ``control`` (what
-the kinds share is carried over, :func:`app.package.edits.control_for_kind`), so a change of
+:mod:`stagewright.gui.document.field_specs`); the control's drop-down replaces the whole ``control`` (what
+the kinds share is carried over, :func:`stagewright.gui.package.edits.control_for_kind`), so a change of
 control is one undo step. Only the parameters of the chosen kind are shown.
 """
 from __future__ import annotations
@@ -11,15 +11,15 @@ __all__ = ["PackageInputs", "PARAMETER_TIPS", "SHORT_LABELS"]
 
 from PySide6.QtWidgets import QCheckBox, QFormLayout, QLabel, QLineEdit, QPushButton, QVBoxLayout
 
-from app.document.field_specs import spec_for
-from app.document.paths import ABSENT
-from app.package.edits import (CONTROL_CHOICES, CONTROL_KEYS, RECEIVER_L_PER_L_S, control_for_kind, loads_text,
+from stagewright.gui.document.field_specs import spec_for
+from stagewright.gui.document.paths import ABSENT
+from stagewright.gui.package.edits import (CONTROL_CHOICES, CONTROL_KEYS, RECEIVER_L_PER_L_S, control_for_kind, loads_text,
                                parse_loads)
-from app.package.rows_editor import RowColumn, RowsEditor
-from app.panels.base import FieldPanel, section_title
-from app.widgets.choice_field import ChoiceField
-from app.widgets.plain_text import plain_label, plain_tip
-from app.widgets.quantity_field import QuantityField
+from stagewright.gui.package.rows_editor import RowColumn, RowsEditor
+from stagewright.gui.panels.base import FieldPanel, section_title
+from stagewright.gui.widgets.choice_field import ChoiceField
+from stagewright.gui.widgets.plain_text import plain_label, plain_tip
+from stagewright.gui.widgets.quantity_field import QuantityField
 
 _C = "package.control."
 #: parameter key → tooltip (defaults as the schema states them; sources as thermo/part_load names them)
@@ -174,7 +174,7 @@ class PackageInputs(FieldPanel):
     def _show_part_loads(self) -> None:
         loads = self.editor.model.get("package.part_loads")
         if loads is ABSENT or loads is None:
-            from app.document.paths import get_in
+            from stagewright.gui.document.paths import get_in
             loads = get_in(self.editor.model.normalised(), "package.part_loads", [])
         if not self.part_loads.hasFocus() or not self.part_loads.isModified():
             self.part_loads.setText(loads_text(loads) if isinstance(loads, list) else "")

@@ -2,10 +2,10 @@
 loads and load profile) and see the package figures, the data sheet and the part-load chart beside it.
 
 The package figures come with every solve (``result["package"]``); the data sheet needs two more
-solves, which :class:`~app.package.worker.DataSheetRunner` runs off the GUI thread after each
+solves, which :class:`~stagewright.gui.package.worker.DataSheetRunner` runs off the GUI thread after each
 solve while the panel is shown (a newer request drops an older answer). Without a package section
 the panel offers "Add capacity control…", which writes a load/unload control on a receiver sized
-from the free air delivery (:func:`app.package.edits.new_package`) as one undo step.
+from the free air delivery (:func:`stagewright.gui.package.edits.new_package`) as one undo step.
 """
 from __future__ import annotations
 
@@ -15,11 +15,11 @@ from PySide6.QtCore import Qt
 from PySide6.QtWidgets import (QFrame, QLabel, QPushButton, QScrollArea, QSplitter, QStackedWidget, QVBoxLayout,
                                QWidget)
 
-from app.package.edits import RECEIVER_L_PER_L_S, new_package
-from app.package.inputs import PackageInputs
-from app.package.results_view import PackageResults
-from app.package.worker import DataSheetRunner
-from app.widgets.plain_text import plain_label
+from stagewright.gui.package.edits import RECEIVER_L_PER_L_S, new_package
+from stagewright.gui.package.inputs import PackageInputs
+from stagewright.gui.package.results_view import PackageResults
+from stagewright.gui.package.worker import DataSheetRunner
+from stagewright.gui.widgets.plain_text import plain_label
 
 _EMPTY_TEXT = ("This project has no package section: the figures are the train's alone (driver input over "
                "the free air delivery, at full load). Add a capacity control to see the package's input power "

@@ -1,6 +1,6 @@
 """The package panel's results: the package figures, the data sheet and the part-load chart (tabs).
 
-Every number is a row of :mod:`app.presentation.package_table` for the ``"window"`` output (the
+Every number is a row of :mod:`stagewright.gui.presentation.package_table` for the ``"window"`` output (the
 text output, the report and the CSV read the same rows). The chart is drawn on a matplotlib
 canvas made on first use.
 """
@@ -12,10 +12,10 @@ from PySide6.QtCore import Qt
 from PySide6.QtWidgets import (QAbstractItemView, QFrame, QLabel, QScrollArea, QStackedWidget, QTableWidget,
                                QTableWidgetItem, QTabWidget, QVBoxLayout, QWidget)
 
-from app.presentation import package_table as pt
-from app.presentation.cautions import package_cautions
-from app.widgets.plain_text import plain_label, plain_tip
-from app.widgets.table_copy import attach_table_copy
+from stagewright.gui.presentation import package_table as pt
+from stagewright.gui.presentation.cautions import package_cautions
+from stagewright.gui.widgets.plain_text import plain_label, plain_tip
+from stagewright.gui.widgets.table_copy import attach_table_copy
 
 FIGURES_TAB, YEAR_TAB, SHEET_TAB, CHART_TAB = range(4)
 _OUT = "window"
@@ -129,7 +129,7 @@ class PackageResults(QTabWidget):
         self._draw(pkg, system)
 
     def _draw(self, pkg: dict, system: str) -> None:
-        from app.charts.part_load_chart import draw_part_load_chart
+        from stagewright.gui.charts.part_load_chart import draw_part_load_chart
         if self.canvas is None:
             from matplotlib.backends.backend_qtagg import FigureCanvasQTAgg
             from matplotlib.figure import Figure

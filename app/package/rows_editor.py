@@ -16,13 +16,13 @@ from PySide6.QtCore import Qt
 from PySide6.QtWidgets import (QAbstractItemView, QHBoxLayout, QLabel, QPushButton, QTableWidget, QTableWidgetItem,
                                QVBoxLayout, QWidget)
 
-from app.document.paths import ABSENT
-from app.package.edits import with_row, without_row
-from app.presentation import units
-from app.widgets.plain_text import plain_label, plain_tip
-from app.widgets.quantity_field import format_shown, parse_number
-from app.widgets.signals_blocked import signals_blocked
-from app.widgets.table_copy import attach_table_copy
+from stagewright.gui.document.paths import ABSENT
+from stagewright.gui.package.edits import with_row, without_row
+from stagewright.gui.presentation import units
+from stagewright.gui.widgets.plain_text import plain_label, plain_tip
+from stagewright.gui.widgets.quantity_field import format_shown, parse_number
+from stagewright.gui.widgets.signals_blocked import signals_blocked
+from stagewright.gui.widgets.table_copy import attach_table_copy
 
 
 @dataclass(frozen=True)
@@ -104,7 +104,7 @@ class RowsEditor(QWidget):
 
     def _problem(self, path: str) -> str | None:
         """The project's problem with the value at ``path``, in display units with the field's label."""
-        from app.document.messages import problem_text
+        from stagewright.gui.document.messages import problem_text
         found = next((p for p in self.editor.problems if p.field == path), None)
         if found is None:
             return None

@@ -14,12 +14,12 @@ from PySide6.QtGui import QBrush, QColor
 from PySide6.QtWidgets import (QAbstractItemView, QHeaderView, QLabel, QSplitter, QTableWidget,
                                QTableWidgetItem, QVBoxLayout, QWidget)
 
-from app.widgets.plain_text import plain_label
-from app.presentation import balance_tables as tables
-from app.presentation.figures import Figure, condition_holds, shown
-from app.presentation.result_notes import NEGATIVE_TIPS, TOTAL_TIPS
-from app.document.paths import stage_index
-from app.widgets.table_copy import attach_table_copy, table_rows
+from stagewright.gui.widgets.plain_text import plain_label
+from stagewright.gui.presentation import balance_tables as tables
+from stagewright.gui.presentation.figures import Figure, condition_holds, shown
+from stagewright.gui.presentation.result_notes import NEGATIVE_TIPS, TOTAL_TIPS
+from stagewright.gui.document.paths import stage_index
+from stagewright.gui.widgets.table_copy import attach_table_copy, table_rows
 
 WARNING_BG = "#fde7c4"  # a value a warning in Messages is about
 _OUT = "window"
@@ -68,7 +68,7 @@ def _table(columns: list[str]) -> QTableWidget:
 
 
 class BalancePanel(QWidget):
-    """Three tables: state points, components, totals (their figures: :mod:`app.presentation.balance_tables`)."""
+    """Three tables: state points, components, totals (their figures: :mod:`stagewright.gui.presentation.balance_tables`)."""
 
     title = "Balance sheet"
 

@@ -6,7 +6,7 @@ __all__ = ["FieldPanel", "section_title"]
 from PySide6.QtCore import QTimer
 from PySide6.QtWidgets import QFormLayout, QLabel, QWidget
 
-from app.document.paths import is_related
+from stagewright.gui.document.paths import is_related
 
 
 def section_title(text: str) -> QLabel:

@@ -6,10 +6,10 @@ from __future__ import annotations
 __all__ = ["CoolerForm", "OUTLET_CHOICES", "COOLANT_CHOICES", "default_cooler"]
 
 
-from app.document.paths import ABSENT, stage_path
-from app.widgets.choice_field import ChoiceField
-from app.widgets.quantity_field import QuantityField
-from app.panels.base import FieldPanel, section_title
+from stagewright.gui.document.paths import ABSENT, stage_path
+from stagewright.gui.widgets.choice_field import ChoiceField
+from stagewright.gui.widgets.quantity_field import QuantityField
+from stagewright.gui.panels.base import FieldPanel, section_title
 
 OUTLET_CHOICES = [("outlet", "Outlet temperature"), ("approach", "Approach to coolant"),
                   ("ua", "UA rating")]

@@ -5,13 +5,13 @@ __all__ = ["DutyPanel", "FLOW_CHOICES"]
 
 from PySide6.QtWidgets import QComboBox
 
-from app.widgets.choice_field import ChoiceField
-from app.widgets.delivery_pressure_field import DeliveryPressureField
-from app.widgets.quantity_field import QuantityField
-from app.widgets.signals_blocked import signals_blocked
-from app.panels.base import FieldPanel
-from app.presentation.result_notes import TOTAL_TIPS
-from thermo.project.delivery import DELIVERY_KEYS
+from stagewright.gui.widgets.choice_field import ChoiceField
+from stagewright.gui.widgets.delivery_pressure_field import DeliveryPressureField
+from stagewright.gui.widgets.quantity_field import QuantityField
+from stagewright.gui.widgets.signals_blocked import signals_blocked
+from stagewright.gui.panels.base import FieldPanel
+from stagewright.gui.presentation.result_notes import TOTAL_TIPS
+from stagewright.core.project.delivery import DELIVERY_KEYS
 
 FLOW_CHOICES = [
     ("free_air_delivery", "Free air delivery"),

@@ -1,6 +1,6 @@
 """Key figures: the answer first. A strip of tiles — powers, specific power, each cooler's duty,
 cooling water, condensate, pressure dew point and the count of warnings — read from
-:data:`app.presentation.balance_tables.KEY_FIGURES`. Clicking a tile asks for its detail (the
+:data:`stagewright.gui.presentation.balance_tables.KEY_FIGURES`. Clicking a tile asks for its detail (the
 window shows the balance-sheet row, or the messages)."""
 from __future__ import annotations
 
@@ -9,10 +9,10 @@ __all__ = ["KeyFiguresPanel", "FigureTile", "WARNINGS_KEY"]
 from PySide6.QtCore import QEvent, Qt, Signal
 from PySide6.QtWidgets import QFrame, QLabel, QSizePolicy, QVBoxLayout, QWidget
 
-from app.widgets.plain_text import plain_label, plain_tip
-from app.presentation import balance_tables as tables
-from app.presentation.figures import shown
-from app.widgets.tile_flow import TileFlowLayout
+from stagewright.gui.widgets.plain_text import plain_label, plain_tip
+from stagewright.gui.presentation import balance_tables as tables
+from stagewright.gui.presentation.figures import shown
+from stagewright.gui.widgets.tile_flow import TileFlowLayout
 
 WARNINGS_KEY = "warnings"  #: the tile that counts problems and warnings
 _MISSING = "—"
@@ -79,7 +79,7 @@ class FigureTile(QFrame):
 class KeyFiguresPanel(QWidget):
     """The strip of key figures; ``detail_requested(key)`` when a tile is clicked.
 
-    Keys are those of :func:`app.presentation.balance_tables.key_figures` and :data:`WARNINGS_KEY`.
+    Keys are those of :func:`stagewright.gui.presentation.balance_tables.key_figures` and :data:`WARNINGS_KEY`.
     """
 
     title = "Key figures"

@@ -10,10 +10,10 @@ from PySide6.QtCore import QSize, Qt, Signal
 from PySide6.QtGui import QColor, QIcon, QPainter, QPixmap
 from PySide6.QtWidgets import QLabel, QListWidget, QListWidgetItem, QVBoxLayout, QWidget
 
-from app.widgets.plain_text import plain_tip
-from app.presentation.cautions import CAUTIONS
-from app.document.messages import error_text, problem_text, warning_text
-from app.document.field_specs import describe
+from stagewright.gui.widgets.plain_text import plain_tip
+from stagewright.gui.presentation.cautions import CAUTIONS
+from stagewright.gui.document.messages import error_text, problem_text, warning_text
+from stagewright.gui.document.field_specs import describe
 
 _CAUTION = dict(CAUTIONS)
 _SEVERITY_COLOUR = {"problem": "#c0392b", "warning": "#d98e04", "caution": "#7b5ea7", "ok": "#2e8b57",
@@ -108,7 +108,7 @@ class MessagesPanel(QWidget):
         self.refresh()
 
     def _warning_text(self, w: dict) -> str:
-        """A result warning in display units, with the field's name (app.document.messages)."""
+        """A result warning in display units, with the field's name (stagewright.gui.document.messages)."""
         ed = self.editor
         return warning_text(w, ed.model.doc, ed.prefs.system, gauge=ed.prefs.gauge, barometric_Pa=ed.barometric_Pa())
 

@@ -5,14 +5,14 @@ __all__ = ["SitePanel", "elevation_for_pressure"]
 
 from PySide6.QtWidgets import QHBoxLayout, QWidget
 
-from thermo.atmosphere import standard_elevation, standard_pressure
-from thermo.project.schema import PROJECT
+from stagewright.core.atmosphere import standard_elevation, standard_pressure
+from stagewright.core.project.schema import PROJECT
 
-from app.document.paths import ABSENT
-from app.widgets.choice_field import ChoiceField
-from app.widgets.quantity_field import QuantityField
-from app.widgets.text_field import TextField
-from app.panels.base import FieldPanel, section_title
+from stagewright.gui.document.paths import ABSENT
+from stagewright.gui.widgets.choice_field import ChoiceField
+from stagewright.gui.widgets.quantity_field import QuantityField
+from stagewright.gui.widgets.text_field import TextField
+from stagewright.gui.panels.base import FieldPanel, section_title
 
 MODEL_CHOICES = [
     ("real_gas", "Real gas (Lemmon 2000)"),
@@ -24,7 +24,7 @@ PRESSURE_MODES = [("pressure", "Barometric pressure"), ("elevation", "Elevation"
 
 def elevation_for_pressure(p_Pa: float) -> float:
     """Elevation [m] whose ISO 2533 standard pressure is ``p_Pa``
-    (:func:`thermo.atmosphere.standard_elevation`), limited to the schema's elevation range
+    (:func:`stagewright.core.atmosphere.standard_elevation`), limited to the schema's elevation range
     and rounded to the millimetre.
 
     >>> round(elevation_for_pressure(standard_pressure(1234.0)), 3)

@@ -4,11 +4,11 @@ from __future__ import annotations
 __all__ = ["StageForm", "EFFICIENCY_CHOICES"]
 
 
-from app.document.paths import stage_path
-from app.widgets.choice_field import ChoiceField
-from app.widgets.quantity_field import QuantityField
-from app.widgets.text_field import TextField
-from app.panels.base import FieldPanel, section_title
+from stagewright.gui.document.paths import stage_path
+from stagewright.gui.widgets.choice_field import ChoiceField
+from stagewright.gui.widgets.quantity_field import QuantityField
+from stagewright.gui.widgets.text_field import TextField
+from stagewright.gui.panels.base import FieldPanel, section_title
 
 EFFICIENCY_CHOICES = [
     ("isentropic", "Isentropic"),

@@ -10,13 +10,13 @@ from PySide6.QtCore import QItemSelectionModel, QSize, Qt, Signal
 from PySide6.QtWidgets import (QFrame, QListWidget, QListWidgetItem, QScrollArea, QStackedWidget,
                                QToolButton, QHBoxLayout, QVBoxLayout, QWidget, QSizePolicy)
 
-from thermo.project.schema import PROJECT
+from stagewright.core.project.schema import PROJECT
 
-from app.presentation import units
-from app.document.paths import ABSENT, stage_index, stage_path
-from app.widgets.icons import icon
-from app.panels.cooler_form import CoolerForm, default_cooler
-from app.panels.stage_form import StageForm
+from stagewright.gui.presentation import units
+from stagewright.gui.document.paths import ABSENT, stage_index, stage_path
+from stagewright.gui.widgets.icons import icon
+from stagewright.gui.panels.cooler_form import CoolerForm, default_cooler
+from stagewright.gui.panels.stage_form import StageForm
 
 _STAGES = PROJECT.fields["stages"]  # min_length / max_length come from the schema
 ROLE = Qt.UserRole

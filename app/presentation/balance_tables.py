@@ -9,9 +9,9 @@
 * :data:`KEY_FIGURES` — the few figures an engineer looks for first (the window's key-figures
   strip); :func:`key_figures` lays them out for one result, a cooler figure once per cooler.
 
-The balance sheet in the window (:mod:`app.panels.balance_panel`), ``stagewright solve``'s text
-table (:mod:`app.cli.solve_table`), the PDF report (:mod:`app.report.sections`) and the CSV
-(:mod:`app.report.csv_export`) all read these tables: a row added here shows in each output
+The balance sheet in the window (:mod:`stagewright.gui.panels.balance_panel`), ``stagewright solve``'s text
+table (:mod:`stagewright.gui.cli.solve_table`), the PDF report (:mod:`stagewright.gui.report.sections`) and the CSV
+(:mod:`stagewright.gui.report.csv_export`) all read these tables: a row added here shows in each output
 its ``where`` names (every output by default). Rows placed twice are the same figure at the
 place one output lists it (each output keeps the order it has always had). No Qt.
 """
@@ -22,8 +22,8 @@ __all__ = ["POINTS", "COMPONENTS", "EXCHANGERS", "ZONES", "TOTALS", "KEY_FIGURES
 
 from dataclasses import dataclass
 
-from app.presentation.figures import Figure, Look, condition_holds, shown
-from app.presentation.result_notes import NEGATIVE_TIPS, TOTAL_TIPS
+from stagewright.gui.presentation.figures import Figure, Look, condition_holds, shown
+from stagewright.gui.presentation.result_notes import NEGATIVE_TIPS, TOTAL_TIPS
 
 _WINDOW, _PDF = {"window"}, {"pdf"}
 _WINDOW_PDF = {"window", "pdf"}

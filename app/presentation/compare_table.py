@@ -5,8 +5,8 @@
 * :func:`difference` / :func:`difference_text` — a case's figure against the reference case's, in
   display units (temperatures as differences, everything else also as a percentage).
 
-The window's comparison view (:mod:`app.compare`), ``stagewright compare``'s text, JSON and CSV
-(:mod:`app.cli.compare`) and the PDF report's comparison read them. No Qt.
+The window's comparison view (:mod:`stagewright.gui.compare`), ``stagewright compare``'s text, JSON and CSV
+(:mod:`stagewright.gui.cli.compare`) and the PDF report's comparison read them. No Qt.
 """
 from __future__ import annotations
 
@@ -14,7 +14,7 @@ __all__ = ["CASE_FIGURES", "case_row", "difference", "difference_text", "flags"]
 
 import math
 
-from app.presentation.figures import Figure, Look
+from stagewright.gui.presentation.figures import Figure, Look
 
 _KWH = 3.6e6  # J per kWh
 _MONEY = {out: Look(quantity="money", decimals=0, symbol="") for out in ("window", "pdf", "text")}

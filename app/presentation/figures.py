@@ -2,9 +2,9 @@
 
 A :class:`Figure` names where a value sits in the plain-data result (``TrainResult.to_dict()``,
 a staging-study row, a year dict), its label, its display quantity (a key of
-:data:`app.presentation.units.QUANTITIES`, so SI/US conversion and the unit symbol come from
-there) and its decimals. The tables of each result kind (:mod:`app.presentation.balance_tables`,
-:mod:`~app.presentation.staging_table`, :mod:`~app.presentation.year_tables`) are tuples of
+:data:`stagewright.gui.presentation.units.QUANTITIES`, so SI/US conversion and the unit symbol come from
+there) and its decimals. The tables of each result kind (:mod:`stagewright.gui.presentation.balance_tables`,
+:mod:`~stagewright.gui.presentation.staging_table`, :mod:`~stagewright.gui.presentation.year_tables`) are tuples of
 figures; the window, the command line's text tables, the PDF report and the CSV read them.
 
 The outputs are named by :data:`OUTPUTS`. A figure appears in the outputs of its ``where`` (all
@@ -20,7 +20,7 @@ from collections.abc import Iterable, Mapping
 from dataclasses import dataclass, field
 from types import MappingProxyType
 
-from app.presentation import units
+from stagewright.gui.presentation import units
 
 #: the outputs that read the tables: the window, the command line's plain-text tables,
 #: the PDF report and the CSV file
@@ -40,7 +40,7 @@ class Look:
     quantity : str, optional
         Another display quantity, e.g. ``"ratio"`` to print an efficiency as 0.8123 rather than in %.
     unit : str, optional
-        Symbol of another display unit of the quantity (:func:`app.presentation.units.unit_named`),
+        Symbol of another display unit of the quantity (:func:`stagewright.gui.presentation.units.unit_named`),
         e.g. ``"kPa"`` for a pressure in a table that always prints SI.
     symbol : str, optional
         Unit text printed instead of the unit's symbol (no other conversion).
@@ -82,7 +82,7 @@ class Figure:
     label : str
         Label in the window and the PDF (and, unless a :class:`Look` says otherwise, elsewhere).
     quantity : str, optional
-        Display quantity (a key of :data:`app.presentation.units.QUANTITIES`); None for a plain number.
+        Display quantity (a key of :data:`stagewright.gui.presentation.units.QUANTITIES`); None for a plain number.
     id : str
         Short name the window and its tests use for the column or row (default: ``key`` when it
         is a string, else the label in snake case).

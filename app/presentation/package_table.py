@@ -1,16 +1,16 @@
 """Presentation tables of the package (``TrainResult.to_dict()["package"]``) and its data sheet.
 
 * :data:`PACKAGE_POINT` — the figures of the package at one demand (paths into a point dict of
-  :class:`thermo.part_load.package.PackagePoint`): delivered air, driver input, the auxiliaries
+  :class:`stagewright.core.part_load.package.PackagePoint`): delivered air, driver input, the auxiliaries
   split, package input and specific power, loaded share, cycles and starts per hour.
 * :data:`PACKAGE_ANNUAL` — the load profile's year (paths into :func:`annual_view`).
 * :data:`SHEET_POINT` and :data:`SHEET_CONDITIONS` — the data sheet
-  (:func:`thermo.part_load.data_sheet.data_sheet`): per load, free air delivery, package input and
+  (:func:`stagewright.core.part_load.data_sheet.data_sheet`): per load, free air delivery, package input and
   package specific power at the ISO 1217 reference conditions and at the site.
 
-The window's package panel (:mod:`app.package.panel`), ``stagewright solve``'s text
-(:mod:`app.cli.solve_table`), the PDF report (:mod:`app.report.package_section`) and the CSV
-(:mod:`app.report.csv_export`) read these rows. The core keeps specific power in J/m³ (W per
+The window's package panel (:mod:`stagewright.gui.package.panel`), ``stagewright solve``'s text
+(:mod:`stagewright.gui.cli.solve_table`), the PDF report (:mod:`stagewright.gui.report.package_section`) and the CSV
+(:mod:`stagewright.gui.report.csv_export`) read these rows. The core keeps specific power in J/m³ (W per
 m³/s); those figures carry ``to_si`` into the display basis of ``specific_power``
 (kW/(m³/min): 1 kW/(m³/min) = 60 000 J/m³), and energies in kWh carry ``to_si=3.6e6``. A figure
 the project has nothing to show for (a drive loss without a variable-speed drive, a pump
@@ -22,7 +22,7 @@ __all__ = ["PACKAGE_POINT", "PACKAGE_ANNUAL", "SHEET_POINT", "SHEET_CONDITIONS",
            "point_columns", "point_rows", "annual_view", "annual_rows", "control_line", "sheet_headers",
            "sheet_rows", "sheet_condition_rows", "sheet_condition_lines", "load_name"]
 
-from app.presentation.figures import Figure, Look
+from stagewright.gui.presentation.figures import Figure, Look
 
 #: stored J/m³ → the display basis of ``specific_power`` [kW/(m³/min)]: 1 kW/(m³/min) = 1000 W / (1/60 m³/s)
 J_M3 = 1.0 / 60_000.0

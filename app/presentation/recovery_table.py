@@ -4,15 +4,15 @@
 * :data:`RECOVERY_BY_STAGE` — one row per stage: what its cooler and its casing can give
   (paths into the rows of :func:`recovery_rows`).
 
-The PDF report's heat-recovery section (:mod:`app.report.recovery_section`) reads them; the
-train's recoverable heat is also a total of :mod:`app.presentation.balance_tables`. Money is in
+The PDF report's heat-recovery section (:mod:`stagewright.gui.report.recovery_section`) reads them; the
+train's recoverable heat is also a total of :mod:`stagewright.gui.presentation.balance_tables`. Money is in
 the currency of the fuel price the user gave and is shown as a plain number. No Qt.
 """
 from __future__ import annotations
 
 __all__ = ["RECOVERY", "RECOVERY_BY_STAGE", "recovery_rows"]
 
-from app.presentation.figures import Figure
+from stagewright.gui.presentation.figures import Figure
 
 _KWH = 3.6e6  # J per kWh
 

@@ -6,7 +6,7 @@ from __future__ import annotations
 
 __all__ = ["TOTAL_TIPS", "NEGATIVE_TIPS", "negative_notes"]
 
-from app.presentation.units import NORMAL_VOLUME_NOTE
+from stagewright.gui.presentation.units import NORMAL_VOLUME_NOTE
 
 #: tooltips of the totals' labels: what the figure is
 TOTAL_TIPS = {

@@ -1,8 +1,8 @@
 """Presentation table of a staging comparison: the columns of its rows (one row per number of stages).
 
-Rows are those of :meth:`thermo.study.StagingComparison.rows` (SI floats, unit in each key).
-The study panel in the window (:mod:`app.study.display`), ``stagewright study``'s text table
-(:mod:`app.cli.study_table`) and the PDF report's staging comparison (:mod:`app.report.sections`)
+Rows are those of :meth:`stagewright.core.study.StagingComparison.rows` (SI floats, unit in each key).
+The study panel in the window (:mod:`stagewright.gui.study.display`), ``stagewright study``'s text table
+(:mod:`stagewright.gui.cli.study_table`) and the PDF report's staging comparison (:mod:`stagewright.gui.report.sections`)
 read :data:`STAGING`; each shows the columns its ``where`` names, in table order. A column placed
 twice is the same figure at the place one output lists it. The PDF leaves out a column no row
 has a value in. No Qt.
@@ -13,7 +13,7 @@ __all__ = ["STAGING"]
 
 from dataclasses import replace
 
-from app.presentation.figures import Figure, Look
+from stagewright.gui.presentation.figures import Figure, Look
 
 
 def _placed(figure: Figure, *outputs: str) -> Figure:

@@ -1,12 +1,12 @@
 """Presentation tables of a report's first page: the answer a client reads before anything else.
 
-* The train's key figures are :data:`app.presentation.balance_tables.KEY_FIGURES` (those shown in
+* The train's key figures are :data:`stagewright.gui.presentation.balance_tables.KEY_FIGURES` (those shown in
   ``"pdf"``), the same table as the window's key-figures strip.
 * :data:`SUMMARY_TRAIN` — one row per stage and per cooler (a path per row kind, ``"stage"`` or
   ``"cooler"``, into the stage or cooler dict).
 
-The PDF report's first page (:mod:`app.report.summary`) reads them; the full balance sheet
-follows on the next pages from :mod:`app.presentation.balance_tables`. A figure whose ``when``
+The PDF report's first page (:mod:`stagewright.gui.report.summary`) reads them; the full balance sheet
+follows on the next pages from :mod:`stagewright.gui.presentation.balance_tables`. A figure whose ``when``
 does not hold (a dry intake has no dew point; a project without a coolant side has no cooling
 water) is left out. No Qt.
 """
@@ -14,7 +14,7 @@ from __future__ import annotations
 
 __all__ = ["SUMMARY_TRAIN"]
 
-from app.presentation.figures import Figure
+from stagewright.gui.presentation.figures import Figure
 
 
 #: columns of the first page's stage and cooler table

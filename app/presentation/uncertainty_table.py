@@ -1,7 +1,7 @@
 """How a field check's uncertainty is shown everywhere: rows of display text, no Qt.
 
 The window's field-check panel, ``stagewright uncertainty`` and the report section all read
-these rows, built from ``FieldCheckUncertainty.to_dict()`` (:mod:`thermo.uncertainty.field_check`)
+these rows, built from ``FieldCheckUncertainty.to_dict()`` (:mod:`stagewright.core.uncertainty.field_check`)
 in a unit system. An uncertainty is a difference: a temperature's is shown in K (or °F), never
 with the Celsius offset.
 """
@@ -10,7 +10,7 @@ from __future__ import annotations
 __all__ = ["FIGURE_COLUMNS", "INPUT_COLUMNS", "VERDICT_COLUMNS", "VERDICT_WORDS", "difference_quantity",
            "figure_rows", "input_rows", "notes", "verdict_rows"]
 
-from app.presentation.units import format_value
+from stagewright.gui.presentation.units import format_value
 
 FIGURE_COLUMNS = ("Result", "Value", "U (k = 2)", "U relative", "Monte Carlo interval", "Largest contributor")
 INPUT_COLUMNS = ("Measured input", "Value", "u", "How u was found")

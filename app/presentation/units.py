@@ -17,7 +17,7 @@ __all__ = ["Unit", "SYSTEMS", "QUANTITIES", "OTHER_UNITS", "unit", "unit_named",
 
 from dataclasses import dataclass
 
-from thermo.flow import NORMAL_PRESSURE, NORMAL_TEMPERATURE
+from stagewright.core.flow import NORMAL_PRESSURE, NORMAL_TEMPERATURE
 
 _LB = 0.45359237
 _FT = 0.3048
@@ -103,7 +103,7 @@ OTHER_UNITS: dict[str, tuple[Unit, ...]] = {
 }
 
 
-#: the reference state of Nm³/min and scfm (thermo.flow: DIN 1343 normal state, dry air)
+#: the reference state of Nm³/min and scfm (stagewright.core.flow: DIN 1343 normal state, dry air)
 NORMAL_VOLUME_NOTE = (
     f"Normal volume: the volume of the dry air at the DIN 1343 normal state, "
     f"{NORMAL_TEMPERATURE - 273.15:g} °C and {NORMAL_PRESSURE / 1e5:g} bar(a) "

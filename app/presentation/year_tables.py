@@ -6,8 +6,8 @@
   cooling-water line for an air-cooled train, no recovered heat without heat recovery, no money
   without prices).
 
-The year panel in the window (:mod:`app.year.panel`) and ``stagewright year``'s text table
-(:mod:`app.cli.year_table`) read them; each shows the figures its ``where`` names, in table order
+The year panel in the window (:mod:`stagewright.gui.year.panel`) and ``stagewright year``'s text table
+(:mod:`stagewright.gui.cli.year_table`) read them; each shows the figures its ``where`` names, in table order
 (a figure placed twice is shown at the place one output lists it). A year keeps energies in kWh:
 those figures carry ``to_si=3.6e6``. Money is in the currency of the prices the user gave and is
 shown as a plain number (the window groups its thousands). No Qt.
@@ -20,7 +20,7 @@ from collections.abc import Mapping
 from dataclasses import replace
 from types import MappingProxyType
 
-from app.presentation.figures import Figure, Look, read_path, shown
+from stagewright.gui.presentation.figures import Figure, Look, read_path, shown
 
 _KWH = 3.6e6  # J per kWh
 _WINDOW, _TEXT, _WINDOW_TEXT = {"window"}, {"text"}, {"window", "text"}
@@ -137,7 +137,7 @@ def design_note(year: dict, system: str = "SI") -> str:
     ...              "coolers": [{"stage": 1, "rated_ua_W_K": 1500.0}, None]}})
     'Coolers designed once at the hottest bin (July), rated every bin with UA + 10 %: 1.500 kW/K (stage 1).'
     """
-    from app.presentation import units
+    from stagewright.gui.presentation import units
     design = year.get("cooler_design")
     if not design:
         return ""

@@ -13,12 +13,12 @@ __all__ = ["export_report", "write_csv", "write_pdf", "csv_rows", "program_versi
 import datetime as _dt
 import getpass
 
-from thermo.coolprop_adapter import coolprop_version
+from stagewright.core.coolprop_adapter import coolprop_version
 
-from app.presentation.printable import printable
-from app.report.csv_export import csv_rows, write_csv
-from app.report.pdf import program_version, write_pdf
-from app.report.sections import ReportInfo
+from stagewright.gui.presentation.printable import printable
+from stagewright.gui.report.csv_export import csv_rows, write_csv
+from stagewright.gui.report.pdf import program_version, write_pdf
+from stagewright.gui.report.sections import ReportInfo
 
 
 def export_report(doc: dict, result, pdf_path, csv_path=None, system: str = "SI", source_name: str = "",
@@ -52,11 +52,11 @@ def export_report(doc: dict, result, pdf_path, csv_path=None, system: str = "SI"
     project : dict, optional
         The whole project when ``doc`` is one of its cases (the window's shown case); by default
         ``doc`` itself. When it has cases besides its base, they are solved and compared in a
-        section of their own (:func:`thermo.cases.compare_cases`).
+        section of their own (:func:`stagewright.core.cases.compare_cases`).
     shown_case : str, optional
         Name of the case ``doc`` is (default: the project's base).
     year : dict or YearResult, optional
-        The project's year at the site; computed here (:func:`thermo.year.run_year`, about a
+        The project's year at the site; computed here (:func:`stagewright.core.year.run_year`, about a
         second) when the project has a ``year`` section and none is given.
 
     Returns
@@ -70,7 +70,7 @@ def export_report(doc: dict, result, pdf_path, csv_path=None, system: str = "SI"
     # is printed as U+FFFD (issue 22 item 10)
     doc, result, source_name = printable(doc), printable(result), printable(source_name)
     if system not in ("SI", "US"):
-        from thermo.errors import InputError
+        from stagewright.core.errors import InputError
         raise InputError("units", system, "SI or US")
     info = ReportInfo(source_name=source_name, date=date or _dt.date.today().isoformat(),
                       version=program_version(), system=system,
@@ -98,8 +98,8 @@ def _uncertainty_of(doc: dict) -> dict | None:
     """A field check's results with their first-order uncertainty and verdicts (None without a
     ``field_check`` section, or when it cannot be evaluated). The Monte Carlo check is left to
     ``stagewright uncertainty`` and the window: the report stays quick to write."""
-    from thermo import StagewrightError
-    from thermo.uncertainty.field_check import field_check_uncertainty, has_field_check
+    from stagewright.core import StagewrightError
+    from stagewright.core.uncertainty.field_check import field_check_uncertainty, has_field_check
     if not has_field_check(doc):
         return None
     try:
@@ -113,8 +113,8 @@ def _sheet_of(doc: dict, result: dict) -> dict:
     (nothing without a ``package`` section)."""
     if not result.get("package"):
         return {}
-    from thermo import StagewrightError
-    from thermo.part_load.data_sheet import data_sheet
+    from stagewright.core import StagewrightError
+    from stagewright.core.part_load.data_sheet import data_sheet
     try:
         return {"sheet": data_sheet(doc).to_dict()}
     except StagewrightError as exc:
@@ -125,16 +125,16 @@ def _cases_of(project: dict, shown_case: str) -> tuple[list | None, str]:
     """The project's cases solved side by side (None when it has no case besides its base)."""
     if not project.get("cases"):
         return None, shown_case
-    from thermo.cases import compare_cases
-    from thermo.project.cases import base_name
+    from stagewright.core.cases import compare_cases
+    from stagewright.core.project.cases import base_name
     return compare_cases(project), shown_case or base_name(project)
 
 
 def _year_of(doc: dict, year) -> tuple[dict | None, str]:
     """The year at the site to print (its dict), or why it could not be computed."""
     if year is None and doc.get("year"):
-        from thermo import StagewrightError
-        from thermo.year import run_year
+        from stagewright.core import StagewrightError
+        from stagewright.core.year import run_year
         try:
             year = run_year(doc)
         except StagewrightError as exc:

@@ -1,15 +1,15 @@
 """The report's comparison of cases: a table of the deciding figures, a column per case, each
 value with its difference from the reference case, and the bars side by side
-(:mod:`app.presentation.compare_table`, :mod:`app.charts.case_chart`). Nothing when the project
+(:mod:`stagewright.gui.presentation.compare_table`, :mod:`stagewright.gui.charts.case_chart`). Nothing when the project
 has no cases besides its base."""
 from __future__ import annotations
 
 __all__ = ["cases_section", "CASES_PER_TABLE"]
 
-from app.charts.case_chart import CHART_FIGURES, draw_case_comparison
-from app.presentation.compare_table import CASE_FIGURES, case_row, difference_text, flags
-from app.presentation.figures import condition_holds, shown
-from app.report.layout import Column, Pager, Table
+from stagewright.gui.charts.case_chart import CHART_FIGURES, draw_case_comparison
+from stagewright.gui.presentation.compare_table import CASE_FIGURES, case_row, difference_text, flags
+from stagewright.gui.presentation.figures import condition_holds, shown
+from stagewright.gui.report.layout import Column, Pager, Table
 
 _PDF = "pdf"
 #: cases side by side in one table on a page's width (more cases: further tables)
@@ -17,7 +17,7 @@ CASES_PER_TABLE = 4
 
 
 def cases_section(p: Pager, outcomes: list | None, reference: str, shown_case: str, system: str) -> None:
-    """Print the comparison of ``outcomes`` (:class:`thermo.cases.CaseOutcome`) against ``reference``."""
+    """Print the comparison of ``outcomes`` (:class:`stagewright.core.cases.CaseOutcome`) against ``reference``."""
     if not outcomes or len(outcomes) < 2:
         return
     ref = next((o for o in outcomes if o.name == reference), outcomes[0])

@@ -2,11 +2,11 @@
 
 Layout: a header row of column names, a units row, then data rows. The first column says
 what the row is (``state``, ``component`` or ``train``). The columns are the figures of
-:mod:`app.presentation.balance_tables` that show in the ``"csv"`` output: state-point figures,
+:mod:`stagewright.gui.presentation.balance_tables` that show in the ``"csv"`` output: state-point figures,
 then component figures, then any train totals (filled in the ``train`` row); a spreadsheet's
 columns stay put, so a column is there even when no row has a value. Numbers are written in the
 chosen display units to 12 significant digits, so converting back with
-:func:`app.presentation.units.to_si` returns the solver's SI values to 1e-12 relative; a missing
+:func:`stagewright.gui.presentation.units.to_si` returns the solver's SI values to 1e-12 relative; a missing
 value is an empty cell. A project with a ``package`` section gains the package's columns and
 rows (``package``: full load, stated load, each data-sheet load at the site; ``package_year``: the
 load profile). Written with the standard library's :mod:`csv` (RFC 4180 quoting, UTF-8).
@@ -18,18 +18,18 @@ __all__ = ["COLUMNS", "csv_columns", "csv_rows", "write_csv"]
 import csv
 import io
 
-from app.presentation import balance_tables as tables
-from app.presentation import package_table
-from app.presentation.figures import Figure, shown
-from app.report.atomic import atomic_path
-from app.report.sections import state_points
+from stagewright.gui.presentation import balance_tables as tables
+from stagewright.gui.presentation import package_table
+from stagewright.gui.presentation.figures import Figure, shown
+from stagewright.gui.report.atomic import atomic_path
+from stagewright.gui.report.sections import state_points
 
 _OUT = "csv"
 
 
 def _figures(package: bool = False) -> list[tuple[str, Figure]]:
     """(row part, figure) of every figure column: ``"point"``, ``"component"`` or ``"total"``, and
-    with ``package`` the package's (``"package"``, ``"package_year"``: :mod:`app.presentation.package_table`)."""
+    with ``package`` the package's (``"package"``, ``"package_year"``: :mod:`stagewright.gui.presentation.package_table`)."""
     return ([("point", f) for f in shown(tables.POINTS, _OUT)]
             + [("component", f) for f in shown(tables.COMPONENTS, _OUT)]
             + [("total", f) for f in shown(tables.TOTALS, _OUT)]
@@ -55,7 +55,7 @@ def csv_columns() -> list[tuple[str, str | None]]:
         for _, f in _figures()]
 
 
-#: (column name, quantity of app.presentation.units or None for text), as the tables stood at import
+#: (column name, quantity of stagewright.gui.presentation.units or None for text), as the tables stood at import
 COLUMNS = csv_columns()
 
 

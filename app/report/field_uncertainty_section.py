@@ -1,10 +1,10 @@
 """The report's field-check uncertainty section: results with U, verdicts, measured inputs.
 
 Self-contained: one function, :func:`field_uncertainty_section`, lays the section out on a
-:class:`~app.report.layout.Pager` from ``FieldCheckUncertainty.to_dict()``
-(:mod:`thermo.uncertainty.field_check`), reading the same rows as the window and the command
-line (:mod:`app.presentation.uncertainty_table`). To put it in the report, call it in
-``app.report.pdf.build_pages`` after the totals, with the uncertainty computed by the caller
+:class:`~stagewright.gui.report.layout.Pager` from ``FieldCheckUncertainty.to_dict()``
+(:mod:`stagewright.core.uncertainty.field_check`), reading the same rows as the window and the command
+line (:mod:`stagewright.gui.presentation.uncertainty_table`). To put it in the report, call it in
+``stagewright.gui.report.pdf.build_pages`` after the totals, with the uncertainty computed by the caller
 (it costs a few dozen solves to first order, and the Monte Carlo draws if wanted)::
 
     if uncertainty is not None:
@@ -14,8 +14,8 @@ from __future__ import annotations
 
 __all__ = ["field_uncertainty_section"]
 
-from app.presentation import uncertainty_table as ut
-from app.report.layout import Column, Pager, Table
+from stagewright.gui.presentation import uncertainty_table as ut
+from stagewright.gui.report.layout import Column, Pager, Table
 
 
 def _columns(headers: tuple, left: tuple, wrapped: tuple = ()) -> list[Column]:

@@ -18,7 +18,7 @@ from matplotlib.font_manager import FontProperties
 from matplotlib.lines import Line2D
 from matplotlib.patches import Rectangle
 
-from app.charts import style
+from stagewright.gui.charts import style
 
 #: paper name -> (width, height), [in]; ISO 216 A4 is 210 mm × 297 mm, US Letter 8.5 in × 11 in
 PAPER_SIZES = {"A4": (210.0 / 25.4, 297.0 / 25.4), "Letter": (8.5, 11.0)}
@@ -383,7 +383,7 @@ class Pager:
         """A heading and the given charts stacked under it, on this page when they fit.
 
         ``draws`` holds ``(draw_function, height_in)`` pairs; each function is called with a
-        sub-figure of the page (see :mod:`app.charts`) when the page is complete, so that one
+        sub-figure of the page (see :mod:`stagewright.gui.charts`) when the page is complete, so that one
         constrained layout, confined to the rectangle from the first chart's top to the last
         one's bottom, lays out every chart block of the page (the text between blocks keeps
         its place: the layout leaves those bands empty). Charts that fit the rest of the page

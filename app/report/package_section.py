@@ -2,10 +2,10 @@
 load profile's year, the part-load chart, and the data sheet on a page of its own.
 
 Printed when the project has a ``package`` section. The rows are those of
-:mod:`app.presentation.package_table` for the ``"pdf"`` output (the window and the command line
+:mod:`stagewright.gui.presentation.package_table` for the ``"pdf"`` output (the window and the command line
 read the same rows); the data sheet (``DataSheet.to_dict()`` of
-:func:`thermo.part_load.data_sheet.data_sheet`, two extra solves) is computed by
-:func:`app.report.export_report`, and a sheet that could not be computed is reported in words.
+:func:`stagewright.core.part_load.data_sheet.data_sheet`, two extra solves) is computed by
+:func:`stagewright.gui.report.export_report`, and a sheet that could not be computed is reported in words.
 The sheet's page is laid out to be held beside a supplier's sheet: conditions first, then two rows
 per load (the reference and the site), the part-load curve, what the package input includes and
 the cautions that matter for the control (the report's Cautions section, next, defers to local codes). The layout is Stagewright's own. No Qt.
@@ -14,10 +14,10 @@ from __future__ import annotations
 
 __all__ = ["package_section"]
 
-from app.charts.part_load_chart import draw_part_load_chart
-from app.presentation import package_table as pt
-from app.presentation.cautions import package_cautions
-from app.report.layout import Column, Pager, Table
+from stagewright.gui.charts.part_load_chart import draw_part_load_chart
+from stagewright.gui.presentation import package_table as pt
+from stagewright.gui.presentation.cautions import package_cautions
+from stagewright.gui.report.layout import Column, Pager, Table
 
 _PDF = "pdf"
 _CHART_MIN_IN, _CHART_MAX_IN = 1.8, 2.7  #: the data sheet's part-load curve, [in]

@@ -15,15 +15,15 @@ from importlib import metadata
 import matplotlib
 from matplotlib.backends.backend_pdf import PdfPages
 
-from app.report import sections
-from app.report.atomic import atomic_path
-from app.report.cases_section import cases_section
-from app.report.field_uncertainty_section import field_uncertainty_section
-from app.report.layout import Pager
-from app.report.package_section import package_section
-from app.report.recovery_section import heat_recovery
-from app.report.summary import summary_page
-from app.report.year_section import year_at_site
+from stagewright.gui.report import sections
+from stagewright.gui.report.atomic import atomic_path
+from stagewright.gui.report.cases_section import cases_section
+from stagewright.gui.report.field_uncertainty_section import field_uncertainty_section
+from stagewright.gui.report.layout import Pager
+from stagewright.gui.report.package_section import package_section
+from stagewright.gui.report.recovery_section import heat_recovery
+from stagewright.gui.report.summary import summary_page
+from stagewright.gui.report.year_section import year_at_site
 
 
 def program_version() -> str:
@@ -31,7 +31,7 @@ def program_version() -> str:
     try:
         return metadata.version("stagewright")
     except metadata.PackageNotFoundError:
-        from thermo import __version__
+        from stagewright.core import __version__
         return __version__
 
 
@@ -51,7 +51,7 @@ def lay_out(doc: dict, result: dict, info: sections.ReportInfo, study_rows=None,
 
     ``year`` is the project's year at the site (``YearResult.to_dict()``) when it has one, and
     ``year_problem`` why it could not be computed; ``study_rows`` a staging study's rows;
-    ``cases`` the project's cases compared (:class:`thermo.cases.CaseOutcome`, the first the
+    ``cases`` the project's cases compared (:class:`stagewright.core.cases.CaseOutcome`, the first the
     reference) and ``shown_case`` the case the rest of the report describes; ``uncertainty`` a
     field check's ``FieldCheckUncertainty.to_dict()``; ``sheet`` the package's data sheet
     (``DataSheet.to_dict()``) and ``sheet_problem`` why it could not be computed.

@@ -1,15 +1,15 @@
 """The report's heat-recovery section: what the coolers and casings can deliver, and its worth.
 
 Printed when the project has a ``heat_recovery`` section; its figures are those of
-:mod:`app.presentation.recovery_table` that show in the ``"pdf"`` output. No Qt.
+:mod:`stagewright.gui.presentation.recovery_table` that show in the ``"pdf"`` output. No Qt.
 """
 from __future__ import annotations
 
 __all__ = ["heat_recovery"]
 
-from app.presentation import recovery_table
-from app.presentation.figures import shown
-from app.report.layout import Column, Pager, Table
+from stagewright.gui.presentation import recovery_table
+from stagewright.gui.presentation.figures import shown
+from stagewright.gui.report.layout import Column, Pager, Table
 
 _PDF = "pdf"
 

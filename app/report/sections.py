@@ -1,10 +1,10 @@
 """What the printed report says: each section as tables and text, in display units.
 
-Every number goes through :mod:`app.presentation.units` (the one table of display units). The
+Every number goes through :mod:`stagewright.gui.presentation.units` (the one table of display units). The
 balance sheet, exchanger, totals and staging tables print the figures of
-:mod:`app.presentation.balance_tables` and :mod:`app.presentation.staging_table` that show in the
+:mod:`stagewright.gui.presentation.balance_tables` and :mod:`stagewright.gui.presentation.staging_table` that show in the
 ``"pdf"`` output, in their order. Section functions take the project document, its solved result
-(``TrainResult.to_dict()``) and a :class:`~app.report.layout.Pager`, and print themselves onto
+(``TrainResult.to_dict()``) and a :class:`~stagewright.gui.report.layout.Pager`, and print themselves onto
 the pager.
 """
 from __future__ import annotations
@@ -14,17 +14,17 @@ __all__ = ["ReportInfo", "inputs", "state_points_table", "components_table", "to
 
 from dataclasses import dataclass
 
-from thermo.project.delivery import GAUGE_KEY, delivery_pressure, stated_delivery
-from thermo.project.validation import normalise
+from stagewright.core.project.delivery import GAUGE_KEY, delivery_pressure, stated_delivery
+from stagewright.core.project.validation import normalise
 
-from app.presentation import balance_tables, staging_table, units
-from app.presentation.cautions import CAUTIONS, DEFERRAL
-from app.presentation.figures import Figure, condition_holds, shown
-from app.document.messages import limit_sentence, warning_text
-from app.document.field_specs import describe
-from app.presentation.result_notes import negative_notes
-from app.charts import draw_power_split, draw_staging_chart, draw_ts_chart
-from app.report.layout import Column, Pager, Table
+from stagewright.gui.presentation import balance_tables, staging_table, units
+from stagewright.gui.presentation.cautions import CAUTIONS, DEFERRAL
+from stagewright.gui.presentation.figures import Figure, condition_holds, shown
+from stagewright.gui.document.messages import limit_sentence, warning_text
+from stagewright.gui.document.field_specs import describe
+from stagewright.gui.presentation.result_notes import negative_notes
+from stagewright.gui.charts import draw_power_split, draw_staging_chart, draw_ts_chart
+from stagewright.gui.report.layout import Column, Pager, Table
 
 _DASH = "—"
 _PDF = "pdf"
@@ -311,7 +311,7 @@ def _remark(row: dict, system: str = "SI") -> str:
 
 
 def staging(p: Pager, study_rows: list[dict] | None, system: str, limit_K=None) -> None:
-    """The staging comparison (rows of ``thermo.study.compare_stagings(...).rows()``), if one was run."""
+    """The staging comparison (rows of ``stagewright.core.study.compare_stagings(...).rows()``), if one was run."""
     if not study_rows:
         return
     p.charts("Staging comparison", [(lambda f: draw_staging_chart(f, study_rows, system, limit_K=limit_K), 3.6)])

@@ -1,22 +1,22 @@
 """The report's first page: what a client reads first.
 
 The project and who prepared the report with which versions of Stagewright and CoolProp; the
-site and the duty in one line each; the answer (:data:`app.presentation.balance_tables.KEY_FIGURES` shown in the PDF:
+site and the duty in one line each; the answer (:data:`stagewright.gui.presentation.balance_tables.KEY_FIGURES` shown in the PDF:
 power, specific power, heat, cooling water, condensate, dew point); each stage and cooler in one
-row (:data:`~app.presentation.summary_table.SUMMARY_TRAIN`); and the warnings. The full inputs
+row (:data:`~stagewright.gui.presentation.summary_table.SUMMARY_TRAIN`); and the warnings. The full inputs
 and balance sheet start on the next page. No Qt.
 """
 from __future__ import annotations
 
 __all__ = ["summary_page", "site_text", "duty_text"]
 
-from thermo.project.delivery import delivery_pressure
-from thermo.project.validation import normalise
+from stagewright.core.project.delivery import delivery_pressure
+from stagewright.core.project.validation import normalise
 
-from app.presentation import balance_tables, summary_table, units
-from app.presentation.figures import condition_holds, shown
-from app.report.layout import Column, Pager, Table
-from app.report.sections import ReportInfo, warnings
+from stagewright.gui.presentation import balance_tables, summary_table, units
+from stagewright.gui.presentation.figures import condition_holds, shown
+from stagewright.gui.report.layout import Column, Pager, Table
+from stagewright.gui.report.sections import ReportInfo, warnings
 
 _PDF = "pdf"
 _DASH = "—"

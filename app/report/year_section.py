@@ -1,9 +1,9 @@
 """The report's section on a year at the site: the year chart, a row per month or bin, the totals.
 
 Printed when the project has a ``year`` section. The year (``YearResult.to_dict()`` of
-:func:`thermo.year.run_year`) is computed by :func:`app.report.export_report`; a year that
+:func:`stagewright.core.year.run_year`) is computed by :func:`stagewright.gui.report.export_report`; a year that
 could not be computed is reported in words. The columns and totals are the figures of
-:mod:`app.presentation.year_tables` that show in the ``"pdf"`` output; a column whose
+:mod:`stagewright.gui.presentation.year_tables` that show in the ``"pdf"`` output; a column whose
 condition is ``"any"`` is left out when every bin has zero or nothing there (no cooling water,
 no heat recovery). No Qt.
 """
@@ -11,10 +11,10 @@ from __future__ import annotations
 
 __all__ = ["year_at_site"]
 
-from app.charts.year_chart import draw_year_chart
-from app.presentation import year_tables
-from app.presentation.figures import Figure, read_path, shown
-from app.report.layout import Column, Pager, Table
+from stagewright.gui.charts.year_chart import draw_year_chart
+from stagewright.gui.presentation import year_tables
+from stagewright.gui.presentation.figures import Figure, read_path, shown
+from stagewright.gui.report.layout import Column, Pager, Table
 
 _PDF = "pdf"
 

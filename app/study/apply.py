@@ -1,8 +1,8 @@
 """A staging-study option back into the project, and whether a study still fits the project.
 
-Qt-free. An N-stage option of :func:`thermo.study.compare_stagings` repeats the project's
+Qt-free. An N-stage option of :func:`stagewright.core.study.compare_stagings` repeats the project's
 first stage N times and keeps its last stage's cooler as the aftercooler
-(:func:`thermo.study.options.staging_stages`); :func:`option_stages` builds the same stage
+(:func:`stagewright.core.study.options.staging_stages`); :func:`option_stages` builds the same stage
 list from the project's own entries (so the document keeps its own keys, not every default)
 with the option's pressure ratios.
 """

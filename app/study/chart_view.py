@@ -1,5 +1,5 @@
 """The staging chart on screen: driver power and discharge temperature against the number of
-stages, drawn by :func:`app.charts.draw_staging_chart` on a matplotlib canvas with its
+stages, drawn by :func:`stagewright.gui.charts.draw_staging_chart` on a matplotlib canvas with its
 navigation toolbar (never pyplot). The study panel shows it beside its table (or on a tab of its
 own when the panel is narrow), with a hint until a study has run; matplotlib is imported only
 when the first chart is drawn.
@@ -79,7 +79,7 @@ class StagingChartView(QStackedWidget):
         self.setCurrentWidget(self._chart)
 
     def _draw(self) -> None:
-        from app.charts import draw_staging_chart
+        from stagewright.gui.charts import draw_staging_chart
         rows, system, limit_K = self._shown
         draw_staging_chart(self.figure, rows, system, limit_K=limit_K, title=None)
         self.canvas.draw_idle()

@@ -2,7 +2,7 @@
 variable and its values), the Run and Cancel buttons, progress and status, and Apply.
 
 A narrow column that scrolls rather than cutting fields off. It reads the inputs as a
-:class:`~app.study.job.StudyRequest`; the panel (:mod:`app.study.panel`) runs it.
+:class:`~stagewright.gui.study.job.StudyRequest`; the panel (:mod:`stagewright.gui.study.panel`) runs it.
 """
 from __future__ import annotations
 
@@ -12,12 +12,12 @@ from PySide6.QtCore import QSize, Qt
 from PySide6.QtWidgets import (QComboBox, QDoubleSpinBox, QFormLayout, QFrame, QHBoxLayout, QLabel, QLineEdit,
                                QProgressBar, QScrollArea, QSizePolicy, QSpinBox, QToolButton, QVBoxLayout, QWidget)
 
-from thermo.study import DEFAULT_ENERGY_PRICE, DEFAULT_OPERATING_HOURS, MAX_STAGES
+from stagewright.core.study import DEFAULT_ENERGY_PRICE, DEFAULT_OPERATING_HOURS, MAX_STAGES
 
-from app.widgets.plain_text import plain_label
-from app.presentation import units
-from app.study.display import VARIABLES, format_values, parse_values
-from app.study.job import StudyRequest
+from stagewright.gui.widgets.plain_text import plain_label
+from stagewright.gui.presentation import units
+from stagewright.gui.study.display import VARIABLES, format_values, parse_values
+from stagewright.gui.study.job import StudyRequest
 
 
 #: the most a running study's bar shows: 100 % only once the answer is in

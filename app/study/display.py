@@ -1,8 +1,8 @@
 """What the staging-study panel shows: table columns and cells, limit messages, case names.
 
-Qt-free. Rows are those of :meth:`thermo.study.StagingComparison.rows` (SI floats, unit in
-each key); the columns are the figures of :data:`app.presentation.staging_table.STAGING` that
-show in the window, and every number is shown through :mod:`app.presentation.units`, so the
+Qt-free. Rows are those of :meth:`stagewright.core.study.StagingComparison.rows` (SI floats, unit in
+each key); the columns are the figures of :data:`stagewright.gui.presentation.staging_table.STAGING` that
+show in the window, and every number is shown through :mod:`stagewright.gui.presentation.units`, so the
 table follows the window's SI / US switch. Limit messages name the project's own field (every
 stage of an option is a copy of the project's first stage), so clicking one shows that field.
 """
@@ -14,11 +14,11 @@ __all__ = ["Column", "COLUMNS", "columns", "header", "cells", "tooltip", "limit_
 import re
 from dataclasses import dataclass
 
-from app.presentation import staging_table, units
-from app.presentation.cautions import CAUTIONS
-from app.presentation.figures import Figure, shown
-from app.document.messages import limit_sentence, limit_short
-from app.study.apply import project_field
+from stagewright.gui.presentation import staging_table, units
+from stagewright.gui.presentation.cautions import CAUTIONS
+from stagewright.gui.presentation.figures import Figure, shown
+from stagewright.gui.document.messages import limit_sentence, limit_short
+from stagewright.gui.study.apply import project_field
 
 _CAUTION = dict(CAUTIONS)
 _OUT = "window"

@@ -1,9 +1,9 @@
 """One staging-study job of the window: what to run, running it, and the plain-data answer.
 
-Qt-free, so the window's worker thread (:mod:`app.study.worker`) only moves these around.
+Qt-free, so the window's worker thread (:mod:`stagewright.gui.study.worker`) only moves these around.
 The answer is a list of *cases*: one for a plain comparison, one per value of the site
 variable for a sensitivity run. Each case carries the comparison rows of
-:meth:`thermo.study.StagingComparison.rows` (SI, unit in each key).
+:meth:`stagewright.core.study.StagingComparison.rows` (SI, unit in each key).
 
 :class:`TrialProgress` passes the study's progress on: the core reports the share of its options
 finished (before each option and once all are done); the optimiser's work within one option cannot
@@ -36,7 +36,7 @@ class StudyRequest:
     energy_price_per_kWh : float
         [currency/kWh]
     variable : str or None
-        A key of :data:`thermo.study.SITE_VARIABLES` for a sensitivity run.
+        A key of :data:`stagewright.core.study.SITE_VARIABLES` for a sensitivity run.
     values : tuple of float
         Values of ``variable`` in its SI unit.
     """
@@ -56,7 +56,7 @@ def _first_efficiency(doc: dict) -> dict | None:
     eff = stages[0].get("efficiency") if stages and isinstance(stages[0], dict) else None
     if not isinstance(eff, dict) or eff.get("kind") != "discharge_temperature":
         return None
-    from thermo.study.prepare import prepare
+    from stagewright.core.study.prepare import prepare
     return copy.deepcopy(prepare(doc).doc["stages"][0]["efficiency"])
 
 
@@ -85,10 +85,10 @@ def run_request(req: StudyRequest, progress: Callable[[float, str], Any] | None 
 
     Raises
     ------
-    thermo.errors.StagewrightError
-        Bad input (named field) or :class:`thermo.study.StudyCancelled`.
+    stagewright.core.errors.StagewrightError
+        Bad input (named field) or :class:`stagewright.core.study.StudyCancelled`.
     """
-    from thermo.study import compare_stagings, sensitivity
+    from stagewright.core.study import compare_stagings, sensitivity
 
     kw = dict(operating_hours_per_year=req.operating_hours_per_year,
               energy_price_per_kWh=req.energy_price_per_kWh, progress=progress, cancel=cancel)
@@ -104,9 +104,9 @@ def run_request(req: StudyRequest, progress: Callable[[float, str], Any] | None 
 
 def partial_answer(req: StudyRequest, partial: list, message: str) -> dict:
     """The answer made of what a cancelled study had finished (``StudyCancelled.partial``)."""
-    from thermo.project.validation import normalise
-    from thermo.study import StagingComparison
-    from thermo.study.options import staging_note
+    from stagewright.core.project.validation import normalise
+    from stagewright.core.study import StagingComparison
+    from stagewright.core.study.options import staging_note
 
     if req.variable:
         cases = [_case(p.value, p.comparison, error=p.error) for p in partial]
@@ -126,7 +126,7 @@ class TrialProgress:
 
     Hand :meth:`report` to the study as its ``progress`` and :attr:`cancel` as its ``cancel``: the
     study asks ``cancel.is_set()`` once as it starts an option (just after reporting it) and then
-    before every trial solve (:class:`thermo.study.trials.TrialSolver`); the asks after the first
+    before every trial solve (:class:`stagewright.core.study.trials.TrialSolver`); the asks after the first
     are counted. At most every ``interval`` seconds the last report is repeated, at the same
     fraction, with the count: ``optimising the 5-stage option (37 trial solves)``.
 

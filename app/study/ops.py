@@ -1,6 +1,6 @@
 """The staging study in the rest of the window: Train ▸ Run staging study is the study panel's own
-command (it raises the panel and runs :func:`thermo.study.compare_stagings` on its worker thread,
-:mod:`app.study.worker`: progress, cancel, stale answers dropped); :class:`StudyLink` announces a
+command (it raises the panel and runs :func:`stagewright.core.study.compare_stagings` on its worker thread,
+:mod:`stagewright.gui.study.worker`: progress, cancel, stale answers dropped); :class:`StudyLink` announces a
 study's start and outcome in the status bar. The window stays live; a new run or closing the
 window cancels a running study."""
 from __future__ import annotations

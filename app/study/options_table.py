@@ -4,7 +4,7 @@
 least-power option within the limits in bold, options that miss their limits greyed).
 :func:`apply_state` says whether the picked option can be applied, and why not;
 :func:`comparison_note` is the line above the panel's table. Cell texts, headers and tooltips come
-from :mod:`app.study.display`.
+from :mod:`stagewright.gui.study.display`.
 """
 from __future__ import annotations
 
@@ -14,10 +14,10 @@ from PySide6.QtCore import Qt
 from PySide6.QtGui import QColor
 from PySide6.QtWidgets import QAbstractItemView, QHeaderView, QTableWidget, QTableWidgetItem
 
-from app.widgets.plain_text import plain_tip
-from app.study.display import COLUMNS, cells as option_cells, header, tooltip
-from app.widgets.signals_blocked import signals_blocked
-from app.widgets.table_copy import attach_table_copy
+from stagewright.gui.widgets.plain_text import plain_tip
+from stagewright.gui.study.display import COLUMNS, cells as option_cells, header, tooltip
+from stagewright.gui.widgets.signals_blocked import signals_blocked
+from stagewright.gui.widgets.table_copy import attach_table_copy
 
 _INFEASIBLE = QColor("#8a96a3")
 _LEFT = frozenset({"ratios", "temperatures", "limits", "feasible"})  # words and lists; numbers right
@@ -61,8 +61,8 @@ def apply_state(row: dict | None, answer: dict | None, busy: bool, stale: bool) 
 
 
 class OptionsTable(QTableWidget):
-    """Study options, one row each (SI rows of :meth:`thermo.study.StagingComparison.rows`), in
-    the columns of :data:`app.study.display.COLUMNS` (headers name over unit).
+    """Study options, one row each (SI rows of :meth:`stagewright.core.study.StagingComparison.rows`), in
+    the columns of :data:`stagewright.gui.study.display.COLUMNS` (headers name over unit).
 
     Whole rows are picked, one at a time (the option to apply); the best option is in bold, options
     that miss their limits are greyed, rows alternate in colour.

@@ -2,10 +2,10 @@
 thread, with a chart of power and discharge temperature, and Apply to put an option into the
 project as one undo step.
 
-The panel composes its pieces: the controls on the left (:mod:`app.study.controls`: most stages,
+The panel composes its pieces: the controls on the left (:mod:`stagewright.gui.study.controls`: most stages,
 hours, price, an optional site variable, Run/Cancel, progress, Apply), the comparison table
-(:mod:`app.study.options_table`) and the staging chart (:mod:`app.study.chart_view`) on the right.
-It runs the study in :class:`app.study.worker.StudyController` and keeps its answer; limits that
+(:mod:`stagewright.gui.study.options_table`) and the staging chart (:mod:`stagewright.gui.study.chart_view`) on the right.
+It runs the study in :class:`stagewright.gui.study.worker.StudyController` and keeps its answer; limits that
 decide a split, and options that miss their limits, go to the messages area.
 """
 from __future__ import annotations
@@ -16,18 +16,18 @@ from PySide6.QtCore import Qt, Signal
 from PySide6.QtWidgets import (QComboBox, QDockWidget, QHBoxLayout, QLabel, QSizePolicy, QSplitter,
                                QStackedWidget, QTabWidget, QVBoxLayout, QWidget)
 
-from thermo.study.options import staging_note
+from stagewright.core.study.options import staging_note
 
-from app.widgets.plain_text import plain_label, plain_tip
-from app.presentation import units
-from app.study.apply import apply_text, option_stages, study_key
-from app.study.chart_view import StagingChartView
-from app.study.controls import StudyControls
-from app.study.display import VARIABLES, case_label, limit_messages
-from app.study.options_table import OptionsTable, apply_state, comparison_note
-from app.study.worker import StudyController
-from app.widgets.signals_blocked import signals_blocked
-from app.panels.messages_panel import Message
+from stagewright.gui.widgets.plain_text import plain_label, plain_tip
+from stagewright.gui.presentation import units
+from stagewright.gui.study.apply import apply_text, option_stages, study_key
+from stagewright.gui.study.chart_view import StagingChartView
+from stagewright.gui.study.controls import StudyControls
+from stagewright.gui.study.display import VARIABLES, case_label, limit_messages
+from stagewright.gui.study.options_table import OptionsTable, apply_state, comparison_note
+from stagewright.gui.study.worker import StudyController
+from stagewright.gui.widgets.signals_blocked import signals_blocked
+from stagewright.gui.panels.messages_panel import Message
 
 _SIDE_BY_SIDE_PX = 900  # table and chart side by side from this width, else on two tabs
 _STUDY_INPUTS = ("max_stages", "operating_hours_per_year", "energy_price_per_kWh", "variable", "values")
@@ -252,8 +252,8 @@ class StudyPanel(QWidget):
     def keep_selected_as_case(self) -> None:
         """Add the selected option as a new case of the project, one undo step
         ("train.study_keep_case"): the case shown with the option's stages."""
-        from thermo.project.case_changes import base_document, differences
-        from thermo.project.cases import add_case, case_document, unique_name
+        from stagewright.core.project.case_changes import base_document, differences
+        from stagewright.core.project.cases import add_case, case_document, unique_name
 
         row = self.table.selected_row()
         if not apply_state(row, self.answer, self.controller.busy, self.is_stale)[0]:

@@ -1,13 +1,13 @@
 """Run staging studies off the GUI thread, with progress, cancellation and stale answers dropped.
 
-A :class:`~app.jobs.job_runner.JobRunner`: every study gets a job id one higher than the last, and
+A :class:`~stagewright.gui.jobs.job_runner.JobRunner`: every study gets a job id one higher than the last, and
 only the newest job's progress and answer are passed on. Each job has its own
 ``threading.Event``: Cancel sets it and the study stops before its next trial solve
-(``thermo.study`` checks it), answering ``cancelled`` with what it had finished. Errors
+(``stagewright.core.study`` checks it), answering ``cancelled`` with what it had finished. Errors
 become a ``failed`` signal with the reason and the field path.
 
 Progress is the study's own (the share of its options finished), with the trial solves of the
-option being optimised counted in between (:class:`app.study.job.TrialProgress`). A fraction
+option being optimised counted in between (:class:`stagewright.gui.study.job.TrialProgress`). A fraction
 of 1 means every option is optimised, not that the answer is in: the answer is ``finished``.
 """
 from __future__ import annotations
@@ -19,12 +19,12 @@ from typing import Callable
 
 from PySide6.QtCore import Signal
 
-from app.jobs.job_runner import JobCancelled, JobRunner
-from app.study.job import StudyRequest, TrialProgress, partial_answer, run_request
+from stagewright.gui.jobs.job_runner import JobCancelled, JobRunner
+from stagewright.gui.study.job import StudyRequest, TrialProgress, partial_answer, run_request
 
 
 def _study(request: StudyRequest, report: Callable[[float, str], None], cancel: threading.Event) -> dict:
-    from thermo.study import StudyCancelled
+    from stagewright.core.study import StudyCancelled
     progress = TrialProgress(report, cancel)
     try:
         return run_request(request, progress.report, progress.cancel)
@@ -33,7 +33,7 @@ def _study(request: StudyRequest, report: Callable[[float, str], None], cancel: 
 
 
 class StudyController(JobRunner):
-    """Owns the study thread; the study panel calls :meth:`run` (a :class:`~app.study.job.StudyRequest`),
+    """Owns the study thread; the study panel calls :meth:`run` (a :class:`~stagewright.gui.study.job.StudyRequest`),
     :meth:`cancel` and :meth:`forget`.
 
     Signals

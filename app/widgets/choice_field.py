@@ -8,7 +8,7 @@ from typing import Callable
 
 from PySide6.QtWidgets import QComboBox
 
-from app.widgets.signals_blocked import signals_blocked
+from stagewright.gui.widgets.signals_blocked import signals_blocked
 
 
 class ChoiceField(QComboBox):
@@ -47,7 +47,7 @@ class ChoiceField(QComboBox):
         if value is None:
             value = self.editor.model.get(self.path)
             if value not in self._values:
-                from app.document.paths import get_in
+                from stagewright.gui.document.paths import get_in
                 value = get_in(self.editor.model.normalised(), self.path, None)
         with signals_blocked(self):
             self.setCurrentIndex(self._values.index(value) if value in self._values else -1)

@@ -2,7 +2,7 @@
 
 A project states its delivery pressure absolute (``discharge_pressure_Pa``) or gauge
 (``discharge_gauge_pressure_Pa``, above the site's barometric pressure;
-:mod:`thermo.project.delivery`). The field shows that statement in the basis of View ▸ gauge,
+:mod:`stagewright.core.project.delivery`). The field shows that statement in the basis of View ▸ gauge,
 converted with the site pressure when the two bases differ, and a typed value is stated in the
 basis shown — the other key removed, one undo step. Switching the display basis never touches
 the document, and a gauge statement is held when the site changes.
@@ -13,11 +13,11 @@ __all__ = ["DeliveryPressureField"]
 
 import dataclasses
 
-from thermo.project.delivery import ABSOLUTE_KEY, DELIVERY_KEYS, GAUGE_KEY, stated_delivery
+from stagewright.core.project.delivery import ABSOLUTE_KEY, DELIVERY_KEYS, GAUGE_KEY, stated_delivery
 
-from app.document.paths import ABSENT
-from app.presentation import units
-from app.widgets.quantity_field import QuantityField
+from stagewright.gui.document.paths import ABSENT
+from stagewright.gui.presentation import units
+from stagewright.gui.widgets.quantity_field import QuantityField
 
 
 class DeliveryPressureField(QuantityField):

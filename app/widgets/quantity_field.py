@@ -1,9 +1,9 @@
 """An entry field bound to one document path, typed in the display unit of its quantity.
 
-The field shows the SI value of the document converted with :mod:`app.presentation.units`, writes back
+The field shows the SI value of the document converted with :mod:`stagewright.gui.presentation.units`, writes back
 only when the user changed the text, and never clamps: text that is not a number is kept,
 marked and reported through :meth:`Editor.set_entry_error`; a number out of range goes into
-the document, where :func:`thermo.project.validation.problems` reports it with the schema's range.
+the document, where :func:`stagewright.core.project.validation.problems` reports it with the schema's range.
 """
 from __future__ import annotations
 
@@ -14,12 +14,12 @@ import math
 from PySide6.QtCore import QEvent, QLocale, Qt, Signal
 from PySide6.QtWidgets import QHBoxLayout, QLabel, QLineEdit, QWidget
 
-from app.widgets.plain_text import plain_tip
-from app.presentation import units
-from app.document.paths import ABSENT
-from app.document.field_specs import quantity_for, spec_for
-from app.widgets.signals_blocked import signals_blocked
-from app.widgets.undo_keys import route_undo_keys
+from stagewright.gui.widgets.plain_text import plain_tip
+from stagewright.gui.presentation import units
+from stagewright.gui.document.paths import ABSENT
+from stagewright.gui.document.field_specs import quantity_for, spec_for
+from stagewright.gui.widgets.signals_blocked import signals_blocked
+from stagewright.gui.widgets.undo_keys import route_undo_keys
 
 ENTRY_DIGITS = 12  # significant digits kept from what was typed (far beyond any entry)
 SHOWN_DIGITS = 4  # significant digits shown while a field is not being edited (common practice, no source)
@@ -236,5 +236,5 @@ class QuantityField(QWidget):
 
 def _normalised_default(editor, path: str):
     """Schema default for a key the document leaves out (shown, not written)."""
-    from app.document.paths import get_in
+    from stagewright.gui.document.paths import get_in
     return get_in(editor.model.normalised(), path, ABSENT)

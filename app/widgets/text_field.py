@@ -5,9 +5,9 @@ __all__ = ["TextField"]
 
 from PySide6.QtWidgets import QLineEdit
 
-from app.document.paths import ABSENT
-from app.widgets.signals_blocked import signals_blocked
-from app.widgets.undo_keys import route_undo_keys
+from stagewright.gui.document.paths import ABSENT
+from stagewright.gui.widgets.signals_blocked import signals_blocked
+from stagewright.gui.widgets.undo_keys import route_undo_keys
 
 
 class TextField(QLineEdit):

@@ -13,5 +13,5 @@
 ``help_dialogs``  the safety cautions dialog and the About text
 ``icons``, ``style``  the window's own icons; its look (Fusion, palette, style sheet)
 
-The staging study's link to the window (status bar) is :mod:`app.study.ops`.
+The staging study's link to the window (status bar) is :mod:`stagewright.gui.study.ops`.
 """

@@ -2,7 +2,7 @@
 
 The main window turns these into QActions and menus; panels reuse the same QActions on
 their own toolbars. ``handler`` is ``"target.method"``, where target is ``window``, one of the
-window's controllers (``files``: :mod:`app.window.file_ops`, ``exports``: :mod:`app.window.export_ops`)
+window's controllers (``files``: :mod:`stagewright.gui.window.file_ops`, ``exports``: :mod:`stagewright.gui.window.export_ops`)
 or a panel id (``train``, ``study`` …); it is resolved with ``getattr`` on objects the window owns
 (never ``eval``).
 """

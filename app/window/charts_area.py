@@ -1,5 +1,5 @@
 """Charts area: the T–s process path and the power split, each a matplotlib canvas with its
-navigation toolbar. The figures are drawn by the Qt-free functions in :mod:`app.charts`.
+navigation toolbar. The figures are drawn by the Qt-free functions in :mod:`stagewright.gui.charts`.
 
 matplotlib is imported only when the canvases are first needed (just after the window is
 shown), so the window appears without waiting for it.
@@ -11,7 +11,7 @@ __all__ = ["ChartsPanel", "ChartTab"]
 from PySide6.QtCore import Qt
 from PySide6.QtWidgets import QLabel, QTabWidget, QVBoxLayout, QWidget
 
-from app.document.paths import get_in
+from stagewright.gui.document.paths import get_in
 
 
 class ChartTab(QWidget):
@@ -69,7 +69,7 @@ class ChartsPanel(QWidget):
         """Create the chart tabs (imports matplotlib); True once they exist."""
         if self.ts is not None:
             return True
-        from app.charts import draw_power_split, draw_ts_chart  # here: matplotlib loads after first paint
+        from stagewright.gui.charts import draw_power_split, draw_ts_chart  # here: matplotlib loads after first paint
         self.tabs.blockSignals(True)
         self.tabs.clear()
         self.ts = ChartTab(draw_ts_chart)

@@ -14,7 +14,7 @@ from typing import Any
 
 from PySide6.QtGui import QUndoCommand
 
-from app.document.model import ProjectModel
+from stagewright.gui.document.model import ProjectModel
 
 
 class CaseCommand(QUndoCommand):

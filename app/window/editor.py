@@ -14,15 +14,15 @@ from typing import Any
 from PySide6.QtCore import QObject, Signal
 from PySide6.QtGui import QUndoStack
 
-from thermo.project.validation import barometric_pressure
-from thermo.errors import Problem
+from stagewright.core.project.validation import barometric_pressure
+from stagewright.core.errors import Problem
 
-from app.window.commands import InsertStage, MoveStage, RemoveStage, ReplaceProject, SetValues
-from app.document.display_prefs import DisplayPrefs
-from app.document.paths import ABSENT, is_related, stage_path
-from app.document.model import ProjectModel
-from app.document.field_specs import edit_text
-from app.jobs.solve_worker import SolveController
+from stagewright.gui.window.commands import InsertStage, MoveStage, RemoveStage, ReplaceProject, SetValues
+from stagewright.gui.document.display_prefs import DisplayPrefs
+from stagewright.gui.document.paths import ABSENT, is_related, stage_path
+from stagewright.gui.document.model import ProjectModel
+from stagewright.gui.document.field_specs import edit_text
+from stagewright.gui.jobs.solve_worker import SolveController
 
 
 class Editor(QObject):
@@ -39,7 +39,7 @@ class Editor(QObject):
         The messages area asks the panels to show the field at this path.
     snapshot_checked(str)
         The results kept with the file were shown at once and the project has been solved
-        again: a sentence on whether any figure moved (:func:`thermo.cases.snapshot.change_summary`).
+        again: a sentence on whether any figure moved (:func:`stagewright.core.cases.snapshot.change_summary`).
     """
 
     problems_changed = Signal()
@@ -59,7 +59,7 @@ class Editor(QObject):
         self.result: dict | None = None  # last good result (may be stale)
         self.stale = True
         self.failure: tuple[str, str] | None = None  # (message, field) of the last failed solve
-        self.failure_detail: dict | None = None  # its template and values (thermo.errors.message_detail)
+        self.failure_detail: dict | None = None  # its template and values (stagewright.core.errors.message_detail)
         self.solve_seconds: float | None = None
         self.solved_jobs = 0
         self.from_snapshot = False  # the result shown is the one kept with the file, not yet re-solved
@@ -72,14 +72,14 @@ class Editor(QObject):
     # ---- reading helpers for views -----------------------------------------------------
     def barometric_Pa(self) -> float:
         """Site barometric pressure [Pa] for gauge display: the core's resolution of the site
-        being edited (:func:`thermo.project.validation.barometric_pressure`: as given, else the
+        being edited (:func:`stagewright.core.project.validation.barometric_pressure`: as given, else the
         ISO 2533 standard atmosphere at the elevation, else sea level)."""
         return barometric_pressure(self.model.get("site", {}))
 
     def failure_text(self, message: str, field: str, detail: dict | None) -> str:
         """A worker's failure (its SI message, field and message detail) in the display units and
-        field labels of this window (:func:`app.document.messages.error_text`)."""
-        from app.document.messages import error_text
+        field labels of this window (:func:`stagewright.gui.document.messages.error_text`)."""
+        from stagewright.gui.document.messages import error_text
         p = self.prefs
         return error_text(message, field, detail, self.model.doc, p.system, gauge=p.gauge,
                           barometric_Pa=self.barometric_Pa())
@@ -190,7 +190,7 @@ class Editor(QObject):
             snapshot, case = self._snapshot_check
             self._snapshot_check = None
             if case == self.model.active_case:
-                from thermo.cases.snapshot import change_summary, compare_snapshot
+                from stagewright.core.cases.snapshot import change_summary, compare_snapshot
                 changes = compare_snapshot({"results": {case: snapshot["results"][case]}}, {case: result})
                 self.snapshot_checked.emit(change_summary(snapshot, changes))
 

@@ -1,6 +1,6 @@
 """File → Export report… in the window: the same PDF (and CSV) as ``stagewright report``.
 
-The report is written by :func:`app.report.export_report` on a worker thread from a
+The report is written by :func:`stagewright.gui.report.export_report` on a worker thread from a
 snapshot of the document and the current result, so the window never freezes; the
 outcome comes back as a Qt signal (queued to the GUI thread). Files are written
 atomically, so a failed export never leaves a half-written report behind.
@@ -17,8 +17,8 @@ from typing import Callable
 from PySide6.QtCore import QObject, Signal
 from PySide6.QtWidgets import QStatusBar
 
-from app.document.file_names import with_suffix_added
-from app.window.file_ops import PROJECT_FOLDER_KEY, remember_folder, start_folder
+from stagewright.gui.document.file_names import with_suffix_added
+from stagewright.gui.window.file_ops import PROJECT_FOLDER_KEY, remember_folder, start_folder
 
 PDF_AND_CSV = "PDF report and CSV balance sheet (*.pdf)"
 PDF_ONLY = "PDF report only (*.pdf)"
@@ -43,9 +43,9 @@ class ExportJob(QObject):
         self.thread.start()
 
     def _run(self) -> None:
-        from thermo import StagewrightError
+        from stagewright.core import StagewrightError
 
-        from app.report import export_report
+        from stagewright.gui.report import export_report
         doc, result, pdf, csv, system, source = self.args
         try:
             pages = export_report(doc, result, pdf, csv, system=system, source_name=source,

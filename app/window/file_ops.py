@@ -1,6 +1,6 @@
 """File menu of the window: new, open, recent, save, save as, revert, and the question asked
-before unsaved changes would be lost. Reading and writing is :func:`thermo.project.load` /
-:func:`thermo.project.save`."""
+before unsaved changes would be lost. Reading and writing is :func:`stagewright.core.project.load` /
+:func:`stagewright.core.project.save`."""
 from __future__ import annotations
 
 __all__ = ["FileController", "MAX_RECENT", "PROJECT_FOLDER_KEY", "start_folder", "remember_folder"]
@@ -10,12 +10,12 @@ from pathlib import Path
 from PySide6.QtCore import QObject, QStandardPaths, Signal
 from PySide6.QtWidgets import QMenu, QStatusBar
 
-from thermo import StagewrightError
-from thermo import project
+from stagewright.core import StagewrightError
+from stagewright.core import project
 
-from app.widgets.plain_text import plain_tip
-from app.document.file_names import file_stem_for, with_suffix_added
-from app.document.model import new_document
+from stagewright.gui.widgets.plain_text import plain_tip
+from stagewright.gui.document.file_names import file_stem_for, with_suffix_added
+from stagewright.gui.document.model import new_document
 
 MAX_RECENT = 8
 PROJECT_FOLDER_KEY = "files/last_folder"
@@ -220,7 +220,7 @@ class FileController(QObject):
         doc.pop("snapshot", None)
         ed = self.editor
         if self.keep_results and ed.result is not None and not ed.stale:
-            from thermo.cases import take_snapshot
+            from stagewright.core.cases import take_snapshot
             doc["snapshot"] = take_snapshot({ed.model.active_case: ed.result})
         return doc
 

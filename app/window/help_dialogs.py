@@ -7,7 +7,7 @@ import html
 
 from PySide6.QtWidgets import QDialog, QDialogButtonBox, QTextBrowser, QVBoxLayout
 
-from app.presentation.cautions import CAUTIONS, DEFERRAL
+from stagewright.gui.presentation.cautions import CAUTIONS, DEFERRAL
 
 
 def cautions_html() -> str:

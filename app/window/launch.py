@@ -190,13 +190,13 @@ def run_gui(project: str | None = None, screenshot: str | None = None, size: str
     from PySide6.QtCore import QSettings
     from PySide6.QtWidgets import QApplication
 
-    from thermo import StagewrightError
-    from thermo.project import load
+    from stagewright.core import StagewrightError
+    from stagewright.core.project import load
 
-    from app.widgets.icons import icon
-    from app.window.main_window import MainWindow
-    from app.window.recovery_ops import AUTOSAVE_MS
-    from app.window.style import apply_style
+    from stagewright.gui.widgets.icons import icon
+    from stagewright.gui.window.main_window import MainWindow
+    from stagewright.gui.window.recovery_ops import AUTOSAVE_MS
+    from stagewright.gui.window.style import apply_style
 
     app = QApplication.instance() or QApplication(sys.argv[:1])
     app.setOrganizationName("Stagewright")

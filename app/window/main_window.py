@@ -13,35 +13,35 @@ from PySide6.QtGui import QAction, QKeySequence
 from PySide6.QtWidgets import (QDockWidget, QFrame, QLabel, QMainWindow, QMessageBox, QScrollArea, QStyle,
                                QWidget)
 
-import thermo
-from thermo.coolprop_adapter import eos_reference
-from thermo.exchanger.coolant import warm_up as warm_up_coolants
+import stagewright.core
+from stagewright.core.coolprop_adapter import eos_reference
+from stagewright.core.exchanger.coolant import warm_up as warm_up_coolants
 
-from app.presentation import units
-from app.window.safe_settings import byte_array, open_safely, text_value
-from app.window.actions import ACTIONS, MENUS, TOOLBAR
-from app.document.display_prefs import DisplayPrefs
-from app.document.model import ProjectModel
-from app.window.editor import Editor
-from app.window.export_ops import ExportController
-from app.window.file_ops import FileController
-from app.window.prompts import Prompts
-from app.window.recovery_ops import AUTOSAVE_MS, RecoveryController
-from app.cases.panel import CasesPanel
-from app.study.ops import StudyLink
-from app.window.help_dialogs import CautionsDialog, about_text
-from app.widgets.icons import icon
-from app.panels.balance_panel import BalancePanel
-from app.window.charts_area import ChartsPanel
-from app.panels.duty_panel import DutyPanel
-from app.panels.key_figures_panel import WARNINGS_KEY, KeyFiguresPanel
-from app.panels.messages_panel import MessagesPanel
-from app.panels.site_panel import SitePanel
-from app.study.panel import StudyPanel
-from app.year.panel import YearPanel
-from app.field_check.panel import FieldCheckPanel
-from app.package.panel import PackagePanel
-from app.panels.train_panel import TrainPanel
+from stagewright.gui.presentation import units
+from stagewright.gui.window.safe_settings import byte_array, open_safely, text_value
+from stagewright.gui.window.actions import ACTIONS, MENUS, TOOLBAR
+from stagewright.gui.document.display_prefs import DisplayPrefs
+from stagewright.gui.document.model import ProjectModel
+from stagewright.gui.window.editor import Editor
+from stagewright.gui.window.export_ops import ExportController
+from stagewright.gui.window.file_ops import FileController
+from stagewright.gui.window.prompts import Prompts
+from stagewright.gui.window.recovery_ops import AUTOSAVE_MS, RecoveryController
+from stagewright.gui.cases.panel import CasesPanel
+from stagewright.gui.study.ops import StudyLink
+from stagewright.gui.window.help_dialogs import CautionsDialog, about_text
+from stagewright.gui.widgets.icons import icon
+from stagewright.gui.panels.balance_panel import BalancePanel
+from stagewright.gui.window.charts_area import ChartsPanel
+from stagewright.gui.panels.duty_panel import DutyPanel
+from stagewright.gui.panels.key_figures_panel import WARNINGS_KEY, KeyFiguresPanel
+from stagewright.gui.panels.messages_panel import MessagesPanel
+from stagewright.gui.panels.site_panel import SitePanel
+from stagewright.gui.study.panel import StudyPanel
+from stagewright.gui.year.panel import YearPanel
+from stagewright.gui.field_check.panel import FieldCheckPanel
+from stagewright.gui.package.panel import PackagePanel
+from stagewright.gui.panels.train_panel import TrainPanel
 
 STATE_VERSION = 4  #: bump when panels are added or renamed, so old saved layouts are ignored
 
@@ -50,11 +50,11 @@ class MainWindow(QMainWindow):
     """One project per window.
 
     The window lays out the panels, menus and status bar; what the commands do lives in the
-    objects it owns: :attr:`files` (:class:`~app.window.file_ops.FileController`), :attr:`exports`
-    (:class:`~app.window.export_ops.ExportController`), :attr:`recovery`
-    (:class:`~app.window.recovery_ops.RecoveryController`) and :attr:`study`
-    (:class:`~app.study.ops.StudyLink`), each given what it needs; every modal question goes
-    through :attr:`prompts` (:class:`~app.window.prompts.Prompts`, which tests replace).
+    objects it owns: :attr:`files` (:class:`~stagewright.gui.window.file_ops.FileController`), :attr:`exports`
+    (:class:`~stagewright.gui.window.export_ops.ExportController`), :attr:`recovery`
+    (:class:`~stagewright.gui.window.recovery_ops.RecoveryController`) and :attr:`study`
+    (:class:`~stagewright.gui.study.ops.StudyLink`), each given what it needs; every modal question goes
+    through :attr:`prompts` (:class:`~stagewright.gui.window.prompts.Prompts`, which tests replace).
 
     Parameters
     ----------
@@ -437,7 +437,7 @@ class MainWindow(QMainWindow):
         CautionsDialog(self).exec()
 
     def show_about(self) -> None:
-        QMessageBox.about(self, "About Stagewright", about_text(thermo.__version__, eos_reference("real_gas")))
+        QMessageBox.about(self, "About Stagewright", about_text(stagewright.core.__version__, eos_reference("real_gas")))
 
     # ---- closing -------------------------------------------------------------------------
     def closeEvent(self, event) -> None:

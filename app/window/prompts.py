@@ -1,10 +1,10 @@
 """Every question and message box the window puts in front of the user, in one place.
 
-Every box shows its text as plain text (:func:`app.widgets.plain_text.plain_label`): names and
+Every box shows its text as plain text (:func:`stagewright.gui.widgets.plain_text.plain_label`): names and
 messages from a project file are never rendered as markup.
 
-The window's controllers (:mod:`app.window.file_ops`, :mod:`app.window.export_ops`,
-:mod:`app.window.recovery_ops`) ask through the window's one :class:`Prompts`; tests replace its
+The window's controllers (:mod:`stagewright.gui.window.file_ops`, :mod:`stagewright.gui.window.export_ops`,
+:mod:`stagewright.gui.window.recovery_ops`) ask through the window's one :class:`Prompts`; tests replace its
 methods, so no modal dialog ever opens in a test.
 """
 from __future__ import annotations
@@ -13,8 +13,8 @@ __all__ = ["Prompts", "PROJECT_FILTER"]
 
 from PySide6.QtWidgets import QFileDialog, QMessageBox, QWidget
 
-from app.widgets.plain_text import plain_label
-from app.window.export_ops import PDF_AND_CSV, PDF_ONLY
+from stagewright.gui.widgets.plain_text import plain_label
+from stagewright.gui.window.export_ops import PDF_AND_CSV, PDF_ONLY
 
 PROJECT_FILTER = "Stagewright projects (*.json);;All files (*)"
 

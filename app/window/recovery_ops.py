@@ -1,4 +1,4 @@
-"""Autosave and recovery in the window, on top of the Qt-free :mod:`app.document.recovery_file`.
+"""Autosave and recovery in the window, on top of the Qt-free :mod:`stagewright.gui.document.recovery_file`.
 
 Autosave: the first change after the project was last clean (or last autosaved) starts a
 single-shot timer of :data:`AUTOSAVE_MS`; further changes do not restart it, so the unsaved work
@@ -7,7 +7,7 @@ often the user types (a maximum delay, not a debounce). A save, an explicit "don
 back to the saved state and a clean exit remove the file.
 
 Recovery: each window's file names the project it belongs to and is owned by the window's
-process while it runs (:mod:`app.document.owner_lock`), so only work of sessions that have ended
+process while it runs (:mod:`stagewright.gui.document.owner_lock`), so only work of sessions that have ended
 is ever offered, each to the project it came from:
 
 * at start-up without a project file — work on new (never saved) projects, and work whose file
@@ -28,7 +28,7 @@ from pathlib import Path
 from PySide6.QtCore import QObject, QTimer
 from PySide6.QtWidgets import QStatusBar
 
-from app.document import recovery_file as rec
+from stagewright.gui.document import recovery_file as rec
 
 AUTOSAVE_MS = 3000
 

@@ -1,4 +1,4 @@
-"""The year panel's Chart tab: :func:`app.charts.year_chart.draw_year_chart` on a matplotlib canvas.
+"""The year panel's Chart tab: :func:`stagewright.gui.charts.year_chart.draw_year_chart` on a matplotlib canvas.
 
 The canvas is made on the first year to draw (matplotlib loads late). The chart takes the whole
 tab: docked under the window's charts it is wide and short, and shows its three panels side by
@@ -52,14 +52,14 @@ class YearChartView(QStackedWidget):
         self._draw()
 
     def _draw(self) -> None:
-        from app.charts.year_chart import draw_year_chart, side_by_side_for
+        from stagewright.gui.charts.year_chart import draw_year_chart, side_by_side_for
         year, system = self._shown
         self.side_by_side = side_by_side_for(*self.figure.get_size_inches())
         draw_year_chart(self.figure, year, system, side_by_side=self.side_by_side, dryer=True)
         self.canvas.draw_idle()
 
     def _on_resized(self) -> None:
-        from app.charts.year_chart import side_by_side_for
+        from stagewright.gui.charts.year_chart import side_by_side_for
         if self._shown[0] is not None and side_by_side_for(*self.figure.get_size_inches()) != self.side_by_side:
             self._draw()
 

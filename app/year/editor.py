@@ -1,7 +1,7 @@
 """The year profile editor: months or bins in a unit-aware table, hours, load and prices.
 
-Every change is one undo step through :meth:`app.window.editor.Editor.set_values`; an edit that
-would make the year invalid is refused (see :func:`app.year.edits.refusal`) and the
+Every change is one undo step through :meth:`stagewright.gui.window.editor.Editor.set_values`; an edit that
+would make the year invalid is refused (see :func:`stagewright.gui.year.edits.refusal`) and the
 document stays as it was, with the reason shown under the table.
 """
 from __future__ import annotations
@@ -13,14 +13,14 @@ from PySide6.QtGui import QColor, QFont
 from PySide6.QtWidgets import (QComboBox, QFormLayout, QHBoxLayout, QLabel, QLineEdit, QPushButton,
                                QScrollArea, QStackedWidget, QTableWidget, QTableWidgetItem, QVBoxLayout, QWidget)
 
-from thermo.year_profile import MONTH_NAMES
+from stagewright.core.year_profile import MONTH_NAMES
 
-from app.widgets.plain_text import plain_label
-from app.presentation import units
-from app.document.paths import ABSENT, get_in, is_related
-from app.widgets.quantity_field import format_entry, parse_number
-from app.widgets.signals_blocked import signals_blocked
-from app.year.edits import (ENTRY_COLUMNS, cell_pairs, entries_key, entries_path, month_hours, profile_as, refusal,
+from stagewright.gui.widgets.plain_text import plain_label
+from stagewright.gui.presentation import units
+from stagewright.gui.document.paths import ABSENT, get_in, is_related
+from stagewright.gui.widgets.quantity_field import format_entry, parse_number
+from stagewright.gui.widgets.signals_blocked import signals_blocked
+from stagewright.gui.year.edits import (ENTRY_COLUMNS, cell_pairs, entries_key, entries_path, month_hours, profile_as, refusal,
                           start_from_site, undo_text, with_entry_added, with_entry_removed)
 
 #: (path, label, quantity, unit text when the quantity has none, tooltip)
@@ -152,7 +152,7 @@ class YearEditor(QWidget):
             form.addRow(lab, cell)
             edit.editingFinished.connect(lambda p=path: self._commit_field(p))
             self.fields[path] = (edit, unit, quantity)
-        from thermo.year_design import DEFAULT_UA_MARGIN
+        from stagewright.core.year_design import DEFAULT_UA_MARGIN
         self.fields["year.coolers.ua_margin"][0].setPlaceholderText(f"{100 * DEFAULT_UA_MARGIN:g}")  # the default
         self.choices: dict[str, tuple[QComboBox, list]] = {}
         for path, label, options, tip in CHOICE_FIELDS:
@@ -221,16 +221,16 @@ class YearEditor(QWidget):
         Parameters
         ----------
         path : str or Path
-            The CSV file (:mod:`app.document.year_csv`).
+            The CSV file (:mod:`stagewright.gui.document.year_csv`).
         units_chosen : dict, optional
             Units of columns whose header names none, e.g. ``{"temperature": "°F", "fraction": "%"}``.
         bin_steps : tuple, optional
-            ``(kelvin, humidity fraction)``: bin the rows (:func:`thermo.year_profile.bin_profile`).
+            ``(kelvin, humidity fraction)``: bin the rows (:func:`stagewright.core.year_profile.bin_profile`).
         """
         from pathlib import Path
-        from thermo.errors import InputError
-        from thermo.year_profile import bin_profile
-        from app.document.year_csv import read_profile_csv
+        from stagewright.core.errors import InputError
+        from stagewright.core.year_profile import bin_profile
+        from stagewright.gui.document.year_csv import read_profile_csv
         try:
             read = read_profile_csv(path, units_chosen)
         except (InputError, OSError) as exc:
@@ -251,7 +251,7 @@ class YearEditor(QWidget):
         return done
 
     def _ask_import(self) -> None:  # pragma: no cover - dialogs; tests call import_csv
-        from app.year.import_dialog import ask_import
+        from stagewright.gui.year.import_dialog import ask_import
         answer = ask_import(self)
         if answer is not None:
             self.import_csv(*answer)

@@ -1,10 +1,10 @@
 """Edits of a project's year at the site, checked before they are made. Qt-free.
 
 The year editor turns each user action into a list of ``(path, value)`` pairs for
-:meth:`app.window.editor.Editor.set_values` (one undo step). :func:`refusal` applies the pairs
-to a copy of the document and runs :func:`thermo.project.validation.problems` on it: an edit that
+:meth:`stagewright.gui.window.editor.Editor.set_values` (one undo step). :func:`refusal` applies the pairs
+to a copy of the document and runs :func:`stagewright.core.project.validation.problems` on it: an edit that
 would add a problem is refused with the field path, the value and the schema's range
-(:meth:`thermo.project.schema_types.Num.describe`), so the year section always stays valid.
+(:meth:`stagewright.core.project.schema_types.Num.describe`), so the year section always stays valid.
 """
 from __future__ import annotations
 
@@ -16,12 +16,12 @@ import copy
 from dataclasses import dataclass
 from typing import Any
 
-from thermo.project.validation import normalise, problems
-from thermo.year_profile import DAYS_IN_MONTH, MONTH_NAMES, operating_bins
+from stagewright.core.project.validation import normalise, problems
+from stagewright.core.year_profile import DAYS_IN_MONTH, MONTH_NAMES, operating_bins
 
-from app.presentation import units
-from app.document.paths import ABSENT, get_in, set_in
-from app.document.field_specs import describe, range_text
+from stagewright.gui.presentation import units
+from stagewright.gui.document.paths import ABSENT, get_in, set_in
+from stagewright.gui.document.field_specs import describe, range_text
 
 
 @dataclass(frozen=True)
@@ -174,7 +174,7 @@ def refusal(doc: dict, pairs: list[tuple[str, Any]], system: str = "SI") -> str 
     rng = range_text(p.field, cand, system)
     value = p.value
     if isinstance(value, (int, float)) and not isinstance(value, bool) and rng:
-        from app.document.field_specs import quantity_for
+        from stagewright.gui.document.field_specs import quantity_for
         q = quantity_for(p.field, cand) or "ratio"
         shown = units.format_value(float(value), q, system, with_unit=True)
         return (f"Not changed: {name} {shown} is out of range (allowed: {rng}). "

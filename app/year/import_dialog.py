@@ -1,7 +1,7 @@
 """The questions of a CSV profile import: which file, the units of unlabelled columns, binning.
 
-Modal dialogs, asked only by the Import button (:meth:`app.year.editor.YearEditor._ask_import`);
-tests call :meth:`~app.year.editor.YearEditor.import_csv` with the answers instead.
+Modal dialogs, asked only by the Import button (:meth:`stagewright.gui.year.editor.YearEditor._ask_import`);
+tests call :meth:`~stagewright.gui.year.editor.YearEditor.import_csv` with the answers instead.
 """
 from __future__ import annotations
 
@@ -10,9 +10,9 @@ __all__ = ["ask_import", "BINNING_NOTE"]
 from PySide6.QtWidgets import (QCheckBox, QComboBox, QDialog, QDialogButtonBox, QDoubleSpinBox, QFileDialog,
                                QFormLayout, QLabel, QVBoxLayout)
 
-from thermo.year_profile import BIN_RH_STEP, BIN_T_STEP_K
+from stagewright.core.year_profile import BIN_RH_STEP, BIN_T_STEP_K
 
-#: what binning changes (thermo.year_profile.bin_profile), shown beside the choice
+#: what binning changes (stagewright.core.year_profile.bin_profile), shown beside the choice
 BINNING_NOTE = ("Binning groups rows of similar temperature and humidity and solves each group once at its "
                 "hours-weighted mean: total hours are kept and energy and cooling water barely move, but "
                 "condensate can shift a little and the hottest hour is smoothed into its bin's mean. "

@@ -1,8 +1,8 @@
 """The year-at-site panel: edit the project's year profile, and run it month by month (or bin
 by bin) off the GUI thread.
 
-Three tabs: Profile (:mod:`app.year.editor`), Results (:mod:`app.year.results_view`: the year's
-totals beside the bin-by-bin table; shown after a run) and Chart (:mod:`app.year.chart_view`:
+Three tabs: Profile (:mod:`stagewright.gui.year.editor`), Results (:mod:`stagewright.gui.year.results_view`: the year's
+totals beside the bin-by-bin table; shown after a run) and Chart (:mod:`stagewright.gui.year.chart_view`:
 the chart gets the whole tab, rather than a corner of a panel that is short at the window's
 default size)."""
 from __future__ import annotations
@@ -11,15 +11,15 @@ __all__ = ["YearPanel", "YEAR_COLUMNS"]
 
 from PySide6.QtWidgets import QHBoxLayout, QLabel, QProgressBar, QPushButton, QTabWidget, QVBoxLayout, QWidget
 
-from app.widgets.plain_text import plain_label
-from app.presentation import year_tables
-from app.presentation.figures import shown
-from app.year.chart_view import YearChartView
-from app.year.editor import YearEditor
-from app.year.results_view import YearResultsView
-from app.year.worker import YearRunner
+from stagewright.gui.widgets.plain_text import plain_label
+from stagewright.gui.presentation import year_tables
+from stagewright.gui.presentation.figures import shown
+from stagewright.gui.year.chart_view import YearChartView
+from stagewright.gui.year.editor import YearEditor
+from stagewright.gui.year.results_view import YearResultsView
+from stagewright.gui.year.worker import YearRunner
 
-#: the year table's columns: the figures of app.presentation.year_tables.YEAR_BINS the window shows
+#: the year table's columns: the figures of stagewright.gui.presentation.year_tables.YEAR_BINS the window shows
 #: (as the table stood at import; the panel reads it afresh when built)
 YEAR_COLUMNS = tuple(shown(year_tables.YEAR_BINS, "window"))
 PROFILE_TAB, RESULTS_TAB, CHART_TAB = range(3)
@@ -27,7 +27,7 @@ _STALE = "Out of date — the project changed since this year was run: run it ag
 
 
 class YearPanel(QWidget):
-    """Edits the project's ``year`` (Profile tab), runs :func:`thermo.year.run_year` on it and
+    """Edits the project's ``year`` (Profile tab), runs :func:`stagewright.core.year.run_year` on it and
     shows its totals and bins (Results tab) and its chart (Chart tab)."""
 
     title = "Year at site"

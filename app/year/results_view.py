@@ -2,10 +2,10 @@
 
 The totals come first, on the left, because they are what a facility engineer takes away from a
 year (energy, its cost, cooling water, condensate, recoverable heat, the worst month); the bins
-follow on the right. Both read :mod:`app.presentation.year_tables`: the totals are the figures
-:func:`~app.presentation.year_tables.totals_for` keeps for the year (no cooling-water line for an
+follow on the right. Both read :mod:`stagewright.gui.presentation.year_tables`: the totals are the figures
+:func:`~stagewright.gui.presentation.year_tables.totals_for` keeps for the year (no cooling-water line for an
 air-cooled train, no recovered heat without heat recovery, no money without prices), the columns
-are :data:`~app.presentation.year_tables.YEAR_BINS` as the window shows them.
+are :data:`~stagewright.gui.presentation.year_tables.YEAR_BINS` as the window shows them.
 """
 from __future__ import annotations
 
@@ -14,9 +14,9 @@ __all__ = ["YearResultsView", "MONEY_TIP", "total_text"]
 from PySide6.QtCore import Qt
 from PySide6.QtWidgets import QAbstractItemView, QSplitter, QTableWidget, QTableWidgetItem
 
-from app.presentation import year_tables
-from app.presentation.figures import Figure, read_path, shown
-from app.widgets.table_copy import attach_table_copy
+from stagewright.gui.presentation import year_tables
+from stagewright.gui.presentation.figures import Figure, read_path, shown
+from stagewright.gui.widgets.table_copy import attach_table_copy
 
 _OUT = "window"
 MONEY_TIP = "In the currency of the prices on the Profile tab (and of the fuel price of heat recovery)"

@@ -1,9 +1,9 @@
 """Run a year at the site off the GUI thread, with progress, cancel and stale answers dropped.
 
-A :class:`~app.jobs.job_runner.JobRunner`: every run gets a job id one higher than the last, and
+A :class:`~stagewright.gui.jobs.job_runner.JobRunner`: every run gets a job id one higher than the last, and
 progress and answers of an older job are dropped. Cancel stops the run between two bins;
 it then answers ``failed`` with the core's message (``year run cancelled after 3 of 12
-bins``: :class:`thermo.year.YearCancelled` is a ``StagewrightError``).
+bins``: :class:`stagewright.core.year.YearCancelled` is a ``StagewrightError``).
 """
 from __future__ import annotations
 
@@ -14,16 +14,16 @@ from typing import Callable
 
 from PySide6.QtCore import Signal
 
-from app.jobs.job_runner import JobRunner
+from stagewright.gui.jobs.job_runner import JobRunner
 
 
 def _year(doc: dict, report: Callable[[int, int], None], cancel: threading.Event) -> dict:
-    from thermo.year import run_year
+    from stagewright.core.year import run_year
     return run_year(doc, progress=report, cancelled=cancel.is_set).to_dict()
 
 
 class YearRunner(JobRunner):
-    """Runs :func:`thermo.year.run_year` in the year thread; emits only the newest job's news.
+    """Runs :func:`stagewright.core.year.run_year` in the year thread; emits only the newest job's news.
 
     Signals
     -------

@@ -7,7 +7,7 @@ before that change is merged with a moist-air-free export."""
 import json, sys, copy
 sys.path.insert(0, "tests")
 from conftest import make_doc, SAMPLES
-import thermo
+import stagewright.core
 
 def cases():
     out = {}
@@ -22,12 +22,12 @@ def cases():
         out[f"{model}_normal_volume_losses"] = d
         out[f"{model}_shaft_power"] = make_doc(model=model, stages=2, eta=0.8, p_out=8e5, flow=("shaft_power", 150e3))
     d = make_doc(model="real_gas", stages=1, eta=0.8, p_out=3e5)
-    t2 = thermo.solve(d).stages[0].outlet.T + 5.0
+    t2 = stagewright.core.solve(d).stages[0].outlet.T + 5.0
     out["real_gas_measured_T"] = make_doc(model="real_gas", stages=1, eta=t2, kind="discharge_temperature", p_out=3e5)
     return out
 
 if __name__ == "__main__":  # never on import (pytest collects doctests from every module)
     docs = cases()
-    data = {name: {"doc": doc, "result": thermo.solve(copy.deepcopy(doc)).to_dict()} for name, doc in docs.items()}
+    data = {name: {"doc": doc, "result": stagewright.core.solve(copy.deepcopy(doc)).to_dict()} for name, doc in docs.items()}
     json.dump(data, open("tests/data/dry_baseline.json", "w"), indent=1, sort_keys=True, allow_nan=False)
     print(len(data))

@@ -1,7 +1,7 @@
 """Solve several cases of one project, each as its own standalone document.
 
 A case's result here is exactly the result of the same case written out as a file and solved
-(``thermo.solve(case_document(doc, name))``): nothing else of the project reaches the solver.
+(``stagewright.core.solve(case_document(doc, name))``): nothing else of the project reaches the solver.
 A case that cannot be solved is kept with its error message, so a comparison of five cases
 still shows the four that solve.
 """
@@ -12,8 +12,8 @@ __all__ = ["CaseOutcome", "compare_cases"]
 from dataclasses import dataclass, field
 from typing import Callable, Mapping, Sequence
 
-from thermo.errors import InputError, StagewrightError
-from thermo.project.cases import case_document, case_names
+from stagewright.core.errors import InputError, StagewrightError
+from stagewright.core.project.cases import case_document, case_names
 
 
 @dataclass
@@ -86,8 +86,8 @@ def compare_cases(doc: Mapping, names: Sequence[str] | None = None, with_year: b
     >>> hot.solved and hot.document["site"]["ambient_temperature_K"]
     313.15
     """
-    from thermo.solve import solve
-    from thermo.year import run_year
+    from stagewright.core.solve import solve
+    from stagewright.core.year import run_year
 
     chosen = list(names) if names is not None else case_names(doc)
     known = case_names(doc)

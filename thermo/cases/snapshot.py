@@ -22,7 +22,7 @@ def versions() -> dict[str, str]:
     """This installation's versions: ``{"stagewright_version": …, "coolprop_version": …}``."""
     import CoolProp
 
-    from thermo import __version__
+    from stagewright.core import __version__
     return {"stagewright_version": __version__, "coolprop_version": str(CoolProp.__version__)}
 
 

@@ -20,7 +20,7 @@ Coolants (registry :data:`COOLANTS`):
     humidity ratio, humid-air properties of ASHRAE RP-1485 via ``HAPropsSI``; flow is
     humid-air mass flow.
 
-Properties come only through :mod:`thermo.coolprop_adapter`.
+Properties come only through :mod:`stagewright.core.coolprop_adapter`.
 """
 from __future__ import annotations
 
@@ -30,8 +30,8 @@ import math
 from dataclasses import dataclass
 
 
-from thermo import coolprop_adapter as cpa
-from thermo.errors import InputError, PropertyRangeError
+from stagewright.core import coolprop_adapter as cpa
+from stagewright.core.errors import InputError, PropertyRangeError
 
 #: pressure at which liquid-coolant properties are evaluated, [Pa]; liquids are nearly
 #: incompressible, and CoolProp's incompressible tables do not depend on it.

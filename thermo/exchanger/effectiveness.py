@@ -28,7 +28,7 @@ from typing import Callable
 
 import numpy as np
 
-from thermo.errors import InputError
+from stagewright.core.errors import InputError
 
 _CR_ZERO = 1e-12  #: below this capacity ratio the Cr = 0 limit (one fluid of infinite capacity) is used
 

@@ -5,8 +5,8 @@ __all__ = ["log_mean", "counterflow_lmtd", "correction_factor"]
 
 import math
 
-from thermo.errors import InputError
-from thermo.exchanger.effectiveness import ntu_from_effectiveness
+from stagewright.core.errors import InputError
+from stagewright.core.exchanger.effectiveness import ntu_from_effectiveness
 
 
 def log_mean(dt1: float, dt2: float, field: str = "temperature difference") -> float:
@@ -103,7 +103,7 @@ def correction_factor(arrangement: str, eps: float, cr: float, hot_is_cmin: bool
     Parameters
     ----------
     arrangement : str
-        A key of :data:`thermo.exchanger.effectiveness.ARRANGEMENTS`.
+        A key of :data:`stagewright.core.exchanger.effectiveness.ARRANGEMENTS`.
     eps : float
         Effectiveness, [-].
     cr : float

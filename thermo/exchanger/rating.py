@@ -1,6 +1,6 @@
 r"""Rating a cooler: given UA, find the air outlet temperature and the duty [1]_.
 
-Rating is the inverse of sizing (:mod:`thermo.exchanger.sizing`): the air outlet
+Rating is the inverse of sizing (:mod:`stagewright.core.exchanger.sizing`): the air outlet
 temperature :math:`T_{h,o}` is the root of
 
 .. math:: g(T_{h,o}) = \ln\frac{UA_\mathrm{req}(T_{h,o})}{UA} = 0
@@ -23,9 +23,9 @@ import math
 from typing import Callable
 
 
-from thermo.errors import InputError, PropertyRangeError
-from thermo.exchanger.effectiveness import effectiveness
-from thermo.exchanger.sizing import Exchanger, HotSide, size_exchanger
+from stagewright.core.errors import InputError, PropertyRangeError
+from stagewright.core.exchanger.effectiveness import effectiveness
+from stagewright.core.exchanger.sizing import Exchanger, HotSide, size_exchanger
 
 _INFEASIBLE = 60.0
 
@@ -44,7 +44,7 @@ def rate_exchanger(arrangement: str, ua: float, t_hi: float, hot_at: Callable[[f
     Parameters
     ----------
     arrangement : str
-        A key of :data:`thermo.exchanger.effectiveness.ARRANGEMENTS`.
+        A key of :data:`stagewright.core.exchanger.effectiveness.ARRANGEMENTS`.
     ua : float
         Overall conductance, [W/K].
     t_hi : float
@@ -52,7 +52,7 @@ def rate_exchanger(arrangement: str, ua: float, t_hi: float, hot_at: Callable[[f
     hot_at : callable
         ``hot_at(T_out)`` → :class:`HotSide` of the air cooled to ``T_out`` [K].
     fluid : object
-        Coolant from :func:`thermo.exchanger.coolant.make_coolant`.
+        Coolant from :func:`stagewright.core.exchanger.coolant.make_coolant`.
     t_ci : float
         Coolant inlet temperature, [K].
     flow, rise : float, optional
@@ -72,8 +72,8 @@ def rate_exchanger(arrangement: str, ua: float, t_hi: float, hot_at: Callable[[f
 
     Examples
     --------
-    >>> from thermo.exchanger.coolant import make_coolant
-    >>> from thermo.exchanger.sizing import HotSide
+    >>> from stagewright.core.exchanger.coolant import make_coolant
+    >>> from stagewright.core.exchanger.sizing import HotSide
     >>> w = make_coolant({"kind": "water"}, (293.15, 101325.0, 0.0))
     >>> hot = lambda t: HotSide(420.0, t, 1000.0 * (420.0 - t))
     >>> t_out, ex = rate_exchanger("counter_flow", 2500.0, 420.0, hot, w, 293.15, flow=0.5)

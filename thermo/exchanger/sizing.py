@@ -11,7 +11,7 @@ taken from the terminal enthalpy changes,
 
 so that the ε–NTU and LMTD–F methods give the same UA by construction, and the coolant
 energy balance equals the air-side duty exactly (the coolant outlet follows from its
-enthalpy, :mod:`thermo.exchanger.coolant`).
+enthalpy, :mod:`stagewright.core.exchanger.coolant`).
 
 When the moist air condenses (its outlet lies below its dew point at the cooler
 pressure) one LMTD over the whole exchanger would be wrong: below the dew point the
@@ -24,9 +24,9 @@ reaches the dry zone at the boundary temperature :math:`T_{c,b}` from
 for the cross-flow and 1-2 shell arrangements it is the usual zone-by-zone approximation
 (each zone treated as its own exchanger of that arrangement). The exchanger's UA is the
 sum of the zones'. The wet zone's driving force is its log-mean enthalpy difference
-(:func:`~thermo.exchanger.zone_figures.enthalpy_driving_force`), not an F-corrected LMTD;
+(:func:`~stagewright.core.exchanger.zone_figures.enthalpy_driving_force`), not an F-corrected LMTD;
 the whole exchanger's ε and NTU are on mean capacity rates and its F is that of
-counter-flow, 1, or not defined (:func:`~thermo.exchanger.zone_figures.overall_figures`).
+counter-flow, 1, or not defined (:func:`~stagewright.core.exchanger.zone_figures.overall_figures`).
 """
 from __future__ import annotations
 
@@ -37,11 +37,11 @@ from dataclasses import dataclass, field
 from typing import Callable
 
 
-from thermo.errors import InputError
-from thermo.exchanger.coolant import CoolantSide, coolant_side
-from thermo.exchanger.effectiveness import ARRANGEMENTS, max_effectiveness, ntu_from_effectiveness
-from thermo.exchanger.lmtd import counterflow_lmtd
-from thermo.exchanger.zone_figures import enthalpy_driving_force, overall_figures
+from stagewright.core.errors import InputError
+from stagewright.core.exchanger.coolant import CoolantSide, coolant_side
+from stagewright.core.exchanger.effectiveness import ARRANGEMENTS, max_effectiveness, ntu_from_effectiveness
+from stagewright.core.exchanger.lmtd import counterflow_lmtd
+from stagewright.core.exchanger.zone_figures import enthalpy_driving_force, overall_figures
 
 
 def brentq(*args, **kwargs):
@@ -98,7 +98,7 @@ class Zone:
     correction_factor: float | None
     ua_W_K: float
     #: wet zone: log-mean enthalpy difference between the air and saturated air at the coolant
-    #: temperature, [J/kg dry air] (:mod:`thermo.exchanger.zone_figures`); None for a dry zone
+    #: temperature, [J/kg dry air] (:mod:`stagewright.core.exchanger.zone_figures`); None for a dry zone
     log_mean_enthalpy_difference_J_kg: float | None = None
 
 
@@ -112,7 +112,7 @@ class Exchanger:
     ua_W_K: float = 0.0
     lmtd_K: float = 0.0  #: counter-flow LMTD of the four terminal temperatures, [K]
     #: F, ε and NTU of the whole exchanger. When it condenses: ε and NTU on mean capacity rates,
-    #: F = 1 for counter-flow and None for other arrangements (:mod:`thermo.exchanger.zone_figures`)
+    #: F = 1 for counter-flow and None for other arrangements (:mod:`stagewright.core.exchanger.zone_figures`)
     correction_factor: float | None = 1.0
     effectiveness: float | None = 0.0
     ntu: float | None = 0.0
@@ -130,7 +130,7 @@ def dry_zone(arrangement: str, t_hi: float, t_ho: float, q: float, t_ci: float, 
     Parameters
     ----------
     arrangement : str
-        A key of :data:`thermo.exchanger.effectiveness.ARRANGEMENTS`.
+        A key of :data:`stagewright.core.exchanger.effectiveness.ARRANGEMENTS`.
     t_hi, t_ho : float
         Compressed-air inlet and outlet temperatures, [K].
     q : float
@@ -199,7 +199,7 @@ def wet_zone(arrangement: str, hot: HotSide, q: float, t_ci: float, t_cb: float,
     Parameters
     ----------
     arrangement : str
-        A key of :data:`thermo.exchanger.effectiveness.ARRANGEMENTS`.
+        A key of :data:`stagewright.core.exchanger.effectiveness.ARRANGEMENTS`.
     hot : HotSide
         The air side (with dew point and equilibrium enthalpy).
     q : float
@@ -346,11 +346,11 @@ def size_exchanger(arrangement: str, hot: HotSide, fluid, t_ci: float, flow: flo
     Parameters
     ----------
     arrangement : str
-        A key of :data:`thermo.exchanger.effectiveness.ARRANGEMENTS`.
+        A key of :data:`stagewright.core.exchanger.effectiveness.ARRANGEMENTS`.
     hot : HotSide
         Air-side terminal temperatures and duty.
     fluid : object
-        Coolant from :func:`thermo.exchanger.coolant.make_coolant`.
+        Coolant from :func:`stagewright.core.exchanger.coolant.make_coolant`.
     t_ci : float
         Coolant inlet temperature, [K].
     flow, rise : float, optional
@@ -373,7 +373,7 @@ def size_exchanger(arrangement: str, hot: HotSide, fluid, t_ci: float, flow: flo
 
     Examples
     --------
-    >>> from thermo.exchanger.coolant import make_coolant
+    >>> from stagewright.core.exchanger.coolant import make_coolant
     >>> w = make_coolant({"kind": "water"}, (293.15, 101325.0, 0.0))
     >>> ex = size_exchanger("counter_flow", HotSide(400.0, 303.15, 97_000.0), w, 293.15, rise=10.0)
     >>> round(ex.ua_W_K / (97_000.0 / ex.lmtd_K), 12)  # counter-flow: UA = Q / LMTD

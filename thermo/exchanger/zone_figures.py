@@ -1,6 +1,6 @@
 r"""Figures of a condensing cooler: the wet zone's enthalpy driving force, the whole exchanger's F, ε, NTU.
 
-:mod:`thermo.exchanger.sizing` splits a condensing cooler into a dry and a wet zone. The dry
+:mod:`stagewright.core.exchanger.sizing` splits a condensing cooler into a dry and a wet zone. The dry
 zone is an ordinary sensible exchanger with its LMTD and correction factor F ≤ 1. The wet zone
 is not: its heat and water move on an enthalpy potential (Braun, Klein & Mitchell 1989), so
 its driving force is a log-mean *enthalpy* difference (:func:`enthalpy_driving_force`) and an
@@ -14,11 +14,11 @@ __all__ = ["enthalpy_driving_force", "overall_figures"]
 from dataclasses import replace
 from typing import TYPE_CHECKING
 
-from thermo.exchanger.lmtd import log_mean
+from stagewright.core.exchanger.lmtd import log_mean
 
 if TYPE_CHECKING:  # pragma: no cover - annotations only (sizing imports this module)
-    from thermo.exchanger.coolant import CoolantSide
-    from thermo.exchanger.sizing import HotSide, Zone
+    from stagewright.core.exchanger.coolant import CoolantSide
+    from stagewright.core.exchanger.sizing import HotSide, Zone
 
 
 def enthalpy_driving_force(wet: Zone, hot: HotSide) -> Zone:
@@ -37,7 +37,7 @@ def enthalpy_driving_force(wet: Zone, hot: HotSide) -> Zone:
     counter-flow zone is :math:`\dot Q = UA^*\,\Delta h_\mathrm{lm}`, the enthalpy form of the
     LMTD relation, with :math:`UA^* = \mathrm{NTU}^* C^*_\min` the zone's enthalpy conductance
     [kg/s] and :math:`h_s` linear over the coolant's range as in
-    :func:`thermo.exchanger.sizing.wet_zone`; other arrangements have their own correction on
+    :func:`stagewright.core.exchanger.sizing.wet_zone`; other arrangements have their own correction on
     that basis. The LMTD correction factor :math:`F = \dot Q/(UA\,\Delta T_\mathrm{lm})` has no
     meaning in such a zone (it comes out above 1, the latent heat not being driven by the
     temperature difference), so the zone's ``correction_factor`` is None.
@@ -45,7 +45,7 @@ def enthalpy_driving_force(wet: Zone, hot: HotSide) -> Zone:
     Parameters
     ----------
     wet : Zone
-        A zone from :func:`thermo.exchanger.sizing.wet_zone`.
+        A zone from :func:`stagewright.core.exchanger.sizing.wet_zone`.
     hot : HotSide
         The air side it was sized for (dew point, dry-air flow, equilibrium enthalpy).
 
@@ -90,7 +90,7 @@ def overall_figures(arrangement: str, hot: HotSide, side: CoolantSide, ua: float
     Parameters
     ----------
     arrangement : str
-        A key of :data:`thermo.exchanger.effectiveness.ARRANGEMENTS`.
+        A key of :data:`stagewright.core.exchanger.effectiveness.ARRANGEMENTS`.
     hot : HotSide
         The air side: inlet and outlet temperatures and duty.
     side : CoolantSide

@@ -3,10 +3,10 @@ from __future__ import annotations
 
 __all__ = ["MODELS", "make_model", "Point", "PropertyModel"]
 
-from thermo.models.base import Point, PropertyModel
-from thermo.models.constant_cp import ConstantCpAir
-from thermo.models.ideal_gas import IdealGasAir
-from thermo.models.real_gas import RealGasAir
+from stagewright.core.models.base import Point, PropertyModel
+from stagewright.core.models.constant_cp import ConstantCpAir
+from stagewright.core.models.ideal_gas import IdealGasAir
+from stagewright.core.models.real_gas import RealGasAir
 
 #: model name -> factory taking the project's ``fluid`` section
 MODELS = {

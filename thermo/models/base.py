@@ -6,7 +6,7 @@ __all__ = ["Point", "PropertyModel", "T_MIN", "T_MAX", "P_MIN", "P_MAX", "check_
 from dataclasses import dataclass
 from typing import Protocol
 
-from thermo.errors import PropertyRangeError, message_detail, quantity
+from stagewright.core.errors import PropertyRangeError, message_detail, quantity
 
 #: Validity window shared by every model [K] and [Pa]: compressed-air work, well inside
 #: the Lemmon et al. (2000) equation of state (59.75 K … 2000 K, up to 2000 MPa).

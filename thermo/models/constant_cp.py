@@ -5,7 +5,7 @@ __all__ = ["ConstantCpAir"]
 
 import math
 
-from thermo.models.base import Point, check_range
+from stagewright.core.models.base import Point, check_range
 
 _T_REF, _P_REF = 298.15, 101_325.0
 

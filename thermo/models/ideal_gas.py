@@ -6,9 +6,9 @@ __all__ = ["IdealGasAir"]
 import math
 from bisect import bisect_right
 
-from thermo import coolprop_adapter as cpa
-from thermo.models.base import T_MAX, T_MIN, Point, check_range
-from thermo.models.newton import invert_temperature
+from stagewright.core import coolprop_adapter as cpa
+from stagewright.core.models.base import T_MAX, T_MIN, Point, check_range
+from stagewright.core.models.newton import invert_temperature
 
 _P_REF = 101_325.0  # reference pressure of s°(T), [Pa]
 _STEP_K = 2.0

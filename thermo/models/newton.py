@@ -5,8 +5,8 @@ __all__ = ["invert_temperature", "invert_to_state"]
 
 from typing import Callable
 
-from thermo.errors import PropertyRangeError, message_detail, quantity
-from thermo.models.base import T_MAX, T_MIN
+from stagewright.core.errors import PropertyRangeError, message_detail, quantity
+from stagewright.core.models.base import T_MAX, T_MIN
 
 
 def invert_temperature(value_and_slope: Callable[[float], tuple[float, float]], target: float,

@@ -3,9 +3,9 @@ from __future__ import annotations
 
 __all__ = ["RealGasAir"]
 
-from thermo import coolprop_adapter as cpa
-from thermo.models.base import Point, check_range
-from thermo.models.newton import invert_temperature
+from stagewright.core import coolprop_adapter as cpa
+from stagewright.core.models.base import Point, check_range
+from stagewright.core.models.newton import invert_temperature
 
 
 class RealGasAir:

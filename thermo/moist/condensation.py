@@ -6,10 +6,10 @@ __all__ = ["Condensation", "condensation", "condensate_volume_L_h", "cooling_lin
 import math
 from dataclasses import dataclass
 
-from thermo import coolprop_adapter as cpa
-from thermo.models.base import Point
-from thermo.moist.dew_point import dew_point
-from thermo.moist.saturation import T_TRIPLE
+from stagewright.core import coolprop_adapter as cpa
+from stagewright.core.models.base import Point
+from stagewright.core.moist.dew_point import dew_point
+from stagewright.core.moist.saturation import T_TRIPLE
 
 
 @dataclass(frozen=True)

@@ -16,8 +16,8 @@ __all__ = ["dew_point"]
 
 from collections.abc import Callable
 
-from thermo.moist.saturation import dew_point_from_vapour_pressure
-from thermo.roots import bracketed_root
+from stagewright.core.moist.saturation import dew_point_from_vapour_pressure
+from stagewright.core.roots import bracketed_root
 
 _MAX_STEPS = 40
 
@@ -57,8 +57,8 @@ def dew_point(mixture, water: float, pressure: float | Callable[[float], float],
 
     Examples
     --------
-    >>> from thermo.models.ideal_gas import IdealGasAir
-    >>> from thermo.solve_context import mixture_for
+    >>> from stagewright.core.models.ideal_gas import IdealGasAir
+    >>> from stagewright.core.solve_context import mixture_for
     >>> mix = mixture_for(IdealGasAir())
     >>> round(dew_point(mix, 0.01, 5e5), 2)
     314.45

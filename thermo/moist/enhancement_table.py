@@ -6,7 +6,7 @@ at new (T, p) on every trial. :class:`EnhancementTable` interpolates ln f instea
 cubic Lagrange interpolation on a grid in T and ln p whose nodes are computed exactly the
 first time they are needed and then kept for the life of the process.
 
-Only the fast property path of trial solves uses it (:func:`thermo.solve.solve_normalised` with
+Only the fast property path of trial solves uses it (:func:`stagewright.core.solve.solve_normalised` with
 ``fast=True``); every reported state of a full solve uses the exact factor.
 """
 from __future__ import annotations
@@ -15,8 +15,8 @@ __all__ = ["EnhancementTable", "T_STEP", "LN_P_STEP", "T_FIRST", "T_LAST"]
 
 import math
 
-from thermo import coolprop_adapter as cpa
-from thermo.moist.saturation import saturation_pressure
+from stagewright.core import coolprop_adapter as cpa
+from stagewright.core.moist.saturation import saturation_pressure
 
 T_STEP = 2.0  #: grid step in temperature, [K]
 LN_P_STEP = 0.025  #: grid step in ln p, [-]

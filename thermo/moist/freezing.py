@@ -13,9 +13,9 @@ from __future__ import annotations
 
 __all__ = ["frozen_condensate_warning", "intake_rime_warning", "FREEZE_MARGIN_K"]
 
-from thermo.errors import message_detail, quantity
-from thermo.moist.saturation import T_TRIPLE
-from thermo.results import Warning_
+from stagewright.core.errors import message_detail, quantity
+from stagewright.core.moist.saturation import T_TRIPLE
+from stagewright.core.results import Warning_
 
 #: outlet temperatures this close above the triple point still get the caution: a real cooler's
 #: coldest surface and the drain line are colder than the mixed air outlet (common practice, no source)
@@ -72,7 +72,7 @@ def intake_rime_warning(frost_deposit: float, mass_flow: float, ambient_K: float
     ----------
     frost_deposit : float
         Water above saturation over ice, [kg/kg dry air]
-        (:func:`thermo.moist.stream.ice_supersaturation`).
+        (:func:`stagewright.core.moist.stream.ice_supersaturation`).
     mass_flow : float
         Dry-air mass flow, [kg/s].
     ambient_K : float

@@ -2,7 +2,7 @@
 
 One :class:`MoistMixture` per property model. It knows the gas phase at any water content
 (per kilogram of dry air), when water vapour saturates, and the properties of the water
-that condenses; :class:`thermo.moist.stream.MoistAir` builds the stream model of a fixed total
+that condenses; :class:`stagewright.core.moist.stream.MoistAir` builds the stream model of a fixed total
 water content on top of it.
 """
 from __future__ import annotations
@@ -12,8 +12,8 @@ __all__ = ["MoistMixture", "make_mixture", "RP1485_EPSILON", "RP1485_T_MAX", "RP
 import math
 from functools import lru_cache
 
-from thermo import coolprop_adapter as cpa
-from thermo.moist.saturation import T_CRITICAL, liquid_vapour_pressure, vapour_pressure, vapour_pressure_log_slope
+from stagewright.core import coolprop_adapter as cpa
+from stagewright.core.moist.saturation import T_CRITICAL, liquid_vapour_pressure, vapour_pressure, vapour_pressure_log_slope
 
 P_REF = 101_325.0  #: reference pressure of the ideal-gas entropy of water vapour, [Pa]
 R_MOLAR = 8.314462618  #: molar gas constant, CODATA 2018, [J/(mol K)]
@@ -437,7 +437,7 @@ class MoistMixture:
     def relative_humidity(self, T: float, P: float, w: float):
         """Relative humidity x_w p / (f p_w,liq(T)) [-] (mole-fraction basis), relative to liquid
         water also below 0 °C (supercooled; the WMO convention of meteorological data, see
-        :mod:`thermo.moist.saturation`); None at or above the critical temperature.
+        :mod:`stagewright.core.moist.saturation`); None at or above the critical temperature.
 
         Defined also where p_ws(T) exceeds p (hot compressed air, where water cannot condense)."""
         if T >= T_CRITICAL:
@@ -454,8 +454,8 @@ class MoistMixture:
 
     def dew_point(self, P: float, w: float):
         """Temperature at which vapour content w saturates at pressure P, [K] (frost point below
-        273.16 K); None when w is 0. See :func:`thermo.moist.dew_point.dew_point`."""
-        from thermo.moist.dew_point import dew_point  # local: dew_point's doctest builds a mixture
+        273.16 K); None when w is 0. See :func:`stagewright.core.moist.dew_point.dew_point`."""
+        from stagewright.core.moist.dew_point import dew_point  # local: dew_point's doctest builds a mixture
         return dew_point(self, w, P)
 
 
@@ -467,7 +467,7 @@ def _fast_table():
     behind the same small cache of recent (T, p) as the exact factor."""
     global _FAST_TABLE
     if _FAST_TABLE is None:
-        from thermo.moist.enhancement_table import EnhancementTable  # local: only fast trial solves need it
+        from stagewright.core.moist.enhancement_table import EnhancementTable  # local: only fast trial solves need it
         _FAST_TABLE = lru_cache(maxsize=512)(EnhancementTable())
     return _FAST_TABLE
 
@@ -476,7 +476,7 @@ def make_mixture(dry) -> MoistMixture:
     """The moist mixture that belongs to a dry-air property model (by its name).
 
     A model flagged ``fast_properties`` (trial solves of studies and sweeps) gets the
-    interpolated enhancement factor of :mod:`thermo.moist.enhancement_table`; all others the exact one.
+    interpolated enhancement factor of :mod:`stagewright.core.moist.enhancement_table`; all others the exact one.
     """
     if dry.name == "real_gas":
         table = _fast_table() if getattr(dry, "fast_properties", False) else None

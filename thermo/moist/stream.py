@@ -12,11 +12,11 @@ __all__ = ["MoistAir", "intake_humidity_ratio", "ice_supersaturation", "humidity
 
 import math
 
-from thermo.errors import InputError, message_detail, quantity
-from thermo.models.base import Point, check_range
-from thermo.models.newton import invert_to_state
-from thermo.moist.mixture import MoistMixture
-from thermo.moist.saturation import T_CRITICAL, liquid_vapour_pressure, vapour_pressure
+from stagewright.core.errors import InputError, message_detail, quantity
+from stagewright.core.models.base import Point, check_range
+from stagewright.core.models.newton import invert_to_state
+from stagewright.core.moist.mixture import MoistMixture
+from stagewright.core.moist.saturation import T_CRITICAL, liquid_vapour_pressure, vapour_pressure
 
 _LIQUID_NEGLIGIBLE = 1e-9  # liquid share (of the stream's water) treated as none on a path
 _DT = 1e-3  # central-difference step in T for two-phase derivatives, [K]
@@ -34,7 +34,7 @@ class MoistAir:
         h = h_g(T, p, w_v) + w_l\,h_l(T, p), \qquad s = s_g(T, p, w_v) + w_l\,s_l(T, p)
 
     with the gas phase, saturation humidity ratio :math:`w_s` and condensed water of
-    :class:`~thermo.moist.mixture.MoistMixture`. Liquid is therefore present only where the
+    :class:`~stagewright.core.moist.mixture.MoistMixture`. Liquid is therefore present only where the
     stream is saturated; compression that heats it evaporates any liquid carried in
     (a supersaturated stage inlet after a separator of efficiency below 1), cooling below
     the dew point condenses water.
@@ -56,8 +56,8 @@ class MoistAir:
 
     Examples
     --------
-    >>> from thermo.models import ConstantCpAir
-    >>> from thermo.moist.mixture import make_mixture
+    >>> from stagewright.core.models import ConstantCpAir
+    >>> from stagewright.core.moist.mixture import make_mixture
     >>> air = MoistAir(make_mixture(ConstantCpAir()), 0.01)
     >>> p = air.at_tp(290.0, 8e5)  # 8 bar, 16.85 °C: w_s = 0.622 · 1920 / (8e5 − 1920)
     >>> round(p.w, 5), round(p.wl, 5)
@@ -162,7 +162,7 @@ class MoistAir:
     def polytropic_slope_parts(self, T: float, P: float) -> tuple[float, float, float]:
         """(p v/c_p [K], p (∂h/∂p)_T/c_p [K], p v [J/kg]) at T, P, from the same state as
         :meth:`polytropic_slope`, which is ``a/η − b`` of the first two (one evaluation gives the
-        slope at every efficiency; :func:`thermo.polytropic.polytropic_efficiency_between` uses it)."""
+        slope at every efficiency; :func:`stagewright.core.polytropic.polytropic_efficiency_between` uses it)."""
         check_range(T, P, "polytropic path")
         if self.split(T, P)[1] <= _LIQUID_NEGLIGIBLE * self.water:
             v, cp, hp = self.mixture.gas_slope_terms(T, P, self.water)
@@ -274,7 +274,7 @@ def intake_humidity_ratio(site: dict, mixture: MoistMixture, T0: float, P0: floa
     site : dict
         The humidity input: ``dew_point_K``, ``humidity_ratio`` or ``relative_humidity``
         (checked in that order; the document allows only one), e.g.
-        :meth:`thermo.project.validation.ResolvedSite.humidity_input`.
+        :meth:`stagewright.core.project.validation.ResolvedSite.humidity_input`.
     mixture : MoistMixture
         Moist-air formulation of the project's model.
     T0, P0 : float
@@ -297,7 +297,7 @@ def intake_humidity_ratio(site: dict, mixture: MoistMixture, T0: float, P0: floa
     meteorological data give it, relative to **liquid water even below 0 °C** (WMO-No. 8,
     *Guide to Instruments and Methods of Observation*, annex on humidity formulae — from
     memory): :math:`p_{w,\mathrm{liq}}` is IF97 above 0 °C and the supercooled-water
-    equation of Murphy & Koop (2005) below (:func:`thermo.moist.saturation.liquid_vapour_pressure`);
+    equation of Murphy & Koop (2005) below (:func:`stagewright.core.moist.saturation.liquid_vapour_pressure`);
     the enhancement factor f is the mixture's (RP-1485; 1 for the ideal mixtures). A dew
     point below 0.01 °C is a frost point: :math:`p_{ws}` is then the IAPWS 2011 sublimation
     pressure. For the ideal mixtures (f = 1) the relative humidity is the usual
@@ -345,8 +345,8 @@ def ice_supersaturation(mixture: MoistMixture, T0: float, P0: float, W: float) -
 
     Examples
     --------
-    >>> from thermo.models import ConstantCpAir
-    >>> from thermo.moist.mixture import make_mixture
+    >>> from stagewright.core.models import ConstantCpAir
+    >>> from stagewright.core.moist.mixture import make_mixture
     >>> mix = make_mixture(ConstantCpAir())
     >>> W = intake_humidity_ratio({"relative_humidity": 0.95}, mix, 263.15, 101325.0)
     >>> ice_supersaturation(mix, 263.15, 101325.0, W) > 0.0

@@ -4,7 +4,7 @@ r"""A load profile's year: hours at each load through the package's control.
            V = \sum_j x_j\, Q_c\, 3600\, t_j \ \mathrm{[m^3]}
 
 at the conditions solved (the site as stated); the year at the site
-(:mod:`thermo.year`) does the same bin by bin at each bin's ambient.
+(:mod:`stagewright.core.year`) does the same bin by bin at each bin's ambient.
 """
 from __future__ import annotations
 
@@ -12,8 +12,8 @@ __all__ = ["AnnualFigures", "annual_figures"]
 
 from dataclasses import asdict, dataclass
 
-from thermo.part_load.full_load import FullLoad
-from thermo.part_load.package import package_point
+from stagewright.core.part_load.full_load import FullLoad
+from stagewright.core.part_load.package import package_point
 
 
 @dataclass(frozen=True)

@@ -3,13 +3,13 @@ from __future__ import annotations
 
 __all__ = ["control_duty", "CONTROL_LABELS"]
 
-from thermo.part_load.duty import ControlDuty
-from thermo.part_load.full_load import FullLoad
-from thermo.part_load.load_unload import load_unload_duty
-from thermo.part_load.measured_curve import measured_curve_duty
-from thermo.part_load.modulation import modulation_duty
-from thermo.part_load.start_stop import start_stop_duty
-from thermo.part_load.variable_speed import variable_speed_duty
+from stagewright.core.part_load.duty import ControlDuty
+from stagewright.core.part_load.full_load import FullLoad
+from stagewright.core.part_load.load_unload import load_unload_duty
+from stagewright.core.part_load.measured_curve import measured_curve_duty
+from stagewright.core.part_load.modulation import modulation_duty
+from stagewright.core.part_load.start_stop import start_stop_duty
+from stagewright.core.part_load.variable_speed import variable_speed_duty
 
 #: control kind -> words for people
 CONTROL_LABELS = {"load_unload": "load/unload", "modulation": "inlet modulation",

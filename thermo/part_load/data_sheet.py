@@ -17,11 +17,11 @@ __all__ = ["ISO1217_REFERENCE", "SheetColumn", "DataSheet", "data_sheet", "refer
 import copy
 from dataclasses import dataclass, field
 
-from thermo.errors import InputError
-from thermo.part_load.controls import CONTROL_LABELS
-from thermo.part_load.full_load import full_load_of
-from thermo.part_load.package import package_point
-from thermo.project.validation import normalise, resolve_site
+from stagewright.core.errors import InputError
+from stagewright.core.part_load.controls import CONTROL_LABELS
+from stagewright.core.part_load.full_load import full_load_of
+from stagewright.core.part_load.package import package_point
+from stagewright.core.project.validation import normalise, resolve_site
 
 #: ISO 1217 standard reference conditions (from memory): inlet pressure [Pa], inlet temperature [K],
 #: relative humidity [-], cooling-water inlet temperature [K]
@@ -100,7 +100,7 @@ def data_sheet(doc: dict, solve_fn=None) -> DataSheet:
         Project document with a ``package`` section.
     solve_fn : callable, optional
         ``solve_fn(norm) -> TrainResult``; default a lean exact solve
-        (:func:`thermo.solve.solve_normalised` with ``detail=False``).
+        (:func:`stagewright.core.solve.solve_normalised` with ``detail=False``).
 
     Returns
     -------
@@ -130,7 +130,7 @@ def data_sheet(doc: dict, solve_fn=None) -> DataSheet:
         raise InputError("package", None, "add a 'package' section (capacity control, motor, auxiliaries) "
                          "for data-sheet figures")
     if solve_fn is None:
-        from thermo.solve import solve_normalised
+        from stagewright.core.solve import solve_normalised
 
         def solve_fn(n):
             return solve_normalised(n, detail=False)

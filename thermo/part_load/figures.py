@@ -5,10 +5,10 @@ __all__ = ["PackageFigures", "package_figures", "CURVE_POINTS"]
 
 from dataclasses import dataclass
 
-from thermo.part_load.annual import AnnualFigures, annual_figures
-from thermo.part_load.controls import CONTROL_LABELS
-from thermo.part_load.full_load import FullLoad, full_load_of
-from thermo.part_load.package import PackagePoint, package_curve, package_point
+from stagewright.core.part_load.annual import AnnualFigures, annual_figures
+from stagewright.core.part_load.controls import CONTROL_LABELS
+from stagewright.core.part_load.full_load import FullLoad, full_load_of
+from stagewright.core.part_load.package import PackagePoint, package_curve, package_point
 
 CURVE_POINTS = 21  #: demands 0, 0.05 … 1 of the part-load chart
 
@@ -44,7 +44,7 @@ def package_figures(norm: dict, res) -> PackageFigures | None:
     ----------
     norm : dict
         The normalised project.
-    res : thermo.results.TrainResult
+    res : stagewright.core.results.TrainResult
         Its solved train.
 
     Returns

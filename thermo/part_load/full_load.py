@@ -46,7 +46,7 @@ def full_load_of(res, driver_efficiency: float, load: float = 1.0) -> FullLoad:
 
     Parameters
     ----------
-    res : thermo.results.TrainResult
+    res : stagewright.core.results.TrainResult
         The solved train.
     driver_efficiency : float
         The motor's full-load efficiency [-] (the project's ``driver.efficiency``).

@@ -24,8 +24,8 @@ __all__ = ["load_unload_duty", "mean_unloaded_power"]
 
 import math
 
-from thermo.part_load.duty import ControlDuty, RunState
-from thermo.part_load.receiver import receiver_cycle
+from stagewright.core.part_load.duty import ControlDuty, RunState
+from stagewright.core.part_load.receiver import receiver_cycle
 
 
 def mean_unloaded_power(loaded_W: float, unloaded_W: float, unloaded_s: float, blowdown_s: float) -> float:

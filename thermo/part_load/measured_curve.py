@@ -5,7 +5,7 @@ __all__ = ["measured_curve_duty", "curve_power_fraction"]
 
 import numpy as np
 
-from thermo.part_load.duty import ControlDuty, RunState
+from stagewright.core.part_load.duty import ControlDuty, RunState
 
 
 def curve_power_fraction(points: list, flow_fraction: float) -> float:

@@ -15,7 +15,7 @@ from __future__ import annotations
 
 __all__ = ["modulation_duty"]
 
-from thermo.part_load.duty import ControlDuty, RunState
+from stagewright.core.part_load.duty import ControlDuty, RunState
 
 
 def modulation_duty(control: dict, full_W: float, demand_fraction: float) -> ControlDuty:

@@ -17,11 +17,11 @@ __all__ = ["PackagePoint", "package_point", "package_curve"]
 
 from dataclasses import asdict, dataclass, field
 
-from thermo.part_load.auxiliaries import auxiliaries
-from thermo.part_load.controls import control_duty
-from thermo.part_load.drive import drive_input
-from thermo.part_load.full_load import FullLoad
-from thermo.part_load.motor import motor_input
+from stagewright.core.part_load.auxiliaries import auxiliaries
+from stagewright.core.part_load.controls import control_duty
+from stagewright.core.part_load.drive import drive_input
+from stagewright.core.part_load.full_load import FullLoad
+from stagewright.core.part_load.motor import motor_input
 
 
 @dataclass(frozen=True)

@@ -12,9 +12,9 @@ from __future__ import annotations
 
 __all__ = ["start_stop_duty"]
 
-from thermo.part_load.duty import ControlDuty, RunState
-from thermo.part_load.load_unload import mean_unloaded_power
-from thermo.part_load.receiver import receiver_cycle
+from stagewright.core.part_load.duty import ControlDuty, RunState
+from stagewright.core.part_load.load_unload import mean_unloaded_power
+from stagewright.core.part_load.receiver import receiver_cycle
 
 
 def start_stop_duty(control: dict, full_W: float, capacity_m3_s: float, intake_pressure_Pa: float,

@@ -21,8 +21,8 @@ __all__ = ["variable_speed_duty", "speed_power"]
 
 from dataclasses import replace
 
-from thermo.part_load.duty import ControlDuty, RunState
-from thermo.part_load.load_unload import load_unload_duty
+from stagewright.core.part_load.duty import ControlDuty, RunState
+from stagewright.core.part_load.load_unload import load_unload_duty
 
 
 def speed_power(control: dict, full_W: float, speed: float) -> float:

@@ -19,10 +19,10 @@ Its files: :mod:`.parse` (untrusted bytes → JSON data, with size and depth lim
 """
 from __future__ import annotations
 
-from thermo.project import migrate  # the module (its function: thermo.project.migrate.migrate)
-from thermo.project.parse import MAX_DEPTH, MAX_FILE_BYTES
-from thermo.project.reading import load, load_with_problems, loads, read_document
-from thermo.project.writing import atomic_write, backup_path, dumps, save
+from stagewright.core.project import migrate  # the module (its function: stagewright.core.project.migrate.migrate)
+from stagewright.core.project.parse import MAX_DEPTH, MAX_FILE_BYTES
+from stagewright.core.project.reading import load, load_with_problems, loads, read_document
+from stagewright.core.project.writing import atomic_write, backup_path, dumps, save
 
 __all__ = ["load", "load_with_problems", "loads", "save", "dumps", "backup_path", "atomic_write",
            "read_document", "MAX_FILE_BYTES", "MAX_DEPTH"]

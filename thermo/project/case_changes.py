@@ -2,7 +2,7 @@
 
 A project holds one base design (the document's own keys) and named cases, each stored as
 ``{"name": …, "changes": {"site.ambient_temperature_K": 308.15, "stages[1].cooler": null}}``.
-A change sets the value at its field path (:mod:`thermo.project.paths` spelling); ``null``
+A change sets the value at its field path (:mod:`stagewright.core.project.paths` spelling); ``null``
 removes the key (an optional key then takes its default, which for every nullable key of the
 schema is "none"). A change to a whole list (``"stages": […]``) replaces the list, so a case
 may have another number of stages.
@@ -17,7 +17,7 @@ __all__ = ["DOCUMENT_ONLY_KEYS", "CHANGEABLE_KEYS", "apply_changes", "difference
 import copy
 from typing import Any, Mapping
 
-from thermo.project.paths import parent_at, parse_path
+from stagewright.core.project.paths import parent_at, parse_path
 
 #: keys of the project document that belong to the file, not to a design: never part of a case
 DOCUMENT_ONLY_KEYS = ("format", "version", "base_name", "cases", "snapshot")
@@ -60,11 +60,11 @@ def apply_changes(base: Mapping, changes: Mapping[str, Any]) -> dict:
 
     Raises
     ------
-    thermo.errors.InputError
+    stagewright.core.errors.InputError
         If a path is not a well-formed field path (field ``path``).
     KeyError, IndexError, TypeError
         If a path runs through something that is not there (an index past a list's end, a key
-        below a number). :func:`thermo.project.validation.problems` reports these as problems
+        below a number). :func:`stagewright.core.project.validation.problems` reports these as problems
         of the case.
 
     Examples

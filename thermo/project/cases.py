@@ -20,8 +20,8 @@ __all__ = ["DEFAULT_BASE_NAME", "MAX_NAME_LENGTH", "MAX_CASES", "case_names", "b
 import copy
 from typing import Any, Mapping
 
-from thermo.errors import InputError
-from thermo.project.case_changes import apply_changes, base_document, differences
+from stagewright.core.errors import InputError
+from stagewright.core.project.case_changes import apply_changes, base_document, differences
 
 #: the base design's name when the project does not name it
 DEFAULT_BASE_NAME = "Base"

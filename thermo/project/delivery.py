@@ -16,7 +16,7 @@ import math
 from collections.abc import Mapping, MutableMapping
 from typing import Any
 
-from thermo.errors import InputError
+from stagewright.core.errors import InputError
 
 ABSOLUTE_KEY = "discharge_pressure_Pa"  #: delivery pressure stated absolute, [Pa]
 GAUGE_KEY = "discharge_gauge_pressure_Pa"  #: delivery pressure stated gauge (above barometric), [Pa]
@@ -70,7 +70,7 @@ def delivery_pressure(norm: Mapping, barometric_Pa: float) -> float:
         ``discharge_gauge_pressure_Pa`` [Pa].
     barometric_Pa : float
         Site barometric pressure :math:`p_0` of this solve
-        (:func:`thermo.project.validation.barometric_pressure`), [Pa].
+        (:func:`stagewright.core.project.validation.barometric_pressure`), [Pa].
 
     Returns
     -------

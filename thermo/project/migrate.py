@@ -1,12 +1,12 @@
 """Format versions of the project document and the chain that upgrades old files.
 
 Every project file carries an integer ``version``. This release writes
-:data:`~thermo.project.schema.FORMAT_VERSION` and reads every version from 1 up to it: a file of
+:data:`~stagewright.core.project.schema.FORMAT_VERSION` and reads every version from 1 up to it: a file of
 version *n* is passed through the registered steps *n → n+1 → …* until it is current,
-then validated against :mod:`thermo.project.schema`. A file of a newer version than this release
+then validated against :mod:`stagewright.core.project.schema`. A file of a newer version than this release
 knows is refused, and nothing is written.
 
-Versions: 1, the first; 3 adds cases and a results snapshot (:mod:`thermo.project.cases`); 2 lets the delivery pressure be stated gauge
+Versions: 1, the first; 3 adds cases and a results snapshot (:mod:`stagewright.core.project.cases`); 2 lets the delivery pressure be stated gauge
 (``discharge_gauge_pressure_Pa``, relative to the site's barometric pressure) as an alternative
 to ``discharge_pressure_Pa`` (absolute, unchanged), exactly one of the two. Whoever changes the meaning of a
 key, renames or removes one, or adds a required key bumps ``FORMAT_VERSION`` and registers
@@ -26,8 +26,8 @@ import copy
 import math
 from typing import Callable
 
-from thermo.project import schema
-from thermo.errors import ProjectFileError
+from stagewright.core.project import schema
+from stagewright.core.errors import ProjectFileError
 
 #: from-version → function turning a document of that version into the next version's
 STEPS: dict[int, Callable[[dict], dict]] = {}
@@ -57,7 +57,7 @@ def file_version(doc: dict) -> int:
     """The format version a document declares.
 
     A missing ``version`` means version 1: the only version in which leaving it out was
-    ever allowed (files written by :func:`thermo.project.save` always carry it).
+    ever allowed (files written by :func:`stagewright.core.project.save` always carry it).
 
     Raises
     ------

@@ -6,7 +6,7 @@ size limit checked before the bytes are read, a nesting-depth limit checked befo
 parser runs (so a hostile file cannot exhaust the recursion stack), duplicate keys
 refused (JSON allows them; silently keeping the last one loses data), and very long
 integer literals read as floats instead of tripping Python's digit limit. Every
-rejection is a :class:`~thermo.errors.ProjectFileError` naming a position (line and
+rejection is a :class:`~stagewright.core.errors.ProjectFileError` naming a position (line and
 column) or a field path.
 """
 from __future__ import annotations
@@ -20,7 +20,7 @@ import stat
 from pathlib import Path
 from typing import Any
 
-from thermo.errors import ProjectFileError
+from stagewright.core.errors import ProjectFileError
 
 #: Largest project file read, [bytes]. The largest document the schema allows (an hourly
 #: year profile of 8784 labelled bins, 12 stages with the longest names, all text in 4-byte
@@ -140,7 +140,7 @@ def parse_bytes(data: bytes) -> Any:
     >>> parse_bytes(b'{"title": "x",}')
     Traceback (most recent call last):
     ...
-    thermo.errors.ProjectFileError: line 1, column 15: broken JSON (Expecting property name enclosed in double quotes)
+    stagewright.core.errors.ProjectFileError: line 1, column 15: broken JSON (Expecting property name enclosed in double quotes)
     """
     if len(data) > MAX_FILE_BYTES:
         raise ProjectFileError(f"file is larger than {MAX_FILE_BYTES} bytes; not a project file")

@@ -9,7 +9,7 @@ __all__ = ["parse_path", "get_path", "set_path", "parent_at"]
 
 import re
 
-from thermo.errors import InputError
+from stagewright.core.errors import InputError
 
 _TOKEN = re.compile(r"([A-Za-z_][A-Za-z0-9_]*)|\[(\d+)\]")
 

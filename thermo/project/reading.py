@@ -10,16 +10,16 @@ __all__ = ["load", "loads", "load_with_problems", "read_document", "accept", "re
 from pathlib import Path
 from typing import Any
 
-from thermo.project import schema
-from thermo.project.validation import problems
-from thermo.errors import InputError, ProjectFileError, StagewrightError, shown_value
-from thermo.project.migrate import migrate
-from thermo.project.parse import parse_bytes, read_limited
+from stagewright.core.project import schema
+from stagewright.core.project.validation import problems
+from stagewright.core.errors import InputError, ProjectFileError, StagewrightError, shown_value
+from stagewright.core.project.migrate import migrate
+from stagewright.core.project.parse import parse_bytes, read_limited
 
 
 def _list_limits() -> tuple[dict, int]:
     """Item limit of each top-level list of the schema, and the largest limit of any list."""
-    from thermo.project.schema_types import Items, walk
+    from stagewright.core.project.schema_types import Items, walk
     top = {k: n.max_length for k, n in schema.PROJECT.fields.items() if isinstance(n, Items)}
     return top, max(n.max_length for _, n in walk(schema.PROJECT) if isinstance(n, Items))
 
@@ -115,7 +115,7 @@ def load(path) -> dict:
     -------
     dict
         The document as written in the file (defaults are not filled in; use
-        :func:`thermo.project.validation.normalise` for that), upgraded to the current format
+        :func:`stagewright.core.project.validation.normalise` for that), upgraded to the current format
         version, with ``format`` and ``version`` set. ``load → save → load`` gives an
         identical document.
 

@@ -10,8 +10,8 @@ __all__ = ["FORMAT_NAME", "FORMAT_VERSION", "PROJECT", "STAGE", "COOLER", "EFFIC
            "FLOW_KINDS", "MODEL_NAMES", "COOLANT", "COOLANT_KINDS", "ARRANGEMENT_NAMES",
            "HEAT_RECOVERY", "YEAR", "YEAR_COOLERS", "CASE", "SNAPSHOT", "FIELD_CHECK", "CONTROL_KINDS", "PACKAGE"]
 
-from thermo.project.case_changes import CHANGEABLE_KEYS
-from thermo.project.schema_types import Changes, Choice, Items, Num, Obj, Raw, Text, Variant
+from stagewright.core.project.case_changes import CHANGEABLE_KEYS
+from stagewright.core.project.schema_types import Changes, Choice, Items, Num, Obj, Raw, Text, Variant
 
 FORMAT_NAME = "stagewright-project"
 FORMAT_VERSION = 3  #: 2: the delivery pressure may be stated gauge; 3: cases and a results snapshot
@@ -31,7 +31,7 @@ EFFICIENCY = Variant(required=True, variants={
 })
 
 COOLANT_KINDS = ("water", "glycol", "air")
-#: exchanger arrangements (thermo.exchanger.effectiveness.ARRANGEMENTS holds their relations)
+#: exchanger arrangements (stagewright.core.exchanger.effectiveness.ARRANGEMENTS holds their relations)
 ARRANGEMENT_NAMES = ("counter_flow", "cross_flow_unmixed", "cross_flow_hot_mixed", "shell_and_tube_1_2")
 
 #: the coolant side of a cooler: kind, and either its flow or its temperature rise
@@ -86,7 +86,7 @@ _AMBIENT_ENTRY = {
 }
 
 #: how a year treats the coolers: sized afresh in every bin, or sized once and rated at fixed UA
-#: (thermo.year_design; the default margin 0.10 is common practice, no source)
+#: (stagewright.core.year_design; the default margin 0.10 is common practice, no source)
 YEAR_COOLERS = Obj(default={"mode": "size_every_bin"}, fields={
     "mode": Choice(("size_every_bin", "design_once"), default="size_every_bin"),
     "design_condition": Choice(("site", "hottest_bin"), default="site"),
@@ -111,7 +111,7 @@ YEAR = Obj(nullable=True, default=None, fields={
     "coolers": YEAR_COOLERS,
 })
 
-#: capacity control of the package (thermo.part_load). A receiver and pressure band set the
+#: capacity control of the package (stagewright.core.part_load). A receiver and pressure band set the
 #: cycles of the controls that stop delivering air (ideal gas, isothermal receiver). Defaults
 #: without a published source are marked in thermo/part_load/defaults.py.
 _STORAGE = {
@@ -160,14 +160,14 @@ PACKAGE = Obj(nullable=True, default=None, fields={
                           max_length=100, default=[]),
 })
 
-#: a named case: the base design with some fields changed (thermo.project.case_changes)
+#: a named case: the base design with some fields changed (stagewright.core.project.case_changes)
 CASE = Obj(fields={
     "name": Text(required=True, max_length=80),
     "note": Text(default="", max_length=1000),
     "changes": Changes(roots=CHANGEABLE_KEYS, required=True),
 })
 
-#: the results as last saved, with the versions that computed them (thermo.cases.snapshot)
+#: the results as last saved, with the versions that computed them (stagewright.core.cases.snapshot)
 SNAPSHOT = Obj(nullable=True, default=None, fields={
     "stagewright_version": Text(required=True, max_length=40),
     "coolprop_version": Text(required=True, max_length=40),
@@ -175,7 +175,7 @@ SNAPSHOT = Obj(nullable=True, default=None, fields={
     "results": Raw(required=True),
 })
 
-#: a field check's measurement uncertainties and guaranteed figures (thermo.uncertainty); optional.
+#: a field check's measurement uncertainties and guaranteed figures (stagewright.core.uncertainty); optional.
 #: Each uncertainty names a measured input by its field path and is in that input's SI unit.
 _NAMED_INPUT = {"input": Text(required=True, max_length=200)}
 _GUARANTEED = {"figure": Text(required=True, max_length=200),
@@ -201,7 +201,7 @@ FIELD_CHECK = Obj(nullable=True, default=None, fields={
     "seed": Num(0, 2**32 - 1, integer=True, default=1),
 })
 
-#: the delivery pressure: stated absolute or gauge (thermo.project.delivery), exactly one
+#: the delivery pressure: stated absolute or gauge (stagewright.core.project.delivery), exactly one
 PROJECT = Obj(one_of=(("discharge_pressure_Pa", "discharge_gauge_pressure_Pa"),), fields={
     "format": Choice((FORMAT_NAME,), default=FORMAT_NAME),
     "version": Num(1, FORMAT_VERSION, integer=True, default=FORMAT_VERSION),
@@ -238,7 +238,7 @@ PROJECT = Obj(one_of=(("discharge_pressure_Pa", "discharge_gauge_pressure_Pa"),)
     "year": YEAR,
     "field_check": FIELD_CHECK,
     "package": PACKAGE,
-    # version 3: options as cases of one project (thermo.project.cases) and the results last saved
+    # version 3: options as cases of one project (stagewright.core.project.cases) and the results last saved
     "base_name": Text(default="Base", max_length=80),
     "cases": Items(CASE, max_length=50, default=[]),
     "snapshot": SNAPSHOT,

@@ -3,7 +3,7 @@
 A schema is a tree of :class:`Num`, :class:`Choice`, :class:`Text`, :class:`Obj`,
 :class:`Variant` and :class:`Items`. :func:`check` walks a document against it and
 returns the normalised document (defaults filled in) and a list of
-:class:`~thermo.errors.Problem`, each naming the field path, the value and what is
+:class:`~stagewright.core.errors.Problem`, each naming the field path, the value and what is
 allowed. It never raises on bad data and never evaluates anything.
 """
 from __future__ import annotations
@@ -15,7 +15,7 @@ import math
 from dataclasses import dataclass, field
 from typing import Any
 
-from thermo.errors import Problem
+from stagewright.core.errors import Problem
 
 MISSING = object()
 
@@ -171,8 +171,8 @@ def _check_fields(fields: dict, v: dict, path: str, out: list, skip=()) -> dict:
 
 
 def _check_changes(schema: Changes, value: Any, path: str, out: list) -> dict:
-    from thermo.errors import InputError
-    from thermo.project.paths import parse_path
+    from stagewright.core.errors import InputError
+    from stagewright.core.project.paths import parse_path
 
     if not isinstance(value, dict):
         out.append(Problem(path, value, "expected an object of field paths and their values"))

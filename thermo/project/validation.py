@@ -2,7 +2,7 @@
 
 :func:`problems` lists everything wrong with a document (never raises on bad data);
 :func:`normalise` returns the document with every default filled in, or raises
-:class:`~thermo.errors.InputError` naming the first problem; :func:`resolve_site` works out
+:class:`~stagewright.core.errors.InputError` naming the first problem; :func:`resolve_site` works out
 what the solver needs of the site once, at this boundary: the barometric pressure (given,
 or from the elevation by ISO 2533, or sea level) and the one humidity input of the intake
 air (:class:`ResolvedSite`). Nothing below the boundary derives them again.
@@ -16,14 +16,14 @@ from collections.abc import Mapping
 from dataclasses import dataclass
 from typing import Any
 
-from thermo.atmosphere import SEA_LEVEL_PRESSURE, standard_pressure
-from thermo.errors import InputError, Problem, message_detail, quantity
-from thermo.project.case_changes import apply_changes
-from thermo.project.delivery import ABSOLUTE_KEY, delivery_pressure, stated_delivery
-from thermo.project.schema import PROJECT
-from thermo.project.schema_types import check
-from thermo.year_profile import year_problems
-from thermo.uncertainty.inputs import field_check_problems
+from stagewright.core.atmosphere import SEA_LEVEL_PRESSURE, standard_pressure
+from stagewright.core.errors import InputError, Problem, message_detail, quantity
+from stagewright.core.project.case_changes import apply_changes
+from stagewright.core.project.delivery import ABSOLUTE_KEY, delivery_pressure, stated_delivery
+from stagewright.core.project.schema import PROJECT
+from stagewright.core.project.schema_types import check
+from stagewright.core.year_profile import year_problems
+from stagewright.core.uncertainty.inputs import field_check_problems
 
 #: the site's ways of giving the intake humidity (the document allows at most one)
 HUMIDITY_KEYS = ("relative_humidity", "dew_point_K", "humidity_ratio")
@@ -90,7 +90,7 @@ def barometric_pressure(site: Any) -> float:
     -------
     float
         ``barometric_pressure_Pa`` when it is a positive number; else the ISO 2533 standard
-        pressure at ``elevation_m`` (:func:`thermo.atmosphere.standard_pressure`); else the
+        pressure at ``elevation_m`` (:func:`stagewright.core.atmosphere.standard_pressure`); else the
         standard sea-level pressure, 101 325 Pa, [Pa].
 
     Notes
@@ -138,7 +138,7 @@ class ResolvedSite:
     """The site and intake filter of a valid project, worked out once (SI units).
 
     Built by :func:`resolve_site` at the boundary and passed down to the solver
-    (:class:`thermo.context.SolveContext`); hashable, so that it can key the caches of
+    (:class:`stagewright.core.context.SolveContext`); hashable, so that it can key the caches of
     intake states that sweeps and studies share across solves.
 
     Attributes
@@ -152,7 +152,7 @@ class ResolvedSite:
         ``("dew_point_K", T_d [K])`` or ``("humidity_ratio", W [kg/kg])``; None for a dry
         intake (no humidity given, or zero). The intake humidity ratio itself follows from
         it and the property model's saturation law, once per solve
-        (:class:`thermo.context.IntakeState`).
+        (:class:`stagewright.core.context.IntakeState`).
     relative_humidity : float
         The document's ``site.relative_humidity``, [-] (0 when the humidity is given
         otherwise).
@@ -290,7 +290,7 @@ def _delivery_checks(norm: dict, p0: float, p1: float) -> list[Problem]:
 
 
 def _coolant_checks(cooler: dict | None, where: str) -> list[Problem]:
-    """Cross-checks of a cooler's coolant side (thermo.exchanger)."""
+    """Cross-checks of a cooler's coolant side (stagewright.core.exchanger)."""
     if not cooler:
         return []
     out = []
@@ -315,7 +315,7 @@ def _humidity_checks(raw_site: dict, norm: dict) -> list[Problem]:
     """Moist intake: one humidity input, a dew (or frost) point not above ambient.
 
     Intake air below 0 °C is in scope down to the schema's 223.15 K (relative humidity relative
-    to liquid water, a dew point below 0.01 °C a frost point; :mod:`thermo.moist.stream`), and
+    to liquid water, a dew point below 0.01 °C a frost point; :mod:`stagewright.core.moist.stream`), and
     a cooler outlet below 0 °C is a caution of the solve (frozen condensate), not an input
     problem."""
     out = []

@@ -1,7 +1,7 @@
 """Write project files so that no failure can lose the last good file.
 
 :func:`dumps` gives the on-disk text: UTF-8 JSON, two-space indent, keys in the order of
-:mod:`thermo.project.schema` (``format`` and ``version`` first, a variant's ``kind`` first), so
+:mod:`stagewright.core.project.schema` (``format`` and ``version`` first, a variant's ``kind`` first), so
 that files read well and diff well under version control.
 
 :func:`atomic_write` writes a temporary file in the destination's folder, flushes and
@@ -31,10 +31,10 @@ import time
 from pathlib import Path
 from typing import Any
 
-from thermo.project import schema
-from thermo.errors import InputError, SaveError
-from thermo.project.schema_types import Items, Obj, Variant
-from thermo.project.parse import MAX_FILE_BYTES
+from stagewright.core.project import schema
+from stagewright.core.errors import InputError, SaveError
+from stagewright.core.project.schema_types import Items, Obj, Variant
+from stagewright.core.project.parse import MAX_FILE_BYTES
 
 
 def backup_path(path) -> Path:
@@ -292,8 +292,8 @@ def save(doc: dict, path) -> None:
 
     The file is written with ``format`` and ``version`` set. A document with validation
     problems (a value out of range, a missing key) is written as it is — the window asks
-    the user first — and :func:`thermo.project.load` will name those problems when it is
-    read; :func:`thermo.project.load_with_problems` opens it anyway.
+    the user first — and :func:`stagewright.core.project.load` will name those problems when it is
+    read; :func:`stagewright.core.project.load_with_problems` opens it anyway.
 
     Parameters
     ----------
@@ -316,7 +316,7 @@ def save(doc: dict, path) -> None:
     if doc.get("version", schema.FORMAT_VERSION) != schema.FORMAT_VERSION:
         raise InputError("version", doc.get("version"),
                          f"expected {schema.FORMAT_VERSION}: save writes current-version documents "
-                         "(thermo.project.migrate upgrades older ones)")
+                         "(stagewright.core.project.migrate upgrades older ones)")
     if doc.get("format", schema.FORMAT_NAME) != schema.FORMAT_NAME:
         raise InputError("format", doc.get("format"), f"expected {schema.FORMAT_NAME!r}")
     full = {"format": schema.FORMAT_NAME, "version": schema.FORMAT_VERSION, **doc}

@@ -8,11 +8,11 @@ import math
 from dataclasses import dataclass, field
 from typing import Any, Callable
 
-from thermo.errors import InputError
-from thermo.study.optimal_split import SplitResult, split_prepared
-from thermo.study.options import check_stage_count, staging_note, staging_stages
-from thermo.study.prepare import prepare
-from thermo.study.progress import ProgressSpan, StudyCancelled, cancel_check
+from stagewright.core.errors import InputError
+from stagewright.core.study.optimal_split import SplitResult, split_prepared
+from stagewright.core.study.options import check_stage_count, staging_note, staging_stages
+from stagewright.core.study.prepare import prepare
+from stagewright.core.study.progress import ProgressSpan, StudyCancelled, cancel_check
 
 #: Operating hours per year used for the yearly saving unless given (two shifts and
 #: weekends, close to continuous; common practice, no source).
@@ -157,9 +157,9 @@ def compare_stagings(doc: dict, max_stages: int = 4, *, operating_hours_per_year
 
     An N-stage option repeats the project's first stage N times (its efficiency,
     mechanical efficiency, casing heat loss, exit velocity, limits and intercooler) and
-    keeps the project's last-stage cooler as aftercooler (:func:`~thermo.study.options.staging_stages`);
+    keeps the project's last-stage cooler as aftercooler (:func:`~stagewright.core.study.options.staging_stages`);
     the comparison's ``note`` says so. Each option is optimised by
-    :func:`~thermo.study.optimal_split.optimal_split` without raising: an option whose
+    :func:`~stagewright.core.study.optimal_split.optimal_split` without raising: an option whose
     limits cannot be met is kept with ``feasible=False`` and its violated limits.
 
     The saving of an option is against the fewest-stage option that meets its limits:

@@ -8,7 +8,7 @@ Three kinds of limit act on a split:
 * the cooler after a stage, which can only cool: the stage must discharge at least as hot
   as the cooler's outlet temperature (the core's cooler rejects anything else).
 
-The temperature kinds need a train solve and are handled by :mod:`thermo.study.optimal_split`;
+The temperature kinds need a train solve and are handled by :mod:`stagewright.core.study.optimal_split`;
 this module holds the shared types and the pressure-arithmetic checks.
 """
 from __future__ import annotations
@@ -20,8 +20,8 @@ import math
 from dataclasses import dataclass
 
 
-from thermo.errors import InputError
-from thermo.split import delivered_pressure
+from stagewright.core.errors import InputError
+from stagewright.core.split import delivered_pressure
 
 #: Smallest ratio the study gives a stage: a numerical floor (a stage at ratio 1 does
 #: nothing and its polytropic exponent is undefined), not an engineering limit.
@@ -58,7 +58,7 @@ class BindingLimit:
         One line for people (SI).
     detail : dict or None
         Where the limit is a solve that failed: that error's template and values
-        (:func:`thermo.errors.message_detail`), for display units.
+        (:func:`stagewright.core.errors.message_detail`), for display units.
     """
 
     field: str
@@ -124,7 +124,7 @@ def implied_ratio(p_in: float, p_delivery: float, ratios: list[float], drops: li
     r"""Ratio of stage ``k`` that makes the train deliver ``p_delivery`` exactly, [-].
 
     The delivered pressure is affine in any one stage ratio,
-    :math:`p_d(r_k) = A r_k + B` (see :func:`thermo.split.delivered_pressure`), so
+    :math:`p_d(r_k) = A r_k + B` (see :func:`stagewright.core.split.delivered_pressure`), so
     :math:`r_k = (p_d - B)/A` with :math:`B = p_d(0)`, :math:`A = p_d(1) - B`.
 
     Returns NaN when no positive ratio does it (an upstream pressure below zero).

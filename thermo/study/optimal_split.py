@@ -9,19 +9,19 @@ from typing import Any, Callable
 
 import numpy as np
 
-from thermo.project.delivery import delivery_pressure
-from thermo.project.validation import resolve_site
-from thermo.results import TrainResult
-from thermo.solve import model_for, solve
-from thermo.study.limits import (BindingLimit, LimitNotMet, RatioBounds, implied_ratio, pressure_reach_problems,
+from stagewright.core.project.delivery import delivery_pressure
+from stagewright.core.project.validation import resolve_site
+from stagewright.core.results import TrainResult
+from stagewright.core.solve import model_for, solve
+from stagewright.core.study.limits import (BindingLimit, LimitNotMet, RatioBounds, implied_ratio, pressure_reach_problems,
                      ratio_bounds)
-from thermo.study.prepare import Prepared, prepare
-from thermo.study.progress import cancel_check
-from thermo.study.start import equal_split, ideal_gas_split
-from thermo.study.trials import SoftLimit, Trial, TrialSolver, soft_limits
+from stagewright.core.study.prepare import Prepared, prepare
+from stagewright.core.study.progress import cancel_check
+from stagewright.core.study.start import equal_split, ideal_gas_split
+from stagewright.core.study.trials import SoftLimit, Trial, TrialSolver, soft_limits
 
 METHOD = ("SLSQP (scipy.optimize) on the logarithms of the stage ratios; the last free stage's "
-          "ratio follows from the discharge pressure (thermo.split.delivered_pressure), so it is "
+          "ratio follows from the discharge pressure (stagewright.core.split.delivered_pressure), so it is "
           "met exactly; forward-difference gradients of lean train solves; started from the "
           "better of the equal split and the ideal-gas optimum")
 
@@ -102,7 +102,7 @@ def optimal_split(doc: dict, *, strict: bool = True, cancel: Any = None) -> Spli
     doc : dict
         Project document.
     strict : bool
-        True: raise :class:`~thermo.study.limits.LimitNotMet` when no split meets the
+        True: raise :class:`~stagewright.core.study.limits.LimitNotMet` when no split meets the
         limits. False: return the closest split with ``feasible=False`` instead.
     cancel : None, threading.Event or callable
         Checked before every trial solve.
@@ -124,12 +124,12 @@ def optimal_split(doc: dict, *, strict: bool = True, cancel: Any = None) -> Spli
     -----
     Variables are :math:`x_j = \ln r_j` of the free stages but the last; that stage's
     ratio follows from the discharge pressure, which is affine in any one ratio
-    (:func:`~thermo.study.limits.implied_ratio`), and its bounds become two explicit
+    (:func:`~stagewright.core.study.limits.implied_ratio`), and its bounds become two explicit
     constraints. Stages with min = max are held. Phases:
 
     1. the ratio bounds are checked against the discharge pressure (pressure arithmetic);
-    2. the start is the better of the equal split (:func:`thermo.split.stage_pressure_ratios`)
-       and the ideal-gas optimum (:func:`~thermo.study.start.ideal_gas_split`), both
+    2. the start is the better of the equal split (:func:`stagewright.core.split.stage_pressure_ratios`)
+       and the ideal-gas optimum (:func:`~stagewright.core.study.start.ideal_gas_split`), both
        clipped to the bounds;
     3. if the start breaks a temperature limit, SLSQP first minimises the worst
        violation (a minimax in an extra variable); if that stays positive the limits

@@ -5,7 +5,7 @@ __all__ = ["MAX_STAGES", "staging_stages", "staging_note", "check_stage_count"]
 
 import copy
 
-from thermo.errors import InputError
+from stagewright.core.errors import InputError
 
 #: Most stages a comparison builds.
 MAX_STAGES = 8

@@ -6,8 +6,8 @@ __all__ = ["Prepared", "prepare"]
 import copy
 from dataclasses import dataclass, field
 
-from thermo.project.validation import normalise
-from thermo.solve import solve
+from stagewright.core.project.validation import normalise
+from stagewright.core.solve import solve
 
 
 @dataclass

@@ -5,7 +5,7 @@ __all__ = ["StudyCancelled", "cancel_check", "ProgressSpan"]
 
 from typing import Any, Callable
 
-from thermo.errors import StagewrightError
+from stagewright.core.errors import StagewrightError
 
 
 class StudyCancelled(StagewrightError):

@@ -7,12 +7,12 @@ import copy
 from dataclasses import dataclass
 from typing import Any, Callable
 
-from thermo.project.validation import normalise
-from thermo.errors import InputError, StagewrightError
-from thermo.study.compare import (DEFAULT_ENERGY_PRICE, DEFAULT_OPERATING_HOURS, StagingComparison, check_economics,
+from stagewright.core.project.validation import normalise
+from stagewright.core.errors import InputError, StagewrightError
+from stagewright.core.study.compare import (DEFAULT_ENERGY_PRICE, DEFAULT_OPERATING_HOURS, StagingComparison, check_economics,
                       compare_stagings)
-from thermo.study.options import check_stage_count
-from thermo.study.progress import ProgressSpan, StudyCancelled, cancel_check
+from stagewright.core.study.options import check_stage_count
+from stagewright.core.study.progress import ProgressSpan, StudyCancelled, cancel_check
 
 #: site variable -> (section, key) of the project document it sets
 SITE_VARIABLES = {
@@ -56,7 +56,7 @@ def sensitivity(doc: dict, variable: str, values: list[float], max_stages: int =
                 operating_hours_per_year: float = DEFAULT_OPERATING_HOURS,
                 energy_price_per_kWh: float = DEFAULT_ENERGY_PRICE,
                 progress: Callable[[float, str], Any] | None = None, cancel: Any = None) -> SensitivityStudy:
-    """Run :func:`~thermo.study.compare.compare_stagings` at each value of one site variable.
+    """Run :func:`~stagewright.core.study.compare.compare_stagings` at each value of one site variable.
 
     Everything else in the project stays as it is; in particular coolers keep their
     outlet temperatures (or coolant temperature and approach), so a hot day changes
@@ -72,7 +72,7 @@ def sensitivity(doc: dict, variable: str, values: list[float], max_stages: int =
     values : list of float
         Values of the variable, in its SI unit, 1 … 50 of them.
     max_stages, operating_hours_per_year, energy_price_per_kWh, progress, cancel
-        As for :func:`~thermo.study.compare.compare_stagings`.
+        As for :func:`~stagewright.core.study.compare.compare_stagings`.
 
     Returns
     -------

@@ -7,14 +7,14 @@ import math
 from typing import Callable
 
 
-from thermo.cooler import cooler_outlet_temperature
-from thermo.project.delivery import delivery_pressure
-from thermo.project.validation import ResolvedSite, resolve_site
-from thermo.errors import InputError
-from thermo.flow import mass_flow_from
-from thermo.models.base import PropertyModel
-from thermo.split import delivered_pressure, stage_pressure_ratios
-from thermo.study.limits import RATIO_CAP, RatioBounds
+from stagewright.core.cooler import cooler_outlet_temperature
+from stagewright.core.project.delivery import delivery_pressure
+from stagewright.core.project.validation import ResolvedSite, resolve_site
+from stagewright.core.errors import InputError
+from stagewright.core.flow import mass_flow_from
+from stagewright.core.models.base import PropertyModel
+from stagewright.core.split import delivered_pressure, stage_pressure_ratios
+from stagewright.core.study.limits import RATIO_CAP, RatioBounds
 
 
 def brentq(*args, **kwargs):
@@ -42,14 +42,14 @@ def _meeting(p_in: float, p_delivery: float, drops: list[float], lo: list[float]
 
 
 def equal_split(p_in: float, p_delivery: float, drops: list[float], bounds: RatioBounds) -> list[float] | None:
-    """The equal split of :func:`thermo.split.stage_pressure_ratios`, clipped to the bounds.
+    """The equal split of :func:`stagewright.core.split.stage_pressure_ratios`, clipped to the bounds.
 
     Stages whose bound the equal ratio crosses sit at that bound and the others share
     one ratio that still meets the delivery pressure; None when the bounds cannot.
 
     Examples
     --------
-    >>> from thermo.study.limits import RatioBounds
+    >>> from stagewright.core.study.limits import RatioBounds
     >>> b = RatioBounds((1.001, 1.001), (2.0, 40.0), (False, False), (True, False))
     >>> [round(r, 9) for r in equal_split(1e5, 9e5, [0.0, 0.0], b)]
     [2.0, 4.5]
@@ -117,7 +117,7 @@ def ideal_gas_split(doc: dict, model: PropertyModel, p_in: float, bounds: RatioB
         Also keep each stage below its discharge-temperature limit where that is possible.
     site : ResolvedSite, optional
         The document's resolved site (ambient temperature [K], barometric pressure [Pa]);
-        by default :func:`thermo.project.validation.resolve_site` of ``doc``.
+        by default :func:`stagewright.core.project.validation.resolve_site` of ``doc``.
 
     Returns
     -------

@@ -7,12 +7,12 @@ import math
 from dataclasses import dataclass
 from typing import Callable
 
-from thermo.cooler import cooler_outlet_temperature, outlet_field
-from thermo.errors import InputError, StagewrightError
-from thermo.results import TrainResult
-from thermo.project.schema import STAGE
-from thermo.solve import solve_normalised
-from thermo.study.progress import StudyCancelled
+from stagewright.core.cooler import cooler_outlet_temperature, outlet_field
+from stagewright.core.errors import InputError, StagewrightError
+from stagewright.core.results import TrainResult
+from stagewright.core.project.schema import STAGE
+from stagewright.core.solve import solve_normalised
+from stagewright.core.study.progress import StudyCancelled
 
 
 @dataclass(frozen=True)
@@ -79,7 +79,7 @@ class TrialSolver:
     Parameters
     ----------
     doc : dict
-        Normalised design document (:class:`thermo.study.prepare.Prepared`).
+        Normalised design document (:class:`stagewright.core.study.prepare.Prepared`).
     limits : list of SoftLimit
         The temperature limits to evaluate on each trial.
     should_stop : callable
@@ -95,7 +95,7 @@ class TrialSolver:
     is normalised once; a trial changes only the stage ratios, so only they are checked
     against the schema. Trials share their stage results: a trial that changes the ratio
     of stage j takes stages before j from an earlier trial (``reuse`` of
-    :func:`thermo.solve.solve_normalised`; the same inputs give the same results).
+    :func:`stagewright.core.solve.solve_normalised`; the same inputs give the same results).
     """
 
     def __init__(self, doc: dict, limits: list[SoftLimit], should_stop: Callable[[], bool]):

@@ -2,9 +2,9 @@
 
 :func:`field_check_uncertainty` reads the measured inputs' uncertainties from the project's
 ``field_check`` section, propagates them through the solve to first order (the GUM,
-:mod:`thermo.uncertainty.linear`) and, when asked, by Monte Carlo (JCGM 101,
-:mod:`thermo.uncertainty.monte_carlo`), names the largest contributors, and judges the
-guaranteed figures (:mod:`thermo.uncertainty.verdict`).
+:mod:`stagewright.core.uncertainty.linear`) and, when asked, by Monte Carlo (JCGM 101,
+:mod:`stagewright.core.uncertainty.monte_carlo`), names the largest contributors, and judges the
+guaranteed figures (:mod:`stagewright.core.uncertainty.verdict`).
 """
 from __future__ import annotations
 
@@ -15,13 +15,13 @@ from dataclasses import dataclass, field
 
 import numpy as np
 
-from thermo.project.validation import normalise
-from thermo.uncertainty.figures import ResultFigure, result_figures
-from thermo.uncertainty.inputs import MeasuredInput, measured_inputs
-from thermo.uncertainty.linear import COVERAGE_FACTOR, LinearPropagation, propagate_linear
-from thermo.uncertainty.measurement_model import MeasurementModel
-from thermo.uncertainty.monte_carlo import MonteCarloCancelled, MonteCarloResult, propagate_monte_carlo
-from thermo.uncertainty.verdict import DECISION_RULE, ISO1217_SOURCE, Verdict, judge
+from stagewright.core.project.validation import normalise
+from stagewright.core.uncertainty.figures import ResultFigure, result_figures
+from stagewright.core.uncertainty.inputs import MeasuredInput, measured_inputs
+from stagewright.core.uncertainty.linear import COVERAGE_FACTOR, LinearPropagation, propagate_linear
+from stagewright.core.uncertainty.measurement_model import MeasurementModel
+from stagewright.core.uncertainty.monte_carlo import MonteCarloCancelled, MonteCarloResult, propagate_monte_carlo
+from stagewright.core.uncertainty.verdict import DECISION_RULE, ISO1217_SOURCE, Verdict, judge
 
 
 def has_field_check(doc: dict) -> bool:
@@ -152,7 +152,7 @@ def field_check_uncertainty(doc: dict, *, monte_carlo: bool = True, draws: int |
     StagewrightError
         If the solve fails at the measured values.
     """
-    from thermo.errors import InputError
+    from stagewright.core.errors import InputError
     norm = normalise(doc)
     inputs = measured_inputs(norm)
     if not inputs:

@@ -21,9 +21,9 @@ import math
 import re
 from dataclasses import dataclass
 
-from thermo.errors import InputError, Problem
-from thermo.project.paths import get_path, parse_path
-from thermo.uncertainty.figures import result_figures
+from stagewright.core.errors import InputError, Problem
+from stagewright.core.project.paths import get_path, parse_path
+from stagewright.core.uncertainty.figures import result_figures
 
 #: field path pattern → (label with {n} for the stage number, display quantity)
 MEASURABLE = (
@@ -144,8 +144,8 @@ def _standard(entry: dict, value: float) -> tuple[float, str, float | None, str]
 
 def _range(norm: dict, path: str) -> tuple[float, float]:
     """Valid range of the input at ``path`` from the project schema (open bounds nudged inward)."""
-    from thermo.project.schema import PROJECT
-    from thermo.project.schema_types import Variant
+    from stagewright.core.project.schema import PROJECT
+    from stagewright.core.project.schema_types import Variant
     node, doc = PROJECT, norm
     for part in parse_path(path):
         if isinstance(part, int):

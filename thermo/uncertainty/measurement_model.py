@@ -1,7 +1,7 @@
 """The solve as a measurement model: measured input values in, result figures out.
 
 JCGM 100:2008 §4.1 writes a measurement as :math:`Y = f(X_1, \\dots, X_N)`; here :math:`f` is
-the train solve itself (:func:`thermo.solve.solve_normalised`), lean (``detail=False``: the
+the train solve itself (:func:`stagewright.core.solve.solve_normalised`), lean (``detail=False``: the
 same powers, states and totals without the reporting-only work) and on the fast property path,
 so that the same function serves the finite differences of the first-order propagation and
 every Monte Carlo draw.
@@ -14,11 +14,11 @@ import copy
 
 import numpy as np
 
-from thermo.errors import InputError
-from thermo.project.paths import parse_path
-from thermo.solve import solve_normalised
-from thermo.uncertainty.figures import ResultFigure, figure_values
-from thermo.uncertainty.inputs import MeasuredInput
+from stagewright.core.errors import InputError
+from stagewright.core.project.paths import parse_path
+from stagewright.core.solve import solve_normalised
+from stagewright.core.uncertainty.figures import ResultFigure, figure_values
+from stagewright.core.uncertainty.inputs import MeasuredInput
 
 
 class MeasurementModel:

@@ -25,8 +25,8 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from thermo.errors import StagewrightError
-from thermo.process_pool import pool_context
+from stagewright.core.errors import StagewrightError
+from stagewright.core.process_pool import pool_context
 
 COVERAGE_PROBABILITY = math.erf(2.0 / math.sqrt(2.0))  #: 0.9545: ±2 σ of a Gaussian
 _CHUNK = 250
