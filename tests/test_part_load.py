@@ -198,8 +198,15 @@ def test_case_may_change_the_control():
     assert norm["package"]["control"]["kind"] == "load_unload"
 
 
-def _year_doc(package: dict | None) -> dict:
+def _plain_sample() -> dict:
+    """The plant-air sample without its package section."""
     doc = json.loads((SAMPLES / "two_stage_plant_air.json").read_text())
+    doc.pop("package", None)
+    return doc
+
+
+def _year_doc(package: dict | None) -> dict:
+    doc = _plain_sample()
     doc["year"] = {"profile": {"kind": "bins", "bins": [
         {"temperature_K": 278.15, "relative_humidity": 0.7, "hours": 2000.0, "load": 0.5},
         {"temperature_K": 298.15, "relative_humidity": 0.5, "hours": 3000.0, "load": 0.8},
@@ -246,7 +253,7 @@ def test_study_options_carry_the_package_year():
         assert row["package_annual_cost"] == pytest.approx(0.2 * want, rel=1e-12)
         # 2000 h of the profile at full load draw the option's own driver power
         assert want > row["driver_power_W"] * 2000.0 / 1000.0
-    plain = compare_stagings(json.loads((SAMPLES / "two_stage_plant_air.json").read_text()), 1).rows()[0]
+    plain = compare_stagings(_plain_sample(), 1).rows()[0]
     assert plain["package_annual_energy_kWh"] is None
 
 
@@ -261,3 +268,14 @@ def test_compare_table_reads_package_figures():
     assert by_key["package.at_load.package_power_W"].value(row) == pkg["at_load"]["package_power_W"]
     text = by_key["package.at_load.package_specific_power_J_m3"].text(row, "text", "SI")
     assert float(text.split()[0]) == pytest.approx(pkg["at_load"]["package_specific_power_J_m3"] / 60_000.0, abs=1e-3)
+
+
+def test_short_cycling_is_a_warning_at_the_stated_load():
+    """More than 60 cycles an hour at the stated load (common practice, no source) is a result
+    warning on the receiver; a receiver large enough is not."""
+    doc = _plain_sample()
+    doc["package"] = {"control": {**CONTROLS["load_unload"], "receiver_volume_m3": 0.5}, "load": 0.5}
+    fields = [w.field for w in solve(doc).warnings]
+    assert "package.control.receiver_volume_m3" in fields
+    doc["package"]["control"]["receiver_volume_m3"] = 20.0
+    assert "package.control.receiver_volume_m3" not in [w.field for w in solve(doc).warnings]

@@ -116,8 +116,10 @@ def solve_normalised(norm: dict, detail: bool = True, fast: bool = False, reuse:
     else:
         res = _solve_for_power(ctx, flow["value"], fixed, detail)
     if detail and norm.get("package"):
-        from stagewright.core.part_load.figures import package_figures  # only projects with a package need it
+        # only projects with a package need it
+        from stagewright.core.part_load.figures import package_figures, package_warnings
         res.package = package_figures(norm, res)
+        res.warnings.extend(package_warnings(res.package))
     return res
 
 

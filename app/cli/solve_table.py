@@ -8,9 +8,10 @@ with their labels' first letter in lower case.
 """
 from __future__ import annotations
 
-__all__ = ["format_result"]
+__all__ = ["format_result", "package_lines"]
 
 from stagewright.gui.presentation import balance_tables as tables
+from stagewright.gui.presentation import package_table
 from stagewright.gui.presentation.figures import Figure, condition_holds, shown
 
 _OUT = "text"
@@ -81,6 +82,28 @@ def format_result(title: str, r: dict) -> str:
         lines.append(_line(_component_name(kind, i, c), cells, cols))
     lines.append("")
     lines += [_total_line(f, r) for f in _columns(tables.TOTALS, r)]
+    if r.get("package"):
+        lines += [""] + package_lines(r["package"])
     for w in r["warnings"]:
         lines.append(f"warning: {w['message']} ({w['field']})")
     return "\n".join(lines)
+
+
+def package_lines(pkg: dict) -> list[str]:
+    """The package's figures at full and at the stated load, and its load profile's year
+    (:mod:`stagewright.gui.presentation.package_table`, the ``"text"`` rows), as aligned lines."""
+    rows = package_table.point_rows(pkg, _OUT)
+    heads = [h.lower() for h, _ in package_table.point_columns(pkg)]
+    label_w = max([len(r[0]) + len(r[1]) + 3 for r in rows] + [_TOTAL_NAME_WIDTH])
+    width = max(len(h) for h in heads) + 2
+
+    def name(row):
+        return _lower_first(row[0]) + (f" [{row[1]}]" if row[1] else "")
+
+    lines = [package_table.control_line(pkg), f"{'package':<{label_w}}" + "".join(f"{h:>{width}}" for h in heads)]
+    lines += [f"{name(row):<{label_w}}" + "".join(f"{c:>{width}}" for c in row[2:]) for row in rows]
+    annual = package_table.annual_rows(pkg, _OUT)
+    if annual:
+        lines.append("load profile (at the site as stated):")
+        lines += [f"  {_lower_first(label):<{label_w - 2}}{value:>{width}}" for label, value in annual]
+    return lines

@@ -87,6 +87,41 @@ _SPECS = {
     "year.load": FieldSpec("year load", "fraction"),
     "year.energy_price_per_kWh": FieldSpec("energy price per kWh", "ratio"),
     "year.water_price_per_m3": FieldSpec("water price per m³", "ratio"),
+    # issue 16: the package (capacity control, motor, auxiliaries, loads)
+    "package": FieldSpec("package section"),
+    "package.control": FieldSpec("capacity control"),
+    "package.control.kind": FieldSpec("capacity control"),
+    "package.control.receiver_volume_m3": FieldSpec("receiver volume", "liquid_volume"),
+    "package.control.pressure_band_Pa": FieldSpec("control pressure band", "pressure_difference"),
+    "package.control.unloaded_power_fraction": FieldSpec("unloaded power", "fraction"),
+    "package.control.blowdown_time_s": FieldSpec("blowdown time", "time"),
+    "package.control.zero_flow_power_fraction": FieldSpec("power at zero flow", "fraction"),
+    "package.control.min_speed_fraction": FieldSpec("minimum speed", "fraction"),
+    "package.control.specific_power_rise_at_min_speed": FieldSpec("specific power rise at minimum speed",
+                                                                  "fraction"),
+    "package.control.drive_efficiency": FieldSpec("drive efficiency", "fraction"),
+    "package.control.drive_fixed_loss_share": FieldSpec("drive fixed-loss share", "fraction"),
+    "package.control.max_starts_per_hour": FieldSpec("starts limit", "per_hour"),
+    "package.control.points": FieldSpec("measured part-load curve"),
+    "package.control.points[*].flow_fraction": FieldSpec("flow", "fraction"),
+    "package.control.points[*].power_fraction": FieldSpec("power", "fraction"),
+    "package.motor.rated_output_W": FieldSpec("motor rated output", "power"),
+    "package.motor.fixed_loss_share": FieldSpec("motor fixed-loss share", "fraction"),
+    "package.motor.efficiency_points[*].load_fraction": FieldSpec("load", "fraction"),
+    "package.motor.efficiency_points[*].efficiency": FieldSpec("efficiency", "fraction"),
+    "package.fan_power_W": FieldSpec("cooler fan power", "power"),
+    "package.pump": FieldSpec("coolant pump"),
+    "package.pump.head_m": FieldSpec("pump head", "length"),
+    "package.pump.efficiency": FieldSpec("pump efficiency", "fraction"),
+    "package.other_loads": FieldSpec("other loads"),
+    "package.other_loads[*].name": FieldSpec("name"),
+    "package.other_loads[*].power_W": FieldSpec("power", "power"),
+    "package.load": FieldSpec("stated load", "fraction"),
+    "package.part_loads": FieldSpec("data-sheet loads"),
+    "package.part_loads[*]": FieldSpec("data-sheet load", "fraction"),
+    "package.load_profile": FieldSpec("load profile"),
+    "package.load_profile[*].load": FieldSpec("load", "fraction"),
+    "package.load_profile[*].hours": FieldSpec("hours", "hours"),
     **{f"year.profile.{entries}[*].{key}": FieldSpec(label, quantity)
        for entries in ("months", "bins")
        for key, label, quantity in (("temperature_K", "temperature", "temperature"),
@@ -131,6 +166,11 @@ def _where(path: str, doc: dict) -> str:
             return MONTH_NAMES[tokens[3]]
         name = get_in(doc, format_path(tokens[:4]) + ".label", "")
         return f"bin {tokens[3] + 1}" + (f" ({name})" if isinstance(name, str) and name else "")
+    if tokens and tokens[0] == "package" and any(isinstance(t, int) for t in tokens) and tokens[1] != "part_loads":
+        i = next(t for t in tokens if isinstance(t, int))
+        return {"load_profile": "load-profile row", "other_loads": "other load", "points": "curve point",
+                "efficiency_points": "motor point"}.get(tokens[-2] if isinstance(
+                    tokens[-1], int) else tokens[-3], "row") + f" {i + 1}"
     return ""
 
 
@@ -156,7 +196,7 @@ def describe(path: str, doc: dict) -> str:
         label = FLOW_LABEL.get(get_in(doc, "flow.kind"), spec.label)
     else:
         label = spec.label
-    if path.startswith("year.profile.") and where:
+    if (path.startswith("year.profile.") or path.startswith("package.")) and where:
         text = f"{where} {label}"
     elif where.startswith("stage") or where.endswith("cooler") or where.startswith("intercooler"):
         label = label.replace("cooler ", "") if "cooler" in where else label

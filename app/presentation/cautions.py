@@ -5,7 +5,7 @@ One text for all places, so the window and the printed report never disagree.
 from __future__ import annotations
 
 __all__ = ["CAUTIONS", "DEFERRAL", "cautions_text", "WINTER", "ALL_CAUTIONS", "FREEZING_K", "below_freezing",
-           "cautions_for"]
+           "cautions_for", "PACKAGE_CAUTIONS", "package_cautions"]
 
 DEFERRAL = (
     "Stagewright is a calculation aid. Its results do not replace the design review, "
@@ -105,6 +105,36 @@ def cautions_for(doc: dict | None = None, warnings=(), year: dict | None = None)
     freezing = any("freez" in str(w.get("message", "")).lower() for w in warnings)
     freezing = freezing or bool((year or {}).get("freezing_bins"))
     return ALL_CAUTIONS if freezing or (doc is not None and below_freezing(doc)) else CAUTIONS
+
+
+#: cautions of a package with a capacity control (the package panel and the report's package section)
+PACKAGE_CAUTIONS = (
+    ("Receiver and relief",
+     "The receiver a capacity control cycles on is a pressure vessel. It must be designed, marked, "
+     "inspected and protected by a relief valve able to discharge the full delivery of every compressor "
+     "that can feed it, as the pressure-equipment rules at the site require. A control's pressure band is "
+     "no protection: never set it, or raise it, above the receiver's and the package's rated pressure."),
+    ("Automatic restart",
+     "A compressor under start/stop or variable-speed control stops when the demand falls and starts "
+     "again without warning when the pressure drops. A stopped machine is not a safe one: mark it as "
+     "starting automatically, and isolate and lock out the driver and vent the package before any work on it."),
+    ("Data-sheet figures",
+     "The data sheet states figures as this project computes them, at the stated reference conditions. "
+     "Compare them with a supplier's only at the same conditions, the same delivery pressure and the same "
+     "scope of auxiliaries; acceptance tests follow the applicable test standard, not this sheet."),
+)
+
+
+def package_cautions(control_kind: str) -> tuple:
+    """The package cautions that matter for ``control_kind`` (restart only where the motor stops).
+
+    Examples
+    --------
+    >>> [t for t, _ in package_cautions("modulation")]
+    ['Receiver and relief', 'Data-sheet figures']
+    """
+    restarts = control_kind in ("start_stop", "variable_speed")
+    return tuple(c for c in PACKAGE_CAUTIONS if restarts or c[0] != "Automatic restart")
 
 
 def cautions_text() -> str:

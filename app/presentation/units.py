@@ -83,8 +83,13 @@ QUANTITIES: dict[str, tuple[Unit, Unit]] = {
     "condensate_volume_flow": (Unit("L/h", 1e-3 / 3600.0, 0.0, 2), Unit("US gal/h", _GAL / 3600.0, 0.0, 2)),
     # condensate or cooling water collected over a period, [m³] inside
     "liquid_volume": (Unit("m³", 1.0, 0.0, 3), Unit("US gal", _GAL, 0.0, 1)),
+    # free air delivered over a period (a load profile's year), [m³] inside
+    "air_volume": (Unit("m³", 1.0, 0.0, 0), Unit("ft³", _FT ** 3, 0.0, 0)),
     # operating hours (a year's profile keeps hours, [h], as its unit)
     "hours": (Unit("h", 1.0, 0.0, 0), Unit("h", 1.0, 0.0, 0)),
+    # a duration in seconds (a blowdown), and a rate per hour (starts, load cycles)
+    "time": (Unit("s", 1.0, 0.0, 0), Unit("s", 1.0, 0.0, 0)),
+    "per_hour": (Unit("1/h", 1.0, 0.0, 1), Unit("1/h", 1.0, 0.0, 1)),
     # an amount in the currency of the energy price the user gave: never converted
     "money": (Unit("cost", 1.0, 0.0, 0), Unit("cost", 1.0, 0.0, 0)),
 }

@@ -3,8 +3,8 @@
 ``export_report`` is what both ``stagewright report`` and the window's File → Export call,
 so the two always produce the same report. Modules: ``layout`` (the Pager: text, tables, chart
 blocks) · ``summary`` (the first page) · ``sections`` (inputs, balance sheet, exchangers and zones,
-totals, charts, staging, cautions) · ``recovery_section`` · ``year_section`` · ``pdf`` (the order of
-the sections, writing) · ``csv_export`` · ``atomic``.
+totals, charts, staging, cautions) · ``recovery_section`` · ``year_section`` · ``package_section``
+· ``pdf`` (the order of the sections, writing) · ``csv_export`` · ``atomic``.
 """
 from __future__ import annotations
 
@@ -79,7 +79,8 @@ def export_report(doc: dict, result, pdf_path, csv_path=None, system: str = "SI"
     year, year_problem = _year_of(doc, year)
     cases, shown_case = _cases_of(project if project is not None else doc, shown_case)
     n = write_pdf(doc, result, pdf_path, info, study_rows=study_rows, paper=paper, year=year,
-                  year_problem=year_problem, cases=cases, shown_case=shown_case, uncertainty=_uncertainty_of(doc))
+                  year_problem=year_problem, cases=cases, shown_case=shown_case, uncertainty=_uncertainty_of(doc),
+                  **_sheet_of(doc, result))
     if csv_path is not None:
         write_csv(result, csv_path, system)
     return n
@@ -105,6 +106,19 @@ def _uncertainty_of(doc: dict) -> dict | None:
         return field_check_uncertainty(doc, monte_carlo=False).to_dict()
     except StagewrightError:
         return None
+
+
+def _sheet_of(doc: dict, result: dict) -> dict:
+    """The package's data sheet (two lean solves) for the report: ``sheet`` and ``sheet_problem``
+    (nothing without a ``package`` section)."""
+    if not result.get("package"):
+        return {}
+    from stagewright.core import StagewrightError
+    from stagewright.core.part_load.data_sheet import data_sheet
+    try:
+        return {"sheet": data_sheet(doc).to_dict()}
+    except StagewrightError as exc:
+        return {"sheet_problem": str(exc)}
 
 
 def _cases_of(project: dict, shown_case: str) -> tuple[list | None, str]:

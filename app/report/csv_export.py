@@ -9,7 +9,9 @@ then component figures, then any train totals (filled in the ``train`` row); a s
 columns stay put, so a column is there even when no row has a value. Numbers are written in the
 chosen display units to 12 significant digits, so converting back with
 :func:`stagewright.gui.presentation.units.to_si` returns the solver's SI values to 1e-12 relative; a missing
-value is an empty cell. Written with the standard library's :mod:`csv` (RFC 4180 quoting, UTF-8).
+value is an empty cell. A project with a ``package`` section gains the package's columns and
+rows (``package``: full load, stated load, each data-sheet load at the site; ``package_year``: the
+load profile). Written with the standard library's :mod:`csv` (RFC 4180 quoting, UTF-8).
 """
 from __future__ import annotations
 
@@ -20,6 +22,7 @@ import io
 import re
 
 from stagewright.gui.presentation import balance_tables as tables
+from stagewright.gui.presentation import package_table
 from stagewright.gui.presentation.figures import Figure, shown
 from stagewright.gui.report.atomic import atomic_path
 from stagewright.gui.report.sections import state_points
@@ -27,11 +30,25 @@ from stagewright.gui.report.sections import state_points
 _OUT = "csv"
 
 
-def _figures() -> list[tuple[str, Figure]]:
-    """(row part, figure) of every figure column: ``"point"``, ``"component"`` or ``"total"``."""
+def _figures(package: bool = False) -> list[tuple[str, Figure]]:
+    """(row part, figure) of every figure column: ``"point"``, ``"component"`` or ``"total"``, and
+    with ``package`` the package's (``"package"``, ``"package_year"``: :mod:`stagewright.gui.presentation.package_table`)."""
     return ([("point", f) for f in shown(tables.POINTS, _OUT)]
             + [("component", f) for f in shown(tables.COMPONENTS, _OUT)]
-            + [("total", f) for f in shown(tables.TOTALS, _OUT)])
+            + [("total", f) for f in shown(tables.TOTALS, _OUT)]
+            + ([("package", f) for f in shown(package_table.PACKAGE_POINT, _OUT)]
+               + [("package_year", f) for f in shown(package_table.PACKAGE_ANNUAL, _OUT)] if package else []))
+
+
+def _package_records(pkg: dict | None) -> list[tuple[str, str, dict]]:
+    """Rows of a project with a ``package`` section: full, stated and data-sheet loads, the profile's year."""
+    if not pkg:
+        return []
+    rows = [("package", name, {"package": (point, None)})
+            for name, point in package_table.point_columns(pkg, part_loads=True)]
+    if pkg.get("annual"):
+        rows.append(("package_year", "Load profile", {"package_year": (package_table.annual_view(pkg["annual"]), None)}))
+    return rows
 
 
 #: characters of a unit symbol as a column name writes them (``kJ/(kg·K)`` → ``kJ_kgK``)
@@ -80,7 +97,7 @@ def _cell(fig: Figure, data: dict | None, kind: str | None, system: str) -> str:
 
 def csv_rows(result: dict, system: str = "SI") -> list[list[str]]:
     """Header row (the unit in each column name) and data rows of the CSV (strings, display units)."""
-    figures = _figures()
+    figures = _figures(package=bool(result.get("package")))
     header = ["kind", "name"] + [_column(f, system) for _, f in figures]
     # (row kind, name, {row part: (data, kind for per-kind paths)})
     records = [("state", name, {"point": (pt, None)}) for name, pt in state_points(result)]
@@ -90,6 +107,7 @@ def csv_rows(result: dict, system: str = "SI") -> list[list[str]]:
         else:
             name = {"filter": "Intake filter", "stage": f"Stage {i}", "cooler": f"Cooler {i}"}[kind]
             records.append(("component", name, {"component": (data, kind)}))
+    records += _package_records(result.get("package"))
     body = [[row_kind, name] + [_cell(f, *parts.get(part, (None, None)), system) for part, f in figures]
             for row_kind, name, parts in records]
     return [header] + body

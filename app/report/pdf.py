@@ -20,6 +20,7 @@ from stagewright.gui.report.atomic import atomic_path
 from stagewright.gui.report.cases_section import cases_section
 from stagewright.gui.report.field_uncertainty_section import field_uncertainty_section
 from stagewright.gui.report.layout import Pager
+from stagewright.gui.report.package_section import package_section
 from stagewright.gui.report.recovery_section import heat_recovery
 from stagewright.gui.report.summary import summary_page
 from stagewright.gui.report.year_section import year_at_site
@@ -36,21 +37,24 @@ def program_version() -> str:
 
 def build_pages(doc: dict, result: dict, info: sections.ReportInfo, study_rows=None, paper: str | None = None,
                 year: dict | None = None, year_problem: str = "", cases: list | None = None, shown_case: str = "",
-                uncertainty: dict | None = None):
+                uncertainty: dict | None = None, sheet: dict | None = None, sheet_problem: str = ""):
     """Lay the report out; returns the page figures (nothing written yet)."""
-    return lay_out(doc, result, info, study_rows, paper, year, year_problem, cases, shown_case, uncertainty).finish()
+    return lay_out(doc, result, info, study_rows, paper, year, year_problem, cases, shown_case, uncertainty,
+                   sheet, sheet_problem).finish()
 
 
 def lay_out(doc: dict, result: dict, info: sections.ReportInfo, study_rows=None, paper: str | None = None,
             year: dict | None = None, year_problem: str = "", cases: list | None = None,
-            shown_case: str = "", uncertainty: dict | None = None) -> Pager:
+            shown_case: str = "", uncertainty: dict | None = None, sheet: dict | None = None,
+            sheet_problem: str = "") -> Pager:
     """Print every section onto a :class:`Pager` (its pages not finished: no footers yet).
 
     ``year`` is the project's year at the site (``YearResult.to_dict()``) when it has one, and
     ``year_problem`` why it could not be computed; ``study_rows`` a staging study's rows;
     ``cases`` the project's cases compared (:class:`stagewright.core.cases.CaseOutcome`, the first the
     reference) and ``shown_case`` the case the rest of the report describes; ``uncertainty`` a
-    field check's ``FieldCheckUncertainty.to_dict()``.
+    field check's ``FieldCheckUncertainty.to_dict()``; ``sheet`` the package's data sheet
+    (``DataSheet.to_dict()``) and ``sheet_problem`` why it could not be computed.
     """
     system = info.system
     paper = paper or ("Letter" if system == "US" else "A4")
@@ -73,6 +77,7 @@ def lay_out(doc: dict, result: dict, info: sections.ReportInfo, study_rows=None,
     limits = [v for v in limits if v is not None]
     limit = min(limits) if limits else None
     year_at_site(p, year, system, limit_K=limit, problem=year_problem)
+    package_section(p, result, system, sheet=sheet, sheet_problem=sheet_problem, title=doc.get("title") or "")
     sections.staging(p, study_rows, system, limit_K=limit)
     if cases:
         cases_section(p, cases, cases[0].name, shown_case or cases[0].name, system)
@@ -82,9 +87,11 @@ def lay_out(doc: dict, result: dict, info: sections.ReportInfo, study_rows=None,
 
 def write_pdf(doc: dict, result: dict, path, info: sections.ReportInfo, study_rows=None, paper: str | None = None,
               year: dict | None = None, year_problem: str = "", cases: list | None = None,
-              shown_case: str = "", uncertainty: dict | None = None) -> int:
+              shown_case: str = "", uncertainty: dict | None = None, sheet: dict | None = None,
+              sheet_problem: str = "") -> int:
     """Write the PDF report to ``path`` atomically; returns the number of pages (see :func:`lay_out`)."""
-    pages = build_pages(doc, result, info, study_rows, paper, year, year_problem, cases, shown_case, uncertainty)
+    pages = build_pages(doc, result, info, study_rows, paper, year, year_problem, cases, shown_case, uncertainty,
+                        sheet, sheet_problem)
     meta = {"Title": doc.get("title") or "Stagewright report", "Creator": f"Stagewright {info.version}",
             "Subject": "Compression-train sizing report"}
     try:

@@ -7,7 +7,7 @@ what to install instead of letting Qt abort with a message that may name the wro
 """
 from __future__ import annotations
 
-__all__ = ["run_gui", "DEMO_PROJECT", "wait_for_first_solve", "save_screenshot", "XCB_PACKAGES",
+__all__ = ["run_gui", "DEMO_PROJECT", "wait_for_first_solve", "save_screenshot", "show_panel", "XCB_PACKAGES",
            "missing_libraries", "packages_for", "xcb_plugin", "platform_problem"]
 
 import importlib.util
@@ -146,6 +146,26 @@ def wait_for_first_solve(app, window, timeout_s: float = 60.0) -> bool:
     return settled()
 
 
+def show_panel(app, window, pid: str, timeout_s: float = 60.0) -> bool:
+    """Bring the docked panel ``pid`` (``"package"``, ``"year"`` …) to the front for a screenshot
+    (``STAGEWRIGHT_SCREENSHOT_PANEL``) and wait, up to ``timeout_s``, for its worker's answer if it
+    started one; False when there is no such panel or it did not settle in time."""
+    import time
+    dock = window.docks.get(pid)
+    if not pid or dock is None:
+        return False
+    dock.show()
+    dock.raise_()
+    app.processEvents()
+    runner = getattr(window.panels[pid], "runner", None)
+    end = time.monotonic() + timeout_s
+    while runner is not None and runner.busy and time.monotonic() < end:
+        app.processEvents()
+        time.sleep(0.02)
+    app.processEvents()
+    return runner is None or not runner.busy
+
+
 def save_screenshot(window, out: str) -> None:
     """Draw pending charts and grab the whole window (menus, docks, status bar)."""
     from PySide6.QtWidgets import QApplication
@@ -209,6 +229,7 @@ def run_gui(project: str | None = None, screenshot: str | None = None, size: str
         window.resize(w, h)
         window.show()
         ok = wait_for_first_solve(app, window)
+        show_panel(app, window, os.environ.get("STAGEWRIGHT_SCREENSHOT_PANEL", ""))
         save_screenshot(window, screenshot)
         window.editor.shutdown()
         window.close()

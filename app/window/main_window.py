@@ -40,9 +40,10 @@ from stagewright.gui.panels.site_panel import SitePanel
 from stagewright.gui.study.panel import StudyPanel
 from stagewright.gui.year.panel import YearPanel
 from stagewright.gui.field_check.panel import FieldCheckPanel
+from stagewright.gui.package.panel import PackagePanel
 from stagewright.gui.panels.train_panel import TrainPanel
 
-STATE_VERSION = 3  #: bump when panels are added or renamed, so old saved layouts are ignored
+STATE_VERSION = 4  #: bump when panels are added or renamed, so old saved layouts are ignored
 
 
 class MainWindow(QMainWindow):
@@ -105,6 +106,7 @@ class MainWindow(QMainWindow):
         self.add_panel("study", StudyPanel(self.editor), Qt.BottomDockWidgetArea, tabify_with="balance")
         self.add_panel("year", YearPanel(self.editor), Qt.BottomDockWidgetArea, tabify_with="balance")
         self.add_panel("field_check", FieldCheckPanel(self.editor), Qt.BottomDockWidgetArea, tabify_with="balance")
+        self.add_panel("package", PackagePanel(self.editor), Qt.BottomDockWidgetArea, tabify_with="balance")
         self.add_panel("cases", CasesPanel(self.editor), Qt.BottomDockWidgetArea, tabify_with="balance")
         self.docks["balance"].raise_()
         # below the key figures, inputs and messages run the full height on the left; the
@@ -446,6 +448,7 @@ class MainWindow(QMainWindow):
         self.panels["study"].shutdown()
         self.panels["year"].runner.shutdown()
         self.panels["field_check"].shutdown()
+        self.panels["package"].shutdown()
         self.panels["cases"].shutdown()
         self.recovery.shutdown()  # a clean exit: the work is saved or was let go
         self.editor.shutdown()

@@ -1,10 +1,11 @@
 """The package figures a solve reports: full load, the stated load, the data-sheet loads, a curve."""
 from __future__ import annotations
 
-__all__ = ["PackageFigures", "package_figures", "CURVE_POINTS"]
+__all__ = ["PackageFigures", "package_figures", "package_warnings", "CURVE_POINTS"]
 
 from dataclasses import dataclass
 
+from stagewright.core.errors import message_detail
 from stagewright.core.part_load.annual import AnnualFigures, annual_figures
 from stagewright.core.part_load.controls import CONTROL_LABELS
 from stagewright.core.part_load.full_load import FullLoad, full_load_of
@@ -61,3 +62,19 @@ def package_figures(norm: dict, res) -> PackageFigures | None:
         full_load=package_point(pkg, full, 1.0), at_load=package_point(pkg, full, pkg["load"]),
         part_loads=[package_point(pkg, full, x) for x in pkg["part_loads"]],
         curve=package_curve(pkg, full, CURVE_POINTS), annual=annual_figures(pkg, full, pkg["load_profile"]))
+
+
+def package_warnings(fig: PackageFigures | None) -> list:
+    """Result warnings of the package at its stated load: short cycling on the receiver
+    (:func:`stagewright.core.part_load.load_unload.short_cycling_note`)."""
+    from stagewright.core.part_load.load_unload import SHORT_CYCLES_PER_HOUR
+    from stagewright.core.results import Warning_
+    if fig is None:
+        return []
+    cycles = fig.at_load.cycles_per_hour
+    if fig.at_load.starts_per_hour is not None or cycles is None or cycles <= SHORT_CYCLES_PER_HOUR:
+        return []
+    text = (f"At the stated load the control cycles {cycles:.0f} times an hour (more than "
+            f"{SHORT_CYCLES_PER_HOUR:.0f}): short cycling wears the inlet valve and wastes energy in blowdowns; "
+            "a larger receiver or a wider pressure band lengthens the cycle")
+    return [Warning_("package.control.receiver_volume_m3", text, message_detail(text))]

@@ -20,12 +20,25 @@ constant 40 s are common practice, no source).
 """
 from __future__ import annotations
 
-__all__ = ["load_unload_duty", "mean_unloaded_power"]
+__all__ = ["load_unload_duty", "mean_unloaded_power", "SHORT_CYCLES_PER_HOUR", "short_cycling_note"]
 
 import math
 
 from stagewright.core.part_load.duty import ControlDuty, RunState
 from stagewright.core.part_load.receiver import receiver_cycle
+
+
+#: more load/unload cycles an hour than this wear the inlet valve and blowdown and waste energy in
+#: blowdowns: say so (common practice, no source)
+SHORT_CYCLES_PER_HOUR = 60.0
+
+
+def short_cycling_note(cycles_per_hour: float | None) -> tuple:
+    """A note when the receiver makes the control cycle more than :data:`SHORT_CYCLES_PER_HOUR` times an hour."""
+    if cycles_per_hour is None or cycles_per_hour <= SHORT_CYCLES_PER_HOUR:
+        return ()
+    return (f"short cycling: {cycles_per_hour:.0f} cycles an hour (more than {SHORT_CYCLES_PER_HOUR:.0f}); "
+            "a larger receiver or a wider pressure band lengthens the cycle",)
 
 
 def mean_unloaded_power(loaded_W: float, unloaded_W: float, unloaded_s: float, blowdown_s: float) -> float:
@@ -100,5 +113,6 @@ def load_unload_duty(control: dict, loaded_W: float, capacity_m3_s: float, intak
     if x < 1.0:
         states.append(RunState(1.0 - x, mean_unloaded_power(loaded_W, unloaded, cyc.unloaded_s,
                                                             control["blowdown_time_s"]), speed_fraction))
-    return ControlDuty(demand_fraction=x, states=tuple(states), loaded_fraction=x,
-                       cycles_per_hour=cyc.cycles_per_hour if 0.0 < x < 1.0 else None)
+    cycles = cyc.cycles_per_hour if 0.0 < x < 1.0 else None
+    return ControlDuty(demand_fraction=x, states=tuple(states), loaded_fraction=x, cycles_per_hour=cycles,
+                       notes=short_cycling_note(cycles))

@@ -15,6 +15,7 @@ from __future__ import annotations
 
 __all__ = ["PackagePoint", "package_point", "package_curve"]
 
+import math
 from dataclasses import asdict, dataclass, field
 
 from stagewright.core.part_load.auxiliaries import auxiliaries
@@ -46,6 +47,14 @@ class PackagePoint:
 
     def to_dict(self) -> dict:
         return asdict(self)
+
+
+def _specific(power_W: float, delivered_m3_s: float) -> float | None:
+    """Input per delivered volume [J/m³]; None when nothing (or too little to divide by) is delivered."""
+    if delivered_m3_s <= 0.0:
+        return None
+    value = power_W / delivered_m3_s
+    return value if math.isfinite(value) else None
 
 
 def package_point(package: dict, full: FullLoad, demand_fraction: float) -> PackagePoint:
@@ -94,7 +103,7 @@ def package_point(package: dict, full: FullLoad, demand_fraction: float) -> Pack
         demand_fraction=demand_fraction, delivered_fad_m3_s=delivered, shaft_power_W=duty.mean_shaft_power_W,
         driver_power_W=driver, drive_loss_W=drive_loss, fan_power_W=running * aux.fan_W,
         pump_power_W=running * aux.pump_W, other_power_W=running * aux.other_W, package_power_W=total,
-        package_specific_power_J_m3=total / delivered if delivered > 0.0 else None,
+        package_specific_power_J_m3=_specific(total, delivered),
         loaded_fraction=duty.loaded_fraction, running_fraction=running, cycles_per_hour=duty.cycles_per_hour,
         starts_per_hour=duty.starts_per_hour, notes=list(duty.notes))
 

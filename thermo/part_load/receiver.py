@@ -85,7 +85,10 @@ def receiver_cycle(volume_m3: float, band_Pa: float, intake_pressure_Pa: float,
         raise ValueError("receiver_cycle: volume, band, pressure and capacity must be > 0, demand 0…1")
     free_air = volume_m3 * band_Pa / intake_pressure_Pa
     x = demand_fraction
-    loaded = math.inf if x >= 1.0 else free_air / (capacity_m3_s * (1.0 - x))
-    unloaded = math.inf if x <= 0.0 else free_air / (capacity_m3_s * x)
-    cycles = 0.0 if x <= 0.0 or x >= 1.0 else 3600.0 / (loaded + unloaded)
+    # divided one at a time: a tiny demand (the schema allows any load above 0) makes the time
+    # infinite, never a product that underflows to a division by zero
+    loaded = math.inf if x >= 1.0 else free_air / capacity_m3_s / (1.0 - x)
+    unloaded = math.inf if x <= 0.0 else free_air / capacity_m3_s / x
+    period = loaded + unloaded
+    cycles = 0.0 if x <= 0.0 or x >= 1.0 or math.isinf(period) else 3600.0 / period
     return ReceiverCycle(loaded, unloaded, cycles)

@@ -77,4 +77,4 @@ def variable_speed_duty(control: dict, full_W: float, capacity_m3_s: float, inta
     cycling = load_unload_duty(control, speed_power(control, full_W, s_min), capacity_m3_s * s_min,
                                intake_pressure_Pa, x / s_min, speed_fraction=s_min)
     note = "below its minimum speed the compressor cycles load/unload at that speed"
-    return replace(cycling, demand_fraction=x, notes=(note,))
+    return replace(cycling, demand_fraction=x, notes=(note, *cycling.notes))

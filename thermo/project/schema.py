@@ -115,8 +115,9 @@ YEAR = Obj(nullable=True, default=None, fields={
 #: cycles of the controls that stop delivering air (ideal gas, isothermal receiver). Defaults
 #: without a published source are marked in thermo/part_load/defaults.py.
 _STORAGE = {
-    "receiver_volume_m3": Num(0.0, 1.0e4, unit="m³", lo_open=True, required=True),
-    "pressure_band_Pa": Num(0.0, 2.0e6, unit="Pa", lo_open=True, default=50_000.0),
+    # floors: 0.1 L and 100 Pa, far below any real receiver, keep the cycle times computable
+    "receiver_volume_m3": Num(1.0e-4, 1.0e4, unit="m³", required=True),
+    "pressure_band_Pa": Num(100.0, 2.0e6, unit="Pa", default=50_000.0),
     "unloaded_power_fraction": Num(0.0, 1.0, default=0.25),
     "blowdown_time_s": Num(0.0, 3600.0, unit="s", default=40.0),
 }

@@ -457,6 +457,42 @@ RESULT_KEYS = {
     "water_balance_residual": "Water in minus water out, relative to water in (0 for a dry intake).",
 }
 
+#: the keys of one package point (thermo.part_load.package.PackagePoint), at each place it appears
+_PACKAGE_POINT_KEYS = {
+    "demand_fraction": "Demand over full capacity.",
+    "delivered_fad_m3_s": "Free air delivered at that demand.",
+    "shaft_power_W": "Compressor shaft power, time mean over the control's cycle.",
+    "driver_power_W": "Motor input (and the drive's, for variable speed), time mean.",
+    "drive_loss_W": "The variable-speed drive's own losses (0 without one).",
+    "fan_power_W": "Cooler fans' input, time mean (off while stopped).",
+    "pump_power_W": "Coolant pump's input, time mean.",
+    "other_power_W": "The named fixed loads' input, time mean.",
+    "package_power_W": "Package input: driver and auxiliaries.",
+    "package_specific_power_J_m3": "Package input per unit of free air delivered (null at zero demand).",
+    "loaded_fraction": "Share of time the compressor delivers air.",
+    "running_fraction": "Share of time the motor runs.",
+    "cycles_per_hour": "Load/unload or start/stop cycles an hour (null where the control does not cycle).",
+    "starts_per_hour": "Motor starts an hour (start/stop only).",
+    "notes": "What the control had to do at this demand (e.g. cycling below the minimum speed).",
+}
+RESULT_KEYS.update({
+    "package.control": "The capacity control's kind.",
+    "package.control_label": "The capacity control in words.",
+    "package.full_load": "The package at full load.",
+    "package.at_load": "The package at its stated `package.load`.",
+    "package.part_loads": "The package at each of `package.part_loads` (the data sheet's loads).",
+    "package.curve": "The package at demands 0, 0.05 … 1 (the part-load chart).",
+    "package.annual": "The load profile's year at the site as stated (null without a profile).",
+    "package.annual.hours": "Hours of the profile [h].",
+    "package.annual.energy_kWh": "Package energy over the profile.",
+    "package.annual.delivered_m3": "Free air delivered over the profile.",
+    "package.annual.mean_power_W": "Mean package input over the profile's hours.",
+    "package.annual.specific_power_J_m3": "Energy over delivered free air.",
+    "package.annual.ideal_energy_kWh": "The same hours with input in proportion to flow (full-load specific power).",
+})
+for _place in ("package.full_load", "package.at_load", "package.part_loads[]", "package.curve[]"):
+    RESULT_KEYS.update({f"{_place}.{k}": v for k, v in _PACKAGE_POINT_KEYS.items()})
+
 _SUFFIX_UNITS = [  # longest first
     ("_per_kWh", "money/kWh"), ("_per_m3", "money/m³"), ("_kWh", "kWh"), ("_kW_per_m3_min", "kW/(m³/min)"), ("_J_kgK", "J/(kg·K)"), ("_kg_m3", "kg/m³"), ("_J_kg", "J/kg"),
     ("_kg_s", "kg/s"), ("_m3_s", "m³/s"), ("_W_K", "W/K"), ("_m_s", "m/s"), ("_Pa", "Pa"),
