@@ -34,6 +34,7 @@ def test_builds_the_same_project_as_the_sample_file():
     sample = json.loads((SAMPLES / "two_stage_plant_air.json").read_text(encoding="utf-8"))
     built = plant_air()
     built.title, built.note = sample["title"], sample["note"]
+    built.package = sample["package"]  # the package section is given as plain data (no typed builder)
     assert built.document() == sample
     assert normalise(built.document()) == normalise(sample)
 
