@@ -12,28 +12,16 @@ from __future__ import annotations
 __all__ = ["FieldCheckPanel"]
 
 from PySide6.QtCore import Qt
-from PySide6.QtWidgets import (QAbstractItemView, QHBoxLayout, QLabel, QPlainTextEdit, QProgressBar, QPushButton,
+from PySide6.QtWidgets import (QHBoxLayout, QLabel, QPlainTextEdit, QProgressBar, QPushButton,
                                QTableWidget, QTableWidgetItem, QTabWidget, QVBoxLayout, QWidget)
 
 from stagewright.gui.field_check.inputs_editor import InputsEditor
 from stagewright.gui.field_check.worker import FieldCheckRunner
 from stagewright.gui.presentation import uncertainty_table as ut
-from stagewright.gui.widgets.table_copy import attach_table_copy
+from stagewright.gui.widgets.result_table import result_table
 
 RESULTS_TAB, GUARANTEES_TAB, INPUTS_TAB, NOTES_TAB = range(4)
 _COLOURS = {"within": "#1b7f3b", "outside": "#b3261e", "not decidable": "#8a5a00"}
-
-
-def _table(columns: tuple) -> QTableWidget:
-    t = QTableWidget(0, len(columns))
-    t.setHorizontalHeaderLabels(list(columns))
-    t.verticalHeader().setVisible(False)
-    t.verticalHeader().setDefaultSectionSize(t.fontMetrics().height() + 8)
-    t.setEditTriggers(QAbstractItemView.NoEditTriggers)
-    t.setWordWrap(False)
-    t.horizontalHeader().setStretchLastSection(True)
-    attach_table_copy(t)
-    return t
 
 
 def _fill(table: QTableWidget, rows: list[list[str]], left: tuple = (0,)) -> None:
@@ -80,12 +68,12 @@ class FieldCheckPanel(QWidget):
         lay.addWidget(self.verdict_line)
         self.tabs = QTabWidget()
         self.tabs.setDocumentMode(True)
-        self.figures_table = _table(ut.FIGURE_COLUMNS)
+        self.figures_table = result_table(ut.FIGURE_COLUMNS)
         self.notes = QPlainTextEdit()
         self.notes.setObjectName("fieldCheckNotes")
         self.notes.setReadOnly(True)
-        self.verdicts_table = _table(ut.VERDICT_COLUMNS)
-        self.inputs_table = _table(ut.INPUT_COLUMNS)
+        self.verdicts_table = result_table(ut.VERDICT_COLUMNS)
+        self.inputs_table = result_table(ut.INPUT_COLUMNS)
         self.tabs.addTab(self.figures_table, "Results ± U")
         self.tabs.addTab(self.verdicts_table, "Guarantees")
         self.inputs_editor = InputsEditor(editor, self.inputs_table)

@@ -9,28 +9,16 @@ from __future__ import annotations
 __all__ = ["PackageResults", "FIGURES_TAB", "YEAR_TAB", "SHEET_TAB", "CHART_TAB"]
 
 from PySide6.QtCore import Qt
-from PySide6.QtWidgets import (QAbstractItemView, QFrame, QLabel, QScrollArea, QStackedWidget, QTableWidget,
+from PySide6.QtWidgets import (QFrame, QLabel, QScrollArea, QStackedWidget, QTableWidget,
                                QTableWidgetItem, QTabWidget, QVBoxLayout, QWidget)
 
 from stagewright.gui.presentation import package_table as pt
 from stagewright.gui.presentation.cautions import package_cautions
 from stagewright.gui.widgets.plain_text import plain_label, plain_tip
-from stagewright.gui.widgets.table_copy import attach_table_copy
+from stagewright.gui.widgets.result_table import result_table
 
 FIGURES_TAB, YEAR_TAB, SHEET_TAB, CHART_TAB = range(4)
 _OUT = "window"
-
-
-def _table(name: str) -> QTableWidget:
-    t = QTableWidget(0, 0)
-    t.setObjectName(name)
-    t.verticalHeader().setVisible(False)
-    t.verticalHeader().setDefaultSectionSize(t.fontMetrics().height() + 8)
-    t.setEditTriggers(QAbstractItemView.NoEditTriggers)
-    t.setWordWrap(False)
-    t.horizontalHeader().setStretchLastSection(True)
-    attach_table_copy(t)
-    return t
 
 
 def _fill(table: QTableWidget, heads: list[str], rows: list[list[str]], left: tuple = (0,),
@@ -76,8 +64,8 @@ class PackageResults(QTabWidget):
         lay = QVBoxLayout(figures)
         lay.setContentsMargins(2, 2, 2, 2)
         self.control_line = _note("packageControl")
-        self.points = _table("packagePoints")
-        self.annual = _table("packageAnnual")
+        self.points = result_table(name="packagePoints")
+        self.annual = result_table(name="packageAnnual")
         self.notes = _note("footNote")
         self.cautions = _note("packageCautions")
         lay.addWidget(self.control_line)
@@ -89,7 +77,7 @@ class PackageResults(QTabWidget):
         lay.setContentsMargins(2, 2, 2, 2)
         self.sheet_status = _note("packageSheetStatus")
         self.conditions = _note("sheetConditions")
-        self.sheet = _table("sheetLoads")
+        self.sheet = result_table(name="sheetLoads")
         self.sheet_notes = _note("footNote")
         for w, stretch in ((self.sheet_status, 0), (self.conditions, 0), (self.sheet, 1), (self.sheet_notes, 0)):
             lay.addWidget(w, stretch)
