@@ -15,6 +15,7 @@ import pytest
 
 pytest.importorskip("PySide6")
 
+from stagewright.gui.document.paths import ABSENT  # noqa: E402
 from stagewright.gui.presentation import package_table as pt  # noqa: E402
 from gui_support import SAMPLE, make_window, type_into, wait_solved  # noqa: E402
 
@@ -155,4 +156,21 @@ def test_data_sheet_is_computed_off_the_gui_thread_and_shown(qtbot, tmp_path):
     at = win.editor.result["package"]["at_load"]
     assert stated.get_xdata()[0] == pytest.approx(at["delivered_fad_m3_s"] * 60.0)
     assert stated.get_ydata()[0] == pytest.approx(at["package_power_W"] / 1e3)
+    win.close()
+
+
+def test_motor_efficiency_points_edit_through_undo(qtbot, tmp_path):
+    """A supplier's motor points typed in per cent reach the document (and the solve), one undo step each."""
+    win = make_window(qtbot, tmp_path)
+    panel = _show(win)
+    rows = panel.inputs.motor_points
+    done = win.editor.solved_jobs
+    rows.add_button.click()
+    assert win.model.get("package.motor.efficiency_points") == [{"load_fraction": 0.5, "efficiency": 0.9}]
+    rows.table.item(0, 1).setText("93")  # per cent
+    assert win.model.get("package.motor.efficiency_points") == [{"load_fraction": 0.5, "efficiency": 0.93}]
+    wait_solved(qtbot, win, done)
+    win.editor.undo_stack.undo()
+    win.editor.undo_stack.undo()
+    assert win.model.get("package.motor.efficiency_points") in (ABSENT, [], None)
     win.close()

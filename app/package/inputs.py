@@ -77,6 +77,13 @@ class PackageInputs(FieldPanel):
                      "Motor nameplate output. Empty: the full-load shaft power solved.")
         self.add_row(form, "Fixed-loss share", QuantityField(editor, "package.motor.fixed_loss_share"),
                      "Share of the motor's full-load loss that does not fall with load (default 0.35).")
+        self.motor_points = RowsEditor(editor, "package.motor.efficiency_points",
+                                       [RowColumn("load_fraction", "Motor load", "fraction"),
+                                        RowColumn("efficiency", "Efficiency", "fraction")],
+                                       "motor efficiency point", max_rows=20)
+        self.motor_points.setToolTip("A supplier's motor efficiency at its stated loads (share of rated output). "
+                                     "When given, they replace the fixed-loss split; leave empty to use it.")
+        form.addRow(self.motor_points)
         form.addRow(section_title("Auxiliaries"))
         self.add_row(form, "Cooler fans", QuantityField(editor, "package.fan_power_W"),
                      "Electrical input of the cooler fans while the package runs.")
@@ -164,7 +171,7 @@ class PackageInputs(FieldPanel):
         for field in (self.pump_head, self.pump_eff):
             field.setVisible(has_pump)
             self.form_label(field).setVisible(has_pump)
-        for rows in (self.points, self.other, self.profile):
+        for rows in (self.points, self.motor_points, self.other, self.profile):
             rows.refresh()
         self._show_part_loads()
 
@@ -183,7 +190,7 @@ class PackageInputs(FieldPanel):
         super().update_marks()
         problem = next((p.expected for p in self.editor.problems if p.field.startswith("package.part_loads")), None)
         self.part_loads.setToolTip(plain_tip(problem or "Loads of the data sheet in per cent, e.g. 100, 75, 50."))
-        for rows in (self.points, self.other, self.profile):
+        for rows in (self.points, self.motor_points, self.other, self.profile):
             rows.refresh()
 
 
