@@ -78,7 +78,7 @@ class PackageInputs(FieldPanel):
         self.add_row(form, "Fixed-loss share", QuantityField(editor, "package.motor.fixed_loss_share"),
                      "Share of the motor's full-load loss that does not fall with load (default 0.35).")
         self.motor_points = RowsEditor(editor, "package.motor.efficiency_points",
-                                       [RowColumn("load_fraction", "Motor load", "fraction"),
+                                       [RowColumn("load_fraction", "Load", "fraction"),
                                         RowColumn("efficiency", "Efficiency", "fraction")],
                                        "motor efficiency point", max_rows=20)
         self.motor_points.setToolTip("A supplier's motor efficiency at its stated loads (share of rated output). "
