@@ -35,3 +35,4 @@ def test_a_flow_too_large_for_the_casing_loss_is_still_refused():
     """At 0.5 kg/s the loss is 4 kJ/kg, less than the 5.6 kJ/kg the measured temperature needs."""
     with pytest.raises(SecondLawViolation, match="isentropic efficiency above 1"):
         solve(_doc(0.5 * CP * (T2 - T1) + Q))
+

@@ -371,7 +371,15 @@ def _water_result(mixture, dry_model, mass_flow, W0, delivered, P0, drains, x_dr
         delivered_pressure_dew_point_K=pdp, delivered_atmospheric_dew_point_K=adp,
         delivered_liquid_kg_m3=liquid_conc, iso8573_humidity_class=humidity_class(pdp, liquid_conc),
         condensate_exergy_W=x_drained,
-        water_balance_residual=(mass_flow * W0 - delivered_water - drained) / (mass_flow * W0))
+        water_balance_residual=_water_residual(mass_flow * W0, delivered_water, drained))
+
+
+def _water_residual(intake_kg_s: float, delivered_kg_s: float, drained_kg_s: float) -> float:
+    """Water balance closure over the intake's water; 0 when the intake carries none a float can hold
+    (a humidity ratio of 1e-320 times a small flow underflows to 0: nothing in, nothing out)."""
+    if intake_kg_s <= 0.0:
+        return 0.0
+    return (intake_kg_s - delivered_kg_s - drained_kg_s) / intake_kg_s
 
 
 def _polytropic_unavailable(i: int, spec: dict) -> Warning_:
