@@ -21,7 +21,7 @@ from stagewright.core.errors import InputError
 from stagewright.core.part_load.controls import CONTROL_LABELS
 from stagewright.core.part_load.full_load import full_load_of
 from stagewright.core.part_load.package import package_point
-from stagewright.core.project.validation import normalise, resolve_site
+from stagewright.core.project.validation import normalise
 
 #: ISO 1217 standard reference conditions (from memory): inlet pressure [Pa], inlet temperature [K],
 #: relative humidity [-], cooling-water inlet temperature [K]
@@ -82,10 +82,10 @@ def reference_document(norm: dict) -> dict:
 def _column(norm: dict, condition: str, label: str, solve_fn) -> SheetColumn:
     res = solve_fn(norm)
     full = full_load_of(res, norm["driver"]["efficiency"])
-    site = resolve_site(norm)
     pkg = norm["package"]
-    return SheetColumn(condition=condition, label=label, inlet_pressure_Pa=site.pressure_Pa,
-                       inlet_temperature_K=site.ambient_temperature_K,
+    # the solve's dead state is the site it resolved: its barometric pressure and ambient temperature
+    return SheetColumn(condition=condition, label=label, inlet_pressure_Pa=res.dead.P0,
+                       inlet_temperature_K=res.dead.T0,
                        relative_humidity=norm["site"].get("relative_humidity") or 0.0,
                        discharge_pressure_Pa=res.delivery.P,
                        points=[package_point(pkg, full, x) for x in pkg["part_loads"]])
