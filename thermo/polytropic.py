@@ -384,6 +384,8 @@ def _from_one_path(model: PropertyModel, inlet: Point, target: Point, p_out: flo
     parts = getattr(model, "polytropic_slope_parts", None)
     if parts is None or inlet.wl > 0.0 or getattr(model, "mixture", None) is None:
         return None
+    fast = getattr(model, "fast_slope_parts", None)
+    parts = (fast() if fast is not None else None) or parts
     try:
         u = _entropy_estimate(parts, inlet, target, p_out)
         if not 1.0 / 1.5 < u < 50.0:

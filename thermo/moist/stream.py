@@ -170,6 +170,15 @@ class MoistAir:
             _, _, v, cp, hp, _, _ = self._state(T, P, slope=True)
         return P * v / cp, P * hp / cp, P * v
 
+    def fast_slope_parts(self):
+        """:meth:`polytropic_slope_parts` in one call where the stream is surely unsaturated (bit-for-bit
+        the same answers; :func:`stagewright.core.moist.slope_parts.fast_slope_parts`), or None."""
+        fast = self.__dict__.get("_fast_parts", False)
+        if fast is False:
+            from stagewright.core.moist.slope_parts import fast_slope_parts
+            fast = self._fast_parts = fast_slope_parts(self)
+        return fast
+
     def _slope_vapour(self, T: float, P: float, efficiency: float) -> float:
         """Polytropic slope with all the water as vapour (no latent heat in cp).
 

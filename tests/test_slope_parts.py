@@ -1,0 +1,43 @@
+"""The one-call polytropic slope parts of a moist real-gas stream equal the general method's, bit for bit.
+
+An internal equivalence check (the general method's physics is checked against RP-1485 via
+CoolProp ``HAPropsSI`` in test_moist_*.py); here only that the short path changes nothing.
+"""
+import random
+
+import pytest
+
+from stagewright.core.errors import PropertyRangeError
+from stagewright.core.models import ConstantCpAir, RealGasAir
+from stagewright.core.moist.mixture import make_mixture
+from stagewright.core.moist.stream import MoistAir
+
+
+def test_fast_parts_equal_the_general_method_on_random_states():
+    rng = random.Random(20261203)
+    mixture = make_mixture(RealGasAir())
+    checked = 0
+    handed = []
+    for _ in range(300):
+        water = 10 ** rng.uniform(-4, -1.3)
+        general, fast_stream = MoistAir(mixture, water), MoistAir(mixture, water)
+        handed_on = fast_stream.polytropic_slope_parts
+        fast_stream.polytropic_slope_parts = lambda T, P: (handed.append(1), handed_on(T, P))[1]
+        fast = fast_stream.fast_slope_parts()
+        T0 = rng.uniform(230.0, 620.0)
+        for k in range(5):  # a path's worth of states, warming up, so the short path answers
+            T, P = T0 * (1.0 + 0.1 * k), 10 ** rng.uniform(4.0, 6.7)
+            assert fast(T, P) == general.polytropic_slope_parts(T, P), (water, T, P)
+            checked += 1
+    assert checked == 1500
+    assert len(handed) < 0.7 * checked, len(handed)  # most answers came from the short path itself
+
+
+def test_out_of_range_states_raise_the_general_error():
+    fast = MoistAir(make_mixture(RealGasAir()), 0.01).fast_slope_parts()
+    with pytest.raises(PropertyRangeError, match="polytropic path"):
+        fast(1400.0, 1e5)
+
+
+def test_no_short_path_without_the_real_gas_tables():
+    assert MoistAir(make_mixture(ConstantCpAir()), 0.01).fast_slope_parts() is None

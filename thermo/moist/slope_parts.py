@@ -1,0 +1,116 @@
+"""The polytropic slope parts of an unsaturated real-gas moist stream, in one call [1]_ [2]_.
+
+A compression path's Runge–Kutta integration asks for
+:meth:`~stagewright.core.moist.stream.MoistAir.polytropic_slope_parts` some thirty times a stage, almost
+always where the stream is surely unsaturated. There the answer needs one CoolProp (T, p) update
+of dry air and three cubic look-ups; the general method reaches them through five calls and a
+loop over the virial columns. :func:`fast_slope_parts` returns one function that does the same
+arithmetic, operation for operation, so its answers are bit-for-bit those of the general method
+(a test checks this on random states), and hands every other state (saturated, out of range, a
+failed flash) to the general method, which also raises its errors.
+"""
+from __future__ import annotations
+
+__all__ = ["fast_slope_parts"]
+
+from stagewright.core import coolprop_adapter as cpa
+from stagewright.core.models.base import P_MAX, P_MIN, T_MAX, T_MIN
+
+
+def fast_slope_parts(stream):
+    r"""``parts(T, P) -> (p v/c_p, p (∂h/∂p)_T/c_p, p v)`` of ``stream``, or None where it cannot help.
+
+    The gas phase per kilogram of dry air with vapour content :math:`w` and interaction volume
+    :math:`D(T)` (second virial coefficients of RP-1485 [1]_, per kilogram of dry air):
+
+    .. math:: v = v_a + w R_w T/p + D, \quad c_p = c_{p,a} + w\,c^\circ_{p,w} - p T D'',
+       \quad (\partial h/\partial p)_T = (\partial h_a/\partial p)_T + D - T D'
+
+    with dry air from the Lemmon et al. equation of state [2]_ (CoolProp).
+
+    Parameters
+    ----------
+    stream : MoistAir
+        A moist stream on the real-gas mixture (water > 0).
+
+    Returns
+    -------
+    callable or None
+        The function; None unless the stream's mixture is the real-gas one with its fused
+        vapour/virial tables (the general method is then the only one).
+
+    References
+    ----------
+    .. [1] R. Herrmann, W. Wagner, A. H. Harvey, "Thermodynamic Properties of Real Moist Air, Dry
+       Air, Steam, Water, and Ice", ASHRAE RP-1485, 2009.
+    .. [2] E. W. Lemmon, R. T. Jacobsen, S. G. Penoncello, D. G. Friend, J. Phys. Chem. Ref.
+       Data 29 (2000) 331–385.
+
+    Examples
+    --------
+    >>> from stagewright.core.models import RealGasAir
+    >>> from stagewright.core.moist.mixture import make_mixture
+    >>> from stagewright.core.moist.stream import MoistAir
+    >>> air = MoistAir(make_mixture(RealGasAir()), 0.01)
+    >>> fast = fast_slope_parts(air)
+    >>> fast(400.0, 3e5) == air.polytropic_slope_parts(400.0, 3e5)
+    True
+    """
+    from stagewright.core.moist import mixture as mx  # the grid constants of the fused tables
+
+    mix = stream.mixture
+    dry = stream.dry
+    fused = mix._fused
+    state = getattr(dry, "_state", None)
+    W = stream.water
+    if fused is None or state is None or not hasattr(dry, "_at") or not W > 0.0:
+        return None
+    general = stream.polytropic_slope_parts
+    hc, _, aa, aw, ww = fused
+    last = len(hc) - 1
+    t_lo, step = mx._T_LO, mx._STEP
+    ss = step * step
+    x_w = W / (mix.epsilon + W)
+    x_a = 1.0 - x_w
+    n_a = mix.n_a
+    ca, cw, cww = -n_a * x_w, 2.0 * n_a * x_w, n_a * x_w * x_w / x_a
+    wRw = W * mix.R_w
+    update, PT = state.update, cpa.PT_INPUTS
+    rhomass, cpmass, partial = state.rhomass, state.cpmass, state.first_partial_deriv
+    iH, iP, iT = cpa.iHmass, cpa.iP, cpa.iT
+
+    def parts(T: float, P: float):
+        if not (T_MIN <= T <= T_MAX and P_MIN <= P <= P_MAX
+                and T >= stream._dry_T and P < stream._dry_P_limit):
+            return general(T, P)
+        if dry._at != (T, P):
+            dry._at = None
+            try:
+                update(PT, P, T)
+            except ValueError:
+                return general(T, P)  # raises the adapter's error
+            dry._at = (T, P)
+        v_a, cp_a, hp_a = 1.0 / rhomass(), cpmass(), partial(iH, iP, iT)
+        x = (T - t_lo) / step
+        i = min(max(int(x), 0), last)
+        t = x - i
+        _, b, c, e = hc[i]
+        cpw = (b + t * (2.0 * c + 3.0 * e * t)) / step
+        d = d_t = d_tt = 0.0
+        a, b, c, e = aa[i]
+        d += ca * (a + t * (b + t * (c + t * e)))
+        d_t += ca * ((b + t * (2.0 * c + 3.0 * e * t)) / step)
+        d_tt += ca * ((2.0 * c + 6.0 * e * t) / ss)
+        a, b, c, e = aw[i]
+        d += cw * (a + t * (b + t * (c + t * e)))
+        d_t += cw * ((b + t * (2.0 * c + 3.0 * e * t)) / step)
+        d_tt += cw * ((2.0 * c + 6.0 * e * t) / ss)
+        a, b, c, e = ww[i]
+        d += cww * (a + t * (b + t * (c + t * e)))
+        d_t += cww * ((b + t * (2.0 * c + 3.0 * e * t)) / step)
+        d_tt += cww * ((2.0 * c + 6.0 * e * t) / ss)
+        v = v_a + wRw * T / P + d
+        cp = cp_a + W * cpw - P * T * d_tt
+        hp = hp_a + d - T * d_t
+        return P * v / cp, P * hp / cp, P * v
+    return parts
