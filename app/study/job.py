@@ -96,7 +96,8 @@ def run_request(req: StudyRequest, progress: Callable[[float, str], Any] | None 
         study = sensitivity(req.doc, req.variable, list(req.values), req.max_stages, **kw)
         cases = [_case(p.value, p.comparison, error=p.error) for p in study.points]
     else:
-        cases = [_case(None, compare_stagings(req.doc, max_stages=req.max_stages, **kw))]
+        from stagewright.core.warm_pool import study_processes
+        cases = [_case(None, compare_stagings(req.doc, max_stages=req.max_stages, processes=study_processes(), **kw))]
     out = _answer(req, cases, True)
     out["first_efficiency"] = _first_efficiency(req.doc)
     return out

@@ -12,6 +12,9 @@ from __future__ import annotations
 
 __all__ = ["StudyPanel"]
 
+import os
+import threading
+
 from PySide6.QtCore import Qt, Signal
 from PySide6.QtWidgets import (QComboBox, QDockWidget, QHBoxLayout, QLabel, QSizePolicy, QSplitter,
                                QStackedWidget, QTabWidget, QVBoxLayout, QWidget)
@@ -32,6 +35,15 @@ from stagewright.gui.panels.messages_panel import Message
 _SIDE_BY_SIDE_PX = 900  # table and chart side by side from this width, else on two tabs
 _STUDY_INPUTS = ("max_stages", "operating_hours_per_year", "energy_price_per_kWh", "variable", "values")
 _CHART_HINT = "Run a study to see driver power and\ndischarge temperature against the\nnumber of stages."
+
+
+def _warm_up_quietly() -> None:
+    """Warm the study pool; a failure only means the studies run on one process."""
+    from stagewright.core.warm_pool import warm_up_pool
+    try:
+        warm_up_pool(2)
+    except Exception:  # noqa: BLE001 - no pool (e.g. a sandbox without processes): one process it is
+        pass
 
 
 class StudyPanel(QWidget):
@@ -70,6 +82,7 @@ class StudyPanel(QWidget):
         self._pending: tuple | None = None  # (doc, key, variable, values) of the running job
         self.messages: list[Message] = []
         self._failure: tuple | None = None  # (message, study key) of a study that could not run
+        self._pool_warming = False  # the study pool's background warm-up has been started
         self._build()
         c = self.controller
         c.progress.connect(self._on_progress)
@@ -81,6 +94,14 @@ class StudyPanel(QWidget):
         editor.problems_changed.connect(self._update_state)
         self.destroyed.connect(lambda *_: self._disconnect())
         self._on_model_changed("")
+
+    def showEvent(self, event) -> None:
+        """The first time the panel shows, prepare two worker processes in the background, so that a
+        staging comparison can run its options side by side (stagewright.core.warm_pool)."""
+        super().showEvent(event)
+        if not self._pool_warming and (os.cpu_count() or 1) >= 2:
+            self._pool_warming = True
+            threading.Thread(target=_warm_up_quietly, name="stagewright-study-pool", daemon=True).start()
 
     def _disconnect(self) -> None:
         try:

@@ -9,6 +9,7 @@ from dataclasses import dataclass, field
 from typing import Any, Callable
 
 from stagewright.core.errors import InputError
+from stagewright.core.study.in_parallel import options_in_pool, useful_processes
 from stagewright.core.study.optimal_split import SplitResult, split_prepared
 from stagewright.core.study.options import check_stage_count, staging_note, staging_stages
 from stagewright.core.study.prepare import prepare
@@ -177,7 +178,8 @@ def _with_savings(options: list[StagingOption]) -> list[StagingOption]:
 
 def compare_stagings(doc: dict, max_stages: int = 4, *, operating_hours_per_year: float = DEFAULT_OPERATING_HOURS,
                      energy_price_per_kWh: float = DEFAULT_ENERGY_PRICE,
-                     progress: Callable[[float, str], Any] | None = None, cancel: Any = None) -> StagingComparison:
+                     progress: Callable[[float, str], Any] | None = None, cancel: Any = None,
+                     processes: int | None = 1) -> StagingComparison:
     r"""Evaluate 1 … ``max_stages`` stages, each at its optimum split, side by side.
 
     An N-stage option repeats the project's first stage N times (its efficiency,
@@ -206,6 +208,11 @@ def compare_stagings(doc: dict, max_stages: int = 4, *, operating_hours_per_year
         ``progress(fraction, message)``, called before each option and at the end.
     cancel : None, threading.Event or callable
         Checked before every trial solve.
+    processes : int or None
+        Worker processes (None: every core). With more than one, the options are optimised side
+        by side (:mod:`stagewright.core.study.in_parallel`), with the same results; worth it when
+        the process pool is already started (a first pool start loads the property library
+        again, about a second) — the window starts it in the background.
 
     Returns
     -------
@@ -237,6 +244,13 @@ def compare_stagings(doc: dict, max_stages: int = 4, *, operating_hours_per_year
     prepared = prepare(doc)
     project_stages = prepared.doc["stages"]
     note = staging_note(project_stages)
+    n_proc = useful_processes(processes, max_stages)
+    if n_proc > 1:
+        options = _options_side_by_side(prepared, project_stages, max_stages, n_proc, span, should_stop)
+        span.report(1.0, f"compared 1 to {max_stages} stages")
+        return StagingComparison(_with_savings(options), note, hours, price, list(prepared.notes),
+                                 package=prepared.doc.get("package"),
+                                 driver_efficiency=prepared.doc["driver"]["efficiency"])
     weights = [n + 1.0 for n in range(1, max_stages + 1)]
     total, done = sum(weights), 0.0
     options: list[StagingOption] = []
@@ -255,3 +269,15 @@ def compare_stagings(doc: dict, max_stages: int = 4, *, operating_hours_per_year
     span.report(1.0, f"compared 1 to {max_stages} stages")
     return StagingComparison(_with_savings(options), note, hours, price, list(prepared.notes),
                              package=prepared.doc.get("package"), driver_efficiency=prepared.doc["driver"]["efficiency"])
+
+
+def _options_side_by_side(prepared, project_stages, max_stages, n_proc, span, should_stop) -> list[StagingOption]:
+    """:func:`compare_stagings`'s options from worker processes, fewest stages first."""
+    try:
+        splits = options_in_pool(prepared, project_stages, list(range(1, max_stages + 1)), n_proc, span,
+                                 should_stop)
+    except StudyCancelled as exc:
+        done = [StagingOption(n, split) for n, split in exc.partial]
+        raise StudyCancelled(f"study cancelled after {len(done)} of {max_stages} options",
+                             _with_savings(done)) from None
+    return [StagingOption(n, splits[n]) for n in range(1, max_stages + 1)]

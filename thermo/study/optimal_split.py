@@ -1,7 +1,7 @@
 """The stage pressure ratios of least driver power under the stages' limits."""
 from __future__ import annotations
 
-__all__ = ["SplitResult", "optimal_split", "split_prepared", "METHOD"]
+__all__ = ["SplitResult", "optimal_split", "split_prepared", "solve_at", "METHOD"]
 
 import math
 from dataclasses import dataclass, field
@@ -387,9 +387,7 @@ class _Problem:
         if chosen is None:
             return self.failed()
         ratios = list(chosen.ratios)
-        doc = dict(self.doc)
-        doc["stages"] = [dict(s, pressure_ratio=r) for s, r in zip(self.doc["stages"], ratios)]
-        result = solve(doc)
+        result = solve_at(self.doc, ratios)
         margins = [lim.margin(result) for lim in self.limits]
         feasible = self.ratios_ok(ratios) and all(m >= 0.0 for m in margins)
         binding = self.binding(ratios, result, margins, feasible)
@@ -415,6 +413,13 @@ class _Problem:
                     out.append(BindingLimit(f"stages[{i}].max_pressure_ratio", b.hi[i], r, None, "active",
                                             f"stage {i + 1} held at its maximum pressure ratio {b.hi[i]:g}"))
         return out
+
+
+def solve_at(doc: dict, ratios: list[float]) -> TrainResult:
+    """The full solve of a study's train at the stage ratios ``ratios`` (a split's ``result``)."""
+    doc = dict(doc)
+    doc["stages"] = [dict(s, pressure_ratio=r) for s, r in zip(doc["stages"], ratios)]
+    return solve(doc)
 
 
 def _failure_detail(err, n: int, hint: str) -> dict | None:
