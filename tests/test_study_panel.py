@@ -102,6 +102,8 @@ def test_cancel_stops_the_study_and_the_window_stays_usable(qtbot, tmp_path, mon
                 cancel.wait(20)  # the study waits here until the user presses Cancel
         return real(doc, max_stages, progress=report, cancel=cancel, **kw)
     monkeypatch.setattr(stagewright.core.study, "compare_stagings", held_after_first_option)
+    # options one after another (an earlier study may have warmed the side-by-side pool)
+    monkeypatch.setattr("stagewright.core.warm_pool.study_processes", lambda: 1)
 
     win = make_window(qtbot, tmp_path, perfect_gas_doc())
     panel = win.panels["study"]
@@ -365,4 +367,24 @@ def test_an_option_kept_as_a_case_solves_to_the_study_numbers(qtbot, tmp_path):
     assert kept.driver_power_W / 1e3 == pytest.approx(optimum_kW(3), abs=0.006)
     ed.undo_stack.undo()
     assert case_names(ed.model.project_snapshot()) == ["Base"]
+    win.close()
+
+
+def test_after_the_first_study_the_next_runs_side_by_side_with_the_same_rows(qtbot, tmp_path, monkeypatch):
+    import stagewright.core.study
+    from stagewright.core.warm_pool import is_warm
+    real = stagewright.core.study.compare_stagings
+    asked = []
+
+    def recorded(*args, **kw):
+        asked.append(kw.get("processes"))
+        return real(*args, **kw)
+    monkeypatch.setattr(stagewright.core.study, "compare_stagings", recorded)
+    monkeypatch.setattr("stagewright.core.warm_pool._warm", [0])  # as in a fresh window
+    win = make_window(qtbot, tmp_path, perfect_gas_doc())
+    first = [dict(r) for r in run(qtbot, win, 4).rows]
+    qtbot.waitUntil(is_warm, timeout=120_000)  # warmed in the background after the first study
+    second = [dict(r) for r in run(qtbot, win, 4).rows]
+    assert asked == [1, 2]
+    assert second == first
     win.close()

@@ -13,14 +13,38 @@ __all__ = ["new_air_state", "update_tp", "eos_reference", "coolprop_version",
 
 from functools import lru_cache
 
-import CoolProp
-import CoolProp.CoolProp as _CP
-
 from stagewright.core.errors import PropertyRangeError
 
-PT_INPUTS = _CP.PT_INPUTS
-DmassT_INPUTS = _CP.DmassT_INPUTS
-iHmass, iP, iT = _CP.iHmass, _CP.iP, _CP.iT
+_CONSTANTS = ("PT_INPUTS", "DmassT_INPUTS", "iHmass", "iP", "iT")
+
+
+def _load():
+    """Import CoolProp (loading its fluid library takes most of a second) and bind its names here."""
+    import CoolProp.CoolProp as cp
+    g = globals()
+    for name in _CONSTANTS:
+        g[name] = getattr(cp, name)
+    g["_CP"] = cp
+    return cp
+
+
+class _OnFirstUse:
+    """Stands for ``CoolProp.CoolProp`` until something asks it for a name: CoolProp is imported
+    on the first property call, not when the core is imported, so a window can show first."""
+
+    def __getattr__(self, name):
+        return getattr(_load(), name)
+
+
+_CP = _OnFirstUse()
+
+
+def __getattr__(name: str):
+    """``PT_INPUTS``, ``iHmass`` … of CoolProp, loading it on first use (PEP 562)."""
+    if name in _CONSTANTS:
+        _load()
+        return globals()[name]
+    raise AttributeError(f"module {__name__!r} has no attribute {name!r}")
 
 
 def new_air_state():
@@ -43,11 +67,16 @@ def new_air_state():
 def update_tp(state, temperature: float, pressure: float, where: str = "") -> None:
     """Set ``state`` to temperature [K] and pressure [Pa]; raise our own error on failure."""
     try:
-        state.update(PT_INPUTS, pressure, temperature)
+        state.update(_CP.PT_INPUTS, pressure, temperature)
     except ValueError as exc:  # CoolProp reports every flash failure as ValueError
         raise PropertyRangeError(
             f"{where or 'state'}: air properties unavailable at T = {temperature:.6g} K, "
             f"p = {pressure:.6g} Pa ({exc})", where) from None
+
+
+def _version() -> str:
+    import CoolProp
+    return CoolProp.__version__
 
 
 @lru_cache(maxsize=None)
@@ -56,16 +85,16 @@ def eos_reference(model: str) -> str:
     if model == "real_gas":
         key = _CP.get_BibTeXKey("Air", "EOS")
         return ("E. W. Lemmon, R. T. Jacobsen, S. G. Penoncello, D. G. Friend, J. Phys. Chem. "
-                f"Ref. Data 29 (2000) 331–385 [{key}], via CoolProp {CoolProp.__version__}")
+                f"Ref. Data 29 (2000) 331–385 [{key}], via CoolProp {_version()}")
     if model == "ideal_gas":
         return ("Ideal-gas part of Lemmon et al., J. Phys. Chem. Ref. Data 29 (2000) 331–385, "
-                f"via CoolProp {CoolProp.__version__}")
+                f"via CoolProp {_version()}")
     return "Perfect gas with constant specific heat (user cp and k)"
 
 
 def coolprop_version() -> str:
     """Version string of the CoolProp library in use."""
-    return CoolProp.__version__
+    return _version()
 
 
 def humid_air_property(output: str, *pairs) -> float:
@@ -101,7 +130,7 @@ def water_ideal_gas(state, temperature: float) -> tuple[float, float, float]:
         Temperature, [K].
     """
     r_w = state.gas_constant() / state.molar_mass()
-    state.update(DmassT_INPUTS, 101_325.0 / (r_w * temperature), temperature)
+    state.update(_CP.DmassT_INPUTS, 101_325.0 / (r_w * temperature), temperature)
     return state.hmass_idealgas(), state.smass_idealgas(), state.cp0mass()
 
 
@@ -130,7 +159,7 @@ def liquid_water_density(temperature: float, pressure: float) -> float:
     """Density of liquid water [kg/m³] at T [K], p [Pa] (IAPWS-95), for condensate volumes."""
     try:
         state = _liquid_state()
-        state.update(PT_INPUTS, pressure, temperature)
+        state.update(_CP.PT_INPUTS, pressure, temperature)
         return state.rhomass()
     except ValueError as exc:
         raise PropertyRangeError(f"liquid water density unavailable at T = {temperature:.6g} K, "
@@ -153,7 +182,7 @@ def new_incompressible_state(fluid: str, mass_fraction: float | None = None):
 def incompressible_update_tp(state, temperature: float, pressure: float, where: str = "") -> None:
     """Set an incompressible ``state`` to T [K], p [Pa]; raise our own error on failure."""
     try:
-        state.update(PT_INPUTS, pressure, temperature)
+        state.update(_CP.PT_INPUTS, pressure, temperature)
     except ValueError as exc:
         raise PropertyRangeError(f"{where or 'coolant'}: properties unavailable at T = {temperature:.6g} K "
                                  f"({exc})", where) from None

@@ -95,10 +95,10 @@ class StudyPanel(QWidget):
         self.destroyed.connect(lambda *_: self._disconnect())
         self._on_model_changed("")
 
-    def showEvent(self, event) -> None:
-        """The first time the panel shows, prepare two worker processes in the background, so that a
-        staging comparison can run its options side by side (stagewright.core.warm_pool)."""
-        super().showEvent(event)
+    def _warm_up_pool_once(self) -> None:
+        """After the first study, prepare two worker processes in the background, so that the next
+        staging comparisons run their options side by side (stagewright.core.warm_pool); not at
+        start-up, where the workers' start would compete with the window's own."""
         if not self._pool_warming and (os.cpu_count() or 1) >= 2:
             self._pool_warming = True
             threading.Thread(target=_warm_up_quietly, name="stagewright-study-pool", daemon=True).start()
@@ -322,6 +322,7 @@ class StudyPanel(QWidget):
         self._accept(answer)
         n = sum(len(c["rows"]) for c in answer["cases"])
         self._set_status(f"Compared {n} option(s) in {seconds:.1f} s." + self._best_text())
+        self._warm_up_pool_once()
 
     def _on_cancelled(self, job: int, answer: dict, message: str) -> None:
         self.controls.set_progress(self.controls.fraction)  # what was done (never a busy bar)

@@ -141,7 +141,17 @@ class MainWindow(QMainWindow):
         self.files.keep_results_changed.connect(self.action_map["file.keep_results"].setChecked)
         self.files.show_kept_results(self.model.project_snapshot())
         self.editor.snapshot_checked.connect(lambda text: self.statusBar().showMessage(text, 12000))
-        self.editor.solve_now(immediate=True)
+        # the first solve loads the property library (most of a second, holding the interpreter):
+        # start it once the window has painted, so the window shows first; a window never shown
+        # solves anyway after a while
+        self._first_solve_started = False
+        QTimer.singleShot(FIRST_SOLVE_UNSHOWN_MS, self, self._first_solve)
+
+    def _first_solve(self) -> None:
+        if not self._first_solve_started:
+            self._first_solve_started = True
+            if not self.editor.solved_jobs and not self.editor.solver.busy:
+                self.editor.solve_now(immediate=True)
 
     def _on_undo_changed(self, *_args) -> None:
         self.update_title()
@@ -403,6 +413,8 @@ class MainWindow(QMainWindow):
 
     def showEvent(self, event) -> None:
         super().showEvent(event)
+        if not self._first_solve_started:
+            QTimer.singleShot(FIRST_SOLVE_AFTER_SHOW_MS, self, self._first_solve)
         if self._default_state is None:
             self.default_layout()
             self._default_state = self.saveState(STATE_VERSION)
@@ -460,6 +472,8 @@ class MainWindow(QMainWindow):
         event.accept()
 
 
+FIRST_SOLVE_AFTER_SHOW_MS = 20  #: the first solve starts this long after the window shows (its first paint is done)
+FIRST_SOLVE_UNSHOWN_MS = 400  #: … or this long after the window was made, if it is not shown
 WARM_UP_DELAY_MS = 2000  #: after the first answer: the coolant back ends load on a background thread
 
 
