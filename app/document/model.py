@@ -95,6 +95,9 @@ class ProjectModel:
         self.changed = Signal()
         self.structure_changed = Signal()
         self.cases_changed = Signal()
+        self._normalised: dict | None = None  # normalised() of the document as it is (None: not made)
+        self.changed.connect(self._forget_normalised)  # first: every other slot sees the new document
+        self.structure_changed.connect(self._forget_normalised)
         self._project: dict = copy.deepcopy(doc) if doc is not None else new_document()
         self._active: str | None = None  # None: the base
         self._doc: dict = self._view()
@@ -176,8 +179,16 @@ class ProjectModel:
         return get_in(self._doc, path, default)
 
     def normalised(self) -> dict:
-        """The document with schema defaults filled in, even when it has problems (for display)."""
-        return check(PROJECT, self._doc, "", []) if isinstance(self._doc, dict) else {}
+        """The document with schema defaults filled in, even when it has problems (for display).
+
+        Made once per change of the document (every field of every panel asks for its default
+        after each edit); read it, never change it."""
+        if self._normalised is None:
+            self._normalised = check(PROJECT, self._doc, "", []) if isinstance(self._doc, dict) else {}
+        return self._normalised
+
+    def _forget_normalised(self, *_args) -> None:
+        self._normalised = None
 
     def problems(self) -> list:
         """Every :class:`stagewright.core.errors.Problem` of the document (ranges come from the schema)."""

@@ -2,8 +2,8 @@
 
 Every request gets a job id one higher than the last, so an edit made during a solve always
 wins: the running solve's answer is dropped (:class:`~stagewright.gui.jobs.job_runner.JobRunner` does the
-thread, the job ids and the error messages). Requests are debounced: a burst of edits makes
-one solve of the last document. Errors become a ``failed`` signal with the reason and the
+thread, the job ids and the error messages). An edit while the solver is idle solves at once;
+a burst of edits during a solve makes one solve of the last document. Errors become a ``failed`` signal with the reason and the
 field path; nothing propagates into Qt.
 """
 from __future__ import annotations
@@ -45,10 +45,14 @@ class SolveController(JobRunner):
         return super().busy or self._timer.isActive()
 
     def request(self, doc: dict, immediate: bool = False) -> int:
-        """Solve ``doc`` (a private copy) after the debounce delay; return its job id."""
+        """Solve ``doc`` (a private copy); return its job id.
+
+        An edit while the solver is idle solves at once (the balance follows an edit without a
+        wait); edits that come while a solve runs (or while gathered edits wait) are gathered
+        into one solve of the newest document, after the debounce delay."""
         job = self.supersede()
         self._pending_doc = doc
-        if immediate:
+        if immediate or not (JobRunner.busy.fget(self) or self._timer.isActive()):
             self._timer.stop()
             self._fire()
         else:

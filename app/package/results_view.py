@@ -90,6 +90,8 @@ class PackageResults(QTabWidget):
         self.addTab(self.annual, "Load profile year")
         self.addTab(_scrolled(sheet), "Data sheet")
         self.addTab(self.chart, "Chart")
+        self._chart_pending = None  # (pkg, system) not drawn yet: the chart draws when it is looked at
+        self.currentChanged.connect(lambda _i: self._draw_if_shown())
 
     def show_package(self, pkg: dict | None, system: str) -> None:
         if pkg is None:
@@ -98,6 +100,7 @@ class PackageResults(QTabWidget):
             self.control_line.setText("Solve the project to see the package figures.")
             self.notes.setText("")
             self.chart.setCurrentWidget(self.chart_hint)
+            self._chart_pending = None
             return
         self.control_line.setText(pt.control_line(pkg))
         figures = pt.point_figures(pkg, _OUT)
@@ -114,7 +117,20 @@ class PackageResults(QTabWidget):
         self.cautions.setText("Caution — " + " · ".join(title.lower() for title, _ in cautions)
                               + ": hover here for the text (the report prints it on the data sheet).")
         self.cautions.setToolTip(plain_tip("\n\n".join(f"{title}: {text}" for title, text in cautions)))
-        self._draw(pkg, system)
+        self._chart_pending = (pkg, system)
+        self._draw_if_shown()
+
+    def showEvent(self, event) -> None:  # noqa: N802 (Qt's name)
+        super().showEvent(event)
+        self._draw_if_shown()
+
+    def _draw_if_shown(self) -> None:
+        """Draw the part-load chart if its tab is the one shown (a chart nobody sees costs a
+        quarter of a second of the window's time after every edit)."""
+        if self._chart_pending is not None and self.currentWidget() is self.chart and self.isVisible():
+            pkg, system = self._chart_pending
+            self._chart_pending = None
+            self._draw(pkg, system)
 
     def _draw(self, pkg: dict, system: str) -> None:
         from stagewright.gui.charts.part_load_chart import draw_part_load_chart

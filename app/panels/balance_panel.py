@@ -77,6 +77,7 @@ class BalancePanel(QWidget):
         self.editor = editor
         self._columns = {"points": shown(tables.POINTS, _OUT), "components": shown(tables.COMPONENTS, _OUT)}
         self._total_rows = shown(tables.TOTALS, _OUT)
+        self._filled: tuple = (None, None)  # (result, units) the tables were last filled with
         lay = QVBoxLayout(self)
         lay.setContentsMargins(6, 4, 6, 4)
         lay.setSpacing(4)
@@ -194,6 +195,10 @@ class BalancePanel(QWidget):
             t.setProperty("stale", stale)
             t.style().unpolish(t)
             t.style().polish(t)
+        shown_for = (system, self.editor.prefs.gauge, self.editor.barometric_Pa())
+        if r is not None and r is self._filled[0] and shown_for == self._filled[1]:
+            return  # the same result in the same units (an edit marked it out of date): nothing to refill
+        self._filled = (r, shown_for)
         self._headers(system)
         if r is None:
             for t in (self.points, self.components, self.totals):

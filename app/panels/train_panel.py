@@ -114,18 +114,24 @@ class TrainPanel(QWidget):
 
     def _rebuild(self) -> None:
         stages = self.editor.model.get("stages", []) or []
-        self.list.blockSignals(True)
-        self.list.clear()
+        rows = []
         for i, st in enumerate(stages):
             st = st if isinstance(st, dict) else {}
             stage_text, cooler_text = self._row_text(i, st)
-            item = QListWidgetItem(icon("stage"), stage_text)
-            item.setData(ROLE, ("stage", i))
-            self.list.addItem(item)
+            rows.append(("stage", i, stage_text))
             if cooler_text:
-                c = QListWidgetItem(icon("cooler"), "    " + cooler_text)
-                c.setData(ROLE, ("cooler", i))
-                self.list.addItem(c)
+                rows.append(("cooler", i, "    " + cooler_text))
+        shown = [(*self.list.item(r).data(ROLE), self.list.item(r).text()) for r in range(self.list.count())]
+        if rows == shown:  # an edit that leaves every row as it was (most site edits): nothing to redo
+            if self.list.currentRow() != self._row_of(*self._selected):
+                self.select(*self._selected)
+            return
+        self.list.blockSignals(True)
+        self.list.clear()
+        for kind, i, text in rows:
+            item = QListWidgetItem(icon(kind), text)
+            item.setData(ROLE, (kind, i))
+            self.list.addItem(item)
         self.list.blockSignals(False)
         self._fit_list()
         self.select(*self._selected)

@@ -98,7 +98,7 @@ class QuantityField(QWidget):
         self.editor = editor
         self.path = path
         self.nullable = nullable
-        self._shown_text = ""
+        self._shown_text = None  # what _show put in the field last (None: nothing yet)
         self.edit = QLineEdit(self)
         self.edit.setAlignment(Qt.AlignRight | Qt.AlignVCenter)
         self.edit.setPlaceholderText(placeholder)
@@ -146,9 +146,12 @@ class QuantityField(QWidget):
             rounded = format_shown(u.to_display(float(value)))
         else:
             full = rounded = str(value)
-        self._full_text, self._rounded_text = full, rounded
-        self._show(full if self.edit.hasFocus() else rounded)
-        self._fit(full)
+        want = full if self.edit.hasFocus() else rounded
+        if (full, rounded, want) != (self._full_text, self._rounded_text, self._shown_text) \
+                or self.edit.isModified() or self.edit.text() != want:
+            self._full_text, self._rounded_text = full, rounded
+            self._show(want)
+            self._fit(full)
         self.update_mark()
 
     def _show(self, text: str) -> None:
@@ -192,7 +195,9 @@ class QuantityField(QWidget):
             self.edit.style().unpolish(self.edit)
             self.edit.style().polish(self.edit)
         exact = f"{self._full_text} {self.unit_label.text()}".strip() if self._full_text else ""
-        self.edit.setToolTip(plain_tip(message or exact))
+        tip = plain_tip(message or exact)
+        if tip != self.edit.toolTip():
+            self.edit.setToolTip(tip)
 
     def problem_message(self) -> str | None:
         """The editor's problem with this field's value, or None."""

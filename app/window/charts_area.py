@@ -8,10 +8,12 @@ from __future__ import annotations
 
 __all__ = ["ChartsPanel", "ChartTab"]
 
-from PySide6.QtCore import Qt
+from PySide6.QtCore import Qt, QTimer
 from PySide6.QtWidgets import QLabel, QTabWidget, QVBoxLayout, QWidget
 
 from stagewright.gui.document.paths import get_in
+
+CHART_REDRAW_MS = 60  #: a new result redraws the shown chart this long after it arrived
 
 
 class ChartTab(QWidget):
@@ -62,6 +64,12 @@ class ChartsPanel(QWidget):
         self._placeholder.setAlignment(Qt.AlignCenter)
         self.tabs.addTab(self._placeholder, "Charts")
         self.tabs.currentChanged.connect(lambda _i: self._draw_current())
+        # a new result redraws the shown chart a moment later, so the balance tables show first
+        # and a burst of results draws once
+        self._redraw = QTimer(self)
+        self._redraw.setSingleShot(True)
+        self._redraw.setInterval(CHART_REDRAW_MS)
+        self._redraw.timeout.connect(self._draw_current)
         editor.result_changed.connect(self.refresh)
         editor.prefs.changed.connect(self.refresh)
 
@@ -94,7 +102,7 @@ class ChartsPanel(QWidget):
             return  # a fresh result is on its way
         for tab in (self.ts, self.power):
             tab.pending = (ed.result, ed.prefs.system)
-        self._draw_current()
+        self._redraw.start()
 
     def _draw_current(self) -> None:
         tab = self.tabs.currentWidget()

@@ -147,8 +147,11 @@ class Editor(QObject):
         self.problems = self.model.problems()
         self.problems_changed.emit()
         if self.problems or self.entry_errors:
+            was_busy = self.solver.busy
             self.solver.cancel()
             self.failure = None
+            if self.stale and was_busy:
+                self.result_changed.emit()  # a solve stopped: the views say why it stopped
             self._mark_stale()
         else:
             self.solve_now(immediate=False)
