@@ -87,7 +87,7 @@ class YearPanel(QWidget):
 
     # ---- running -------------------------------------------------------------------------
     def has_profile(self) -> bool:
-        return bool(self.editor.model.snapshot().get("year"))
+        return bool(self.editor.model.doc.get("year"))  # read, not copied: an 8760-bin year is large
 
     def run(self) -> None:
         if not self.has_profile():
