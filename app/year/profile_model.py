@@ -9,7 +9,7 @@ one undo step or a refusal — and never into the document directly.
 """
 from __future__ import annotations
 
-__all__ = ["ProfileTableModel", "SOFT_COLOUR"]
+__all__ = ["ProfileTableModel", "SOFT_COLOUR", "SHOWN_DECIMALS"]
 
 from typing import Callable
 
@@ -25,6 +25,9 @@ from stagewright.gui.year.edits import ENTRY_COLUMNS, entries_key, month_hours
 
 #: text colour of values shown but not stored (spread hours, the year's load, unnamed bins)
 SOFT_COLOUR = "#8a96a3"
+#: decimals a cell shows while not edited, per quantity (weather data carry tenths; the cell's
+#: editor shows the stored value to the unit's decimals plus two, so that nothing is lost unseen)
+SHOWN_DECIMALS = {"temperature": 1, "fraction": 1}
 _SPREAD_TIP = "Spread from the operating hours by the days of the month (not stored)."
 _LOAD_TIP = "The year's load (not stored here); type a value to give this entry its own."
 
@@ -112,7 +115,9 @@ class ProfileTableModel(QAbstractTableModel):
         entries = self._entries
         if row >= len(entries) or not isinstance(entries[row], dict):
             return None
-        if role in (Qt.DisplayRole, Qt.EditRole):
+        if role == Qt.DisplayRole:
+            return self.text(row, c.key, entries[row], shown=True)
+        if role == Qt.EditRole:
             return self.text(row, c.key, entries[row])
         if role == Qt.TextAlignmentRole:
             return int((Qt.AlignLeft if c.key == "label" else Qt.AlignRight) | Qt.AlignVCenter)
@@ -138,8 +143,9 @@ class ProfileTableModel(QAbstractTableModel):
         return self._commit(index.row(), key, text)
 
     # ---- cell texts -----------------------------------------------------------------------
-    def text(self, row: int, key: str, entry: dict | None = None) -> str:
-        """The cell of entry ``row`` and column ``key`` as shown."""
+    def text(self, row: int, key: str, entry: dict | None = None, shown: bool = False) -> str:
+        """The cell of entry ``row`` and column ``key`` as its editor shows it, or rounded as the
+        table shows it (``shown``: :data:`SHOWN_DECIMALS`)."""
         if entry is None:
             entry = self._entries[row]
         value = entry.get(key)
@@ -147,10 +153,16 @@ class ProfileTableModel(QAbstractTableModel):
             return MONTH_NAMES[row] if self.monthly and row < 12 else (value or f"bin {row + 1}")
         u = self._units[key]
         if isinstance(value, (int, float)) and not isinstance(value, bool):
+            quantity = next(c.quantity for c in ENTRY_COLUMNS if c.key == key)
+            if shown and quantity in SHOWN_DECIMALS:
+                text = f"{u.to_display(value):.{SHOWN_DECIMALS[quantity]}f}"
+                return text[1:] if text.startswith("-") and float(text) == 0.0 else text  # never "-0.0"
             return format_entry(u.to_display(value), u.decimals)
         if key == "hours" and self._spread is not None and row < len(self._spread):
             return f"{self._spread[row]:.0f}"  # spread by days: shown, not stored
         if key == "load":
+            if shown:
+                return f"{u.to_display(self._year_load):.{SHOWN_DECIMALS['fraction']}f}"
             return format_entry(u.to_display(self._year_load), u.decimals)
         return "" if value is None else str(value)
 
