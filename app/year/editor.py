@@ -50,7 +50,7 @@ KIND_CHOICES = [("monthly", "Monthly means"), ("bins", "Bins of hours")]
 #: a change inside one entry of the profile: ``year.profile.bins[12].hours`` (group 1: the index)
 _ENTRY_CHANGE = re.compile(r"^year\.profile\.(?:months|bins)\[(\d+)\](?:\.\w+)?$")
 #: rows whose cell widths are measured when the table is filled (an 8760-row year is not measured row by row)
-_WIDTH_SAMPLE_ROWS = 100
+_WIDTH_SAMPLE_ROWS = 30
 PLACEHOLDER_NOTE = ("Placeholders: every month holds the site's ambient temperature and humidity. "
                     "Replace them with the site's own monthly means.")
 

@@ -33,7 +33,7 @@ def _table(columns: int) -> QTableWidget:
 
 
 #: rows whose cell widths are measured when the bins are shown (an hourly year is not measured row by row)
-_WIDTH_SAMPLE_ROWS = 100
+_WIDTH_SAMPLE_ROWS = 50
 _MONTHS = ("January", "February", "March", "April", "May", "June", "July", "August", "September", "October",
            "November", "December")
 
