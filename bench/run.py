@@ -362,6 +362,64 @@ def case_cli():
 CASES.append(case_cli)
 
 
+def case_year_editor():
+    """The window's year profile editor with an imported 8760-row hourly profile (issue 15): time
+    to import and show it, per cell edit, undo, redo, a refused edit, and a switch of units.
+    Wall time, and CPU of the GUI thread alone (``time.thread_time``; the solve the edit starts
+    runs in its own thread), medians of 15 (import: 3)."""
+    os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
+    from PySide6.QtCore import QSettings
+    from PySide6.QtWidgets import QApplication
+    from stagewright.gui.window.main_window import MainWindow
+    app = QApplication.instance() or QApplication([])
+    doc = json.loads((ROOT / "sample_projects" / "three_stage_site_year.json").read_text())
+    with tempfile.TemporaryDirectory() as tmp:
+        csv_path = Path(tmp) / "hourly.csv"
+        csv_path.write_text("temperature [K], rh [fraction], hours [h]\n" + "\n".join(
+            f"{b['temperature_K']},{b['relative_humidity']},1" for b in hourly_profile()) + "\n")
+        win = MainWindow(doc, settings=QSettings(str(Path(tmp) / "s.ini"), QSettings.IniFormat),
+                         debounce_ms=10, restore_layout=False)
+        win.prompts.ask_save_changes = lambda _name: "discard"  # never a modal question on close
+        win.resize(1280, 800)
+        win.show()
+        app.processEvents()
+        ed, stack = win.panels["year"].profile_editor, win.editor.undo_stack
+
+        def timed(fn, repeat, after=None):
+            walls, cpus = [], []
+            for _ in range(repeat):
+                c, t = time.thread_time(), time.perf_counter()
+                fn()
+                app.processEvents()
+                walls.append(time.perf_counter() - t)
+                cpus.append(time.thread_time() - c)
+                if after is not None:
+                    after()
+                    app.processEvents()
+            return (statistics.median(walls), min(walls), max(walls)), statistics.median(cpus)
+
+        def show(name, fn, repeat=15, after=None):
+            wall, cpu = timed(fn, repeat, after)
+            report(name, wall, extra=f"GUI-thread CPU {1000 * cpu:.0f} ms")
+
+        # each import undone (untimed) before the next: a second import of the same rows changes nothing
+        show("year editor: import + show 8760 rows", lambda: ed.import_csv(csv_path), 3, after=stack.undo)
+        ed.import_csv(csv_path)
+        step = iter(range(10_000))
+        show("year editor: one cell edit (8760 rows)",
+             lambda: ed.set_cell(5000, "temperature_K", f"{-5 + 0.1 * next(step):.1f}"))
+        show("year editor: undo", stack.undo)
+        show("year editor: redo", stack.redo)
+        show("year editor: refused edit", lambda: ed.set_cell(5000, "temperature_K", "90"))
+        flip = iter(range(10_000))
+        show("year editor: switch SI/US", lambda: win.set_us_units(next(flip) % 2 == 0), 6)
+        win.editor.shutdown()
+        win.close()
+
+
+CASES.append(case_year_editor)
+
+
 def main(argv: list[str]) -> None:
     print(f"Stagewright bench — {time.strftime('%Y-%m-%d')} — Python {platform.python_version()}, "
           f"{platform.machine()}, {os.cpu_count()} cores, CoolProp {stagewright.core.coolprop_adapter.coolprop_version()}")

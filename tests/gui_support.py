@@ -60,3 +60,35 @@ def window(qtbot, tmp_path):
     win = make_window(qtbot, tmp_path)
     yield win
     win.close()
+
+
+def write_hourly_csv(path: Path, hours: int = 8760) -> Path:
+    """An invented hourly year (no real station): a continental site, about −9 °C in January and
+    +21 °C in July with a daily swing, a dew point 1–6 K under the dry bulb and a cooling-water
+    supply that follows the season with a 12 °C floor. Deterministic; written to ``path``."""
+    import math
+    from datetime import datetime, timedelta
+    start = datetime(2025, 1, 1)
+    lines = ["timestamp,dry bulb [°C],dew point [°C],coolant supply [°C]"]
+    for h in range(hours):
+        day, hour = divmod(h, 24)
+        t = 6.0 - 15.0 * math.cos(2 * math.pi * (day - 15) / 365.0) + 4.0 * math.sin(2 * math.pi * (hour - 9) / 24.0)
+        dew = t - 1.0 - 5.0 * (0.5 + 0.5 * math.sin(2 * math.pi * (hour - 9) / 24.0))
+        stamp = start + timedelta(hours=h)
+        lines.append(f"{stamp:%Y-%m-%d %H:%M},{t:.1f},{dew:.1f},{max(12.0, 0.55 * t + 11.0):.1f}")
+    Path(path).write_text("\n".join(lines) + "\n", encoding="utf-8")
+    return Path(path)
+
+
+def type_table_cell(table, row: int, column: int, text: str) -> bool:
+    """What a table view does when the user finishes typing in a cell: its model's data is set."""
+    from PySide6.QtCore import Qt
+    model = table.model()
+    return model.setData(model.index(row, column), text, Qt.EditRole)
+
+
+def table_cell_text(table, row: int, column: int) -> str:
+    """A cell's text as a table view shows it."""
+    from PySide6.QtCore import Qt
+    model = table.model()
+    return model.data(model.index(row, column), Qt.DisplayRole)

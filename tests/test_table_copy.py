@@ -160,14 +160,13 @@ def test_study_options_table_copies_its_options(qtbot):
 
 def test_year_table_copies_its_bins(qtbot, tmp_path):
     win = make_window(qtbot, tmp_path)
-    table = win.panels["year"].table
-    table.setRowCount(2)
-    for r in range(2):
-        for c in range(table.columnCount()):
-            table.setItem(r, c, QTableWidgetItem(f"{r} 000.5" if c else ("Jan", "Feb")[r]))
+    results = win.panels["year"].results
+    table = results.table
+    results.bins.show([{"label": "Jan", "temperature_K": 270.15}, {"label": "Feb", "temperature_K": 1273.65}], "SI")
     win.docks["year"].raise_()
     _press_copy(qtbot, table)
     grid = _grid(_clipboard())
-    assert [r[0] for r in grid[1:]] == ["Jan", "Feb"] and grid[2][1] == "1000.5"
-    assert len(grid[0]) == table.columnCount() - sum(table.isColumnHidden(c) for c in range(table.columnCount()))
+    model = table.model()
+    assert [r[0] for r in grid[1:]] == ["Jan", "Feb"] and grid[2][1] == "1000.50"  # °C, two decimals, no thousands space in a copy
+    assert len(grid[0]) == model.columnCount() - sum(table.isColumnHidden(c) for c in range(model.columnCount()))
     win.close()

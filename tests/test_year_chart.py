@@ -147,3 +147,36 @@ def test_the_worst_bin_is_named_clear_of_the_month_labels(year, system, size_px)
     for t in texts:
         box = t.get_window_extent(renderer)
         assert not any(box.overlaps(b) for b in tick_boxes), (t.get_text(), size_px)
+
+
+def _hourly(year):
+    """The twelve months' figures spread over 8760 hours named by their time (as an imported
+    hourly year is), January's condensate marked as freezing."""
+    from datetime import datetime, timedelta
+    start, bins = datetime(2025, 1, 1), []
+    for h in range(8760):
+        t = start + timedelta(hours=h)
+        month = dict(year["bins"][t.month - 1])
+        month.update(label=f"{t:%Y-%m-%d %H:%M}", hours=1.0, energy_kWh=month["energy_kWh"] / month["hours"],
+                     condensate_m3=month["condensate_m3"] / month["hours"], freezing_condensate=t.month == 1)
+        bins.append(month)
+    return {**year, "bins": bins}
+
+
+def test_an_hourly_year_is_drawn_as_areas_with_month_ticks_and_its_freezing_hours_marked(year):
+    # 8760 bars and markers would run together into a band, and 8760 labels cannot be read
+    hourly = _hourly(year)
+    fig = Figure(figsize=(9, 2.4), dpi=100)
+    FigureCanvasAgg(fig)
+    draw_year_chart(fig, hourly, side_by_side=True, dryer=True)
+    assert not _patches(fig, "year-energy-") and not _patches(fig, "year-condensate-")
+    areas = {c.get_gid(): c for ax in fig.axes for c in ax.collections}
+    assert {"year-energy", "year-condensate", "year-freezing"} <= set(areas)
+    tops = areas["year-energy"].get_paths()[0].vertices[:, 1]
+    assert tops.max() == pytest.approx(max(b["energy_kWh"] for b in hourly["bins"]), rel=1e-9)
+    for ax in fig.axes:
+        assert [t.get_text() for t in ax.get_xticklabels()] == ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul",
+                                                               "Aug", "Sep", "Oct", "Nov", "Dec"]
+    (line,) = [ln for ax in fig.axes for ln in ax.get_lines() if ln.get_gid() == "year-discharge"]
+    assert len(line.get_xdata()) == 8760 and line.get_marker() in ("None", "none", None)
+    assert "Energy per hour" in fig.axes[0].get_title(loc="left")

@@ -125,3 +125,10 @@ def test_cli_year_reads_a_csv_profile_bins_it_and_writes_every_bin(tmp_path, cap
     bad.write_text("temperature,rh\n10,50\n11,x\n")
     assert main(["year", str(project), "--profile", str(bad)]) == 2
     assert "CSV line 3, column 2 'rh'" in capsys.readouterr().err
+
+
+def test_rows_with_timestamps_are_named_by_their_hour():
+    p = read_profile_text("time,temperature [°C],dew point [°C]\n2025-01-17 06:00,-21.5,-23\n"
+                          "2025-01-17 07:00,-21,-22.4\n")
+    assert [b["label"] for b in p.bins] == ["2025-01-17 06:00", "2025-01-17 07:00"]
+    assert "label" not in read_profile_text("temperature [°C],rh [%]\n-8,85\n").bins[0]

@@ -7,6 +7,8 @@ import pytest
 
 pytest.importorskip("PySide6")
 
+from PySide6.QtCore import Qt  # noqa: E402
+
 from stagewright.gui.year.edits import ENTRY_COLUMNS  # noqa: E402
 from gui_support import ROOT, make_window, simple_real_gas_doc  # noqa: E402
 
@@ -21,9 +23,21 @@ def _fahrenheit_to_K(t_F: float) -> float:
     return (t_F + 459.67) / 1.8
 
 
-def _type_cell(ed, row: int, key: str, text: str) -> None:
-    """What the table does when the user finishes typing in a cell: its item text changes."""
-    ed.table.item(row, COL[key]).setText(text)
+def _type_cell(ed, row: int, key: str, text: str) -> bool:
+    """What the table does when the user finishes typing in a cell: the view's delegate sets the
+    model's data (the editor commits it as one undo step or refuses it)."""
+    model = ed.table.model()
+    return model.setData(model.index(row, COL[key]), text, Qt.EditRole)
+
+
+def _cell(ed, row: int, key: str) -> str:
+    """The cell's text as the table shows it."""
+    model = ed.table.model()
+    return model.data(model.index(row, COL[key]), Qt.DisplayRole)
+
+
+def _head(ed, key: str) -> str:
+    return ed.table.model().headerData(COL[key], Qt.Horizontal, Qt.DisplayRole)
 
 
 def _sample_window(qtbot, tmp_path):
@@ -44,7 +58,7 @@ def test_start_from_the_site_creates_twelve_placeholder_months_as_one_undo_step(
     assert year["profile"]["kind"] == "monthly" and len(year["profile"]["months"]) == 12
     assert all(m == {"temperature_K": 293.15, "relative_humidity": 0.55} for m in year["profile"]["months"])
     assert win.editor.model.problems() == []
-    assert ed.stack.currentIndex() == 1 and ed.table.rowCount() == 12
+    assert ed.stack.currentIndex() == 1 and ed.table.model().rowCount() == 12
     assert ed.note.isVisibleTo(ed) and "Placeholders" in ed.note.text()
     assert panel.run_button.isEnabled()
     assert win.editor.undo_stack.count() == count + 1
@@ -62,14 +76,14 @@ def test_a_cell_typed_in_us_units_is_stored_in_kelvin_and_undo_redo_restore_it(q
     win.set_us_units(True)
     ed = win.panels["year"].profile_editor
     model, stack = win.editor.model, win.editor.undo_stack
-    assert "°F" in ed.table.horizontalHeaderItem(COL["temperature_K"]).text()
+    assert "°F" in _head(ed, "temperature_K")
     old = model.get("year.profile.months[2].temperature_K")
     _type_cell(ed, 2, "temperature_K", "50")
     assert model.get("year.profile.months[2].temperature_K") == pytest.approx(_fahrenheit_to_K(50.0), abs=1e-9)
     assert stack.undoText() == "Change March temperature"
     stack.undo()
     assert model.get("year.profile.months[2].temperature_K") == old
-    assert ed.table.item(2, COL["temperature_K"]).text() == "43.7"  # 279.65 K shown in °F again
+    assert _cell(ed, 2, "temperature_K") == "43.7"  # 279.65 K shown in °F again
     stack.redo()
     assert model.get("year.profile.months[2].temperature_K") == pytest.approx(283.15, abs=1e-9)
     # humidity in percent, load in percent: fractions in the document
@@ -88,7 +102,7 @@ def test_an_out_of_range_cell_is_refused_naming_field_value_and_range(qtbot, tmp
     assert "year.profile.months[2].temperature_K" in msg
     assert "150.0 °F" in msg and "-58 to 140 °F" in msg and "[223.15, 333.15] K" in msg
     assert win.editor.model.doc == before and win.editor.undo_stack.count() == count
-    assert ed.table.item(2, COL["temperature_K"]).text() == "43.7"  # the cell shows the document again
+    assert _cell(ed, 2, "temperature_K") == "43.7"  # the cell shows the document again
     _type_cell(ed, 3, "relative_humidity", "twelve")
     assert "not a number" in ed.message.text() and win.editor.model.doc == before
     ed.fields["year.load"][0].setText("0")  # load is in (0, 1]
@@ -137,9 +151,9 @@ def test_switch_to_bins_keeps_the_year_then_add_and_remove_bins(qtbot, tmp_path)
     ed.table.selectRow(2)
     ed.add_button.click()
     bins = model.get("year.profile.bins")
-    assert len(bins) == 13 and ed.table.rowCount() == 13
+    assert len(bins) == 13 and ed.table.model().rowCount() == 13
     assert bins[3]["temperature_K"] == bins[2]["temperature_K"] and "label" not in bins[3]
-    assert ed.table.item(3, COL["label"]).text() == "bin 4"
+    assert _cell(ed, 3, "label") == "bin 4"
     _type_cell(ed, 3, "label", "Heat wave")
     _type_cell(ed, 3, "hours", "40")
     assert model.get("year.profile.bins[3]") == {**bins[3], "label": "Heat wave", "hours": 40.0}
@@ -192,7 +206,7 @@ def test_edited_year_saves_and_loads_back_the_same(qtbot, tmp_path):
     win.files.new_project()
     assert win.panels["year"].profile_editor.stack.currentIndex() == 0
     assert win.files.open_path(str(out))
-    assert win.panels["year"].profile_editor.table.rowCount() == 12
+    assert win.panels["year"].profile_editor.table.model().rowCount() == 12
     assert win.editor.model.get("year") == loaded["year"]
 
 

@@ -122,3 +122,44 @@ def test_undo_text_keeps_month_names_capitalised(sample):
     assert undo_text("year.profile.bins[2].hours", bins) == "Change bin 3 (March) hours"
     del bins["year"]["profile"]["bins"][2]["label"]
     assert undo_text("year.profile.bins[2].hours", bins) == "Change bin 3 hours"
+
+
+def _whole_document_refusal(doc, pairs):
+    """The first new problem by checking the whole document before and after (what ``refusal``
+    did for every edit before issue 15's hourly years), as (field, expected)."""
+    before = {(p.field, p.expected) for p in problems(doc)}
+    new = [p for p in problems(_apply(doc, pairs)) if (p.field, p.expected) not in before]
+    return (new[0].field, new[0].expected) if new else None
+
+
+@pytest.mark.parametrize("kind", ["monthly", "bins"])
+def test_a_cell_or_year_field_refusal_checked_locally_says_what_the_whole_document_check_says(sample, kind):
+    # refusal checks only the touched entries, the year's own fields and the year's rules; it must
+    # refuse exactly what a check of the whole document refuses, with the same field and reason
+    doc = copy.deepcopy(sample)
+    if kind == "bins":
+        for p, v in profile_as(doc, "bins"):
+            set_in(doc, p, v)
+    key = "months" if kind == "monthly" else "bins"
+    edits = [
+        [(f"year.profile.{key}[3].temperature_K", 340.0)], [(f"year.profile.{key}[3].temperature_K", 223.15)],
+        [(f"year.profile.{key}[5].relative_humidity", 1.2)], [(f"year.profile.{key}[5].relative_humidity", "wet")],
+        [(f"year.profile.{key}[0].load", 0.0)], [(f"year.profile.{key}[0].load", 0.5)],
+        [(f"year.profile.{key}[2].coolant_inlet_temperature_K", 250.0)],
+        [(f"year.profile.{key}[1].hours", 700.0)], [(f"year.profile.{key}[1].hours", 8000.0)],
+        [(f"year.profile.{key}[1].hours", 600.0)],
+        [(f"year.profile.{key}[4].surprise", 1.0)],
+        [("year.load", 0.0)], [("year.load", 0.4)], [("year.operating_hours_per_year", 9000.0)],
+        [("year.coolers.mode", "sometimes")], [("year.coolers.ua_margin", 2.0)],
+        [("year.energy_price_per_kWh", -1.0)],
+        [(f"year.profile.{key}[3].temperature_K", 280.0), (f"year.profile.{key}[4].temperature_K", 400.0)],
+    ]
+    if kind == "bins":
+        edits.append([(f"year.profile.{key}[6].label", "x" * 81)])
+    for pairs in edits:
+        expected = _whole_document_refusal(doc, pairs)
+        message = refusal(doc, pairs)
+        if expected is None:
+            assert message is None, pairs
+        else:
+            assert message is not None and f"[{expected[0]}" in message and expected[1] in message, (pairs, message)

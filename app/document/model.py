@@ -10,6 +10,7 @@ from __future__ import annotations
 __all__ = ["Signal", "ProjectModel", "new_document"]
 
 import copy
+import pickle
 from typing import Any, Callable
 
 from stagewright.core.project.case_changes import base_document, differences
@@ -95,12 +96,11 @@ class ProjectModel:
         self.changed = Signal()
         self.structure_changed = Signal()
         self.cases_changed = Signal()
-        self._normalised: dict | None = None  # normalised() of the document as it is (None: not made)
-        self.changed.connect(self._forget_normalised)  # first: every other slot sees the new document
-        self.structure_changed.connect(self._forget_normalised)
         self._project: dict = copy.deepcopy(doc) if doc is not None else new_document()
         self._active: str | None = None  # None: the base
         self._doc: dict = self._view()
+        self._version = 0  #: one more at every change of the document (set, stages, case shown, replaced)
+        self._normalised: tuple[int, dict] | None = None  #: (version, normalised()) of the last call
 
     # ---- cases ---------------------------------------------------------------------------
     def _view(self) -> dict:
@@ -111,9 +111,10 @@ class ProjectModel:
 
     def _sync(self) -> None:
         """Write the active view back into the project."""
+        self._version += 1
         if self._active is None:
             keep = {k: self._project[k] for k in ("base_name", "cases", "snapshot") if k in self._project}
-            self._project = {**copy.deepcopy(self._doc), **keep}
+            self._project = {**_data_copy(self._doc), **keep}
             return
         changes = differences(base_document(self._project), self._doc)
         for case in self._project.get("cases") or []:
@@ -142,6 +143,7 @@ class ProjectModel:
             raise KeyError(name)
         self._active = target
         self._doc = self._view()
+        self._version += 1
         self.structure_changed.emit("reset", 0, 0)
         self.changed.emit("")
         self.cases_changed.emit()
@@ -161,6 +163,7 @@ class ProjectModel:
         names = case_names(self._project)
         self._active = active if active in names[1:] else None
         self._doc = self._view()
+        self._version += 1
         self.structure_changed.emit("reset", 0, 0)
         self.changed.emit("")
         self.cases_changed.emit()
@@ -173,7 +176,7 @@ class ProjectModel:
 
     def snapshot(self) -> dict:
         """A deep copy, safe to hand to a worker thread or to save."""
-        return copy.deepcopy(self._doc)
+        return _data_copy(self._doc)
 
     def get(self, path: str, default: Any = ABSENT) -> Any:
         return get_in(self._doc, path, default)
@@ -181,14 +184,13 @@ class ProjectModel:
     def normalised(self) -> dict:
         """The document with schema defaults filled in, even when it has problems (for display).
 
-        Made once per change of the document (every field of every panel asks for its default
-        after each edit); read it, never change it."""
-        if self._normalised is None:
-            self._normalised = check(PROJECT, self._doc, "", []) if isinstance(self._doc, dict) else {}
-        return self._normalised
-
-    def _forget_normalised(self, *_args) -> None:
-        self._normalised = None
+        Read it, never change it: it is worked out once per change of the document and shared by
+        every view that asks (each field's shown default asks; with an 8760-bin year each answer
+        took about 50 ms)."""
+        if self._normalised is None or self._normalised[0] != self._version:
+            norm = check(PROJECT, self._doc, "", []) if isinstance(self._doc, dict) else {}
+            self._normalised = (self._version, norm)
+        return self._normalised[1]
 
     def problems(self) -> list:
         """Every :class:`stagewright.core.errors.Problem` of the document (ranges come from the schema)."""
@@ -209,7 +211,7 @@ class ProjectModel:
 
     def set_many(self, pairs: list[tuple[str, Any]]) -> list[Any]:
         """Set several values as one change; return the previous values in order."""
-        olds = [set_in(self._doc, p, copy.deepcopy(v)) for p, v in pairs]
+        olds = [set_in(self._doc, p, _data_copy(v)) for p, v in pairs]
         self._sync()
         self.changed.emit(_common_prefix([p for p, _ in pairs]))
         return olds
@@ -237,6 +239,12 @@ class ProjectModel:
     def replace(self, doc: dict) -> None:
         """Swap in another project (open, new, revert), showing its base."""
         self.replace_project(doc)
+
+
+def _data_copy(doc: Any) -> Any:
+    """A deep copy of plain document data, about five times faster than ``copy.deepcopy`` (an
+    8760-bin year: 7 ms rather than 38 ms; the year profile editor, issue 15)."""
+    return pickle.loads(pickle.dumps(doc, pickle.HIGHEST_PROTOCOL))
 
 
 def _common_prefix(paths: list[str]) -> str:

@@ -23,7 +23,8 @@ Relative humidity is taken as meteorological data give it, relative to liquid wa
 it) and a frost point over ice; both are turned into relative humidity with the vapour
 pressures of :mod:`stagewright.core.moist.saturation` (the enhancement factor cancels in the ratio to
 within about 1e-4). Each row runs for its ``hours``, else for the time to the next timestamp
-(the last row: the median step), else one hour.
+(the last row: the median step), else one hour. A row with a timestamp is named by it
+(``label``, e.g. ``2025-01-17 06:00``), so results name the hour.
 
 Nothing is imported half-way: every row is read first, and the first bad one raises an
 :class:`~stagewright.core.errors.InputError` naming its line, its column and the valid range.
@@ -242,9 +243,13 @@ def read_profile_text(text: str, units: dict | None = None) -> ProfileCsv:
         raise InputError(f"CSV line {lines[8784]}", f"{len(rows)} rows", "at most 8784 rows (one leap year of hours)")
     bins = [_row(row, cols, line) for row, line in zip(rows, lines)]
     notes = []
+    times = _times(rows, cols["time"], lines) if "time" in cols else None
+    if times is not None:  # each row named by its time: results and charts say which hour, not "bin 4873"
+        for b, t in zip(bins, times):
+            b["label"] = f"{t:%Y-%m-%d %H:%M}"
     if "hours" not in cols:
-        if "time" in cols:
-            for b, h in zip(bins, _hours_from_times(_times(rows, cols["time"], lines), lines, cols["time"])):
+        if times is not None:
+            for b, h in zip(bins, _hours_from_times(times, lines, cols["time"])):
                 b["hours"] = h
             notes.append("each row runs until the next timestamp (the last row: the median step)")
         else:

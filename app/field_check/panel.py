@@ -87,14 +87,14 @@ class FieldCheckPanel(QWidget):
         self.runner.failed.connect(self._on_failed)
         self.runner.cancelled.connect(lambda _job, _partial, message: self._idle(message))
         editor.prefs.changed.connect(self.refresh)
-        editor.model.changed.connect(lambda _path: self._on_project_changed())
+        editor.model.changed.connect(self._on_project_changed)
         self._on_project_changed()
         self.refresh()
 
     # ---- running -------------------------------------------------------------------------
     def has_field_check(self) -> bool:
         from stagewright.core.uncertainty.field_check import has_field_check
-        return has_field_check(self.editor.model.snapshot())
+        return has_field_check(self.editor.model.doc)  # reads only: no copy of a large year
 
     def run(self, draws: int | None = None) -> None:
         """Evaluate the project's field check (``draws`` overrides the project's Monte Carlo draws)."""
@@ -127,8 +127,8 @@ class FieldCheckPanel(QWidget):
         self.progress.setVisible(False)
         self.status.setText(text)
 
-    def _on_project_changed(self) -> None:
-        if hasattr(self, "inputs_editor"):
+    def _on_project_changed(self, path: str = "") -> None:
+        if hasattr(self, "inputs_editor") and not _in_year(path):  # no measured input lies in the year
             self.inputs_editor.refresh()
         if not self.runner.busy:
             self.run_button.setEnabled(self.has_field_check())
@@ -163,3 +163,8 @@ class FieldCheckPanel(QWidget):
         self.notes.setPlainText("\n".join(ut.notes(d)))
         parts = [f"{row[0]}: <b style='color:{_COLOURS[row[4]]}'>{row[4]}</b> ({row[3]})" for row in verdicts]
         self.verdict_line.setText("Guarantees — " + " · ".join(parts) if parts else "No guaranteed figures stated.")
+
+
+def _in_year(path: str) -> bool:
+    """True for a change inside the project's year profile (``year``, ``year.profile.bins[3].hours``)."""
+    return path == "year" or path.startswith("year.")

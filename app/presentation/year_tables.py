@@ -116,7 +116,8 @@ YEAR_TOTALS: tuple[Figure, ...] = (
     Figure("totals.energy_kWh", "Energy", "energy", to_si=_KWH),
     Figure("totals.energy_cost", "Energy cost", decimals=2, looks=_MONEY),
     Figure("totals.condensate_m3", "Condensate", "liquid_volume"),
-    Figure("totals.cooling_water_m3", "Cooling water", "liquid_volume", decimals=1, note="once-through volume"),
+    Figure("totals.cooling_water_m3", "Cooling water", "liquid_volume", decimals=1, note="once-through volume",
+           looks={"window": Look(decimals=0)}),  # a year's water runs to millions of US gallons: no tenths
     Figure("totals.glycol_circulated_m3", "Glycol circulated", "liquid_volume", decimals=1),
     Figure("totals.water_cost", "Cooling-water cost", decimals=2, looks=_MONEY),
     Figure("totals.recoverable_heat_kWh", "Recoverable heat", "energy", to_si=_KWH),

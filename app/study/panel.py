@@ -453,6 +453,6 @@ class StudyPanel(QWidget):
     def _on_model_changed(self, path: str) -> None:
         if path == "" and not self.controller.busy:  # another document: its own default
             self.controls.suggest_stage_count()
-        if self.answer is None:
+        if self.answer is None and not (path == "year" or path.startswith("year.")):  # the note reads the stages
             self._update_note()
         self._update_state()

@@ -154,11 +154,13 @@ class Editor(QObject):
                 self.result_changed.emit()  # a solve stopped: the views say why it stopped
             self._mark_stale()
         else:
-            self.solve_now(immediate=False)
+            self.solve_now(immediate=False, checked=True)
 
-    def solve_now(self, immediate: bool = True) -> None:
-        """Ask the worker to solve the current document (no-op while it has problems)."""
-        self.problems = self.model.problems()
+    def solve_now(self, immediate: bool = True, checked: bool = False) -> None:
+        """Ask the worker to solve the current document (no-op while it has problems); ``checked``:
+        :attr:`problems` is already the current document's (not checked a second time)."""
+        if not checked:
+            self.problems = self.model.problems()
         if self.problems or self.entry_errors:
             self._mark_stale()
             return

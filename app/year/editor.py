@@ -8,20 +8,20 @@ from __future__ import annotations
 
 __all__ = ["YearEditor", "SCALAR_FIELDS", "KIND_CHOICES"]
 
-from PySide6.QtCore import Qt, Signal
-from PySide6.QtGui import QColor, QFont
-from PySide6.QtWidgets import (QComboBox, QFormLayout, QHBoxLayout, QLabel, QLineEdit, QPushButton,
-                               QScrollArea, QStackedWidget, QTableWidget, QTableWidgetItem, QVBoxLayout, QWidget)
+import re
 
-from stagewright.core.year_profile import MONTH_NAMES
+from PySide6.QtCore import Qt, Signal
+from PySide6.QtWidgets import (QAbstractItemView, QComboBox, QFormLayout, QHBoxLayout, QHeaderView, QLabel, QLineEdit,
+                               QPushButton, QScrollArea, QStackedWidget, QTableView, QVBoxLayout, QWidget)
 
 from stagewright.gui.widgets.plain_text import plain_label
 from stagewright.gui.presentation import units
 from stagewright.gui.document.paths import ABSENT, get_in, is_related
 from stagewright.gui.widgets.quantity_field import format_entry, parse_number
 from stagewright.gui.widgets.signals_blocked import signals_blocked
-from stagewright.gui.year.edits import (ENTRY_COLUMNS, cell_pairs, entries_key, entries_path, month_hours, profile_as, refusal,
-                          start_from_site, undo_text, with_entry_added, with_entry_removed)
+from stagewright.gui.year.edits import (ENTRY_COLUMNS, cell_pairs, entries_path, profile_as, refusal,
+                                        start_from_site, undo_text, with_entry_added, with_entry_removed)
+from stagewright.gui.year.profile_model import ProfileTableModel
 
 #: (path, label, quantity, unit text when the quantity has none, tooltip)
 SCALAR_FIELDS = [
@@ -47,6 +47,10 @@ CHOICE_FIELDS = [
      "Where the coolers are designed: the project's site as stated, or the year's hottest bin."),
 ]
 KIND_CHOICES = [("monthly", "Monthly means"), ("bins", "Bins of hours")]
+#: a change inside one entry of the profile: ``year.profile.bins[12].hours`` (group 1: the index)
+_ENTRY_CHANGE = re.compile(r"^year\.profile\.(?:months|bins)\[(\d+)\](?:\.\w+)?$")
+#: rows whose cell widths are measured when the table is filled (an 8760-row year is not measured row by row)
+_WIDTH_SAMPLE_ROWS = 30
 PLACEHOLDER_NOTE = ("Placeholders: every month holds the site's ambient temperature and humidity. "
                     "Replace them with the site's own monthly means.")
 
@@ -121,14 +125,18 @@ class YearEditor(QWidget):
         self.note.setWordWrap(True)
         lay.addWidget(self.note)
         body = QHBoxLayout()
-        self.table = QTableWidget(0, len(ENTRY_COLUMNS))
+        self.rows = ProfileTableModel(self.editor, self.set_cell, self)
+        self.table = QTableView()
+        self.table.setModel(self.rows)
         self.table.setMinimumHeight(60)
         self.table.verticalHeader().setVisible(False)
+        self.table.verticalHeader().setSectionResizeMode(QHeaderView.Fixed)
         self.table.verticalHeader().setDefaultSectionSize(self.table.fontMetrics().height() + 8)
-        self.table.setSelectionBehavior(QTableWidget.SelectRows)
-        self.table.setSelectionMode(QTableWidget.SingleSelection)
-        self.table.itemChanged.connect(self._on_item_changed)
-        self.table.itemSelectionChanged.connect(self._update_buttons)
+        self.table.horizontalHeader().setResizeContentsPrecision(_WIDTH_SAMPLE_ROWS)
+        self.table.setSelectionBehavior(QAbstractItemView.SelectRows)
+        self.table.setSelectionMode(QAbstractItemView.SingleSelection)
+        self.table.setWordWrap(False)
+        self.table.selectionModel().selectionChanged.connect(lambda *_a: self._update_buttons())
         body.addWidget(self.table, 1)
         form_box = QWidget()
         form = QFormLayout(form_box)
@@ -199,7 +207,7 @@ class YearEditor(QWidget):
 
     def remove_entry(self) -> bool:
         rows = self.table.selectionModel().selectedRows()
-        index = rows[0].row() if rows else self.table.rowCount() - 1
+        index = rows[0].row() if rows else self.rows.rowCount() - 1
         return self._push(with_entry_removed(self.editor.model.doc, index), f"Remove bin {index + 1}")
 
     def set_cell(self, row: int, key: str, text: str) -> bool:
@@ -284,7 +292,7 @@ class YearEditor(QWidget):
         self._say("")
         changed = self.editor.set_values(pairs, text)
         if not changed:
-            self.refresh()
+            self._refresh_fields()  # the table shows the document as it is; a field may hold typed text
         return changed
 
     def _say(self, message: str) -> None:
@@ -292,14 +300,13 @@ class YearEditor(QWidget):
         self.message.setVisible(bool(message))
 
     def _refuse(self, message: str) -> bool:
+        """Show why an edit was not made; the document is unchanged, so the table (which reads it)
+        shows its value again once the cell's editor closes, and the fields are filled afresh."""
         self._say(message)
-        self.refresh(keep_message=True)
+        if self.editor.model.doc.get("year"):
+            self._refresh_fields()
         self.refused.emit(message)
         return False
-
-    def _on_item_changed(self, item: QTableWidgetItem) -> None:
-        key = ENTRY_COLUMNS[item.column()].key
-        self.set_cell(item.row(), key, item.text())
 
     def _commit_field(self, path: str) -> None:
         edit = self.fields[path][0]
@@ -309,8 +316,24 @@ class YearEditor(QWidget):
 
     # ---- showing -------------------------------------------------------------------------
     def _on_model_changed(self, path: str) -> None:
-        if path == "" or is_related(path, "year") or is_related(path, "site"):
+        if path == "" or is_related(path, "site"):
             self.refresh()
+            return
+        if not is_related(path, "year"):
+            return
+        m = _ENTRY_CHANGE.match(path)
+        if m and self.stack.currentIndex() == 1 and self.rows.count == len(self.rows.entries()) \
+                and not (self.rows.monthly and path.endswith(".hours")):
+            self._entry_changed(int(m.group(1)))  # one cell or one entry: repaint that row only
+        else:
+            self.refresh()
+
+    def _entry_changed(self, row: int) -> None:
+        self._say("")
+        self.rows.entry_changed(row)
+        self.table.scrollTo(self.rows.index(row, 0))  # undo and redo show what they changed
+        if self.rows.monthly:
+            self.note.setVisible(_is_placeholder(self.editor.model.doc))
 
     def refresh(self, keep_message: bool = False) -> None:
         doc = self.editor.model.doc
@@ -319,28 +342,22 @@ class YearEditor(QWidget):
             self._say("")
         if not year:
             self.stack.setCurrentIndex(0)
+            self.rows.reset()
             return
         self.stack.setCurrentIndex(1)
         system = self.editor.prefs.system
         kind = get_in(doc, "year.profile.kind", "monthly")
         monthly = kind == "monthly"
-        entries = get_in(doc, "year.profile." + entries_key(kind), [])
-        spread = month_hours(doc) if monthly else None
         self.kind.setCurrentIndex([k for k, _ in KIND_CHOICES].index(kind))
-        heads = []
-        for c in ENTRY_COLUMNS:
-            name = "Month" if (monthly and c.key == "label") else c.header
-            sym = units.unit(c.quantity, system).symbol if c.quantity else ""
-            heads.append(f"{name}\n[{sym}]" if sym else f"{name}\n")
-        with signals_blocked(self.table):
-            self.table.setHorizontalHeaderLabels(heads)
-            for col, c in enumerate(ENTRY_COLUMNS):
-                self.table.horizontalHeaderItem(col).setToolTip(c.tip)
-            self.table.setRowCount(len(entries))
-            for row, entry in enumerate(entries):
-                for col, c in enumerate(ENTRY_COLUMNS):
-                    self.table.setItem(row, col, self._cell(row, entry, c, monthly, spread, system))
-        self.table.resizeColumnsToContents()
+        self.rows.reset()
+        self.table.resizeColumnsToContents()  # measures the first rows only (_WIDTH_SAMPLE_ROWS)
+        self._refresh_fields()
+        self.note.setVisible(monthly and _is_placeholder(doc))
+        self._update_buttons()
+
+    def _refresh_fields(self) -> None:
+        """The year's own fields and choices as the document has them (a refused text goes)."""
+        doc, system = self.editor.model.doc, self.editor.prefs.system
         for path, (edit, unit, quantity) in self.fields.items():
             value = get_in(doc, path, None)
             u = units.unit(quantity, system)
@@ -354,52 +371,18 @@ class YearEditor(QWidget):
             values = [v for v, _ in options]
             with signals_blocked(box):
                 box.setCurrentIndex(values.index(value) if value in values else 0)
-        self.note.setVisible(monthly and _is_placeholder(doc))
-        self._update_buttons()
-
-    def _cell(self, row, entry, c, monthly, spread, system) -> QTableWidgetItem:
-        value = entry.get(c.key)
-        item = QTableWidgetItem()
-        if c.key == "label":
-            item.setText(MONTH_NAMES[row] if monthly and row < 12 else (value or f"bin {row + 1}"))
-            if monthly:
-                item.setFlags(item.flags() & ~Qt.ItemIsEditable)
-            elif not value:
-                item.setForeground(QColor("#8a96a3"))
-            item.setTextAlignment(Qt.AlignLeft | Qt.AlignVCenter)
-            return item
-        u = units.unit(c.quantity, system)
-        if value is not None:
-            item.setText(format_entry(u.to_display(value), u.decimals))
-        elif c.key == "hours" and spread is not None and row < len(spread):
-            item.setText(f"{spread[row]:.0f}")  # spread by days: shown, not stored
-            _soft(item, "Spread from the operating hours by the days of the month (not stored).")
-        elif c.key == "load":
-            year_load = get_in(self.editor.model.doc, "year.load", 1.0)
-            item.setText(format_entry(u.to_display(year_load), u.decimals))
-            _soft(item, "The year's load (not stored here); type a value to give this entry its own.")
-        item.setTextAlignment(Qt.AlignRight | Qt.AlignVCenter)
-        return item
 
     def _update_buttons(self) -> None:
         bins = get_in(self.editor.model.doc, "year.profile.kind") == "bins"
         for b in (self.add_button, self.remove_button):
             b.setVisible(bins)
-        self.remove_button.setEnabled(bins and self.table.rowCount() > 1)
+        self.remove_button.setEnabled(bins and self.rows.rowCount() > 1)
 
 
 def _bin_label(b: dict, system: str) -> str:
     """A binned row named by its mean in display units, e.g. ``"-7.5 °C 84 %"``."""
     t = units.unit("temperature", system)
     return f"{t.to_display(b['temperature_K']):.1f} {t.symbol} {100 * b['relative_humidity']:.0f} %"
-
-
-def _soft(item: QTableWidgetItem, tip: str) -> None:
-    item.setForeground(QColor("#8a96a3"))
-    font = QFont(item.font())
-    font.setItalic(True)
-    item.setFont(font)
-    item.setToolTip(tip)
 
 
 def _is_placeholder(doc: dict) -> bool:

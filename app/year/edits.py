@@ -13,14 +13,18 @@ __all__ = ["ENTRY_COLUMNS", "EntryColumn", "entries_key", "start_from_site", "en
            "month_hours", "undo_text"]
 
 import copy
+import re
 from dataclasses import dataclass
 from typing import Any
 
+from stagewright.core.errors import Problem
+from stagewright.core.project.schema import YEAR
+from stagewright.core.project.schema_types import check
 from stagewright.core.project.validation import normalise, problems
-from stagewright.core.year_profile import DAYS_IN_MONTH, MONTH_NAMES, operating_bins
+from stagewright.core.year_profile import DAYS_IN_MONTH, MONTH_NAMES, operating_bins, year_problems
 
 from stagewright.gui.presentation import units
-from stagewright.gui.document.paths import ABSENT, get_in, set_in
+from stagewright.gui.document.paths import ABSENT, get_in, parse_path, set_in
 from stagewright.gui.document.field_specs import describe, range_text
 
 
@@ -46,6 +50,12 @@ ENTRY_COLUMNS = (
                 "Water or glycol coolant inlet temperature; empty: each cooler's own. "
                 "Air-cooled coolers always take the ambient temperature."),
 )
+
+
+#: a path inside one entry: ``year.profile.bins[12].hours`` (groups: the list, the index)
+_ENTRY_FIELD = re.compile(r"^year\.profile\.(months|bins)\[(\d+)\]\.\w+$")
+#: one of the year's own fields: ``year.load``, ``year.coolers.mode``
+_OWN_FIELD = re.compile(r"^year\.(?!profile\b)\w+(?:\.\w+)?$")
 
 
 def entries_key(kind: str) -> str:
@@ -153,20 +163,94 @@ def undo_text(path: str, doc: dict) -> str:
 
 
 def _apply(doc: dict, pairs: list[tuple[str, Any]]) -> dict:
-    cand = copy.deepcopy(doc)
+    """``doc`` with the pairs set, ``doc`` itself untouched: the containers along each path are
+    copied (shallow), everything else is shared — never a deep copy of an 8760-bin year."""
+    cand = dict(doc)
     for p, v in pairs:
-        set_in(cand, p, copy.deepcopy(v))
+        tokens = parse_path(p)
+        node = cand
+        for t in tokens[:-1]:
+            try:
+                child = node[t]
+            except (KeyError, IndexError, TypeError):
+                child = ABSENT
+            if isinstance(child, dict):
+                child = dict(child)
+            elif isinstance(child, list):
+                child = list(child)
+            else:  # set_in makes the missing containers
+                break
+            node[t] = child
+            node = child
+        set_in(cand, p, v)  # shared, not copied: the candidate is only read
     return cand
+
+
+def _entry_schema(kind: str):
+    """Schema of one month or bin (:data:`stagewright.core.project.schema.YEAR`)."""
+    return YEAR.fields["profile"].variants[kind][entries_key(kind)].item
+
+
+def _year_problems(doc: dict, rows: set, kind: str, own_fields: bool) -> list[Problem]:
+    """Problems of entries ``rows`` of the profile, of the year's own fields (``own_fields``: its
+    load, prices, cooler choices, checked with the profile cut to one entry) and of the year's rules
+    (:func:`stagewright.core.year_profile.year_problems`, which read every entry's hours)."""
+    key = entries_key(kind)
+    year = doc["year"]
+    entries = year["profile"][key]
+    out: list[Problem] = []
+    for i in sorted(rows):
+        check(_entry_schema(kind), entries[i], f"year.profile.{key}[{i}]", out)
+    if own_fields:
+        check(YEAR, {**year, "profile": {**year["profile"], key: entries[:1]}}, "year", out)
+    if not out:
+        out.extend(year_problems({"year": {"profile": {"kind": kind, key: entries},
+                                           "operating_hours_per_year": year.get("operating_hours_per_year")}}))
+    return out
+
+
+def _new_year_problems(doc: dict, cand: dict, pairs: list) -> list[Problem] | None:
+    """New problems of an edit inside the year — cells of entries, the year's own fields — checked
+    on what it touches and the year's rules only (a cell of an 8760-bin year checks one bin, not
+    8760); None for any other edit (the profile's kind or length, the whole year, the rest of the
+    project): then the whole document is checked."""
+    kind = get_in(doc, "year.profile.kind")
+    if kind not in ("monthly", "bins") or get_in(cand, "year.profile.kind") != kind:
+        return None
+    key = entries_key(kind)
+    rows, own_fields = set(), False
+    for p, _v in pairs:
+        m = _ENTRY_FIELD.match(p)
+        if m is not None and m.group(1) == key:
+            rows.add(int(m.group(2)))
+        elif _OWN_FIELD.match(p):
+            own_fields = True
+        else:
+            return None
+    entries = get_in(doc, f"year.profile.{key}")
+    if not isinstance(entries, list) or not entries or not all(isinstance(e, dict) for e in entries) \
+            or any(i >= len(entries) for i in rows) or len(get_in(cand, f"year.profile.{key}")) != len(entries):
+        return None
+    try:
+        before = {(p.field, p.expected) for p in _year_problems(doc, rows, kind, own_fields)}
+        return [p for p in _year_problems(cand, rows, kind, own_fields) if (p.field, p.expected) not in before]
+    except (KeyError, TypeError, AttributeError):  # e.g. a bin without its hours: the whole check says what
+        return None
 
 
 def refusal(doc: dict, pairs: list[tuple[str, Any]], system: str = "SI") -> str | None:
     """Why the edit must not be made (a new problem of the year), or None when it is fine.
 
-    The message names the field, the value (display unit and SI) and the allowed range.
+    The message names the field, the value (display unit and SI) and the allowed range. An edit
+    of cells or of the year's own fields checks what it touches and the year's rules
+    (:func:`_new_year_problems`); any other edit, the whole document before and after.
     """
-    before = {(p.field, p.expected) for p in problems(doc)}
     cand = _apply(doc, pairs)
-    new = [p for p in problems(cand) if (p.field, p.expected) not in before]
+    new = _new_year_problems(doc, cand, pairs)
+    if new is None:
+        after = problems(cand)
+        before = {(p.field, p.expected) for p in problems(doc)} if after else set()
+        new = [p for p in after if (p.field, p.expected) not in before]
     if not new:
         return None
     p = new[0]

@@ -7,7 +7,7 @@ the chart gets the whole tab, rather than a corner of a panel that is short at t
 default size)."""
 from __future__ import annotations
 
-__all__ = ["YearPanel", "YEAR_COLUMNS"]
+__all__ = ["YearPanel", "YEAR_COLUMNS", "freezing_caution"]
 
 from PySide6.QtWidgets import QHBoxLayout, QLabel, QProgressBar, QPushButton, QTabWidget, QVBoxLayout, QWidget
 
@@ -47,6 +47,8 @@ class YearPanel(QWidget):
         self.cancel_button.setEnabled(False)
         self.progress = QProgressBar()
         self.progress.setTextVisible(True)
+        self.progress.setFormat("%v of %m bins")  # an hourly year: "1 200 of 8 760" says more than "13 %"
+        self.progress.setMinimumWidth(self.progress.fontMetrics().horizontalAdvance("8784 of 8784 bins") + 24)
         self.progress.setVisible(False)  # an empty bar before the first run reads as a broken widget
         self.status = plain_label(QLabel())
         self.status.setWordWrap(True)
@@ -87,7 +89,7 @@ class YearPanel(QWidget):
 
     # ---- running -------------------------------------------------------------------------
     def has_profile(self) -> bool:
-        return bool(self.editor.model.snapshot().get("year"))
+        return bool(self.editor.model.doc.get("year"))  # read, not copied: an 8760-bin year is large
 
     def run(self) -> None:
         if not self.has_profile():
@@ -107,11 +109,9 @@ class YearPanel(QWidget):
     def _on_finished(self, _job: int, result: dict, _seconds: float) -> None:
         self.result, self._result_doc = result, self._running_doc
         note = year_tables.design_note(result, self.editor.prefs.system)
-        frozen = result.get("freezing_bins") or []
-        if frozen:
-            names = ", ".join(frozen[:6]) + (f" and {len(frozen) - 6} more" if len(frozen) > 6 else "")
-            note = (f"Caution: cooler condensate would freeze (or nearly) in {names}: freeze protection or a "
-                    f"minimum cooler outlet temperature is needed. " + note).strip()
+        caution = freezing_caution(result, self.editor.prefs.system)
+        if caution:
+            note = (caution + " " + note).strip()
         # edits made while the year ran are not in it: say so, rather than "solved" (issue 22 item 5)
         self._idle(_STALE if self.is_stale else "Year solved." + (f" {note}" if note else ""))
         self.tabs.setCurrentIndex(RESULTS_TAB)  # the totals first; the chart is one tab on
@@ -134,7 +134,9 @@ class YearPanel(QWidget):
         elif self.result is not None and self.is_stale:
             self.status.setText(_STALE)
         elif not self.runner.busy:
-            self.status.setText("Run the year to see each month's energy, condensate and temperatures.")
+            monthly = (self.editor.model.doc.get("year") or {}).get("profile", {}).get("kind") == "monthly"
+            self.status.setText(f"Run the year to see each {'month' if monthly else 'bin'}'s energy, condensate "
+                                "and temperatures.")
 
     @property
     def is_stale(self) -> bool:
@@ -147,3 +149,31 @@ class YearPanel(QWidget):
         system = self.editor.prefs.system
         self.results.show_year(self.result, system)
         self.chart.show_year(self.result, system)
+
+
+def freezing_caution(year: dict, system: str = "SI") -> str:
+    """The caution for bins where a cooler's condensate would freeze: the bins by name when there
+    are a few, else how many, their hours and the ambient range (an hourly year may have thousands).
+
+    Examples
+    --------
+    >>> year = {"freezing_bins": ["January"], "bins": [{"label": "January", "freezing_condensate": True,
+    ...          "hours": 744.0, "temperature_K": 264.15}]}
+    >>> freezing_caution(year)[:68]
+    'Caution: cooler condensate would freeze (or nearly) in January: free'
+    """
+    from stagewright.gui.presentation import units
+    names = year.get("freezing_bins") or []
+    if not names:
+        return ""
+    if len(names) <= 6:
+        where = ", ".join(names)
+    else:
+        frozen = [b for b in year.get("bins") or [] if b.get("freezing_condensate")]
+        hours = sum(b.get("hours") or 0.0 for b in frozen)
+        temps = [b["temperature_K"] for b in frozen if b.get("temperature_K") is not None]
+        tu = units.unit("temperature", system)
+        span = f", ambient {tu.to_display(min(temps)):.1f} to {tu.to_display(max(temps)):.1f} {tu.symbol}" if temps else ""
+        where = f"{len(names)} bins ({f'{hours:,.0f}'.replace(',', ' ')} h{span}; marked on the Chart tab)"
+    return (f"Caution: cooler condensate would freeze (or nearly) in {where}: freeze protection or a minimum "
+            "cooler outlet temperature is needed.")

@@ -9,10 +9,10 @@ are :data:`~stagewright.gui.presentation.year_tables.YEAR_BINS` as the window sh
 """
 from __future__ import annotations
 
-__all__ = ["YearResultsView", "MONEY_TIP", "total_text"]
+__all__ = ["YearResultsView", "YearBinsModel", "MONEY_TIP", "total_text"]
 
-from PySide6.QtCore import Qt
-from PySide6.QtWidgets import QAbstractItemView, QSplitter, QTableWidget, QTableWidgetItem
+from PySide6.QtCore import QAbstractTableModel, QModelIndex, Qt
+from PySide6.QtWidgets import QAbstractItemView, QHeaderView, QSplitter, QTableView, QTableWidget, QTableWidgetItem
 
 from stagewright.gui.presentation import year_tables
 from stagewright.gui.presentation.figures import Figure, read_path, shown
@@ -32,12 +32,68 @@ def _table(columns: int) -> QTableWidget:
     return t
 
 
+#: rows whose cell widths are measured when the bins are shown (an hourly year is not measured row by row)
+_WIDTH_SAMPLE_ROWS = 50
+_MONTHS = ("January", "February", "March", "April", "May", "June", "July", "August", "September", "October",
+           "November", "December")
+
+
 def total_text(fig: Figure, year: dict, system: str) -> str:
-    """A total with its unit; an extreme with its bin (``137.3 °C in August``)."""
+    """A total with its unit; an extreme with its bin: ``137.3 °C in August``, ``144.9 °C at
+    2025-07-22 15:00`` (an hour of an imported year), ``144.9 °C in bin 34.2 °C 50 %``."""
     text = fig.text(year, _OUT, system, with_unit=True)
     if fig.bin_key:
-        text += f" in {read_path(year, fig.bin_key)}"
+        where = str(read_path(year, fig.bin_key))
+        if where in _MONTHS:
+            text += f" in {where}"
+        elif where[:4].isdigit() and where[4:5] == "-":  # a timestamp (stagewright.gui.document.year_csv)
+            text += f" at {where}"
+        else:
+            text += f" in bin {where}"
     return text
+
+
+class YearBinsModel(QAbstractTableModel):
+    """The year's bins, one row each, a column per figure; texts are made when a row is painted,
+    so an 8760-bin year is shown at once (no 100 000 table items)."""
+
+    def __init__(self, columns: list, parent=None):
+        super().__init__(parent)
+        self.columns = columns
+        self.bins: list = []
+        self.system = "SI"
+
+    def show(self, bins: list, system: str) -> None:
+        self.beginResetModel()
+        self.bins, self.system = bins, system
+        self.endResetModel()
+
+    def rowCount(self, parent=QModelIndex()) -> int:
+        return 0 if parent.isValid() else len(self.bins)
+
+    def columnCount(self, parent=QModelIndex()) -> int:
+        return 0 if parent.isValid() else len(self.columns)
+
+    def headerData(self, section, orientation, role=Qt.DisplayRole):
+        if orientation != Qt.Horizontal or not 0 <= section < len(self.columns):
+            return super().headerData(section, orientation, role)
+        fig = self.columns[section]
+        if role == Qt.DisplayRole:
+            sym = fig.symbol_in(_OUT, self.system)
+            return f"{fig.label_in(_OUT)}\n[{sym}]" if sym else f"{fig.label_in(_OUT)}\n"
+        if role == Qt.ToolTipRole and fig.note:
+            return fig.note[:1].upper() + fig.note[1:]
+        return None
+
+    def data(self, index, role=Qt.DisplayRole):
+        if not index.isValid() or index.row() >= len(self.bins):
+            return None
+        fig = self.columns[index.column()]
+        if role == Qt.DisplayRole:
+            return fig.text(self.bins[index.row()], _OUT, self.system)
+        if role == Qt.TextAlignmentRole:
+            return int((Qt.AlignLeft if fig.is_left_aligned() else Qt.AlignRight) | Qt.AlignVCenter)
+        return None
 
 
 class YearResultsView(QSplitter):
@@ -47,8 +103,8 @@ class YearResultsView(QSplitter):
     ----------
     totals : QTableWidget
         One row per total: its name and its value with unit.
-    table : QTableWidget
-        One row per bin, one column per figure of ``YEAR_BINS`` shown in the window.
+    table : QTableView
+        One row per bin (:class:`YearBinsModel`), one column per figure of ``YEAR_BINS`` shown in the window.
     """
 
     def __init__(self, parent=None):
@@ -58,7 +114,16 @@ class YearResultsView(QSplitter):
         self.totals.setObjectName("yearTotals")
         self.totals.setHorizontalHeaderLabels(["Year total", "Value"])
         self.totals.horizontalHeader().setStretchLastSection(True)
-        self.table = _table(len(self.columns))
+        self.bins = YearBinsModel(self.columns, self)
+        self.table = QTableView()
+        self.table.setModel(self.bins)
+        self.table.verticalHeader().setVisible(False)
+        self.table.verticalHeader().setSectionResizeMode(QHeaderView.Fixed)
+        self.table.verticalHeader().setDefaultSectionSize(self.table.fontMetrics().height() + 8)
+        self.table.horizontalHeader().setResizeContentsPrecision(_WIDTH_SAMPLE_ROWS)
+        self.table.setEditTriggers(QAbstractItemView.NoEditTriggers)
+        self.table.setWordWrap(False)
+        attach_table_copy(self.table)
         self.addWidget(self.totals)
         self.addWidget(self.table)
         self.setStretchFactor(0, 0)
@@ -80,13 +145,8 @@ class YearResultsView(QSplitter):
 
     # ---- showing -------------------------------------------------------------------------
     def show_year(self, year: dict | None, system: str) -> None:
-        heads = []
-        for fig in self.columns:
-            sym = fig.symbol_in(_OUT, system)
-            heads.append(f"{fig.label_in(_OUT)}\n[{sym}]" if sym else f"{fig.label_in(_OUT)}\n")
-        self.table.setHorizontalHeaderLabels(heads)
         if year is None:
-            self.table.setRowCount(0)
+            self.bins.show([], system)
             self.totals.setRowCount(0)
             self.shown_totals = []
             return
@@ -95,13 +155,8 @@ class YearResultsView(QSplitter):
         self._size()
 
     def _fill_bins(self, bins: list[dict], system: str) -> None:
-        self.table.setRowCount(len(bins))
-        for row, b in enumerate(bins):
-            for col, fig in enumerate(self.columns):
-                item = QTableWidgetItem(fig.text(b, _OUT, system))
-                item.setTextAlignment((Qt.AlignLeft if fig.is_left_aligned() else Qt.AlignRight) | Qt.AlignVCenter)
-                self.table.setItem(row, col, item)
-        self.table.resizeColumnsToContents()
+        self.bins.show(bins, system)
+        self.table.resizeColumnsToContents()  # measures the first rows only (_WIDTH_SAMPLE_ROWS)
 
     def _fill_totals(self, year: dict, system: str) -> None:
         self.shown_totals = year_tables.totals_for(year, _OUT)
