@@ -65,3 +65,30 @@ def test_cancel_drops_a_running_job(qtbot, controller, doc_factory):
     controller.cancel()
     qtbot.wait(300)
     assert done == [] and not controller.busy
+
+
+def test_an_edit_while_idle_solves_without_the_debounce_wait(qtbot, doc_factory):
+    c = SolveController(debounce_ms=60_000)  # a debounce no test would wait for
+    try:
+        with qtbot.waitSignal(c.finished, timeout=30_000):
+            c.request(doc_factory(p_out=5e5))
+        # while that answer is new and the solver idle, the next edit goes straight in too
+        with qtbot.waitSignal(c.finished, timeout=30_000) as blocker:
+            c.request(doc_factory(p_out=7e5))
+        assert blocker.args[1]["delivery"]["pressure_Pa"] == pytest.approx(7e5)
+    finally:
+        c.shutdown()
+
+
+def test_edits_during_a_solve_are_gathered_into_one_solve_of_the_newest(qtbot, doc_factory):
+    c = SolveController(debounce_ms=50)
+    done = []
+    c.finished.connect(lambda job, result, seconds: done.append(result["delivery"]["pressure_Pa"]))
+    try:
+        c.request(doc_factory(p_out=4e5))  # starts at once
+        c.request(doc_factory(p_out=6e5))  # the solver is busy: gathered
+        c.request(doc_factory(p_out=8e5))  # gathered with it
+        qtbot.waitUntil(lambda: not c.busy, timeout=30_000)
+        assert done == [pytest.approx(8e5)]
+    finally:
+        c.shutdown()
