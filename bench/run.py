@@ -151,6 +151,15 @@ def case_study():
     doc = four_stage_doc(_humid_supported())
     report("staging comparison 1…6 stages", measure(lambda: compare_stagings(doc, max_stages=6), 5))
     report("staging comparison 1…8 stages", measure(lambda: compare_stagings(doc, max_stages=8), 3))
+    try:
+        from stagewright.core.warm_pool import warm_up_pool
+    except ImportError:
+        return
+    t = time.perf_counter()
+    warm_up_pool(2)  # as the window does after its first study
+    print(f"{'  (warming two worker processes)':<44}  {_fmt(time.perf_counter() - t)}")
+    report("  the same, 2 processes (warm pool)",
+           measure(lambda: compare_stagings(doc, max_stages=8, processes=2), 5))
 
 
 def case_first_coolant():

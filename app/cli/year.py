@@ -19,6 +19,8 @@ import json
 import sys
 from pathlib import Path
 
+from stagewright.gui.presentation.year_tables import bins_csv_rows  # kept importable from here
+
 from stagewright.gui.cli.outputs import FORCE_HELP
 from stagewright.gui.cli.paths import EXIT_FAILED, EXIT_INPUT, EXIT_OK, expand_paths
 
@@ -79,24 +81,6 @@ def _with_profile(doc: dict, args) -> dict:
     if year:
         doc["year"] = year
     return doc
-
-
-def bins_csv_rows(year: dict) -> list[list]:
-    """Header and one row per bin of ``YearResult.to_dict()``: scalar figures, then one column per
-    stage for each per-cooler list (``cooler_outlet_temperatures_K[1]`` …), then the limit flags."""
-    bins = year["bins"]
-    if not bins:
-        return [[]]
-    first = bins[0]
-    scalars = [k for k, v in first.items() if not isinstance(v, list)]
-    lists = [k for k, v in first.items() if isinstance(v, list) and k not in ("warnings", "limit_flags")]
-    n = len(first["cooler_outlet_temperatures_K"])
-    header = scalars + [f"{k}[{i + 1}]" for k in lists for i in range(n)] + ["limit_flags"]
-    rows = [header]
-    for b in bins:
-        rows.append([b[k] for k in scalars] + [b[k][i] for k in lists for i in range(n)]
-                    + ["; ".join(b["limit_flags"])])
-    return rows
 
 
 def run(args) -> int:

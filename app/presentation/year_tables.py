@@ -14,7 +14,7 @@ shown as a plain number (the window groups its thousands). No Qt.
 """
 from __future__ import annotations
 
-__all__ = ["YEAR_BINS", "YEAR_TOTALS", "ONLY_WITH", "totals_for", "design_note", "PDF_DRYER_COLUMNS",
+__all__ = ["bins_csv_rows", "YEAR_BINS", "YEAR_TOTALS", "ONLY_WITH", "totals_for", "design_note", "PDF_DRYER_COLUMNS",
            "PDF_ROW_KEYS", "BIN_ONLY_WITH", "bin_columns_for"]
 
 from collections.abc import Mapping
@@ -181,3 +181,21 @@ def design_note(year: dict, system: str = "SI") -> str:
                     f"(stage {c['stage']})" for c in design["coolers"] if c)
     return (f"Coolers designed once at {where}, rated every bin with UA + {100 * design['ua_margin']:.0f} %"
             + (f": {uas}." if uas else "."))
+
+
+def bins_csv_rows(year: dict) -> list[list]:
+    """Header and one row per bin of ``YearResult.to_dict()``: scalar figures, then one column per
+    stage for each per-cooler list (``cooler_outlet_temperatures_K[1]`` …), then the limit flags."""
+    bins = year["bins"]
+    if not bins:
+        return [[]]
+    first = bins[0]
+    scalars = [k for k, v in first.items() if not isinstance(v, list)]
+    lists = [k for k, v in first.items() if isinstance(v, list) and k not in ("warnings", "limit_flags")]
+    n = len(first["cooler_outlet_temperatures_K"])
+    header = scalars + [f"{k}[{i + 1}]" for k in lists for i in range(n)] + ["limit_flags"]
+    rows = [header]
+    for b in bins:
+        rows.append([b[k] for k in scalars] + [b[k][i] for k in lists for i in range(n)]
+                    + ["; ".join(b["limit_flags"])])
+    return rows

@@ -16,7 +16,7 @@ import getpass
 from stagewright.core.coolprop_adapter import coolprop_version
 
 from stagewright.gui.presentation.printable import printable
-from stagewright.gui.report.csv_export import csv_rows, write_csv
+from stagewright.gui.report.csv_export import csv_rows, write_csv, write_year_csv, year_csv_path
 from stagewright.gui.report.pdf import program_version, write_pdf
 from stagewright.gui.report.sections import ReportInfo
 
@@ -83,6 +83,8 @@ def export_report(doc: dict, result, pdf_path, csv_path=None, system: str = "SI"
                   **_sheet_of(doc, result))
     if csv_path is not None:
         write_csv(result, csv_path, system)
+        if year and year.get("bins"):
+            write_year_csv(year, year_csv_path(csv_path))
     return n
 
 

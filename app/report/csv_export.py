@@ -15,11 +15,12 @@ load profile). Written with the standard library's :mod:`csv` (RFC 4180 quoting,
 """
 from __future__ import annotations
 
-__all__ = ["COLUMNS", "column_name", "csv_columns", "csv_rows", "write_csv"]
+__all__ = ["COLUMNS", "column_name", "csv_columns", "csv_rows", "write_csv", "write_year_csv", "year_csv_path"]
 
 import csv
 import io
 import re
+from pathlib import Path
 
 from stagewright.gui.presentation import balance_tables as tables
 from stagewright.gui.presentation import package_table
@@ -117,6 +118,23 @@ def write_csv(result: dict, path, system: str = "SI") -> None:
     """Write the CSV to ``path`` atomically (a half-written file never replaces a good one)."""
     buf = io.StringIO()
     csv.writer(buf, lineterminator="\r\n").writerows(csv_rows(result, system))
+    with atomic_path(path) as tmp:
+        with open(tmp, "w", encoding="utf-8", newline="") as fh:
+            fh.write(buf.getvalue())
+
+
+def year_csv_path(csv_path) -> Path:
+    """Where the year's bins go beside a report's CSV: ``<name>-year.csv``."""
+    path = Path(csv_path)
+    return path.with_name(f"{path.stem}-year{path.suffix or '.csv'}")
+
+
+def write_year_csv(year: dict, path) -> None:
+    """Every bin of a year (``YearResult.to_dict()``) as one row, SI with the unit in each key, written
+    atomically (:func:`stagewright.gui.presentation.year_tables.bins_csv_rows`)."""
+    from stagewright.gui.presentation.year_tables import bins_csv_rows
+    buf = io.StringIO()
+    csv.writer(buf, lineterminator="\r\n").writerows(bins_csv_rows(year))
     with atomic_path(path) as tmp:
         with open(tmp, "w", encoding="utf-8", newline="") as fh:
             fh.write(buf.getvalue())

@@ -20,6 +20,8 @@ from stagewright.gui.presentation.figures import Figure, read_path
 from stagewright.gui.report.layout import Column, Pager, Table
 
 _PDF = "pdf"
+PDF_BINS_MAX = 60  #: a year with more bins prints a choice of them (see _printed_bins)
+PDF_BINS_PICKED = 20  #: … the coldest and the warmest this many
 
 
 def _column(fig: Figure, system: str) -> Column:
@@ -31,6 +33,20 @@ def _column(fig: Figure, system: str) -> Column:
 def _bin_table(title: str, figures: list[Figure], bins: list[dict], system: str, note: str) -> Table:
     rows = [[f.text(b, _PDF, system) for f in figures] for b in bins]
     return Table(title, [_column(f, system) for f in figures], rows, note=note)
+
+
+def _printed_bins(bins: list[dict]) -> tuple[list[dict], str]:
+    """The bins a printed table lists, and its title when they are a choice: up to
+    :data:`PDF_BINS_MAX` all of them; beyond (an hourly year would fill hundreds of pages) the
+    :data:`PDF_BINS_PICKED` coldest and as many warmest, in the year's order — the bins that size
+    freeze protection and the dryer. The totals and the chart cover every bin; every bin is in the
+    year's CSV (``stagewright year … --csv``, or beside the report's CSV)."""
+    if len(bins) <= PDF_BINS_MAX:
+        return bins, ""
+    by_temperature = sorted(range(len(bins)), key=lambda i: (bins[i]["temperature_K"], i))
+    keep = sorted(set(by_temperature[:PDF_BINS_PICKED]) | set(by_temperature[-PDF_BINS_PICKED:]))
+    return ([bins[i] for i in keep],
+            f"The {PDF_BINS_PICKED} coldest and {PDF_BINS_PICKED} warmest of {len(bins)} bins")
 
 
 def _total_text(fig: Figure, year: dict, system: str) -> str:
@@ -50,13 +66,15 @@ def year_at_site(p: Pager, year: dict | None, system: str, limit_K: float | None
     if not year or not year.get("bins"):
         return
     p.charts("A year at the site", [(lambda f: draw_year_chart(f, year, system, limit_K=limit_K), 5.0)])
-    bins = year["bins"]
+    bins, picked = _printed_bins(year["bins"])
     columns = year_tables.bin_columns_for(year, _PDF)
-    title = "Month by month" if len(bins) == 12 else "Bin by bin"
+    title = ("Month by month" if len(bins) == 12 else "Bin by bin") if not picked else picked
     energy = [f for f in columns if f.id not in year_tables.PDF_DRYER_COLUMNS]
     p.table(_bin_table(title, energy, bins, system,
                        "Energy is the driver's input over the bin's operating hours; condensate and cooling "
-                       "water are volumes over those hours; the hottest discharge is that of the hottest stage."))
+                       "water are volumes over those hours; the hottest discharge is that of the hottest stage."
+                       + (" Only these bins are listed; the chart and the totals cover the whole year, and the "
+                          "year's CSV holds every bin." if picked else "")))
     dryer = [f for f in columns if f.id in year_tables.PDF_DRYER_COLUMNS]
     if dryer:
         keys = [f for f in columns if f.id in year_tables.PDF_ROW_KEYS]
