@@ -34,8 +34,16 @@ def main(spec_json: str) -> None:
         win = MainWindow(doc, path, settings=settings, restore_layout=False, autosave_ms=AUTOSAVE_MS)
         win.editor.set_value("title", entry["title"])
         windows.append(win)
-    end = time.monotonic() + 20 * AUTOSAVE_MS / 1000
-    while time.monotonic() < end:  # autosave writes within AUTOSAVE_MS of the change
+    # autosave writes within AUTOSAVE_MS of the change, once the event loop turns; on a busy machine
+    # the first solve (loading the property library) can hold the interpreter for a second or two:
+    # wait for every window's file (at most 30 s), then a little more
+    folder = Path(os.environ["STAGEWRIGHT_DATA_DIR"])
+    end = time.monotonic() + 30.0
+    while time.monotonic() < end and len(list(folder.rglob("*.json"))) < len(windows):
+        app.processEvents()
+        time.sleep(0.01)
+    end = time.monotonic() + 4 * AUTOSAVE_MS / 1000
+    while time.monotonic() < end:
         app.processEvents()
         time.sleep(0.01)
     print("ready", flush=True)

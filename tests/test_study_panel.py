@@ -102,8 +102,6 @@ def test_cancel_stops_the_study_and_the_window_stays_usable(qtbot, tmp_path, mon
                 cancel.wait(20)  # the study waits here until the user presses Cancel
         return real(doc, max_stages, progress=report, cancel=cancel, **kw)
     monkeypatch.setattr(stagewright.core.study, "compare_stagings", held_after_first_option)
-    # options one after another (an earlier study may have warmed the side-by-side pool)
-    monkeypatch.setattr("stagewright.core.warm_pool.study_processes", lambda: 1)
 
     win = make_window(qtbot, tmp_path, perfect_gas_doc())
     panel = win.panels["study"]
@@ -380,10 +378,11 @@ def test_after_the_first_study_the_next_runs_side_by_side_with_the_same_rows(qtb
         asked.append(kw.get("processes"))
         return real(*args, **kw)
     monkeypatch.setattr(stagewright.core.study, "compare_stagings", recorded)
-    monkeypatch.setattr("stagewright.core.warm_pool._warm", [0])  # as in a fresh window
     win = make_window(qtbot, tmp_path, perfect_gas_doc())
+    panel = win.panels["study"]
     first = [dict(r) for r in run(qtbot, win, 4).rows]
-    qtbot.waitUntil(is_warm, timeout=120_000)  # warmed in the background after the first study
+    qtbot.waitUntil(lambda: panel._pool_ready, timeout=120_000)  # warmed in the background after the first study
+    assert is_warm()
     second = [dict(r) for r in run(qtbot, win, 4).rows]
     assert asked == [1, 2]
     assert second == first

@@ -81,8 +81,6 @@ def test_cancel_answers_with_the_options_finished(qtbot, controller, monkeypatch
                 cancel.wait(20)  # hold after the first option until cancelled
         return real(doc, max_stages, progress=report, cancel=cancel, **kw)
     monkeypatch.setattr(stagewright.core.study, "compare_stagings", held)
-    # options one after another (a panel shown earlier may have warmed the side-by-side pool)
-    monkeypatch.setattr("stagewright.core.warm_pool.study_processes", lambda: 1)
     controller.run(request(5))
     qtbot.waitUntil(reached.is_set, timeout=30_000)
     with qtbot.waitSignal(controller.cancelled, timeout=30_000) as blocker:

@@ -9,7 +9,7 @@ pools: they last long enough for the start not to matter.
 """
 from __future__ import annotations
 
-__all__ = ["warm_pool", "warm_up_pool", "is_warm", "study_processes"]
+__all__ = ["warm_pool", "warm_up_pool", "is_warm"]
 
 import threading
 from concurrent.futures import ProcessPoolExecutor
@@ -62,9 +62,3 @@ def is_warm() -> bool:
     """True once :func:`warm_up_pool` has prepared the shared pool (and it has not broken since)."""
     pool = _pool[0]
     return bool(_warm[0]) and pool is not None and not getattr(pool, "_broken", False)
-
-
-def study_processes() -> int:
-    """Processes for a staging comparison now: the warm pool's workers, else 1 (a cold pool would
-    cost more than it saves)."""
-    return _warm[0] if is_warm() else 1

@@ -39,6 +39,9 @@ class StudyRequest:
         A key of :data:`stagewright.core.study.SITE_VARIABLES` for a sensitivity run.
     values : tuple of float
         Values of ``variable`` in its SI unit.
+    processes : int
+        Worker processes for a staging comparison's options (more than 1 only once the shared pool
+        is warm: :mod:`stagewright.core.warm_pool`).
     """
 
     doc: dict
@@ -47,6 +50,7 @@ class StudyRequest:
     energy_price_per_kWh: float
     variable: str | None = None
     values: tuple = field(default_factory=tuple)
+    processes: int = 1
 
 
 def _first_efficiency(doc: dict) -> dict | None:
@@ -96,8 +100,7 @@ def run_request(req: StudyRequest, progress: Callable[[float, str], Any] | None 
         study = sensitivity(req.doc, req.variable, list(req.values), req.max_stages, **kw)
         cases = [_case(p.value, p.comparison, error=p.error) for p in study.points]
     else:
-        from stagewright.core.warm_pool import study_processes
-        cases = [_case(None, compare_stagings(req.doc, max_stages=req.max_stages, processes=study_processes(), **kw))]
+        cases = [_case(None, compare_stagings(req.doc, max_stages=req.max_stages, processes=req.processes, **kw))]
     out = _answer(req, cases, True)
     out["first_efficiency"] = _first_efficiency(req.doc)
     return out

@@ -14,6 +14,7 @@ __all__ = ["StudyPanel"]
 
 import os
 import threading
+from dataclasses import replace
 
 from PySide6.QtCore import Qt, Signal
 from PySide6.QtWidgets import (QComboBox, QDockWidget, QHBoxLayout, QLabel, QSizePolicy, QSplitter,
@@ -35,15 +36,6 @@ from stagewright.gui.panels.messages_panel import Message
 _SIDE_BY_SIDE_PX = 900  # table and chart side by side from this width, else on two tabs
 _STUDY_INPUTS = ("max_stages", "operating_hours_per_year", "energy_price_per_kWh", "variable", "values")
 _CHART_HINT = "Run a study to see driver power and\ndischarge temperature against the\nnumber of stages."
-
-
-def _warm_up_quietly() -> None:
-    """Warm the study pool; a failure only means the studies run on one process."""
-    from stagewright.core.warm_pool import warm_up_pool
-    try:
-        warm_up_pool(2)
-    except Exception:  # noqa: BLE001 - no pool (e.g. a sandbox without processes): one process it is
-        pass
 
 
 class StudyPanel(QWidget):
@@ -83,6 +75,7 @@ class StudyPanel(QWidget):
         self.messages: list[Message] = []
         self._failure: tuple | None = None  # (message, study key) of a study that could not run
         self._pool_warming = False  # the study pool's background warm-up has been started
+        self._pool_ready = False  # … and has finished: comparisons run their options side by side
         self._build()
         c = self.controller
         c.progress.connect(self._on_progress)
@@ -101,7 +94,16 @@ class StudyPanel(QWidget):
         start-up, where the workers' start would compete with the window's own."""
         if not self._pool_warming and (os.cpu_count() or 1) >= 2:
             self._pool_warming = True
-            threading.Thread(target=_warm_up_quietly, name="stagewright-study-pool", daemon=True).start()
+            threading.Thread(target=self._warm_up_pool, name="stagewright-study-pool", daemon=True).start()
+
+    def _warm_up_pool(self) -> None:
+        """(On its own thread.) Warm the shared pool; the next studies of this panel use it. A failure
+        only means that they run on one process."""
+        from stagewright.core.warm_pool import warm_up_pool
+        try:
+            self._pool_ready = warm_up_pool(2) >= 1
+        except Exception:  # noqa: BLE001 - no pool (e.g. a sandbox without processes): one process it is
+            self._pool_ready = False
 
     def _disconnect(self) -> None:
         try:
@@ -246,6 +248,8 @@ class StudyPanel(QWidget):
         except ValueError as exc:
             self._set_status(f"Values: {exc}.")
             return
+        if self._pool_ready:
+            req = replace(req, processes=2)
         self._pending = (doc, study_key(doc), req.variable, req.values)
         self._failure = None
         self.controls.set_progress(None)  # busy until the study reports its first option
