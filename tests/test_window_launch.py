@@ -112,3 +112,17 @@ def test_readme_installs_every_library_package_the_check_knows():
     lines = [line for line in readme.splitlines() if line.startswith("sudo apt-get install ")]
     assert len(lines) == 1
     assert set(XCB_PACKAGES.values()) <= set(lines[0].split()[3:])
+
+
+def test_a_screenshot_right_after_the_first_answer_shows_the_drawn_chart(qtbot, tmp_path):
+    """The chart redraws a moment after a result; a screenshot draws what is waiting first."""
+    from gui_support import make_window
+    from matplotlib.lines import Line2D
+
+    from stagewright.gui.window.launch import save_screenshot
+    win = make_window(qtbot, tmp_path)
+    save_screenshot(win, tmp_path / "shot.png")
+    charts = win.panels["charts"]
+    assert charts.ts.pending is None
+    assert any(ln.get_xdata().size for ln in charts.ts.figure.findobj(Line2D))
+    win.close()

@@ -104,6 +104,11 @@ class ChartsPanel(QWidget):
             tab.pending = (ed.result, ed.prefs.system)
         self._redraw.start()
 
+    def draw_pending(self) -> None:
+        """Draw the shown chart now if a result is waiting for it (a screenshot, a report of the view)."""
+        self._redraw.stop()
+        self._draw_current()
+
     def _draw_current(self) -> None:
         tab = self.tabs.currentWidget()
         if not isinstance(tab, ChartTab) or tab.pending is None:

@@ -171,6 +171,7 @@ def save_screenshot(window, out: str) -> None:
     from PySide6.QtWidgets import QApplication
     charts = window.panels.get("charts")
     charts.ensure_canvases()
+    charts.draw_pending()
     current = charts.tabs.currentWidget()
     if hasattr(current, "canvas"):
         current.canvas.draw()
