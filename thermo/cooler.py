@@ -285,14 +285,14 @@ def _exchanger(model: PropertyModel, spec: dict, where: str, field: str, inlet: 
 
     hot_at = _hot_side(model, where, t_stag, h_in0, p_out, mass_flow)
 
-    fluid = make_coolant(coolant, (dead.T0, dead.P0, ambient_relative_humidity))
+    fast = getattr(getattr(model, "dry", model), "fast_properties", False)  # trial solves: 1e-4 suffices
+    fluid = make_coolant(coolant, (dead.T0, dead.P0, ambient_relative_humidity), fast=fast)
     flow, rise = coolant.get("flow_kg_s"), coolant.get("temperature_rise_K")
     if t_ci >= t_stag:
         raise InputError(f"{where}.coolant_inlet_temperature_K", t_ci,
                          f"expected below the cooler air inlet {t_stag:.2f} K: the coolant cannot "
                          "cool air colder than itself")
     if t_out is None:
-        fast = getattr(getattr(model, "dry", model), "fast_properties", False)  # trial solves: 1e-4 suffices
         t_out, exchanger = rate_exchanger(spec["arrangement"], spec["ua_W_K"], t_stag, hot_at, fluid,
                                           t_ci, flow, rise, where, rtol=_FAST_RATING_RTOL if fast else 1e-12)
     else:

@@ -1,4 +1,5 @@
-"""Heat-exchanger side of the coolers: coolant stream, ε-NTU, LMTD, sizing and rating."""
+"""Heat-exchanger side of the coolers: coolant stream, ε-NTU, LMTD, sizing and rating (air_table.py: the
+air coolant's RP-1485 properties tabulated for the fast property path)."""
 from stagewright.core.exchanger.coolant import COOLANTS, CoolantSide, coolant_side, make_coolant
 from stagewright.core.exchanger.effectiveness import ARRANGEMENTS, effectiveness, max_effectiveness, ntu_from_effectiveness
 from stagewright.core.exchanger.lmtd import correction_factor, counterflow_lmtd, log_mean

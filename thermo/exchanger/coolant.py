@@ -114,9 +114,12 @@ def _glycol(spec, site):
     return _Liquid("glycol", name, x, f"water–{glycol} glycol ({x:.0%} by mass)")
 
 
-def _air(spec, site):
+def _air(spec, site, fast: bool = False):
     T0, P0, rh = site
     w = 0.0 if rh <= 0.0 else cpa.humid_air_property("W", "T", T0, "P", P0, "R", rh)
+    if fast:  # trial solves: the table of stagewright.core.exchanger.air_table (HAPropsSI to 2e-5 J/kg)
+        from stagewright.core.exchanger.air_table import TabulatedAmbientAir
+        return TabulatedAmbientAir(P0, w)
     return _AmbientAir(P0, w)
 
 
@@ -124,8 +127,14 @@ def _air(spec, site):
 COOLANTS = {"water": _water, "glycol": _glycol, "air": _air}
 
 
-def make_coolant(spec: dict, site: tuple):
-    """Build the coolant a ``cooler.coolant`` entry names (see :data:`COOLANTS`)."""
+def make_coolant(spec: dict, site: tuple, fast: bool = False):
+    """Build the coolant a ``cooler.coolant`` entry names (see :data:`COOLANTS`).
+
+    ``fast`` (the fast property path of trial solves): an air coolant's properties from the
+    table of :mod:`stagewright.core.exchanger.air_table` instead of a ``HAPropsSI`` call each; liquids
+    are unchanged."""
+    if fast and spec["kind"] == "air":
+        return _air(spec, site, fast=True)
     return COOLANTS[spec["kind"]](spec, site)
 
 
