@@ -294,7 +294,8 @@ def _exchanger(model: PropertyModel, spec: dict, where: str, field: str, inlet: 
                          "cool air colder than itself")
     if t_out is None:
         t_out, exchanger = rate_exchanger(spec["arrangement"], spec["ua_W_K"], t_stag, hot_at, fluid,
-                                          t_ci, flow, rise, where, rtol=_FAST_RATING_RTOL if fast else 1e-12)
+                                          t_ci, flow, rise, where, rtol=_FAST_RATING_RTOL if fast else 1e-12,
+                                          start=spec.get("rating_start"))
     else:
         if t_out <= t_ci:
             raise InputError(field, t_out if field.endswith("_temperature_K") else spec["approach_K"],

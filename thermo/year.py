@@ -44,6 +44,7 @@ from functools import partial
 from stagewright.core.part_load.in_year import bin_power
 from stagewright.core.project.validation import normalise
 from stagewright.core.errors import InputError, StagewrightError
+from stagewright.core.exchanger.rating import RatingStart
 from stagewright.core.solve import release_thread_models, solve_normalised
 from stagewright.core.year_bins import norm_for_bin, year_base
 from stagewright.core.year_design import YearDesign, design_coolers, limit_flags
@@ -271,11 +272,20 @@ class _Job:
     exact: bool
 
 
-def _solve_bin(job: _Job, b: Bin, same: tuple = ()) -> list:
+def _rating_starts(job: _Job) -> list | None:
+    """One :class:`~stagewright.core.exchanger.rating.RatingStart` per rated cooler: each bin's rating starts
+    where the previous bin's settled (same answers, fewer sizings); None when no cooler is rated."""
+    if job.design is None:
+        return None
+    return [None if c is None else RatingStart() for c in job.design.coolers]
+
+
+def _solve_bin(job: _Job, b: Bin, same: tuple = (), starts: list | None = None) -> list:
     """Bin ``b`` and the bins ``same`` whose inputs equal its own: one solve, each bin's figures and
-    limit flags (errors name bin ``b``)."""
+    limit flags (errors name bin ``b``); ``starts`` from :func:`_rating_starts`."""
     design = job.design
-    res = _in_bin(b, _solver(job.exact), norm_for_bin(job.base, b, None if design is None else design.rating()))
+    res = _in_bin(b, _solver(job.exact),
+                  norm_for_bin(job.base, b, None if design is None else design.rating(), starts))
     limit = job.year["coolers"].get("max_dryer_inlet_temperature_K")
     return [_bin_result(res, x, job.year, job.rec, limit_flags(x, res, design, limit), job.base)
             for x in (b, *same)]
@@ -313,13 +323,30 @@ def _in_order(done: list, total: int) -> list:
 
 def _run_in_process(job: _Job, bins: list, progress, cancelled) -> list:
     done: list = []
-    for group in same_input_groups(bins):
-        if cancelled is not None and cancelled():
-            raise _cancelled_error(done, len(bins))
-        done.extend(zip(group, _solve_bin(job, bins[group[0]], tuple(bins[i] for i in group[1:]))))
-        if progress is not None:
-            progress(len(done), len(bins))
+    for chunk in _chunks(bins):
+        starts = _rating_starts(job)  # fresh at each chunk, as in a pool worker: the same answers either way
+        for group in chunk:
+            if cancelled is not None and cancelled():
+                raise _cancelled_error(done, len(bins))
+            done.extend(zip(group, _solve_bin(job, bins[group[0]], tuple(bins[i] for i in group[1:]), starts)))
+            if progress is not None:
+                progress(len(done), len(bins))
     return _in_order(done, len(bins))
+
+
+def _chunks(bins: list) -> list:
+    """The same-input groups (:func:`same_input_groups`) in runs of about CHUNK_BINS bins, in profile order:
+    a pool worker's task, and where a run of ratings starts afresh (:func:`_rating_starts`; in a process
+    as in a pool, so that both give the same figures to the last bit)."""
+    chunks: list = [[]]
+    count = 0
+    for group in same_input_groups(bins):
+        if count >= CHUNK_BINS:
+            chunks.append([])
+            count = 0
+        chunks[-1].append(group)
+        count += len(group)
+    return chunks
 
 
 def _solve_chunk(job: _Job, chunk: list) -> list:
@@ -327,9 +354,10 @@ def _solve_chunk(job: _Job, chunk: list) -> list:
     ``("error", its position)`` (the caller solves it again in its own process to raise the error
     with its type)."""
     out = []
+    starts = _rating_starts(job)  # a chunk is a run of neighbouring bins: each starts from the one before
     for k, group in enumerate(chunk):
         try:
-            out.append(_solve_bin(job, group[0], tuple(group[1:])))
+            out.append(_solve_bin(job, group[0], tuple(group[1:]), starts))
         except StagewrightError:
             out.append(("error", k))
             break
@@ -341,11 +369,7 @@ def _run_in_pool(job: _Job, bins: list, n_proc: int, progress, cancelled) -> lis
     """The same-input groups in chunks of about CHUNK_BINS bins on ``n_proc`` worker processes."""
     from concurrent.futures import ProcessPoolExecutor  # local: most years are short
     from stagewright.core.process_pool import pool_context
-    chunks: list = [[]]
-    for group in same_input_groups(bins):
-        if sum(len(g) for g in chunks[-1]) >= CHUNK_BINS:
-            chunks.append([])
-        chunks[-1].append(group)
+    chunks = _chunks(bins)
     done: list = []
     with ProcessPoolExecutor(max_workers=n_proc, mp_context=pool_context()) as pool:
         futures = [pool.submit(_solve_chunk, job, [[bins[i] for i in g] for g in ch]) for ch in chunks]

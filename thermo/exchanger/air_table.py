@@ -109,18 +109,18 @@ class HumidAirTable:
                 self._nodes[key] = v
         return v
 
+    def column(self, i: int, W: float) -> tuple:
+        """(H, V, ΔS) per kg dry air at grid temperature i, interpolated in W (inside :meth:`covers`)."""
+        j0, u = _stencil(W, W_STEP, _J_LAST)
+        wu = _weights(u)
+        nodes = [self._node(i, j0 + b) for b in range(4)]
+        return tuple(sum(wu[b] * nodes[b][k] for b in range(4)) for k in range(3))
+
     def per_dry_kg(self, T: float, W: float, which: int) -> float:
         """Interpolated H (which=0), V (1) or ΔS (2) per kg dry air at (T, W); inside :meth:`covers`."""
         i0, t = _stencil(T - T_FIRST, T_STEP, _I_LAST)
-        j0, u = _stencil(W, W_STEP, _J_LAST)
-        wt, wu = _weights(t), _weights(u)
-        total = 0.0
-        for a in range(4):
-            row = 0.0
-            for b in range(4):
-                row += wu[b] * self._node(i0 + a, j0 + b)[which]
-            total += wt[a] * row
-        return total
+        wt = _weights(t)
+        return sum(wt[a] * self.column(i0 + a, W)[which] for a in range(4))
 
 
 _TABLES: dict = {}
@@ -151,21 +151,35 @@ class TabulatedAmbientAir:
         self.t_min, self.t_max = 223.15, 573.15
         self._table = table or table_for(pressure)
         self._f = 1.0 + humidity_ratio
+        self._columns: dict = {}
 
     def _exact(self, name: str, T: float) -> float:
         return cpa.humid_air_property(name, "T", T, "P", self.P, "W", self.W)
 
+    def _interpolated(self, T: float, which: int) -> float:
+        # W is fixed for this coolant: each grid temperature's W-interpolation is done once
+        i0, t = _stencil(T - T_FIRST, T_STEP, _I_LAST)
+        wt = _weights(t)
+        cols = self._columns
+        total = 0.0
+        for a in range(4):
+            col = cols.get(i0 + a)
+            if col is None:
+                col = cols[i0 + a] = self._table.column(i0 + a, self.W)
+            total += wt[a] * col[which]
+        return total
+
     def h(self, T: float) -> float:
         if not self._table.covers(T, self.W):
             return self._exact("Hha", T)
-        return self._table.per_dry_kg(T, self.W, 0) / self._f
+        return self._interpolated(T, 0) / self._f
 
     def s(self, T: float) -> float:
         if not self._table.covers(T, self.W):
             return self._exact("Sha", T)
-        return self._table.per_dry_kg(T, self.W, 2) / self._f + self._table.s_ref(self.W)
+        return self._interpolated(T, 2) / self._f + self._table.s_ref(self.W)
 
     def rho(self, T: float) -> float:
         if not self._table.covers(T, self.W):
             return 1.0 / self._exact("Vha", T)
-        return self._f / self._table.per_dry_kg(T, self.W, 1)
+        return self._f / self._interpolated(T, 1)
