@@ -14,7 +14,7 @@ from stagewright.core.exergy import DeadState, heat_exergy
 from stagewright.core.models.base import Point, PropertyModel
 
 _FROST_LOW = 173.15  #: lowest dew (frost) point searched for in a cooler, [K] (the schema's lowest dew point)
-_FAST_RATING_RTOL = 1e-9  #: rated air outlet on the fast property path (trial solves, year bins), relative
+_FAST_RATING_RTOL = 1e-8  #: rated air outlet on the fast property path (trial solves, year bins), relative
 
 
 @dataclass

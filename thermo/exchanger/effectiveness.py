@@ -219,12 +219,34 @@ def _cross_unmixed_and_slope(y: float, cr: float) -> tuple:
               - \varepsilon
     """
     ntu = math.exp(y)
-    n_max = int(ntu + 12.0 * math.sqrt(ntu) + 40.0)
+    n_max = _series_terms(ntu)
     pa, pb = _poisson_pmf(ntu, n_max), _poisson_pmf(cr * ntu, n_max)
     a, b = _tails_from_pmf(pa, n_max), _tails_from_pmf(pb, n_max)
     eps = math.fsum(x * z for x, z in zip(a, b)) / (cr * ntu)
     slope = math.fsum(pa[n] * b[n] + cr * a[n] * pb[n] for n in range(n_max)) / cr - eps
     return eps, slope
+
+
+def _series_terms(ntu: float) -> int:
+    r"""Terms of the unmixed cross-flow series that matter at ``ntu``: the first n past 2N + 5 where the
+    Poisson probability :math:`p_n(N)` is below :math:`10^{-19}(1 - e^{-N})`, at most
+    :math:`N + 12\sqrt N + 40` (:func:`crossflow_unmixed_effectiveness`).
+
+    Beyond 2N the probabilities fall by at least half a term, so the dropped tails sum to less than
+    :math:`4 p_n`; with :math:`P(n+1, C_r N) \le P(1, C_r N)` the dropped terms are below
+    :math:`10^{-18}` of the series' first term :math:`P(1, N) P(1, C_r N)`, hence of the sum (for N of
+    order 1, half the terms of the fixed cut-off)."""
+    n_cap = int(ntu + 12.0 * math.sqrt(ntu) + 40.0)
+    if ntu > 600.0:
+        return n_cap
+    floor = 1e-19 * -math.expm1(-ntu)
+    p, m, n_min = math.exp(-ntu), 0, 2.0 * ntu + 5.0
+    while m < n_cap:
+        m += 1
+        p *= ntu / m
+        if m > n_min and p < floor:
+            return m
+    return n_cap
 
 
 def _tails_from_pmf(pmf: list, n_max: int) -> list:
