@@ -152,6 +152,7 @@ class TabulatedAmbientAir:
         self._table = table or table_for(pressure)
         self._f = 1.0 + humidity_ratio
         self._columns: dict = {}
+        self._memo: dict = {}
 
     def _exact(self, name: str, T: float) -> float:
         return cpa.humid_air_property(name, "T", T, "P", self.P, "W", self.W)
@@ -169,17 +170,30 @@ class TabulatedAmbientAir:
             total += wt[a] * col[which]
         return total
 
+    def _prop(self, which: int, T: float) -> float:
+        # a rating sizes the exchanger several times at the same coolant inlet (and limit): keep the answers
+        key = (which, T)
+        value = self._memo.get(key)
+        if value is None:
+            if len(self._memo) > 256:
+                self._memo.clear()
+            if not self._table.covers(T, self.W):
+                value = self._exact(("Hha", "Vha", "Sha")[which], T)
+                value = 1.0 / value if which == 1 else value
+            elif which == 0:
+                value = self._interpolated(T, 0) / self._f
+            elif which == 1:
+                value = self._f / self._interpolated(T, 1)
+            else:
+                value = self._interpolated(T, 2) / self._f + self._table.s_ref(self.W)
+            self._memo[key] = value
+        return value
+
     def h(self, T: float) -> float:
-        if not self._table.covers(T, self.W):
-            return self._exact("Hha", T)
-        return self._interpolated(T, 0) / self._f
+        return self._prop(0, T)
 
     def s(self, T: float) -> float:
-        if not self._table.covers(T, self.W):
-            return self._exact("Sha", T)
-        return self._interpolated(T, 2) / self._f + self._table.s_ref(self.W)
+        return self._prop(2, T)
 
     def rho(self, T: float) -> float:
-        if not self._table.covers(T, self.W):
-            return 1.0 / self._exact("Vha", T)
-        return self._f / self._interpolated(T, 1)
+        return self._prop(1, T)

@@ -279,7 +279,9 @@ def _size_two_zones(arrangement, hot: HotSide, fluid, side: CoolantSide, field_n
     if side.flow_kg_s > 0.0 and q_wet > 0.0:
         h_cb = fluid.h(t_ci) + q_wet / side.flow_kg_s
         t_co = side.outlet_temperature_K
-        t_cb = temperature_from_h(fluid, h_cb, t_ci, t_co, fluid.h(t_ci), fluid.h(t_co))
+        t_cb = temperature_from_h(fluid, h_cb, t_ci, t_co, fluid.h(t_ci), fluid.h(t_co),
+                                  near=getattr(fluid, "last_boundary", None))
+        fluid.last_boundary = (t_cb, h_cb)  # a rating's next sizing starts its search here
     if t_cb <= t_ci:  # the wet zone's duty warms the coolant by less than rounding: one dry zone
         zone = dry_zone(arrangement, hot.inlet_temperature_K, hot.outlet_temperature_K, hot.duty_W, t_ci,
                         side.outlet_temperature_K, field_name)
