@@ -44,13 +44,16 @@ class RatingStart:
     ``fraction``: the air outlet as a fraction of the span, (T_out − T_ci)/(T_hi − T_ci);
     ``slope``: dg/d(fraction) there. Both None until a rating has settled. One per cooler and
     thread (a year's bins in one worker, in order); it changes only how fast a rating settles.
+    ``rtol``: the relative tolerance its owner asks for on the fast property path (None: the
+    cooler's default, :func:`stagewright.core.cooler.solve_cooler`).
     """
 
-    __slots__ = ("fraction", "slope")
+    __slots__ = ("fraction", "slope", "rtol")
 
-    def __init__(self):
+    def __init__(self, rtol: float | None = None):
         self.fraction: float | None = None
         self.slope: float | None = None
+        self.rtol = rtol
 
 
 def brentq(*args, **kwargs):
