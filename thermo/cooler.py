@@ -84,16 +84,17 @@ def _hot_side(model, where: str, t_stag: float, h_in0: float, p_out: float, mass
     """
     moist = getattr(model, "mixture", None) is not None and model.water > 0.0
     cache: dict = {}
-    h_memo: dict = {}
+    points: dict = {}
 
     def h_eq(T: float) -> float:
-        # a rating sizes the exchanger several times: the dew point and coolant inlet repeat
-        h = h_memo.get(T)
-        if h is None:
-            if len(h_memo) > 64:
-                h_memo.clear()
-            h = h_memo[T] = model.at_tp(T, p_out, f"{where} outlet").h
-        return h
+        # a rating sizes the exchanger several times: the dew point and coolant inlet repeat; the
+        # states are kept whole, so that the cooler's outlet is the state its last sizing found
+        pt = points.get(T)
+        if pt is None:
+            if len(points) > 64:
+                points.clear()
+            pt = points[T] = model.at_tp(T, p_out, f"{where} outlet")
+        return pt.h
 
     def dew(t_out: float):
         # the dew point does not depend on the outlet asked for; search once over the widest span
@@ -113,6 +114,7 @@ def _hot_side(model, where: str, t_stag: float, h_in0: float, p_out: float, mass
         return HotSide(t_stag, t, duty, dew_point_K=t_dew, dew_point_duty_W=q_dew, flow_kg_s=mass_flow,
                        equilibrium_enthalpy=h_eq, moist_cp_J_kgK=q_dew / (mass_flow * (t_stag - t_dew)))
 
+    hot_at.points = points  # T -> the state at the cooler outlet pressure, as found by the sizings
     return hot_at
 
 
@@ -194,10 +196,10 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
     if p_out <= 0.5 * inlet.P:
         raise InputError(f"{where}.pressure_drop_Pa", spec["pressure_drop_Pa"],
                          f"expected less than half the cooler inlet pressure ({0.5 * inlet.P:.0f} Pa)")
-    exchanger, t_stag = None, inlet.T
+    exchanger, t_stag, outlet = None, inlet.T, None
     if coolant is not None:
-        t_out, exchanger, t_stag, t_b = _exchanger(model, spec, where, field, inlet, inlet_velocity, p_out,
-                                                   mass_flow, dead, t_out, ambient_relative_humidity)
+        t_out, exchanger, t_stag, t_b, outlet = _exchanger(model, spec, where, field, inlet, inlet_velocity, p_out,
+                                                           mass_flow, dead, t_out, ambient_relative_humidity)
     if t_out > (t_stag if exchanger is not None else inlet.T):
         raise InputError(field, t_out if field.endswith("_temperature_K") else spec["approach_K"],
                          f"cooler outlet {t_out:.2f} K is above its inlet {inlet.T:.2f} K; "
@@ -207,7 +209,8 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
                          f"cooler outlet {t_out:.2f} K is below the heat-sink temperature "
                          f"{t_b:.2f} K (coolant inlet, or ambient when none is given)")
     moist = getattr(model, "mixture", None) is not None
-    outlet = model.at_tp(t_out, p_out, f"{where} outlet")
+    if outlet is None:
+        outlet = model.at_tp(t_out, p_out, f"{where} outlet")
     ke = 0.5 * inlet_velocity ** 2 * model.mass_per_dry_kg if moist else 0.5 * inlet_velocity ** 2
     duty = mass_flow * (inlet.h + ke - outlet.h)
     s_gen = mass_flow * (outlet.s - inlet.s) + duty / t_b
@@ -260,7 +263,8 @@ def _exchanger(model: PropertyModel, spec: dict, where: str, field: str, inlet: 
     -------
     tuple
         Air outlet temperature [K], the exchanger (None when the air is not cooled),
-        stagnation inlet temperature [K] and the heat's boundary temperature [K].
+        stagnation inlet temperature [K], the heat's boundary temperature [K] and the outlet
+        state at the outlet pressure when a sizing found it (else None).
 
     Raises
     ------
@@ -304,7 +308,7 @@ def _exchanger(model: PropertyModel, spec: dict, where: str, field: str, inlet: 
         if t_out < inlet.T:
             exchanger = size_exchanger(spec["arrangement"], hot_at(t_out), fluid, t_ci, flow, rise, where)
     t_b = exchanger.coolant.mean_temperature_K if exchanger is not None else t_ci
-    return t_out, exchanger, t_stag, t_b
+    return t_out, exchanger, t_stag, t_b, hot_at.points.get(t_out)
 
 
 def _rating_rtol(spec: dict, fast: bool) -> float:

@@ -53,23 +53,33 @@ class _Liquid:
         self.kind = kind
         self.label = label
         self._state = cpa.new_incompressible_state(fluid, fraction)
+        self._memo: dict = {}
         lo, hi = cpa.incompressible_limits(fluid, fraction)
         self.t_min, self.t_max = lo, min(hi, _BOILING_LIMIT_K)
 
     def _set(self, T: float) -> None:
         cpa.incompressible_update_tp(self._state, T, COOLANT_PRESSURE_PA, f"coolant {self.label}")
 
+    def _prop(self, which: int, T: float) -> float:
+        # a rating sizes the exchanger several times at the same inlet and limit: keep the answers
+        key = (which, T)
+        value = self._memo.get(key)
+        if value is None:
+            if len(self._memo) > 256:
+                self._memo.clear()
+            self._set(T)
+            state = self._state
+            value = self._memo[key] = (state.hmass, state.smass, state.rhomass)[which]()
+        return value
+
     def h(self, T: float) -> float:
-        self._set(T)
-        return self._state.hmass()
+        return self._prop(0, T)
 
     def s(self, T: float) -> float:
-        self._set(T)
-        return self._state.smass()
+        return self._prop(1, T)
 
     def rho(self, T: float) -> float:
-        self._set(T)
-        return self._state.rhomass()
+        return self._prop(2, T)
 
 
 class _AmbientAir:
