@@ -193,7 +193,10 @@ def temperature_from_h(fluid, h_target: float, t_lo: float, t_hi: float, h_lo: f
 
     A coolant's h(T) is nearly straight, so secant steps from the chord's root settle in three or
     four enthalpy calls (each a CoolProp call, humid air ~0.1 ms); steps are kept inside the
-    bracket, and Brent's method on the bracket decides should they not settle in 12 steps.
+    bracket, and Brent's method on the bracket decides should they not settle in 12 steps. A step
+    below 1e-12 K (or two equal enthalpies: rounding) ends the search even where rounding puts it
+    just outside the bracket (before, such a step was sent to mid-bracket and a third of the
+    searches of a rating ran to Brent's method).
     ``near`` = (T, h) of an earlier answer on the same fluid (a rating's sizings ask for nearby
     outlets): the first step then follows the local chord from ``t_lo`` through it, one or two
     calls fewer; the answer is the same root to the same tolerance.
@@ -213,11 +216,12 @@ def temperature_from_h(fluid, h_target: float, t_lo: float, t_hi: float, h_lo: f
             a, fa = x1, f1
         else:
             b, fb = x1, f1
-        x2 = x1 - f1 * (x1 - x0) / (f1 - f0) if f1 != f0 else 0.5 * (a + b)
+        # equal enthalpies at two temperatures: the steps are down to the enthalpy's rounding
+        x2 = x1 - f1 * (x1 - x0) / (f1 - f0) if f1 != f0 else x1
+        if abs(x2 - x1) <= 1e-12:  # settled (tested before the bracket: a step of rounding may leave it)
+            return min(max(x2, a), b)
         if not a < x2 < b:
             x2 = 0.5 * (a + b)
-        if abs(x2 - x1) <= 1e-12:
-            return x2
         x0, f0, x1 = x1, f1, x2
     return brentq(lambda T: fluid.h(T) - h_target, a, b, xtol=1e-12, rtol=1e-15, maxiter=200)
 
