@@ -45,15 +45,17 @@ class RatingStart:
     ``slope``: dg/d(fraction) there. Both None until a rating has settled. One per cooler and
     thread (a year's bins in one worker, in order); it changes only how fast a rating settles.
     ``rtol``: the relative tolerance its owner asks for on the fast property path (None: the
-    cooler's default, :func:`stagewright.core.cooler.solve_cooler`).
+    cooler's default, :func:`stagewright.core.cooler.solve_cooler`). ``ntu_starts``: each zone's
+    NTU at the last sizing, where the next numerical NTU inversion starts.
     """
 
-    __slots__ = ("fraction", "slope", "rtol")
+    __slots__ = ("fraction", "slope", "rtol", "ntu_starts")
 
     def __init__(self, rtol: float | None = None):
         self.fraction: float | None = None
         self.slope: float | None = None
         self.rtol = rtol
+        self.ntu_starts: dict = {}  #: each zone's NTU at the last sizing (:func:`size_exchanger`)
 
 
 def brentq(*args, **kwargs):
@@ -124,10 +126,12 @@ def rate_exchanger(arrangement: str, ua: float, t_hi: float, hot_at: Callable[[f
                          "air colder than itself")
 
     sized: dict = {}
+    ntu_starts = {} if start is None else start.ntu_starts  # each zone's NTU: the next inversion's start
 
     def g(t_out: float) -> float:
         try:
-            ex = size_exchanger(arrangement, hot_at(t_out), fluid, t_ci, flow, rise, where, explain=False)
+            ex = size_exchanger(arrangement, hot_at(t_out), fluid, t_ci, flow, rise, where, explain=False,
+                                ntu_starts=ntu_starts)
         except (InputError, PropertyRangeError):
             return _INFEASIBLE
         sized[t_out] = ex
