@@ -13,8 +13,9 @@ __all__ = ["pool_context", "PRELOAD"]
 import multiprocessing
 
 
-#: modules the forkserver imports once for all its workers (the solve, years, and so CoolProp)
-PRELOAD = ["stagewright.core", "stagewright.core.solve", "stagewright.core.year"]
+#: modules the forkserver imports once for all its workers (the solve, years, and so CoolProp; scipy's
+#: root finders, which a rating's fallback imports on first use: 0.6 s in each worker otherwise)
+PRELOAD = ["stagewright.core", "stagewright.core.solve", "stagewright.core.year", "scipy.optimize"]
 
 
 def pool_context():
