@@ -180,3 +180,22 @@ def test_pool_cancel_keeps_the_bins_finished():
     with pytest.raises(YearCancelled) as info:
         run_year(doc, processes=2, cancelled=cancelled)
     assert len(info.value.partial) == 60
+
+
+@pytest.mark.parametrize("exact, rel", [(True, 1e-9), (False, 1e-5)])
+def test_warm_started_bins_equal_bins_rated_alone(exact, rel):
+    # each bin's rating starts where the previous bin's settled (RatingStart); the same bins solved one
+    # by one, each rating searched afresh, give the same rated outlets: to 1e-9 relative exact, and to
+    # the fast path's rating tolerance (year.FAST_RATING_RTOL = 1e-6, so 1e-5 with margin) on the fast path
+    from stagewright.core.solve import solve_normalised
+    months = [{"temperature_K": 262.15 + 3.1 * i, "relative_humidity": 0.85 - 0.03 * i,
+               "coolant_inlet_temperature_K": 281.15 + 1.2 * i} for i in range(12)]
+    doc = _doc("real_gas", 0.6, months=months, coolers={"mode": "design_once", "design_condition": "hottest_bin"})
+    y = run_year(doc, exact=exact)
+    norm = normalise(doc)
+    base = year_base(norm)
+    for b, got in zip(operating_bins(norm["year"]), y.bins):
+        alone = solve_normalised(norm_for_bin(base, b, y.design.rating()), detail=False, fast=not exact)
+        for a, c in zip(got.cooler_outlet_temperatures_K, alone.coolers):
+            assert a == pytest.approx(c.outlet.T, rel=rel, abs=0.0)
+        assert got.driver_power_W == pytest.approx(alone.driver_power_W, rel=rel)
