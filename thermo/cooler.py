@@ -11,7 +11,7 @@ from stagewright.core.moist.dew_point import dew_point
 from stagewright.core.errors import InputError
 from stagewright.core.exchanger import Exchanger, HotSide, make_coolant, rate_exchanger, size_exchanger
 from stagewright.core.exergy import DeadState, heat_exergy
-from stagewright.core.models.base import Point, PropertyModel
+from stagewright.core.models.base import Point, PropertyModel, check_range
 
 _FROST_LOW = 173.15  #: lowest dew (frost) point searched for in a cooler, [K] (the schema's lowest dew point)
 _FAST_RATING_RTOL = 1e-9  #: rated air outlet on the fast property path (trial solves, year bins), relative
@@ -85,16 +85,23 @@ def _hot_side(model, where: str, t_stag: float, h_in0: float, p_out: float, mass
     moist = getattr(model, "mixture", None) is not None and model.water > 0.0
     cache: dict = {}
     points: dict = {}
+    # moist air: the equilibrium enthalpy alone (the same sum at_tp makes, without the entropy, the
+    # liquid's volume and the Point: a two-phase state's liquid volume was a quarter of a wet sizing)
+    h_only = getattr(model, "_h", None) if getattr(model, "mixture", None) is not None else None
+    where_out = f"{where} outlet"
 
     def h_eq(T: float) -> float:
-        # a rating sizes the exchanger several times: the dew point and coolant inlet repeat; the
-        # states are kept whole, so that the cooler's outlet is the state its last sizing found
-        pt = points.get(T)
-        if pt is None:
+        # a rating sizes the exchanger several times: the dew point and coolant inlet repeat
+        h = points.get(T)
+        if h is None:
             if len(points) > 64:
                 points.clear()
-            pt = points[T] = model.at_tp(T, p_out, f"{where} outlet")
-        return pt.h
+            if h_only is not None:
+                check_range(T, p_out, where_out)
+                h = points[T] = h_only(T, p_out)
+            else:
+                h = points[T] = model.at_tp(T, p_out, where_out).h
+        return h
 
     def dew(t_out: float):
         # the dew point does not depend on the outlet asked for; search once over the widest span
@@ -114,7 +121,6 @@ def _hot_side(model, where: str, t_stag: float, h_in0: float, p_out: float, mass
         return HotSide(t_stag, t, duty, dew_point_K=t_dew, dew_point_duty_W=q_dew, flow_kg_s=mass_flow,
                        equilibrium_enthalpy=h_eq, moist_cp_J_kgK=q_dew / (mass_flow * (t_stag - t_dew)))
 
-    hot_at.points = points  # T -> the state at the cooler outlet pressure, as found by the sizings
     return hot_at
 
 
@@ -196,10 +202,10 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
     if p_out <= 0.5 * inlet.P:
         raise InputError(f"{where}.pressure_drop_Pa", spec["pressure_drop_Pa"],
                          f"expected less than half the cooler inlet pressure ({0.5 * inlet.P:.0f} Pa)")
-    exchanger, t_stag, outlet = None, inlet.T, None
+    exchanger, t_stag = None, inlet.T
     if coolant is not None:
-        t_out, exchanger, t_stag, t_b, outlet = _exchanger(model, spec, where, field, inlet, inlet_velocity, p_out,
-                                                           mass_flow, dead, t_out, ambient_relative_humidity)
+        t_out, exchanger, t_stag, t_b = _exchanger(model, spec, where, field, inlet, inlet_velocity, p_out,
+                                                   mass_flow, dead, t_out, ambient_relative_humidity)
     if t_out > (t_stag if exchanger is not None else inlet.T):
         raise InputError(field, t_out if field.endswith("_temperature_K") else spec["approach_K"],
                          f"cooler outlet {t_out:.2f} K is above its inlet {inlet.T:.2f} K; "
@@ -209,8 +215,7 @@ def solve_cooler(model: PropertyModel, spec: dict, index: int, inlet: Point, inl
                          f"cooler outlet {t_out:.2f} K is below the heat-sink temperature "
                          f"{t_b:.2f} K (coolant inlet, or ambient when none is given)")
     moist = getattr(model, "mixture", None) is not None
-    if outlet is None:
-        outlet = model.at_tp(t_out, p_out, f"{where} outlet")
+    outlet = model.at_tp(t_out, p_out, f"{where} outlet")
     ke = 0.5 * inlet_velocity ** 2 * model.mass_per_dry_kg if moist else 0.5 * inlet_velocity ** 2
     duty = mass_flow * (inlet.h + ke - outlet.h)
     s_gen = mass_flow * (outlet.s - inlet.s) + duty / t_b
@@ -263,8 +268,7 @@ def _exchanger(model: PropertyModel, spec: dict, where: str, field: str, inlet: 
     -------
     tuple
         Air outlet temperature [K], the exchanger (None when the air is not cooled),
-        stagnation inlet temperature [K], the heat's boundary temperature [K] and the outlet
-        state at the outlet pressure when a sizing found it (else None).
+        stagnation inlet temperature [K] and the heat's boundary temperature [K].
 
     Raises
     ------
@@ -308,7 +312,7 @@ def _exchanger(model: PropertyModel, spec: dict, where: str, field: str, inlet: 
         if t_out < inlet.T:
             exchanger = size_exchanger(spec["arrangement"], hot_at(t_out), fluid, t_ci, flow, rise, where)
     t_b = exchanger.coolant.mean_temperature_K if exchanger is not None else t_ci
-    return t_out, exchanger, t_stag, t_b, hot_at.points.get(t_out)
+    return t_out, exchanger, t_stag, t_b
 
 
 def _rating_rtol(spec: dict, fast: bool) -> float:
