@@ -30,7 +30,10 @@ grows linearly with its bins. Bins are solved on the fast property path of trial
 exact solves to better than 1e-4 relative, tests/test_year_design.py checks the totals);
 ``run_year(..., exact=True)`` solves them exactly. Bins whose inputs (temperature, humidity, load,
 coolant inlet) are bit-for-bit equal — hourly data repeats them often — share one solve
-(:func:`same_input_groups`); nothing is rounded or binned for it.
+(:func:`same_input_groups`); nothing is rounded or binned for it. Bins are solved in order of
+temperature (then humidity), in chunks of CHUNK_BINS bins (a pool worker's task), and each rated
+cooler's rating starts where the previous bin's settled
+(:class:`~stagewright.core.exchanger.rating.RatingStart`, fresh at each chunk, in a process as in a pool).
 """
 from __future__ import annotations
 
@@ -60,7 +63,8 @@ FAST_RATING_RTOL = 1e-6
 
 
 class YearCancelled(StagewrightError):
-    """The year run was cancelled; ``partial`` holds the bins finished so far."""
+    """The year run was cancelled; ``partial`` holds the bins finished so far (in profile order; bins are
+    solved coolest first, so they are the coolest bins, not the first hours)."""
 
 
 @dataclass
@@ -339,13 +343,23 @@ def _run_in_process(job: _Job, bins: list, progress, cancelled) -> list:
     return _in_order(done, len(bins))
 
 
+def _solve_order(bins: list, group: list) -> tuple:
+    """Where a same-input group is solved: by temperature, then humidity, load and coolant inlet (None
+    first), so that each bin's rating starts from a bin much like it (hourly data: 0.005 K apart
+    instead of an hour's change; 11 % fewer sizings than in profile order)."""
+    b = bins[group[0]]
+    c = b.coolant_inlet_temperature_K
+    return b.temperature_K, b.relative_humidity, b.load, c is not None, c or 0.0
+
+
 def _chunks(bins: list) -> list:
-    """The same-input groups (:func:`same_input_groups`) in runs of about CHUNK_BINS bins, in profile order:
-    a pool worker's task, and where a run of ratings starts afresh (:func:`_rating_starts`; in a process
-    as in a pool, so that both give the same figures to the last bit)."""
+    """The same-input groups (:func:`same_input_groups`) in the order of :func:`_solve_order`, in runs of
+    about CHUNK_BINS bins: a pool worker's task, and where a run of ratings starts afresh
+    (:func:`_rating_starts`; in a process as in a pool, so that both give the same figures to the last
+    bit). Results are put back in profile order."""
     chunks: list = [[]]
     count = 0
-    for group in same_input_groups(bins):
+    for group in sorted(same_input_groups(bins), key=lambda g: _solve_order(bins, g)):
         if count >= CHUNK_BINS:
             chunks.append([])
             count = 0
