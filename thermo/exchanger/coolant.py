@@ -216,8 +216,10 @@ def temperature_from_h(fluid, h_target: float, t_lo: float, t_hi: float, h_lo: f
             a, fa = x1, f1
         else:
             b, fb = x1, f1
-        # equal enthalpies at two temperatures: the steps are down to the enthalpy's rounding
-        x2 = x1 - f1 * (x1 - x0) / (f1 - f0) if f1 != f0 else x1
+        if f1 != f0:
+            x2 = x1 - f1 * (x1 - x0) / (f1 - f0)
+        else:  # equal enthalpies: at temperatures within 1e-9 K that is rounding (settled), else bisect
+            x2 = x1 if abs(x1 - x0) <= 1e-9 else 0.5 * (a + b)
         if abs(x2 - x1) <= 1e-12:  # settled (tested before the bracket: a step of rounding may leave it)
             return min(max(x2, a), b)
         if not a < x2 < b:

@@ -161,6 +161,14 @@ def rate_exchanger(arrangement: str, ua: float, t_hi: float, hot_at: Callable[[f
                          f"{'at the coolant inlet' if big else 'at its inlet'} temperature to within rounding "
                          f"({t_ci:.2f} K coolant, {t_hi:.2f} K air)")
     t_out = brentq(g, lo, hi, xtol=1e-12, rtol=1e-15, maxiter=500)
+    if t_out not in sized:
+        # a root on a pinch (UA_req jumps there: the wet zone's coolant reaches the dew point), where
+        # rounding decides whether a sizing exists: the nearest outlet Brent's method sized, within 1e-9
+        near = [t for t in sized if abs(t - t_out) <= 1e-9 * max(1.0, abs(t_out))]
+        if near:
+            t_out = min(near, key=lambda t: abs(t - t_out))
+    if t_out in sized:
+        return t_out, sized[t_out]
     return t_out, size_exchanger(arrangement, hot_at(t_out), fluid, t_ci, flow, rise, where)
 
 
