@@ -129,8 +129,9 @@ def limit_flags(b: Bin, result, design: YearDesign | None, max_dryer_inlet_K: fl
     """Where bin ``b``'s train misses a stated limit: plain SI sentences (empty when it meets them all).
 
     A rated cooler misses its design when its air leaves warmer than it did at the design
-    condition (its design outlet temperature); the air reaching the dryer (the delivered air)
-    misses ``max_dryer_inlet_K`` when it is warmer.
+    condition (its design outlet temperature) by more than 1e-3 K (above the year's fast-path
+    rating tolerance); the air reaching the dryer (the delivered air) misses ``max_dryer_inlet_K``
+    when it is warmer.
 
     Parameters
     ----------
