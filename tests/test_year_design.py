@@ -199,3 +199,20 @@ def test_warm_started_bins_equal_bins_rated_alone(exact, rel):
         for a, c in zip(got.cooler_outlet_temperatures_K, alone.coolers):
             assert a == pytest.approx(c.outlet.T, rel=rel, abs=0.0)
         assert got.driver_power_W == pytest.approx(alone.driver_power_W, rel=rel)
+
+
+def test_rated_root_on_a_pinch_is_taken_from_the_nearest_sizing():
+    # found by an exact 974-hour year: at 273.16 K and 98 % RH the air-cooled aftercooler's rated root
+    # sits where the wet zone's coolant reaches the dew point, and whether a sizing exists there is a
+    # matter of rounding; Brent's fallback now takes the nearest outlet it sized. The outlet is main's
+    # at 7d01038 (310.7706438541685 K, the same sample and design), to 1e-9 K
+    import json
+    from pathlib import Path
+    doc = json.loads((Path(__file__).resolve().parent.parent / "sample_projects" /
+                      "three_stage_site_year.json").read_text())
+    doc["year"] = {"profile": {"kind": "bins", "bins": [
+        {"temperature_K": 304.92, "relative_humidity": 0.25, "hours": 1.0},
+        {"temperature_K": 273.16, "relative_humidity": 0.98, "hours": 1.0}]},
+        "coolers": {"mode": "design_once", "design_condition": "hottest_bin"}}
+    y = run_year(doc, exact=True)
+    assert y.bins[1].cooler_outlet_temperatures_K[2] == pytest.approx(310.7706438541685, abs=1e-9)
