@@ -67,3 +67,53 @@ def test_coolant_outlet_solves_its_enthalpy_balance_to_1e_9_K(spec, t_in, duty_p
     assert fluid.h(side.outlet_temperature_K) == pytest.approx(target, rel=1e-13, abs=1e-7)
     ref = brentq(lambda t: fluid.h(t) - target, t_in, fluid.t_max, xtol=1e-12, rtol=1e-15)
     assert side.outlet_temperature_K == pytest.approx(ref, abs=1e-9)
+
+
+def test_tabulated_air_coolant_matches_hapropssi_at_ambient_states():
+    # the fast path's air coolant (stagewright.core.exchanger.air_table) against CoolProp HAPropsSI
+    # (ASHRAE RP-1485) itself at random site states: the tolerances stated in the module
+    import random
+    from stagewright.core.exchanger.air_table import HumidAirTable, TabulatedAmbientAir
+    p = 98_500.0
+    table = HumidAirTable(p)
+    rng = random.Random(15)
+    for _ in range(150):
+        t0, rh = rng.uniform(223.15, 318.15), rng.uniform(0.0, 1.0)
+        w = CP.HAPropsSI("W", "T", t0, "P", p, "R", rh)
+        t = t0 + rng.uniform(0.0, 80.0)
+        air = TabulatedAmbientAir(p, w, table)
+        assert air.h(t) == pytest.approx(CP.HAPropsSI("Hha", "T", t, "P", p, "W", w), abs=1e-4)
+        assert air.s(t) == pytest.approx(CP.HAPropsSI("Sha", "T", t, "P", p, "W", w), abs=5e-6)
+        assert air.rho(t) == pytest.approx(1.0 / CP.HAPropsSI("Vha", "T", t, "P", p, "W", w), rel=1e-9)
+
+
+def test_fast_air_coolant_outlet_agrees_with_the_exact_one():
+    site = (268.15, 98_500.0, 0.85)
+    exact = coolant_side(make_coolant({"kind": "air"}, site), 268.15, 60_000.0, flow=6.0)
+    fast = coolant_side(make_coolant({"kind": "air"}, site, fast=True), 268.15, 60_000.0, flow=6.0)
+    assert fast.outlet_temperature_K == pytest.approx(exact.outlet_temperature_K, abs=1e-7)
+    assert fast.mean_temperature_K == pytest.approx(exact.mean_temperature_K, abs=1e-6)
+    assert fast.inlet_density_kg_m3 == pytest.approx(exact.inlet_density_kg_m3, rel=1e-9)
+
+
+def test_coolant_outlet_search_settles_in_a_few_enthalpy_calls():
+    # a step of rounding used to be sent to mid-bracket, and a third of a rating's searches ran on to
+    # Brent's method (15 and more calls); now every search settles in at most 5 (the answer as before)
+    from stagewright.core.exchanger.coolant import temperature_from_h
+    for spec in ({"kind": "water"}, {"kind": "air"}):
+        fluid = make_coolant(spec, (288.15, 98_500.0, 0.6))
+        calls = []
+
+        class Counted:
+            def h(self, T):
+                calls.append(T)
+                return fluid.h(T)
+        worst = 0
+        for k in range(60):
+            t_in, dh = 283.15 + 0.37 * k, 2_000.0 + 777.0 * k
+            h_in = fluid.h(t_in)
+            calls.clear()
+            t = temperature_from_h(Counted(), h_in + dh, t_in, 360.0, h_in, fluid.h(360.0))
+            worst = max(worst, len(calls))
+            assert fluid.h(t) == pytest.approx(h_in + dh, abs=1e-6)
+        assert worst <= 5

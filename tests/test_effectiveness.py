@@ -128,3 +128,16 @@ def test_crossflow_unmixed_inverse_matches_ht(ntu, cr):
     assert ours == pytest.approx(ntu, rel=1e-10)
     if eps < 0.999:  # near ε = 1 ht's own solve fails to converge (its integral loses precision)
         assert ours == pytest.approx(ht.NTU_from_effectiveness(eps, cr, subtype="crossflow"), rel=1e-6)
+
+
+@pytest.mark.parametrize("ntu", [0.01, 0.3, 1.7, 4.0, 9.0])
+@pytest.mark.parametrize("cr", [1e-6, 0.05, 0.37, 1.0])
+@pytest.mark.parametrize("start_factor", [0.5, 0.999, 1.0, 1.001, 3.0])
+def test_crossflow_unmixed_inverse_from_a_start_finds_the_same_ntu(ntu, cr, start_factor):
+    # a rating starts each inversion from the zone's NTU at its previous sizing: the same root as the
+    # round trip through the series (and as ht.NTU_from_effectiveness, above), whatever the start
+    eps = crossflow_unmixed_effectiveness(ntu, cr)
+    ours = ntu_from_effectiveness("cross_flow_unmixed", eps, cr, start=ntu * start_factor)
+    assert ours == pytest.approx(ntu, rel=1e-10)
+    # (to 1e-11: at N = 9 and Cr ≈ 0, ε is within 1e-4 of 1 and its rounding moves N by 4e-13)
+    assert ours == pytest.approx(ntu_from_effectiveness("cross_flow_unmixed", eps, cr), rel=1e-11)

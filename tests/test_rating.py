@@ -48,3 +48,36 @@ def test_ua_beyond_what_any_outlet_gives_names_the_ua(ua, word):
     fluid = make_coolant({"kind": "water"}, (298.15, 101_325.0, 0.0))
     with pytest.raises(InputError, match=rf"cooler\.ua_W_K.*expected a {word} UA"):
         rate_exchanger("counter_flow", ua, 430.0, hot_at, fluid, 298.15, flow=2.0)
+
+
+@pytest.mark.parametrize("arr", list(ARRANGEMENTS))
+@pytest.mark.parametrize("rtol", [1e-12, 1e-9])
+def test_warm_started_rating_equals_a_cold_one(arr, rtol):
+    # a run of ratings (a year's hours: the air and coolant inlets drift) started each from the one
+    # before (RatingStart) settles on the same outlets as ratings searched afresh, to the tolerance
+    from stagewright.core.exchanger import RatingStart
+    fluid = make_coolant({"kind": "water"}, (298.15, 101_325.0, 0.0))
+    start, calls = RatingStart(), {"warm": 0, "cold": 0}
+    for k in range(12):
+        t_in, t_ci = 430.0 + 1.7 * k, 290.0 + 0.6 * k
+
+        def hot(t, key):
+            calls[key] += 1
+            return hot_at(t, t_in)
+        cold, ex_cold = rate_exchanger(arr, 2500.0, t_in, lambda t: hot(t, "cold"), fluid, t_ci, flow=1.5, rtol=rtol)
+        warm, ex_warm = rate_exchanger(arr, 2500.0, t_in, lambda t: hot(t, "warm"), fluid, t_ci, flow=1.5, rtol=rtol,
+                                       start=start)
+        assert warm == pytest.approx(cold, rel=2 * rtol, abs=0.0)
+        assert ex_warm.ua_W_K == pytest.approx(2500.0, rel=1e-6)
+        assert start.fraction == pytest.approx((warm - t_ci) / (t_in - t_ci), rel=1e-15)
+    assert calls["warm"] < calls["cold"]  # the point of it: fewer sizings
+
+
+def test_warm_start_that_misses_falls_back_to_the_cold_search():
+    from stagewright.core.exchanger import RatingStart
+    fluid = make_coolant({"kind": "water"}, (298.15, 101_325.0, 0.0))
+    start = RatingStart()
+    start.fraction, start.slope = 0.999999, -1e-9  # a nonsense start: the Newton step leaves the interval
+    t_out, _ = rate_exchanger("counter_flow", 2500.0, 430.0, hot_at, fluid, 298.15, flow=1.5, start=start)
+    cold, _ = rate_exchanger("counter_flow", 2500.0, 430.0, hot_at, fluid, 298.15, flow=1.5)
+    assert t_out == pytest.approx(cold, rel=1e-12)

@@ -180,3 +180,39 @@ def test_pool_cancel_keeps_the_bins_finished():
     with pytest.raises(YearCancelled) as info:
         run_year(doc, processes=2, cancelled=cancelled)
     assert len(info.value.partial) == 60
+
+
+@pytest.mark.parametrize("exact, rel", [(True, 1e-9), (False, 1e-5)])
+def test_warm_started_bins_equal_bins_rated_alone(exact, rel):
+    # each bin's rating starts where the previous bin's settled (RatingStart); the same bins solved one
+    # by one, each rating searched afresh, give the same rated outlets: to 1e-9 relative exact, and to
+    # the fast path's rating tolerance (year.FAST_RATING_RTOL = 1e-6, so 1e-5 with margin) on the fast path
+    from stagewright.core.solve import solve_normalised
+    months = [{"temperature_K": 262.15 + 3.1 * i, "relative_humidity": 0.85 - 0.03 * i,
+               "coolant_inlet_temperature_K": 281.15 + 1.2 * i} for i in range(12)]
+    doc = _doc("real_gas", 0.6, months=months, coolers={"mode": "design_once", "design_condition": "hottest_bin"})
+    y = run_year(doc, exact=exact)
+    norm = normalise(doc)
+    base = year_base(norm)
+    for b, got in zip(operating_bins(norm["year"]), y.bins):
+        alone = solve_normalised(norm_for_bin(base, b, y.design.rating()), detail=False, fast=not exact)
+        for a, c in zip(got.cooler_outlet_temperatures_K, alone.coolers):
+            assert a == pytest.approx(c.outlet.T, rel=rel, abs=0.0)
+        assert got.driver_power_W == pytest.approx(alone.driver_power_W, rel=rel)
+
+
+def test_rated_root_on_a_pinch_is_taken_from_the_nearest_sizing():
+    # found by an exact 974-hour year: at 273.16 K and 98 % RH the air-cooled aftercooler's rated root
+    # sits where the wet zone's coolant reaches the dew point, and whether a sizing exists there is a
+    # matter of rounding; Brent's fallback now takes the nearest outlet it sized. The outlet is main's
+    # at 7d01038 (310.7706438541685 K, the same sample and design), to 1e-9 K
+    import json
+    from pathlib import Path
+    doc = json.loads((Path(__file__).resolve().parent.parent / "sample_projects" /
+                      "three_stage_site_year.json").read_text())
+    doc["year"] = {"profile": {"kind": "bins", "bins": [
+        {"temperature_K": 304.92, "relative_humidity": 0.25, "hours": 1.0},
+        {"temperature_K": 273.16, "relative_humidity": 0.98, "hours": 1.0}]},
+        "coolers": {"mode": "design_once", "design_condition": "hottest_bin"}}
+    y = run_year(doc, exact=True)
+    assert y.bins[1].cooler_outlet_temperatures_K[2] == pytest.approx(310.7706438541685, abs=1e-9)

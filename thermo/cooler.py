@@ -11,7 +11,7 @@ from stagewright.core.moist.dew_point import dew_point
 from stagewright.core.errors import InputError
 from stagewright.core.exchanger import Exchanger, HotSide, make_coolant, rate_exchanger, size_exchanger
 from stagewright.core.exergy import DeadState, heat_exergy
-from stagewright.core.models.base import Point, PropertyModel
+from stagewright.core.models.base import Point, PropertyModel, check_range
 
 _FROST_LOW = 173.15  #: lowest dew (frost) point searched for in a cooler, [K] (the schema's lowest dew point)
 _FAST_RATING_RTOL = 1e-9  #: rated air outlet on the fast property path (trial solves, year bins), relative
@@ -84,15 +84,23 @@ def _hot_side(model, where: str, t_stag: float, h_in0: float, p_out: float, mass
     """
     moist = getattr(model, "mixture", None) is not None and model.water > 0.0
     cache: dict = {}
-    h_memo: dict = {}
+    points: dict = {}
+    # moist air: the equilibrium enthalpy alone (the same sum at_tp makes, without the entropy, the
+    # liquid's volume and the Point: a two-phase state's liquid volume was a quarter of a wet sizing)
+    h_only = getattr(model, "_h", None) if getattr(model, "mixture", None) is not None else None
+    where_out = f"{where} outlet"
 
     def h_eq(T: float) -> float:
         # a rating sizes the exchanger several times: the dew point and coolant inlet repeat
-        h = h_memo.get(T)
+        h = points.get(T)
         if h is None:
-            if len(h_memo) > 64:
-                h_memo.clear()
-            h = h_memo[T] = model.at_tp(T, p_out, f"{where} outlet").h
+            if len(points) > 64:
+                points.clear()
+            if h_only is not None:
+                check_range(T, p_out, where_out)
+                h = points[T] = h_only(T, p_out)
+            else:
+                h = points[T] = model.at_tp(T, p_out, where_out).h
         return h
 
     def dew(t_out: float):
@@ -285,16 +293,16 @@ def _exchanger(model: PropertyModel, spec: dict, where: str, field: str, inlet: 
 
     hot_at = _hot_side(model, where, t_stag, h_in0, p_out, mass_flow)
 
-    fluid = make_coolant(coolant, (dead.T0, dead.P0, ambient_relative_humidity))
+    fast = getattr(getattr(model, "dry", model), "fast_properties", False)  # trial solves: 1e-4 suffices
+    fluid = make_coolant(coolant, (dead.T0, dead.P0, ambient_relative_humidity), fast=fast)
     flow, rise = coolant.get("flow_kg_s"), coolant.get("temperature_rise_K")
     if t_ci >= t_stag:
         raise InputError(f"{where}.coolant_inlet_temperature_K", t_ci,
                          f"expected below the cooler air inlet {t_stag:.2f} K: the coolant cannot "
                          "cool air colder than itself")
     if t_out is None:
-        fast = getattr(getattr(model, "dry", model), "fast_properties", False)  # trial solves: 1e-4 suffices
         t_out, exchanger = rate_exchanger(spec["arrangement"], spec["ua_W_K"], t_stag, hot_at, fluid,
-                                          t_ci, flow, rise, where, rtol=_FAST_RATING_RTOL if fast else 1e-12)
+                                          t_ci, flow, rise, where, rtol=_rating_rtol(spec, fast), start=spec.get("rating_start"))
     else:
         if t_out <= t_ci:
             raise InputError(field, t_out if field.endswith("_temperature_K") else spec["approach_K"],
@@ -305,6 +313,15 @@ def _exchanger(model: PropertyModel, spec: dict, where: str, field: str, inlet: 
             exchanger = size_exchanger(spec["arrangement"], hot_at(t_out), fluid, t_ci, flow, rise, where)
     t_b = exchanger.coolant.mean_temperature_K if exchanger is not None else t_ci
     return t_out, exchanger, t_stag, t_b
+
+
+def _rating_rtol(spec: dict, fast: bool) -> float:
+    """Relative tolerance of a rated air outlet: 1e-12 exact, 1e-9 on the fast path (trial solves), or
+    what the entry's ``rating_start`` asks for on the fast path (a year's bins, :mod:`stagewright.core.year`)."""
+    if not fast:
+        return 1e-12
+    start = spec.get("rating_start")
+    return _FAST_RATING_RTOL if start is None or start.rtol is None else start.rtol
 
 
 def _cooling_path(model: PropertyModel, where: str, inlet: Point, outlet: Point, t_out: float, p_out: float,

@@ -30,12 +30,15 @@ grows linearly with its bins. Bins are solved on the fast property path of trial
 exact solves to better than 1e-4 relative, tests/test_year_design.py checks the totals);
 ``run_year(..., exact=True)`` solves them exactly. Bins whose inputs (temperature, humidity, load,
 coolant inlet) are bit-for-bit equal — hourly data repeats them often — share one solve
-(:func:`same_input_groups`); nothing is rounded or binned for it.
+(:func:`same_input_groups`); nothing is rounded or binned for it. Bins are solved in order of
+temperature (then humidity), in chunks of CHUNK_BINS bins (a pool worker's task), and each rated
+cooler's rating starts where the previous bin's settled
+(:class:`~stagewright.core.exchanger.rating.RatingStart`, fresh at each chunk, in a process as in a pool).
 """
 from __future__ import annotations
 
 __all__ = ["YearResult", "BinResult", "YearCancelled", "run_year", "CONDENSATE_DENSITY_KG_M3", "FAST_PATH_BINS",
-           "POOL_BINS", "CHUNK_BINS", "same_input_groups"]
+           "POOL_BINS", "CHUNK_BINS", "FAST_RATING_RTOL", "same_input_groups"]
 
 import os
 from dataclasses import asdict, dataclass, field
@@ -44,6 +47,7 @@ from functools import partial
 from stagewright.core.part_load.in_year import bin_power
 from stagewright.core.project.validation import normalise
 from stagewright.core.errors import InputError, StagewrightError
+from stagewright.core.exchanger.rating import RatingStart
 from stagewright.core.solve import release_thread_models, solve_normalised
 from stagewright.core.year_bins import norm_for_bin, year_base
 from stagewright.core.year_design import YearDesign, design_coolers, limit_flags
@@ -53,10 +57,14 @@ CONDENSATE_DENSITY_KG_M3 = 1000.0
 FAST_PATH_BINS = 24  #: up to this many bins a year solves exactly by default (measured: bench/run.py)
 POOL_BINS = 2000  #: from this many bins a year uses every core by default
 CHUNK_BINS = 60  #: bins per worker task: progress and cancel between chunks
+#: rated cooler outlets of bins on the fast path, relative (3e-4 K at 300 K: the year's totals move by
+#: about 1e-6 relative, a hundredth of the fast path's 1e-4; trial solves of studies keep 1e-9)
+FAST_RATING_RTOL = 1e-6
 
 
 class YearCancelled(StagewrightError):
-    """The year run was cancelled; ``partial`` holds the bins finished so far."""
+    """The year run was cancelled; ``partial`` holds the bins finished so far (in profile order; bins are
+    solved coolest first, so they are the coolest bins, not the first hours)."""
 
 
 @dataclass
@@ -271,11 +279,22 @@ class _Job:
     exact: bool
 
 
-def _solve_bin(job: _Job, b: Bin, same: tuple = ()) -> list:
+def _rating_starts(job: _Job) -> list | None:
+    """One :class:`~stagewright.core.exchanger.rating.RatingStart` per rated cooler: each bin's rating starts
+    where the previous bin's settled (fewer sizings; exact path: the same answers to 1e-12 relative;
+    fast path: rated outlets to FAST_RATING_RTOL); None when no cooler is rated."""
+    if job.design is None:
+        return None
+    rtol = None if job.exact else FAST_RATING_RTOL
+    return [None if c is None else RatingStart(rtol) for c in job.design.coolers]
+
+
+def _solve_bin(job: _Job, b: Bin, same: tuple = (), starts: list | None = None) -> list:
     """Bin ``b`` and the bins ``same`` whose inputs equal its own: one solve, each bin's figures and
-    limit flags (errors name bin ``b``)."""
+    limit flags (errors name bin ``b``); ``starts`` from :func:`_rating_starts`."""
     design = job.design
-    res = _in_bin(b, _solver(job.exact), norm_for_bin(job.base, b, None if design is None else design.rating()))
+    res = _in_bin(b, _solver(job.exact),
+                  norm_for_bin(job.base, b, None if design is None else design.rating(), starts))
     limit = job.year["coolers"].get("max_dryer_inlet_temperature_K")
     return [_bin_result(res, x, job.year, job.rec, limit_flags(x, res, design, limit), job.base)
             for x in (b, *same)]
@@ -313,13 +332,40 @@ def _in_order(done: list, total: int) -> list:
 
 def _run_in_process(job: _Job, bins: list, progress, cancelled) -> list:
     done: list = []
-    for group in same_input_groups(bins):
-        if cancelled is not None and cancelled():
-            raise _cancelled_error(done, len(bins))
-        done.extend(zip(group, _solve_bin(job, bins[group[0]], tuple(bins[i] for i in group[1:]))))
-        if progress is not None:
-            progress(len(done), len(bins))
+    for chunk in _chunks(bins):
+        starts = _rating_starts(job)  # fresh at each chunk, as in a pool worker: the same answers either way
+        for group in chunk:
+            if cancelled is not None and cancelled():
+                raise _cancelled_error(done, len(bins))
+            done.extend(zip(group, _solve_bin(job, bins[group[0]], tuple(bins[i] for i in group[1:]), starts)))
+            if progress is not None:
+                progress(len(done), len(bins))
     return _in_order(done, len(bins))
+
+
+def _solve_order(bins: list, group: list) -> tuple:
+    """Where a same-input group is solved: by temperature, then humidity, load and coolant inlet (None
+    first), so that each bin's rating starts from a bin much like it (hourly data: 0.005 K apart
+    instead of an hour's change; 11 % fewer sizings than in profile order)."""
+    b = bins[group[0]]
+    c = b.coolant_inlet_temperature_K
+    return b.temperature_K, b.relative_humidity, b.load, c is not None, c or 0.0
+
+
+def _chunks(bins: list) -> list:
+    """The same-input groups (:func:`same_input_groups`) in the order of :func:`_solve_order`, in runs of
+    about CHUNK_BINS bins: a pool worker's task, and where a run of ratings starts afresh
+    (:func:`_rating_starts`; in a process as in a pool, so that both give the same figures to the last
+    bit). Results are put back in profile order."""
+    chunks: list = [[]]
+    count = 0
+    for group in sorted(same_input_groups(bins), key=lambda g: _solve_order(bins, g)):
+        if count >= CHUNK_BINS:
+            chunks.append([])
+            count = 0
+        chunks[-1].append(group)
+        count += len(group)
+    return chunks
 
 
 def _solve_chunk(job: _Job, chunk: list) -> list:
@@ -327,9 +373,10 @@ def _solve_chunk(job: _Job, chunk: list) -> list:
     ``("error", its position)`` (the caller solves it again in its own process to raise the error
     with its type)."""
     out = []
+    starts = _rating_starts(job)  # a chunk is a run of neighbouring bins: each starts from the one before
     for k, group in enumerate(chunk):
         try:
-            out.append(_solve_bin(job, group[0], tuple(group[1:])))
+            out.append(_solve_bin(job, group[0], tuple(group[1:]), starts))
         except StagewrightError:
             out.append(("error", k))
             break
@@ -341,11 +388,7 @@ def _run_in_pool(job: _Job, bins: list, n_proc: int, progress, cancelled) -> lis
     """The same-input groups in chunks of about CHUNK_BINS bins on ``n_proc`` worker processes."""
     from concurrent.futures import ProcessPoolExecutor  # local: most years are short
     from stagewright.core.process_pool import pool_context
-    chunks: list = [[]]
-    for group in same_input_groups(bins):
-        if sum(len(g) for g in chunks[-1]) >= CHUNK_BINS:
-            chunks.append([])
-        chunks[-1].append(group)
+    chunks = _chunks(bins)
     done: list = []
     with ProcessPoolExecutor(max_workers=n_proc, mp_context=pool_context()) as pool:
         futures = [pool.submit(_solve_chunk, job, [[bins[i] for i in g] for g in ch]) for ch in chunks]

@@ -18,7 +18,7 @@ def year_base(norm: dict) -> dict:
     return {k: v for k, v in norm.items() if k != "year"}
 
 
-def rated_cooler_spec(spec: dict, ua_W_K: float, coolant_flow_kg_s: float) -> dict:
+def rated_cooler_spec(spec: dict, ua_W_K: float, coolant_flow_kg_s: float, start=None) -> dict:
     """A cooler entry rated at a fixed UA with a fixed coolant flow (the installed exchanger).
 
     The air outlet is then a result of the rating (:func:`stagewright.core.exchanger.rate_exchanger`);
@@ -33,9 +33,16 @@ def rated_cooler_spec(spec: dict, ua_W_K: float, coolant_flow_kg_s: float) -> di
         Overall conductance to rate with, [W/K].
     coolant_flow_kg_s : float
         Coolant mass flow, [kg/s].
+    start : RatingStart, optional
+        Where this cooler's rating in the previous bin settled (:class:`stagewright.core.exchanger.rating.RatingStart`,
+        kept under the entry's private key ``rating_start``): the rating starts there. Not part of
+        the project format; it changes how fast the rating settles, not its answer.
     """
     coolant = {**spec["coolant"], "flow_kg_s": coolant_flow_kg_s, "temperature_rise_K": None}
-    return {**spec, "outlet_temperature_K": None, "approach_K": None, "ua_W_K": ua_W_K, "coolant": coolant}
+    out = {**spec, "outlet_temperature_K": None, "approach_K": None, "ua_W_K": ua_W_K, "coolant": coolant}
+    if start is not None:
+        out["rating_start"] = start
+    return out
 
 
 def cooler_for_bin(spec: dict, b: Bin) -> dict:
@@ -50,7 +57,7 @@ def cooler_for_bin(spec: dict, b: Bin) -> dict:
     return spec
 
 
-def norm_for_bin(base: dict, b: Bin, rating: list | None = None) -> dict:
+def norm_for_bin(base: dict, b: Bin, rating: list | None = None, starts: list | None = None) -> dict:
     """The normalised project of bin ``b``: its ambient, humidity, load and coolant temperatures.
 
     Parameters
@@ -62,6 +69,9 @@ def norm_for_bin(base: dict, b: Bin, rating: list | None = None) -> dict:
     rating : list, optional
         Per stage, ``(ua_W_K, coolant_flow_kg_s)`` of a cooler rated at a fixed UA, or None
         where the cooler keeps its entry (design once, rate every bin: :mod:`stagewright.core.year_design`).
+    starts : list, optional
+        Per stage, the :class:`~stagewright.core.exchanger.rating.RatingStart` of a rated cooler (the
+        previous bin's rating, to start from), or None.
 
     Returns
     -------
@@ -93,7 +103,7 @@ def norm_for_bin(base: dict, b: Bin, rating: list | None = None) -> dict:
             continue
         new = cooler_for_bin(spec, b)
         if rating is not None and rating[i] is not None:
-            new = rated_cooler_spec(new, *rating[i])
+            new = rated_cooler_spec(new, *rating[i], start=None if starts is None else starts[i])
         stages.append(st if new is spec else {**st, "cooler": new})
     d["stages"] = stages
     return d

@@ -36,7 +36,9 @@ from stagewright.core.year_bins import norm_for_bin
 from stagewright.core.year_profile import Bin
 
 DEFAULT_UA_MARGIN = 0.10  #: fouling margin on UA (common practice, no source)
-_OUTLET_TOLERANCE_K = 1e-6  #: a rated outlet this close to its stated outlet still meets it
+#: a rated outlet this close to its design outlet still meets it, [K]: above the year's fast-path rating
+#: tolerance (stagewright.core.year.FAST_RATING_RTOL, 3e-4 K at 300 K), far below any limit's meaning
+_OUTLET_TOLERANCE_K = 1e-3
 
 
 @dataclass(frozen=True)
@@ -127,8 +129,9 @@ def limit_flags(b: Bin, result, design: YearDesign | None, max_dryer_inlet_K: fl
     """Where bin ``b``'s train misses a stated limit: plain SI sentences (empty when it meets them all).
 
     A rated cooler misses its design when its air leaves warmer than it did at the design
-    condition (its design outlet temperature); the air reaching the dryer (the delivered air)
-    misses ``max_dryer_inlet_K`` when it is warmer.
+    condition (its design outlet temperature) by more than 1e-3 K (above the year's fast-path
+    rating tolerance); the air reaching the dryer (the delivered air) misses ``max_dryer_inlet_K``
+    when it is warmer.
 
     Parameters
     ----------

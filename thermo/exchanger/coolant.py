@@ -53,23 +53,33 @@ class _Liquid:
         self.kind = kind
         self.label = label
         self._state = cpa.new_incompressible_state(fluid, fraction)
+        self._memo: dict = {}
         lo, hi = cpa.incompressible_limits(fluid, fraction)
         self.t_min, self.t_max = lo, min(hi, _BOILING_LIMIT_K)
 
     def _set(self, T: float) -> None:
         cpa.incompressible_update_tp(self._state, T, COOLANT_PRESSURE_PA, f"coolant {self.label}")
 
+    def _prop(self, which: int, T: float) -> float:
+        # a rating sizes the exchanger several times at the same inlet and limit: keep the answers
+        key = (which, T)
+        value = self._memo.get(key)
+        if value is None:
+            if len(self._memo) > 256:
+                self._memo.clear()
+            self._set(T)
+            state = self._state
+            value = self._memo[key] = (state.hmass, state.smass, state.rhomass)[which]()
+        return value
+
     def h(self, T: float) -> float:
-        self._set(T)
-        return self._state.hmass()
+        return self._prop(0, T)
 
     def s(self, T: float) -> float:
-        self._set(T)
-        return self._state.smass()
+        return self._prop(1, T)
 
     def rho(self, T: float) -> float:
-        self._set(T)
-        return self._state.rhomass()
+        return self._prop(2, T)
 
 
 class _AmbientAir:
@@ -114,9 +124,12 @@ def _glycol(spec, site):
     return _Liquid("glycol", name, x, f"water–{glycol} glycol ({x:.0%} by mass)")
 
 
-def _air(spec, site):
+def _air(spec, site, fast: bool = False):
     T0, P0, rh = site
     w = 0.0 if rh <= 0.0 else cpa.humid_air_property("W", "T", T0, "P", P0, "R", rh)
+    if fast:  # trial solves: the table of stagewright.core.exchanger.air_table (HAPropsSI to 2e-5 J/kg)
+        from stagewright.core.exchanger.air_table import TabulatedAmbientAir
+        return TabulatedAmbientAir(P0, w)
     return _AmbientAir(P0, w)
 
 
@@ -124,8 +137,14 @@ def _air(spec, site):
 COOLANTS = {"water": _water, "glycol": _glycol, "air": _air}
 
 
-def make_coolant(spec: dict, site: tuple):
-    """Build the coolant a ``cooler.coolant`` entry names (see :data:`COOLANTS`)."""
+def make_coolant(spec: dict, site: tuple, fast: bool = False):
+    """Build the coolant a ``cooler.coolant`` entry names (see :data:`COOLANTS`).
+
+    ``fast`` (the fast property path of trial solves): an air coolant's properties from the
+    table of :mod:`stagewright.core.exchanger.air_table` instead of a ``HAPropsSI`` call each; liquids
+    are unchanged."""
+    if fast and spec["kind"] == "air":
+        return _air(spec, site, fast=True)
     return COOLANTS[spec["kind"]](spec, site)
 
 
@@ -168,16 +187,27 @@ class CoolantSide:
         return self.flow_kg_s / self.inlet_density_kg_m3
 
 
-def temperature_from_h(fluid, h_target: float, t_lo: float, t_hi: float, h_lo: float, h_hi: float) -> float:
+def temperature_from_h(fluid, h_target: float, t_lo: float, t_hi: float, h_lo: float, h_hi: float,
+                       near: tuple | None = None) -> float:
     """T with ``fluid.h(T) = h_target`` on [t_lo, t_hi] (``h_lo``, ``h_hi`` the enthalpies there), to 1e-12 K.
 
     A coolant's h(T) is nearly straight, so secant steps from the chord's root settle in three or
     four enthalpy calls (each a CoolProp call, humid air ~0.1 ms); steps are kept inside the
-    bracket, and Brent's method on the bracket decides should they not settle in 12 steps.
+    bracket, and Brent's method on the bracket decides should they not settle in 12 steps. A step
+    below 1e-12 K (or two equal enthalpies: rounding) ends the search even where rounding puts it
+    just outside the bracket (before, such a step was sent to mid-bracket and a third of the
+    searches of a rating ran to Brent's method).
+    ``near`` = (T, h) of an earlier answer on the same fluid (a rating's sizings ask for nearby
+    outlets): the first step then follows the local chord from ``t_lo`` through it, one or two
+    calls fewer; the answer is the same root to the same tolerance.
     """
     a, fa, b, fb = t_lo, h_lo - h_target, t_hi, h_hi - h_target
     x0, f0 = (a, fa) if abs(fa) <= abs(fb) else (b, fb)
     x1 = a - fa * (b - a) / (fb - fa) if fb != fa else 0.5 * (a + b)
+    if near is not None and a < near[0] < b and near[1] != h_lo:
+        guess = a - fa * (near[0] - a) / (near[1] - h_lo)  # root of the chord from t_lo through ``near``
+        if a < guess < b:
+            x1 = guess
     for _ in range(12):
         f1 = fluid.h(x1) - h_target
         if f1 == 0.0:
@@ -186,11 +216,14 @@ def temperature_from_h(fluid, h_target: float, t_lo: float, t_hi: float, h_lo: f
             a, fa = x1, f1
         else:
             b, fb = x1, f1
-        x2 = x1 - f1 * (x1 - x0) / (f1 - f0) if f1 != f0 else 0.5 * (a + b)
+        if f1 != f0:
+            x2 = x1 - f1 * (x1 - x0) / (f1 - f0)
+        else:  # equal enthalpies: at temperatures within 1e-9 K that is rounding (settled), else bisect
+            x2 = x1 if abs(x1 - x0) <= 1e-9 else 0.5 * (a + b)
+        if abs(x2 - x1) <= 1e-12:  # settled (tested before the bracket: a step of rounding may leave it)
+            return min(max(x2, a), b)
         if not a < x2 < b:
             x2 = 0.5 * (a + b)
-        if abs(x2 - x1) <= 1e-12:
-            return x2
         x0, f0, x1 = x1, f1, x2
     return brentq(lambda T: fluid.h(T) - h_target, a, b, xtol=1e-12, rtol=1e-15, maxiter=200)
 
@@ -277,8 +310,13 @@ def coolant_side(fluid, t_in: float, duty: float, flow: float | None = None, ris
                              f"expected at least {duty / (h_max - h_in):.6g} kg/s for a duty of "
                              f"{duty:.6g} W: less would heat the {fluid.label} above "
                              f"{fluid.t_max:.2f} K")
-        t_out = t_in if duty <= 0.0 else temperature_from_h(fluid, h_in + duty / flow, t_in, fluid.t_max,
-                                                                             h_in, h_max)
+        if duty <= 0.0:
+            t_out = t_in
+        else:  # a rating sizes the same coolant several times: start from its last outlet
+            h_out = h_in + duty / flow
+            t_out = temperature_from_h(fluid, h_out, t_in, fluid.t_max, h_in, h_max,
+                                       near=getattr(fluid, "last_outlet", None))
+            fluid.last_outlet = (t_out, h_out)
     ds = fluid.s(t_out) - fluid.s(t_in)
     dh = fluid.h(t_out) - h_in
     t_mean = dh / ds if ds > 0.0 and dh > 0.0 else 0.5 * (t_in + t_out)

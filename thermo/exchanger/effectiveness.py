@@ -219,12 +219,34 @@ def _cross_unmixed_and_slope(y: float, cr: float) -> tuple:
               - \varepsilon
     """
     ntu = math.exp(y)
-    n_max = int(ntu + 12.0 * math.sqrt(ntu) + 40.0)
+    n_max = _series_terms(ntu)
     pa, pb = _poisson_pmf(ntu, n_max), _poisson_pmf(cr * ntu, n_max)
     a, b = _tails_from_pmf(pa, n_max), _tails_from_pmf(pb, n_max)
     eps = math.fsum(x * z for x, z in zip(a, b)) / (cr * ntu)
     slope = math.fsum(pa[n] * b[n] + cr * a[n] * pb[n] for n in range(n_max)) / cr - eps
     return eps, slope
+
+
+def _series_terms(ntu: float) -> int:
+    r"""Terms of the unmixed cross-flow series that matter at ``ntu``: the first n past 2N + 5 where the
+    Poisson probability :math:`p_n(N)` is below :math:`10^{-19}(1 - e^{-N})`, at most
+    :math:`N + 12\sqrt N + 40` (:func:`crossflow_unmixed_effectiveness`).
+
+    Beyond 2N the probabilities fall by at least half a term, so the dropped tails sum to less than
+    :math:`4 p_n`; with :math:`P(n+1, C_r N) \le P(1, C_r N)` the dropped terms are below
+    :math:`10^{-18}` of the series' first term :math:`P(1, N) P(1, C_r N)`, hence of the sum (for N of
+    order 1, half the terms of the fixed cut-off)."""
+    n_cap = int(ntu + 12.0 * math.sqrt(ntu) + 40.0)
+    if ntu > 600.0:
+        return n_cap
+    floor = 1e-19 * -math.expm1(-ntu)
+    p, m, n_min = math.exp(-ntu), 0, 2.0 * ntu + 5.0
+    while m < n_cap:
+        m += 1
+        p *= ntu / m
+        if m > n_min and p < floor:
+            return m
+    return n_cap
 
 
 def _tails_from_pmf(pmf: list, n_max: int) -> list:
@@ -237,17 +259,20 @@ def _tails_from_pmf(pmf: list, n_max: int) -> list:
     return tails
 
 
-def _cross_unmixed_inv(eps: float, cr: float) -> float | None:
+def _cross_unmixed_inv(eps: float, cr: float, start: float | None = None) -> float | None:
     r"""NTU of unmixed cross-flow for ``eps`` by safeguarded Newton steps on :math:`y = \ln N`.
 
     Counter-flow needs the fewest transfer units of all arrangements, so its closed-form NTU is a
-    lower bound and the start; each step is a Newton step (exact slope,
-    :func:`_cross_unmixed_and_slope`) kept inside the bracket found so far (bisection otherwise).
-    Stops when a step is below 1e-9 in y (the next error is below 1e-17); None if 60 steps do
-    not settle or the NTU passes 10⁴ (the caller then brackets with Brent's method).
+    lower bound and the start (or ``start``, an NTU near the answer, when above it); each step is a
+    Newton step (exact slope, :func:`_cross_unmixed_and_slope`) kept inside the bracket found so far
+    (bisection otherwise). Stops when a step is below 1e-7 in y: Newton's error after a step s is
+    about :math:`|\varepsilon''/2\varepsilon'|\,s^2`, below 1e-14 here; None if 60 steps do not
+    settle or the NTU passes 10⁴ (the caller then brackets with Brent's method).
     """
     y = math.log(max(_counter_inv(eps, cr, True), 1e-300))
     lo, hi, y_top = y, None, math.log(1e4)
+    if start is not None and start > 0.0 and math.log(start) > y:
+        y = math.log(start)
     for _ in range(60):
         e, slope = _cross_unmixed_and_slope(y, cr)
         f = e - eps
@@ -261,7 +286,7 @@ def _cross_unmixed_inv(eps: float, cr: float) -> float | None:
         y_new = y + step
         if not (lo <= y_new and (hi is None or y_new <= hi)) or not math.isfinite(y_new):
             y_new = 0.5 * (lo + hi) if hi is not None else lo + math.log(8.0)
-        elif abs(step) <= 1e-9 * max(1.0, abs(y)):
+        elif abs(step) <= 1e-7 * max(1.0, abs(y)):
             return math.exp(y_new)
         if y_new > y_top:
             return None
@@ -391,7 +416,7 @@ def max_effectiveness(arrangement: str, cr: float, hot_is_cmin: bool = True) -> 
 
 
 def ntu_from_effectiveness(arrangement: str, eps: float, cr: float, hot_is_cmin: bool = True,
-                           field: str = "effectiveness") -> float:
+                           field: str = "effectiveness", start: float | None = None) -> float:
     r"""Number of transfer units an arrangement needs for an effectiveness [1]_.
 
     Closed-form inverses (Incropera eqs. 11.29b, 11.30b, 11.33b, 11.34b):
@@ -424,6 +449,9 @@ def ntu_from_effectiveness(arrangement: str, eps: float, cr: float, hot_is_cmin:
         As for :func:`effectiveness`.
     field : str
         Input path named in the error when the effectiveness cannot be reached.
+    start : float, optional
+        An NTU near the answer (a rating's previous sizing) for the numerical inversion to start
+        from instead of the counter-flow NTU; the same root.
 
     Returns
     -------
@@ -459,7 +487,7 @@ def ntu_from_effectiveness(arrangement: str, eps: float, cr: float, hot_is_cmin:
             raise InputError(field, eps, cross)
         return ntu
     if arrangement == "cross_flow_unmixed" and cr >= 1e-10:
-        ntu = _cross_unmixed_inv(eps, cr)
+        ntu = _cross_unmixed_inv(eps, cr, start)
         if ntu is not None:
             return ntu
 

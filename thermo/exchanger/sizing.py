@@ -118,7 +118,7 @@ class Exchanger:
 
 
 def dry_zone(arrangement: str, t_hi: float, t_ho: float, q: float, t_ci: float, t_co: float,
-             field_name: str) -> Zone:
+             field_name: str, ntu_start: float | None = None) -> Zone:
     r"""Size one sensible (dry) zone from its four terminal temperatures and duty [1]_ [2]_.
 
     Parameters
@@ -133,6 +133,9 @@ def dry_zone(arrangement: str, t_hi: float, t_ho: float, q: float, t_ci: float, 
         Coolant inlet and outlet temperatures, [K].
     field_name : str
         Input path blamed when the temperatures cross.
+    ntu_start : float, optional
+        An NTU near the answer (a rating's previous sizing) to start a numerical inversion from
+        (:func:`~stagewright.core.exchanger.effectiveness.ntu_from_effectiveness`); the same answer.
 
     Returns
     -------
@@ -163,13 +166,14 @@ def dry_zone(arrangement: str, t_hi: float, t_ho: float, q: float, t_ci: float, 
         raise Infeasible(field_name, eps, f"the {ARRANGEMENTS[arrangement].label} arrangement reaches "
                                           f"an effectiveness of at most {limit:.6g} at a capacity ratio "
                                           f"of {cr:.4g}, and {eps:.6g} is needed: the temperatures cross")
-    ntu = ntu_from_effectiveness(arrangement, eps, cr, hot_is_cmin, field_name)
+    ntu = ntu_from_effectiveness(arrangement, eps, cr, hot_is_cmin, field_name, start=ntu_start)
     ua = ntu * c_min
     lmtd = counterflow_lmtd(t_hi, t_ho, t_ci, t_co, field_name)
     return Zone("dry", q, t_hi, t_ho, t_ci, t_co, c_h, c_c, cr, eps, ntu, lmtd, q / (ua * lmtd), ua)
 
 
-def wet_zone(arrangement: str, hot: HotSide, q: float, t_ci: float, t_cb: float, field_name: str) -> Zone:
+def wet_zone(arrangement: str, hot: HotSide, q: float, t_ci: float, t_cb: float, field_name: str,
+             ntu_start: float | None = None) -> Zone:
     r"""Size the condensing (wet) zone on an enthalpy driving force [3]_ [4]_ [5]_.
 
     Below the dew point the air is saturated and sheds latent heat. With a Lewis number
@@ -203,6 +207,8 @@ def wet_zone(arrangement: str, hot: HotSide, q: float, t_ci: float, t_cb: float,
         (at the dew-point boundary), [K].
     field_name : str
         Input path blamed when the zone cannot be built.
+    ntu_start : float, optional
+        As for :func:`dry_zone`.
 
     Returns
     -------
@@ -247,7 +253,7 @@ def wet_zone(arrangement: str, hot: HotSide, q: float, t_ci: float, t_cb: float,
         raise Infeasible(field_name, eps, f"the condensing zone needs an effectiveness of {eps:.6g}; the "
                                           f"{ARRANGEMENTS[arrangement].label} arrangement reaches at most "
                                           f"{limit:.6g}: the temperatures cross")
-    ntu = ntu_from_effectiveness(arrangement, eps, cr, ca <= cc, field_name)
+    ntu = ntu_from_effectiveness(arrangement, eps, cr, ca <= cc, field_name, start=ntu_start)
     ua = ntu * c_min * hot.moist_cp_J_kgK
     lmtd = counterflow_lmtd(t_dew, t_ho, t_ci, t_cb, field_name)
     return Zone("wet", q, t_dew, t_ho, t_ci, t_cb, q / (t_dew - t_ho), c_c, cr, eps, ntu, lmtd,
@@ -258,20 +264,24 @@ def _coolant_field(where: str, flow, rise) -> str:
     return f"{where}.coolant.flow_kg_s" if flow is not None else f"{where}.coolant.temperature_rise_K"
 
 
-def _size(arrangement, hot: HotSide, fluid, t_ci, flow, rise, where) -> Exchanger:
+def _size(arrangement, hot: HotSide, fluid, t_ci, flow, rise, where, starts: dict | None = None) -> Exchanger:
     side = coolant_side(fluid, t_ci, hot.duty_W, flow=flow, rise=rise, where=where)
     field_name = _coolant_field(where, flow, rise)
+    starts = {} if starts is None else starts
     if hot.condenses:
-        return _size_two_zones(arrangement, hot, fluid, side, field_name)
+        return _size_two_zones(arrangement, hot, fluid, side, field_name, starts)
     zone = dry_zone(arrangement, hot.inlet_temperature_K, hot.outlet_temperature_K, hot.duty_W,
-                    t_ci, side.outlet_temperature_K, field_name)
+                    t_ci, side.outlet_temperature_K, field_name, starts.get("whole"))
+    starts["whole"] = zone.ntu
     return Exchanger(arrangement=arrangement, coolant=side, zones=[zone], ua_W_K=zone.ua_W_K,
                      lmtd_K=zone.lmtd_K, correction_factor=zone.correction_factor,
                      effectiveness=zone.effectiveness, ntu=zone.ntu)
 
 
-def _size_two_zones(arrangement, hot: HotSide, fluid, side: CoolantSide, field_name: str) -> Exchanger:
-    """Dry zone (inlet → dew point) and wet zone (dew point → outlet), in counter-current series."""
+def _size_two_zones(arrangement, hot: HotSide, fluid, side: CoolantSide, field_name: str,
+                    starts: dict) -> Exchanger:
+    """Dry zone (inlet → dew point) and wet zone (dew point → outlet), in counter-current series;
+    ``starts`` keeps each zone's NTU for the next sizing of a rating to start its inversion from."""
     q_dry = hot.dew_point_duty_W
     q_wet = hot.duty_W - q_dry
     t_ci = side.inlet_temperature_K
@@ -279,16 +289,19 @@ def _size_two_zones(arrangement, hot: HotSide, fluid, side: CoolantSide, field_n
     if side.flow_kg_s > 0.0 and q_wet > 0.0:
         h_cb = fluid.h(t_ci) + q_wet / side.flow_kg_s
         t_co = side.outlet_temperature_K
-        t_cb = temperature_from_h(fluid, h_cb, t_ci, t_co, fluid.h(t_ci), fluid.h(t_co))
+        t_cb = temperature_from_h(fluid, h_cb, t_ci, t_co, fluid.h(t_ci), fluid.h(t_co),
+                                  near=getattr(fluid, "last_boundary", None))
+        fluid.last_boundary = (t_cb, h_cb)  # a rating's next sizing starts its search here
     if t_cb <= t_ci:  # the wet zone's duty warms the coolant by less than rounding: one dry zone
         zone = dry_zone(arrangement, hot.inlet_temperature_K, hot.outlet_temperature_K, hot.duty_W, t_ci,
-                        side.outlet_temperature_K, field_name)
+                        side.outlet_temperature_K, field_name, starts.get("whole"))
         return Exchanger(arrangement=arrangement, coolant=side, zones=[zone], ua_W_K=zone.ua_W_K,
                          lmtd_K=zone.lmtd_K, correction_factor=zone.correction_factor,
                          effectiveness=zone.effectiveness, ntu=zone.ntu)
-    wet = enthalpy_driving_force(wet_zone(arrangement, hot, q_wet, t_ci, t_cb, field_name), hot)
+    wet = enthalpy_driving_force(wet_zone(arrangement, hot, q_wet, t_ci, t_cb, field_name, starts.get("wet")), hot)
     dry = dry_zone(arrangement, hot.inlet_temperature_K, hot.dew_point_K, q_dry, t_cb,
-                   side.outlet_temperature_K, field_name)
+                   side.outlet_temperature_K, field_name, starts.get("dry"))
+    starts["wet"], starts["dry"] = wet.ntu, dry.ntu
     ua = wet.ua_W_K + dry.ua_W_K
     lmtd = counterflow_lmtd(hot.inlet_temperature_K, hot.outlet_temperature_K, t_ci, side.outlet_temperature_K,
                             field_name)
@@ -335,7 +348,8 @@ def _limit_message(arrangement, hot, fluid, t_ci, flow, rise, where) -> InputErr
 
 
 def size_exchanger(arrangement: str, hot: HotSide, fluid, t_ci: float, flow: float | None = None,
-                   rise: float | None = None, where: str = "cooler", explain: bool = True) -> Exchanger:
+                   rise: float | None = None, where: str = "cooler", explain: bool = True,
+                   ntu_starts: dict | None = None) -> Exchanger:
     r"""UA, effectiveness, NTU, LMTD and coolant stream of a cooler for a given air outlet [1]_.
 
     Parameters
@@ -355,6 +369,9 @@ def size_exchanger(arrangement: str, hot: HotSide, fluid, t_ci: float, flow: flo
     explain : bool
         On a temperature cross, search for the limiting coolant flow (or rise) and name it
         in the error (off inside rating iterations).
+    ntu_starts : dict, optional
+        Kept by a rating across its sizings: each zone's NTU, from which the next sizing starts a
+        numerical NTU inversion (unmixed cross-flow); the answers are the same.
 
     Returns
     -------
@@ -382,7 +399,7 @@ def size_exchanger(arrangement: str, hot: HotSide, fluid, t_ci: float, flow: flo
        ch. 3 (ε-NTU, P-NTU and MTD methods and their equivalence).
     """
     try:
-        return _size(arrangement, hot, fluid, t_ci, flow, rise, where)
+        return _size(arrangement, hot, fluid, t_ci, flow, rise, where, ntu_starts)
     except Infeasible as exc:
         if not explain or hot.outlet_temperature_K <= t_ci:
             raise
