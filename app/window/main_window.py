@@ -8,7 +8,7 @@ __all__ = ["MainWindow", "STATE_VERSION", "dropped_project"]
 import threading
 from pathlib import Path
 
-from PySide6.QtCore import QSettings, Qt, QTimer
+from PySide6.QtCore import QEvent, QSettings, Qt, QTimer, Signal
 from PySide6.QtGui import QAction, QKeySequence
 from PySide6.QtWidgets import (QDockWidget, QFrame, QLabel, QMainWindow, QMessageBox, QScrollArea, QStyle,
                                QWidget)
@@ -68,7 +68,14 @@ class MainWindow(QMainWindow):
         Delay between the last edit and the solve.
     autosave_ms : int or None
         Delay from a change to the recovery-file write (None: no autosave).
+
+    Signals
+    -------
+    first_painted()
+        The window has painted for the first time (its first solve starts next).
     """
+
+    first_painted = Signal()
 
     def __init__(self, doc: dict | None = None, path=None, settings: QSettings | None = None,
                  debounce_ms: int = 150, restore_layout: bool = True, autosave_ms: int | None = AUTOSAVE_MS):
@@ -145,6 +152,7 @@ class MainWindow(QMainWindow):
         # start it once the window has painted, so the window shows first; a window never shown
         # solves anyway after a while
         self._first_solve_started = False
+        self._painted = False
         QTimer.singleShot(FIRST_SOLVE_UNSHOWN_MS, self, self._first_solve)
 
     def _first_solve(self) -> None:
@@ -411,9 +419,18 @@ class MainWindow(QMainWindow):
             dock.show()
         self.default_layout()
 
+    def event(self, event) -> bool:  # noqa: N802 (Qt's name)
+        """After the window's first paint: say so (``first_painted``) and start the first solve."""
+        handled = super().event(event)
+        if not getattr(self, "_painted", True) and event.type() == QEvent.Type.UpdateRequest:
+            self._painted = True
+            self.first_painted.emit()
+            QTimer.singleShot(0, self, self._first_solve)
+        return handled
+
     def showEvent(self, event) -> None:
         super().showEvent(event)
-        if not self._first_solve_started:
+        if not self._first_solve_started:  # in case no paint comes (the paint below starts it first)
             QTimer.singleShot(FIRST_SOLVE_AFTER_SHOW_MS, self, self._first_solve)
         if self._default_state is None:
             self.default_layout()
@@ -472,7 +489,7 @@ class MainWindow(QMainWindow):
         event.accept()
 
 
-FIRST_SOLVE_AFTER_SHOW_MS = 20  #: the first solve starts this long after the window shows (its first paint is done)
+FIRST_SOLVE_AFTER_SHOW_MS = 250  #: the first solve starts after the window's first paint, at the latest this long after it shows
 FIRST_SOLVE_UNSHOWN_MS = 400  #: … or this long after the window was made, if it is not shown
 WARM_UP_DELAY_MS = 2000  #: after the first answer: the coolant back ends load on a background thread
 
