@@ -104,3 +104,23 @@ def test_cancel_keeps_the_finished_bins_in_profile_order():
     with pytest.raises(YearCancelled) as info:
         run_year(_doc(_hourly(3, 4), {"mode": "size_every_bin"}), cancelled=cancelled)
     assert [b.label for b in info.value.partial] == ["h0", "h1", "h3", "h4", "h6", "h7", "h9", "h10"]
+
+
+def test_a_worker_task_does_not_carry_the_profile(monkeypatch):
+    """Issue 15: no per-chunk copy of the profile (an 8760-hour profile pickled with each of ~146
+    chunks was ~60 MB through the pool)."""
+    import json
+    from pathlib import Path
+
+    import stagewright.core.year as year_mod
+    seen = []
+    real = year_mod._run_in_process
+
+    def spy(job, bins, progress, cancelled):
+        seen.append(job)
+        return real(job, bins, progress, cancelled)
+    monkeypatch.setattr(year_mod, "_run_in_process", spy)
+    sample = Path(__file__).resolve().parent.parent / "sample_projects" / "three_stage_site_year.json"
+    year_mod.run_year(json.loads(sample.read_text(encoding="utf-8")), processes=1)
+    assert seen and "profile" not in seen[0].year
+    assert "energy_price_per_kWh" in seen[0].year and "coolers" in seen[0].year

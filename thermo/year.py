@@ -253,7 +253,9 @@ def run_year(doc: dict, progress=None, cancelled=None, exact: bool | None = None
     design = None
     if settings["mode"] == "design_once":
         design = _in_design(base, bins, settings, _solver(exact))
-    job = _Job(base, year, norm.get("heat_recovery"), design, exact)
+    # the year's settings without its profile: a job goes to a worker with every chunk (an 8760-hour
+    # profile is 0.4 MB pickled, 146 times over)
+    job = _Job(base, {k: v for k, v in year.items() if k != "profile"}, norm.get("heat_recovery"), design, exact)
     n_proc = processes or ((os.cpu_count() or 1) if len(bins) >= POOL_BINS else 1)
     out = (_run_in_process(job, bins, progress, cancelled) if n_proc <= 1 else
            _run_in_pool(job, bins, n_proc, progress, cancelled))
