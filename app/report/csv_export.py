@@ -116,8 +116,13 @@ def csv_rows(result: dict, system: str = "SI") -> list[list[str]]:
 
 def write_csv(result: dict, path, system: str = "SI") -> None:
     """Write the CSV to ``path`` atomically (a half-written file never replaces a good one)."""
+    _write_rows(csv_rows(result, system), path)
+
+
+def _write_rows(rows, path) -> None:
+    """``rows`` as CSV (CRLF, UTF-8) to ``path``, atomically."""
     buf = io.StringIO()
-    csv.writer(buf, lineterminator="\r\n").writerows(csv_rows(result, system))
+    csv.writer(buf, lineterminator="\r\n").writerows(rows)
     with atomic_path(path) as tmp:
         with open(tmp, "w", encoding="utf-8", newline="") as fh:
             fh.write(buf.getvalue())
@@ -133,8 +138,4 @@ def write_year_csv(year: dict, path) -> None:
     """Every bin of a year (``YearResult.to_dict()``) as one row, SI with the unit in each key, written
     atomically (:func:`stagewright.gui.presentation.year_tables.bins_csv_rows`)."""
     from stagewright.gui.presentation.year_tables import bins_csv_rows
-    buf = io.StringIO()
-    csv.writer(buf, lineterminator="\r\n").writerows(bins_csv_rows(year))
-    with atomic_path(path) as tmp:
-        with open(tmp, "w", encoding="utf-8", newline="") as fh:
-            fh.write(buf.getvalue())
+    _write_rows(bins_csv_rows(year), path)
