@@ -8,6 +8,7 @@ from dataclasses import dataclass, field
 from stagewright.core.chart_points import PointsOnDemand
 from stagewright.core.moist.condensation import Condensation, condensation, cooling_line
 from stagewright.core.moist.dew_point import dew_point
+from stagewright.core.moist.saturated_table import saturated_table
 from stagewright.core.errors import InputError
 from stagewright.core.exchanger import Exchanger, HotSide, make_coolant, rate_exchanger, size_exchanger
 from stagewright.core.exergy import DeadState, heat_exergy
@@ -72,7 +73,8 @@ def outlet_field(spec: dict, where: str) -> str:
     return f"{where}.outlet_temperature_K"
 
 
-def _hot_side(model, where: str, t_stag: float, h_in0: float, p_out: float, mass_flow: float):
+def _hot_side(model, where: str, t_stag: float, h_in0: float, p_out: float, mass_flow: float,
+              saturated=None):
     r"""``hot_at(T_out)`` → :class:`~stagewright.core.exchanger.HotSide` of the air cooled to ``T_out``.
 
     For moist air that condenses before ``T_out`` the hot side carries the dew point at the
@@ -81,6 +83,10 @@ def _hot_side(model, where: str, t_stag: float, h_in0: float, p_out: float, mass
     the exchanger is split into a dry and a wet zone (:mod:`stagewright.core.exchanger.sizing`,
     Braun, Klein & Mitchell 1989). Dry air, or moist air that stays above its dew point,
     gives the plain sensible hot side.
+
+    ``saturated``: a :class:`~stagewright.core.moist.saturated_table.SaturatedTable` at ``p_out`` (a
+    year's rated cooler on the fast property path), from which the equilibrium enthalpy below the
+    dew point is interpolated; None computes it from the stream.
     """
     moist = getattr(model, "mixture", None) is not None and model.water > 0.0
     cache: dict = {}
@@ -98,7 +104,8 @@ def _hot_side(model, where: str, t_stag: float, h_in0: float, p_out: float, mass
                 points.clear()
             if h_only is not None:
                 check_range(T, p_out, where_out)
-                h = points[T] = h_only(T, p_out)
+                h = None if saturated is None else saturated.enthalpy(T, model.water)
+                h = points[T] = h_only(T, p_out) if h is None else h
             else:
                 h = points[T] = model.at_tp(T, p_out, where_out).h
         return h
@@ -291,10 +298,14 @@ def _exchanger(model: PropertyModel, spec: dict, where: str, field: str, inlet: 
     if inlet_velocity > 0.0:
         t_stag = model.at_hp(h_in0, inlet.P, f"{where} inlet (stagnation)", T_guess=inlet.T).T
 
-    hot_at = _hot_side(model, where, t_stag, h_in0, p_out, mass_flow)
-
     fast = getattr(getattr(model, "dry", model), "fast_properties", False)  # trial solves: 1e-4 suffices
-    fluid = make_coolant(coolant, (dead.T0, dead.P0, ambient_relative_humidity), fast=fast)
+    saturated = None
+    if fast and spec.get("rating_start") is not None and getattr(model, "mixture", None) is not None:
+        saturated = saturated_table(model.mixture, p_out)  # a year's bins: the same pressure every bin
+    hot_at = _hot_side(model, where, t_stag, h_in0, p_out, mass_flow, saturated)
+
+    fluid = make_coolant(coolant, (dead.T0, dead.P0, ambient_relative_humidity), fast=fast,
+                         humidity_ratio=dead.W0 if fast and dead.W0 > 0.0 else None)
     flow, rise = coolant.get("flow_kg_s"), coolant.get("temperature_rise_K")
     if t_ci >= t_stag:
         raise InputError(f"{where}.coolant_inlet_temperature_K", t_ci,

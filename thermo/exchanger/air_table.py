@@ -197,3 +197,11 @@ class TabulatedAmbientAir:
 
     def rho(self, T: float) -> float:
         return self._prop(1, T)
+
+    def entropy_change(self, t_from: float, t_to: float) -> float:
+        """s(t_to) − s(t_from) [J/(kg K)] without the exact reference entropy s_ref(W), which cancels
+        (one ``HAPropsSI`` call fewer per coolant; outside the grid, the exact difference)."""
+        table, W = self._table, self.W
+        if not (table.covers(t_from, W) and table.covers(t_to, W)):
+            return self.s(t_to) - self.s(t_from)
+        return (self._interpolated(t_to, 2) - self._interpolated(t_from, 2)) / self._f

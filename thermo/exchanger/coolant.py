@@ -27,12 +27,12 @@ from __future__ import annotations
 __all__ = ["COOLANTS", "CoolantSide", "make_coolant", "coolant_side", "COOLANT_PRESSURE_PA", "warm_up",
            "temperature_from_h"]
 
-import math
+import threading
 from dataclasses import dataclass
 
 
 from stagewright.core import coolprop_adapter as cpa
-from stagewright.core.errors import InputError, PropertyRangeError
+from stagewright.core.errors import InputError
 
 #: pressure at which liquid-coolant properties are evaluated, [Pa]; liquids are nearly
 #: incompressible, and CoolProp's incompressible tables do not depend on it.
@@ -113,20 +113,47 @@ class _AmbientAir:
         return 1.0 / self._prop("Vha", T)
 
 
+_LIQUIDS = threading.local()
+
+
+def _liquid(kind: str, fluid: str, fraction: float | None, label: str) -> _Liquid:
+    """This thread's liquid coolant of that fluid and fraction, made once and handed out again.
+
+    Making one costs a CoolProp state and three limit calls (a year asked for two a bin); what it
+    keeps between solves is only its memo of exact answers. The starting points a rating's
+    searches keep on it (``last_outlet``, ``last_boundary``) are cleared, so a reused coolant
+    gives the same answers, bit for bit, as a new one."""
+    made = getattr(_LIQUIDS, "made", None)
+    if made is None:
+        made = _LIQUIDS.made = {}
+    key = (fluid, fraction, label)
+    liquid = made.get(key)
+    if liquid is None:
+        if len(made) > 16:
+            made.clear()
+        liquid = made[key] = _Liquid(kind, fluid, fraction, label)
+    liquid.__dict__.pop("last_outlet", None)
+    liquid.__dict__.pop("last_boundary", None)
+    return liquid
+
+
 def _water(spec, site):
-    return _Liquid("water", "Water", None, "water")
+    return _liquid("water", "Water", None, "water")
 
 
 def _glycol(spec, site):
     glycol = spec.get("glycol", "ethylene")
     name = {"ethylene": "MEG", "propylene": "MPG"}[glycol]
     x = spec["glycol_fraction"]
-    return _Liquid("glycol", name, x, f"water–{glycol} glycol ({x:.0%} by mass)")
+    return _liquid("glycol", name, x, f"water–{glycol} glycol ({x:.0%} by mass)")
 
 
-def _air(spec, site, fast: bool = False):
+def _air(spec, site, fast: bool = False, humidity_ratio: float | None = None):
     T0, P0, rh = site
-    w = 0.0 if rh <= 0.0 else cpa.humid_air_property("W", "T", T0, "P", P0, "R", rh)
+    if humidity_ratio is not None:
+        w = humidity_ratio
+    else:
+        w = 0.0 if rh <= 0.0 else cpa.humid_air_property("W", "T", T0, "P", P0, "R", rh)
     if fast:  # trial solves: the table of stagewright.core.exchanger.air_table (HAPropsSI to 2e-5 J/kg)
         from stagewright.core.exchanger.air_table import TabulatedAmbientAir
         return TabulatedAmbientAir(P0, w)
@@ -137,14 +164,16 @@ def _air(spec, site, fast: bool = False):
 COOLANTS = {"water": _water, "glycol": _glycol, "air": _air}
 
 
-def make_coolant(spec: dict, site: tuple, fast: bool = False):
+def make_coolant(spec: dict, site: tuple, fast: bool = False, humidity_ratio: float | None = None):
     """Build the coolant a ``cooler.coolant`` entry names (see :data:`COOLANTS`).
 
     ``fast`` (the fast property path of trial solves): an air coolant's properties from the
     table of :mod:`stagewright.core.exchanger.air_table` instead of a ``HAPropsSI`` call each; liquids
-    are unchanged."""
+    are unchanged. ``humidity_ratio`` [kg/kg dry air], on the fast path: the ambient's humidity
+    ratio as the intake already has it, instead of ``HAPropsSI`` from the site's relative humidity
+    (the same air; the two agree to the saturation laws' rounding)."""
     if fast and spec["kind"] == "air":
-        return _air(spec, site, fast=True)
+        return _air(spec, site, fast=True, humidity_ratio=humidity_ratio)
     return COOLANTS[spec["kind"]](spec, site)
 
 
@@ -317,7 +346,8 @@ def coolant_side(fluid, t_in: float, duty: float, flow: float | None = None, ris
             t_out = temperature_from_h(fluid, h_out, t_in, fluid.t_max, h_in, h_max,
                                        near=getattr(fluid, "last_outlet", None))
             fluid.last_outlet = (t_out, h_out)
-    ds = fluid.s(t_out) - fluid.s(t_in)
+    change = getattr(fluid, "entropy_change", None)
+    ds = fluid.s(t_out) - fluid.s(t_in) if change is None else change(t_in, t_out)
     dh = fluid.h(t_out) - h_in
     t_mean = dh / ds if ds > 0.0 and dh > 0.0 else 0.5 * (t_in + t_out)
     return CoolantSide(kind=fluid.kind, label=fluid.label, flow_kg_s=flow, inlet_temperature_K=t_in,

@@ -11,7 +11,7 @@ Only the fast property path of trial solves uses it (:func:`stagewright.core.sol
 """
 from __future__ import annotations
 
-__all__ = ["EnhancementTable", "T_STEP", "LN_P_STEP", "T_FIRST", "T_LAST"]
+__all__ = ["EnhancementTable", "T_STEP", "LN_P_STEP", "T_FIRST", "T_LAST", "ICE_FIRST", "ICE_LAST"]
 
 import math
 
@@ -26,6 +26,9 @@ _LN_P_FIRST = math.log(1.0e3)  #: first grid pressure, [ln Pa]
 _P_MAX = 10.0e6  #: upper pressure of the RP-1485 formulation, [Pa]
 _SATURATION_MARGIN = 2.0  #: nodes need p ≥ 2 p_ws(T): f bends sharply as p approaches p_ws
 _I_LAST = int(round((T_LAST - T_FIRST) / T_STEP))
+ICE_LAST = 273.12  #: last node of the grid over ice, [K]: below the triple point, where f is over ice
+ICE_FIRST = ICE_LAST - 30 * T_STEP  #: first node of the grid over ice, [K] (213.12 K: frost points of sites to −50 °C)
+_ICE_I_LAST = 30
 
 
 def _weights(t: float) -> tuple:
@@ -53,7 +56,9 @@ class EnhancementTable:
 
     Notes
     -----
-    The grid (ΔT = 2 K, Δln p = 0.025, from 273.2 K to 473.2 K and 1 kPa to 10 MPa) is used only
+    Below the triple point a second grid over ice (ΔT = 2 K from 213.12 K to 273.12 K, the same
+    pressures) takes the factor over ice; its stencils are kept inside it (the cells at its ends
+    take the four nearest nodes), so that no stencil mixes the two phases. The grid (ΔT = 2 K, Δln p = 0.025, from 273.2 K to 473.2 K and 1 kPa to 10 MPa) is used only
     where all sixteen nodes of the stencil lie at pressures of at least twice the saturation
     pressure of water (where f bends sharply towards 1 as the air becomes nearly pure steam)
     and above the triple point (where CoolProp's factor switches from ice to liquid water and
@@ -108,8 +113,45 @@ class EnhancementTable:
         self._cells[(i, j)] = cell
         return cell
 
+    def _ice_cell(self, i: int, j: int) -> tuple | None:
+        """ln f at the 4 × 4 stencil over ice whose first T node is i (0 … _ICE_I_LAST − 3)."""
+        key = ("ice", i, j)
+        cell = self._cells.get(key, False)
+        if cell is False:
+            if j < 1 or _LN_P_FIRST + (j + 2) * LN_P_STEP > math.log(_P_MAX):
+                cell = None
+            else:
+                cell = tuple(tuple(self._node_at(ICE_FIRST + (i + a) * T_STEP, j + b) for b in (-1, 0, 1, 2))
+                             for a in range(4))
+            self._cells[key] = cell
+        return cell
+
+    def _node_at(self, T: float, j: int) -> float:
+        key = (T, j)
+        v = self._nodes.get(key)
+        if v is None:
+            v = self._nodes[key] = math.log(self.exact(T, math.exp(_LN_P_FIRST + j * LN_P_STEP)))
+        return v
+
+    def _over_ice(self, T: float, P: float) -> float:
+        """f over ice (ICE_FIRST ≤ T ≤ ICE_LAST), the stencil kept inside the ice grid."""
+        x = (T - ICE_FIRST) / T_STEP
+        y = (math.log(P) - _LN_P_FIRST) / LN_P_STEP
+        j = math.floor(y)
+        first = min(max(math.floor(x) - 1, 0), _ICE_I_LAST - 3)
+        cell = self._ice_cell(first, j)
+        if cell is None:
+            return self.exact(T, P)
+        u0, u1, u2, u3 = _weights(y - j)
+        ln_f = 0.0
+        for w, (r0, r1, r2, r3) in zip(_weights(x - first - 1.0), cell):
+            ln_f += w * (u0 * r0 + u1 * r1 + u2 * r2 + u3 * r3)
+        return math.exp(ln_f)
+
     def __call__(self, T: float, P: float) -> float:
         """Enhancement factor f [-] at T [K], P [Pa] (interpolated where the grid allows)."""
+        if ICE_FIRST <= T <= ICE_LAST:
+            return self._over_ice(T, P)
         x = (T - T_FIRST) / T_STEP
         y = (math.log(P) - _LN_P_FIRST) / LN_P_STEP
         i, j = math.floor(x), math.floor(y)
