@@ -219,12 +219,37 @@ def _cross_unmixed_and_slope(y: float, cr: float) -> tuple:
               - \varepsilon
     """
     ntu = math.exp(y)
-    n_max = _series_terms(ntu)
-    pa, pb = _poisson_pmf(ntu, n_max), _poisson_pmf(cr * ntu, n_max)
-    a, b = _tails_from_pmf(pa, n_max), _tails_from_pmf(pb, n_max)
-    eps = math.fsum(x * z for x, z in zip(a, b)) / (cr * ntu)
-    slope = math.fsum(pa[n] * b[n] + cr * a[n] * pb[n] for n in range(n_max)) / cr - eps
-    return eps, slope
+    if ntu > 600.0:  # e^{-N} would underflow: the probabilities from their logarithms
+        n_max = _series_terms(ntu)
+        pa, pb = _poisson_pmf(ntu, n_max), _poisson_pmf(cr * ntu, n_max)
+        a, b = _tails_from_pmf(pa, n_max), _tails_from_pmf(pb, n_max)
+        eps = math.fsum(x * z for x, z in zip(a, b)) / (cr * ntu)
+        slope = math.fsum(pa[n] * b[n] + cr * a[n] * pb[n] for n in range(n_max)) / cr - eps
+        return eps, slope
+    # one pass out (both Poisson probabilities, and where the series may stop: :func:`_series_terms`),
+    # one pass back (the tails and both sums, from the far tail: positive terms, smallest first)
+    x_b = cr * ntu
+    n_cap = int(ntu + 12.0 * math.sqrt(ntu) + 40.0)
+    floor, n_min = 1e-19 * -math.expm1(-ntu), 2.0 * ntu + 5.0
+    p, q = math.exp(-ntu), math.exp(-x_b)
+    pa, pb = [p], [q]
+    m = 0
+    while m < n_cap:
+        m += 1
+        p *= ntu / m
+        q *= x_b / m
+        pa.append(p)
+        pb.append(q)
+        if m > n_min and p < floor:
+            break
+    tail_a = tail_b = s_eps = s_slope = 0.0
+    for k in range(m, 0, -1):
+        tail_a += pa[k]
+        tail_b += pb[k]
+        s_eps += tail_a * tail_b
+        s_slope += pa[k - 1] * tail_b + cr * tail_a * pb[k - 1]
+    eps = s_eps / (cr * ntu)
+    return eps, s_slope / cr - eps
 
 
 def _series_terms(ntu: float) -> int:
