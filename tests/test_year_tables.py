@@ -132,3 +132,23 @@ def test_only_a_years_rated_coolers_on_the_fast_path_use_the_saturated_table(mon
     assert asked == []
     run_year(doc, exact=False, processes=1)
     assert len(asked) >= 6  # three rated coolers, two bins
+
+
+@pytest.mark.parametrize("spec", [{"kind": "water"},
+                                  {"kind": "glycol", "glycol": "ethylene", "glycol_fraction": 0.3},
+                                  {"kind": "glycol", "glycol": "propylene", "glycol_fraction": 0.5}])
+def test_tabulated_liquid_coolant_matches_coolprops_incompressible_tables(spec):
+    from stagewright.core.exchanger.liquid_table import TabulatedLiquid
+    site = (293.15, 101325.0, 0.0)
+    exact = make_coolant(spec, site)
+    fast = make_coolant(spec, site, fast=True)
+    assert isinstance(fast, TabulatedLiquid) and fast.exact is exact
+    assert (fast.t_min, fast.t_max, fast.label) == (exact.t_min, exact.t_max, exact.label)
+    rng = random.Random(12)
+    for _ in range(300):
+        T = rng.uniform(exact.t_min, exact.t_max)
+        assert fast.h(T) == pytest.approx(exact.h(T), abs=1e-6)  # measured 4.3e-7 J/kg at worst
+        assert fast.s(T) == pytest.approx(exact.s(T), abs=5e-8)  # measured 1.1e-8 J/(kg K)
+    side_exact = coolant_side(exact, 297.15, 250_000.0, flow=6.0)
+    side_fast = coolant_side(fast, 297.15, 250_000.0, flow=6.0)
+    assert side_fast.outlet_temperature_K == pytest.approx(side_exact.outlet_temperature_K, abs=1e-9)

@@ -109,12 +109,20 @@ class HumidAirTable:
                 self._nodes[key] = v
         return v
 
-    def column(self, i: int, W: float) -> tuple:
-        """(H, V, ΔS) per kg dry air at grid temperature i, interpolated in W (inside :meth:`covers`)."""
+    def column(self, i: int, W: float, stencil: tuple | None = None) -> tuple:
+        """(H, V, ΔS) per kg dry air at grid temperature i, interpolated in W (inside :meth:`covers`);
+        ``stencil``: ``(j0, weights)`` of W from :meth:`w_stencil` when the caller keeps it."""
+        j0, (u0, u1, u2, u3) = stencil or self.w_stencil(W)
+        node = self._node
+        a, b, c, d = node(i, j0), node(i, j0 + 1), node(i, j0 + 2), node(i, j0 + 3)
+        return (u0 * a[0] + u1 * b[0] + u2 * c[0] + u3 * d[0], u0 * a[1] + u1 * b[1] + u2 * c[1] + u3 * d[1],
+                u0 * a[2] + u1 * b[2] + u2 * c[2] + u3 * d[2])
+
+    @staticmethod
+    def w_stencil(W: float) -> tuple:
+        """First W node of the four around ``W`` and their weights (the same for every grid temperature)."""
         j0, u = _stencil(W, W_STEP, _J_LAST)
-        wu = _weights(u)
-        nodes = [self._node(i, j0 + b) for b in range(4)]
-        return tuple(sum(wu[b] * nodes[b][k] for b in range(4)) for k in range(3))
+        return j0, _weights(u)
 
     def per_dry_kg(self, T: float, W: float, which: int) -> float:
         """Interpolated H (which=0), V (1) or ΔS (2) per kg dry air at (T, W); inside :meth:`covers`."""
@@ -151,6 +159,7 @@ class TabulatedAmbientAir:
         self.t_min, self.t_max = 223.15, 573.15
         self._table = table or table_for(pressure)
         self._f = 1.0 + humidity_ratio
+        self._w_stencil = HumidAirTable.w_stencil(humidity_ratio) if 0.0 <= humidity_ratio <= W_LAST else None
         self._columns: dict = {}
         self._memo: dict = {}
 
@@ -166,7 +175,7 @@ class TabulatedAmbientAir:
         for a in range(4):
             col = cols.get(i0 + a)
             if col is None:
-                col = cols[i0 + a] = self._table.column(i0 + a, self.W)
+                col = cols[i0 + a] = self._table.column(i0 + a, self.W, self._w_stencil)
             total += wt[a] * col[which]
         return total
 

@@ -116,36 +116,41 @@ class _AmbientAir:
 _LIQUIDS = threading.local()
 
 
-def _liquid(kind: str, fluid: str, fraction: float | None, label: str) -> _Liquid:
+def _liquid(kind: str, fluid: str, fraction: float | None, label: str, fast: bool = False):
     """This thread's liquid coolant of that fluid and fraction, made once and handed out again.
 
     Making one costs a CoolProp state and three limit calls (a year asked for two a bin); what it
     keeps between solves is only its memo of exact answers. The starting points a rating's
     searches keep on it (``last_outlet``, ``last_boundary``) are cleared, so a reused coolant
-    gives the same answers, bit for bit, as a new one."""
+    gives the same answers, bit for bit, as a new one. ``fast`` (the fast property path): its
+    :class:`~stagewright.core.exchanger.liquid_table.TabulatedLiquid`, also made once per thread."""
     made = getattr(_LIQUIDS, "made", None)
     if made is None:
         made = _LIQUIDS.made = {}
-    key = (fluid, fraction, label)
+    key = (fluid, fraction, label, fast)
     liquid = made.get(key)
     if liquid is None:
         if len(made) > 16:
             made.clear()
-        liquid = made[key] = _Liquid(kind, fluid, fraction, label)
+        if fast:
+            from stagewright.core.exchanger.liquid_table import TabulatedLiquid  # local: fast path only
+            liquid = made[key] = TabulatedLiquid(_liquid(kind, fluid, fraction, label))
+        else:
+            liquid = made[key] = _Liquid(kind, fluid, fraction, label)
     liquid.__dict__.pop("last_outlet", None)
     liquid.__dict__.pop("last_boundary", None)
     return liquid
 
 
-def _water(spec, site):
-    return _liquid("water", "Water", None, "water")
+def _water(spec, site, fast: bool = False):
+    return _liquid("water", "Water", None, "water", fast)
 
 
-def _glycol(spec, site):
+def _glycol(spec, site, fast: bool = False):
     glycol = spec.get("glycol", "ethylene")
     name = {"ethylene": "MEG", "propylene": "MPG"}[glycol]
     x = spec["glycol_fraction"]
-    return _liquid("glycol", name, x, f"water–{glycol} glycol ({x:.0%} by mass)")
+    return _liquid("glycol", name, x, f"water–{glycol} glycol ({x:.0%} by mass)", fast)
 
 
 def _air(spec, site, fast: bool = False, humidity_ratio: float | None = None):
@@ -168,12 +173,14 @@ def make_coolant(spec: dict, site: tuple, fast: bool = False, humidity_ratio: fl
     """Build the coolant a ``cooler.coolant`` entry names (see :data:`COOLANTS`).
 
     ``fast`` (the fast property path of trial solves): an air coolant's properties from the
-    table of :mod:`stagewright.core.exchanger.air_table` instead of a ``HAPropsSI`` call each; liquids
-    are unchanged. ``humidity_ratio`` [kg/kg dry air], on the fast path: the ambient's humidity
+    table of :mod:`stagewright.core.exchanger.air_table` instead of a ``HAPropsSI`` call each, a
+    liquid's enthalpy and entropy from :mod:`stagewright.core.exchanger.liquid_table`. ``humidity_ratio`` [kg/kg dry air], on the fast path: the ambient's humidity
     ratio as the intake already has it, instead of ``HAPropsSI`` from the site's relative humidity
     (the same air; the two agree to the saturation laws' rounding)."""
-    if fast and spec["kind"] == "air":
-        return _air(spec, site, fast=True, humidity_ratio=humidity_ratio)
+    if fast:
+        if spec["kind"] == "air":
+            return _air(spec, site, fast=True, humidity_ratio=humidity_ratio)
+        return COOLANTS[spec["kind"]](spec, site, fast=True)
     return COOLANTS[spec["kind"]](spec, site)
 
 
