@@ -152,3 +152,16 @@ def test_tabulated_liquid_coolant_matches_coolprops_incompressible_tables(spec):
     side_exact = coolant_side(exact, 297.15, 250_000.0, flow=6.0)
     side_fast = coolant_side(fast, 297.15, 250_000.0, flow=6.0)
     assert side_fast.outlet_temperature_K == pytest.approx(side_exact.outlet_temperature_K, abs=1e-9)
+
+
+def test_bins_are_solved_in_temperature_bands_by_humidity_rising_then_falling():
+    from stagewright.core.year import ORDER_BAND_K, _chunks
+    from stagewright.core.year_profile import Bin
+    t0 = 290.0
+    band = math.floor(t0 / ORDER_BAND_K)
+    lo = (band + (band % 2)) * ORDER_BAND_K + 0.01  # an even band: humidity rising
+    hi = lo + ORDER_BAND_K
+    bins = [Bin(f"b{i}", t, rh, 1.0, 1.0) for i, (t, rh) in enumerate(
+        [(lo, 0.9), (hi, 0.2), (lo + 0.001, 0.3), (hi + 0.001, 0.8), (lo + 0.002, 0.6)])]
+    order = [bins[g[0]] for chunk in _chunks(bins) for g in chunk]
+    assert [b.relative_humidity for b in order] == [0.3, 0.6, 0.9, 0.8, 0.2]
