@@ -1,14 +1,15 @@
-"""The workbench's own SVG icons (``icons/`` at the top of the repository)."""
+"""The workbench's own SVG icons (``icons/`` at the top of the repository, package data in a wheel)."""
 from __future__ import annotations
 
 __all__ = ["icon", "ICON_DIR"]
 
 from functools import lru_cache
-from pathlib import Path
 
 from PySide6.QtGui import QIcon
 
-ICON_DIR = Path(__file__).resolve().parents[2] / "icons"
+from stagewright.gui.data_files import data_dir
+
+ICON_DIR = data_dir("icons", "app.svg")
 
 
 @lru_cache(maxsize=None)

@@ -18,7 +18,9 @@ import sys
 import tempfile
 from pathlib import Path
 
-DEMO_PROJECT = Path(__file__).resolve().parents[2] / "sample_projects" / "two_stage_plant_air.json"
+from stagewright.gui.data_files import data_dir
+
+DEMO_PROJECT = data_dir("sample_projects", "two_stage_plant_air.json") / "two_stage_plant_air.json"
 
 #: system libraries that Qt's xcb platform plugin (PySide6 6.x: ``libqxcb.so`` and the Qt libraries
 #: it loads) links against and a desktop may lack → the Debian/Ubuntu package holding each (found
