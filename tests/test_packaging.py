@@ -19,6 +19,8 @@ import pytest
 from tests.conftest import ROOT, SAMPLES
 
 INSTALLED = {"thermo": "stagewright.core", "app": "stagewright.gui"}
+#: top-level data folders a wheel carries as package data (stagewright.gui.data_files)
+DATA = {"icons": "stagewright.gui.icons", "sample_projects": "stagewright.gui.sample_projects"}
 
 
 def setuptools_config() -> dict:
@@ -28,8 +30,8 @@ def setuptools_config() -> dict:
 def test_every_folder_with_an_init_is_an_installed_package():
     """A new sub-package must be named in ``[tool.setuptools] packages`` or the wheel lacks it."""
     config = setuptools_config()
-    assert config["package-dir"] == {new: old for old, new in INSTALLED.items()}
-    expected = set()
+    assert config["package-dir"] == {new: old for old, new in {**INSTALLED, **DATA}.items()}
+    expected = set(DATA.values())
     for folder, name in INSTALLED.items():
         for init in (ROOT / folder).rglob("__init__.py"):
             rel = init.parent.relative_to(ROOT / folder).parts
