@@ -11,20 +11,30 @@ __all__ = ["new_air_state", "update_tp", "eos_reference", "coolprop_version",
            "humid_air_coefficient", "liquid_water_density", "new_incompressible_state",
            "incompressible_update_tp", "incompressible_limits"]
 
+import time
 from functools import lru_cache
 
 from stagewright.core.errors import PropertyRangeError
 
 _CONSTANTS = ("PT_INPUTS", "DmassT_INPUTS", "iHmass", "iP", "iT")
 
+#: (seconds it took, ``time.perf_counter()`` when it ended) of loading CoolProp in this process;
+#: None until it has loaded. A window's first solve includes it, and says so.
+LOADED: tuple[float, float] | None = None
+
 
 def _load():
     """Import CoolProp (loading its fluid library takes most of a second) and bind its names here."""
+    global LOADED
+    start = time.perf_counter()
     import CoolProp.CoolProp as cp
     g = globals()
     for name in _CONSTANTS:
         g[name] = getattr(cp, name)
     g["_CP"] = cp
+    if LOADED is None:
+        end = time.perf_counter()
+        LOADED = (end - start, end)
     return cp
 
 

@@ -9,6 +9,7 @@ from __future__ import annotations
 __all__ = ["Editor", "ABSENT"]
 
 import copy
+import time
 from typing import Any
 
 from PySide6.QtCore import QObject, Signal
@@ -23,6 +24,17 @@ from stagewright.gui.document.paths import ABSENT, is_related, stage_path
 from stagewright.gui.document.model import ProjectModel
 from stagewright.gui.document.field_specs import edit_text
 from stagewright.gui.jobs.solve_worker import SolveController
+
+
+def _library_load_within(seconds: float) -> tuple[float, float] | None:
+    """``coolprop_adapter.LOADED`` (seconds it took, when it ended) if loading CoolProp ended within
+    the last ``seconds`` (a solve that just took that long loaded it; and for the answer's
+    way to the window: 1 s more), else None."""
+    from stagewright.core import coolprop_adapter
+    loaded = coolprop_adapter.LOADED
+    if loaded is None or time.perf_counter() - loaded[1] > seconds + 1.0:
+        return None
+    return loaded
 
 
 class Editor(QObject):
@@ -61,6 +73,9 @@ class Editor(QObject):
         self.failure: tuple[str, str] | None = None  # (message, field) of the last failed solve
         self.failure_detail: dict | None = None  # its template and values (stagewright.core.errors.message_detail)
         self.solve_seconds: float | None = None
+        #: of the last solve's time, what loading CoolProp took when that solve loaded it (else None)
+        self.library_load_seconds: float | None = None
+        self._load_reported = None
         self.solved_jobs = 0
         self.from_snapshot = False  # the result shown is the one kept with the file, not yet re-solved
         self._snapshot_check: tuple[dict, str] | None = None  # (snapshot, case) to compare the next solve with
@@ -188,6 +203,9 @@ class Editor(QObject):
 
     def _on_solved(self, job_id: int, result: dict, seconds: float) -> None:
         self.result, self.stale, self.failure, self.solve_seconds = result, False, None, seconds
+        load = _library_load_within(seconds)
+        self.library_load_seconds = None if load is None or load is self._load_reported else load[0]
+        self._load_reported = load or self._load_reported  # a load is told once
         self.solved_jobs += 1
         self.from_snapshot = False
         self.result_changed.emit()

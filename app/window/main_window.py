@@ -316,7 +316,10 @@ class MainWindow(QMainWindow):
         elif ed.failure is not None:
             self.status_solve.setText("Solve failed (see Messages)")
         elif ed.solve_seconds is not None:
-            self.status_solve.setText(f"Solved in {ed.solve_seconds * 1000:.0f} ms")
+            text = f"Solved in {ed.solve_seconds * 1000:.0f} ms"
+            if ed.library_load_seconds:
+                text += f" ({ed.library_load_seconds * 1000:.0f} ms of it loading the property library, once)"
+            self.status_solve.setText(text)
         r = ed.result
         if ed.solver.busy and r is not None:
             return  # keep the last closure figures until the new answer arrives
