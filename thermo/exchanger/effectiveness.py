@@ -26,7 +26,6 @@ import math
 from dataclasses import dataclass
 from typing import Callable
 
-import numpy as np
 
 from stagewright.core.errors import InputError
 
