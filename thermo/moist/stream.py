@@ -126,21 +126,36 @@ class MoistAir:
         return h + w_l * self.mixture.liquid(T, P)[0] if w_l > 0.0 else h
 
     # ---- the property-model interface ------------------------------------------------------
+    def _state_without_slope(self):
+        """``(T, P, need_cp=True) -> _state(T, P, slope=False, need_cp)``: the one-call function of
+        :func:`stagewright.core.moist.slope_parts.fast_state` where it applies (the same answers, bit for
+        bit), else this stream's general method."""
+        at = self.__dict__.get("_fast_state", None)
+        if at is None:
+            from stagewright.core.moist.slope_parts import fast_state
+            at = fast_state(self) or (lambda T, P, need_cp=True: self._state(T, P, False, need_cp))
+            self._fast_state = at
+        return at
+
     def at_tp(self, T: float, P: float, where: str = "") -> Point:
         check_range(T, P, where)
-        h, s, v, _, _, w_v, w_l = self._state(T, P, slope=False, need_cp=False)
+        h, s, v, _, _, w_v, w_l = self._state_without_slope()(T, P, False)
         return Point(T, P, h, s, (1.0 + w_v) / v, w_v, w_l)
 
     def at_hp(self, h: float, P: float, where: str = "", T_guess: float = 300.0) -> Point:
+        at = self._state_without_slope()
+
         def f(T):
-            st = self._state(T, P, slope=False)
+            st = at(T, P)
             return st[0], st[3], st
         T, st = invert_to_state(f, h, T_guess, where, "enthalpy")
         return self._point(T, P, st, where)
 
     def at_sp(self, s: float, P: float, where: str = "", T_guess: float = 300.0) -> Point:
+        at = self._state_without_slope()
+
         def f(T):
-            st = self._state(T, P, slope=False)
+            st = at(T, P)
             return st[1], st[3] / T, st
         T, st = invert_to_state(f, s, T_guess, where, "entropy")
         return self._point(T, P, st, where)
