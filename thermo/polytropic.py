@@ -107,7 +107,8 @@ def _path_nodes(model: PropertyModel, inlet: Point, p_out: float, efficiency: fl
 
 
 def polytropic_efficiency_between(model: PropertyModel, inlet: Point, outlet_enthalpy: float,
-                                  p_out: float, isentropic_efficiency: float) -> tuple[float, list[Point]]:
+                                  p_out: float, isentropic_efficiency: float,
+                                  T_guess: float | None = None) -> tuple[float, list[Point]]:
     r"""Polytropic efficiency of the constant-efficiency path that ends at a given enthalpy.
 
     Along the path :math:`d\ln T/d\ln p = a(T, p)/\eta_p - b(T, p)` with
@@ -146,6 +147,9 @@ def polytropic_efficiency_between(model: PropertyModel, inlet: Point, outlet_ent
         Discharge pressure, [Pa].
     isentropic_efficiency : float
         Isentropic efficiency of the same process, [-] (a fallback start value).
+    T_guess : float or None
+        A guess of the discharge temperature, [K], for the inversion of its enthalpy (None:
+        1.5 times the inlet temperature); the answer does not depend on it.
 
     Returns
     -------
@@ -169,7 +173,8 @@ def polytropic_efficiency_between(model: PropertyModel, inlet: Point, outlet_ent
     .. [2] K. E. Atkinson, *An Introduction to Numerical Analysis*, 2nd ed., Wiley, 1989,
        §2.3 (error of the secant method).
     """
-    target = model.at_hp(outlet_enthalpy, p_out, "polytropic path", T_guess=inlet.T * 1.5)
+    target = model.at_hp(outlet_enthalpy, p_out, "polytropic path",
+                         T_guess=inlet.T * 1.5 if T_guess is None else T_guess)
     lnT_target = math.log(target.T / inlet.T)
     if lnT_target <= 0.0:
         raise StagewrightError(f"discharge temperature {target.T:.6g} K is not above the inlet "

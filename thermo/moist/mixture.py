@@ -13,6 +13,7 @@ import math
 from functools import lru_cache
 
 from stagewright.core import coolprop_adapter as cpa
+from stagewright.core.moist.dew_point import dew_point as _dew_point
 from stagewright.core.moist.saturation import T_CRITICAL, liquid_vapour_pressure, vapour_pressure, vapour_pressure_log_slope
 
 P_REF = 101_325.0  #: reference pressure of the ideal-gas entropy of water vapour, [Pa]
@@ -455,8 +456,7 @@ class MoistMixture:
     def dew_point(self, P: float, w: float):
         """Temperature at which vapour content w saturates at pressure P, [K] (frost point below
         273.16 K); None when w is 0. See :func:`stagewright.core.moist.dew_point.dew_point`."""
-        from stagewright.core.moist.dew_point import dew_point  # local: dew_point's doctest builds a mixture
-        return dew_point(self, w, P)
+        return _dew_point(self, w, P)
 
 
 _FAST_TABLE = None

@@ -17,6 +17,7 @@ import math
 
 from stagewright.core import coolprop_adapter as cpa
 from stagewright.core.models.base import P_MAX, P_MIN, T_MAX, T_MIN
+from stagewright.core.moist import mixture as mx  # the grid constants of the fused tables
 
 _LIQUID_NEGLIGIBLE = 1e-9  # as stagewright.core.moist.stream: a liquid share (of the water) treated as none on a path
 
@@ -60,8 +61,6 @@ def fast_slope_parts(stream):
     >>> fast(400.0, 3e5) == air.polytropic_slope_parts(400.0, 3e5)
     True
     """
-    from stagewright.core.moist import mixture as mx  # the grid constants of the fused tables
-
     mix = stream.mixture
     dry = stream.dry
     fused = mix._fused
@@ -165,8 +164,6 @@ def fast_state(stream):
     >>> fast_state(air)(400.0, 3e5) == air._state(400.0, 3e5, slope=False)
     True
     """
-    from stagewright.core.moist import mixture as mx  # the grid constants of the fused tables
-
     mix = stream.mixture
     dry = stream.dry
     fused = mix._fused

@@ -17,6 +17,7 @@ from stagewright.core.models.base import Point, check_range
 from stagewright.core.models.newton import invert_to_state
 from stagewright.core.moist.mixture import MoistMixture
 from stagewright.core.moist.saturation import T_CRITICAL, liquid_vapour_pressure, vapour_pressure
+from stagewright.core.moist.slope_parts import fast_slope_parts, fast_state
 
 _LIQUID_NEGLIGIBLE = 1e-9  # liquid share (of the stream's water) treated as none on a path
 _DT = 1e-3  # central-difference step in T for two-phase derivatives, [K]
@@ -132,7 +133,6 @@ class MoistAir:
         bit), else this stream's general method."""
         at = self.__dict__.get("_fast_state", None)
         if at is None:
-            from stagewright.core.moist.slope_parts import fast_state
             at = fast_state(self) or (lambda T, P, need_cp=True: self._state(T, P, False, need_cp))
             self._fast_state = at
         return at
@@ -190,7 +190,6 @@ class MoistAir:
         the same answers; :func:`stagewright.core.moist.slope_parts.fast_slope_parts`), or None."""
         fast = self.__dict__.get("_fast_parts", False)
         if fast is False:
-            from stagewright.core.moist.slope_parts import fast_slope_parts
             fast = self._fast_parts = fast_slope_parts(self)
         return fast
 
