@@ -155,8 +155,10 @@ def _liquid_state():
     return state
 
 
+@lru_cache(maxsize=256)
 def liquid_water_density(temperature: float, pressure: float) -> float:
-    """Density of liquid water [kg/m³] at T [K], p [Pa] (IAPWS-95), for condensate volumes."""
+    """Density of liquid water [kg/m³] at T [K], p [Pa] (IAPWS-95), for condensate volumes; the
+    answers of recent states are kept (a cooler's outlet often stays where it was between solves)."""
     try:
         state = _liquid_state()
         state.update(_CP.PT_INPUTS, pressure, temperature)

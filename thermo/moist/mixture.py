@@ -455,8 +455,11 @@ class MoistMixture:
 
     def dew_point(self, P: float, w: float):
         """Temperature at which vapour content w saturates at pressure P, [K] (frost point below
-        273.16 K); None when w is 0. See :func:`stagewright.core.moist.dew_point.dew_point`."""
-        return _dew_point(self, w, P)
+        273.16 K); None when w is 0. See :func:`stagewright.core.moist.dew_point.dew_point`.
+
+        Kept with the last few condensed-water answers: a train asks for the delivered air's dew
+        points at pressures and water contents that an edit of the ambient often leaves as they were."""
+        return self._remembered((P, w, "dew point"), _dew_point, self, w, P)
 
 
 _FAST_TABLE = None
