@@ -415,9 +415,9 @@ def _entropy_estimate(parts, inlet: Point, target: Point, p_out: float) -> tuple
     and the slope parts at the inlet (the first Runge–Kutta stage of the path reuses them)."""
     x0, span = math.log(inlet.P), math.log(p_out / inlet.P)
     y0, rise = math.log(inlet.T), math.log(target.T / inlet.T)
+    a2, b2, _ = parts(target.T, p_out)  # first: the inversion that found the target left its state set
     first = parts(inlet.T, inlet.P)
     a1, b1, _ = first
-    a2, b2, _ = parts(target.T, p_out)
     a1, b1, a2, b2 = a1 / inlet.T, b1 / inlet.T, a2 / target.T, b2 / target.T
     u = (rise + 0.5 * span * (b1 + b2)) / (0.5 * span * (a1 + a2))  # the chord's slope
     ds = target.s - inlet.s
