@@ -33,7 +33,7 @@ from dataclasses import dataclass
 from stagewright.core.exergy import DeadState
 from stagewright.core.models.base import Point, PropertyModel
 from stagewright.core.moist.mixture import MoistMixture, make_mixture
-from stagewright.core.moist.stream import MoistAir, ice_supersaturation, intake_humidity_ratio
+from stagewright.core.moist.stream import ice_supersaturation, intake_humidity_ratio, moist_stream
 from stagewright.core.project.delivery import delivery_pressure
 from stagewright.core.project.validation import ResolvedSite, resolve_site
 
@@ -257,7 +257,7 @@ def _new_intake_state(model: PropertyModel, site: ResolvedSite) -> IntakeState:
         frost = ice_supersaturation(mix, T0, P0, W)
         W -= frost
         if W > 0.0:
-            stream, mixture, W0 = MoistAir(mix, W), mix, W
+            stream, mixture, W0 = moist_stream(mix, W), mix, W
     ambient = stream.at_tp(T0, P0, "site intake")
     if mixture is None:
         dead = DeadState(T0, P0, ambient.h, ambient.s)

@@ -12,7 +12,7 @@ from stagewright.core.errors import InputError, message_detail, quantity
 from stagewright.core.exergy import flow_exergy, water_exergy
 from stagewright.core.flow import NORMAL_PRESSURE, NORMAL_TEMPERATURE
 from stagewright.core.moist.freezing import frozen_condensate_warning, intake_rime_warning
-from stagewright.core.moist.stream import MoistAir, check_humid_range
+from stagewright.core.moist.stream import MoistAir, check_humid_range, moist_stream
 from stagewright.core.moist.iso8573 import REFERENCE_PRESSURE, REFERENCE_TEMPERATURE, humidity_class
 from stagewright.core.models.base import Point, PropertyModel, check_range
 from stagewright.core.heat_recovery import heat_recovery
@@ -236,7 +236,7 @@ def _run_line(ctx: SolveContext, ratios: list, mass_flow: float, detail: bool, r
                                                ctx.site.ambient_temperature_K)
             if frozen is not None:
                 line.warnings.append(frozen)
-            line.model = MoistAir(mixture, w.water_after)
+            line.model = moist_stream(mixture, w.water_after)
     return line
 
 

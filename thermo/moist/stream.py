@@ -8,7 +8,7 @@ the per-point humidity figures of the results.
 """
 from __future__ import annotations
 
-__all__ = ["MoistAir", "intake_humidity_ratio", "ice_supersaturation", "humidity_of", "check_humid_range"]
+__all__ = ["MoistAir", "moist_stream", "intake_humidity_ratio", "ice_supersaturation", "humidity_of", "check_humid_range"]
 
 import math
 
@@ -281,6 +281,27 @@ class MoistAir:
             h_l, s_l = self.mixture.liquid(T, P)
             h, s = h + w_l * h_l, s + w_l * s_l
         return h, s
+
+
+def moist_stream(mixture: MoistMixture, water: float) -> MoistAir:
+    """The :class:`MoistAir` stream of ``mixture`` with total water ``water`` [kg/kg], one object per
+    water content among the last few asked for.
+
+    A stream holds nothing that depends on a solve: its split cache (states surely unsaturated) and
+    its one-call property functions are fixed by the mixture and the water. Keeping the object
+    spares building them again when the next solve's stream carries the same water (after a cooler
+    that condenses, the water does not depend on the ambient). Mixtures are per thread
+    (:func:`stagewright.core.solve_context.mixture_for`), so are their streams.
+    """
+    streams = mixture.__dict__.get("_streams")
+    if streams is None:
+        streams = mixture._streams = {}
+    stream = streams.get(water)
+    if stream is None:
+        if len(streams) >= 32:
+            streams.clear()
+        stream = streams[water] = MoistAir(mixture, water)
+    return stream
 
 
 # ---- site humidity ---------------------------------------------------------------------------
