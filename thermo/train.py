@@ -312,7 +312,7 @@ def _totals(ctx: SolveContext, inlet: InletResult, line: _Line, mass_flow: float
     """
     intake, mixture, model = ctx.intake, ctx.mixture, line.model
     stages, coolers, point, velocity, drains = line.stages, line.coolers, line.point, line.velocity, line.drains
-    dead, ambient, T0 = intake.dead, intake.ambient, ctx.site.ambient_temperature_K
+    dead, ambient = intake.dead, intake.ambient
     shaft = sum(s.shaft_power_W for s in stages)
     q_rej = (sum(c.duty_W for c in coolers if c) + sum(s.heat_loss_W + s.mechanical_loss_W for s in stages))
     s_gen = inlet.entropy_generation_W_K + sum(s.entropy_generation_W_K for s in stages) + sum(

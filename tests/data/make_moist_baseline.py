@@ -91,5 +91,6 @@ if __name__ == "__main__":  # never on import (pytest collects doctests from eve
         except stagewright.core.StagewrightError as exc:
             result = {"refused": str(exc)}
         data.append({"doc": doc, "result": result})
-    json.dump(data, open(sys.argv[1], "w"), indent=0, sort_keys=True, allow_nan=True)
+    with open(sys.argv[1], "w") as out:
+        json.dump(data, out, indent=0, sort_keys=True, allow_nan=True)
     print(len(data), sum("refused" in d["result"] for d in data))
