@@ -74,7 +74,8 @@ class MoistAir:
 
     def __init__(self, mixture: MoistMixture, water: float):
         self.mixture = mixture
-        self._dry_T, self._dry_P_limit = math.inf, 0.0  # see split()
+        self._dry_T, self._dry_P_limit = math.inf, 0.0  # see split(): the last state found surely unsaturated
+        self._dry_T2, self._dry_P_limit2 = math.inf, 0.0  # and the one before it
         self.dry = mixture.dry
         self.name = mixture.name
         self.water = water
@@ -89,15 +90,21 @@ class MoistAir:
         A state at least as hot as one already found surely unsaturated, at a pressure below
         the one at which that state's vapour pressure would saturate the stream, is unsaturated
         too (p_ws grows with T): the saturation pressure need not be evaluated again. Along a
-        compression path that answers almost every slope evaluation."""
+        compression path that answers almost every slope evaluation; the last two such states are
+        kept (a path's evaluations alternate between the inlet, near saturation, and hotter states).
+        The test itself is :meth:`~stagewright.core.moist.mixture.MoistMixture.surely_unsaturated`'s,
+        with its vapour pressure evaluated once for the test and the kept limit."""
         W = self.water
-        if T >= self._dry_T and P < self._dry_P_limit:
+        if (T >= self._dry_T and P < self._dry_P_limit) or (T >= self._dry_T2 and P < self._dry_P_limit2):
+            return W, 0.0
+        if T >= T_CRITICAL:
             return W, 0.0
         mix = self.mixture
-        if mix.surely_unsaturated(T, P, W):
-            if T < T_CRITICAL and W > 0.0:
-                self._dry_T = T
-                self._dry_P_limit = 0.999 * vapour_pressure(T) * (mix.epsilon + W) / W
+        p_ws = vapour_pressure(T)
+        if W / (mix.epsilon + W) * P < 0.999 * p_ws:
+            if W > 0.0:
+                self._dry_T2, self._dry_P_limit2 = self._dry_T, self._dry_P_limit
+                self._dry_T, self._dry_P_limit = T, 0.999 * p_ws * (mix.epsilon + W) / W
             return W, 0.0
         ws = mix.saturation_ratio(T, P)
         return (W, 0.0) if W <= ws else (ws, W - ws)
