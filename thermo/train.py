@@ -17,7 +17,7 @@ from stagewright.core.moist.iso8573 import REFERENCE_PRESSURE, REFERENCE_TEMPERA
 from stagewright.core.models.base import Point, PropertyModel, check_range
 from stagewright.core.heat_recovery import heat_recovery
 from stagewright.core.project.delivery import stated_delivery
-from stagewright.core.solve_context import SolveContext
+from stagewright.core.solve_context import SolveContext, fixed_state
 from stagewright.core.results import InletResult, TrainResult, Warning_, WaterResult
 from stagewright.core.split import stage_pressure_ratios
 from stagewright.core.stage import solve_stage
@@ -339,7 +339,7 @@ def _totals(ctx: SolveContext, inlet: InletResult, line: _Line, mass_flow: float
         water = _water_result(mixture, ctx.model, mass_flow, intake.humidity_ratio, point, ctx.site.pressure_Pa,
                               drains, x_drained, detail)
     driver_eff = ctx.norm["driver"]["efficiency"]
-    normal = mass_flow / ctx.model.at_tp(NORMAL_TEMPERATURE, NORMAL_PRESSURE, "normal state").rho
+    normal = mass_flow / fixed_state(ctx.model, NORMAL_TEMPERATURE, NORMAL_PRESSURE, "normal state").rho
     driver = shaft / driver_eff
     return TrainResult(
         model=model.name, eos_reference=coolprop_adapter.eos_reference(model.name), dead=dead,
@@ -408,7 +408,7 @@ def _water_result(mixture, dry_model, mass_flow, W0, delivered, P0, drains, x_dr
     delivered_water = mass_flow * (delivered.w + delivered.wl)
     pdp = mixture.dew_point(delivered.P, delivered.w)
     adp = mixture.dew_point(P0, delivered.w) if detail else None
-    ref = dry_model.at_tp(REFERENCE_TEMPERATURE, REFERENCE_PRESSURE, "ISO 8573-1 reference state")
+    ref = fixed_state(dry_model, REFERENCE_TEMPERATURE, REFERENCE_PRESSURE, "ISO 8573-1 reference state")
     liquid_conc = delivered.wl * ref.rho  # kg liquid per m³ of air at the reference conditions
     return WaterResult(
         mixture=mixture, intake_humidity_ratio=W0, intake_water_kg_s=mass_flow * W0,
