@@ -90,24 +90,28 @@ def fast_slope_parts(stream):
             return general(T, P)  # raises the general method's error
         if not (T >= stream._dry_T and P < stream._dry_P_limit) and split(T, P)[1] > negligible:
             return general(T, P)  # liquid: the two-phase state (the general method's own split)
-        if dry._at != (T, P):
+        at = (T, P)
+        if dry._at != at:
             dry._at = None
             try:
                 update(PT, P, T)
             except ValueError:
                 return general(T, P)  # raises the adapter's error
-            dry._at = (T, P)
+            dry._at = at
         v_a, cp_a, hp_a = 1.0 / rhomass(), cpmass(), partial(iH, iP, iT)
         x = (T - t_lo) / step
-        i = min(max(int(x), 0), last)
+        i = int(x)  # min(max(int(x), 0), last) of the general method, without the two calls
+        if i > last:
+            i = last
+        elif i < 0:
+            i = 0
         t = x - i
         _, b, c, e = hc[i]
         cpw = (b + t * (2.0 * c + 3.0 * e * t)) / step
-        d = d_t = d_tt = 0.0
-        a, b, c, e = aa[i]
-        d += ca * (a + t * (b + t * (c + t * e)))
-        d_t += ca * ((b + t * (2.0 * c + 3.0 * e * t)) / step)
-        d_tt += ca * ((2.0 * c + 6.0 * e * t) / ss)
+        a, b, c, e = aa[i]  # the sums of the general method start from 0.0: 0.0 + x is x
+        d = ca * (a + t * (b + t * (c + t * e)))
+        d_t = ca * ((b + t * (2.0 * c + 3.0 * e * t)) / step)
+        d_tt = ca * ((2.0 * c + 6.0 * e * t) / ss)
         a, b, c, e = aw[i]
         d += cw * (a + t * (b + t * (c + t * e)))
         d_t += cw * ((b + t * (2.0 * c + 3.0 * e * t)) / step)
@@ -196,27 +200,31 @@ def fast_state(stream):
             return general(T, P, False, need_cp)  # raises the general method's error
         if not (T >= stream._dry_T and P < stream._dry_P_limit) and split(T, P)[1] != 0.0:
             return general(T, P, False, need_cp)  # liquid: the two-phase state
-        if dry._at != (T, P):
+        at = (T, P)
+        if dry._at != at:
             dry._at = None
             try:
                 update(PT, P, T)
             except ValueError:
                 return general(T, P, False, need_cp)  # raises the adapter's error
-            dry._at = (T, P)
+            dry._at = at
         h_a, s_a, v_a, cp_a = hmass(), smass(), 1.0 / rhomass(), cpmass()
         x = (T - t_lo) / step
-        i = min(max(int(x), 0), last)
+        i = int(x)  # min(max(int(x), 0), last) of the general method, without the two calls
+        if i > last:
+            i = last
+        elif i < 0:
+            i = 0
         t = x - i
         a, b, c, e = hc[i]
         hw = a + t * (b + t * (c + t * e))
         cpw = (b + t * (2.0 * c + 3.0 * e * t)) / step
         a, b, c, e = sc[i]
         sw = a + t * (b + t * (c + t * e))
-        d = d_t = d_tt = 0.0
-        a, b, c, e = aa[i]
-        d += ca * (a + t * (b + t * (c + t * e)))
-        d_t += ca * ((b + t * (2.0 * c + 3.0 * e * t)) / step)
-        d_tt += ca * ((2.0 * c + 6.0 * e * t) / ss)
+        a, b, c, e = aa[i]  # the sums of the general method start from 0.0: 0.0 + x is x
+        d = ca * (a + t * (b + t * (c + t * e)))
+        d_t = ca * ((b + t * (2.0 * c + 3.0 * e * t)) / step)
+        d_tt = ca * ((2.0 * c + 6.0 * e * t) / ss)
         a, b, c, e = aw[i]
         d += cw * (a + t * (b + t * (c + t * e)))
         d_t += cw * ((b + t * (2.0 * c + 3.0 * e * t)) / step)
