@@ -404,7 +404,7 @@ class MoistMixture:
         memo = self._liquid_memo
         hit = memo.get(key)
         if hit is None:
-            if len(memo) >= 16:
+            if len(memo) >= 64:
                 memo.clear()
             hit = memo[key] = compute(*args)
         return hit
