@@ -198,8 +198,10 @@ def fast_state(stream):
     def at(T: float, P: float, need_cp: bool = True):
         if not (T_MIN <= T <= T_MAX and P_MIN <= P <= P_MAX):
             return general(T, P, False, need_cp)  # raises the general method's error
-        if not (T >= stream._dry_T and P < stream._dry_P_limit) and split(T, P)[1] != 0.0:
-            return general(T, P, False, need_cp)  # liquid: the two-phase state
+        if not (T >= stream._dry_T and P < stream._dry_P_limit):
+            phases = split(T, P)
+            if phases[1] != 0.0:
+                return general(T, P, False, need_cp, phases)  # liquid: the two-phase state
         at = (T, P)
         if dry._at != at:
             dry._at = None

@@ -109,11 +109,12 @@ class MoistAir:
         ws = mix.saturation_ratio(T, P)
         return (W, 0.0) if W <= ws else (ws, W - ws)
 
-    def _state(self, T: float, P: float, slope: bool, need_cp: bool = True):
+    def _state(self, T: float, P: float, slope: bool, need_cp: bool = True, phases: tuple | None = None):
         """h, s, v, cp, (∂h/∂p)_T, w_v, w_l at T, P (two-phase derivatives by central differences).
 
-        Without ``need_cp`` a two-phase cp is not computed (NaN): a state wants only h, s, v."""
-        w_v, w_l = self.split(T, P)
+        Without ``need_cp`` a two-phase cp is not computed (NaN): a state wants only h, s, v.
+        ``phases``: :meth:`split` at T, P when the caller has it already."""
+        w_v, w_l = self.split(T, P) if phases is None else phases
         mix = self.mixture
         h, s, v, cp, hp = mix.gas(T, P, w_v, slope)
         if w_l == 0.0:
