@@ -75,3 +75,24 @@ def test_real_gas_inverse_agrees_with_coolprop_flash():
     m = RealGasAir()
     h = m.at_tp(300.0, 1e5).h + 150e3
     assert m.at_hp(h, 8e5).T == pytest.approx(CP.PropsSI("T", "H", h, "P", 8e5, "Air"), abs=1e-6)
+
+
+def test_real_gas_flashes_with_the_gas_phase_imposed_equal_the_plain_flash():
+    # issue 19: the real-gas model's (T, p) flashes skip CoolProp's phase determination (air is above
+    # its critical temperature, 132.5 K, everywhere in the models' range; Lemmon et al. 2000); the
+    # reference is CoolProp's own AbstractState without an imposed phase: the same numbers, bit for bit
+    import random
+
+    import CoolProp.CoolProp as CP
+
+    from stagewright.core.models import RealGasAir
+    from stagewright.core.models.base import P_MAX, P_MIN, T_MAX, T_MIN
+    plain = CP.AbstractState("HEOS", "Air")
+    model = RealGasAir()
+    rng = random.Random(19)
+    for _ in range(2000):
+        T, P = rng.uniform(T_MIN, T_MAX), 10 ** rng.uniform(math.log10(P_MIN), math.log10(P_MAX))
+        plain.update(CP.PT_INPUTS, P, T)
+        h, s, v, cp, hp = model.terms(T, P)
+        assert (h, s, v, cp, hp) == (plain.hmass(), plain.smass(), 1.0 / plain.rhomass(), plain.cpmass(),
+                                     plain.first_partial_deriv(CP.iHmass, CP.iP, CP.iT)), (T, P)

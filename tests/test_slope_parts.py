@@ -41,3 +41,31 @@ def test_out_of_range_states_raise_the_general_error():
 
 def test_no_short_path_without_the_real_gas_tables():
     assert MoistAir(make_mixture(ConstantCpAir()), 0.01).fast_slope_parts() is None
+
+
+def test_fast_state_equals_the_general_state_on_random_states():
+    # issue 19: MoistAir.at_tp/at_hp/at_sp take their unsaturated states from one call
+    # (slope_parts.fast_state); it must give the general method's answers bit for bit, and hand
+    # saturated states (with liquid) to it
+    from stagewright.core.moist.slope_parts import fast_state
+    rng = random.Random(19)
+    mixture = make_mixture(RealGasAir())
+    two_phase = 0
+    for _ in range(300):
+        water = 10 ** rng.uniform(-4, -1.3)
+        general, fast_stream = MoistAir(mixture, water), MoistAir(mixture, water)
+        at = fast_state(fast_stream)
+        T0 = rng.uniform(230.0, 620.0)
+        for k in range(5):
+            T, P = T0 * (1.0 + 0.05 * k), 10 ** rng.uniform(4.0, 6.9)
+            got = at(T, P)
+            assert got == general._state(T, P, slope=False), (water, T, P)
+            two_phase += got[6] > 0.0
+    assert two_phase > 50  # saturated states were among them
+
+
+def test_fast_state_out_of_range_raises_the_general_error():
+    from stagewright.core.moist.slope_parts import fast_state
+    at = fast_state(MoistAir(make_mixture(RealGasAir()), 0.01))
+    with pytest.raises(PropertyRangeError):
+        at(1400.0, 1e5)

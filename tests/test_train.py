@@ -375,3 +375,25 @@ def test_a_hot_single_stage_is_reported_not_failed():
     assert 473.15 < t_out < 623.15
     hot = [w for w in r.warnings if w.field == "stages[0].max_discharge_temperature_K"]
     assert len(hot) == 1 and "473.1 K" in hot[0].message
+
+
+@pytest.mark.parametrize("T0, P, W", [(293.15, 8e5, 0.012), (303.15, 4e6, 0.02), (280.0, 2e5, 0.004),
+                                      (310.0, 1.2e5, 0.003)])
+def test_isothermal_reference_from_the_gibbs_energy_of_condensate(T0, P, W):
+    # issue 19: at T = T0 the condensate's h_l − T0 s_l is its Gibbs energy, so the isothermal
+    # reference needs no temperature derivative of the enhancement factor; the figure is the
+    # straightforward flow exergy of the state at (T0, p) (Bejan, Tsatsaronis & Moran 1996 §3.3)
+    from stagewright.core.exergy import DeadState, flow_exergy, water_exergy
+    from stagewright.core.models import RealGasAir
+    from stagewright.core.moist.mixture import make_mixture
+    from stagewright.core.moist.stream import MoistAir
+    from stagewright.core.train import _isothermal_exergy, _liquid_exergy_at_dead_temperature
+    mix = make_mixture(RealGasAir())
+    air = MoistAir(mix, W)
+    amb = MoistAir(mix, 0.005).at_tp(T0, 1e5)
+    dead = DeadState(T0, 1e5, amb.h, amb.s, 0.005, 2.5e6, 8.9e3)
+    point = air.at_tp(T0, P)
+    h_l, s_l = mix.liquid(T0, P)
+    assert _isothermal_exergy(air, P, dead) == pytest.approx(flow_exergy(point, 0.0, dead), rel=1e-13)
+    assert _liquid_exergy_at_dead_temperature(mix, P, dead) == pytest.approx(water_exergy(h_l, s_l, dead),
+                                                                             rel=1e-11, abs=1e-6)

@@ -23,7 +23,7 @@ later object could reuse):
 """
 from __future__ import annotations
 
-__all__ = ["SolveContext", "IntakeState", "solve_context", "intake_state", "mixture_for",
+__all__ = ["SolveContext", "IntakeState", "solve_context", "intake_state", "mixture_for", "fixed_state",
            "release_thread_caches", "MIXTURE_CACHE_SIZE", "INTAKE_CACHE_SIZE"]
 
 import threading
@@ -33,7 +33,7 @@ from dataclasses import dataclass
 from stagewright.core.exergy import DeadState
 from stagewright.core.models.base import Point, PropertyModel
 from stagewright.core.moist.mixture import MoistMixture, make_mixture
-from stagewright.core.moist.stream import MoistAir, ice_supersaturation, intake_humidity_ratio
+from stagewright.core.moist.stream import ice_supersaturation, intake_humidity_ratio, moist_stream
 from stagewright.core.project.delivery import delivery_pressure
 from stagewright.core.project.validation import ResolvedSite, resolve_site
 
@@ -83,6 +83,26 @@ def release_thread_caches() -> None:
     if caches is not None:
         for cache in caches:
             cache.entries.clear()
+
+
+def fixed_state(model: PropertyModel, T: float, P: float, where: str):
+    """``model.at_tp(T, P, where)`` of a state that no input moves (normal conditions, the
+    ISO 8573-1 reference), computed once per model and thread: the same Point on every call.
+
+    Examples
+    --------
+    >>> from stagewright.core.models import ConstantCpAir
+    >>> air = ConstantCpAir()
+    >>> fixed_state(air, 273.15, 101325.0, "normal state") is fixed_state(air, 273.15, 101325.0, "normal state")
+    True
+    """
+    states = _caches()[1]
+    key = ("fixed state", model, T, P)
+    point = states.get(key)
+    if point is _MISSING:
+        point = model.at_tp(T, P, where)
+        states.put(key, point)
+    return point
 
 
 def mixture_for(model: PropertyModel) -> MoistMixture:
@@ -257,7 +277,7 @@ def _new_intake_state(model: PropertyModel, site: ResolvedSite) -> IntakeState:
         frost = ice_supersaturation(mix, T0, P0, W)
         W -= frost
         if W > 0.0:
-            stream, mixture, W0 = MoistAir(mix, W), mix, W
+            stream, mixture, W0 = moist_stream(mix, W), mix, W
     ambient = stream.at_tp(T0, P0, "site intake")
     if mixture is None:
         dead = DeadState(T0, P0, ambient.h, ambient.s)

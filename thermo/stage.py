@@ -48,7 +48,7 @@ def _adiabatic_path(model: PropertyModel, start: Point, h_end: float, p_out: flo
     heat loss or exit kinetic energy): used where the search fails, rather than solved again."""
     if detail:
         try:
-            return polytropic_efficiency_between(model, start, h_end, p_out, eta_s)
+            return polytropic_efficiency_between(model, start, h_end, p_out, eta_s, T_guess=t_guess)
         except StagewrightError:
             # the polytropic efficiency is a reported figure only: when no path can be searched
             # (one near the top of the property range), the balance stands and the figure is
@@ -231,6 +231,8 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
     else:
         cp_mean = dh_s / (iso.T - start.T) if iso.T > start.T else 1000.0  # secant cp, a guess only
         last = path_ends(path)[1]
+        if last.T > iso.T + 0.1:  # the isobaric secant at p_out, nearer the discharge: a closer guess
+            cp_mean = (last.h - iso.h) / (last.T - iso.T)
         try:
             outlet = model.at_hp(h_out, p_out, f"{where} discharge", T_guess=last.T + (h_out - last.h) / cp_mean)
         except PropertyRangeError as exc:

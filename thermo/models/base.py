@@ -34,7 +34,7 @@ def check_range(temperature: float, pressure: float, where: str) -> None:
                                             "hi": quantity(P_MAX, "absolute_pressure")}))
 
 
-@dataclass(frozen=True)
+@dataclass(frozen=True, init=False)
 class Point:
     """A state of the air stream.
 
@@ -68,6 +68,19 @@ class Point:
     rho: float
     w: float = 0.0
     wl: float = 0.0
+
+    def __init__(self, T: float, P: float, h: float, s: float, rho: float, w: float = 0.0, wl: float = 0.0):
+        # the dataclass's own __init__ of a frozen class sets each field through
+        # object.__setattr__ (about 2 µs a point, some sixty points a solve); the instance
+        # dictionary takes them directly, with the same fields, equality, hash and pickling
+        d = self.__dict__
+        d["T"] = T
+        d["P"] = P
+        d["h"] = h
+        d["s"] = s
+        d["rho"] = rho
+        d["w"] = w
+        d["wl"] = wl
 
 
 class PropertyModel(Protocol):

@@ -36,7 +36,7 @@ class RealGasAir:
     name = "real_gas"
 
     def __init__(self) -> None:
-        self._state = cpa.new_air_state()
+        self._state = cpa.new_gas_air_state()  # (T, p) updates only: the gas phase imposed
         self.gas_constant = self._state.gas_constant() / self._state.molar_mass()
         self.molar_mass = self._state.molar_mass()
         self._at = None  # (T, P) the state was last set to; a repeat needs no new update

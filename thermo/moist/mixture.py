@@ -13,6 +13,7 @@ import math
 from functools import lru_cache
 
 from stagewright.core import coolprop_adapter as cpa
+from stagewright.core.moist.dew_point import dew_point as _dew_point
 from stagewright.core.moist.saturation import T_CRITICAL, liquid_vapour_pressure, vapour_pressure, vapour_pressure_log_slope
 
 P_REF = 101_325.0  #: reference pressure of the ideal-gas entropy of water vapour, [Pa]
@@ -403,7 +404,7 @@ class MoistMixture:
         memo = self._liquid_memo
         hit = memo.get(key)
         if hit is None:
-            if len(memo) >= 16:
+            if len(memo) >= 64:
                 memo.clear()
             hit = memo[key] = compute(*args)
         return hit
@@ -454,9 +455,11 @@ class MoistMixture:
 
     def dew_point(self, P: float, w: float):
         """Temperature at which vapour content w saturates at pressure P, [K] (frost point below
-        273.16 K); None when w is 0. See :func:`stagewright.core.moist.dew_point.dew_point`."""
-        from stagewright.core.moist.dew_point import dew_point  # local: dew_point's doctest builds a mixture
-        return dew_point(self, w, P)
+        273.16 K); None when w is 0. See :func:`stagewright.core.moist.dew_point.dew_point`.
+
+        Kept with the last few condensed-water answers: a train asks for the delivered air's dew
+        points at pressures and water contents that an edit of the ambient often leaves as they were."""
+        return self._remembered((P, w, "dew point"), _dew_point, self, w, P)
 
 
 _FAST_TABLE = None

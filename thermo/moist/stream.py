@@ -8,7 +8,7 @@ the per-point humidity figures of the results.
 """
 from __future__ import annotations
 
-__all__ = ["MoistAir", "intake_humidity_ratio", "ice_supersaturation", "humidity_of", "check_humid_range"]
+__all__ = ["MoistAir", "moist_stream", "intake_humidity_ratio", "ice_supersaturation", "humidity_of", "check_humid_range"]
 
 import math
 
@@ -17,6 +17,7 @@ from stagewright.core.models.base import Point, check_range
 from stagewright.core.models.newton import invert_to_state
 from stagewright.core.moist.mixture import MoistMixture
 from stagewright.core.moist.saturation import T_CRITICAL, liquid_vapour_pressure, vapour_pressure
+from stagewright.core.moist.slope_parts import fast_slope_parts, fast_state
 
 _LIQUID_NEGLIGIBLE = 1e-9  # liquid share (of the stream's water) treated as none on a path
 _DT = 1e-3  # central-difference step in T for two-phase derivatives, [K]
@@ -73,7 +74,8 @@ class MoistAir:
 
     def __init__(self, mixture: MoistMixture, water: float):
         self.mixture = mixture
-        self._dry_T, self._dry_P_limit = math.inf, 0.0  # see split()
+        self._dry_T, self._dry_P_limit = math.inf, 0.0  # see split(): the last state found surely unsaturated
+        self._dry_T2, self._dry_P_limit2 = math.inf, 0.0  # and the one before it
         self.dry = mixture.dry
         self.name = mixture.name
         self.water = water
@@ -88,24 +90,31 @@ class MoistAir:
         A state at least as hot as one already found surely unsaturated, at a pressure below
         the one at which that state's vapour pressure would saturate the stream, is unsaturated
         too (p_ws grows with T): the saturation pressure need not be evaluated again. Along a
-        compression path that answers almost every slope evaluation."""
+        compression path that answers almost every slope evaluation; the last two such states are
+        kept (a path's evaluations alternate between the inlet, near saturation, and hotter states).
+        The test itself is :meth:`~stagewright.core.moist.mixture.MoistMixture.surely_unsaturated`'s,
+        with its vapour pressure evaluated once for the test and the kept limit."""
         W = self.water
-        if T >= self._dry_T and P < self._dry_P_limit:
+        if (T >= self._dry_T and P < self._dry_P_limit) or (T >= self._dry_T2 and P < self._dry_P_limit2):
+            return W, 0.0
+        if T >= T_CRITICAL:
             return W, 0.0
         mix = self.mixture
-        if mix.surely_unsaturated(T, P, W):
-            if T < T_CRITICAL and W > 0.0:
-                self._dry_T = T
-                self._dry_P_limit = 0.999 * vapour_pressure(T) * (mix.epsilon + W) / W
+        p_ws = vapour_pressure(T)
+        if W / (mix.epsilon + W) * P < 0.999 * p_ws:
+            if W > 0.0:
+                self._dry_T2, self._dry_P_limit2 = self._dry_T, self._dry_P_limit
+                self._dry_T, self._dry_P_limit = T, 0.999 * p_ws * (mix.epsilon + W) / W
             return W, 0.0
         ws = mix.saturation_ratio(T, P)
         return (W, 0.0) if W <= ws else (ws, W - ws)
 
-    def _state(self, T: float, P: float, slope: bool, need_cp: bool = True):
+    def _state(self, T: float, P: float, slope: bool, need_cp: bool = True, phases: tuple | None = None):
         """h, s, v, cp, (∂h/∂p)_T, w_v, w_l at T, P (two-phase derivatives by central differences).
 
-        Without ``need_cp`` a two-phase cp is not computed (NaN): a state wants only h, s, v."""
-        w_v, w_l = self.split(T, P)
+        Without ``need_cp`` a two-phase cp is not computed (NaN): a state wants only h, s, v.
+        ``phases``: :meth:`split` at T, P when the caller has it already."""
+        w_v, w_l = self.split(T, P) if phases is None else phases
         mix = self.mixture
         h, s, v, cp, hp = mix.gas(T, P, w_v, slope)
         if w_l == 0.0:
@@ -126,21 +135,35 @@ class MoistAir:
         return h + w_l * self.mixture.liquid(T, P)[0] if w_l > 0.0 else h
 
     # ---- the property-model interface ------------------------------------------------------
+    def _state_without_slope(self):
+        """``(T, P, need_cp=True) -> _state(T, P, slope=False, need_cp)``: the one-call function of
+        :func:`stagewright.core.moist.slope_parts.fast_state` where it applies (the same answers, bit for
+        bit), else this stream's general method."""
+        at = self.__dict__.get("_fast_state", None)
+        if at is None:
+            at = fast_state(self) or (lambda T, P, need_cp=True: self._state(T, P, False, need_cp))
+            self._fast_state = at
+        return at
+
     def at_tp(self, T: float, P: float, where: str = "") -> Point:
         check_range(T, P, where)
-        h, s, v, _, _, w_v, w_l = self._state(T, P, slope=False, need_cp=False)
+        h, s, v, _, _, w_v, w_l = self._state_without_slope()(T, P, False)
         return Point(T, P, h, s, (1.0 + w_v) / v, w_v, w_l)
 
     def at_hp(self, h: float, P: float, where: str = "", T_guess: float = 300.0) -> Point:
+        at = self._state_without_slope()
+
         def f(T):
-            st = self._state(T, P, slope=False)
+            st = at(T, P)
             return st[0], st[3], st
         T, st = invert_to_state(f, h, T_guess, where, "enthalpy")
         return self._point(T, P, st, where)
 
     def at_sp(self, s: float, P: float, where: str = "", T_guess: float = 300.0) -> Point:
+        at = self._state_without_slope()
+
         def f(T):
-            st = self._state(T, P, slope=False)
+            st = at(T, P)
             return st[1], st[3] / T, st
         T, st = invert_to_state(f, s, T_guess, where, "entropy")
         return self._point(T, P, st, where)
@@ -175,7 +198,6 @@ class MoistAir:
         the same answers; :func:`stagewright.core.moist.slope_parts.fast_slope_parts`), or None."""
         fast = self.__dict__.get("_fast_parts", False)
         if fast is False:
-            from stagewright.core.moist.slope_parts import fast_slope_parts
             fast = self._fast_parts = fast_slope_parts(self)
         return fast
 
@@ -267,6 +289,27 @@ class MoistAir:
             h_l, s_l = self.mixture.liquid(T, P)
             h, s = h + w_l * h_l, s + w_l * s_l
         return h, s
+
+
+def moist_stream(mixture: MoistMixture, water: float) -> MoistAir:
+    """The :class:`MoistAir` stream of ``mixture`` with total water ``water`` [kg/kg], one object per
+    water content among the last few asked for.
+
+    A stream holds nothing that depends on a solve: its split cache (states surely unsaturated) and
+    its one-call property functions are fixed by the mixture and the water. Keeping the object
+    spares building them again when the next solve's stream carries the same water (after a cooler
+    that condenses, the water does not depend on the ambient). Mixtures are per thread
+    (:func:`stagewright.core.solve_context.mixture_for`), so are their streams.
+    """
+    streams = mixture.__dict__.get("_streams")
+    if streams is None:
+        streams = mixture._streams = {}
+    stream = streams.get(water)
+    if stream is None:
+        if len(streams) >= 32:
+            streams.clear()
+        stream = streams[water] = MoistAir(mixture, water)
+    return stream
 
 
 # ---- site humidity ---------------------------------------------------------------------------
