@@ -32,6 +32,7 @@ from dataclasses import dataclass
 
 
 from stagewright.core import coolprop_adapter as cpa
+from stagewright.core.direct_init import direct_init
 from stagewright.core.errors import InputError
 
 #: pressure at which liquid-coolant properties are evaluated, [Pa]; liquids are nearly
@@ -203,6 +204,7 @@ def warm_up() -> None:
     _AmbientAir(101_325.0, 0.01).h(300.0)
 
 
+@direct_init
 @dataclass(frozen=True)
 class CoolantSide:
     """The coolant stream through one cooler (SI units)."""

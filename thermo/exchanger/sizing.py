@@ -37,6 +37,7 @@ from dataclasses import dataclass, field
 from typing import Callable
 
 
+from stagewright.core.direct_init import direct_init
 from stagewright.core.errors import InputError
 from stagewright.core.exchanger.coolant import CoolantSide, coolant_side, temperature_from_h
 from stagewright.core.exchanger.effectiveness import ARRANGEMENTS, max_effectiveness, ntu_from_effectiveness
@@ -48,6 +49,7 @@ class Infeasible(InputError):
     """No finite exchanger of the arrangement reaches these temperatures (a temperature cross)."""
 
 
+@direct_init
 @dataclass(frozen=True)
 class HotSide:
     """What the compressed air does in the cooler: terminal temperatures and duty (SI).
@@ -72,6 +74,7 @@ class HotSide:
                 and self.outlet_temperature_K < self.dew_point_K < self.inlet_temperature_K)
 
 
+@direct_init
 @dataclass(frozen=True)
 class Zone:
     """One zone of an exchanger (the whole exchanger when nothing condenses), SI units."""
@@ -96,6 +99,7 @@ class Zone:
     log_mean_enthalpy_difference_J_kg: float | None = None
 
 
+@direct_init
 @dataclass(frozen=True)
 class Exchanger:
     """A sized (or rated) cooler: arrangement, coolant stream, zones and totals (SI units)."""
@@ -400,7 +404,7 @@ def size_exchanger(arrangement: str, hot: HotSide, fluid, t_ci: float, flow: flo
     """
     try:
         return _size(arrangement, hot, fluid, t_ci, flow, rise, where, ntu_starts)
-    except Infeasible as exc:
+    except Infeasible:
         if not explain or hot.outlet_temperature_K <= t_ci:
             raise
         better = _limit_message(arrangement, hot, fluid, t_ci, flow, rise, where)
