@@ -2,13 +2,17 @@
 navigation toolbar. The figures are drawn by the Qt-free functions in :mod:`stagewright.gui.charts`.
 
 matplotlib is imported only when the canvases are first needed (just after the window is
-shown), so the window appears without waiting for it.
+shown), so the window appears without waiting for it; :meth:`ChartsPanel.prepare_in_background`
+imports it on another thread, so that the window keeps answering while it loads (most of a second).
 """
 from __future__ import annotations
 
 __all__ = ["ChartsPanel", "ChartTab"]
 
-from PySide6.QtCore import Qt, QTimer
+import sys
+import threading
+
+from PySide6.QtCore import Qt, QTimer, Signal
 from PySide6.QtWidgets import QLabel, QTabWidget, QVBoxLayout, QWidget
 
 from stagewright.gui.document.paths import get_in
@@ -41,10 +45,20 @@ class ChartTab(QWidget):
         self.pending = None
 
 
+def _import_chart_modules() -> None:
+    """Import what the chart tabs need (matplotlib, its Qt canvas, the chart functions)."""
+    import matplotlib.backends.backend_qtagg  # noqa: F401
+    import matplotlib.figure  # noqa: F401
+
+    import stagewright.gui.charts  # noqa: F401
+
+
 class ChartsPanel(QWidget):
     """Tabs of charts, redrawn when a fresh result arrives or the unit system changes."""
 
     title = "Charts"
+    #: the chart modules finished importing on their background thread (emitted from that thread)
+    modules_imported = Signal()
 
     def __init__(self, editor, parent=None):
         super().__init__(parent)
@@ -72,11 +86,44 @@ class ChartsPanel(QWidget):
         self._redraw.timeout.connect(self._draw_current)
         editor.result_changed.connect(self.refresh)
         editor.prefs.changed.connect(self.refresh)
+        self._importing: threading.Thread | None = None
+        self._wanted = False  # canvases were asked for while the modules were still importing
+        self.modules_imported.connect(self._on_modules_imported)
 
-    def ensure_canvases(self) -> bool:
-        """Create the chart tabs (imports matplotlib); True once they exist."""
+    def prepare_in_background(self) -> None:
+        """Import matplotlib and the chart functions on another thread (once). Importing is mostly
+        Python code, which lets the GUI thread run between its steps; on the GUI thread the window
+        stopped answering for most of a second just after it appeared."""
+        if self._importing is not None or self.ts is not None:
+            return
+
+        def work() -> None:
+            try:
+                _import_chart_modules()
+            finally:  # a failed import is raised again, with its message, on the GUI thread
+                try:
+                    self.modules_imported.emit()
+                except RuntimeError:  # the window was closed meanwhile
+                    pass
+        self._importing = threading.Thread(target=work, name="stagewright-charts-import", daemon=True)
+        self._importing.start()
+
+    def _on_modules_imported(self) -> None:
+        self._importing = None
+        if self._wanted:
+            self.ensure_canvases(wait=True)  # here, so that a failed import raises on this thread
+
+    def ensure_canvases(self, wait: bool = False) -> bool:
+        """Create the chart tabs; True once they exist. Unless ``wait``, matplotlib is imported on
+        another thread first (:meth:`prepare_in_background`) and the tabs are made when it ends."""
         if self.ts is not None:
             return True
+        if not wait and "matplotlib.backends.backend_qtagg" not in sys.modules:
+            self.prepare_in_background()
+        if self._importing is not None and not wait:
+            self._wanted = True
+            return False
+        self._wanted = False
         from stagewright.gui.charts import draw_power_split, draw_ts_chart  # here: matplotlib loads after first paint
         self.tabs.blockSignals(True)
         self.tabs.clear()

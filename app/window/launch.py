@@ -172,7 +172,7 @@ def save_screenshot(window, out: str) -> None:
     """Draw pending charts and grab the whole window (menus, docks, status bar)."""
     from PySide6.QtWidgets import QApplication
     charts = window.panels.get("charts")
-    charts.ensure_canvases()
+    charts.ensure_canvases(wait=True)
     charts.draw_pending()
     current = charts.tabs.currentWidget()
     if hasattr(current, "canvas"):

@@ -441,14 +441,15 @@ class MainWindow(QMainWindow):
             if self._restore_layout:
                 QTimer.singleShot(0, self._restore_saved_layout)
             # matplotlib (slow to import) only after the first paint and the first answer, so
-            # the balance sheet is filled first; a timer in case that answer takes long
+            # the balance sheet is filled first (and on another thread); a timer in case that
+            # answer takes long
             self.editor.result_changed.connect(self._load_charts_soon)
             QTimer.singleShot(1500, self.charts.ensure_canvases)
 
     def _load_charts_soon(self) -> None:
         if self.editor.solved_jobs or self.editor.failure or not self.editor.solver.busy:
             self.editor.result_changed.disconnect(self._load_charts_soon)
-            QTimer.singleShot(10, self.charts.ensure_canvases)
+            QTimer.singleShot(10, self.charts.ensure_canvases)  # matplotlib loads on another thread
             # the first solve with a coolant would wait for scipy and the coolant tables: load them
             # on another thread once the charts are up (not competing with their import for the GIL)
             QTimer.singleShot(WARM_UP_DELAY_MS, self, self._start_warm_up)
