@@ -93,7 +93,7 @@ class FieldCheckPanel(QWidget):
 
     # ---- running -------------------------------------------------------------------------
     def has_field_check(self) -> bool:
-        from stagewright.core.uncertainty.field_check import has_field_check
+        from stagewright.core.uncertainty.presence import has_field_check  # no numpy while the window opens
         return has_field_check(self.editor.model.doc)  # reads only: no copy of a large year
 
     def run(self, draws: int | None = None) -> None:

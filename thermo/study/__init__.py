@@ -13,9 +13,10 @@ study only chooses the stage ratios and the number of stages. Modules, one conce
 * :mod:`~stagewright.core.study.compare` — :func:`compare_stagings`
 * :mod:`~stagewright.core.study.sensitivity` — :func:`sensitivity`
 * :mod:`~stagewright.core.study.progress` — progress spans, cancellation, :class:`StudyCancelled`
+* :mod:`~stagewright.core.study.defaults` — the economic defaults (operating hours, energy price)
 """
-from stagewright.core.study.compare import (DEFAULT_ENERGY_PRICE, DEFAULT_OPERATING_HOURS, StagingComparison, StagingOption,
-                      compare_stagings)
+from stagewright.core.study.compare import StagingComparison, StagingOption, compare_stagings
+from stagewright.core.study.defaults import DEFAULT_ENERGY_PRICE, DEFAULT_OPERATING_HOURS
 from stagewright.core.study.limits import BindingLimit, LimitNotMet
 from stagewright.core.study.optimal_split import SplitResult, optimal_split
 from stagewright.core.study.options import MAX_STAGES

@@ -15,12 +15,7 @@ from stagewright.core.study.options import check_stage_count, staging_note, stag
 from stagewright.core.study.prepare import prepare
 from stagewright.core.study.progress import ProgressSpan, StudyCancelled, cancel_check
 
-#: Operating hours per year used for the yearly saving unless given (two shifts and
-#: weekends, close to continuous; common practice, no source).
-DEFAULT_OPERATING_HOURS = 8000.0
-#: Energy price per kWh of driver input, in the user's currency, unless given (an
-#: invented round figure, no source: always give your own tariff).
-DEFAULT_ENERGY_PRICE = 0.15
+from stagewright.core.study.defaults import DEFAULT_ENERGY_PRICE, DEFAULT_OPERATING_HOURS  # noqa: E402 (re-exported)
 _HOURS_MAX = 8784.0  # hours in a leap year
 
 

@@ -7,8 +7,6 @@ import math
 from dataclasses import dataclass, field
 from typing import Any, Callable
 
-import numpy as np
-
 from stagewright.core.project.delivery import delivery_pressure
 from stagewright.core.project.validation import resolve_site
 from stagewright.core.results import TrainResult
@@ -19,6 +17,19 @@ from stagewright.core.study.prepare import Prepared, prepare
 from stagewright.core.study.progress import cancel_check
 from stagewright.core.study.start import equal_split, ideal_gas_split
 from stagewright.core.study.trials import SoftLimit, Trial, TrialSolver, soft_limits
+
+
+class _NumpyOnFirstUse:
+    """Stands for numpy until a study uses it: the window imports this module while it opens, and
+    numpy's import (a tenth of a second or more) then waited before the window showed."""
+
+    def __getattr__(self, name):
+        import numpy
+        globals()["np"] = numpy
+        return getattr(numpy, name)
+
+
+np = _NumpyOnFirstUse()
 
 METHOD = ("SLSQP (scipy.optimize) on the logarithms of the stage ratios; the last free stage's "
           "ratio follows from the discharge pressure (stagewright.core.split.delivered_pressure), so it is "

@@ -16,18 +16,13 @@ from dataclasses import dataclass, field
 import numpy as np
 
 from stagewright.core.project.validation import normalise
+from stagewright.core.uncertainty.presence import has_field_check
 from stagewright.core.uncertainty.figures import ResultFigure, result_figures
 from stagewright.core.uncertainty.inputs import MeasuredInput, measured_inputs
 from stagewright.core.uncertainty.linear import COVERAGE_FACTOR, LinearPropagation, propagate_linear
 from stagewright.core.uncertainty.measurement_model import MeasurementModel
 from stagewright.core.uncertainty.monte_carlo import MonteCarloCancelled, MonteCarloResult, propagate_monte_carlo
 from stagewright.core.uncertainty.verdict import DECISION_RULE, ISO1217_SOURCE, Verdict, judge
-
-
-def has_field_check(doc: dict) -> bool:
-    """True when the document states an uncertainty for at least one measured input."""
-    section = doc.get("field_check") if isinstance(doc, dict) else None
-    return bool(isinstance(section, dict) and section.get("uncertainties"))
 
 
 def contributor_sentence(share: float, figure_label: str, input_label: str) -> str:
