@@ -68,6 +68,10 @@ def main(argv: list[str] | None = None) -> int:
     args = parse_or_status(build_parser(), argv)
     if isinstance(args, int):
         return args
+    # the property library parses on the other core while Qt loads and the window opens (without
+    # holding the interpreter; the first solve waits for it)
+    from stagewright.core.coolprop_adapter import load_library_in_background
+    load_library_in_background()
     from stagewright.gui.window.launch import run_gui  # Qt is imported only here
     return run_gui(args.project, args.screenshot, size=args.size)
 

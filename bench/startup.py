@@ -26,6 +26,11 @@ def child() -> int:
     os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
     import tempfile
 
+    # as the console script does before it imports Qt (app/entry.py; older trees lack it)
+    from stagewright.core import coolprop_adapter
+    if hasattr(coolprop_adapter, "load_library_in_background"):
+        coolprop_adapter.load_library_in_background()
+
     from PySide6.QtCore import QEventLoop, QSettings, QTimer
     from PySide6.QtWidgets import QApplication
 

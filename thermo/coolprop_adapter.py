@@ -7,10 +7,14 @@ inputs instead of a C++ message.
 from __future__ import annotations
 
 __all__ = ["new_air_state", "new_gas_air_state", "update_tp", "eos_reference", "coolprop_version",
+           "load_library_in_background",
            "humid_air_property", "water_saturation_pressure", "new_water_state", "water_ideal_gas",
            "humid_air_coefficient", "liquid_water_density", "new_incompressible_state",
            "incompressible_update_tp", "incompressible_limits"]
 
+import atexit
+import sys
+import threading
 import time
 from functools import lru_cache
 
@@ -23,10 +27,61 @@ _CONSTANTS = ("PT_INPUTS", "DmassT_INPUTS", "iHmass", "iP", "iT")
 LOADED: tuple[float, float] | None = None
 
 
+#: the thread loading CoolProp's fluid library ahead of the first import (:func:`load_library_in_background`)
+_AHEAD: threading.Thread | None = None
+#: ``CoolProp::get_library()``, the C++ function that parses the fluid library on first call (its
+#: Itanium C++ ABI name: the Linux and macOS builds export it from the extension module)
+_GET_LIBRARY = "_ZN8CoolProp11get_libraryEv"
+
+
+def load_library_in_background() -> bool:
+    """Start parsing CoolProp's fluid library on a background thread that does not hold the interpreter.
+
+    The first property call parses every fluid of CoolProp's built-in library (about 1.3 s of CPU
+    here), inside a C++ call that holds Python's interpreter lock: a window that solved its first
+    project after it appeared stood still for that long. Called at a window's launch, this loads the
+    extension module with :mod:`ctypes` (no Python import, no module initialisation) and calls
+    ``CoolProp::get_library()`` there; a ctypes call releases the interpreter lock, so the window's
+    own imports and first paint run meanwhile on the other core. The later ``import CoolProp`` finds
+    the same library in the same process already loaded. The first import waits for this thread
+    (:func:`_load`), and the process waits for it at exit, so the library is never parsed twice at once.
+
+    Returns
+    -------
+    bool
+        Whether the background load started (False where the module or its exported function is
+        not found, e.g. another platform's build, or CoolProp is already imported: then the first
+        property call loads it as before).
+    """
+    global _AHEAD
+    if _AHEAD is not None or "CoolProp.CoolProp" in sys.modules:
+        return False
+    try:
+        import ctypes
+        from importlib.util import find_spec
+        from pathlib import Path
+        spec = find_spec("CoolProp")  # locates the package without running its __init__
+        folders = list(spec.submodule_search_locations or []) if spec is not None else []
+        candidates = [p for folder in folders for p in Path(folder).glob("CoolProp.*") if p.suffix in (".so", ".dylib")]
+        if len(candidates) != 1:
+            return False
+        get_library = getattr(ctypes.CDLL(str(candidates[0])), _GET_LIBRARY)
+    except (OSError, AttributeError, ImportError, ValueError):
+        return False
+    get_library.restype = ctypes.c_void_p
+    get_library.argtypes = []
+    _AHEAD = threading.Thread(target=get_library, name="stagewright-coolprop-library", daemon=True)
+    _AHEAD.start()
+    atexit.register(_AHEAD.join)  # never exit (C++ destructors) in the middle of the parse
+    return True
+
+
 def _load():
     """Import CoolProp (loading its fluid library takes most of a second) and bind its names here."""
     global LOADED
     start = time.perf_counter()
+    if _AHEAD is not None:
+        _AHEAD.join()  # CoolProp's library loader is not safe to run twice at once
     import CoolProp.CoolProp as cp
     g = globals()
     for name in _CONSTANTS:
@@ -105,6 +160,7 @@ def update_tp(state, temperature: float, pressure: float, where: str = "") -> No
 
 
 def _version() -> str:
+    _load()  # the package's __init__ reads the fluid library: after any load started ahead
     import CoolProp
     return CoolProp.__version__
 

@@ -20,10 +20,9 @@ TOLERANCE = 1e-6
 
 def versions() -> dict[str, str]:
     """This installation's versions: ``{"stagewright_version": …, "coolprop_version": …}``."""
-    import CoolProp
-
     from stagewright.core import __version__
-    return {"stagewright_version": __version__, "coolprop_version": str(CoolProp.__version__)}
+    from stagewright.core.coolprop_adapter import coolprop_version
+    return {"stagewright_version": __version__, "coolprop_version": str(coolprop_version())}
 
 
 def take_snapshot(results: Mapping[str, dict], saved_utc: str | None = None) -> dict:
