@@ -15,6 +15,9 @@ pytestmark = pytest.mark.gui
 
 def test_chart_modules_import_on_another_thread_while_the_window_answers(qtbot, tmp_path, monkeypatch):
     win = make_window(qtbot, tmp_path)
+    own = win.panels["charts"]  # the window's own charts first: their drawing is not what is measured
+    qtbot.waitUntil(lambda: own.ts is not None and own.ts.pending is None, timeout=20_000)
+    qtbot.wait(300)
     panel = charts_area.ChartsPanel(win.editor)
     qtbot.addWidget(panel)
     seen = []

@@ -111,10 +111,12 @@ def test_undo_back_to_the_saved_state_clears_it(qtbot, tmp_path, empty_data_dir)
     win.close()
 
 
-@pytest.mark.skip(reason="order-dependent in the full suite (timer found restarted, 10013 ms left); passes alone; the "
-                         "steady-typing test below covers the behaviour — to be investigated")
 def test_more_changes_do_not_postpone_the_autosave(qtbot, tmp_path, empty_data_dir):
+    # (skipped for a while as order-dependent: Qt's default coarse timer moved the due time by up to
+    # 5 % of the interval, depending on the other timers alive in the process; the timer is precise now)
     win = make_window(qtbot, tmp_path, simple_real_gas_doc(), autosave_ms=10_000)
+    from PySide6.QtCore import Qt
+    assert win.recovery._timer.timerType() == Qt.TimerType.PreciseTimer
     win.editor.set_value("title", "first change")
     qtbot.wait(400)
     win.editor.set_value("title", "second change")

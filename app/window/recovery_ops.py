@@ -25,7 +25,7 @@ __all__ = ["RecoveryController", "AUTOSAVE_MS"]
 import sys
 from pathlib import Path
 
-from PySide6.QtCore import QObject, QTimer
+from PySide6.QtCore import QObject, Qt, QTimer
 from PySide6.QtWidgets import QStatusBar
 
 from stagewright.gui.document import recovery_file as rec
@@ -69,6 +69,9 @@ class RecoveryController(QObject):
         self.slot = rec.RecoverySlot()
         self._timer = QTimer(self)
         self._timer.setSingleShot(True)
+        # precise: a coarse timer (Qt's default) may fire up to 5 % of the interval late, and the
+        # promise is a write at most interval_ms after the first unsaved change
+        self._timer.setTimerType(Qt.TimerType.PreciseTimer)
         self._timer.setInterval(interval_ms)
         self._timer.timeout.connect(self.write_now)
         # the stack's index moves after the command ran: only then is the change "unsaved"
