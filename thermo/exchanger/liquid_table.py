@@ -24,13 +24,10 @@ from __future__ import annotations
 
 __all__ = ["TabulatedLiquid", "STEP_K"]
 
+from stagewright.core.lagrange import cubic_weights
+
 STEP_K = 0.5  #: grid step in temperature, [K]
 
-
-def _weights(t: float) -> tuple:
-    """Cubic Lagrange weights of the nodes 0, 1, 2, 3 at position t (in node steps from node 0)."""
-    t1, t2, t3 = t - 1.0, t - 2.0, t - 3.0
-    return (-t1 * t2 * t3 / 6.0, t * t2 * t3 / 2.0, -t * t1 * t3 / 2.0, t * t1 * t2 / 6.0)
 
 
 class TabulatedLiquid:
@@ -69,7 +66,7 @@ class TabulatedLiquid:
         if self._last < 3 or not 0.0 <= x <= self._last:
             return (self.exact.h, self.exact.s)[which](T)
         first = min(max(int(x) - 1, 0), self._last - 3)
-        w0, w1, w2, w3 = _weights(x - first)
+        w0, w1, w2, w3 = cubic_weights(x - first)
         node = self._node
         return (w0 * node(first)[which] + w1 * node(first + 1)[which] + w2 * node(first + 2)[which]
                 + w3 * node(first + 3)[which])

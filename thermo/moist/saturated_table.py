@@ -44,17 +44,13 @@ __all__ = ["SaturatedTable", "saturated_table", "STEP_K"]
 import math
 import threading
 
+from stagewright.core.lagrange import cubic_weights
 from stagewright.core.moist.saturation import T_TRIPLE
 
 STEP_K = 0.5  #: grid step in temperature, [K]
 _GAP = 0.25  #: the branches' first nodes lie this far from the triple point, [K]
 _T_LOW, _T_HIGH = 200.0, 420.0  #: where the table answers, [K] (outside: the exact functions)
 
-
-def _weights(t: float) -> tuple:
-    """Cubic Lagrange weights of the nodes 0, 1, 2, 3 at position t (in node steps from node 0) [3]_."""
-    t1, t2, t3 = t - 1.0, t - 2.0, t - 3.0
-    return (-t1 * t2 * t3 / 6.0, t * t2 * t3 / 2.0, -t * t1 * t3 / 2.0, t * t1 * t2 / 6.0)
 
 
 class SaturatedTable:
@@ -107,7 +103,7 @@ class SaturatedTable:
         if x < 0.0 or not _T_LOW < T < _T_HIGH:
             return self.exact(T)
         first = max(int(x) - 1, 0)
-        w = _weights(x - first)
+        w = cubic_weights(x - first)
         nodes = [self._node((side, first + a)) for a in range(4)]
         if math.isinf(nodes[3][0]) or math.isinf(nodes[0][0]):  # water cannot condense at some node
             return self.exact(T)
@@ -118,7 +114,7 @@ class SaturatedTable:
         r"""Equilibrium enthalpy [J/kg dry air] of total water ``water`` at T where it is saturated
         (:math:`W > w_s(T)`), else None (the caller takes the gas phase at W)."""
         ws, hs, hl = self.parts(T)
-        if not water > ws or math.isinf(ws):
+        if not water > ws:  # unsaturated (also where water cannot condense: w_s = inf)
             return None
         return hs + (water - ws) * hl
 
