@@ -20,7 +20,7 @@ from functools import lru_cache
 
 from stagewright.core.errors import PropertyRangeError
 
-_CONSTANTS = ("PT_INPUTS", "DmassT_INPUTS", "iHmass", "iP", "iT")
+_CONSTANTS = ("PT_INPUTS", "DmassT_INPUTS", "DmolarT_INPUTS", "iHmass", "iP", "iT", "iDmolar")
 
 #: (seconds it took, ``time.perf_counter()`` when it ended) of loading CoolProp in this process;
 #: None until it has loaded. A window's first solve includes it, and says so.
@@ -149,10 +149,15 @@ def new_gas_air_state():
     return state
 
 
-def update_tp(state, temperature: float, pressure: float, where: str = "") -> None:
-    """Set ``state`` to temperature [K] and pressure [Pa]; raise our own error on failure."""
+def update_tp(state, temperature: float, pressure: float, where: str = "", flash=None) -> None:
+    """Set ``state`` to temperature [K] and pressure [Pa]; raise our own error on failure.
+    ``flash``: the state's own ``flash(P, T)`` (:func:`stagewright.core.air_tp_flash.tp_flash`),
+    else CoolProp's (T, p) flash."""
     try:
-        state.update(_CP.PT_INPUTS, pressure, temperature)
+        if flash is not None:
+            flash(pressure, temperature)
+        else:
+            state.update(_CP.PT_INPUTS, pressure, temperature)
     except ValueError as exc:  # CoolProp reports every flash failure as ValueError
         raise PropertyRangeError(
             f"{where or 'state'}: air properties unavailable at T = {temperature:.6g} K, "

@@ -4,6 +4,7 @@ from __future__ import annotations
 __all__ = ["RealGasAir"]
 
 from stagewright.core import coolprop_adapter as cpa
+from stagewright.core.air_tp_flash import tp_flash
 from stagewright.core.models.base import Point, check_range
 from stagewright.core.models.newton import invert_temperature
 
@@ -37,6 +38,7 @@ class RealGasAir:
 
     def __init__(self) -> None:
         self._state = cpa.new_gas_air_state()  # (T, p) updates only: the gas phase imposed
+        self._flash = tp_flash(self._state)  # its (T, p) flash: Newton on density from a virial guess
         self.gas_constant = self._state.gas_constant() / self._state.molar_mass()
         self.molar_mass = self._state.molar_mass()
         self._at = None  # (T, P) the state was last set to; a repeat needs no new update
@@ -46,7 +48,7 @@ class RealGasAir:
         if self._at == (T, P):
             return
         self._at = None  # stays None if the update fails
-        cpa.update_tp(self._state, T, P, where)
+        cpa.update_tp(self._state, T, P, where, self._flash)
         self._at = (T, P)
 
     def at_tp(self, T: float, P: float, where: str = "") -> Point:

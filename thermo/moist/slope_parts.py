@@ -66,7 +66,7 @@ def fast_slope_parts(stream):
     fused = mix._fused
     state = getattr(dry, "_state", None)
     W = stream.water
-    if fused is None or state is None or not hasattr(dry, "_at") or not W > 0.0:
+    if fused is None or state is None or not hasattr(dry, "_flash") or not W > 0.0:
         return None
     general = stream.polytropic_slope_parts
     hc, _, aa, aw, ww = fused
@@ -78,7 +78,7 @@ def fast_slope_parts(stream):
     n_a = mix.n_a
     ca, cw, cww = -n_a * x_w, 2.0 * n_a * x_w, n_a * x_w * x_w / x_a
     wRw = W * mix.R_w
-    update, PT = state.update, cpa.PT_INPUTS
+    flash = dry._flash  # the dry-air model's (T, p) flash (stagewright.core.air_tp_flash)
     rhomass, cpmass, partial = state.rhomass, state.cpmass, state.first_partial_deriv
     iH, iP, iT = cpa.iHmass, cpa.iP, cpa.iT
 
@@ -94,7 +94,7 @@ def fast_slope_parts(stream):
         if dry._at != at:
             dry._at = None
             try:
-                update(PT, P, T)
+                flash(P, T)
             except ValueError:
                 return general(T, P)  # raises the adapter's error
             dry._at = at
@@ -173,7 +173,7 @@ def fast_state(stream):
     fused = mix._fused
     state = getattr(dry, "_state", None)
     W = stream.water
-    if fused is None or state is None or not hasattr(dry, "_at") or not W > 0.0:
+    if fused is None or state is None or not hasattr(dry, "_flash") or not W > 0.0:
         return None
     eps = mix.epsilon
     x_w = W / (eps + W)
@@ -192,7 +192,7 @@ def fast_state(stream):
     s_mix = -mix.R_a * (math.log(x_a) + (W / eps) * math.log(x_w))
     log, p_ref = math.log, mx.P_REF
     split = stream.split
-    update, PT = state.update, cpa.PT_INPUTS
+    flash = dry._flash  # the dry-air model's (T, p) flash (stagewright.core.air_tp_flash)
     hmass, smass, rhomass, cpmass = state.hmass, state.smass, state.rhomass, state.cpmass
 
     def at(T: float, P: float, need_cp: bool = True):
@@ -206,7 +206,7 @@ def fast_state(stream):
         if dry._at != at:
             dry._at = None
             try:
-                update(PT, P, T)
+                flash(P, T)
             except ValueError:
                 return general(T, P, False, need_cp)  # raises the adapter's error
             dry._at = at
