@@ -50,3 +50,31 @@ def test_nothing_is_started_once_coolprop_is_imported():
     from stagewright.core import coolprop_adapter as cpa
     cpa.coolprop_version()  # imports CoolProp in this process
     assert cpa.load_library_in_background() is False
+
+
+_WAIT_CHILD = r"""
+import sys
+from stagewright.core import coolprop_adapter as cpa
+
+
+class _StillLoading:  # stands for the ahead thread while the library still parses
+    def is_alive(self):
+        return True
+
+    def join(self):
+        print("numpy" in sys.modules, flush=True)
+
+
+cpa._AHEAD = _StillLoading()
+cpa._load()
+"""
+
+
+def test_the_first_import_waits_for_the_library_with_numpy_already_imported():
+    # CoolProp's module imports numpy (about 0.1 s here) after the library has loaded; a solve
+    # waiting for the ahead load imports it meanwhile, so the wait is not idle time (issue 19)
+    env = dict(os.environ, PYTHONPATH=str(ROOT))
+    out = subprocess.run([sys.executable, "-c", _WAIT_CHILD], capture_output=True, text=True, env=env, cwd=ROOT,
+                         timeout=120)
+    assert out.returncode == 0, out.stderr[-2000:]
+    assert out.stdout.split() == ["True"]

@@ -81,6 +81,8 @@ def _load():
     global LOADED
     start = time.perf_counter()
     if _AHEAD is not None:
+        if _AHEAD.is_alive():
+            _import_numpy()  # CoolProp's module imports it: meanwhile, while the library still loads
         _AHEAD.join()  # CoolProp's library loader is not safe to run twice at once
     import CoolProp.CoolProp as cp
     g = globals()
@@ -91,6 +93,15 @@ def _load():
         end = time.perf_counter()
         LOADED = (end - start, end)
     return cp
+
+
+def _import_numpy() -> None:
+    """Import numpy, which ``CoolProp.CoolProp`` imports first thing (about 0.1 s here), so that a
+    wait for the library loading ahead (:func:`load_library_in_background`) is not idle time."""
+    try:
+        import numpy  # noqa: F401
+    except ImportError:  # CoolProp's own import will say what is missing
+        pass
 
 
 class _OnFirstUse:
