@@ -2,6 +2,7 @@
 
     python bench/startup.py            # median of 7 runs (offscreen)
     python bench/startup.py --runs 3
+    python bench/startup.py --kept     # the demo saved with its results (File > Keep Results in File)
 
 Each run starts a fresh interpreter (``--child``) that opens the demo project offscreen and
 prints a line at each milestone; the parent stamps the lines as they arrive, so interpreter
@@ -18,10 +19,10 @@ import time
 from pathlib import Path
 
 ROOT = Path(__file__).resolve().parent.parent
-MILESTONES = ("shown", "solved", "charts")
+MILESTONES = ("shown", "figures", "solved", "charts")
 
 
-def child() -> int:
+def child(project: str | None = None) -> int:
     sys.path.insert(0, str(ROOT))
     os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
     import tempfile
@@ -43,12 +44,15 @@ def child() -> int:
     apply_style(app)
     with tempfile.TemporaryDirectory() as tmp:
         settings = QSettings(str(Path(tmp) / "s.ini"), QSettings.IniFormat)
-        win = MainWindow(load(DEMO_PROJECT), settings=settings, restore_layout=False, autosave_ms=None)
+        win = MainWindow(load(project or DEMO_PROJECT), settings=settings, restore_layout=False, autosave_ms=None)
         loop = QEventLoop()
         charts = win.panels["charts"]
         state = {"solved": False}
 
         def check():
+            if win.editor.result is not None and not state.get("figures"):
+                state["figures"] = True  # the balance shows figures: kept with the file, or solved
+                print("figures", flush=True)
             if win.editor.solved_jobs and not state["solved"]:
                 state["solved"] = True
                 print("solved", flush=True)
@@ -71,10 +75,11 @@ def child() -> int:
     return 0
 
 
-def one_run() -> dict:
+def one_run(project: str | None = None) -> dict:
     start = time.perf_counter()
     env = dict(os.environ, QT_QPA_PLATFORM="offscreen")
-    proc = subprocess.Popen([sys.executable, __file__, "--child"], stdout=subprocess.PIPE,
+    proc = subprocess.Popen([sys.executable, __file__, "--child"] + (["--project", project] if project else []),
+                            stdout=subprocess.PIPE,
                             stderr=subprocess.DEVNULL, text=True, cwd=ROOT, env=env)
     stamps = {}
     for line in proc.stdout:
@@ -85,11 +90,29 @@ def one_run() -> dict:
     return stamps
 
 
-def measure(runs: int) -> dict:
+def kept_project(folder: str) -> str:
+    """The demo project saved with its results kept in the file (as File > Keep Results in File
+    does: :func:`stagewright.core.cases.take_snapshot` of the solved result), in ``folder``."""
+    sys.path.insert(0, str(ROOT))
+    import json
+
+    import stagewright.core
+    from stagewright.core.cases import take_snapshot
+    from stagewright.core.project import load
+    from stagewright.core.project.cases import base_name
+    from stagewright.gui.window.launch import DEMO_PROJECT
+    doc = load(DEMO_PROJECT)
+    doc["snapshot"] = take_snapshot({base_name(doc): stagewright.core.solve(doc).to_dict()})
+    path = Path(folder) / "demo_kept.json"
+    path.write_text(json.dumps(doc, indent=1), encoding="utf-8")
+    return str(path)
+
+
+def measure(runs: int, project: str | None = None) -> dict:
     """Median seconds to each milestone, plus the median child CPU time."""
     rows, cpu_before = [], 0.0
     for _ in range(runs):
-        r = one_run()
+        r = one_run(project)
         r["cpu"], cpu_before = r["cpu"] - cpu_before, r["cpu"]
         rows.append(r)
     return {k: statistics.median(r[k] for r in rows if k in r) for k in MILESTONES + ("cpu",)}
@@ -99,12 +122,16 @@ def main(argv: list[str]) -> int:
     p = argparse.ArgumentParser(description=__doc__.splitlines()[0])
     p.add_argument("--child", action="store_true", help=argparse.SUPPRESS)
     p.add_argument("--runs", type=int, default=7)
+    p.add_argument("--kept", action="store_true", help="open the demo saved with its results kept in the file")
+    p.add_argument("--project", help=argparse.SUPPRESS)
     args = p.parse_args(argv)
     if args.child:
-        return child()
-    med = measure(args.runs)
-    print(f"window start-up, median of {args.runs} runs (offscreen, {os.cpu_count()} cores, "
-          f"load {os.getloadavg()[0]:.1f}):")
+        return child(args.project)
+    import tempfile
+    with tempfile.TemporaryDirectory() as folder:
+        med = measure(args.runs, kept_project(folder) if args.kept else None)
+    print(f"window start-up{' (demo saved with its results)' if args.kept else ''}, median of {args.runs} runs "
+          f"(offscreen, {os.cpu_count()} cores, load {os.getloadavg()[0]:.1f}):")
     for k in MILESTONES:
         print(f"  {k:<8}{med[k]:7.2f} s")
     print(f"  cpu     {med['cpu']:7.2f} s  (user + system of one run)")
