@@ -348,3 +348,40 @@ def test_process_killed_mid_save_leaves_the_original(project, point, tmp_path):
     assert load(path)["title"] != "half-saved"
     # a stray temporary file may remain; it is hidden and never read
     assert all(n.startswith(".plant.json") for n in _leftovers(path.parent))
+
+
+def test_plain_data_is_what_the_text_reads_back_as_in_the_same_key_order():
+    # the recovery copy writes plain_data compactly; a save writes dumps: the same data, same order
+    import json
+    from pathlib import Path
+
+    from stagewright.core.project.writing import dumps, plain_data
+    folder = Path(__file__).resolve().parent.parent / "sample_projects"
+    for path in sorted(folder.glob("*.json")):
+        doc = json.loads(path.read_text(encoding="utf-8"))
+        doc["year"] = {"profile": {"kind": "bins", "bins": [
+            {"hours": 1.0, "relative_humidity": 0.5, "temperature_K": 270.0 + 0.01 * k} for k in range(500)]}}
+        data = plain_data(doc)
+        again = json.loads(dumps(doc))
+        assert data == again and json.dumps(data) == json.dumps(again), path.name
+
+
+@pytest.mark.parametrize("bad, field", [
+    (float("inf"), r"stages\[1\]\.heat_loss_W"), (object(), r"stages\[1\]\.heat_loss_W"),
+    ([1.0, float("nan")], r"stages\[1\]\.heat_loss_W\[1\]")])
+def test_values_json_cannot_hold_are_named_deep_in_the_document(bad, field):
+    # the quick check of plain data finds them; the error still names the field
+    from stagewright.core.project.writing import plain_data
+    doc = make_doc()
+    doc["stages"] = [dict(doc["stages"][0]), dict(doc["stages"][0], heat_loss_W=bad)]
+    with pytest.raises(InputError, match=field):
+        plain_data(doc)
+
+
+def test_a_key_that_is_not_text_is_refused():
+    from stagewright.core.project.writing import plain_data
+    doc = make_doc()
+    doc["stages"] = [dict(doc["stages"][0], **{"x": 1})]
+    doc["stages"][0][3] = 1.0
+    with pytest.raises(InputError, match="object keys must be text"):
+        plain_data(doc)

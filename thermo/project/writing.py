@@ -16,7 +16,7 @@ read, and the next save of that file removes it once its process has ended
 """
 from __future__ import annotations
 
-__all__ = ["dumps", "file_text", "save", "atomic_write", "backup_path", "remove_orphans"]
+__all__ = ["dumps", "plain_data", "file_text", "save", "atomic_write", "backup_path", "remove_orphans"]
 
 import contextlib
 import errno
@@ -62,8 +62,37 @@ def _ordered(node: Any, value: Any) -> Any:
     return {k: _ordered(fields.get(k), value[k]) for k in keys}
 
 
+_SCALARS = (str, int, float, bool, type(None))
+
+
+def _plain(value: Any) -> bool:
+    """True when ``value`` is plain JSON data that reads back the same (the quick pass of
+    :func:`_check_data`: no field paths are made unless something is wrong)."""
+    t = type(value)
+    if t is dict:
+        for k, v in value.items():
+            if type(k) is not str:
+                return False
+            tv = type(v)
+            if tv is float:
+                if v - v != 0.0:  # NaN and ±inf
+                    return False
+            elif tv is dict or tv is list or tv is tuple:
+                if not _plain(v):
+                    return False
+            elif tv is not str and tv is not int and tv is not bool and v is not None:
+                return False
+        return True
+    if t is list or t is tuple:
+        return all(_plain(v) if type(v) in (dict, list, tuple) else
+                   (type(v) in _SCALARS and (type(v) is not float or v - v == 0.0)) for v in value)
+    return t in _SCALARS and (t is not float or value - value == 0.0)
+
+
 def _check_data(value: Any, path: str) -> None:
     """Refuse what JSON cannot hold or would not read back the same."""
+    if path == "" and _plain(value):
+        return
     if isinstance(value, dict):
         for k, v in value.items():
             if not isinstance(k, str):
@@ -76,6 +105,25 @@ def _check_data(value: Any, path: str) -> None:
         raise InputError(path, value, "expected a finite number")
     elif value is not None and not isinstance(value, (str, int, float, bool)):
         raise InputError(path, type(value).__name__, "expected plain JSON data")
+
+
+def plain_data(doc: dict) -> dict:
+    """``doc`` as :func:`dumps` writes it, as data: checked to be plain JSON data (finite numbers,
+    text keys) and in schema key order, without making the text (for a caller that writes it
+    compactly, e.g. a recovery copy: the standard library's C encoder does not indent).
+
+    Raises
+    ------
+    InputError
+        What JSON cannot hold or would not read back the same (NaN, an object, a non-text key).
+
+    Examples
+    --------
+    >>> list(plain_data({"title": "t", "version": 1, "format": "stagewright-project"}))
+    ['format', 'version', 'title']
+    """
+    _check_data(doc, "")
+    return _ordered(schema.PROJECT, doc)
 
 
 def dumps(doc: dict) -> str:
