@@ -23,6 +23,7 @@ os.environ.setdefault("OPENBLAS_NUM_THREADS", "1")
 
 import argparse  # noqa: E402
 import copy  # noqa: E402
+import importlib  # noqa: E402
 import json  # noqa: E402
 import statistics  # noqa: E402
 import subprocess  # noqa: E402
@@ -97,10 +98,19 @@ def worker(repeats: int) -> dict:
     out["compare 1…8, 1 process"] = [cpu(lambda: compare_stagings(doc, MOST)) for _ in range(repeats)]
     prepared = prepare(doc)
     per_n = {}
+    train = importlib.import_module("stagewright.core.train")
+    solve_stage, stage_solves = train.solve_stage, [0]
+
+    def counting(*args, **kwargs):
+        stage_solves[0] += 1
+        return solve_stage(*args, **kwargs)
     for n in range(1, MOST + 1):
         problem = prepared.with_stages(staging_stages(prepared.doc["stages"], n))
         per_n[n] = [cpu(lambda: split_prepared(problem)) for _ in range(repeats)]
-        per_n[f"{n} solves"] = split_prepared(problem).solves
+        train.solve_stage, stage_solves[0] = counting, 0
+        split = split_prepared(problem)  # once more, counting (the final full solve's stages included)
+        train.solve_stage = solve_stage
+        per_n[f"{n} counts"] = [split.solves, stage_solves[0], split.iterations]
     out["per stage count"] = per_n
     warm_up_pool(2)
     compare_stagings(doc, MOST, processes=2)  # as bench/run.py: the workers' first study fills their tables
@@ -136,15 +146,17 @@ def side_by_side(other: Path, rounds: int, repeats: int) -> None:
         old, new = median_ms("old", key), median_ms("new", key)
         unit = "wall" if "pool" in key else "CPU"
         print(f"{key + ' (' + unit + ')':<42}{old:8.0f}ms{new:8.0f}ms{old / new:8.2f}×")
-    print("\none stage count's optimal split (CPU), and its trial solves")
-    print(f"{'N':>3}{'old':>10}{'new':>10}{'old/new':>9}{'old Δ':>9}{'new Δ':>9}{'old trials':>12}{'new trials':>11}")
+    print("\none stage count's optimal split (CPU); its trial solves, stage solves and SLSQP iterations")
+    print(f"{'N':>3}{'old':>10}{'new':>10}{'old/new':>9}{'old Δ':>9}{'new Δ':>9}"
+          f"{'trials old/new':>16}{'stages old/new':>16}{'iter old/new':>14}")
     last = {"old": 0.0, "new": 0.0}
     for n in range(1, MOST + 1):
         t = {label: median_ms(label, "per stage count", str(n)) for label in runs}
-        solves = {label: runs[label][0]["per stage count"][f"{n} solves"] for label in runs}
+        (t_old, s_old, i_old), (t_new, s_new, i_new) = (runs[label][0]["per stage count"][f"{n} counts"]
+                                                        for label in ("old", "new"))
         ratio = t["old"] / t["new"] if t["new"] > 0.5 else float("nan")
         print(f"{n:3d}{t['old']:8.1f}ms{t['new']:8.1f}ms{ratio:8.2f}×{t['old'] - last['old']:+7.1f}ms"
-              f"{t['new'] - last['new']:+7.1f}ms{solves['old']:12d}{solves['new']:11d}")
+              f"{t['new'] - last['new']:+7.1f}ms{f'{t_old}/{t_new}':>16}{f'{s_old}/{s_new}':>16}{f'{i_old}/{i_new}':>14}")
         last = t
     print("(N = 1: the 40 bar(a) discharge is out of reach of one stage; no trial is solved)")
 

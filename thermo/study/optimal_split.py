@@ -278,8 +278,9 @@ class _Problem:
 
     def jacobian(self, x) -> tuple:
         """Forward differences of :meth:`values` in the intermediate pressures, then the chain rule
-        to the variables (:mod:`~stagewright.core.study.pressure_steps`): each difference re-solves
-        two stages and a cooler, and the train takes the others from earlier trials."""
+        to the variables (:mod:`~stagewright.core.study.pressure_steps`): each difference solves
+        again the two stages around the pressure it moves, with their coolers; the train takes
+        the others from earlier trials."""
         x = np.asarray(x, dtype=float)
         key = x.tobytes()
         if self._last_jacobian[0] != key:  # SLSQP asks for the objective's and the constraints' in turn
