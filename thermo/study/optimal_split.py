@@ -54,6 +54,9 @@ _OBJECTIVE_SCALE = 5.0
 _PENALTY = 10.0 * _OBJECTIVE_SCALE  # scaled objective of a trial split the train cannot run
 
 
+_failure_detail = failure_detail  # its old name here (tests/test_messages.py imports it)
+
+
 def minimize(*args, **kwargs):
     """scipy.optimize.minimize, imported on first use (keeps the window's start-up light)."""
     from scipy.optimize import minimize as _minimize

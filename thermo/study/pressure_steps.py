@@ -4,8 +4,9 @@ The optimiser's variables are the logarithms of stage ratios, :math:`x_j = \ln r
 forward difference in one ratio moves the discharge pressure of that stage and of every stage
 after it, so each of its trial solves re-solves the rest of the train. Here each difference
 moves one intermediate pressure instead, the discharge pressure :math:`p_i` of stage *i*, and
-keeps every other one bit for bit: only stage *i*, its cooler and stage *i* + 1 see a new
-input, and the train's own reuse of unchanged stages (``reuse`` of
+keeps every other one bit for bit: only stages *i* and *i* + 1 and their coolers see a new
+input (in humid air also stage *i* + 2, which the water a separator lets through reaches), and
+the train's own reuse of unchanged stages (``reuse`` of
 :func:`stagewright.core.solve.solve_normalised`) takes the others from earlier trials. The
 derivatives in the ratios then follow from the chain rule through the pressure recurrence of
 :func:`stagewright.core.split.delivered_pressure`.
