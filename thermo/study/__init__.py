@@ -9,6 +9,7 @@ study only chooses the stage ratios and the number of stages. Modules, one conce
 * :mod:`~stagewright.core.study.start` — starting splits (equal split, ideal-gas optimum)
 * :mod:`~stagewright.core.study.trials` — cached, cancellable trial solves
 * :mod:`~stagewright.core.study.optimal_split` — :func:`optimal_split`
+* :mod:`~stagewright.core.study.pressure_steps` — its derivatives, taken in the intermediate pressures
 * :mod:`~stagewright.core.study.options` — the N-stage option built from a project
 * :mod:`~stagewright.core.study.compare` — :func:`compare_stagings`
 * :mod:`~stagewright.core.study.sensitivity` — :func:`sensitivity`

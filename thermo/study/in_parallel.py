@@ -4,8 +4,7 @@ Each stage count is an independent optimisation (:func:`~stagewright.core.study.
 so the options of :func:`~stagewright.core.study.compare.compare_stagings` can run side by side: a
 worker solves exactly what the calling process would, so the results are the same, bit for bit
 (a test compares them). The options are handed out most stages first (the cost of an option grows
-about with the cube of its stage count), so the longest one starts at once and the short ones
-fill the other worker.
+with its stage count), so the longest one starts at once and the short ones fill the other worker.
 """
 from __future__ import annotations
 

@@ -14,7 +14,8 @@ this module holds the shared types and the pressure-arithmetic checks.
 from __future__ import annotations
 
 __all__ = ["MIN_STAGE_RATIO", "RATIO_CAP", "BindingLimit", "LimitNotMet", "RatioBounds",
-           "ratio_bounds", "pressure_reach_problems", "implied_ratio"]
+           "ratio_bounds", "pressure_reach_problems", "implied_ratio", "active_limit", "violated_limit",
+           "failure_detail"]
 
 import math
 from dataclasses import dataclass
@@ -216,3 +217,49 @@ def pressure_reach_problems(p_in: float, p_delivery: float, drops: list[float],
                f"{c:.4f} is needed (closest feasible value), or use fewer stages")
         return [BindingLimit(f"stages[{i}].min_pressure_ratio", lo[i], None, c, "violated", msg) for i in tight]
     return []
+
+
+def failure_detail(err, n: int, hint: str) -> dict | None:
+    """The message template of a failed trial solve, prefixed for the study (None without one)."""
+    detail = getattr(err, "detail", None)
+    if not detail:
+        return None
+    return {"template": f"no split of {n} stage(s) could be solved: " + detail["template"] + hint,
+            "values": detail["values"]}
+
+
+def active_limit(lim, t: float, doc: dict) -> BindingLimit:
+    """A temperature limit (a :class:`~stagewright.core.study.trials.SoftLimit`) met just at the optimum,
+    the stage discharging at ``t`` [K]."""
+    if lim.kind == "max_temperature":
+        return BindingLimit(lim.field, lim.limit, t, None, "active",
+                            f"stage {lim.stage + 1} discharge held at its limit {lim.limit:.2f} K")
+    value = doc["stages"][lim.stage]["cooler"]["approach_K"] if lim.field.endswith("approach_K") else lim.limit
+    return BindingLimit(lim.field, value, t, None, "active",
+                        f"stage {lim.stage + 1} discharges just at its cooler's outlet temperature "
+                        f"{lim.limit:.2f} K")
+
+
+def violated_limit(lim, t: float, margin: float, n: int, doc: dict) -> BindingLimit:
+    """A temperature limit that the closest split of ``n`` stages misses by ``-margin`` [K], with the
+    closest value of the limit that would be met."""
+    if lim.kind == "max_temperature":
+        need = lim.limit - margin
+        msg = (f"no split of {n} stage(s) keeps every stage within its discharge-temperature limit: "
+               f"the closest split still discharges {t:.2f} K from stage {lim.stage + 1}, above its "
+               f"limit {lim.limit:.2f} K; the closest feasible value is {need:.2f} K (or add stages)")
+        return BindingLimit(lim.field, lim.limit, t, need, "violated", msg)
+    cooler = doc["stages"][lim.stage]["cooler"]
+    need_t = lim.limit + margin
+    if lim.field.endswith("approach_K"):
+        value, need = cooler["approach_K"], cooler["approach_K"] + margin
+        what = f"approach {value:.2f} K (outlet {lim.limit:.2f} K)"
+        closest = f"an approach of at most {need:.2f} K"
+    else:
+        value, need = lim.limit, need_t
+        what = f"outlet {lim.limit:.2f} K"
+        closest = f"an outlet of at most {need:.2f} K"
+    msg = (f"with {n} stage(s) stage {lim.stage + 1} discharges at most {t:.2f} K, below its cooler's "
+           f"{what}, and a cooler cannot heat the air; the closest feasible value is {closest} "
+           "(or use fewer stages)")
+    return BindingLimit(lim.field, value, t, need, "violated", msg)

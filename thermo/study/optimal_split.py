@@ -11,9 +11,11 @@ from stagewright.core.project.delivery import delivery_pressure
 from stagewright.core.project.validation import resolve_site
 from stagewright.core.results import TrainResult
 from stagewright.core.solve import model_for, solve
-from stagewright.core.study.limits import (BindingLimit, LimitNotMet, RatioBounds, implied_ratio, pressure_reach_problems,
-                     ratio_bounds)
+from stagewright.core.study.limits import (BindingLimit, LimitNotMet, RatioBounds, active_limit, failure_detail,
+                                          implied_ratio, pressure_reach_problems, ratio_bounds, violated_limit)
 from stagewright.core.study.prepare import Prepared, prepare
+from stagewright.core.study.pressure_steps import (PRESSURE_STEP, pressure_sensitivities, pressure_step,
+                                                  stage_pressures)
 from stagewright.core.study.progress import cancel_check
 from stagewright.core.study.start import equal_split, ideal_gas_split
 from stagewright.core.study.trials import SoftLimit, Trial, TrialSolver, soft_limits
@@ -33,14 +35,26 @@ np = _NumpyOnFirstUse()
 
 METHOD = ("SLSQP (scipy.optimize) on the logarithms of the stage ratios; the last free stage's "
           "ratio follows from the discharge pressure (stagewright.core.split.delivered_pressure), so it is "
-          "met exactly; forward-difference gradients of lean train solves; started from the "
-          "better of the equal split and the ideal-gas optimum")
+          "met exactly; gradients from forward differences of lean train solves in the intermediate "
+          "pressures (chain rule to the ratios); started from the better of the equal split and the "
+          "ideal-gas optimum")
 
 _T_SCALE = 100.0  # K per unit of a scaled temperature constraint
 _T_INSIDE = 1e-5  # K kept inside every temperature limit by the optimiser's constraints
 _ACTIVE_K = 0.01  # K: a limit this close is reported as active
 _FD_STEP = 1e-6  # step in ln r for forward differences
-_PENALTY = 10.0  # scaled objective of a trial split the train cannot run
+#: The objective is the driver power over the start's, times this. The scaled power's curvature in
+#: ln r is about e²·r^e/((r^e − 1)·N) ≈ 0.1 for air (e = R/cp ≈ 0.29) at 2 … 8 stages; SLSQP's
+#: quasi-Newton matrix starts from the identity [Kraft 1988], so its first steps were about ten times
+#: too short and it spent iterations learning the scale (Nocedal & Wright 2006, §6.1, on scaling the
+#: initial matrix). Times 5 the curvature is about 0.5; the stop test (ftol on the scaled value) is
+#: then 5 times finer too. Measured on the baseline trains of tests/test_study_unchanged.py: 30 %
+#: fewer trial solves, every optimum at or below the old power (tests/data/study_baseline_2ad76eb.json).
+_OBJECTIVE_SCALE = 5.0
+_PENALTY = 10.0 * _OBJECTIVE_SCALE  # scaled objective of a trial split the train cannot run
+
+
+_failure_detail = failure_detail  # its old name here (tests/test_messages.py imports it)
 
 
 def minimize(*args, **kwargs):
@@ -147,6 +161,13 @@ def optimal_split(doc: dict, *, strict: bool = True, cancel: Any = None) -> Spli
        cannot be met and the minimax split, with the violation, is the answer;
     4. SLSQP minimises the power from a feasible start.
 
+    Derivatives are forward differences of lean trial solves, one intermediate pressure at a
+    time, turned into derivatives in the variables by the chain rule
+    (:mod:`~stagewright.core.study.pressure_steps`, [3]_ §8.1): a difference solves again only
+    the stages next to the pressure it moves, so an iteration costs a number of stage solves
+    proportional to the number of stages. The objective is the driver power relative to the
+    start's, scaled so that its curvature suits SLSQP's first quasi-Newton steps ([3]_ §6.1).
+
     The returned split is the lowest-power trial that met every limit exactly (SLSQP's
     constraints keep 1e-5 K inside the temperature limits), solved again in full.
     Without a ratio limit this problem is the classical one with the well-known answer
@@ -158,6 +179,7 @@ def optimal_split(doc: dict, *, strict: bool = True, cancel: Any = None) -> Spli
        McGraw-Hill, 2015, §7-11 (multistage compression with intercooling).
     .. [2] D. Kraft, *A software package for sequential quadratic programming*,
        DFVLR-FB 88-28, Oberpfaffenhofen, 1988 (SLSQP).
+    .. [3] J. Nocedal, S. J. Wright, *Numerical Optimization*, 2nd ed., Springer, 2006.
 
     Examples
     --------
@@ -203,6 +225,7 @@ class _Problem:
         self.iterations = 0
         self.w_ref = 1.0
         self._memo: dict[bytes, tuple] = {}
+        self._last_jacobian: tuple = (None, None)
 
     # -- variables ---------------------------------------------------------------------
     def ratios(self, x) -> list[float]:
@@ -244,18 +267,55 @@ class _Problem:
         hit = self._memo.get(key)
         if hit is not None:
             return hit
-        r = self.ratios(x)
+        out = self._memo[key] = self.values_at(self.ratios(x))
+        return out
+
+    def values_at(self, r: list[float]) -> tuple:
+        """Scaled objective and constraint vector of the train at the ratios ``r``."""
         t = self.trial(r)
         hard = self.hard(r)
         if t is None or not t.ok:
-            out = (_PENALTY, np.array(hard + [-1.0] * len(self.limits)))
-        else:
-            soft = [(m - _T_INSIDE) / _T_SCALE for m in t.margins]
-            out = (t.power_W / self.w_ref, np.array(hard + soft))
-        self._memo[key] = out
-        return out
+            return _PENALTY, np.array(hard + [-1.0] * len(self.limits))
+        soft = [(m - _T_INSIDE) / _T_SCALE for m in t.margins]
+        return t.power_W / self.w_ref * _OBJECTIVE_SCALE, np.array(hard + soft)
 
     def jacobian(self, x) -> tuple:
+        """Forward differences of :meth:`values` in the intermediate pressures, then the chain rule
+        to the variables (:mod:`~stagewright.core.study.pressure_steps`): each difference solves
+        again the two stages around the pressure it moves, with their coolers; the train takes
+        the others from earlier trials."""
+        x = np.asarray(x, dtype=float)
+        key = x.tobytes()
+        if self._last_jacobian[0] != key:  # SLSQP asks for the objective's and the constraints' in turn
+            self._last_jacobian = (key, self._pressure_jacobian(x))
+        df, dc = self._last_jacobian[1]
+        return df.copy(), dc.copy()
+
+    def _pressure_jacobian(self, x: np.ndarray) -> tuple:
+        f0, c0 = self.values(x)
+        r = self.ratios(x)
+        if not all(math.isfinite(v) and v > 1.0 for v in r):
+            return self.ratio_jacobian(x)
+        p = stage_pressures(self.p_in, r, self.drops)
+        df = np.zeros(len(x))
+        dc = np.zeros((len(c0), len(x)))
+        by_pressure = {}
+        for i in range(self.var[0], self.implied):
+            r1, h = pressure_step(self.p_in, r, self.drops, i)
+            f1, c1 = self.values_at(r1)
+            if f1 == _PENALTY and f0 != _PENALTY:
+                r1, h = pressure_step(self.p_in, r, self.drops, i, -PRESSURE_STEP)
+                f1, c1 = self.values_at(r1)
+            by_pressure[i] = ((f1 - f0) / h, (c1 - c0) / h)
+        for j, dp in enumerate(pressure_sensitivities(r, p, self.var, self.implied)):
+            for i, dp_dx in dp.items():
+                df[j] += by_pressure[i][0] * dp_dx
+                dc[:, j] += by_pressure[i][1] * dp_dx
+        return df, dc
+
+    def ratio_jacobian(self, x) -> tuple:
+        """Forward differences of :meth:`values` in the variables themselves (a point whose
+        ratios cannot all be formed, where there are no intermediate pressures to move)."""
         x = np.asarray(x, dtype=float)
         f0, c0 = self.values(x)
         df = np.zeros(len(x))
@@ -384,7 +444,7 @@ class _Problem:
                     "or a lower cooler outlet temperature" if self.n > 1 else " — lower the cooler outlet temperature")
         binding = [BindingLimit(err.field or "stages", value, None, None, "violated",
                                 f"no split of {self.n} stage(s) could be solved: {err}{hint}",
-                                _failure_detail(err, self.n, hint))]
+                                failure_detail(err, self.n, hint))]
         return SplitResult(None, None, False, binding, self.iterations, self.trials.solves,
                            list(self.prepared.notes))
 
@@ -411,9 +471,9 @@ class _Problem:
         for lim, m in zip(self.limits, margins):
             t = result.stages[lim.stage].outlet.T
             if feasible and m <= _ACTIVE_K:
-                out.append(_active(lim, t, self.doc))
+                out.append(active_limit(lim, t, self.doc))
             elif not feasible and m < 0.0 and m <= worst + _ACTIVE_K:
-                out.append(_violated(lim, t, m, self.n, self.doc))
+                out.append(violated_limit(lim, t, m, self.n, self.doc))
         if feasible:
             b = self.bounds
             for i, r in enumerate(ratios):
@@ -431,45 +491,3 @@ def solve_at(doc: dict, ratios: list[float]) -> TrainResult:
     doc = dict(doc)
     doc["stages"] = [dict(s, pressure_ratio=r) for s, r in zip(doc["stages"], ratios)]
     return solve(doc)
-
-
-def _failure_detail(err, n: int, hint: str) -> dict | None:
-    """The template of a failed trial solve, prefixed for the study (None without one)."""
-    detail = getattr(err, "detail", None)
-    if not detail:
-        return None
-    return {"template": f"no split of {n} stage(s) could be solved: " + detail["template"] + hint,
-            "values": detail["values"]}
-
-
-def _active(lim: SoftLimit, t: float, doc: dict) -> BindingLimit:
-    if lim.kind == "max_temperature":
-        return BindingLimit(lim.field, lim.limit, t, None, "active",
-                            f"stage {lim.stage + 1} discharge held at its limit {lim.limit:.2f} K")
-    value = doc["stages"][lim.stage]["cooler"]["approach_K"] if lim.field.endswith("approach_K") else lim.limit
-    return BindingLimit(lim.field, value, t, None, "active",
-                        f"stage {lim.stage + 1} discharges just at its cooler's outlet temperature "
-                        f"{lim.limit:.2f} K")
-
-
-def _violated(lim: SoftLimit, t: float, margin: float, n: int, doc: dict) -> BindingLimit:
-    if lim.kind == "max_temperature":
-        need = lim.limit - margin
-        msg = (f"no split of {n} stage(s) keeps every stage within its discharge-temperature limit: "
-               f"the closest split still discharges {t:.2f} K from stage {lim.stage + 1}, above its "
-               f"limit {lim.limit:.2f} K; the closest feasible value is {need:.2f} K (or add stages)")
-        return BindingLimit(lim.field, lim.limit, t, need, "violated", msg)
-    cooler = doc["stages"][lim.stage]["cooler"]
-    need_t = lim.limit + margin
-    if lim.field.endswith("approach_K"):
-        value, need = cooler["approach_K"], cooler["approach_K"] + margin
-        what = f"approach {value:.2f} K (outlet {lim.limit:.2f} K)"
-        closest = f"an approach of at most {need:.2f} K"
-    else:
-        value, need = lim.limit, need_t
-        what = f"outlet {lim.limit:.2f} K"
-        closest = f"an outlet of at most {need:.2f} K"
-    msg = (f"with {n} stage(s) stage {lim.stage + 1} discharges at most {t:.2f} K, below its cooler's "
-           f"{what}, and a cooler cannot heat the air; the closest feasible value is {closest} "
-           "(or use fewer stages)")
-    return BindingLimit(lim.field, value, t, need, "violated", msg)

@@ -93,9 +93,12 @@ class TrialSolver:
     (``fast=True``: interpolated enhancement factor for moist real-gas air, within 1e-4 of
     the exact path). The chosen split is then solved in full on the exact path. The document
     is normalised once; a trial changes only the stage ratios, so only they are checked
-    against the schema. Trials share their stage results: a trial that changes the ratio
-    of stage j takes stages before j from an earlier trial (``reuse`` of
-    :func:`stagewright.core.solve.solve_normalised`; the same inputs give the same results).
+    against the schema. Trials share their stage results: a stage whose inlet stream and
+    discharge pressure are those of an earlier trial is taken from it (``reuse`` of
+    :func:`stagewright.core.solve.solve_normalised`; the same inputs give the same results). The
+    optimiser's differences move one intermediate pressure at a time
+    (:mod:`stagewright.core.study.pressure_steps`), so a difference solves the two stages around it
+    (and, in moist air, the next one, which the separator's carry-over reaches).
     """
 
     def __init__(self, doc: dict, limits: list[SoftLimit], should_stop: Callable[[], bool]):
