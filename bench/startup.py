@@ -94,17 +94,15 @@ def kept_project(folder: str) -> str:
     """The demo project saved with its results kept in the file (as File > Keep Results in File
     does: :func:`stagewright.core.cases.take_snapshot` of the solved result), in ``folder``."""
     sys.path.insert(0, str(ROOT))
-    import json
-
     import stagewright.core
     from stagewright.core.cases import take_snapshot
-    from stagewright.core.project import load
+    from stagewright.core.project import load, save
     from stagewright.core.project.cases import base_name
     from stagewright.gui.window.launch import DEMO_PROJECT
     doc = load(DEMO_PROJECT)
     doc["snapshot"] = take_snapshot({base_name(doc): stagewright.core.solve(doc).to_dict()})
     path = Path(folder) / "demo_kept.json"
-    path.write_text(json.dumps(doc, indent=1), encoding="utf-8")
+    save(doc, path)
     return str(path)
 
 

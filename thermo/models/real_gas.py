@@ -12,9 +12,10 @@ from stagewright.core.models.newton import invert_temperature
 class RealGasAir:
     r"""Dry air as a real gas (pseudo-pure fluid, reference equation of state) [1]_ [2]_.
 
-    States from (T, p) use CoolProp's low-level ``AbstractState`` directly; states from
-    (h, p) and (s, p) are found by Newton iteration on T with (T, p) updates, which is
-    several times cheaper than CoolProp's own two-phase-aware flashes for a gas.
+    States from (T, p) use CoolProp's low-level ``AbstractState`` with the density found by
+    :func:`stagewright.core.air_tp_flash.tp_flash`; states from (h, p) and (s, p) are found by
+    Newton iteration on T with (T, p) updates, which is several times cheaper than CoolProp's
+    own two-phase-aware flashes for a gas.
 
     Polytropic slope (from dh = v dp / ηp):
 

@@ -62,31 +62,18 @@ def _ordered(node: Any, value: Any) -> Any:
     return {k: _ordered(fields.get(k), value[k]) for k in keys}
 
 
-_SCALARS = (str, int, float, bool, type(None))
-
-
 def _plain(value: Any) -> bool:
     """True when ``value`` is plain JSON data that reads back the same (the quick pass of
-    :func:`_check_data`: no field paths are made unless something is wrong)."""
+    :func:`_check_data`: no field paths are made unless something is wrong; exact types only,
+    anything else goes to the full check)."""
     t = type(value)
     if t is dict:
-        for k, v in value.items():
-            if type(k) is not str:
-                return False
-            tv = type(v)
-            if tv is float:
-                if v - v != 0.0:  # NaN and ±inf
-                    return False
-            elif tv is dict or tv is list or tv is tuple:
-                if not _plain(v):
-                    return False
-            elif tv is not str and tv is not int and tv is not bool and v is not None:
-                return False
-        return True
+        return all(type(k) is str for k in value) and all(map(_plain, value.values()))
     if t is list or t is tuple:
-        return all(_plain(v) if type(v) in (dict, list, tuple) else
-                   (type(v) in _SCALARS and (type(v) is not float or v - v == 0.0)) for v in value)
-    return t in _SCALARS and (t is not float or value - value == 0.0)
+        return all(map(_plain, value))
+    if t is float:
+        return value - value == 0.0  # not NaN nor ±inf
+    return t is str or t is int or t is bool or value is None
 
 
 def _check_data(value: Any, path: str) -> None:
