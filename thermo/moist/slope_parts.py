@@ -22,6 +22,20 @@ from stagewright.core.moist import mixture as mx  # the grid constants of the fu
 _LIQUID_NEGLIGIBLE = 1e-9  # as stagewright.core.moist.stream: a liquid share (of the water) treated as none on a path
 
 
+def _parts_of(stream):
+    """(mixture, dry model, fused tables, dry CoolProp state, water) of ``stream`` where the one-call
+    functions apply (the real-gas mixture with its fused tables, the dry model's own density flash,
+    some water), else None."""
+    mix = stream.mixture
+    dry = stream.dry
+    fused = mix._fused
+    state = getattr(dry, "_state", None)
+    W = stream.water
+    if fused is None or state is None or not hasattr(dry, "_flash") or not W > 0.0:
+        return None
+    return mix, dry, fused, state, W
+
+
 def fast_slope_parts(stream):
     r"""``parts(T, P) -> (p v/c_p, p (∂h/∂p)_T/c_p, p v)`` of ``stream``, or None where it cannot help.
 
@@ -61,13 +75,10 @@ def fast_slope_parts(stream):
     >>> fast(400.0, 3e5) == air.polytropic_slope_parts(400.0, 3e5)
     True
     """
-    mix = stream.mixture
-    dry = stream.dry
-    fused = mix._fused
-    state = getattr(dry, "_state", None)
-    W = stream.water
-    if fused is None or state is None or not hasattr(dry, "_flash") or not W > 0.0:
+    parts_of = _parts_of(stream)
+    if parts_of is None:
         return None
+    mix, dry, fused, state, W = parts_of
     general = stream.polytropic_slope_parts
     hc, _, aa, aw, ww = fused
     last = len(hc) - 1
@@ -168,13 +179,10 @@ def fast_state(stream):
     >>> fast_state(air)(400.0, 3e5) == air._state(400.0, 3e5, slope=False)
     True
     """
-    mix = stream.mixture
-    dry = stream.dry
-    fused = mix._fused
-    state = getattr(dry, "_state", None)
-    W = stream.water
-    if fused is None or state is None or not hasattr(dry, "_flash") or not W > 0.0:
+    parts_of = _parts_of(stream)
+    if parts_of is None:
         return None
+    mix, dry, fused, state, W = parts_of
     eps = mix.epsilon
     x_w = W / (eps + W)
     if x_w == 0.0:
