@@ -78,3 +78,17 @@ def test_the_first_import_waits_for_the_library_with_numpy_already_imported():
                          timeout=120)
     assert out.returncode == 0, out.stderr[-2000:]
     assert out.stdout.split() == ["True"]
+
+
+def test_a_coolprop_older_than_7_2_is_refused_by_name():
+    # the moist mixtures need AbstractState.hmass_idealgas (CoolProp 7.2); pyproject.toml once
+    # allowed 6.6, with which the first moist solve failed with an AttributeError
+    import types
+
+    from stagewright.core import coolprop_adapter as cpa
+
+    old = types.SimpleNamespace(AbstractState=type("AbstractState", (), {}), __version__="7.1.0")
+    with pytest.raises(ImportError, match=r"CoolProp 7\.2 or newer \(found 7\.1\.0\)"):
+        cpa._require_ideal_gas_parts(old)
+    import CoolProp.CoolProp as installed
+    cpa._require_ideal_gas_parts(installed)  # the installed one passes

@@ -85,6 +85,7 @@ def _load():
             _import_numpy()  # CoolProp's module imports it: meanwhile, while the library still loads
         _AHEAD.join()  # CoolProp's library loader is not safe to run twice at once
     import CoolProp.CoolProp as cp
+    _require_ideal_gas_parts(cp)
     g = globals()
     for name in _CONSTANTS:
         g[name] = getattr(cp, name)
@@ -93,6 +94,17 @@ def _load():
         end = time.perf_counter()
         LOADED = (end - start, end)
     return cp
+
+
+def _require_ideal_gas_parts(cp) -> None:
+    """Raise ImportError naming the version where CoolProp is older than 7.2: the moist mixtures read
+    water's ideal-gas h and s through ``AbstractState.hmass_idealgas``/``smass_idealgas``, which
+    arrived in 7.2 (pyproject.toml asks for it; an older one installed by hand would otherwise fail
+    deep inside the first moist solve)."""
+    if not hasattr(cp.AbstractState, "hmass_idealgas"):
+        version = getattr(cp, "__version__", None) or cp.get_global_param_string("version")
+        raise ImportError(f"Stagewright needs CoolProp 7.2 or newer (found {version}): "
+                          "pip install --upgrade \"CoolProp>=7.2,<8\"")
 
 
 def _import_numpy() -> None:

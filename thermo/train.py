@@ -321,7 +321,8 @@ def _totals(ctx: SolveContext, inlet: InletResult, line: _Line, mass_flow: float
         c.exergy_destroyed_W for c in coolers if c)
     x_heat = sum(s.heat_loss_exergy_W for s in stages) + sum(c.heat_exergy_W for c in coolers if c)
     x_gain = mass_flow * flow_exergy(point, velocity, dead)
-    iso = mass_flow * _isothermal_exergy(model, point.P, dead)
+    iso_mixture = mixture.interpolated() if mixture is not None else None  # the reference hardly depends on f
+    iso = mass_flow * _isothermal_exergy(model, point.P, dead, iso_mixture)
     if mixture is None:
         energy_res = (shaft - mass_flow * (point.h + 0.5 * velocity ** 2 - ambient.h) - q_rej) / shaft
         exergy_res = (shaft - x_gain - x_dest - x_heat) / shaft
@@ -331,7 +332,7 @@ def _totals(ctx: SolveContext, inlet: InletResult, line: _Line, mass_flow: float
         h_drained = sum(m * h for m, h, _, _, _ in drains)
         x_drained = sum(m * water_exergy(h, s, dead) for m, h, s, _, _ in drains)
         for m, _, _, _, p in drains:  # the isothermal reference delivers the condensate at T0 too
-            iso += m * _liquid_exergy_at_dead_temperature(mixture, p, dead)
+            iso += m * _liquid_exergy_at_dead_temperature(iso_mixture, p, dead)
         ke = 0.5 * velocity ** 2 * model.mass_per_dry_kg
         energy_res = (shaft - mass_flow * (point.h + ke - ambient.h) - h_drained - q_rej) / shaft
         exergy_res = (shaft - x_gain - x_drained - x_dest - x_heat) / shaft
@@ -353,7 +354,7 @@ def _totals(ctx: SolveContext, inlet: InletResult, line: _Line, mass_flow: float
         energy_residual=energy_res, exergy_residual=exergy_res, warnings=line.warnings, water=water)
 
 
-def _isothermal_exergy(model, P: float, dead) -> float:
+def _isothermal_exergy(model, P: float, dead, mixture=None) -> float:
     r"""Specific flow exergy of the delivered air brought to the ambient temperature at pressure P,
     [J/kg] (per kilogram of dry air for moist air): the reversible isothermal reference [1]_.
 
@@ -363,6 +364,8 @@ def _isothermal_exergy(model, P: float, dead) -> float:
     Gibbs energy :math:`g_l = \mu_w(T_0, p, x_{ws})`
     (:meth:`~stagewright.core.moist.mixture.MoistMixture.liquid_gibbs`), which needs no temperature
     derivative of the enhancement factor (the same figure to rounding; four fewer RP-1485 calls).
+    ``mixture``: the moist mixture to take the equilibrium and the liquid from (the train's
+    :meth:`~stagewright.core.moist.mixture.MoistMixture.interpolated` twin; None: the model's own).
 
     .. math:: \psi = h_g - h_0 - (W - W_0) h_{w0} - T_0\,[s_g - s_0 - (W - W_0) s_{w0}] + w_l\,g_l
 
@@ -375,6 +378,8 @@ def _isothermal_exergy(model, P: float, dead) -> float:
     if not isinstance(model, MoistAir):
         return flow_exergy(model.at_tp(T0, P, "isothermal reference"), 0.0, dead)
     check_range(T0, P, "isothermal reference")
+    if mixture is not None and mixture is not model.mixture:
+        model = MoistAir(mixture, model.water)  # the same stream on that mixture's enhancement factor
     w_v, w_l = model.split(T0, P)
     if w_l == 0.0:
         return flow_exergy(model.at_tp(T0, P, "isothermal reference"), 0.0, dead)
