@@ -193,3 +193,46 @@ def test_interaction_term_of_condensed_water_is_differentiated_analytically(T, P
 def _p_ws(T):
     from stagewright.core.moist.saturation import saturation_pressure
     return saturation_pressure(T)
+
+
+def _every_slope_rk4(parts, inlet, p_out, u):
+    """ln T at the end of the classical RK4 path at 1/ηp = u with all four slopes of every step
+    evaluated (Atkinson, An Introduction to Numerical Analysis, 2nd ed., 1989, §6.10)."""
+    n = path_steps(inlet.P, p_out)
+    x, dx = math.log(inlet.P), math.log(p_out / inlet.P) / n
+    y = math.log(inlet.T)
+
+    def k(x, y):
+        T = math.exp(y)
+        a, b, _ = parts(T, math.exp(x))
+        return (a * u - b) / T
+    for _ in range(n):
+        k1 = k(x, y)
+        k2 = k(x + dx / 2, y + dx / 2 * k1)
+        k3 = k(x + dx / 2, y + dx / 2 * k2)
+        k4 = k(x + dx, y + dx * k3)
+        y += dx * (k1 + 2 * k2 + 2 * k3 + k4) / 6
+        x += dx
+    return y
+
+
+@settings(max_examples=40, deadline=None, suppress_health_check=[HealthCheck.too_slow])
+@given(moist_compressions(), st.floats(1.0, 1.6))
+def test_first_slopes_by_taylor_keep_the_rk4_path_end(case, u):
+    # from the third step on, k1 comes from the previous k4 by a Taylor step (issue 19): the end of
+    # the path must stay that of the plain RK4 path within 1e-10 in ln T (ηp within ~3e-10)
+    air, T, P, ratio, _ = case
+    if air.water == 0.0:
+        return
+    inlet = air.at_tp(T, P)
+    p_out = min(P * ratio, 9.5e6)
+    parts = air.polytropic_slope_parts
+    calls = []
+
+    def counted(T, P):
+        calls.append(T)
+        return parts(T, P)
+    _, y_end, _ = polytropic._nodes_with_slope(counted, inlet, p_out, u)
+    n = path_steps(inlet.P, p_out)
+    assert len(calls) == 4 * n - max(n - 2, 0)
+    assert y_end == pytest.approx(_every_slope_rk4(parts, inlet, p_out, u), abs=1e-10, rel=0.0)
