@@ -236,3 +236,22 @@ def test_first_slopes_by_taylor_keep_the_rk4_path_end(case, u):
     n = path_steps(inlet.P, p_out)
     assert len(calls) == 4 * n - max(n - 2, 0)
     assert y_end == pytest.approx(_every_slope_rk4(parts, inlet, p_out, u), abs=1e-10, rel=0.0)
+
+
+@settings(max_examples=40, deadline=None, suppress_health_check=[HealthCheck.too_slow])
+@given(moist_compressions())
+def test_the_one_path_scheme_lands_on_the_root_without_the_search(case):
+    # the Newton step's derivative follows the RK4 scheme's variational equation (issue 19), so
+    # one integration at the entropy estimate lands within 1e-9 of the plain RK4 root, and no
+    # random compression needs the search (with the plain ∫ a d ln p derivative one in twenty did)
+    air, T, P, ratio, eta_s = case
+    if air.water == 0.0:
+        return
+    inlet = air.at_tp(T, P)
+    p_out = min(P * ratio, 9.5e6)
+    iso = air.at_sp(inlet.s, p_out, T_guess=T * ratio ** 0.3)
+    h_end = inlet.h + (iso.h - inlet.h) / eta_s
+    target = air.at_hp(h_end, p_out, T_guess=T * 1.5)
+    one = polytropic._from_one_path(air, inlet, target, p_out)
+    assert one is not None
+    assert one[0] == pytest.approx(_reference_efficiency(air, inlet, h_end, p_out), rel=1e-9)
