@@ -20,7 +20,7 @@ from functools import lru_cache
 
 from stagewright.core.errors import PropertyRangeError
 
-_CONSTANTS = ("PT_INPUTS", "DmassT_INPUTS", "DmolarT_INPUTS", "iHmass", "iP", "iT", "iDmolar")
+_CONSTANTS = ("PT_INPUTS", "DmassT_INPUTS", "DmolarT_INPUTS", "iHmass", "iP", "iT", "iDmolar", "iDmass", "iCpmass")
 
 #: (seconds it took, ``time.perf_counter()`` when it ended) of loading CoolProp in this process;
 #: None until it has loaded. A window's first solve includes it, and says so.

@@ -361,8 +361,9 @@ def _from_one_path(model: PropertyModel, inlet: Point, target: Point, p_out: flo
     :math:`f_y = \partial(d\ln T/d\ln p)/\partial\ln T` from the two mid-step slopes
     (:func:`_nodes_with_slope`): within 1.3e-4 of the derivative of the discrete end (it was
     1–2 % with :math:`\int a\,d\ln p` alone). Newton steps up to 2e-5 of 1/ηp are taken, so the
-    error left is below 3e-9; measured against the plain RK4 root found to 1e-15 on 300 random
-    moist compressions (ratios 1.3–5): within 1.1e-10, no case left to the search [3]_.
+    error left is below 3e-9; measured against the plain RK4 root found to 1e-15 on 900 random
+    moist compressions (ratios 1.3–5): within 6e-10 (1.1e-10 with every slope of the path
+    evaluated, see :func:`_nodes_with_slope`), no case left to the search [3]_.
 
     Parameters
     ----------
@@ -398,12 +399,13 @@ def _from_one_path(model: PropertyModel, inlet: Point, target: Point, p_out: flo
     if parts is None or inlet.wl > 0.0 or getattr(model, "mixture", None) is None:
         return None
     fast = getattr(model, "fast_slope_parts", None)
-    parts = (fast() if fast is not None else None) or parts
+    fast = fast() if fast is not None else None  # takes derivative=True: ∂a/∂T, ∂b/∂T as well
+    parts = fast or parts
     try:
         u, first = _entropy_estimate(parts, inlet, target, p_out)
         if not 1.0 / 1.5 < u < 50.0:
             return None
-        nodes, y_end, dy_du = _nodes_with_slope(parts, inlet, p_out, u, first)
+        nodes, y_end, dy_du = _nodes_with_slope(parts, inlet, p_out, u, first, derivative=fast is not None)
     except PropertyRangeError:
         return None
     step = (y_end - math.log(target.T)) / dy_du[-1]
@@ -438,7 +440,8 @@ def _entropy_estimate(parts, inlet: Point, target: Point, p_out: float) -> tuple
     return (ds + j) / j, first
 
 
-def _nodes_with_slope(parts, inlet: Point, p_out: float, u: float, first: tuple | None = None):
+def _nodes_with_slope(parts, inlet: Point, p_out: float, u: float, first: tuple | None = None,
+                      derivative: bool = False):
     r"""RK4 nodes (ln T, p) of the path at 1/ηp = u (as :func:`_path_nodes`), ln T_end and, per node,
     ∂ ln T/∂u, carried through each step by the scheme's variational equation with the mid-step's
     :math:`f_y` (see :func:`_from_one_path`). ``first``: the slope parts at the inlet state itself,
@@ -449,16 +452,25 @@ def _nodes_with_slope(parts, inlet: Point, p_out: float, u: float, first: tuple 
     the middle of a step is computed once for its two evaluations: this loop runs some eighty
     times a solve.
 
-    From the third step on, the first slope of a step is not evaluated: it lies at the pressure of
-    the previous step's last slope :math:`k_4`, a hair away in ln T (:math:`\delta y = y_{k+1} -
-    (y_k + h k_3) = h (k_1 + 2k_2 - 4k_3 + k_4)/6`, some 1e-6), so a first-order Taylor step [1]_
-    gives it, :math:`k_1 = k_4 + f_y\,\delta y`, with :math:`f_y = \partial k/\partial\ln T` taken
-    from the two exact slopes at each earlier mid-step, :math:`(k_3 - k_2)/(y_3 - y_2)`, and carried
-    half a step on by extrapolation [2]_ (linear from two mid-steps for the third step, quadratic
-    from three after it: :math:`f_y` moves by a third a step, so one mid-step alone would miss it by
-    half of that). Measured on 400 random moist compressions (ratios 1.3–5, 0.09–3 MPa): ln T_end
-    within 3e-11 of the path with every slope evaluated, the efficiency within 1e-10 of it (tests
-    hold it to 1e-8 of the plain RK4 root), with one slope evaluation fewer per step after the second.
+    Two of a step's four slopes are not evaluated where ``derivative`` is set (``parts`` then takes
+    ``derivative=True`` and returns :math:`\partial a/\partial T` and :math:`\partial b/\partial T`
+    at constant p as well, e.g. :func:`stagewright.core.moist.slope_parts.fast_slope_parts`), each by
+    a first-order Taylor step in ln T [1]_:
+
+    - :math:`k_3`, at the pressure of :math:`k_2` and :math:`y_3 - y_2 = h (k_2 - k_1)/2` (some
+      1e-5) away: :math:`k_3 = k_2 + f_y (y_3 - y_2)` with the exact
+      :math:`f_y = \partial k/\partial\ln T = (\partial a/\partial T)\,u - \partial b/\partial T - k`
+      at :math:`k_2`'s point (its neglected :math:`\tfrac12 f_{yy}(y_3 - y_2)^2` is below 1e-9);
+    - from the third step on, :math:`k_1`, at the pressure of the previous :math:`k_4` and
+      :math:`\delta y = h (k_1 + 2k_2 - 4k_3 + k_4)/6` (some 1e-6) away, with the previous
+      mid-steps' :math:`f_y` carried half a step on by extrapolation [2]_ (linear from two, then
+      quadratic from three: :math:`f_y` moves by a third a step).
+
+    Without ``derivative`` every :math:`k_3` is evaluated and :math:`f_y` is taken from it,
+    :math:`(k_3 - k_2)/(y_3 - y_2)`. Measured on 300 random moist compressions (ratios 1.3–5,
+    0.09–3 MPa) against the path with every slope evaluated: ln T_end within 5e-10 (3e-11 with
+    every :math:`k_3` evaluated), and the efficiency within 6e-10 of the plain RK4 root (tests hold
+    it to 2e-9), with 2n − 1 evaluations of the 4n − 1 for n ≥ 2 steps.
 
     References
     ----------
@@ -495,14 +507,21 @@ def _nodes_with_slope(parts, inlet: Point, p_out: float, u: float, first: tuple 
         if y2 > beyond:
             raise PropertyRangeError("polytropic path: temperature above the property range", "polytropic path")
         T = exp(y2)
-        a, b, _ = parts(T, p_mid)
+        at_mid = parts(T, p_mid, True) if derivative else parts(T, p_mid)
+        a, b = at_mid[0], at_mid[1]
         k2, a2 = (a * u - b) / T, a / T
         y3 = y + 0.5 * dx * k2
         if y3 > beyond:
             raise PropertyRangeError("polytropic path: temperature above the property range", "polytropic path")
-        T = exp(y3)
-        a, b, _ = parts(T, p_mid)
-        k3, a3 = (a * u - b) / T, a / T
+        if len(at_mid) == 5:  # k3 by a Taylor step from k2 in ln T, with the exact ∂/∂T of a and b
+            a_t, b_t = at_mid[3], at_mid[4]
+            f_y = a_t * u - b_t - k2
+            k3, a3 = k2 + f_y * (y3 - y2), a2 + (a_t - a2) * (y3 - y2)
+        else:
+            T = exp(y3)
+            a, b, _ = parts(T, p_mid)
+            k3, a3 = (a * u - b) / T, a / T
+            f_y = (k3 - k2) / (y3 - y2) if y3 != y2 else 0.0
         y4 = y + dx * k3
         if y4 > beyond:
             raise PropertyRangeError("polytropic path: temperature above the property range", "polytropic path")
@@ -510,7 +529,6 @@ def _nodes_with_slope(parts, inlet: Point, p_out: float, u: float, first: tuple 
         p_end = exp(x + dx)
         a, b, _ = parts(T, p_end)
         k4, a4 = (a * u - b) / T, a / T
-        f_y = (k3 - k2) / (y3 - y2) if y3 != y2 else 0.0
         fy.append(f_y)
         y += dx * (k1 + 2 * k2 + 2 * k3 + k4) / 6.0
         # ∂y/∂u through the step (the scheme's variational equation, f_y of the mid-step throughout)

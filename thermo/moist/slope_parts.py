@@ -95,8 +95,10 @@ def fast_slope_parts(stream):
 
     split = stream.split
     negligible = _LIQUID_NEGLIGIBLE * W
+    second = state.second_partial_deriv
+    iD, iCp = cpa.iDmass, cpa.iCpmass
 
-    def parts(T: float, P: float):
+    def parts(T: float, P: float, derivative: bool = False):
         if not (T_MIN <= T <= T_MAX and P_MIN <= P <= P_MAX):
             return general(T, P)  # raises the general method's error
         if not (T >= stream._dry_T and P < stream._dry_P_limit) and split(T, P)[1] > negligible:
@@ -134,7 +136,18 @@ def fast_slope_parts(stream):
         v = v_a + wRw * T / P + d
         cp = cp_a + W * cpw - P * T * d_tt
         hp = hp_a + d - T * d_t
-        return P * v / cp, P * hp / cp, P * v
+        if not derivative:
+            return P * v / cp, P * hp / cp, P * v
+        # ∂/∂T at constant p of a = p v/c_p and b = p (∂h/∂p)_T/c_p, from the same functions
+        rho_t = partial(iD, iT, iP)
+        v_t = -v_a * v_a * rho_t + wRw / P + d_t
+        v_a_tt = (2.0 * rho_t * rho_t * v_a - second(iD, iT, iP, iT, iP)) * v_a * v_a
+        _, _, c, e = hc[i]
+        d_ttt = (ca * aa[i][3] + cw * aw[i][3] + cww * ww[i][3]) * 6.0 / (ss * step)
+        cp_t = partial(iCp, iT, iP) + W * (2.0 * c + 6.0 * e * t) / ss - P * d_tt - P * T * d_ttt
+        hp_t = -T * v_a_tt - T * d_tt
+        return (P * v / cp, P * hp / cp, P * v,
+                P * (v_t * cp - v * cp_t) / (cp * cp), P * (hp_t * cp - hp * cp_t) / (cp * cp))
     return parts
 
 
