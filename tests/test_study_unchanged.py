@@ -12,9 +12,10 @@ What must hold, and why:
   and specific power, savings, second-law and isothermal efficiency, package figures, total
   condensate, the binding limits' values — within 1e-8 relative of the old answer (the issue's
   bound), and the same feasibility and binding limits;
-* the optimum at least as good: the new driver power at most 1e-12 relative above the old one
+* the optimum at least as good: the new driver power at most 3e-12 relative above the old one
   (the old optimiser stopped when a step gained less than 1e-10 of the power, the new one at
-  2e-11, so within 1e-12 the two are the same optimum, below it the new one is lower);
+  2e-11, and the old solves' own inversions were good to about 1e-12 of the power, so within
+  3e-12 the two are the same optimum, below it the new one is lower);
 * the split's position — ratios, intermediate pressures, discharge temperatures, cooler duties,
   the condensate of each cooler, heat rejected and exergy destroyed — within 5e-4 relative: the
   power near the optimum is flat (it moves by about ½·H·Δx² with H ≈ 0.1 per unit of ln r), so the
@@ -37,7 +38,11 @@ from stagewright.core.study import compare_stagings, optimal_split  # noqa: E402
 
 BASELINE = json.loads(made.OUT.read_text(encoding="utf-8"))
 SAME = 1e-8  # the issue's bound for everything reported that does not move with the split
-NOT_WORSE = 1e-12  # the new optimum's power may be this much above the old (same optimum)
+# the new optimum's power may be this much above the old (same optimum): the old figures carry the
+# old inversions' tolerance (their Newton steps stopped below 1e-9 K, about 1e-12 of the power); on
+# plant_air_real_gas at 2 stages a solve converged to 1e-13 K is 1.2e-12 above the old optimum and
+# within 1e-14 of the current one (the inversions now end with a Taylor step, ~1e-13 K)
+NOT_WORSE = 3e-12
 POSITION = 5e-4  # the split's position inside its flat optimum
 #: Figures that move with the split's position inside the optimum (the rest must stay within SAME).
 POSITION_KEYS = {"pressure_ratios", "stage_discharge_pressures_Pa", "discharge_temperatures_K",

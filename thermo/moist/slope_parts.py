@@ -11,7 +11,7 @@ failed flash) to the general method, which also raises its errors.
 """
 from __future__ import annotations
 
-__all__ = ["fast_slope_parts", "fast_state"]
+__all__ = ["fast_slope_parts", "fast_state", "fast_volume_slope"]
 
 import math
 
@@ -259,3 +259,77 @@ def fast_state(stream):
         return (h_a + W * hw + P * (d - T * d_t), s_a + W * (sw - R_w * log(P / p_ref)) + s_mix - P * d_t,
                 v_a + wRw * T / P + d, cp_a + W * cpw - P * T * d_tt, 0.0 + d - T * d_t, W, 0.0)
     return at
+
+
+def fast_volume_slope(stream):
+    r"""``v_T(T, P)``: :math:`(\partial v/\partial T)_p` of ``stream``'s gas phase per kilogram of dry
+    air [m³/(kg K)] at the state its dry-air model was last set to, or None where it cannot help.
+
+    .. math:: \left(\frac{\partial v}{\partial T}\right)_p = -\frac{1}{\rho_a^2}
+       \left(\frac{\partial \rho_a}{\partial T}\right)_p + \frac{w R_w}{p} + D'(T)
+
+    (the derivative of :func:`fast_slope_parts`'s :math:`v` [1]_ [2]_). The function answers None
+    unless the dry-air state is at exactly (T, P) (the last evaluation of :func:`fast_state` left it
+    there), so a caller never reads a derivative of another state.
+
+    Parameters
+    ----------
+    stream : MoistAir
+        A moist stream on the real-gas mixture (water > 0).
+
+    Returns
+    -------
+    callable or None
+        The function; None where :func:`fast_state` does not apply.
+
+    References
+    ----------
+    .. [1] R. Herrmann, W. Wagner, A. H. Harvey, "Thermodynamic Properties of Real Moist Air, Dry
+       Air, Steam, Water, and Ice", ASHRAE RP-1485, 2009.
+    .. [2] E. W. Lemmon, R. T. Jacobsen, S. G. Penoncello, D. G. Friend, J. Phys. Chem. Ref.
+       Data 29 (2000) 331–385.
+
+    Examples
+    --------
+    >>> from stagewright.core.models import RealGasAir
+    >>> from stagewright.core.moist.mixture import make_mixture
+    >>> from stagewright.core.moist.stream import MoistAir
+    >>> air = MoistAir(make_mixture(RealGasAir()), 0.01)
+    >>> v = fast_state(air)
+    >>> v_t = fast_volume_slope(air)
+    >>> slope = (v(400.001, 3e5)[2] - v(399.999, 3e5)[2]) / 0.002
+    >>> _ = v(400.0, 3e5)
+    >>> abs(v_t(400.0, 3e5) / slope - 1.0) < 1e-7
+    True
+    """
+    parts_of = _parts_of(stream)
+    if parts_of is None:
+        return None
+    mix, dry, fused, state, W = parts_of
+    _, _, aa, aw, ww = fused
+    last = len(aa) - 1
+    t_lo, step = mx._T_LO, mx._STEP
+    x_w = W / (mix.epsilon + W)
+    x_a = 1.0 - x_w
+    n_a = mix.n_a
+    ca, cw, cww = -n_a * x_w, 2.0 * n_a * x_w, n_a * x_w * x_w / x_a
+    wRw = W * mix.R_w
+    partial, rhomass = state.first_partial_deriv, state.rhomass
+    iD, iT, iP = cpa.iDmass, cpa.iT, cpa.iP
+
+    def v_t(T: float, P: float):
+        if dry._at != (T, P):
+            return None
+        x = (T - t_lo) / step
+        i = int(x)
+        if i > last:
+            i = last
+        elif i < 0:
+            i = 0
+        t = x - i
+        d_t = 0.0
+        for c, (_, b, c2, e) in ((ca, aa[i]), (cw, aw[i]), (cww, ww[i])):
+            d_t += c * ((b + t * (2.0 * c2 + 3.0 * e * t)) / step)
+        rho = rhomass()
+        return -partial(iD, iT, iP) / (rho * rho) + wRw / P + d_t
+    return v_t

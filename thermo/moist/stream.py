@@ -17,7 +17,7 @@ from stagewright.core.models.base import Point, check_range
 from stagewright.core.models.newton import invert_to_state
 from stagewright.core.moist.mixture import MoistMixture
 from stagewright.core.moist.saturation import T_CRITICAL, liquid_vapour_pressure, vapour_pressure
-from stagewright.core.moist.slope_parts import fast_slope_parts, fast_state
+from stagewright.core.moist.slope_parts import fast_slope_parts, fast_state, fast_volume_slope
 
 _LIQUID_NEGLIGIBLE = 1e-9  # liquid share (of the stream's water) treated as none on a path
 _DT = 1e-3  # central-difference step in T for two-phase derivatives, [K]
@@ -156,7 +156,7 @@ class MoistAir:
         def f(T):
             st = at(T, P)
             return st[0], st[3], st
-        T, st = invert_to_state(f, h, T_guess, where, "enthalpy")
+        T, st = invert_to_state(f, h, T_guess, where, "enthalpy", taylor=self._taylor_step(P))
         return self._point(T, P, st, where)
 
     def at_sp(self, s: float, P: float, where: str = "", T_guess: float = 300.0) -> Point:
@@ -165,8 +165,36 @@ class MoistAir:
         def f(T):
             st = at(T, P)
             return st[1], st[3] / T, st
-        T, st = invert_to_state(f, s, T_guess, where, "entropy")
+        taylor = self._taylor_step(P)  # with it, steps in ln T: two evaluations from 1 K off
+        T, st = invert_to_state(f, s, T_guess, where, "entropy", taylor=taylor, in_log=taylor is not None)
         return self._point(T, P, st, where)
+
+    def _taylor_step(self, P: float):
+        r"""``(T, state, δ) -> state at T + δ`` at pressure P to first order, for the last step of an
+        inversion (:func:`stagewright.core.models.newton.invert_to_state`), or None where the stream
+        has no one-call volume slope; the function itself answers None for a state with liquid
+        (where h(T) has a kink at the dew point) or one it cannot read.
+
+        .. math:: h + c_p\,\delta, \qquad s + \frac{c_p}{T}\,\delta, \qquad
+           v + \left(\frac{\partial v}{\partial T}\right)_p \delta
+
+        (:math:`(\partial s/\partial T)_p = c_p/T`; Taylor's theorem, the error of order δ²).
+        """
+        v_t = self.__dict__.get("_volume_slope", False)
+        if v_t is False:
+            v_t = self._volume_slope = fast_volume_slope(self)
+        if v_t is None:
+            return None
+
+        def step(T: float, st: tuple, d: float):
+            h, s, v, cp, hp, w_v, w_l = st
+            if w_l != 0.0 or st[5] != self.water:
+                return None
+            slope = v_t(T, P)
+            if slope is None:
+                return None
+            return h + cp * d, s + cp / T * d, v + slope * d, cp, hp, w_v, w_l
+        return step
 
     @staticmethod
     def _point(T: float, P: float, st: tuple, where: str) -> Point:
