@@ -36,6 +36,16 @@ def _parts_of(stream):
     return mix, dry, fused, state, W
 
 
+def _virial_weights(mix, W: float) -> tuple[float, float, float]:
+    """The weights of the B_aa, B_aw and B_ww tables in the interaction volume D per kilogram of dry
+    air at water content W: :math:`D = n_a[-x_w B_{aa} + 2 x_w B_{aw} + (x_w^2/x_a) B_{ww}]`
+    (:class:`~stagewright.core.moist.mixture.MoistMixture`)."""
+    x_w = W / (mix.epsilon + W)
+    x_a = 1.0 - x_w
+    n_a = mix.n_a
+    return -n_a * x_w, 2.0 * n_a * x_w, n_a * x_w * x_w / x_a
+
+
 def fast_slope_parts(stream):
     r"""``parts(T, P) -> (p v/c_p, p (∂h/∂p)_T/c_p, p v)`` of ``stream``, or None where it cannot help.
 
@@ -84,10 +94,7 @@ def fast_slope_parts(stream):
     last = len(hc) - 1
     t_lo, step = mx._T_LO, mx._STEP
     ss = step * step
-    x_w = W / (mix.epsilon + W)
-    x_a = 1.0 - x_w
-    n_a = mix.n_a
-    ca, cw, cww = -n_a * x_w, 2.0 * n_a * x_w, n_a * x_w * x_w / x_a
+    ca, cw, cww = _virial_weights(mix, W)
     wRw = W * mix.R_w
     flash = dry._flash  # the dry-air model's (T, p) flash (stagewright.core.air_tp_flash)
     rhomass, cpmass, partial = state.rhomass, state.cpmass, state.first_partial_deriv
@@ -206,8 +213,7 @@ def fast_state(stream):
     last = len(hc) - 1
     t_lo, step = mx._T_LO, mx._STEP
     ss = step * step
-    n_a = mix.n_a
-    ca, cw, cww = -n_a * x_w, 2.0 * n_a * x_w, n_a * x_w * x_w / x_a
+    ca, cw, cww = _virial_weights(mix, W)
     R_w = mix.R_w
     wRw = W * R_w
     s_mix = -mix.R_a * (math.log(x_a) + (W / eps) * math.log(x_w))
@@ -309,10 +315,7 @@ def fast_volume_slope(stream):
     _, _, aa, aw, ww = fused
     last = len(aa) - 1
     t_lo, step = mx._T_LO, mx._STEP
-    x_w = W / (mix.epsilon + W)
-    x_a = 1.0 - x_w
-    n_a = mix.n_a
-    ca, cw, cww = -n_a * x_w, 2.0 * n_a * x_w, n_a * x_w * x_w / x_a
+    ca, cw, cww = _virial_weights(mix, W)
     wRw = W * mix.R_w
     partial, rhomass = state.first_partial_deriv, state.rhomass
     iD, iT, iP = cpa.iDmass, cpa.iT, cpa.iP
