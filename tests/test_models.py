@@ -102,3 +102,16 @@ def test_real_gas_flashes_agree_with_the_plain_coolprop_flash():
         assert abs(v / ref[2] - 1.0) < 4e-15, (T, P)
         for ours, theirs, scale in zip((h, s, cp, hp), (ref[0], ref[1], ref[3], ref[4]), (3e5, 4e3, 1e3, ref[2])):
             assert abs(ours - theirs) <= 1e-12 * max(abs(theirs), scale), (T, P)
+
+
+def test_real_gas_terms_kept_for_a_repeated_state_are_those_of_a_fresh_update():
+    # RealGasAir.terms keeps the answers of recent states (a saturated cooler outlet repeats
+    # between solves): a kept answer must be the one a fresh model gives, and a state set in
+    # between must not leak into it
+    from stagewright.core.models import RealGasAir
+    model, fresh = RealGasAir(), RealGasAir()
+    first = model.terms(306.15, 7.5e5)
+    model.terms(420.0, 3e6)  # the state moves elsewhere
+    assert model.terms(306.15, 7.5e5) == first == fresh.terms(306.15, 7.5e5)
+    assert model.terms(306.15, 7.5e5, False) == fresh.terms(306.15, 7.5e5, False)
+    assert model.terms(306.15, 7.5e5, False)[4] == 0.0

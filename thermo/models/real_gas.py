@@ -43,6 +43,7 @@ class RealGasAir:
         self.gas_constant = self._state.gas_constant() / self._state.molar_mass()
         self.molar_mass = self._state.molar_mass()
         self._at = None  # (T, P) the state was last set to; a repeat needs no new update
+        self._terms_memo: dict = {}  # (T, P, slope) -> terms: a cooler's outlet repeats between solves
 
     def _set(self, T: float, P: float, where: str) -> None:
         check_range(T, P, where)
@@ -82,11 +83,22 @@ class RealGasAir:
         return self.at_tp(T, P, where)
 
     def terms(self, T: float, P: float, slope: bool = True) -> tuple:
-        """h, s, v, cp and (∂h/∂p)_T (0.0 unless ``slope``) at T [K], P [Pa] from one update."""
+        """h, s, v, cp and (∂h/∂p)_T (0.0 unless ``slope``) at T [K], P [Pa] from one update.
+
+        The answers of the last few states are kept (a saturated cooler outlet, which the moist
+        mixture's general method reaches through here, is often where it was in the last solve)."""
+        memo = self._terms_memo
+        key = (T, P, slope)
+        hit = memo.get(key)
+        if hit is not None:
+            return hit
         self._set(T, P, "moist-air state")
         st = self._state
         hp = st.first_partial_deriv(cpa.iHmass, cpa.iP, cpa.iT) if slope else 0.0
-        return st.hmass(), st.smass(), 1.0 / st.rhomass(), st.cpmass(), hp
+        if len(memo) >= 32:
+            memo.clear()
+        hit = memo[key] = (st.hmass(), st.smass(), 1.0 / st.rhomass(), st.cpmass(), hp)
+        return hit
 
     def slope_terms(self, T: float, P: float) -> tuple:
         """v, cp and (∂h/∂p)_T at T [K], P [Pa]: the part of :meth:`terms` a path slope needs."""
