@@ -1,10 +1,9 @@
 """Temperature from enthalpy or entropy at fixed pressure by Newton's method."""
 from __future__ import annotations
 
-import math
-
 __all__ = ["invert_temperature", "invert_to_state"]
 
+import math
 from typing import Callable
 
 from stagewright.core.errors import PropertyRangeError, message_detail, quantity
@@ -71,7 +70,8 @@ def invert_to_state(evaluate: Callable[[float], tuple], target: float, T_guess: 
         about 1e-15 of themselves).
     in_log : bool
         Take Newton's steps in ln T, :math:`T \leftarrow T\,\exp(-r/(T\,f'))`: for s(T) at fixed p,
-        nearly :math:`c_p \ln T`, a step from 1 K off lands within about 1e-5 K (in T, within 1e-3 K).
+        nearly :math:`c_p \ln T`, a step from 1 K off lands within about 1e-5 K of the root (a
+        step in T, within about 1e-3 K).
 
     Returns
     -------

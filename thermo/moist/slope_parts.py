@@ -49,6 +49,13 @@ def _virial_weights(mix, W: float) -> tuple[float, float, float]:
 def fast_slope_parts(stream):
     r"""``parts(T, P) -> (p v/c_p, p (∂h/∂p)_T/c_p, p v)`` of ``stream``, or None where it cannot help.
 
+    ``parts(T, P, derivative=True)`` also returns the temperature derivatives at constant p of the
+    first two, :math:`\partial a/\partial T` and :math:`\partial b/\partial T` (from CoolProp's
+    :math:`(\partial\rho/\partial T)_p`, :math:`(\partial^2\rho/\partial T^2)_p` and
+    :math:`(\partial c_p/\partial T)_p` of dry air and the cubic tables' own derivatives, so they are
+    the derivatives of the function as computed); states it hands to the general method answer the
+    three values alone.
+
     The gas phase per kilogram of dry air with vapour content :math:`w` and interaction volume
     :math:`D(T)` (second virial coefficients of RP-1485 [1]_, per kilogram of dry air):
 

@@ -188,7 +188,7 @@ class MoistAir:
 
         def step(T: float, st: tuple, d: float):
             h, s, v, cp, hp, w_v, w_l = st
-            if w_l != 0.0 or st[5] != self.water:
+            if w_l != 0.0 or w_v != self.water:
                 return None
             slope = v_t(T, P)
             if slope is None:
