@@ -379,7 +379,7 @@ def _isothermal_exergy(model, P: float, dead, mixture=None) -> float:
         return flow_exergy(model.at_tp(T0, P, "isothermal reference"), 0.0, dead)
     check_range(T0, P, "isothermal reference")
     if mixture is not None and mixture is not model.mixture:
-        model = MoistAir(mixture, model.water)  # the same stream on that mixture's enhancement factor
+        model = moist_stream(mixture, model.water)  # the same stream on that mixture's enhancement factor
     w_v, w_l = model.split(T0, P)
     if w_l == 0.0:
         return flow_exergy(model.at_tp(T0, P, "isothermal reference"), 0.0, dead)

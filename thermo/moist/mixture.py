@@ -399,6 +399,7 @@ class MoistMixture:
             twin = copy.copy(self)
             twin._table = _fast_table()
             twin._liquid_memo = {}
+            twin.__dict__.pop("_streams", None)  # its own streams (stream.moist_stream), on its own factor
             self._interpolated_twin = twin
         return twin
 
