@@ -413,9 +413,9 @@ def _from_one_path(model: PropertyModel, inlet: Point, target: Point, p_out: flo
     if not abs(step) <= _NEWTON_STEP_MAX * u:
         return None
     u_new = u - step
-    corrected = [(math.exp(y - step * d), p) for (y, p), d in zip(nodes[:-1], dy_du[:-1])]
 
-    def states():
+    def states():  # the nodes moved by the Newton step along ∂ln T/∂u (only when a chart reads them)
+        corrected = [(math.exp(y - step * d), p) for (y, p), d in zip(nodes[:-1], dy_du[:-1])]
         return [inlet] + [model.at_tp(T, P, "polytropic path") for T, P in corrected] + [target]
     return 1.0 / u_new, PointsOnDemand(states, (inlet, target))
 

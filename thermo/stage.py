@@ -233,8 +233,11 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
         last = path_ends(path)[1]
         if last.T > iso.T + 0.1:  # the isobaric secant at p_out, nearer the discharge: a closer guess
             cp_mean = (last.h - iso.h) / (last.T - iso.T)
+        near = getattr(model, "isobaric_guess", None)  # second order from the end's own inversion
+        guess = near(last, h_out) if near is not None else None
         try:
-            outlet = model.at_hp(h_out, p_out, f"{where} discharge", T_guess=last.T + (h_out - last.h) / cp_mean)
+            outlet = model.at_hp(h_out, p_out, f"{where} discharge",
+                                 T_guess=guess if guess is not None else last.T + (h_out - last.h) / cp_mean)
         except PropertyRangeError as exc:
             if abs(h_out - last.h) > 1e-9 * abs(dh):  # at the edge of the range (a measured
                 raise _outlet_out_of_range(where, q_loss, v_out, exc) from None  # 1300 K): the known

@@ -152,12 +152,51 @@ class MoistAir:
 
     def at_hp(self, h: float, P: float, where: str = "", T_guess: float = 300.0) -> Point:
         at = self._state_without_slope()
+        seen = []  # (T, cp) of each evaluation, for isobaric_guess
 
         def f(T):
             st = at(T, P)
+            seen.append((T, st[3]))
             return st[0], st[3], st
         T, st = invert_to_state(f, h, T_guess, where, "enthalpy", taylor=self._taylor_step(P))
-        return self._point(T, P, st, where)
+        point = self._point(T, P, st, where)
+        self._last_hp = (point, st[3], seen)
+        return point
+
+    def isobaric_guess(self, near: Point, h: float) -> float | None:
+        r"""A temperature guess [K] for :meth:`at_hp` at ``h`` [J/kg] on the isobar of ``near``, to
+        second order from ``near``, or None unless ``near`` is what this stream's last :meth:`at_hp`
+        returned (its c_p and the secant of c_p between that inversion's evaluations are then known) [1]_.
+
+        .. math:: h - h_0 = c_p\,\delta + \tfrac12 c_p'\,\delta^2
+           \quad\Longrightarrow\quad \delta = \frac{2\,\Delta h}{c_p + \sqrt{c_p^2 + 2 c_p' \Delta h}}
+
+        with :math:`c_p'` the secant between the first and the last evaluation of that inversion (a few
+        kelvin apart; none, first order, when they are within 0.1 K or their c_p differ by more
+        than 1 %, i.e. the first had liquid). For a discharge a casing heat loss moves a couple of kelvin from the end of the
+        adiabatic compression, the guess is within about 1e-6 K, so the inversion needs one evaluation
+        (a first-order guess from the secant c_p between other states was some 1e-2 K off: two).
+
+        References
+        ----------
+        .. [1] K. E. Atkinson, *An Introduction to Numerical Analysis*, 2nd ed., Wiley, 1989, §1.1
+           (Taylor's theorem) and §2.2 (Newton's method).
+        """
+        last = self.__dict__.get("_last_hp")
+        if last is None or last[0] is not near and last[0] != near:
+            return None
+        point, cp, seen = last
+        if point.wl != 0.0:
+            return None  # with liquid h(T) has a kink at the dew point
+        (t_a, cp_a), (t_b, cp_b) = seen[0], seen[-1]
+        slope = 0.0
+        if abs(t_b - t_a) > 0.1 and abs(cp_b - cp_a) < 0.01 * cp_b:  # else rounding, or liquid at t_a
+            slope = (cp_b - cp_a) / (t_b - t_a)
+        dh = h - point.h
+        root = cp * cp + 2.0 * slope * dh
+        if not (cp > 0.0 and root > 0.0):
+            return None
+        return point.T + 2.0 * dh / (cp + math.sqrt(root))
 
     def at_sp(self, s: float, P: float, where: str = "", T_guess: float = 300.0) -> Point:
         at = self._state_without_slope()
