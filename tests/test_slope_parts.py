@@ -69,3 +69,29 @@ def test_fast_state_out_of_range_raises_the_general_error():
     at = fast_state(MoistAir(make_mixture(RealGasAir()), 0.01))
     with pytest.raises(PropertyRangeError):
         at(1400.0, 1e5)
+
+
+def test_the_interaction_volume_from_one_cubic_equals_the_sum_of_its_three_columns():
+    # issue 19: D, D' and D'' come from one cubic per grid interval (the weighted sum of the B_aa,
+    # B_aw and B_ww columns' cubics), kept per interval by the one-call functions. The reference is
+    # the sum of the three columns evaluated one by one (the weights of RP-1485's interaction
+    # volume, Herrmann, Wagner & Harvey 2009): equal to rounding
+    from stagewright.core.moist import mixture as mx
+    rng = random.Random(7)
+    mixture = make_mixture(RealGasAir())
+    _, _, aa, aw, ww = mixture._fused
+    for _ in range(500):
+        T, x_w = rng.uniform(230.0, 620.0), rng.uniform(1e-5, 0.3)
+        x = (T - mx._T_LO) / mx._STEP
+        i = min(max(int(x), 0), len(aa) - 1)
+        t = x - i
+        weights = (-mixture.n_a * x_w, 2.0 * mixture.n_a * x_w, mixture.n_a * x_w * x_w / (1.0 - x_w))
+        ref = [0.0, 0.0, 0.0]
+        for (a, b, c, e), k in zip((aa[i], aw[i], ww[i]), weights):
+            ref[0] += k * (a + t * (b + t * (c + t * e)))
+            ref[1] += k * (b + t * (2.0 * c + 3.0 * e * t)) / mx._STEP
+            ref[2] += k * (2.0 * c + 6.0 * e * t) / mx._STEP ** 2
+        got = mixture._fused_virial(i, t, x_w, 1.0 - x_w)
+        scale = [sum(abs(k * col[j]) for k, col in zip(weights, (aa[i], aw[i], ww[i]))) for j in range(3)]
+        for g, r, sc in zip(got, ref, scale):
+            assert abs(g - r) <= 1e-14 * max(sc, abs(r)) + 1e-300

@@ -130,6 +130,16 @@ class _ConstantCpWater:
         return self.h_ref + self.cp * (T - self.T_REF), self.s_ref + self.cp * math.log(T / self.T_REF), self.cp
 
 
+def virial_cubic(aa: tuple, aw: tuple, ww: tuple, ca: float, cw: float, cww: float) -> tuple:
+    """The cubic (in the grid fraction) of the interaction volume D per kilogram of dry air on one
+    grid interval: the weighted sum of the B_aa, B_aw and B_ww columns' cubics, coefficient by
+    coefficient, with the weights of :meth:`MoistMixture._fused_virial`. One function, so the
+    general method and the one-call functions of :mod:`stagewright.core.moist.slope_parts` (which
+    keep the cubic of each interval for their fixed water content) compute D alike, bit for bit."""
+    return (ca * aa[0] + cw * aw[0] + cww * ww[0], ca * aa[1] + cw * aw[1] + cww * ww[1],
+            ca * aa[2] + cw * aw[2] + cww * ww[2], ca * aa[3] + cw * aw[3] + cww * ww[3])
+
+
 class MoistMixture:
     r"""Moist air: a dry-air property model, water vapour, a saturation law and condensed water [1]_ [2]_ [3]_.
 
@@ -251,16 +261,13 @@ class MoistMixture:
         return (hw, sw, cpw, *self._fused_virial(i, t, x_w, x_a))
 
     def _fused_virial(self, i: int, t: float, x_w: float, x_a: float):
-        """(D, dD/dT, d²D/dT²) at grid interval i, fraction t (see :meth:`_fused_terms`)."""
+        """(D, dD/dT, d²D/dT²) at grid interval i, fraction t (see :meth:`_fused_terms`): the cubic
+        of :func:`virial_cubic` on that interval and its derivatives."""
         _, _, aa, aw, ww = self._fused
-        ca, cw, cww = -self.n_a * x_w, 2.0 * self.n_a * x_w, self.n_a * x_w * x_w / x_a
-        ss = _STEP * _STEP
-        d = d_t = d_tt = 0.0
-        for (a, b, c, e), k in ((aa[i], ca), (aw[i], cw), (ww[i], cww)):
-            d += k * (a + t * (b + t * (c + t * e)))
-            d_t += k * ((b + t * (2.0 * c + 3.0 * e * t)) / _STEP)
-            d_tt += k * ((2.0 * c + 6.0 * e * t) / ss)
-        return d, d_t, d_tt
+        a, b, c, e = virial_cubic(aa[i], aw[i], ww[i], -self.n_a * x_w, 2.0 * self.n_a * x_w,
+                                  self.n_a * x_w * x_w / x_a)
+        return (a + t * (b + t * (c + t * e)), (b + t * (2.0 * c + 3.0 * e * t)) / _STEP,
+                (2.0 * c + 6.0 * e * t) / (_STEP * _STEP))
 
     def gas_slope_terms(self, T: float, P: float, w: float):
         """(v, cp, (∂h/∂p)_T) of the gas phase, per kg dry air: :meth:`gas` without h and s,

@@ -18,6 +18,7 @@ import math
 from stagewright.core import coolprop_adapter as cpa
 from stagewright.core.models.base import P_MAX, P_MIN, T_MAX, T_MIN
 from stagewright.core.moist import mixture as mx  # the grid constants of the fused tables
+from stagewright.core.moist.mixture import virial_cubic
 
 _LIQUID_NEGLIGIBLE = 1e-9  # as stagewright.core.moist.stream: a liquid share (of the water) treated as none on a path
 
@@ -102,6 +103,7 @@ def fast_slope_parts(stream):
     t_lo, step = mx._T_LO, mx._STEP
     ss = step * step
     ca, cw, cww = _virial_weights(mix, W)
+    cubics = {}  # grid interval -> the cubic of D there (virial_cubic), for this water content
     wRw = W * mix.R_w
     flash = dry._flash  # the dry-air model's (T, p) flash (stagewright.core.air_tp_flash)
     rhomass, cpmass, partial = state.rhomass, state.cpmass, state.first_partial_deriv
@@ -135,18 +137,13 @@ def fast_slope_parts(stream):
         t = x - i
         _, b, c, e = hc[i]
         cpw = (b + t * (2.0 * c + 3.0 * e * t)) / step
-        a, b, c, e = aa[i]  # the sums of the general method start from 0.0: 0.0 + x is x
-        d = ca * (a + t * (b + t * (c + t * e)))
-        d_t = ca * ((b + t * (2.0 * c + 3.0 * e * t)) / step)
-        d_tt = ca * ((2.0 * c + 6.0 * e * t) / ss)
-        a, b, c, e = aw[i]
-        d += cw * (a + t * (b + t * (c + t * e)))
-        d_t += cw * ((b + t * (2.0 * c + 3.0 * e * t)) / step)
-        d_tt += cw * ((2.0 * c + 6.0 * e * t) / ss)
-        a, b, c, e = ww[i]
-        d += cww * (a + t * (b + t * (c + t * e)))
-        d_t += cww * ((b + t * (2.0 * c + 3.0 * e * t)) / step)
-        d_tt += cww * ((2.0 * c + 6.0 * e * t) / ss)
+        cubic = cubics.get(i)
+        if cubic is None:
+            cubic = cubics[i] = virial_cubic(aa[i], aw[i], ww[i], ca, cw, cww)
+        a, b, c, e = cubic
+        d = a + t * (b + t * (c + t * e))
+        d_t = (b + t * (2.0 * c + 3.0 * e * t)) / step
+        d_tt = (2.0 * c + 6.0 * e * t) / ss
         v = v_a + wRw * T / P + d
         cp = cp_a + W * cpw - P * T * d_tt
         hp = hp_a + d - T * d_t
@@ -156,8 +153,8 @@ def fast_slope_parts(stream):
         rho_t = partial(iD, iT, iP)
         v_t = -v_a * v_a * rho_t + wRw / P + d_t
         v_a_tt = (2.0 * rho_t * rho_t * v_a - second(iD, iT, iP, iT, iP)) * v_a * v_a
+        d_ttt = e * 6.0 / (ss * step)
         _, _, c, e = hc[i]
-        d_ttt = (ca * aa[i][3] + cw * aw[i][3] + cww * ww[i][3]) * 6.0 / (ss * step)
         cp_t = partial(iCp, iT, iP) + W * (2.0 * c + 6.0 * e * t) / ss - P * d_tt - P * T * d_ttt
         hp_t = -T * v_a_tt - T * d_tt
         return (P * v / cp, P * hp / cp, P * v,
@@ -221,6 +218,7 @@ def fast_state(stream):
     t_lo, step = mx._T_LO, mx._STEP
     ss = step * step
     ca, cw, cww = _virial_weights(mix, W)
+    cubics = {}  # grid interval -> the cubic of D there (virial_cubic), for this water content
     R_w = mix.R_w
     wRw = W * R_w
     s_mix = -mix.R_a * (math.log(x_a) + (W / eps) * math.log(x_w))
@@ -257,18 +255,13 @@ def fast_state(stream):
         cpw = (b + t * (2.0 * c + 3.0 * e * t)) / step
         a, b, c, e = sc[i]
         sw = a + t * (b + t * (c + t * e))
-        a, b, c, e = aa[i]  # the sums of the general method start from 0.0: 0.0 + x is x
-        d = ca * (a + t * (b + t * (c + t * e)))
-        d_t = ca * ((b + t * (2.0 * c + 3.0 * e * t)) / step)
-        d_tt = ca * ((2.0 * c + 6.0 * e * t) / ss)
-        a, b, c, e = aw[i]
-        d += cw * (a + t * (b + t * (c + t * e)))
-        d_t += cw * ((b + t * (2.0 * c + 3.0 * e * t)) / step)
-        d_tt += cw * ((2.0 * c + 6.0 * e * t) / ss)
-        a, b, c, e = ww[i]
-        d += cww * (a + t * (b + t * (c + t * e)))
-        d_t += cww * ((b + t * (2.0 * c + 3.0 * e * t)) / step)
-        d_tt += cww * ((2.0 * c + 6.0 * e * t) / ss)
+        cubic = cubics.get(i)
+        if cubic is None:
+            cubic = cubics[i] = virial_cubic(aa[i], aw[i], ww[i], ca, cw, cww)
+        a, b, c, e = cubic
+        d = a + t * (b + t * (c + t * e))
+        d_t = (b + t * (2.0 * c + 3.0 * e * t)) / step
+        d_tt = (2.0 * c + 6.0 * e * t) / ss
         return (h_a + W * hw + P * (d - T * d_t), s_a + W * (sw - R_w * log(P / p_ref)) + s_mix - P * d_t,
                 v_a + wRw * T / P + d, cp_a + W * cpw - P * T * d_tt, 0.0 + d - T * d_t, W, 0.0)
     return at
@@ -323,6 +316,7 @@ def fast_volume_slope(stream):
     last = len(aa) - 1
     t_lo, step = mx._T_LO, mx._STEP
     ca, cw, cww = _virial_weights(mix, W)
+    cubics = {}  # grid interval -> the cubic of D there (virial_cubic), for this water content
     wRw = W * mix.R_w
     partial, rhomass = state.first_partial_deriv, state.rhomass
     iD, iT, iP = cpa.iDmass, cpa.iT, cpa.iP
@@ -337,9 +331,11 @@ def fast_volume_slope(stream):
         elif i < 0:
             i = 0
         t = x - i
-        d_t = 0.0
-        for c, (_, b, c2, e) in ((ca, aa[i]), (cw, aw[i]), (cww, ww[i])):
-            d_t += c * ((b + t * (2.0 * c2 + 3.0 * e * t)) / step)
+        cubic = cubics.get(i)
+        if cubic is None:
+            cubic = cubics[i] = virial_cubic(aa[i], aw[i], ww[i], ca, cw, cww)
+        _, b, c, e = cubic
+        d_t = (b + t * (2.0 * c + 3.0 * e * t)) / step
         rho = rhomass()
         return -partial(iD, iT, iP) / (rho * rho) + wRw / P + d_t
     return v_t
