@@ -89,3 +89,37 @@ def test_outside_the_range_it_raises_coolprops_error():
     flash = tp_flash(state)
     with pytest.raises(ValueError):
         flash(-1.0, 300.0)
+
+
+def test_the_second_order_term_is_left_out_only_where_it_is_below_rounding():
+    # issue 19: where the virial estimate of Chebyshev's term is below 5e-18 of ρ, the last update
+    # takes the plain Newton step and (∂²p/∂ρ²)_T is not asked for. The density must still solve
+    # p(ρ, T) = p to rounding, and equal the density with the term always taken to an ulp or two
+    # (reference: the same iteration with Chebyshev's step, Atkinson 1989 §2.2).
+    import stagewright.core.air_tp_flash as module
+    seconds = []
+
+    class Counting(_CountingState):
+        def second_partial_deriv(self, *args):
+            seconds.append(args)
+            return self._state.second_partial_deriv(*args)
+    state, ref_state = Counting(cpa.new_gas_air_state()), cpa.new_gas_air_state()
+    flash = tp_flash(state)
+    always = module._NEGLIGIBLE
+    skipped = 0
+    for P, T in _states(1500, 5e6, 9):
+        seconds.clear()
+        flash(P, T)
+        skipped += not seconds
+        rho = state.rhomolar()
+        module._NEGLIGIBLE = -1.0  # the term always taken
+        try:
+            tp_flash(ref_state)(P, T)
+        finally:
+            module._NEGLIGIBLE = always
+        assert abs(rho / ref_state.rhomolar() - 1.0) <= 4.5e-16, (P, T)
+        assert abs(state.p() / P - 1.0) < (1e-14 if T >= 250.0 else 1e-11), (P, T)
+    assert skipped > 300  # mostly below about 5 bar: one CoolProp call fewer
+    seconds.clear()
+    flash(1.01325e5, 293.15)
+    assert not seconds
