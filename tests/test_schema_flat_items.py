@@ -59,3 +59,40 @@ def test_a_numpy_number_or_a_subclass_is_checked_as_before():
     out: list = []
     got = check(Items(Obj(fields={"v": Num(0.0, 1.0)})), [{"v": np.float64(0.5)}, {"v": np.float64(2.0)}], "p", out)
     assert got == [{"v": 0.5}, {"v": 2.0}] and [p.field for p in out] == ["p[1].v"]
+
+
+def _reference_num(schema: Num, value, path: str, out: list):
+    """The general check of one number, written out (finite, whole where asked, within its bounds)."""
+    if not isinstance(value, (int, float)) or isinstance(value, bool) or not math.isfinite(value):
+        out.append((path, value))
+        return value
+    if schema.integer and not float(value).is_integer():
+        out.append((path, value))
+        return value
+    lo = value <= schema.lo if schema.lo_open else value < schema.lo
+    hi = value >= schema.hi if schema.hi_open else value > schema.hi
+    if lo or hi:
+        out.append((path, value))
+    return int(value) if schema.integer else float(value)
+
+
+@pytest.mark.parametrize("lo_open", [False, True])
+@pytest.mark.parametrize("hi_open", [False, True])
+def test_a_plain_number_field_taken_on_the_quick_path_is_what_the_general_check_gives(lo_open, hi_open):
+    # issue 19: an object's plain float fields inside their bounds are taken as they are, without
+    # the general check's calls; the normalised value, its type and the problems must not change
+    num = Num(223.15, 333.15, "K", lo_open=lo_open, hi_open=hi_open, default=288.15)
+    schema = Obj({"t": num, "label": Text(default="x")})
+    rng = random.Random(19)
+    values = _VALUES + [rng.uniform(200.0, 350.0) for _ in range(300)] + [math.nextafter(223.15, 0.0),
+                                                                          math.nextafter(333.15, 1e9)]
+    for value in values:
+        out: list = []
+        got = check(schema, {"t": value}, "site", out)
+        ref_out: list = []
+        ref = _reference_num(num, value, "site.t", ref_out)
+        assert [(p.field, p.value) for p in out] == [(f, v) for f, v in ref_out]
+        assert got["t"] == ref or (got["t"] != got["t"] and ref != ref), value
+        assert type(got["t"]) is type(ref), value
+        assert got["label"] == "x"
+    assert check(schema, {}, "site", []) == {"t": 288.15, "label": "x"}

@@ -151,22 +151,52 @@ def _shown_key(key: str) -> str:
     return json.dumps(key)
 
 
+_FIELD_SPECS: dict = {}  #: id of an object's fields -> (the fields, their keys, one entry per field)
+
+
+def _field_spec(fields: dict) -> tuple:
+    """What :func:`_check_fields` needs of each field, worked out once per schema: the key, its
+    schema, whether it is a plain (not whole) number and its bounds, and what an absent key means
+    (required, a default, or nothing)."""
+    spec = _FIELD_SPECS.get(id(fields))
+    if spec is not None and spec[0] is fields:
+        return spec
+    entries = []
+    for key, sub in fields.items():
+        num = isinstance(sub, Num) and not sub.integer
+        required = getattr(sub, "required", False)
+        default = getattr(sub, "default", MISSING)
+        entries.append((key, sub, num, sub.lo if num else 0.0, sub.hi if num else 0.0,
+                        num and sub.lo_open, num and sub.hi_open, required, default,
+                        isinstance(default, (dict, list))))
+    spec = (fields, frozenset(fields), tuple(entries))
+    _FIELD_SPECS[id(fields)] = spec  # the fields kept alive with it, so that their id is never reused
+    return spec
+
+
 def _check_fields(fields: dict, v: dict, path: str, out: list, skip=()) -> dict:
+    _, known, entries = _field_spec(fields)
     result = {}
     prefix = f"{path}." if path else ""
-    for key in v:
-        if key not in fields and key not in skip:
-            known = ", ".join(sorted(list(fields) + list(skip)))
-            out.append(Problem(f"{prefix}{_shown_key(key)}", v[key], f"unknown key; known keys here: {known}"))
-    for key, sub in fields.items():
+    if not known.issuperset(v):
+        for key in v:
+            if key not in fields and key not in skip:
+                names = ", ".join(sorted(list(fields) + list(skip)))
+                out.append(Problem(f"{prefix}{_shown_key(key)}", v[key], f"unknown key; known keys here: {names}"))
+    for key, sub, num, lo, hi, lo_open, hi_open, required, default, container in entries:
         if key in v:
-            result[key] = check(sub, v[key], f"{prefix}{key}", out)
-        elif getattr(sub, "required", False):
+            value = v[key]
+            # a plain finite float inside its bounds is its own normalised value (as _check_num)
+            if num and type(value) is float and value - value == 0.0 and not (
+                    (value <= lo if lo_open else value < lo) or (value >= hi if hi_open else value > hi)):
+                result[key] = value
+            else:
+                result[key] = check(sub, value, f"{prefix}{key}", out)
+        elif required:
             what = sub.describe() if hasattr(sub, "describe") else ""
             out.append(Problem(f"{prefix}{key}", None, "required key is missing" + (f"; {what}" if what else "")))
-        elif getattr(sub, "default", MISSING) is not MISSING:
-            d = sub.default
-            result[key] = check(sub, d, f"{prefix}{key}", out) if isinstance(d, (dict, list)) else d
+        elif default is not MISSING:
+            result[key] = check(sub, default, f"{prefix}{key}", out) if container else default
     return result
 
 
