@@ -113,3 +113,46 @@ def test_a_discharge_after_a_casing_heat_loss_takes_one_evaluation(monkeypatch):
     assert out.T == pytest.approx(ref.T, rel=1e-14) and out.rho == pytest.approx(ref.rho, rel=1e-13)
     doc["stages"][0]["heat_loss_W"] = 0.0
     assert out.T < stagewright.core.solve(doc).stages[0].outlet.T - 3.0  # the loss: 3.75 kJ/kg
+
+
+@settings(max_examples=60, deadline=None, suppress_health_check=[HealthCheck.too_slow])
+@given(T=st.floats(230.0, 330.0), P=st.floats(6e4, 1.1e5), w=st.floats(1e-5, 0.02), drop=st.floats(1.0, 5000.0))
+def test_the_throttle_guess_by_the_joule_thomson_coefficient_is_within_a_taylor_step(T, P, w, drop):
+    # the intake filter is a throttle: from the ambient state, μ_JT = (T v_T - v)/c_p (Çengel & Boles
+    # 2015, §12-5) moves the guess to within a Taylor step of the root (reference: the plain
+    # Newton inversion from 5 K off, Press et al. 2007 §9.4), so the filter outlet takes one evaluation
+    air = MoistAir(MIX, w)
+    ambient = air.at_tp(T, P)
+    assume(ambient.wl == 0.0)
+    guess = air.isenthalpic_guess(ambient, P - drop)
+    assert guess is not None and guess != T
+    root = air.at_hp(ambient.h, P - drop, T_guess=T + 5.0)
+    assert abs(guess - root.T) < 1e-5  # 1e-6 K at most at 230 K, 0.6 bar and 3 kPa
+    assert air.isenthalpic_guess(ambient, P - drop) is None  # the dry state moved on: no stale slope
+
+
+def test_the_intake_filter_outlet_takes_one_evaluation(monkeypatch):
+    import stagewright.core
+    doc = {"site": {"ambient_temperature_K": 297.0, "barometric_pressure_Pa": 99e3, "relative_humidity": 0.6},
+           "fluid": {"model": "real_gas"}, "flow": {"kind": "mass", "value": 0.4}, "discharge_pressure_Pa": 3e5,
+           "inlet_pressure_drop_Pa": 2500.0, "stages": [{"efficiency": {"kind": "isentropic", "value": 0.8}}]}
+    calls = []
+    original = MoistAir.at_hp
+
+    def counted(self, h, P, where="", T_guess=300.0):
+        if where == "intake filter outlet":
+            plain = self._state_without_slope()
+            self._fast_state = lambda T, P, need_cp=True: calls.append(T) or plain(T, P, need_cp)
+            try:
+                return original(self, h, P, where, T_guess)
+            finally:
+                self._fast_state = plain
+        return original(self, h, P, where, T_guess)
+    monkeypatch.setattr(MoistAir, "at_hp", counted)
+    res = stagewright.core.solve(doc)
+    assert len(calls) == 1  # two from the ambient temperature as the guess
+    after = res.stages[0].inlet
+    monkeypatch.undo()
+    _tight(monkeypatch)
+    ref = MoistAir(MIX, after.w).at_hp(after.h, after.P, T_guess=after.T + 5.0)
+    assert after.T == pytest.approx(ref.T, rel=1e-14) and after.T < 297.0

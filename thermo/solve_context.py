@@ -284,7 +284,9 @@ def _new_intake_state(model: PropertyModel, site: ResolvedSite) -> IntakeState:
     else:
         dead = DeadState(T0, P0, ambient.h, ambient.s, W0, *_water_reference(mixture, T0, P0, W0))
     p1 = P0 - site.inlet_pressure_drop_Pa
-    after_filter = stream.at_hp(ambient.h, p1, "intake filter outlet", T_guess=T0)
+    throttle = getattr(stream, "isenthalpic_guess", None)  # the Joule–Thomson change across the filter
+    t_guess = throttle(ambient, p1) if throttle is not None else None
+    after_filter = stream.at_hp(ambient.h, p1, "intake filter outlet", T_guess=T0 if t_guess is None else t_guess)
     # saturated over ice after rime: 1 within rounding, and never above (CoolProp refuses R > 1)
     rh0 = site.relative_humidity if mixture is None else min(1.0, mixture.saturation_degree(T0, P0, W0))
     return IntakeState(stream, mixture, W0, rh0, ambient, dead, after_filter, frost)

@@ -210,6 +210,36 @@ class MoistAir:
         T, st = invert_to_state(f, s, T_guess, where, "entropy", taylor=taylor, in_log=taylor is not None)
         return self._point(T, P, st, where)
 
+    def isenthalpic_guess(self, near: Point, P: float) -> float | None:
+        r"""A temperature guess [K] for :meth:`at_hp` at ``near.h`` and pressure P [Pa] (a throttle,
+        e.g. the intake filter), to first order in the pressure change by the Joule–Thomson
+        coefficient at ``near`` [1]_, or None where it is not known cheaply (liquid at ``near``, no
+        one-call volume slope, or the dry-air state is no longer set at ``near``).
+
+        .. math:: T \approx T_0 + \mu_\mathrm{JT}\,(p - p_0), \qquad
+           \mu_\mathrm{JT} = \left(\frac{\partial T}{\partial p}\right)_h
+           = \frac{T\,(\partial v/\partial T)_p - v}{c_p}
+
+        (v and c_p per kilogram of dry air). For a filter's pressure drop of a few kilopascal the
+        guess is within about 1e-6 K of the root (second order in the drop), inside the final 1e-4 K Taylor step: the
+        inversion needs one evaluation (the inlet temperature as the guess, some 3e-3 K off: two).
+
+        References
+        ----------
+        .. [1] Y. A. Çengel, M. A. Boles, *Thermodynamics: An Engineering Approach*, 8th ed.,
+           McGraw-Hill, 2015, §12-5 (the Joule–Thomson coefficient).
+        """
+        if near.wl != 0.0 or near.w != self.water:
+            return None
+        v_t = self.__dict__.get("_volume_slope", False)
+        if v_t is False:
+            v_t = self._volume_slope = fast_volume_slope(self)
+        slope = v_t(near.T, near.P) if v_t is not None else None
+        if slope is None:
+            return None
+        _, _, v, cp, _, _, _ = self._state_without_slope()(near.T, near.P)  # no flash: the state is set
+        return near.T + (near.T * slope - v) / cp * (P - near.P)
+
     def _taylor_step(self, P: float):
         r"""``(T, state, δ) -> state at T + δ`` at pressure P to first order, for the last step of an
         inversion (:func:`stagewright.core.models.newton.invert_to_state`), or None where the stream
