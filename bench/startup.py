@@ -5,7 +5,8 @@
     python bench/startup.py --kept     # the demo saved with its results (File > Keep Results in File)
 
 Each run starts a fresh interpreter (``--child``) that opens the demo project offscreen and
-prints a line at each milestone; the parent stamps the lines as they arrive, so interpreter
+prints a line at each milestone (``parsed``: CoolProp's fluid library parsed on its background
+thread; ``loaded``: CoolProp imported by the first property call); the parent stamps the lines as they arrive, so interpreter
 start-up and imports are included. Plain Python, no timing asserts.
 """
 from __future__ import annotations
@@ -19,7 +20,7 @@ import time
 from pathlib import Path
 
 ROOT = Path(__file__).resolve().parent.parent
-MILESTONES = ("shown", "figures", "solved", "charts")
+MILESTONES = ("shown", "parsed", "loaded", "figures", "solved", "charts")
 
 
 def child(project: str | None = None) -> int:
@@ -61,6 +62,7 @@ def child(project: str | None = None) -> int:
                 print("charts", flush=True)
                 loop.quit()
         win.editor.result_changed.connect(check)  # before show: the window's own slots come later
+        _watch_library()
         win.show()
         app.processEvents()
         print("shown", flush=True)
@@ -73,6 +75,26 @@ def child(project: str | None = None) -> int:
         win.editor.shutdown()
         win.close()
     return 0
+
+
+def _watch_library() -> None:
+    """Print "parsed" when CoolProp's fluid library has been parsed on its background thread and
+    "loaded" when the first property call has imported CoolProp (a thread polling every 2 ms)."""
+    import threading
+
+    from stagewright.core import coolprop_adapter
+
+    def watch():
+        ahead, said = getattr(coolprop_adapter, "_AHEAD", None), set()
+        while len(said) < 2:
+            if "parsed" not in said and (ahead is None or not ahead.is_alive()):
+                said.add("parsed")
+                print("parsed", flush=True)
+            if "loaded" not in said and getattr(coolprop_adapter, "LOADED", None) is not None:
+                said.add("loaded")
+                print("loaded", flush=True)
+            time.sleep(0.002)
+    threading.Thread(target=watch, daemon=True).start()
 
 
 def one_run(project: str | None = None) -> dict:
