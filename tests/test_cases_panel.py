@@ -86,7 +86,7 @@ def test_new_rename_remove_make_base_are_each_one_undo_step(qtbot, tmp_path):
     win.close()
 
 
-def test_compare_runs_off_the_gui_thread_and_equals_each_case_alone(qtbot, tmp_path):
+def test_compare_runs_off_the_gui_thread_and_equals_each_case_alone(qtbot, tmp_path, monkeypatch):
     doc = _two_case_doc()
     win = make_window(qtbot, tmp_path, doc)
     panel = _panel(win)
@@ -102,9 +102,23 @@ def test_compare_runs_off_the_gui_thread_and_equals_each_case_alone(qtbot, tmp_p
     base_kW = panel.outcomes[0].result["driver_power_W"] / 1e3
     cool_kW = panel.outcomes[1].result["driver_power_W"] / 1e3
     assert cool_cell.startswith(f"{cool_kW:.2f}") and f"{cool_kW - base_kW:+.2f} kW".replace("-", "−") in cool_cell
+    # the charts are drawn when their tabs show (issue 19: hidden charts are not redrawn)
+    assert panel.tabs.currentIndex() == 0 and panel.canvas is None and panel.paths_canvas is None
+    panel.tabs.setCurrentIndex(1)
     assert panel.canvas is not None and len(panel.canvas.figure.axes) >= 3
+    panel.tabs.setCurrentIndex(2)
     gids = {line.get_gid() for line in panel.paths_canvas.figure.axes[0].get_lines()}
     assert {"Base:stage-1", "Cool day:stage-1", "Cool day:cooler-2"} <= gids  # the paths overlaid
+    # a change of units redraws only the chart on screen; the other is drawn when its tab shows
+    drawn = []
+    from stagewright.gui.charts import case_chart, case_ts_chart
+    for module, name, tag in ((case_chart, "draw_case_comparison", "chart"), (case_ts_chart, "draw_case_paths", "paths")):
+        monkeypatch.setattr(module, name, lambda *a, _f=getattr(module, name), _t=tag: drawn.append(_t) or _f(*a))
+    win.set_us_units(True)
+    assert drawn == ["paths"]
+    panel.tabs.setCurrentIndex(1)
+    assert drawn == ["paths", "chart"]
+    win.set_us_units(False)
     if os.environ.get("STAGEWRIGHT_SHOTS"):
         win.resize(1280, 800)
         panel.tabs.setCurrentIndex(0)

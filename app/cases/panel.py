@@ -102,6 +102,7 @@ class CasesPanel(QWidget):
         self.status.setWordWrap(True)
         rv.addWidget(self.status)
         self.tabs = QTabWidget()
+        self.tabs.currentChanged.connect(self._draw_shown)  # a chart marked while hidden is drawn now
         self.table = QTableWidget(0, 0)
         self.table.setEditTriggers(QAbstractItemView.NoEditTriggers)
         self.table.setWordWrap(True)
@@ -290,15 +291,35 @@ class CasesPanel(QWidget):
         return canvas
 
     def _draw(self, outcomes: list, reference: str, system: str) -> None:
+        """Draw the comparison charts, each when its tab is on screen: a hidden chart is only marked
+        to be drawn (:meth:`_draw_shown` draws it when its tab or the panel shows), so a change of
+        units or an edit elsewhere does not redraw charts nobody sees (matplotlib: ~0.1 s each)."""
+        self._pending = {"chart": (outcomes, reference, system), "paths": (outcomes, reference, system)}
+        self._draw_shown()
+
+    def _draw_shown(self, *_args) -> None:
+        pending = getattr(self, "_pending", None)
+        if not pending:
+            return
         from stagewright.gui.charts.case_chart import draw_case_comparison
         from stagewright.gui.charts.case_ts_chart import draw_case_paths
-        if self.canvas is None:
-            self.canvas = self._canvas(self.chart_holder, (9, 2.6))
-            self.paths_canvas = self._canvas(self.paths_holder, (9, 3.2))
-        for canvas, draw in ((self.canvas, draw_case_comparison), (self.paths_canvas, draw_case_paths)):
+        for name, holder, draw, size in (("chart", self.chart_holder, draw_case_comparison, (9, 2.6)),
+                                         ("paths", self.paths_holder, draw_case_paths, (9, 3.2))):
+            if name not in pending or not holder.isVisible():
+                continue
+            outcomes, reference, system = pending.pop(name)
+            attr = "canvas" if name == "chart" else "paths_canvas"
+            canvas = getattr(self, attr)
+            if canvas is None:
+                canvas = self._canvas(holder, size)
+                setattr(self, attr, canvas)
             canvas.figure.clear()
             draw(canvas.figure, outcomes, reference, system)
             canvas.draw_idle()
+
+    def showEvent(self, event) -> None:  # noqa: N802 (Qt's name)
+        super().showEvent(event)
+        self._draw_shown()
 
     def shutdown(self) -> None:
         self.runner.shutdown()
