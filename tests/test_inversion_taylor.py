@@ -64,6 +64,25 @@ def test_a_guess_a_kelvin_off_takes_two_evaluations(monkeypatch):
         assert len(calls) == 2, invert.__name__
 
 
+def _count_at_hp_evaluations(monkeypatch, chosen) -> list:
+    """The temperatures at which MoistAir.at_hp evaluates a state, for the inversions whose
+    ``where`` satisfies ``chosen`` (a list the caller reads after the solve)."""
+    calls = []
+    original = MoistAir.at_hp
+
+    def counted(self, h, P, where="", T_guess=300.0):
+        if not chosen(where):
+            return original(self, h, P, where, T_guess)
+        plain = self._state_without_slope()
+        self._fast_state = lambda T, P, need_cp=True: calls.append(T) or plain(T, P, need_cp)
+        try:
+            return original(self, h, P, where, T_guess)
+        finally:
+            self._fast_state = plain
+    monkeypatch.setattr(MoistAir, "at_hp", counted)
+    return calls
+
+
 @settings(max_examples=60, deadline=None, suppress_health_check=[HealthCheck.too_slow])
 @given(T=st.floats(360.0, 600.0), P=st.floats(2e5, 4e6), w=st.floats(1e-4, 0.02), off=st.floats(0.5, 6.0),
        sign=st.sampled_from((-1.0, 1.0)), drop=st.floats(-3000.0, 3000.0))
@@ -91,19 +110,7 @@ def test_a_discharge_after_a_casing_heat_loss_takes_one_evaluation(monkeypatch):
     doc = {"site": {"ambient_temperature_K": 300.0, "barometric_pressure_Pa": 1e5, "relative_humidity": 0.5},
            "fluid": {"model": "real_gas"}, "flow": {"kind": "mass", "value": 0.4}, "discharge_pressure_Pa": 3e5,
            "stages": [{"efficiency": {"kind": "isentropic", "value": 0.8}, "heat_loss_W": 1500.0}]}
-    calls = []
-    original = MoistAir.at_hp
-
-    def counted(self, h, P, where="", T_guess=300.0):
-        if where.endswith("discharge"):
-            plain = self._state_without_slope()
-            self._fast_state = lambda T, P, need_cp=True: calls.append(T) or plain(T, P, need_cp)
-            try:
-                return original(self, h, P, where, T_guess)
-            finally:
-                self._fast_state = plain
-        return original(self, h, P, where, T_guess)
-    monkeypatch.setattr(MoistAir, "at_hp", counted)
+    calls = _count_at_hp_evaluations(monkeypatch, lambda where: where.endswith("discharge"))
     res = stagewright.core.solve(doc)
     assert len(calls) == 1  # two with the first-order secant guess
     out = res.stages[0].outlet
@@ -136,19 +143,7 @@ def test_the_intake_filter_outlet_takes_one_evaluation(monkeypatch):
     doc = {"site": {"ambient_temperature_K": 297.0, "barometric_pressure_Pa": 99e3, "relative_humidity": 0.6},
            "fluid": {"model": "real_gas"}, "flow": {"kind": "mass", "value": 0.4}, "discharge_pressure_Pa": 3e5,
            "inlet_pressure_drop_Pa": 2500.0, "stages": [{"efficiency": {"kind": "isentropic", "value": 0.8}}]}
-    calls = []
-    original = MoistAir.at_hp
-
-    def counted(self, h, P, where="", T_guess=300.0):
-        if where == "intake filter outlet":
-            plain = self._state_without_slope()
-            self._fast_state = lambda T, P, need_cp=True: calls.append(T) or plain(T, P, need_cp)
-            try:
-                return original(self, h, P, where, T_guess)
-            finally:
-                self._fast_state = plain
-        return original(self, h, P, where, T_guess)
-    monkeypatch.setattr(MoistAir, "at_hp", counted)
+    calls = _count_at_hp_evaluations(monkeypatch, lambda where: where == "intake filter outlet")
     res = stagewright.core.solve(doc)
     assert len(calls) == 1  # two from the ambient temperature as the guess
     after = res.stages[0].inlet
