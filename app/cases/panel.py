@@ -101,6 +101,7 @@ class CasesPanel(QWidget):
         self.status.setObjectName("footNote")
         self.status.setWordWrap(True)
         rv.addWidget(self.status)
+        self._pending: dict = {}  # chart name -> what to draw when its tab shows (see _draw)
         self.tabs = QTabWidget()
         self.tabs.currentChanged.connect(self._draw_shown)  # a chart marked while hidden is drawn now
         self.table = QTableWidget(0, 0)
@@ -298,7 +299,7 @@ class CasesPanel(QWidget):
         self._draw_shown()
 
     def _draw_shown(self, *_args) -> None:
-        pending = getattr(self, "_pending", None)
+        pending = self._pending
         if not pending:
             return
         from stagewright.gui.charts.case_chart import draw_case_comparison

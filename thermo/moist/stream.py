@@ -185,7 +185,7 @@ class MoistAir:
            (Taylor's theorem) and §2.2 (Newton's method).
         """
         last = self.__dict__.get("_last_hp")
-        if last is None or last[0] is not near and last[0] != near:
+        if last is None or (last[0] is not near and last[0] != near):
             return None
         point, cp, seen = last
         if point.wl != 0.0:
@@ -221,8 +221,9 @@ class MoistAir:
            = \frac{T\,(\partial v/\partial T)_p - v}{c_p}
 
         (v and c_p per kilogram of dry air). For a filter's pressure drop of a few kilopascal the
-        guess is within about 1e-6 K of the root (second order in the drop), inside the final 1e-4 K Taylor step: the
-        inversion needs one evaluation (the inlet temperature as the guess, some 3e-3 K off: two).
+        guess is within about 1e-6 K of the root (second order in the drop), inside the final
+        1e-4 K Taylor step: the inversion needs one evaluation (the inlet temperature as the
+        guess, some 3e-3 K off: two).
 
         References
         ----------
@@ -231,14 +232,19 @@ class MoistAir:
         """
         if near.wl != 0.0 or near.w != self.water:
             return None
-        v_t = self.__dict__.get("_volume_slope", False)
-        if v_t is False:
-            v_t = self._volume_slope = fast_volume_slope(self)
+        v_t = self._volume_slope_fn()
         slope = v_t(near.T, near.P) if v_t is not None else None
         if slope is None:
             return None
         _, _, v, cp, _, _, _ = self._state_without_slope()(near.T, near.P)  # no flash: the state is set
         return near.T + (near.T * slope - v) / cp * (P - near.P)
+
+    def _volume_slope_fn(self):
+        """This stream's :func:`~stagewright.core.moist.slope_parts.fast_volume_slope` (made once), or None."""
+        v_t = self.__dict__.get("_volume_slope", False)
+        if v_t is False:
+            v_t = self._volume_slope = fast_volume_slope(self)
+        return v_t
 
     def _taylor_step(self, P: float):
         r"""``(T, state, δ) -> state at T + δ`` at pressure P to first order, for the last step of an
@@ -251,9 +257,7 @@ class MoistAir:
 
         (:math:`(\partial s/\partial T)_p = c_p/T`; Taylor's theorem, the error of order δ²).
         """
-        v_t = self.__dict__.get("_volume_slope", False)
-        if v_t is False:
-            v_t = self._volume_slope = fast_volume_slope(self)
+        v_t = self._volume_slope_fn()
         if v_t is None:
             return None
 
