@@ -6,8 +6,8 @@
 
 Each run starts a fresh interpreter (``--child``) that opens the demo project offscreen and
 prints a line at each milestone (``parsed``: CoolProp's fluid library parsed on its background
-thread; ``loaded``: CoolProp imported by the first property call); the parent stamps the lines as they arrive, so interpreter
-start-up and imports are included. Plain Python, no timing asserts.
+thread; ``loaded``: CoolProp imported by the first property call); the parent stamps the lines as
+they arrive, so interpreter start-up and imports are included. Plain Python, no timing asserts.
 """
 from __future__ import annotations
 

@@ -229,15 +229,16 @@ def solve_stage(model: PropertyModel, spec: dict, index: int, inlet: Point, inle
     if not detail and q_loss == 0.0 and v_out == 0.0:  # a trial's path ends at h_out already
         outlet = path[-1]
     else:
-        cp_mean = dh_s / (iso.T - start.T) if iso.T > start.T else 1000.0  # secant cp, a guess only
         last = path_ends(path)[1]
-        if last.T > iso.T + 0.1:  # the isobaric secant at p_out, nearer the discharge: a closer guess
-            cp_mean = (last.h - iso.h) / (last.T - iso.T)
         near = getattr(model, "isobaric_guess", None)  # second order from the end's own inversion
         guess = near(last, h_out) if near is not None else None
+        if guess is None:  # first order with a secant cp
+            cp_mean = dh_s / (iso.T - start.T) if iso.T > start.T else 1000.0
+            if last.T > iso.T + 0.1:  # the isobaric secant at p_out, nearer the discharge: a closer guess
+                cp_mean = (last.h - iso.h) / (last.T - iso.T)
+            guess = last.T + (h_out - last.h) / cp_mean
         try:
-            outlet = model.at_hp(h_out, p_out, f"{where} discharge",
-                                 T_guess=guess if guess is not None else last.T + (h_out - last.h) / cp_mean)
+            outlet = model.at_hp(h_out, p_out, f"{where} discharge", T_guess=guess)
         except PropertyRangeError as exc:
             if abs(h_out - last.h) > 1e-9 * abs(dh):  # at the edge of the range (a measured
                 raise _outlet_out_of_range(where, q_loss, v_out, exc) from None  # 1300 K): the known
